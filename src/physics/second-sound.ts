@@ -1,0 +1,159 @@
+import { CubicBSpline } from './bspline';
+import { MODEL_MIN_K, T_LAMBDA_K } from './constants';
+import { densityUnchecked_g_cm3, DENSITY_G_CM3_TO_KG_M3 } from './density';
+import { requireInRange } from './errors';
+import { landauSecondSound } from './landau';
+import { SECOND_SOUND_SPLINE } from './reference-splines';
+
+/*
+ * Second-sound speed u2(T) along SVP, in three pieces:
+ *  - 0.5517 K to 2.176795 K: the published B-spline of Donnelly & Barenghi (1998), fitted to the
+ *    adopted measurements (Peshkov below 1.13 K; several sets above, Wang, Wagner & Donnelly 1987
+ *    at the maximum).
+ *  - 2.176795 K to Tλ (the last 5 µK): the spline's end coefficient leaves u2 at 0.106 m/s at Tλ,
+ *    where the superfluid fraction vanishes; there the critical scaling u2 ∝ t^(1/3), t = 1 − T/Tλ,
+ *    is joined to the spline in value, so u2 → 0 at Tλ.
+ *  - 0.3 K to 0.5517 K (model region): Landau's phonon–roton two-fluid u2, scaled by a smooth factor
+ *    g(T) = 1 + a x⁴ + b x⁵ (x = T/0.5517 K) fixed so that value and slope meet the measured curve;
+ *    g → 1 as T → 0, so u2 → u1(0)/√3. Below about 0.5 K second sound stops being a hydrodynamic
+ *    wave (phonon mean free paths grow), so this region is an extrapolation.
+ */
+
+const spline = new CubicBSpline(SECOND_SOUND_SPLINE);
+
+/** Lowest temperature of the measured curve, K (first knot of the published spline). */
+export const SECOND_SOUND_MEASURED_MIN_K = SECOND_SOUND_SPLINE.range[0];
+/** Where the critical power law takes over from the spline, K. */
+export const SECOND_SOUND_CRITICAL_JOIN_K = 2.176795;
+const CRITICAL_EXPONENT = 1 / 3;
+
+/** Which representation supplies u2 at a temperature. */
+export type SecondSoundRegion = 'Landau model' | 'measured' | 'critical scaling';
+
+const tJoin = 1 - SECOND_SOUND_CRITICAL_JOIN_K / T_LAMBDA_K;
+const criticalAmplitude = spline.value(SECOND_SOUND_CRITICAL_JOIN_K) / tJoin ** CRITICAL_EXPONENT;
+
+function landauU2(T: number): number {
+  return landauSecondSound(T, densityUnchecked_g_cm3(T) * DENSITY_G_CM3_TO_KG_M3);
+}
+
+const MODEL_STEP_K = 1e-6;
+const modelJoin = (() => {
+  const Tj = SECOND_SOUND_MEASURED_MIN_K;
+  const measured = spline.valueAndSlope(Tj);
+  const uL = landauU2(Tj);
+  const duL = (landauU2(Tj + MODEL_STEP_K) - landauU2(Tj - MODEL_STEP_K)) / (2 * MODEL_STEP_K);
+  const ratio = measured.value / uL;
+  const gSlope = (measured.slope - duL * ratio) / uL;
+  const R = ratio - 1;
+  const G = Tj * gSlope;
+  const b = G - 4 * R;
+  const a = R - b;
+  return { Tj, a, b, ratio };
+})();
+
+function modelFactor(T: number): { g: number; dg: number } {
+  const x = T / modelJoin.Tj;
+  const x4 = x * x * x * x;
+  return {
+    g: 1 + modelJoin.a * x4 + modelJoin.b * x4 * x,
+    dg: (4 * modelJoin.a * x * x * x + 5 * modelJoin.b * x4) / modelJoin.Tj,
+  };
+}
+
+/** Region that supplies u2 at T (no range check). */
+export function secondSoundRegion(T: number): SecondSoundRegion {
+  if (T < SECOND_SOUND_MEASURED_MIN_K) return 'Landau model';
+  if (T > SECOND_SOUND_CRITICAL_JOIN_K) return 'critical scaling';
+  return 'measured';
+}
+
+/** u2 (m/s) and du2/dT (m/s/K) with no range check (kernel-internal; 0.3 K ≤ T ≤ Tλ). */
+export function secondSoundUnchecked(T: number): { value: number; slope: number } {
+  if (T < SECOND_SOUND_MEASURED_MIN_K) {
+    const u = landauU2(T);
+    const du = (landauU2(T + MODEL_STEP_K) - landauU2(T - MODEL_STEP_K)) / (2 * MODEL_STEP_K);
+    const { g, dg } = modelFactor(T);
+    return { value: u * g, slope: du * g + u * dg };
+  }
+  if (T > SECOND_SOUND_CRITICAL_JOIN_K) {
+    const t = 1 - T / T_LAMBDA_K;
+    if (t <= 0) return { value: 0, slope: Number.NEGATIVE_INFINITY };
+    const value = criticalAmplitude * t ** CRITICAL_EXPONENT;
+    return { value, slope: (-CRITICAL_EXPONENT * value) / (t * T_LAMBDA_K) };
+  }
+  return spline.valueAndSlope(T);
+}
+
+/** Fast u2 alone (m/s), no range check: the hot path of sweeps and inversions. */
+export function secondSoundValueUnchecked(T: number): number {
+  if (T >= SECOND_SOUND_MEASURED_MIN_K && T <= SECOND_SOUND_CRITICAL_JOIN_K) return spline.value(T);
+  return secondSoundUnchecked(T).value;
+}
+
+const ABOVE_LAMBDA = 'above Tλ = 2.1768 K helium is He I, a normal fluid without a superfluid component, so there is no second sound';
+
+function checkT(T: number): void {
+  requireInRange('temperature', T, MODEL_MIN_K, T_LAMBDA_K, 'K', T > T_LAMBDA_K ? ABOVE_LAMBDA : undefined);
+}
+
+/**
+ * Second-sound speed u2 in He II at SVP, m/s.
+ * @param T temperature T90, K, 0.3 K – Tλ (0.3–0.5517 K is the Landau model region). u2(Tλ) = 0.
+ * Source: Donnelly & Barenghi (1998) spline; Landau model below 0.5517 K. Throws OutOfRangeError
+ * (naming He I above Tλ) or NonFiniteInputError.
+ */
+export function secondSound(T: number): number {
+  checkT(T);
+  return secondSoundValueUnchecked(T);
+}
+
+/** du2/dT, m/s per K; same range, source and errors as {@link secondSound}. −∞ at Tλ itself. */
+export function secondSoundSlope(T: number): number {
+  checkT(T);
+  return secondSoundUnchecked(T).slope;
+}
+
+/*
+ * Uncertainty of u2, one standard deviation, from the stated uncertainties of the data behind
+ * each part of the curve (Donnelly & Barenghi 1998, Table 4.1):
+ *  - below 1.13 K: Peshkov's measurements, stated 0.75 %;
+ *  - 1.60–1.70 K: Wang, Wagner & Donnelly (1987), stated 0.07 %; the spline sits 0.025 % above
+ *    their points, so 0.075 % in all;
+ *  - elsewhere up to Tλ: 0.25 %, the scatter of the published representation about its data;
+ *  - within 1 mK of Tλ, add |du2/dT| × 0.2 mK: the end of the curve is uncertain by about 0.2 mK
+ *    (the reference's own caution), and u2 changes fastest there;
+ *  - model region (below 0.5517 K): 3 % — the Landau sums differ from the measured curve by 2.1 %
+ *    at 0.5517 K (common practice, no source: a margin over that mismatch).
+ */
+const REL_SD_PESHKOV = 0.0075;
+const PESHKOV_MAX_K = 1.13;
+const REL_SD_WANG = 0.00075;
+const WANG_RANGE_K = [1.6, 1.7] as const;
+const REL_SD_REPRESENTATION = 0.0025;
+const REL_SD_MODEL = 0.03;
+const NEAR_LAMBDA_K = 1e-3;
+const LAMBDA_END_SD_K = 2e-4;
+
+/** One-sigma uncertainty of u2 at T (m/s), no range check. */
+export function secondSoundSdUnchecked(T: number, u2: number, slope: number): number {
+  let rel: number;
+  if (T < SECOND_SOUND_MEASURED_MIN_K) rel = REL_SD_MODEL;
+  else if (T < PESHKOV_MAX_K) rel = REL_SD_PESHKOV;
+  else if (T >= WANG_RANGE_K[0] && T <= WANG_RANGE_K[1]) rel = REL_SD_WANG;
+  else rel = REL_SD_REPRESENTATION;
+  const base = rel * u2;
+  if (T_LAMBDA_K - T >= NEAR_LAMBDA_K) return base;
+  // Capped at u2 itself: near Tλ the speed, not the slope, bounds what the curve can be off by.
+  return Math.hypot(base, Math.min(Math.abs(slope) * LAMBDA_END_SD_K, u2));
+}
+
+/**
+ * One-sigma uncertainty of the tabulated u2, m/s; same range and errors as {@link secondSound}.
+ * See the comment above for the basis of each region.
+ */
+export function secondSoundSd(T: number): number {
+  checkT(T);
+  const { value, slope } = secondSoundUnchecked(T);
+  return secondSoundSdUnchecked(T, value, slope);
+}

@@ -1,0 +1,33 @@
+import react from '@vitejs/plugin-react';
+import { defineConfig } from 'vitest/config';
+
+// Two projects: the kernel and CLI run in node; components in jsdom.
+// `include` is explicit so the Playwright specs in tests/e2e are never picked up.
+export default defineConfig({
+  plugins: [react()],
+  test: {
+    globals: true,
+    projects: [
+      {
+        extends: true,
+        test: {
+          name: 'unit',
+          environment: 'node',
+          include: ['tests/unit/**/*.test.ts'],
+        },
+      },
+      {
+        extends: true,
+        test: {
+          name: 'component',
+          environment: 'jsdom',
+          include: ['tests/component/**/*.test.tsx'],
+          setupFiles: ['tests/component/setup.ts'],
+        },
+      },
+    ],
+    benchmark: {
+      include: ['tests/bench/**/*.bench.ts'],
+    },
+  },
+});

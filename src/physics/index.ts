@@ -27,6 +27,7 @@ export {
   secondSoundSd,
   secondSoundSlope,
 } from './second-sound';
+export { DB1998, ITS90, LANDAU, PROPERTY_CATALOGUE, type PropertyInfo, type PropertyKey } from './catalogue';
 export { twoFluidSecondSound } from './two-fluid';
 export {
   ITS90_PRESSURE_RANGE_PA,

@@ -9,7 +9,7 @@ export { entropy } from './entropy';
 export { firstSound } from './first-sound';
 export { normalFraction, superfluidFraction } from './fractions';
 export { specificHeat } from './heat-capacity';
-export { landauGas, type LandauGas } from './landau';
+export { landauGas, landauSecondSound, type LandauGas } from './landau';
 export { nonlinearity } from './nonlinearity';
 export {
   type HeliumProperties,

@@ -14,6 +14,7 @@ export default defineConfig({
           name: 'unit',
           environment: 'node',
           include: ['tests/unit/**/*.test.ts'],
+          benchmark: { include: ['tests/bench/**/*.bench.ts'] },
         },
       },
       {
@@ -23,11 +24,9 @@ export default defineConfig({
           environment: 'jsdom',
           include: ['tests/component/**/*.test.tsx'],
           setupFiles: ['tests/component/setup.ts'],
+          benchmark: { include: [] },
         },
       },
     ],
-    benchmark: {
-      include: ['tests/bench/**/*.bench.ts'],
-    },
   },
 });

@@ -84,10 +84,38 @@ const LN_P_ITS_MAX = Math.log(2.5e5); // above p(5.0 K) ≈ 196 kPa
 const LN_P_LAMBDA = Math.log(P_LAMBDA_PA);
 const LN_P_OVERLAP = 1e-3; // lets each range's root sit a hair past the nominal joint
 
-/** ITS-90 vapour pressure at T (Pa), T in 1.25–5.0 K. */
+/** ITS-90 temperature and its derivative dT/d(ln p) for one range. */
+function its90TAndSlope(lnP: number, r: Its90Range): { T: number; dT: number } {
+  const x = (lnP - r.B) / r.C;
+  let T = r.A[0] as number;
+  let dT = 0;
+  let power = 1;
+  for (let i = 1; i < r.A.length; i++) {
+    const a = r.A[i] as number;
+    dT += i * a * power;
+    power *= x;
+    T += a * power;
+  }
+  return { T, dT: dT / r.C };
+}
+
+const NEWTON_STEP_TOLERANCE = 1e-13;
+const NEWTON_MAX_ITERATIONS = 20;
+
+/**
+ * ITS-90 vapour pressure at T (Pa), T in 1.25–5.0 K: Newton's method on ln p, started from the
+ * reference spline (within 0.1 % of the scale), with bisection as the fallback if it stalls.
+ */
 function its90Pressure(T: number): number {
   const low = T < ITS90_LOW.T_K[1];
   const r = low ? ITS90_LOW : ITS90_HIGH;
+  let lnP = Math.log(spline.value(T));
+  for (let i = 0; i < NEWTON_MAX_ITERATIONS; i++) {
+    const { T: Tn, dT } = its90TAndSlope(lnP, r);
+    const step = (Tn - T) / dT;
+    lnP -= step;
+    if (Math.abs(step) < NEWTON_STEP_TOLERANCE) return Math.exp(lnP);
+  }
   const lo = low ? LN_P_ITS_MIN : LN_P_LAMBDA - LN_P_OVERLAP;
   const hi = low ? LN_P_LAMBDA + LN_P_OVERLAP : LN_P_ITS_MAX;
   return Math.exp(bisectIncreasing((l) => its90T(Math.exp(l), r), T, lo, hi));

@@ -18,7 +18,7 @@ function kernelFiles(dir: string): string[] {
 }
 
 /** Every module specifier in import/export-from statements and dynamic imports or requires. */
-export function moduleSpecifiers(source: string): string[] {
+function moduleSpecifiers(source: string): string[] {
   const found: string[] = [];
   const patterns = [
     /\b(?:import|export)\s[^'"`;]*?\bfrom\s*['"]([^'"]+)['"]/g,

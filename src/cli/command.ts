@@ -1,0 +1,22 @@
+/**
+ * The shape of one command. main.ts keeps a table of these; adding a command (arrivals, plan,
+ * delay, trace, fit, locate) means writing one module that exports a Command and listing it there.
+ */
+import type { FlagSpec, ParsedArgs } from './args';
+import type { CliIo } from './io';
+
+/** One `sekundo <name>` command. */
+export interface Command {
+  readonly name: string;
+  /** One line for the command list in `sekundo --help`. */
+  readonly summary: string;
+  /** Usage line(s) after "sekundo ", e.g. "props --temperature <T> [--json]". */
+  readonly synopsis: readonly string[];
+  /** A few sentences for `sekundo <name> --help`. */
+  readonly description: string;
+  readonly flags: readonly FlagSpec[];
+  /** Complete example invocations, without the leading "sekundo ". */
+  readonly examples: readonly string[];
+  /** Runs the command; returns the exit status. Throws UsageError for bad input. */
+  run(args: ParsedArgs, io: CliIo): number;
+}

@@ -1,0 +1,97 @@
+/**
+ * Sekundo's command line: `sekundo <command> [flags]`. A thin layer over src/physics.
+ * Contract: results on stdout; bad input is one line on stderr and exit status 2; an unexpected
+ * internal error is one line on stderr and exit status 1. Never a stack trace.
+ */
+import { HELP_FLAGS, parseFlags } from './args';
+import type { Command } from './command';
+import { propsCommand } from './commands/props';
+import { vapourCommand } from './commands/vapour';
+import { EXIT_INTERNAL, EXIT_OK, EXIT_USAGE, UsageError } from './errors';
+import { renderCommandHelp, renderGeneralHelp } from './help';
+import { type CliIo, processIo } from './io';
+import { packageVersion } from './version';
+
+/** Every command, in the order `sekundo --help` lists them. Add new commands here. */
+export const COMMANDS: readonly Command[] = [propsCommand, vapourCommand];
+
+const PROGRAM = 'sekundo';
+const VERSION_FLAG = '--version';
+
+/**
+ * Runs the command line on `argv` (the arguments after the program name) and returns the exit
+ * status: 0 success, 1 internal error, 2 bad input. Writes only through `io`; never throws.
+ */
+export async function main(argv: string[], io: CliIo = processIo): Promise<number> {
+  try {
+    return dispatch(argv, io);
+  } catch (error) {
+    if (error instanceof UsageError) {
+      io.stderr(`${PROGRAM}: ${oneLine(error.message)}\n`);
+      return EXIT_USAGE;
+    }
+    io.stderr(`${PROGRAM}: internal error: ${oneLine(describeError(error))}\n`);
+    return EXIT_INTERNAL;
+  }
+}
+
+function dispatch(argv: readonly string[], io: CliIo): number {
+  const [first, ...rest] = argv;
+  if (first === undefined) throw new UsageError(`no command given; commands: ${commandNames()} (try "${PROGRAM} --help")`);
+  if (HELP_FLAGS.includes(first)) return printGeneralHelp(rest, io);
+  if (first === VERSION_FLAG) return printVersion(rest, io);
+  if (first === 'help') return printHelpFor(rest, io);
+  if (first.startsWith('-')) {
+    throw new UsageError(`unknown flag ${first.split('=')[0]}; give a command first: ${commandNames()}`);
+  }
+  const command = findCommand(first);
+  if (rest.some((token) => HELP_FLAGS.includes(token))) {
+    io.stdout(renderCommandHelp(command));
+    return EXIT_OK;
+  }
+  return command.run(parseFlags(command.name, rest, command.flags), io);
+}
+
+function printGeneralHelp(rest: readonly string[], io: CliIo): number {
+  requireNothingAfter(HELP_FLAGS[0] ?? '--help', rest);
+  io.stdout(renderGeneralHelp(COMMANDS, packageVersion()));
+  return EXIT_OK;
+}
+
+function printVersion(rest: readonly string[], io: CliIo): number {
+  requireNothingAfter(VERSION_FLAG, rest);
+  io.stdout(`${packageVersion()}\n`);
+  return EXIT_OK;
+}
+
+function printHelpFor(rest: readonly string[], io: CliIo): number {
+  const [name, ...extra] = rest;
+  if (name === undefined) return printGeneralHelp([], io);
+  requireNothingAfter(`help ${name}`, extra);
+  io.stdout(renderCommandHelp(findCommand(name)));
+  return EXIT_OK;
+}
+
+function findCommand(name: string): Command {
+  const command = COMMANDS.find((c) => c.name === name);
+  if (!command) throw new UsageError(`unknown command "${name}"; commands: ${commandNames()}, help`);
+  return command;
+}
+
+function requireNothingAfter(what: string, rest: readonly string[]): void {
+  const [extra] = rest;
+  if (extra !== undefined) throw new UsageError(`unexpected argument "${extra}" after ${what}`);
+}
+
+function commandNames(): string {
+  return COMMANDS.map((c) => c.name).join(', ');
+}
+
+function describeError(error: unknown): string {
+  return error instanceof Error ? `${error.name}: ${error.message}` : String(error);
+}
+
+/** Collapses any line breaks so the stderr contract (exactly one line) holds. */
+function oneLine(text: string): string {
+  return text.replace(/\s*[\r\n]+\s*/g, ' ').trim();
+}

@@ -1,0 +1,194 @@
+/**
+ * Quantities typed by people: "1.8K", "1800 mK", "1.6e3Pa", "50mm", "2.5 ms". Parsing turns text into
+ * a number in the SI base unit (K, Pa, m, s); every other unit exists only here, at the edge, through
+ * {@link toBaseUnit} and {@link fromBaseUnit}. Used by the command line and, later, the page.
+ */
+
+/** The kinds of quantity a user can type. */
+export type Dimension = 'temperature' | 'pressure' | 'length' | 'time';
+
+/**
+ * One unit: its value in the base unit is 10^pow10 · numerator / denominator, all exact.
+ * Decimal prefixes use pow10 alone, so "1800 mK" parses to exactly the same double as "1.8".
+ */
+interface UnitDefinition {
+  readonly pow10: number;
+  readonly numerator: number;
+  readonly denominator: number;
+}
+
+const decimal = (pow10: number): UnitDefinition => ({ pow10, numerator: 1, denominator: 1 });
+const ratio = (numerator: number, denominator: number): UnitDefinition => ({ pow10: 0, numerator, denominator });
+
+/** Standard atmosphere, Pa (CGPM 1954, exact). */
+export const STANDARD_ATMOSPHERE_PA = 101_325;
+/** Torr per standard atmosphere (definition of the torr, exact). */
+export const TORR_PER_ATMOSPHERE = 760;
+
+/** Unit symbols of each dimension, mapped to their exact size in the base unit (listed first). */
+const UNIT_TABLE = {
+  temperature: { K: decimal(0), mK: decimal(-3) },
+  pressure: {
+    Pa: decimal(0),
+    kPa: decimal(3),
+    mbar: decimal(2),
+    bar: decimal(5),
+    torr: ratio(STANDARD_ATMOSPHERE_PA, TORR_PER_ATMOSPHERE),
+    atm: ratio(STANDARD_ATMOSPHERE_PA, 1),
+  },
+  length: { m: decimal(0), cm: decimal(-2), mm: decimal(-3), um: decimal(-6), 'µm': decimal(-6) },
+  time: { s: decimal(0), ms: decimal(-3), us: decimal(-6), 'µs': decimal(-6), ns: decimal(-9) },
+} as const satisfies Record<Dimension, Record<string, UnitDefinition>>;
+
+/** Unit symbols accepted for a dimension, e.g. `UnitOf<'temperature'>` is `'K' | 'mK'`. */
+export type UnitOf<D extends Dimension> = D extends Dimension ? keyof (typeof UNIT_TABLE)[D] & string : never;
+/** Any unit symbol this module knows. */
+export type Unit = UnitOf<Dimension>;
+
+/** SI base unit of each dimension: what parsing returns and what a bare number means. */
+export const BASE_UNIT = {
+  temperature: 'K',
+  pressure: 'Pa',
+  length: 'm',
+  time: 's',
+} as const satisfies { [D in Dimension]: UnitOf<D> };
+
+/**
+ * Other spellings people type, mapped to the canonical symbol. The Greek mu (U+03BC) and the
+ * micro sign (U+00B5) look alike, so both are taken.
+ */
+const UNIT_ALIASES: Readonly<Record<string, string>> = {
+  Torr: 'torr',
+  'μm': 'µm',
+  'μs': 'µs',
+};
+
+/** What was wrong with a typed quantity. */
+export type QuantityProblem = 'empty' | 'not-a-number' | 'non-finite' | 'unknown-unit';
+
+/**
+ * A quantity that could not be read. The message names the quantity, what was wrong and the
+ * accepted units; the fields let a caller (CLI flag, form field) say the same in its own words.
+ */
+export class QuantityParseError extends Error {
+  override name = 'QuantityParseError';
+  constructor(
+    readonly dimension: Dimension,
+    readonly input: string,
+    readonly problem: QuantityProblem,
+    /** Human description of the problem, without the quantity's name. */
+    readonly detail: string,
+    readonly acceptedUnits: readonly string[],
+  ) {
+    super(`${dimension} ${detail}; accepted units: ${acceptedUnits.join(', ')}`);
+  }
+}
+
+/** Unit symbols accepted for `dimension`, base unit first. */
+export function unitsOf<D extends Dimension>(dimension: D): readonly UnitOf<D>[] {
+  return Object.keys(UNIT_TABLE[dimension]) as UnitOf<D>[];
+}
+
+function definitionOf(dimension: Dimension, unit: string): UnitDefinition | undefined {
+  const table: Readonly<Record<string, UnitDefinition>> = UNIT_TABLE[dimension];
+  return Object.hasOwn(table, unit) ? table[unit] : undefined;
+}
+
+function requireDefinition(dimension: Dimension, unit: string): UnitDefinition {
+  const definition = definitionOf(dimension, unit);
+  if (!definition) throw new RangeError(`"${unit}" is not a unit of ${dimension}`);
+  return definition;
+}
+
+function dimensionOf(unit: Unit): Dimension {
+  for (const dimension of Object.keys(UNIT_TABLE) as Dimension[]) {
+    if (definitionOf(dimension, unit)) return dimension;
+  }
+  throw new RangeError(`unknown unit "${unit}"`);
+}
+
+/**
+ * Converts a value in `unit` to the SI base unit of its dimension (K, Pa, m, s).
+ * Exact factors: 1 atm = 101325 Pa, 1 torr = 101325/760 Pa, 1 bar = 1e5 Pa, 1 mbar = 100 Pa.
+ * Throws RangeError for a symbol this module does not know (a programming error).
+ */
+export function toBaseUnit(value: number, unit: Unit): number {
+  const u = requireDefinition(dimensionOf(unit), unit);
+  return scaleByPow10((value * u.numerator) / u.denominator, u.pow10);
+}
+
+/**
+ * Converts a value in the SI base unit (K, Pa, m, s) to `unit` of the same dimension, for display.
+ * Throws RangeError for a symbol this module does not know (a programming error).
+ */
+export function fromBaseUnit(value: number, unit: Unit): number {
+  const u = requireDefinition(dimensionOf(unit), unit);
+  return (scaleByPow10(value, -u.pow10) * u.denominator) / u.numerator;
+}
+
+/** x · 10^k with one correctly rounded operation (10^|k| is an exact double for |k| ≤ 22). */
+function scaleByPow10(x: number, k: number): number {
+  return k >= 0 ? x * 10 ** k : x / 10 ** -k;
+}
+
+// A decimal number: optional sign, digits with an optional point, optional exponent.
+const NUMBER_PATTERN = /^([+-]?)(\d+(?:\.\d*)?|\.\d+)(?:[eE]([+-]?\d+))?\s*(.*)$/s;
+// Spellings of NaN and infinity that people (and scripts) produce.
+const NON_FINITE_PATTERN = /^[+-]?(?:nan|inf|infinity)\s*\S*$/i;
+
+/**
+ * Reads a quantity such as "1.8K", "1.8 K", "1800mK" or "1.6e3Pa" and returns it in the SI base
+ * unit of `dimension` (K, Pa, m or s). A bare number is taken in that base unit. Units are
+ * case-sensitive (mK is not MK), except "Torr" = "torr"; µ may be written u, µ or μ.
+ * Does not check physical ranges (callers do). Throws {@link QuantityParseError}.
+ */
+export function parseQuantity(text: string, dimension: Dimension): number {
+  const input = text.trim();
+  const fail = (problem: QuantityProblem, detail: string): QuantityParseError =>
+    new QuantityParseError(dimension, text, problem, detail, unitsOf(dimension));
+  if (input === '') throw fail('empty', `is empty: give a number with a unit, e.g. ${exampleOf(dimension)}`);
+  if (NON_FINITE_PATTERN.test(input)) throw fail('non-finite', `must be a finite number, got "${text}"`);
+  const match = NUMBER_PATTERN.exec(input);
+  if (!match) throw fail('not-a-number', `"${text}" does not start with a number`);
+  const [, sign = '', digits = '', exponent = '0', unitText = ''] = match;
+  const unit = unitText === '' ? BASE_UNIT[dimension] : (UNIT_ALIASES[unitText] ?? unitText);
+  const definition = definitionOf(dimension, unit);
+  if (!definition) throw fail('unknown-unit', `"${text}" has unknown unit "${unitText}"`);
+  // Shift the decimal exponent in the text itself, so the only rounding is the final parse.
+  const inBase = Number(`${sign}${digits}e${Number(exponent) + definition.pow10}`);
+  const value = (inBase * definition.numerator) / definition.denominator;
+  if (!Number.isFinite(value)) throw fail('non-finite', `"${text}" is too large to be a finite number`);
+  return value;
+}
+
+/** Reads a temperature ("1.8K", "1800 mK", "1.8" = K) and returns kelvin. See {@link parseQuantity}. */
+export function parseTemperature_K(text: string): number {
+  return parseQuantity(text, 'temperature');
+}
+
+/** Reads a pressure ("1638Pa", "16.4 mbar", "1atm", bare number = Pa) and returns pascal. */
+export function parsePressure_Pa(text: string): number {
+  return parseQuantity(text, 'pressure');
+}
+
+/** Reads a length ("50mm", "5 cm", "120um", bare number = m) and returns metres. */
+export function parseLength_m(text: string): number {
+  return parseQuantity(text, 'length');
+}
+
+/** Reads a time ("2.5ms", "400 us", "80ns", bare number = s) and returns seconds. */
+export function parseTime_s(text: string): number {
+  return parseQuantity(text, 'time');
+}
+
+const EXAMPLES: Readonly<Record<Dimension, string>> = {
+  temperature: '1.8K',
+  pressure: '1638Pa',
+  length: '50mm',
+  time: '2.5ms',
+};
+
+/** A short typed example of `dimension`, for help and error text. */
+export function exampleOf(dimension: Dimension): string {
+  return EXAMPLES[dimension];
+}

@@ -42,6 +42,17 @@ export class NonFiniteInputError extends PhysicsError {
   }
 }
 
+/** An input that is not a number out of range but wrong in kind: an unknown option, a bad list. */
+export class InvalidInputError extends PhysicsError {
+  override name = 'InvalidInputError';
+  constructor(
+    readonly field: string,
+    message: string,
+  ) {
+    super(`${field}: ${message}`);
+  }
+}
+
 /** A solver that did not converge within its iteration cap. */
 export class ConvergenceError extends PhysicsError {
   override name = 'ConvergenceError';

@@ -3,7 +3,7 @@
  * T90 in kelvin, SI units throughout. Pure TypeScript: no React, no DOM, nothing outside this folder.
  */
 export * from './constants';
-export { ConvergenceError, NonFiniteInputError, OutOfRangeError, PhysicsError, requireInRange } from './errors';
+export { ConvergenceError, InvalidInputError, NonFiniteInputError, OutOfRangeError, PhysicsError, requireInRange } from './errors';
 export { density } from './density';
 export { entropy } from './entropy';
 export { firstSound } from './first-sound';
@@ -39,3 +39,40 @@ export {
   type VapourPressureScale,
   vapourPressure,
 } from './vapour-pressure';
+export { coldLength, type ColdLength, PATH_LENGTH_RANGE_M, SPACER_MATERIALS, type SpacerMaterial, spacerMaterial } from './contraction';
+export { imageSources, MAX_ECHO_ORDER, type ReflectingPlane, type SourceImage, type Vec3 } from './image-sources';
+export {
+  computePlan,
+  COUNTERFLOW_NOTE_M_S,
+  type EchoArrival,
+  LAMBDA_SHIFT_K_PER_PA,
+  LARGE_AMPLITUDE_K,
+  PLAN_LIMITS,
+  type PlanHeater,
+  type PlanInput,
+  type PlanResult,
+  type PlanSensor,
+  type PlanWarning,
+  SAMPLES_PER_EDGE,
+  type SensorPlanResult,
+  STRONG_FLUX_W_M2_AT_1MS,
+  type WarningCode,
+} from './planner';
+export { CUSTOM_PULSE_MAX_POINTS, PULSE_WIDTH_RANGE_S, type PulseProfile, type PulseShape, pulseProfile } from './pulse-shape';
+export {
+  type HeaterGeometry,
+  type Medium,
+  type PulseSource,
+  type ReceivedPulse,
+  receivedPulse,
+  ringAngleInsideDisk,
+  type SampledSignal,
+  type SensorPoint,
+} from './received-pulse';
+export {
+  secondSoundCurvature,
+  secondSoundRelativeSd,
+  shortestDistanceForResolution,
+  type TemperatureSpread,
+  temperatureSpread,
+} from './temperature-resolution';

@@ -1,0 +1,121 @@
+import { InvalidInputError, requireInRange } from './errors';
+
+/*
+ * The time course of the heater flux, relative to its peak: f(t), 0 ≤ f ≤ 1, starting at t = 0.
+ *  - rectangle: a trapezoid whose edges take the heater's rise time; its area is the width.
+ *  - half-sine: sin(πt/τ) on [0, τ].
+ *  - custom: straight lines through the user's points (time from the onset, relative amplitude),
+ *    scaled so the largest point is 1.
+ * The effective rise time — peak over steepest slope — is what sets the shock distance
+ * (for a half-sine it is τ/π, the sinusoid's 1/ω).
+ */
+
+export type PulseShape =
+  | { kind: 'rectangle' }
+  | { kind: 'half-sine' }
+  | { kind: 'custom'; points: readonly (readonly [number, number])[] };
+
+/** Pulse widths the planner accepts, s: 10 ns to 10 s. */
+export const PULSE_WIDTH_RANGE_S = [1e-8, 10] as const;
+/** Most points in a custom pulse. */
+export const CUSTOM_PULSE_MAX_POINTS = 10_000;
+
+export interface PulseProfile {
+  /** Time from onset to the end of the pulse, s. */
+  duration_s: number;
+  /** ∫ f dt, s (energy per pulse = peak power × this). */
+  area_s: number;
+  /** Peak over steepest slope, s. */
+  effectiveRise_s: number;
+  /** Relative flux at time t after the onset (0 outside the pulse). */
+  value(t: number): number;
+}
+
+function trapezoid(width: number, rise: number): PulseProfile {
+  return {
+    duration_s: width + rise,
+    area_s: width,
+    effectiveRise_s: rise,
+    value(t) {
+      if (t <= 0 || t >= width + rise) return 0;
+      if (t < rise) return t / rise;
+      if (t <= width) return 1;
+      return 1 - (t - width) / rise;
+    },
+  };
+}
+
+function halfSine(width: number): PulseProfile {
+  return {
+    duration_s: width,
+    area_s: (2 * width) / Math.PI,
+    effectiveRise_s: width / Math.PI,
+    value(t) {
+      return t <= 0 || t >= width ? 0 : Math.sin((Math.PI * t) / width);
+    },
+  };
+}
+
+function piecewiseLinear(points: readonly (readonly [number, number])[]): PulseProfile {
+  if (points.length < 2 || points.length > CUSTOM_PULSE_MAX_POINTS) {
+    throw new InvalidInputError('pulse points', `give 2 to ${CUSTOM_PULSE_MAX_POINTS} points (time, relative amplitude)`);
+  }
+  let peak = 0;
+  let previous = Number.NEGATIVE_INFINITY;
+  points.forEach(([t, a], i) => {
+    if (!Number.isFinite(t) || !Number.isFinite(a)) throw new InvalidInputError('pulse points', `point ${i + 1} is not a pair of finite numbers`);
+    if (t < 0 || t <= previous) throw new InvalidInputError('pulse points', `times must start at 0 or later and increase (point ${i + 1})`);
+    if (a < 0) throw new InvalidInputError('pulse points', `amplitudes must be 0 or more (point ${i + 1})`);
+    previous = t;
+    peak = Math.max(peak, a);
+  });
+  if (peak === 0) throw new InvalidInputError('pulse points', 'at least one amplitude must be above 0');
+  const ts = Float64Array.from(points, (p) => p[0]);
+  const fs = Float64Array.from(points, (p) => p[1] / peak);
+  let area = 0;
+  let steepest = 0;
+  for (let i = 1; i < ts.length; i++) {
+    const dt = (ts[i] as number) - (ts[i - 1] as number);
+    area += (dt * ((fs[i] as number) + (fs[i - 1] as number))) / 2;
+    steepest = Math.max(steepest, Math.abs((fs[i] as number) - (fs[i - 1] as number)) / dt);
+  }
+  const last = ts.length - 1;
+  return {
+    duration_s: ts[last] as number,
+    area_s: area,
+    effectiveRise_s: steepest > 0 ? 1 / steepest : (ts[last] as number),
+    value(t) {
+      if (t < (ts[0] as number) || t > (ts[last] as number)) return 0;
+      let lo = 0;
+      let hi = last;
+      while (hi - lo > 1) {
+        const mid = (lo + hi) >> 1;
+        if (t >= (ts[mid] as number)) lo = mid;
+        else hi = mid;
+      }
+      const t0 = ts[lo] as number;
+      const t1 = ts[hi] as number;
+      const f0 = fs[lo] as number;
+      return t1 > t0 ? f0 + (((fs[hi] as number) - f0) * (t - t0)) / (t1 - t0) : f0;
+    },
+  };
+}
+
+/**
+ * The relative time course of one heater pulse.
+ * @param shape rectangle, half-sine or custom points (time in s from onset, relative amplitude).
+ * @param width_s pulse width, s (10 ns–10 s; for custom pulses the last point's time is used).
+ * @param riseTime_s edge time of a rectangle, s (above 0, at most the width).
+ * Throws OutOfRangeError / NonFiniteInputError / InvalidInputError naming the field.
+ */
+export function pulseProfile(shape: PulseShape, width_s: number, riseTime_s: number): PulseProfile {
+  if (shape.kind === 'custom') {
+    const profile = piecewiseLinear(shape.points);
+    requireInRange('pulse width', profile.duration_s, PULSE_WIDTH_RANGE_S[0], PULSE_WIDTH_RANGE_S[1], 's');
+    return profile;
+  }
+  requireInRange('pulse width', width_s, PULSE_WIDTH_RANGE_S[0], PULSE_WIDTH_RANGE_S[1], 's');
+  if (shape.kind === 'half-sine') return halfSine(width_s);
+  requireInRange('rise time', riseTime_s, width_s * 1e-6, width_s, 's', 'above 0 and at most the pulse width');
+  return trapezoid(width_s, riseTime_s);
+}

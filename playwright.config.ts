@@ -1,0 +1,54 @@
+import { defineConfig, devices } from '@playwright/test';
+
+// Browser tests run Debian's Chromium against the production build served by `vite preview`.
+// No browser is downloaded: the executable path points at the system package.
+const BASE_URL = 'http://127.0.0.1:4173';
+
+export default defineConfig({
+  testDir: 'tests/e2e',
+  testMatch: '**/*.spec.ts',
+  outputDir: 'test-results',
+  reporter: 'list',
+  workers: 1,
+  fullyParallel: false,
+  forbidOnly: Boolean(process.env.CI),
+  retries: 0,
+  timeout: 60_000,
+  expect: { timeout: 10_000 },
+  use: {
+    baseURL: BASE_URL,
+    viewport: { width: 1280, height: 720 },
+    trace: 'retain-on-failure',
+    screenshot: 'only-on-failure',
+  },
+  projects: [
+    {
+      name: 'chromium',
+      use: {
+        ...devices['Desktop Chrome'],
+        viewport: { width: 1280, height: 720 },
+        browserName: 'chromium',
+        launchOptions: {
+          executablePath: '/usr/bin/chromium',
+          args: [
+            '--no-sandbox',
+            '--disable-gpu',
+            '--disable-quic',
+            '--no-first-run',
+            '--disable-background-networking',
+            '--disable-component-update',
+            '--disable-sync',
+          ],
+        },
+      },
+    },
+  ],
+  webServer: {
+    command: 'npm run build && npm run preview',
+    url: BASE_URL,
+    reuseExistingServer: !process.env.CI,
+    timeout: 180_000,
+    stdout: 'ignore',
+    stderr: 'pipe',
+  },
+});

@@ -1,0 +1,56 @@
+/*
+ * Numbers as a reader expects them: a fixed count of significant digits, a true minus sign,
+ * and "× 10ⁿ" instead of "e-6" for very small or large magnitudes.
+ */
+
+/** Significant digits for values in the table and captions: the curves' own accuracy is 0.1–1 %. */
+export const DISPLAY_SIGNIFICANT_DIGITS = 4;
+/** Significant digits for an uncertainty. */
+export const UNCERTAINTY_SIGNIFICANT_DIGITS = 2;
+
+const SCIENTIFIC_BELOW = 1e-3;
+const SCIENTIFIC_FROM = 1e6;
+const MINUS = '\u2212';
+const SUPERSCRIPT: Record<string, string> = {
+  '-': '⁻',
+  '0': '⁰',
+  '1': '¹',
+  '2': '²',
+  '3': '³',
+  '4': '⁴',
+  '5': '⁵',
+  '6': '⁶',
+  '7': '⁷',
+  '8': '⁸',
+  '9': '⁹',
+};
+
+/** `x` to `digits` significant digits; "—" for a non-finite value (never "NaN"). */
+export function formatSignificant(x: number, digits: number = DISPLAY_SIGNIFICANT_DIGITS): string {
+  if (!Number.isFinite(x)) return '—';
+  if (x === 0) return '0';
+  const magnitude = Math.abs(x);
+  if (magnitude < SCIENTIFIC_BELOW || magnitude >= SCIENTIFIC_FROM) return formatScientific(x, digits);
+  const decimals = Math.max(0, digits - 1 - Math.floor(Math.log10(magnitude)));
+  return withMinus(x.toFixed(decimals));
+}
+
+/** `x` as "3.142 × 10⁻⁶". */
+export function formatScientific(x: number, digits: number): string {
+  const [mantissa = '', exponent = '0'] = x.toExponential(digits - 1).split('e');
+  const power = String(Number(exponent))
+    .split('')
+    .map((c) => SUPERSCRIPT[c] ?? c)
+    .join('');
+  return `${withMinus(mantissa)} × 10${power}`;
+}
+
+/** `x` with a fixed number of decimals and a true minus sign. */
+export function formatFixed(x: number, decimals: number): string {
+  if (!Number.isFinite(x)) return '—';
+  return withMinus(x.toFixed(decimals));
+}
+
+function withMinus(text: string): string {
+  return text.startsWith('-') ? `${MINUS}${text.slice(1)}` : text;
+}

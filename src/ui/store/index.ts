@@ -1,0 +1,5 @@
+export { useHeliumProperties } from './derived';
+export { resetSekundoStore, useSekundoStore } from './sekundo-store';
+export type { SekundoState } from './state';
+export { DEFAULT_TEMPERATURE_K, draftFor, type TemperatureSlice } from './temperature-slice';
+export type { ViewSlice } from './view-slice';

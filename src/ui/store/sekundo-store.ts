@@ -1,0 +1,15 @@
+import { create } from 'zustand';
+import type { SekundoState } from './state';
+import { createTemperatureSlice } from './temperature-slice';
+import { createViewSlice } from './view-slice';
+
+/** Sekundo's one store, built from typed slices. */
+export const useSekundoStore = create<SekundoState>()((...args) => ({
+  ...createTemperatureSlice(...args),
+  ...createViewSlice(...args),
+}));
+
+/** Puts every slice back to its initial state (tests, "start over"). */
+export function resetSekundoStore(): void {
+  useSekundoStore.setState(useSekundoStore.getInitialState(), true);
+}

@@ -1,0 +1,5 @@
+import type { TemperatureSlice } from './temperature-slice';
+import type { ViewSlice } from './view-slice';
+
+/** The whole store: inputs only. Results are derived from them with kernel calls. */
+export type SekundoState = TemperatureSlice & ViewSlice;

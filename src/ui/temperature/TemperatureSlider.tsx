@@ -1,0 +1,41 @@
+import type { CSSProperties } from 'react';
+import { PROPERTIES_RANGE_K, T_LAMBDA_K } from '../../physics';
+import { useSekundoStore } from '../store';
+import { formatKelvin, formatMillikelvin } from './temperature-units';
+
+/** Slider step, K: 10 mK per arrow key; the typed field reaches any value in between. */
+export const SLIDER_STEP_K = 0.01;
+
+const [MIN_K, MAX_K] = PROPERTIES_RANGE_K;
+/** Where Tλ sits along the track, as a percentage (the track is coloured He II | He I). */
+const LAMBDA_PERCENT = ((T_LAMBDA_K - MIN_K) / (MAX_K - MIN_K)) * 100;
+const TRACK_STYLE = { '--lambda-position': `${LAMBDA_PERCENT}%` } as CSSProperties;
+
+/** Sweeps the temperature over the whole range; the track shows where He II ends. */
+export function TemperatureSlider() {
+  const temperature_K = useSekundoStore((state) => state.temperature_K);
+  const setTemperature = useSekundoStore((state) => state.setTemperature);
+  return (
+    <div className="slider-block" style={TRACK_STYLE}>
+      <label className="field-label" htmlFor="temperature-slider">
+        Sweep the temperature
+      </label>
+      <input
+        id="temperature-slider"
+        className="temperature-slider"
+        type="range"
+        min={MIN_K}
+        max={MAX_K}
+        step={SLIDER_STEP_K}
+        value={temperature_K}
+        aria-valuetext={`${formatKelvin(temperature_K)} K (${formatMillikelvin(temperature_K)} mK)`}
+        onChange={(event) => setTemperature(Number(event.target.value))}
+      />
+      <div className="slider-scale" aria-hidden="true">
+        <span className="slider-scale__min">{MIN_K} K</span>
+        <span className="slider-scale__lambda">He II | He I · Tλ {T_LAMBDA_K} K</span>
+        <span className="slider-scale__max">{MAX_K} K</span>
+      </div>
+    </div>
+  );
+}

@@ -1,0 +1,51 @@
+import type { PlotConfig, PlotLayout, PlotlyApi, PlotShape, PlotTrace } from '../../src/ui/plot/plotly-types';
+
+/*
+ * A stand-in for the Plotly bundle (jsdom cannot draw it): records what each chart is given so
+ * tests can check the figure itself, e.g. where the chosen-temperature marker is.
+ */
+
+export interface DrawCall {
+  chartId: string | null;
+  element: HTMLElement;
+  data: readonly PlotTrace[];
+  layout: PlotLayout;
+  config: PlotConfig;
+}
+
+export const fakePlotly = {
+  draws: [] as DrawCall[],
+  purged: [] as HTMLElement[],
+  /** Chart id whose drawing fails, to exercise the error boundaries. */
+  failFor: null as string | null,
+  reset(): void {
+    this.draws = [];
+    this.purged = [];
+    this.failFor = null;
+  },
+};
+
+export const fakePlotlyApi: PlotlyApi = {
+  react(element, data, layout, config) {
+    const chartId = element.getAttribute('data-chart');
+    if (chartId !== null && chartId === fakePlotly.failFor) {
+      return Promise.reject(new Error('Fake drawing failure.'));
+    }
+    fakePlotly.draws.push({ chartId, element, data, layout, config });
+    return Promise.resolve(element);
+  },
+  purge(element) {
+    fakePlotly.purged.push(element);
+  },
+  Plots: { resize: () => undefined },
+};
+
+/** The last figure drawn for a chart, or undefined if it was never drawn. */
+export function lastDraw(chartId: string): DrawCall | undefined {
+  return fakePlotly.draws.filter((draw) => draw.chartId === chartId).at(-1);
+}
+
+/** The named shape of the last figure drawn for a chart. */
+export function lastShape(chartId: string, name: string): PlotShape | undefined {
+  return lastDraw(chartId)?.layout.shapes?.find((shape) => shape.name === name);
+}

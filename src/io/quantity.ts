@@ -1,11 +1,12 @@
 /**
- * Quantities typed by people: "1.8K", "1800 mK", "1.6e3Pa", "50mm", "2.5 ms". Parsing turns text into
- * a number in the SI base unit (K, Pa, m, s); every other unit exists only here, at the edge, through
+ * Quantities typed by people: "1.8K", "1800 mK", "1.6e3Pa", "50mm", "2.5 ms", "1W/cm2", "20mW". Parsing
+ * turns text into a number in the SI base unit (K, Pa, m, s, W/m2, W); every other unit exists only
+ * here, at the edge, through
  * {@link toBaseUnit} and {@link fromBaseUnit}. Used by the command line and, later, the page.
  */
 
 /** The kinds of quantity a user can type. */
-export type Dimension = 'temperature' | 'pressure' | 'length' | 'time';
+export type Dimension = 'temperature' | 'pressure' | 'length' | 'time' | 'heat flux' | 'power';
 
 /**
  * One unit: its value in the base unit is 10^pow10 · numerator / denominator, all exact.
@@ -38,6 +39,9 @@ const UNIT_TABLE = {
   },
   length: { m: decimal(0), cm: decimal(-2), mm: decimal(-3), um: decimal(-6), 'µm': decimal(-6) },
   time: { s: decimal(0), ms: decimal(-3), us: decimal(-6), 'µs': decimal(-6), ns: decimal(-9) },
+  // 1 cm² = 1e-4 m², 1 mm² = 1e-6 m² (SI prefixes, exact): 1 W/cm² = 1e4 W/m², 1 W/mm² = 1e6 W/m².
+  'heat flux': { 'W/m2': decimal(0), 'W/cm2': decimal(4), 'mW/cm2': decimal(1), 'W/mm2': decimal(6) },
+  power: { W: decimal(0), mW: decimal(-3), uW: decimal(-6), 'µW': decimal(-6) },
 } as const satisfies Record<Dimension, Record<string, UnitDefinition>>;
 
 /** Unit symbols accepted for a dimension, e.g. `UnitOf<'temperature'>` is `'K' | 'mK'`. */
@@ -51,16 +55,26 @@ export const BASE_UNIT = {
   pressure: 'Pa',
   length: 'm',
   time: 's',
+  'heat flux': 'W/m2',
+  power: 'W',
 } as const satisfies { [D in Dimension]: UnitOf<D> };
+
+/** Every dimension, in the order help text lists them. */
+export const DIMENSIONS: readonly Dimension[] = Object.keys(UNIT_TABLE) as Dimension[];
 
 /**
  * Other spellings people type, mapped to the canonical symbol. The Greek mu (U+03BC) and the
- * micro sign (U+00B5) look alike, so both are taken.
+ * micro sign (U+00B5) look alike, so both are taken; so is the superscript two (U+00B2) in areas.
  */
 const UNIT_ALIASES: Readonly<Record<string, string>> = {
   Torr: 'torr',
   'μm': 'µm',
   'μs': 'µs',
+  'μW': 'µW',
+  'W/m²': 'W/m2',
+  'W/cm²': 'W/cm2',
+  'mW/cm²': 'mW/cm2',
+  'W/mm²': 'W/mm2',
 };
 
 /** What was wrong with a typed quantity. */
@@ -108,7 +122,7 @@ function dimensionOf(unit: Unit): Dimension {
 }
 
 /**
- * Converts a value in `unit` to the SI base unit of its dimension (K, Pa, m, s).
+ * Converts a value in `unit` to the SI base unit of its dimension (K, Pa, m, s, W/m², W).
  * Exact factors: 1 atm = 101325 Pa, 1 torr = 101325/760 Pa, 1 bar = 1e5 Pa, 1 mbar = 100 Pa.
  * Throws RangeError for a symbol this module does not know (a programming error).
  */
@@ -118,7 +132,7 @@ export function toBaseUnit(value: number, unit: Unit): number {
 }
 
 /**
- * Converts a value in the SI base unit (K, Pa, m, s) to `unit` of the same dimension, for display.
+ * Converts a value in the SI base unit (K, Pa, m, s, W/m², W) to `unit` of the same dimension, for display.
  * Throws RangeError for a symbol this module does not know (a programming error).
  */
 export function fromBaseUnit(value: number, unit: Unit): number {
@@ -138,7 +152,7 @@ const NON_FINITE_PATTERN = /^[+-]?(?:nan|inf|infinity)\s*\S*$/i;
 
 /**
  * Reads a quantity such as "1.8K", "1.8 K", "1800mK" or "1.6e3Pa" and returns it in the SI base
- * unit of `dimension` (K, Pa, m or s). A bare number is taken in that base unit. Units are
+ * unit of `dimension` (K, Pa, m, s, W/m² or W). A bare number is taken in that base unit. Units are
  * case-sensitive (mK is not MK), except "Torr" = "torr"; µ may be written u, µ or μ.
  * Does not check physical ranges (callers do). Throws {@link QuantityParseError}.
  */
@@ -181,11 +195,23 @@ export function parseTime_s(text: string): number {
   return parseQuantity(text, 'time');
 }
 
+/** Reads a heat flux ("1W/cm2", "1 W/cm²", "100mW/cm2", bare number = W/m²) and returns W/m². */
+export function parseHeatFlux_W_m2(text: string): number {
+  return parseQuantity(text, 'heat flux');
+}
+
+/** Reads a power ("2W", "20 mW", "500uW", bare number = W) and returns watts. */
+export function parsePower_W(text: string): number {
+  return parseQuantity(text, 'power');
+}
+
 const EXAMPLES: Readonly<Record<Dimension, string>> = {
   temperature: '1.8K',
   pressure: '1638Pa',
   length: '50mm',
   time: '2.5ms',
+  'heat flux': '1W/cm2',
+  power: '20mW',
 };
 
 /** A short typed example of `dimension`, for help and error text. */

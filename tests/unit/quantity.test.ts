@@ -3,7 +3,9 @@ import {
   BASE_UNIT,
   type Dimension,
   fromBaseUnit,
+  parseHeatFlux_W_m2,
   parseLength_m,
+  parsePower_W,
   parsePressure_Pa,
   parseQuantity,
   parseTemperature_K,
@@ -22,8 +24,9 @@ const TORR = 'torr = 101325/760 Pa (definition, exact)';
 const ATM = 'standard atmosphere = 101325 Pa (CGPM 1954, exact)';
 const BAR = 'bar = 1e5 Pa, mbar = 100 Pa (definition, exact)';
 const BARE = 'bare number = SI base unit (this module’s rule)';
+const AREA = 'cm² = 1e-4 m², mm² = 1e-6 m² (SI prefix, squared; exact)';
 
-const DIMENSIONS: readonly Dimension[] = ['temperature', 'pressure', 'length', 'time'];
+const DIMENSIONS: readonly Dimension[] = ['temperature', 'pressure', 'length', 'time', 'heat flux', 'power'];
 
 describe('parseQuantity: every unit, as typed', () => {
   const cases: readonly [text: string, dimension: Dimension, expected: number, source: string][] = [
@@ -66,6 +69,22 @@ describe('parseQuantity: every unit, as typed', () => {
     ['400μs', 'time', 0.0004, `${SI_PREFIX}; Greek mu U+03BC`],
     ['80ns', 'time', 8e-8, SI_PREFIX],
     ['0.0025', 'time', 0.0025, BARE],
+    ['1000W/m2', 'heat flux', 1000, 'watt per square metre is the base unit'],
+    ['1000 W/m²', 'heat flux', 1000, 'superscript two accepted'],
+    ['1W/cm2', 'heat flux', 1e4, AREA],
+    ['0.1 W/cm2', 'heat flux', 1000, AREA],
+    ['2W/cm²', 'heat flux', 2e4, `${AREA}; superscript two`],
+    ['100mW/cm2', 'heat flux', 1000, `${AREA}; ${SI_PREFIX}`],
+    ['100 mW/cm²', 'heat flux', 1000, `${AREA}; ${SI_PREFIX}`],
+    ['0.01W/mm2', 'heat flux', 1e4, AREA],
+    ['1 W/mm²', 'heat flux', 1e6, AREA],
+    ['1e4', 'heat flux', 1e4, BARE],
+    ['2W', 'power', 2, 'watt is the base unit'],
+    ['20mW', 'power', 0.02, SI_PREFIX],
+    ['500uW', 'power', 0.0005, SI_PREFIX],
+    ['500µW', 'power', 0.0005, `${SI_PREFIX}; micro sign U+00B5`],
+    ['500μW', 'power', 0.0005, `${SI_PREFIX}; Greek mu U+03BC`],
+    ['0.5', 'power', 0.5, BARE],
   ];
   it.each(cases)('%s as %s is %s (%s)', (text, dimension, expected) => {
     expect(parseQuantity(text, dimension)).toBe(expected);
@@ -92,6 +111,12 @@ describe('named parsers return the SI base unit', () => {
   it('parseTime_s reads milliseconds as seconds', () => {
     expect(parseTime_s('2.5ms')).toBe(0.0025);
   });
+  it('parseHeatFlux_W_m2 reads watts per square centimetre as W/m²', () => {
+    expect(parseHeatFlux_W_m2('1W/cm2')).toBe(1e4); // 1 cm² = 1e-4 m² (exact)
+  });
+  it('parsePower_W reads milliwatts as watts', () => {
+    expect(parsePower_W('20mW')).toBe(0.02);
+  });
 });
 
 describe('parseQuantity: typed errors', () => {
@@ -114,6 +139,14 @@ describe('parseQuantity: typed errors', () => {
     ['1638 K', 'pressure', 'unknown-unit'],
     ['2 mm', 'time', 'unknown-unit'],
     ['1,8K', 'temperature', 'unknown-unit'],
+    ['1 W/cm3', 'heat flux', 'unknown-unit'],
+    ['1 W / cm2', 'heat flux', 'unknown-unit'],
+    ['1 w/cm2', 'heat flux', 'unknown-unit'],
+    ['1W', 'heat flux', 'unknown-unit'],
+    ['1 W/cm2', 'power', 'unknown-unit'],
+    ['1MW', 'power', 'unknown-unit'],
+    ['NaN W', 'power', 'non-finite'],
+    ['', 'heat flux', 'empty'],
   ];
   it.each(cases)('%j as %s fails: %s', (text, dimension, problem) => {
     const error = catchError(() => parseQuantity(text, dimension));
@@ -163,6 +196,11 @@ describe('unit conversions at the edge', () => {
     [50, 'mm', 0.05, SI_PREFIX],
     [2.5, 'ms', 0.0025, SI_PREFIX],
     [80, 'ns', 8e-8, SI_PREFIX],
+    [1, 'W/cm2', 1e4, AREA],
+    [1, 'mW/cm2', 10, AREA],
+    [1, 'W/mm2', 1e6, AREA],
+    [20, 'mW', 0.02, SI_PREFIX],
+    [500, 'uW', 0.0005, SI_PREFIX],
   ];
   it.each(cases)('%s %s is %s in the base unit (%s)', (value, unit, base) => {
     expect(toBaseUnit(value, unit)).toBe(base);

@@ -59,7 +59,7 @@ function fractionsLayout(temperature_K: number): PlotLayout {
       referenceLine('lambda', T_LAMBDA_K),
       chosenTemperatureLine(temperature_K),
     ],
-    annotations: [modelRegionLabel(0.5, 'middle'), lambdaLabel()],
+    annotations: [modelRegionLabel(0.5, 'middle'), lambdaLabel('left', 0.55)],
   };
 }
 

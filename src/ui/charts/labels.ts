@@ -2,15 +2,15 @@ import { PROPERTIES_RANGE_K, SECOND_SOUND_MEASURED_MIN_K, T_LAMBDA_K } from '../
 import type { PlotAnnotation } from '../plot/plotly-types';
 import { CHART_COLOURS } from './chart-theme';
 
-/** "Tλ" written at the top of the lambda line. */
-export function lambdaLabel(side: 'left' | 'right' = 'left'): PlotAnnotation {
+/** "Tλ" written beside the lambda line, at height `y` of the plot (0 bottom, 1 top). */
+export function lambdaLabel(side: 'left' | 'right' = 'left', y = 0.99): PlotAnnotation {
   return {
     name: 'lambda-label',
     text: 'Tλ',
     xref: 'x',
     yref: 'paper',
     x: T_LAMBDA_K,
-    y: 0.99,
+    y,
     // The label sits beside the line, on the side where the plot has room.
     xanchor: side === 'left' ? 'left' : 'right',
     yanchor: 'top',

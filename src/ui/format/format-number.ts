@@ -31,8 +31,9 @@ export function formatSignificant(x: number, digits: number = DISPLAY_SIGNIFICAN
   if (x === 0) return '0';
   const magnitude = Math.abs(x);
   if (magnitude < SCIENTIFIC_BELOW || magnitude >= SCIENTIFIC_FROM) return formatScientific(x, digits);
-  const decimals = Math.max(0, digits - 1 - Math.floor(Math.log10(magnitude)));
-  return withMinus(x.toFixed(decimals));
+  // Integers longer than `digits` keep all their digits (1638 Pa, 24046 Pa), never "2.405e+4".
+  if (magnitude >= 10 ** digits) return withMinus(x.toFixed(0));
+  return withMinus(x.toPrecision(digits));
 }
 
 /** `x` as "3.142 × 10⁻⁶". */

@@ -3,6 +3,7 @@ import { INSENSITIVE_SLOPE_M_S_K } from '../charts/curves';
 import { formatSignificant } from '../format/format-number';
 import { useHeliumProperties } from '../store';
 import { formatMillikelvin } from '../temperature/temperature-units';
+import { KeyFigures } from './KeyFigures';
 import { CRITICAL_REGION_UK, MODEL_REGION_TEXT } from './regions';
 
 /** Phase, where the numbers come from and how well a time of flight pins T here. */
@@ -14,6 +15,7 @@ export function StateSummary() {
       <h2 id="state-title" className="card-title">
         At this temperature
       </h2>
+      <KeyFigures properties={p} />
       <dl className="state-list">
         <div>
           <dt>Phase</dt>

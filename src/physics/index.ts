@@ -76,3 +76,30 @@ export {
   type TemperatureSpread,
   temperatureSpread,
 } from './temperature-resolution';
+export { calibratePathFromSweep, type PathCalibration, type SweepPoint } from './calibrate-path';
+export { type Choice, type ChoiceRule, chooseAlongSeries, chooseCandidate } from './choose-candidate';
+export { type DistanceDelay, type DistanceFit, fitDistances } from './fit-distances';
+export {
+  type Branch,
+  convertDelay,
+  DELAY_LIMITS,
+  type DelayConversion,
+  type DelayReading,
+  SPEED_RANGE_M_S,
+  type TemperatureCandidate,
+  temperatureCandidates,
+} from './invert-delay';
+export {
+  type Baseline,
+  baselineOf,
+  heaterOnset,
+  MIN_BASELINE_SAMPLES,
+  type Pick,
+  PICKER_KINDS,
+  type PickerKind,
+  type PickOptions,
+  pickArrival,
+  type Trace,
+  uniformStep,
+} from './pickers';
+export { SECOND_SOUND_EXTREMA, type SpeedExtremum } from './second-sound-extrema';

@@ -1,12 +1,16 @@
+import { MODEL_MIN_K, T_LAMBDA_K } from './constants';
 import { secondSoundSdUnchecked, secondSoundUnchecked } from './second-sound';
 
 /*
- * How well a second-sound speed pins the temperature. With u = d/t,
- *   σ_T = (u2/|du2/dT|) · √((σ_d/d)² + (σ_t/t)²)                 (first order; PHYSICS notes §6)
- * At the extremes of u2 (1.12 K, 1.65 K) du2/dT → 0 and the first-order form diverges; there the
- * second-order bound σ_T ≈ √(2 σ_u/|u2″|) holds instead. The smaller of the two is the honest
- * answer, and when the second-order one is smaller the spot is "insensitive": a change of speed
- * far below the uncertainty moves the temperature by a lot.
+ * How well a second-sound speed pins the temperature. With u = d/t and σ_u/u =
+ * √((σ_d/d)² + (σ_t/t)²), the first-order answer is σ_T = σ_u/|u2′| (PHYSICS notes §6).
+ * At the extremes of u2 (1.12 K, 1.65 K) u2′ → 0 and that diverges; there the second-order bound
+ * σ_T ≈ √(2σ_u/|u2″|) holds instead. One smooth form has both limits:
+ *   σ_T = σ_u / (u2′⁴ + (u2″σ_u/2)²)^(1/4),
+ * equal to σ_u/|u2′| up to a relative (u2″σ_u)²/(16 u2′⁴) (below 1e-5 at 1.8 K for 0.04 %), and to
+ * √(2σ_u/|u2″|) at an extremum. Where the curvature term is the larger (|u2″|σ_u/2 > u2′²) the spot
+ * is "insensitive": a change of speed within the uncertainty moves the temperature a long way.
+ * Above 2.17 K, where u2 plunges towards Tλ (|u2′| > 290 m/s/K), the curvature is left out.
  */
 
 /** Step for the numerical second derivative of u2, K. */
@@ -15,34 +19,55 @@ const CURVATURE_STEP_K = 1e-4;
 export interface TemperatureSpread {
   /** One-sigma temperature uncertainty, K. */
   sd_K: number;
-  /** True where the second-order bound governs: near an extremum of u2. */
+  /** True where the curvature term governs: near an extremum of u2. */
   insensitive: boolean;
 }
 
-/** u2″ (m/s/K²) by central difference of the slope; kernel-internal, 0.3 K + step ≤ T ≤ Tλ − step. */
+/**
+ * u2″ (m/s/K²) by central difference of the slope, 0.3 K ≤ T < Tλ; the step shrinks near the
+ * ends so both points stay inside the curve.
+ */
 export function secondSoundCurvature(T: number): number {
-  const h = CURVATURE_STEP_K;
-  return (secondSoundUnchecked(T + h).slope - secondSoundUnchecked(T - h).slope) / (2 * h);
+  const h = Math.min(CURVATURE_STEP_K, (T_LAMBDA_K - T) / 2, Math.max(T - MODEL_MIN_K, 1e-9));
+  if (!(h > 0)) return 0;
+  const lo = Math.max(MODEL_MIN_K, T - h);
+  return (secondSoundUnchecked(T + h).slope - secondSoundUnchecked(lo).slope) / (T + h - lo);
+}
+
+/** |u2″| tabulated every 1 mK from 0.3 to 2.17 K, so sweeps need no extra evaluations. */
+const CURVATURE_TABLE_STEP_K = 1e-3;
+const CURVATURE_TABLE_MAX_K = 2.17;
+const curvatureTable = Float64Array.from(
+  { length: Math.round((CURVATURE_TABLE_MAX_K - MODEL_MIN_K) / CURVATURE_TABLE_STEP_K) + 1 },
+  (_, i) => Math.abs(secondSoundCurvature(MODEL_MIN_K + i * CURVATURE_TABLE_STEP_K)),
+);
+
+function absCurvature(T: number): number {
+  if (T > CURVATURE_TABLE_MAX_K) return 0;
+  const x = (T - MODEL_MIN_K) / CURVATURE_TABLE_STEP_K;
+  const i = Math.min(curvatureTable.length - 2, Math.max(0, Math.floor(x)));
+  const f = x - i;
+  return (1 - f) * (curvatureTable[i] as number) + f * (curvatureTable[i + 1] as number);
 }
 
 /**
  * Temperature spread that follows from a relative speed uncertainty at T (He II, 0.3 K – Tλ).
  * @param T temperature, K.  @param relSpeedSd σ_u/u, dimensionless (≥ 0).
+ * @param at u2 and its slope at T when the caller has them (saves an evaluation).
  */
-export function temperatureSpread(T: number, relSpeedSd: number): TemperatureSpread {
-  const { value: u, slope } = secondSoundUnchecked(T);
-  const sigmaU = relSpeedSd * u;
-  const firstOrder = Math.abs(slope) > 0 ? sigmaU / Math.abs(slope) : Number.POSITIVE_INFINITY;
-  const curvature = Math.abs(secondSoundCurvature(T));
-  const secondOrder = curvature > 0 ? Math.sqrt((2 * sigmaU) / curvature) : Number.POSITIVE_INFINITY;
-  if (secondOrder < firstOrder) return { sd_K: secondOrder, insensitive: true };
-  return { sd_K: firstOrder, insensitive: false };
+export function temperatureSpread(T: number, relSpeedSd: number, at = secondSoundUnchecked(T)): TemperatureSpread {
+  const sigmaU = relSpeedSd * at.value;
+  const s = Math.abs(at.slope);
+  if (!Number.isFinite(s)) return { sd_K: 0, insensitive: false };
+  const s2 = s * s;
+  const curved = (absCurvature(T) * sigmaU) / 2;
+  const denominator = Math.sqrt(Math.sqrt(s2 * s2 + curved * curved));
+  return { sd_K: denominator > 0 ? sigmaU / denominator : 0, insensitive: curved > s2 };
 }
 
 /** Relative uncertainty of the tabulated u2 at T (the model's own share of a temperature sd). */
-export function secondSoundRelativeSd(T: number): number {
-  const { value, slope } = secondSoundUnchecked(T);
-  return secondSoundSdUnchecked(T, value, slope) / value;
+export function secondSoundRelativeSd(T: number, at = secondSoundUnchecked(T)): number {
+  return at.value > 0 ? secondSoundSdUnchecked(T, at.value, at.slope) / at.value : 0;
 }
 
 /**

@@ -1,0 +1,89 @@
+import { requireInRange } from './errors';
+import type { TemperatureCandidate } from './invert-delay';
+import { PROPERTIES_RANGE_K } from './properties';
+import { temperatureFromVapourPressure, VAPOUR_PRESSURE_RANGE_PA } from './vapour-pressure';
+
+/*
+ * Choosing among the candidates of one speed (PHYSICS notes §6): by an ITS-90 vapour-pressure
+ * reading, by an expected range, or by continuity along a series. The unchosen candidates stay in
+ * the result; a choice only says which one the evidence favours, and why.
+ */
+
+export type ChoiceRule =
+  | { kind: 'pressure'; pressure_Pa: number }
+  | { kind: 'near'; temperature_K: number }
+  | { kind: 'range'; min_K: number; max_K: number };
+
+export interface Choice {
+  /** Index into the candidate list, or null when the rule cannot decide. */
+  index: number | null;
+  /** Plain words: what decided, or why nothing did. */
+  reason: string;
+}
+
+function fmtK(T: number): string {
+  return `${T.toFixed(4)} K`;
+}
+
+function nearest(candidates: readonly TemperatureCandidate[], T: number): number {
+  let best = 0;
+  let bestD = Number.POSITIVE_INFINITY;
+  candidates.forEach((c, i) => {
+    const d = Math.abs(c.temperature_K - T);
+    if (d < bestD) {
+      bestD = d;
+      best = i;
+    }
+  });
+  return best;
+}
+
+/**
+ * Picks the candidate a rule favours. Pressure: the candidate nearest the ITS-90 vapour-pressure
+ * temperature; near: the candidate nearest the given temperature; range: the single candidate
+ * inside [min, max] (none or several: no choice). Throws typed errors for bad rule values.
+ */
+export function chooseCandidate(candidates: readonly TemperatureCandidate[], rule: ChoiceRule): Choice {
+  if (candidates.length === 0) return { index: null, reason: 'no candidate temperature' };
+  switch (rule.kind) {
+    case 'pressure': {
+      requireInRange('vapour pressure', rule.pressure_Pa, VAPOUR_PRESSURE_RANGE_PA[0], VAPOUR_PRESSURE_RANGE_PA[1], 'Pa');
+      const vp = temperatureFromVapourPressure(rule.pressure_Pa);
+      const i = nearest(candidates, vp.temperature_K);
+      return { index: i, reason: `nearest to ${fmtK(vp.temperature_K)} from the vapour pressure (${vp.scale})` };
+    }
+    case 'near': {
+      requireInRange('expected temperature', rule.temperature_K, PROPERTIES_RANGE_K[0], PROPERTIES_RANGE_K[1], 'K');
+      const i = nearest(candidates, rule.temperature_K);
+      return { index: i, reason: `nearest to the expected ${fmtK(rule.temperature_K)}` };
+    }
+    case 'range': {
+      requireInRange('range minimum', rule.min_K, 0, PROPERTIES_RANGE_K[1], 'K');
+      requireInRange('range maximum', rule.max_K, rule.min_K, PROPERTIES_RANGE_K[1], 'K', 'at least the minimum');
+      const inside = candidates.flatMap((c, i) => (c.temperature_K >= rule.min_K && c.temperature_K <= rule.max_K ? [i] : []));
+      if (inside.length === 1) return { index: inside[0] as number, reason: `the only one in ${fmtK(rule.min_K)}–${fmtK(rule.max_K)}` };
+      return { index: null, reason: inside.length === 0 ? `none in ${fmtK(rule.min_K)}–${fmtK(rule.max_K)}` : `${inside.length} lie in ${fmtK(rule.min_K)}–${fmtK(rule.max_K)}` };
+    }
+  }
+}
+
+/**
+ * Continuity along a time series: the first reading is decided by `start`, each later one by the
+ * candidate nearest the previous choice (the bath changes slowly between readings). A reading
+ * with no candidates, or an undecided start, passes the last decided temperature on.
+ */
+export function chooseAlongSeries(series: readonly (readonly TemperatureCandidate[])[], start: ChoiceRule): Choice[] {
+  let previous: number | null = null;
+  return series.map((candidates, k) => {
+    if (candidates.length === 0) return { index: null, reason: 'no candidate temperature' };
+    if (previous === null) {
+      const first = chooseCandidate(candidates, start);
+      if (first.index !== null) previous = (candidates[first.index] as TemperatureCandidate).temperature_K;
+      return first;
+    }
+    const i = nearest(candidates, previous);
+    const reason = `nearest to the previous reading (${fmtK(previous)}, row ${k})`;
+    previous = (candidates[i] as TemperatureCandidate).temperature_K;
+    return { index: i, reason };
+  });
+}

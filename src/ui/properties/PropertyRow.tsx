@@ -10,7 +10,7 @@ interface PropertyRowProps {
 /** One property: symbol and name, value or the reason it is absent, unit, uncertainty, source. */
 export function PropertyRow({ info, properties, detailsShown }: PropertyRowProps) {
   const display = displayProperty(info, properties);
-  const rowClass = display.kind === 'absent' ? 'is-absent' : undefined;
+  const rowClass = [display.kind === 'absent' ? 'is-absent' : '', detailsShown ? 'has-details' : ''].join(' ').trim() || undefined;
   return (
     <>
       <tr className={rowClass} data-property={info.key}>

@@ -59,8 +59,8 @@ const BRANCHES: readonly BranchTable[] = [
   buildBranch('high', T_MAX, T_LAMBDA_K),
 ];
 
-/** A Newton step this small means the next one would be below 1e-12 K (quadratic convergence). */
-const NEWTON_ACCEPT_STEP_K = 1e-6;
+/** A Newton step this small leaves an error far below 1e-12 K (quadratic convergence). */
+const NEWTON_ACCEPT_STEP_K = 1e-7;
 const NEWTON_MAX_ITERATIONS = 60;
 
 interface Root {
@@ -95,7 +95,7 @@ function solveOnBranch(b: BranchTable, u: number): Root {
     else lo = Math.max(lo, T);
     let next = at.slope !== 0 && Number.isFinite(at.slope) ? T - f / at.slope : (lo + hi) / 2;
     if (!(next > lo && next < hi)) next = (lo + hi) / 2;
-    // Value and slope at T stand for those at the root, a step below 1e-6 K away.
+    // Value and slope at T stand for those at the root, a step below 1e-7 K away.
     if (Math.abs(next - T) < NEWTON_ACCEPT_STEP_K) return { T: next, at };
     T = next;
     at = secondSoundUnchecked(T);
@@ -119,6 +119,11 @@ export interface TemperatureCandidate {
   insensitive: boolean;
   /** "Landau model" below 0.5517 K, "critical scaling" in the last 5 µK below Tλ, else "measured". */
   region: 'measured' | 'Landau model' | 'critical scaling';
+  /**
+   * "root": u2 equals the speed here. "extremum": the speed lies just beyond an extremum of u2
+   * (within two sd), so no root exists nearby but the extremum itself is consistent with it.
+   */
+  kind: 'root' | 'extremum';
 }
 
 /** Speeds accepted by {@link temperatureCandidates}, m/s: above 0 up to u2 at 0.3 K. */
@@ -131,10 +136,10 @@ const EXTREMA_TABLE_REL_SD = {
   maximum: secondSoundRelativeSd(SECOND_SOUND_EXTREMA.maximum.temperature_K),
 };
 
-function candidateAt({ T, at }: Root, branch: Branch, relSd: number): TemperatureCandidate {
+function candidateAt({ T, at }: Root, branch: Branch, relSd: number, kind: TemperatureCandidate['kind'] = 'root'): TemperatureCandidate {
   const table = secondSoundRelativeSd(T, at);
   const spread = temperatureSpread(T, Math.sqrt(relSd * relSd + table * table), at);
-  return { temperature_K: T, sd_K: spread.sd_K, slope_m_s_K: at.slope, branch, insensitive: spread.insensitive, region: secondSoundRegion(T) };
+  return { temperature_K: T, sd_K: spread.sd_K, slope_m_s_K: at.slope, branch, insensitive: spread.insensitive, region: secondSoundRegion(T), kind };
 }
 
 function extremumRoot(T: number): Root {
@@ -162,10 +167,10 @@ export function temperatureCandidates(speed_m_s: number, relativeSpeedSd: number
   const sigmaU = (u: number, tableRelSd: number) => u * Math.sqrt(relativeSpeedSd * relativeSpeedSd + tableRelSd * tableRelSd);
   // Just below the minimum: the low and middle branches have no root, but the minimum is within reach.
   if (speed_m_s < minimum.speed_m_s && minimum.speed_m_s - speed_m_s <= EXTREMUM_REACH_SD * sigmaU(speed_m_s, EXTREMA_TABLE_REL_SD.minimum)) {
-    out.push(candidateAt(extremumRoot(minimum.temperature_K), 'middle', relativeSpeedSd));
+    out.push(candidateAt(extremumRoot(minimum.temperature_K), 'middle', relativeSpeedSd, 'extremum'));
   }
   if (speed_m_s > maximum.speed_m_s && speed_m_s - maximum.speed_m_s <= EXTREMUM_REACH_SD * sigmaU(speed_m_s, EXTREMA_TABLE_REL_SD.maximum)) {
-    out.push(candidateAt(extremumRoot(maximum.temperature_K), 'middle', relativeSpeedSd));
+    out.push(candidateAt(extremumRoot(maximum.temperature_K), 'middle', relativeSpeedSd, 'extremum'));
   }
   return out.sort((a, b) => a.temperature_K - b.temperature_K);
 }

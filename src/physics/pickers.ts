@@ -1,4 +1,5 @@
 import { InvalidInputError, requireInRange } from './errors';
+import { fitParabola, parabolaVertex } from './parabola';
 
 /*
  * Arrival pickers for a digitised sensor trace (PHYSICS notes §7). Baseline and noise come from
@@ -8,7 +9,8 @@ import { InvalidInputError, requireInRange } from './errors';
  * delay in white noise, σ/√(Σ ṡ²), for the cross-correlation (ṡ the template's slope).
  *  - threshold: first crossing of baseline + kσ after the search start, linear interpolation;
  *  - fraction:  crossing of baseline + f·(peak − baseline) on the leading edge of the peak;
- *  - peak:      the extreme sample, refined by a parabola through it and its neighbours;
+ *  - peak:      a least-squares parabola through the samples above half the peak around the
+ *               extreme sample; its vertex;
  *  - xcorr:     the lag that best matches a template, refined by a parabola through the
  *               correlation peak (sub-sample).
  * Signals may be positive- or negative-going; 'auto' follows the larger excursion.
@@ -163,21 +165,41 @@ function pickFraction(trace: Trace, base: Baseline, w: Window, f: number): { t: 
   return crossing(trace, w.sign, base, level, i);
 }
 
-function parabolaVertex(ym: number, y0: number, yp: number): { offset: number; curvature: number } {
+function threePointVertex(ym: number, y0: number, yp: number): { offset: number; curvature: number } {
   const curvature = ym - 2 * y0 + yp;
   const offset = curvature !== 0 ? (0.5 * (ym - yp)) / curvature : 0;
   return { offset: Math.max(-0.5, Math.min(0.5, offset)), curvature };
 }
 
+/** Most samples the peak picker fits. */
+const PEAK_MAX_POINTS = 201;
+/** The peak picker fits the samples above this fraction of the peak around it. */
+const PEAK_FIT_LEVEL = 0.5;
+
 function pickPeak(trace: Trace, base: Baseline, w: Window, step: number): { t: number; sd: number } {
-  const i = Math.min(Math.max(w.iPeak, 1), trace.values.length - 2);
   const y = (k: number) => w.sign * ((trace.values[k] as number) - base.level);
-  const { offset, curvature } = parabolaVertex(y(i - 1), y(i), y(i + 1));
-  // δoffset = (σ/|c|)·√((½ − o)² + (2o)² + (½ + o)²)… from d(offset)/dy_j at fixed curvature.
-  const c = Math.abs(curvature);
-  const spread = Math.sqrt((0.5 + offset) ** 2 + (2 * offset) ** 2 + (0.5 - offset) ** 2);
-  const sd = c > 0 ? Math.max((base.noise * spread * step) / c, step / Math.sqrt(12)) : step;
-  return { t: (trace.time_s[i] as number) + offset * step, sd: Math.min(sd, 10 * step) };
+  const top = y(w.iPeak);
+  // The contiguous run of samples above half the peak around the extreme sample (at least ±1).
+  let lo = w.iPeak;
+  let hi = w.iPeak;
+  while (lo > 0 && hi - lo < PEAK_MAX_POINTS && y(lo - 1) >= PEAK_FIT_LEVEL * top) lo--;
+  while (hi < trace.values.length - 1 && hi - lo < PEAK_MAX_POINTS && y(hi + 1) >= PEAK_FIT_LEVEL * top) hi++;
+  lo = Math.max(0, Math.min(lo, w.iPeak - 1));
+  hi = Math.min(trace.values.length - 1, Math.max(hi, w.iPeak + 1));
+  const centre = trace.time_s[w.iPeak] as number;
+  const n = hi - lo + 1;
+  const u = new Float64Array(n);
+  const v = new Float64Array(n);
+  for (let k = 0; k < n; k++) {
+    u[k] = ((trace.time_s[lo + k] as number) - centre) / step;
+    v[k] = y(lo + k);
+  }
+  const p = fitParabola(u, v);
+  if (!(p.c < 0)) return { t: centre, sd: step };
+  const vertex = parabolaVertex(p, base.noise);
+  // A vertex outside the fitted run is not a peak of these samples.
+  const offset = Math.max(u[0] as number, Math.min(u[n - 1] as number, vertex.u));
+  return { t: centre + offset * step, sd: Math.max(vertex.uSd * step, step / Math.sqrt(12 * n)) };
 }
 
 function pickXcorr(trace: Trace, base: Baseline, w: Window, step: number, template: Float64Array): { t: number; sd: number } {
@@ -201,7 +223,7 @@ function pickXcorr(trace: Trace, base: Baseline, w: Window, step: number, templa
   const k = best - w.i0;
   const ym = k > 0 ? (scores[k - 1] as number) : bestScore;
   const yp = k < scores.length - 1 ? (scores[k + 1] as number) : bestScore;
-  const { offset } = parabolaVertex(ym, bestScore, yp);
+  const { offset } = threePointVertex(ym, bestScore, yp);
   // Cramér–Rao bound for a delay in white noise: σ_τ = σ / √(Σ (dŝ/dt)²), ŝ the template scaled
   // to the observed amplitude.
   let energy = 0;

@@ -56,12 +56,16 @@ describe('arrivals (hand-worked from the reference property values at 1.8 K)', (
     expect(s?.secondSoundArrival_s).toBeCloseTo(d / U2, 10);
     const times = s?.echoes.map((e) => e.arrival_s) ?? [];
     expect(times.length).toBe(3);
-    times.forEach((t, k) => expect(t).toBeCloseTo(((2 * (k + 1) + 1) * d) / U2, 10));
+    times.forEach((t, k) => {
+      expect(t).toBeCloseTo(((2 * (k + 1) + 1) * d) / U2, 10);
+    });
     // Each round trip multiplies by R_sensor·R_heater; the sensor's own plate adds (1 + R) to each.
     const direct = s?.amplitude_K as number;
     const face = plan.heater.power_W / plan.heater.area_m2 / (medium.density_kg_m3 * medium.specificHeat_J_kgK * U2);
     expect(direct).toBeCloseTo(face * (1 + R), 12);
-    s?.echoes.forEach((e, k) => expect(e.amplitude_K).toBeCloseTo(face * (1 + R) * (R * R) ** (k + 1), 12));
+    s?.echoes.forEach((e, k) => {
+      expect(e.amplitude_K).toBeCloseTo(face * (1 + R) * (R * R) ** (k + 1), 12);
+    });
   });
 
   it('image sources: a point between two planes has the classic image positions (method of images)', () => {

@@ -1,45 +1,26 @@
-import { AboutCautions } from '../src/ui/about/AboutCautions';
-import { FractionsChart } from '../src/ui/charts/FractionsChart';
-import { SpeedsChart } from '../src/ui/charts/SpeedsChart';
-import { ThermometryChart } from '../src/ui/charts/ThermometryChart';
+import { type KeyboardEvent, useRef } from 'react';
 import { AppHeader } from '../src/ui/layout/AppHeader';
 import { PanelErrorBoundary } from '../src/ui/layout/PanelErrorBoundary';
-import { PropertiesTable } from '../src/ui/properties/PropertiesTable';
-import { StateSummary } from '../src/ui/properties/StateSummary';
-import { TemperatureControl } from '../src/ui/temperature/TemperatureControl';
+import { useSekundoStore } from '../src/ui/store';
+import { VIEWS } from './views';
 
-/** The property explorer: choose a temperature, read every property, see where it sits on the curves. */
+/** The page: header, the view tabs, the active view, and the footer. */
 export function App() {
+  const activeView = useSekundoStore((s) => s.activeView);
+  const active = VIEWS.find((v) => v.id === activeView) ?? VIEWS[0];
+  if (!active) return null;
+  const View = active.component;
   return (
     <>
-      <a className="skip-link" href="#explorer">
-        Skip to the explorer
+      <a className="skip-link" href="#view">
+        Skip to the content
       </a>
       <AppHeader />
-      <main id="explorer" className="page">
-        <div className="explorer">
-          <div className="explorer-inputs">
-            <PanelErrorBoundary panel="temperature control">
-              <TemperatureControl />
-            </PanelErrorBoundary>
-            <PanelErrorBoundary panel="state summary">
-              <StateSummary />
-            </PanelErrorBoundary>
-            <PanelErrorBoundary panel="properties table">
-              <PropertiesTable />
-            </PanelErrorBoundary>
-          </div>
-          <section className="explorer-charts" aria-labelledby="curves-title">
-            <h2 id="curves-title" className="visually-hidden">
-              Curves
-            </h2>
-            <SpeedsChart />
-            <FractionsChart />
-            <ThermometryChart />
-          </section>
-        </div>
-        <PanelErrorBoundary panel="about and cautions section">
-          <AboutCautions />
+      <ViewTabs />
+      <main id="view" className="page" role="tabpanel" aria-labelledby={`tab-${active.id}`} tabIndex={-1}>
+        <p className="view-purpose">{active.purpose}</p>
+        <PanelErrorBoundary panel={`${active.label} view`}>
+          <View />
         </PanelErrorBoundary>
       </main>
       <footer className="app-footer">
@@ -48,5 +29,46 @@ export function App() {
         </p>
       </footer>
     </>
+  );
+}
+
+/** Tabs for the views: arrow keys move between them, as a tab list should. */
+function ViewTabs() {
+  const activeView = useSekundoStore((s) => s.activeView);
+  const setActiveView = useSekundoStore((s) => s.setActiveView);
+  const refs = useRef<(HTMLButtonElement | null)[]>([]);
+  const onKeyDown = (event: KeyboardEvent<HTMLDivElement>) => {
+    const index = VIEWS.findIndex((v) => v.id === activeView);
+    const step = event.key === 'ArrowRight' ? 1 : event.key === 'ArrowLeft' ? -1 : 0;
+    if (step === 0) return;
+    event.preventDefault();
+    const next = VIEWS[(index + step + VIEWS.length) % VIEWS.length];
+    if (!next) return;
+    setActiveView(next.id);
+    refs.current[VIEWS.indexOf(next)]?.focus();
+  };
+  return (
+    <nav className="view-tabs" aria-label="Views">
+      <div role="tablist" aria-label="Sekundo views" className="view-tabs__list" onKeyDown={onKeyDown}>
+        {VIEWS.map((view, i) => (
+          <button
+            key={view.id}
+            ref={(el) => {
+              refs.current[i] = el;
+            }}
+            id={`tab-${view.id}`}
+            type="button"
+            role="tab"
+            aria-selected={view.id === activeView}
+            aria-controls="view"
+            tabIndex={view.id === activeView ? 0 : -1}
+            className="view-tabs__tab"
+            onClick={() => setActiveView(view.id)}
+          >
+            {view.label}
+          </button>
+        ))}
+      </div>
+    </nav>
   );
 }

@@ -27,6 +27,7 @@ describe('Sekundo store', () => {
     const keys = Object.keys(store());
     expect(keys).not.toContain('secondSound_m_s');
     expect(keys.filter((key) => typeof store()[key as keyof ReturnType<typeof store>] !== 'function').sort()).toEqual([
+      'activeView',
       'sourceDetailsShown',
       'temperatureDraft',
       'temperatureError',

@@ -8,7 +8,6 @@ export function AppHeader() {
           <h1 className="app-title">Sekundo</h1>
           <p className="app-tagline">Second-sound time-of-flight planning and thermometry for superfluid helium-4 (He II)</p>
         </div>
-        <p className="app-screen-name">Property explorer</p>
       </div>
     </header>
   );

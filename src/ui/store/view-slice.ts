@@ -1,14 +1,22 @@
 import type { StateCreator } from 'zustand';
 import type { SekundoState } from './state';
 
-/** How the explorer is shown (no physics here). */
+/** The page's views (tabs). */
+export type ViewId = 'explorer';
+
+/** How the page is shown (no physics here). */
 export interface ViewSlice {
+  /** The view (tab) on screen. */
+  activeView: ViewId;
+  setActiveView: (view: ViewId) => void;
   /** Whether the properties table shows each row's note and full source. */
   sourceDetailsShown: boolean;
   setSourceDetailsShown: (shown: boolean) => void;
 }
 
 export const createViewSlice: StateCreator<SekundoState, [], [], ViewSlice> = (set) => ({
+  activeView: 'explorer',
+  setActiveView: (view) => set({ activeView: view }),
   sourceDetailsShown: false,
   setSourceDetailsShown: (shown) => set({ sourceDetailsShown: shown }),
 });

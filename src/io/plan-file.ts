@@ -533,12 +533,15 @@ export function migratePlan(
 // ---------------------------------------------------------------------------------------------
 // Reading.
 
-/** `sensors[2].label`, `heater.shape.custom[3][0]`, or `plan` for the whole file. */
+const IDENTIFIER = /^[A-Za-z_][A-Za-z0-9_]*$/;
+
+/** `sensors[2].label`, `heater.shape.custom[3][0]`, `bath["odd key"]`, or `plan` for the whole file. */
 export function formatPlanPath(path: readonly PropertyKey[]): string {
   let out = '';
   for (const key of path) {
     if (typeof key === 'number') out += `[${key}]`;
-    else out += out === '' ? String(key) : `.${String(key)}`;
+    else if (typeof key === 'string' && IDENTIFIER.test(key)) out += out === '' ? key : `.${key}`;
+    else out += `[${JSON.stringify(String(key))}]`;
   }
   return out === '' ? 'plan' : out;
 }
@@ -775,6 +778,8 @@ export function planFileToInput(plan: PlanFile): PlanInput {
   };
 }
 
+const SENSOR_FIELDS: Readonly<Record<string, string>> = { area: 'area_m2', responsivity: 'responsivity_V_K', noise: 'noise_V', lag: 'lag_s' };
+
 /** Kernel quantity names (as its errors give them) and the plan-file field each comes from. */
 const KERNEL_FIELDS: readonly (readonly [RegExp, (m: RegExpExecArray) => string])[] = [
   [/^bath temperature$/, () => 'bath'],
@@ -791,9 +796,10 @@ const KERNEL_FIELDS: readonly (readonly [RegExp, (m: RegExpExecArray) => string]
   [/^number of sensors$/, () => 'sensors'],
   [/^sensor (\d+) \(.*\) ([xyz])$/, (m) => `sensors[${Number(m[1]) - 1}].position_m`],
   [/^sensor (\d+) \(.*\) distance uncertainty$/, (m) => `sensors[${Number(m[1]) - 1}].distanceSd_m`],
-  [/^sensor (\d+) \(.*\) (area|responsivity|noise|lag)$/, (m) => `sensors[${Number(m[1]) - 1}]`],
+  [/^sensor (\d+) \(.*\) (area|responsivity|noise|lag)$/, (m) => `sensors[${Number(m[1]) - 1}].${SENSOR_FIELDS[m[2] ?? ''] ?? ''}`],
   [/^spacer material$/, () => 'spacer.materialId'],
-  [/^(reflection|position) of plane (\d+)$/, (m) => `reflectors[${Number(m[2]) - 1}]`],
+  [/^reflection of plane (\d+)$/, (m) => `reflectors[${Number(m[1]) - 1}].reflection`],
+  [/^position of plane (\d+)$/, (m) => `reflectors[${Number(m[1]) - 1}].position_m`],
   [/^echo order$/, () => 'echoOrder'],
   [/^sample rate$/, () => 'digitiser.sampleRate_Hz'],
   [/^record length$/, () => 'digitiser.recordLength_s'],

@@ -103,3 +103,14 @@ export {
   uniformStep,
 } from './pickers';
 export { SECOND_SOUND_EXTREMA, type SpeedExtremum } from './second-sound-extrema';
+export {
+  bestAddedSensor,
+  type ConfidenceRegion,
+  type LayoutOptions,
+  type LocateOptions,
+  type LocateResult,
+  layoutQuality,
+  locateSource,
+  type SensorArrival,
+  type SurfaceConstraint,
+} from './locate-source';

@@ -294,9 +294,9 @@ function starts(p: Problem): number[][] {
   const c = centroid(p.sensors);
   const spread = Math.max(...p.sensors.map((s) => norm(sub(s, c))), 1e-3);
   const tFirst = Math.min(...p.times);
-  const guesses: Vec3[] = [c];
+  // The closed-form guess first: when it exists it is usually already in the right basin.
   const lin = p.param.dims === 3 ? linearGuess(p) : null;
-  if (lin && lin.x.every(Number.isFinite)) guesses.push(lin.x);
+  const guesses: Vec3[] = lin?.x.every(Number.isFinite) ? [lin.x, c] : [c];
   for (const s of p.sensors) guesses.push(vec3((k) => c[k] * 0.3 + s[k] * 0.7));
   for (const dir of [[1, 0, 0], [-1, 0, 0], [0, 1, 0], [0, -1, 0], [0, 0, 1], [0, 0, -1]] as const) {
     guesses.push([c[0] + dir[0] * spread, c[1] + dir[1] * spread, c[2] + dir[2] * spread]);

@@ -1,12 +1,23 @@
 /**
- * Quantities typed by people: "1.8K", "1800 mK", "1.6e3Pa", "50mm", "2.5 ms", "1W/cm2", "20mW". Parsing
- * turns text into a number in the SI base unit (K, Pa, m, s, W/m2, W); every other unit exists only
- * here, at the edge, through
- * {@link toBaseUnit} and {@link fromBaseUnit}. Used by the command line and, later, the page.
+ * Quantities typed by people: "1.8K", "1800 mK", "1.6e3Pa", "50mm", "2.5 ms", "1W/cm2", "20mW",
+ * "1 cm2", "10 MS/s", "1 uV", "2 V/K", "50 µK". Parsing turns text into a number in the SI base unit
+ * (K, Pa, m, s, W/m2, W, m2, Hz, V, V/K); every other unit exists only here, at the edge, through
+ * {@link toBaseUnit} and {@link fromBaseUnit}. Used by the command line and the page.
  */
 
 /** The kinds of quantity a user can type. */
-export type Dimension = 'temperature' | 'pressure' | 'length' | 'time' | 'heat flux' | 'power';
+export type Dimension =
+  | 'temperature'
+  | 'pressure'
+  | 'length'
+  | 'time'
+  | 'heat flux'
+  | 'power'
+  | 'temperature difference'
+  | 'area'
+  | 'frequency'
+  | 'voltage'
+  | 'responsivity';
 
 /**
  * One unit: its value in the base unit is 10^pow10 · numerator / denominator, all exact.
@@ -42,6 +53,23 @@ const UNIT_TABLE = {
   // 1 cm² = 1e-4 m², 1 mm² = 1e-6 m² (SI prefixes, exact): 1 W/cm² = 1e4 W/m², 1 W/mm² = 1e6 W/m².
   'heat flux': { 'W/m2': decimal(0), 'W/cm2': decimal(4), 'mW/cm2': decimal(1), 'W/mm2': decimal(6) },
   power: { W: decimal(0), mW: decimal(-3), uW: decimal(-6), 'µW': decimal(-6) },
+  // A spread or step of temperature (an uncertainty, a pulse height): it may be tiny, so µK too.
+  'temperature difference': { K: decimal(0), mK: decimal(-3), uK: decimal(-6), 'µK': decimal(-6) },
+  // Squared SI prefixes (exact): 1 cm² = 1e-4 m², 1 mm² = 1e-6 m², 1 µm² = 1e-12 m².
+  area: { m2: decimal(0), cm2: decimal(-4), mm2: decimal(-6), um2: decimal(-12), 'µm2': decimal(-12) },
+  // A sample rate in samples per second is a frequency: 1 S/s = 1 Hz.
+  frequency: {
+    Hz: decimal(0),
+    kHz: decimal(3),
+    MHz: decimal(6),
+    GHz: decimal(9),
+    'S/s': decimal(0),
+    'kS/s': decimal(3),
+    'MS/s': decimal(6),
+    'GS/s': decimal(9),
+  },
+  voltage: { V: decimal(0), mV: decimal(-3), uV: decimal(-6), 'µV': decimal(-6), nV: decimal(-9) },
+  responsivity: { 'V/K': decimal(0), 'mV/K': decimal(-3), 'uV/K': decimal(-6), 'µV/K': decimal(-6), 'V/mK': decimal(3) },
 } as const satisfies Record<Dimension, Record<string, UnitDefinition>>;
 
 /** Unit symbols accepted for a dimension, e.g. `UnitOf<'temperature'>` is `'K' | 'mK'`. */
@@ -57,6 +85,11 @@ export const BASE_UNIT = {
   time: 's',
   'heat flux': 'W/m2',
   power: 'W',
+  'temperature difference': 'K',
+  area: 'm2',
+  frequency: 'Hz',
+  voltage: 'V',
+  responsivity: 'V/K',
 } as const satisfies { [D in Dimension]: UnitOf<D> };
 
 /** Every dimension, in the order help text lists them. */
@@ -75,6 +108,16 @@ const UNIT_ALIASES: Readonly<Record<string, string>> = {
   'W/cm²': 'W/cm2',
   'mW/cm²': 'mW/cm2',
   'W/mm²': 'W/mm2',
+  'μK': 'µK',
+  'μV': 'µV',
+  'μV/K': 'µV/K',
+  'm²': 'm2',
+  'cm²': 'cm2',
+  'mm²': 'mm2',
+  'µm²': 'µm2',
+  'μm²': 'µm2',
+  'um²': 'um2',
+  'μm2': 'µm2',
 };
 
 /** What was wrong with a typed quantity. */
@@ -122,7 +165,7 @@ function dimensionOf(unit: Unit): Dimension {
 }
 
 /**
- * Converts a value in `unit` to the SI base unit of its dimension (K, Pa, m, s, W/m², W).
+ * Converts a value in `unit` to the SI base unit of its dimension (K, Pa, m, s, W/m², W, m², Hz, V, V/K).
  * Exact factors: 1 atm = 101325 Pa, 1 torr = 101325/760 Pa, 1 bar = 1e5 Pa, 1 mbar = 100 Pa.
  * Throws RangeError for a symbol this module does not know (a programming error).
  */
@@ -132,7 +175,8 @@ export function toBaseUnit(value: number, unit: Unit): number {
 }
 
 /**
- * Converts a value in the SI base unit (K, Pa, m, s, W/m², W) to `unit` of the same dimension, for display.
+ * Converts a value in the SI base unit (K, Pa, m, s, W/m², W, m², Hz, V, V/K) to `unit` of the same
+ * dimension, for display.
  * Throws RangeError for a symbol this module does not know (a programming error).
  */
 export function fromBaseUnit(value: number, unit: Unit): number {
@@ -152,8 +196,8 @@ const NON_FINITE_PATTERN = /^[+-]?(?:nan|inf|infinity)\s*\S*$/i;
 
 /**
  * Reads a quantity such as "1.8K", "1.8 K", "1800mK" or "1.6e3Pa" and returns it in the SI base
- * unit of `dimension` (K, Pa, m, s, W/m² or W). A bare number is taken in that base unit. Units are
- * case-sensitive (mK is not MK), except "Torr" = "torr"; µ may be written u, µ or μ.
+ * unit of `dimension` (K, Pa, m, s, W/m², W, m², Hz, V or V/K). A bare number is taken in that base
+ * unit. Units are case-sensitive (mK is not MK), except "Torr" = "torr"; µ may be written u, µ or μ.
  * Does not check physical ranges (callers do). Throws {@link QuantityParseError}.
  */
 export function parseQuantity(text: string, dimension: Dimension): number {
@@ -212,6 +256,11 @@ const EXAMPLES: Readonly<Record<Dimension, string>> = {
   time: '2.5ms',
   'heat flux': '1W/cm2',
   power: '20mW',
+  'temperature difference': '50uK',
+  area: '1cm2',
+  frequency: '10MHz',
+  voltage: '1uV',
+  responsivity: '2V/K',
 };
 
 /** A short typed example of `dimension`, for help and error text. */

@@ -4,7 +4,7 @@
  */
 import { BASE_UNIT, type Dimension, exampleOf, parseQuantity, QuantityParseError, unitsOf } from '../io/quantity';
 import { UsageError } from './errors';
-import { formatRange } from './format';
+import { formatPlain, formatRange } from './format';
 
 interface FlagBase {
   /** Long name without dashes, e.g. "temperature". */
@@ -36,12 +36,39 @@ export interface TextFlag extends FlagBase {
   readonly placeholder: string;
 }
 
+/** A flag whose value is a plain number without units (a count, a coefficient), checked here. */
+export interface NumberFlag extends FlagBase {
+  readonly kind: 'number';
+  readonly placeholder: string;
+  /** Valid range, quoted in help and errors. */
+  readonly range: readonly [number, number];
+  /** Only whole numbers. */
+  readonly integer?: boolean;
+}
+
 /** Any flag a command can declare. */
-export type FlagSpec = QuantityFlag | BooleanFlag | TextFlag;
+export type FlagSpec = QuantityFlag | BooleanFlag | TextFlag | NumberFlag;
+
+/** A positional argument, e.g. the plan file of `sekundo plan FILE`. */
+export interface OperandSpec {
+  /** Name used to look it up, e.g. "file". */
+  readonly name: string;
+  /** Placeholder in usage text, e.g. "FILE". */
+  readonly placeholder: string;
+  /** One line for the help text. */
+  readonly help: string;
+}
 
 /** A quantity flag as given: the spec, the text typed and its value in the SI base unit. */
 export interface QuantityArg {
   readonly spec: QuantityFlag;
+  readonly text: string;
+  readonly value: number;
+}
+
+/** A number flag as given: the spec, the text typed and its value. */
+export interface NumberArg {
+  readonly spec: NumberFlag;
   readonly text: string;
   readonly value: number;
 }
@@ -55,11 +82,23 @@ export class ParsedArgs {
     private readonly quantities: ReadonlyMap<string, QuantityArg>,
     private readonly texts: ReadonlyMap<string, string>,
     private readonly booleans: ReadonlySet<string>,
+    private readonly numbers: ReadonlyMap<string, NumberArg> = new Map(),
+    private readonly operands: ReadonlyMap<string, string> = new Map(),
   ) {}
 
   /** The quantity given for `name`, or undefined if the flag was absent. */
   quantity(name: string): QuantityArg | undefined {
     return this.quantities.get(name);
+  }
+
+  /** The plain number given for `name`, or undefined if the flag was absent. */
+  number(name: string): NumberArg | undefined {
+    return this.numbers.get(name);
+  }
+
+  /** The positional argument `name`, or undefined if it was not given. */
+  operand(name: string): string | undefined {
+    return this.operands.get(name);
   }
 
   /** The text given for `name`, or undefined if the flag was absent. */
@@ -74,7 +113,7 @@ export class ParsedArgs {
 
   /** Whether `name` was given at all, of any kind. */
   has(name: string): boolean {
-    return this.quantities.has(name) || this.texts.has(name) || this.booleans.has(name);
+    return this.quantities.has(name) || this.texts.has(name) || this.booleans.has(name) || this.numbers.has(name) || this.operands.has(name);
   }
 }
 
@@ -85,25 +124,49 @@ export function describeAccepted(spec: QuantityFlag): string {
   return `units ${unitsOf(spec.dimension).join(', ')} (bare number = ${base}); valid range ${formatRange(spec.range, base)}${note}`;
 }
 
+/** "a whole number; valid range 0–12": what a number flag accepts. */
+export function describeNumber(spec: NumberFlag): string {
+  return `${spec.integer ? 'a whole number' : 'a number'}; valid range ${formatNumberRange(spec.range)}`;
+}
+
+/** "0–12", "-1 to 1": a unitless range. */
+export function formatNumberRange(range: readonly [number, number]): string {
+  return range[0] < 0 ? `${formatPlain(range[0])} to ${formatPlain(range[1])}` : `${formatPlain(range[0])}–${formatPlain(range[1])}`;
+}
+
 /** "--temperature <T>" or "--json": a flag as shown in usage text. */
 export function flagSynopsis(spec: FlagSpec): string {
   return spec.kind === 'boolean' ? `--${spec.name}` : `--${spec.name} <${spec.placeholder}>`;
 }
 
 /**
- * Reads the tokens after the command name against the command's flags.
- * Accepts `--flag value` and `--flag=value`; a value may start with a single dash ("-1K").
+ * Reads the tokens after the command name against the command's flags and positional operands.
+ * Accepts `--flag value` and `--flag=value`; a value may start with a single dash ("-1K"). Tokens
+ * that are not flags or flag values fill the operands in order.
  * Throws UsageError for an unknown flag, a missing or unwanted value, a repeated flag, a stray
- * argument, or a quantity that does not parse. Ranges are left to the kernel.
+ * argument, a quantity that does not parse, or a number flag out of its range. Ranges of
+ * quantities are left to the kernel.
  */
-export function parseFlags(command: string, tokens: readonly string[], specs: readonly FlagSpec[]): ParsedArgs {
+export function parseFlags(
+  command: string,
+  tokens: readonly string[],
+  specs: readonly FlagSpec[],
+  operandSpecs: readonly OperandSpec[] = [],
+): ParsedArgs {
   const quantities = new Map<string, QuantityArg>();
   const texts = new Map<string, string>();
   const booleans = new Set<string>();
+  const numbers = new Map<string, NumberArg>();
+  const operands = new Map<string, string>();
   const seen = new Set<string>();
   for (let i = 0; i < tokens.length; i++) {
     const token = tokens[i] ?? '';
-    if (!token.startsWith('-')) throw strayArgument(command, token, specs);
+    if (!token.startsWith('-')) {
+      const operand = operandSpecs[operands.size];
+      if (!operand) throw strayArgument(command, token, specs);
+      operands.set(operand.name, token);
+      continue;
+    }
     const { name, inline } = splitFlag(token);
     const spec = token.startsWith('--') ? specs.find((s) => s.name === name) : undefined;
     if (!spec) throw unknownFlag(command, token, specs);
@@ -124,9 +187,24 @@ export function parseFlags(command: string, tokens: readonly string[], specs: re
     }
     if (value === undefined || value.trim() === '') throw missingValue(spec);
     if (spec.kind === 'text') texts.set(name, value);
+    else if (spec.kind === 'number') numbers.set(name, { spec, text: value, value: readNumber(spec, value) });
     else quantities.set(name, { spec, text: value, value: readQuantity(spec, value) });
   }
-  return new ParsedArgs(quantities, texts, booleans);
+  return new ParsedArgs(quantities, texts, booleans, numbers, operands);
+}
+
+// A decimal number without a unit.
+const PLAIN_NUMBER = /^[+-]?(?:\d+(?:\.\d*)?|\.\d+)(?:[eE][+-]?\d+)?$/;
+
+function readNumber(spec: NumberFlag, text: string): number {
+  const trimmed = text.trim();
+  const value = PLAIN_NUMBER.test(trimmed) ? Number(trimmed) : Number.NaN;
+  const range = formatNumberRange(spec.range);
+  if (!Number.isFinite(value)) throw new UsageError(`--${spec.name} "${text}" is not a ${spec.integer ? 'whole ' : ''}number; valid range ${range}`);
+  const [min, max] = spec.range;
+  if (value < min || value > max) throw new UsageError(`--${spec.name} ${formatPlain(value)} is outside the valid range ${range}`);
+  if (spec.integer && !Number.isInteger(value)) throw new UsageError(`--${spec.name} ${formatPlain(value)} is not a whole number; valid range ${range}`);
+  return value;
 }
 
 function splitFlag(token: string): { name: string; inline: string | undefined } {
@@ -170,8 +248,9 @@ function strayArgument(command: string, token: string, specs: readonly FlagSpec[
   return new UsageError(`unexpected argument "${token}" for "sekundo ${command}"${hint}`);
 }
 
-function missingValue(spec: QuantityFlag | TextFlag): UsageError {
+function missingValue(spec: QuantityFlag | TextFlag | NumberFlag): UsageError {
   if (spec.kind === 'text') return new UsageError(`--${spec.name} needs a value <${spec.placeholder}>`);
+  if (spec.kind === 'number') return new UsageError(`--${spec.name} needs a value <${spec.placeholder}>, ${describeNumber(spec)}`);
   return new UsageError(
     `--${spec.name} needs a value, e.g. --${spec.name} ${exampleOf(spec.dimension)}; ${describeAccepted(spec)}`,
   );

@@ -2,7 +2,7 @@
  * The shape of one command. main.ts keeps a table of these; adding a command (arrivals, plan,
  * delay, trace, fit, locate) means writing one module that exports a Command and listing it there.
  */
-import type { FlagSpec, ParsedArgs } from './args';
+import type { FlagSpec, OperandSpec, ParsedArgs } from './args';
 import type { CliIo } from './io';
 
 /** One `sekundo <name>` command. */
@@ -15,6 +15,8 @@ export interface Command {
   /** A few sentences for `sekundo <name> --help`. */
   readonly description: string;
   readonly flags: readonly FlagSpec[];
+  /** Positional arguments, in order (e.g. the plan file); none if absent. */
+  readonly operands?: readonly OperandSpec[];
   /** Complete example invocations, without the leading "sekundo ". */
   readonly examples: readonly string[];
   /** Runs the command; returns the exit status. Throws UsageError for bad input. */

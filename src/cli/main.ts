@@ -5,6 +5,8 @@
  */
 import { HELP_FLAGS, parseFlags } from './args';
 import type { Command } from './command';
+import { arrivalsCommand } from './commands/arrivals';
+import { planCommand } from './commands/plan';
 import { propsCommand } from './commands/props';
 import { vapourCommand } from './commands/vapour';
 import { EXIT_INTERNAL, EXIT_OK, EXIT_USAGE, UsageError } from './errors';
@@ -13,7 +15,7 @@ import { type CliIo, processIo } from './io';
 import { packageVersion } from './version';
 
 /** Every command, in the order `sekundo --help` lists them. Add new commands here. */
-export const COMMANDS: readonly Command[] = [propsCommand, vapourCommand];
+export const COMMANDS: readonly Command[] = [propsCommand, vapourCommand, arrivalsCommand, planCommand];
 
 const PROGRAM = 'sekundo';
 const VERSION_FLAG = '--version';
@@ -49,7 +51,7 @@ function dispatch(argv: readonly string[], io: CliIo): number {
     io.stdout(renderCommandHelp(command));
     return EXIT_OK;
   }
-  return command.run(parseFlags(command.name, rest, command.flags), io);
+  return command.run(parseFlags(command.name, rest, command.flags, command.operands), io);
 }
 
 function printGeneralHelp(rest: readonly string[], io: CliIo): number {

@@ -1,0 +1,196 @@
+/**
+ * `sekundo plan FILE [--json] [--waveform]`: the full measurement plan for a plan file (format
+ * "sekundo-plan"): arrivals, pulse size, echoes, SNR and temperature resolution for every sensor,
+ * the heater summary and every warning.
+ */
+import { readFileSync, statSync } from 'node:fs';
+import {
+  explainPlanError,
+  MAX_PLAN_FILE_CHARS,
+  type PlanBath,
+  type PlanFile,
+  PLAN_FORMAT,
+  parsePlanFile,
+  planBath,
+  planFileToInput,
+} from '../../io/plan-file';
+import { fromBaseUnit } from '../../io/quantity';
+import { computePlan, PhysicsError, type PlanResult, type SampledSignal } from '../../physics';
+import type { BooleanFlag, OperandSpec } from '../args';
+import type { Command } from '../command';
+import { EXIT_OK, UsageError } from '../errors';
+import { ABSENT, alignTable, formatPlain, formatSignificant } from '../format';
+import { formatKelvin, formatMillikelvin, JSON_FLAG, writeJson } from './shared';
+
+const FILE_OPERAND: OperandSpec = {
+  name: 'file',
+  placeholder: 'FILE',
+  help: `a plan file (JSON, "format": "${PLAN_FORMAT}"), e.g. public/demo-plan.json`,
+};
+
+const WAVEFORM_FLAG: BooleanFlag = {
+  kind: 'boolean',
+  name: 'waveform',
+  help: 'with --json, add the predicted δT(t) of every sensor and the heater pulse (thousands of numbers)',
+};
+
+/** Problems quoted on the one error line; the rest are counted. */
+const MESSAGES_SHOWN = 5;
+
+/** A sampled signal as JSON: plain numbers instead of a typed array. */
+export interface JsonSignal {
+  start_s: number;
+  step_s: number;
+  values: number[];
+}
+
+/** The `plan` command. */
+export const planCommand: Command = {
+  name: 'plan',
+  summary: 'the full plan for a plan file: arrivals, pulse size, echoes, SNR and resolution per sensor',
+  synopsis: ['plan FILE [--json] [--waveform]'],
+  description:
+    `Reads a plan file (JSON, "format": "${PLAN_FORMAT}", SI units in every key; public/demo-plan.json ` +
+    'is an example), checks every field against its valid range, and prints for each sensor when first ' +
+    'and second sound arrive, the peak δT, the echoes, the signal-to-noise ratio and how finely the delay ' +
+    'pins the temperature, then the heater summary and every warning with its severity. With --json, ' +
+    'prints one object {name, bath, temperature_K, heater, record, sensors: [{id, label, pathLength_m, ' +
+    'firstSoundArrival_s, secondSoundArrival_s, amplitude_K, echoes, snrAveraged, temperatureSd_K, …}], ' +
+    'warnings: [{code, severity, message, sensorId, value, limit}]}; the predicted waveforms are left ' +
+    'out unless --waveform is given too. A file that cannot be read or is not a valid plan exits with ' +
+    'status 2 and one line naming the field and its valid range.',
+  flags: [JSON_FLAG, WAVEFORM_FLAG],
+  operands: [FILE_OPERAND],
+  examples: ['plan public/demo-plan.json', 'plan public/demo-plan.json --json', 'plan public/demo-plan.json --json --waveform'],
+  run(args, io) {
+    const path = args.operand(FILE_OPERAND.name);
+    if (path === undefined) {
+      throw new UsageError(`"sekundo plan" needs a plan file, e.g. sekundo plan public/demo-plan.json`);
+    }
+    const json = args.flag(JSON_FLAG.name);
+    const withWaveforms = args.flag(WAVEFORM_FLAG.name);
+    if (withWaveforms && !json) throw new UsageError('--waveform needs --json: the waveforms are only printed as JSON');
+    const plan = loadPlan(path);
+    const { bath, result } = runPlan(path, plan);
+    if (json) writeJson(io, planJson(path, plan, bath, result, withWaveforms));
+    else io.stdout(`${renderPlanReport(path, plan, bath, result).join('\n')}\n`);
+    return EXIT_OK;
+  },
+};
+
+/** Reads and validates a plan file; every problem becomes one UsageError line. */
+export function loadPlan(path: string): PlanFile {
+  const text = readPlanText(path);
+  const parsed = parsePlanFile(text);
+  if (parsed.ok) return parsed.plan;
+  const shown = parsed.errors.slice(0, MESSAGES_SHOWN);
+  const more = parsed.errors.length - shown.length;
+  throw new UsageError(`plan file "${path}" is not valid: ${shown.join('; ')}${more > 0 ? `; and ${more} more` : ''}`);
+}
+
+function readPlanText(path: string): string {
+  try {
+    const size = statSync(path).size;
+    if (size > MAX_PLAN_FILE_CHARS) {
+      throw new UsageError(`plan file "${path}" has ${size} bytes, more than the ${MAX_PLAN_FILE_CHARS} a plan file may have`);
+    }
+    return readFileSync(path, 'utf8');
+  } catch (error) {
+    if (error instanceof UsageError) throw error;
+    throw new UsageError(`cannot read plan file "${path}": ${describeFileError(error)}`);
+  }
+}
+
+function describeFileError(error: unknown): string {
+  const code = typeof error === 'object' && error !== null && 'code' in error ? String(error.code) : '';
+  const reasons: Readonly<Record<string, string>> = {
+    ENOENT: 'no such file',
+    EISDIR: 'it is a directory',
+    EACCES: 'permission denied',
+    EPERM: 'permission denied',
+  };
+  return reasons[code] ?? (error instanceof Error ? error.message : String(error));
+}
+
+function runPlan(path: string, plan: PlanFile): { bath: PlanBath; result: PlanResult } {
+  try {
+    const bath = planBath(plan);
+    return { bath, result: computePlan(planFileToInput(plan)) };
+  } catch (error) {
+    if (error instanceof PhysicsError) throw new UsageError(`plan file "${path}": ${explainPlanError(error)}`);
+    throw error;
+  }
+}
+
+function signalJson(signal: SampledSignal): JsonSignal {
+  return { start_s: signal.start_s, step_s: signal.step_s, values: Array.from(signal.values) };
+}
+
+/** What `plan --json` prints: the kernel's result with the file's own choices beside it. */
+export function planJson(path: string, plan: PlanFile, bath: PlanBath, result: PlanResult, withWaveforms: boolean): Record<string, unknown> {
+  return {
+    file: path,
+    name: plan.name,
+    notes: plan.notes ?? null,
+    bath: { ...bath, liquidDepth_m: plan.bath.liquidDepth_m, headPressure_Pa: result.headPressure_Pa },
+    temperature_K: result.temperature_K,
+    properties: result.properties,
+    heater: { geometry: plan.heater.geometry, shape: shapeName(plan), repetitionRate_Hz: plan.heater.repetitionRate_Hz, averages: plan.heater.averages, ...result.heater },
+    record: result.record,
+    sensors: result.sensors.map(({ waveform, ...sensor }) => ({
+      ...sensor,
+      ...(withWaveforms ? { waveform: waveform.map(signalJson) } : {}),
+    })),
+    warnings: result.warnings.map((w) => ({ code: w.code, severity: w.severity, message: w.message, sensorId: w.sensorId, value: w.value, limit: w.limit })),
+    ...(withWaveforms ? { heaterPulse: signalJson(result.heaterPulse) } : {}),
+  };
+}
+
+function shapeName(plan: PlanFile): 'rectangle' | 'half-sine' | 'custom' {
+  return typeof plan.heater.shape === 'string' ? plan.heater.shape : 'custom';
+}
+
+const sig = (x: number | null, digits?: number): string => (x === null || !Number.isFinite(x) ? ABSENT : formatSignificant(x, digits));
+const inUnit = (x: number | null, scale: number, digits?: number): string => (x === null ? ABSENT : sig(x * scale, digits));
+
+/** The human-readable report of `plan`: bath, heater, a table of sensors, echoes, warnings. */
+export function renderPlanReport(path: string, plan: PlanFile, bath: PlanBath, result: PlanResult): string[] {
+  const h = result.heater;
+  const source =
+    bath.vapourPressure_Pa === null ? 'as given' : `from a vapour pressure of ${sig(bath.vapourPressure_Pa)} Pa (${bath.scale ?? ''})`;
+  const shape = typeof plan.heater.shape === 'string' ? plan.heater.shape : `custom (${plan.heater.shape.custom.length} points)`;
+  const summary = alignTable(
+    [
+      ['Bath', `${formatKelvin(result.temperature_K)} K (${formatMillikelvin(result.temperature_K)} mK) ${source}; liquid depth ${formatPlain(plan.bath.liquidDepth_m)} m, head ${sig(result.headPressure_Pa)} Pa`],
+      ['Heater', `${plan.heater.geometry}, ${sig(fromBaseUnit(h.flux_W_m2, 'W/cm2'))} W/cm² = ${sig(h.power_W)} W peak; ${shape}, ${sig(h.duration_s * 1e6)} µs long, edges ${sig(h.effectiveRise_s * 1e6)} µs`],
+      ['', `${sig(h.energyPerPulse_J * 1e6)} µJ per pulse; ${formatPlain(plan.heater.repetitionRate_Hz)} Hz → ${sig(h.averagePower_W * 1e3)} mW on average; ${plan.heater.averages} pulses averaged`],
+      ['', `δT at the face q/(ρ c_p u₂) ${inUnit(h.faceDeltaT_K, 1e3)} mK; counterflow ${inUnit(h.counterflowVelocity_m_s, 1e2)} cm/s; shock after ${inUnit(h.shockDistance_m, 1e3)} mm`],
+      ['Record', `${formatPlain(result.record.start_s * 1e3)} to ${formatPlain(result.record.end_s * 1e3)} ms around the pulse, a sample every ${formatPlain(result.record.sampleInterval_s * 1e6)} µs`],
+    ],
+    ['left', 'left'],
+  );
+  const rows: string[][] = [
+    ['Sensor', 'Label', 'Path (mm)', 'u₁ at (ms)', 'u₂ at (ms)', 'δT (mK)', 'SNR avg', 'σT (mK)', 'Echoes'],
+    ...result.sensors.map((s) => [
+      s.id,
+      s.label,
+      `${sig(s.pathLength_m * 1e3)} ± ${sig(s.pathLengthSd_m * 1e3, 2)}`,
+      sig(s.firstSoundArrival_s * 1e3),
+      inUnit(s.secondSoundArrival_s, 1e3),
+      inUnit(s.amplitude_K, 1e3),
+      sig(s.snrAveraged, 3),
+      inUnit(s.temperatureSd_K, 1e3, 3),
+      String(s.echoes.length),
+    ]),
+  ];
+  const lines = [`Plan: ${plan.name}`, `File: ${path}`, '', ...summary, '', ...alignTable(rows, ['left', 'left', 'right', 'right', 'right', 'right', 'right', 'right', 'right'])];
+  const echoRows = result.sensors.flatMap((s) =>
+    s.echoes.map((e) => [s.id, `${e.order} (${e.path.join(' → ')})`, `${sig(e.arrival_s * 1e3)} ms`, `${sig(e.amplitude_K * 1e3)} mK`]),
+  );
+  if (echoRows.length > 0) {
+    lines.push('', 'Echoes (reflections, path):', ...alignTable(echoRows, ['left', 'left', 'right', 'right']).map((l) => `  ${l}`));
+  }
+  lines.push('', result.warnings.length > 0 ? 'Warnings:' : 'Warnings: none');
+  for (const w of result.warnings) lines.push(`  ${w.severity} (${w.code}${w.sensorId === null ? '' : `, ${w.sensorId}`}): ${w.message}`);
+  return lines;
+}

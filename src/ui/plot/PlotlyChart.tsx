@@ -23,25 +23,34 @@ export interface PlotlyChartProps {
   label: string;
   data: readonly PlotTrace[];
   layout: PlotLayout;
+  /** Called after each successful draw (e.g. to time a redraw). */
+  onDrawn?: (element: HTMLElement) => void;
 }
 
 /**
  * A thin wrapper around Plotly: draws with Plotly.react whenever data or layout change, purges on
  * unmount. A failure to load or draw is thrown during render, for the nearest error boundary.
  */
-export function PlotlyChart({ chartId, label, data, layout }: PlotlyChartProps) {
+export function PlotlyChart({ chartId, label, data, layout, onDrawn }: PlotlyChartProps) {
   const surface = useRef<HTMLDivElement>(null);
   const loaded = usePlotly();
   const plotly = loaded instanceof Error ? null : loaded;
   const [drawn, setDrawn] = useState(false);
   const [failure, setFailure] = useState<Error | null>(null);
+  // Read at draw time, so a new callback alone does not redraw the chart.
+  const drawnCallback = useRef(onDrawn);
+  drawnCallback.current = onDrawn;
 
   useEffect(() => {
     const element = surface.current;
     if (!plotly || !element) return;
     let live = true;
     plotly.react(element, data, layout, PLOT_CONFIG).then(
-      () => live && setDrawn(true),
+      () => {
+        if (!live) return;
+        setDrawn(true);
+        drawnCallback.current?.(element);
+      },
       (error: unknown) => live && setFailure(asError(error)),
     );
     return () => {

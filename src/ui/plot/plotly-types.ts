@@ -16,20 +16,57 @@ export interface PlotLine {
   shape?: 'linear' | 'spline';
 }
 
+/** A colour bar beside a chart whose markers carry a colour scale. */
+export interface PlotColorBar {
+  title?: { text: string; side?: 'right' | 'top' | 'bottom'; font?: PlotFont };
+  tickvals?: readonly number[];
+  ticktext?: readonly string[];
+  tickfont?: PlotFont;
+  thickness?: number;
+  len?: number;
+  x?: number;
+  y?: number;
+  yanchor?: 'top' | 'middle' | 'bottom';
+  outlinewidth?: number;
+}
+
+export interface PlotMarker {
+  /** One colour, or one number per point read through `colorscale`. */
+  color?: string | readonly number[];
+  size?: number;
+  symbol?: string;
+  line?: PlotLine;
+  opacity?: number;
+  /** [[fraction 0–1, colour], …] for numeric colours. */
+  colorscale?: readonly (readonly [number, string])[];
+  cmin?: number;
+  cmax?: number;
+  showscale?: boolean;
+  colorbar?: PlotColorBar;
+}
+
 export interface PlotTrace {
   type: 'scatter';
   name: string;
   x: readonly number[];
   y: readonly (number | null)[];
-  mode?: 'lines' | 'markers' | 'lines+markers';
+  mode?: 'lines' | 'markers' | 'lines+markers' | 'none';
   line?: PlotLine;
-  marker?: { color?: string; size?: number; symbol?: string; line?: PlotLine };
+  marker?: PlotMarker;
   xaxis?: string;
   yaxis?: string;
   hovertemplate?: string;
+  /** Text per point, for `%{text}` in the hover template. */
+  text?: readonly string[];
+  hoverinfo?: 'skip' | 'none';
   showlegend?: boolean;
+  /** Traces sharing a group show and hide together from the legend. */
+  legendgroup?: string;
   connectgaps?: boolean;
   cliponaxis?: boolean;
+  fill?: 'none' | 'tozeroy' | 'tonexty' | 'toself';
+  fillcolor?: string;
+  opacity?: number;
 }
 
 export interface PlotAxis {
@@ -55,6 +92,10 @@ export interface PlotAxis {
   tickformat?: string;
   dtick?: number;
   fixedrange?: boolean;
+  tickvals?: readonly number[];
+  ticktext?: readonly string[];
+  nticks?: number;
+  exponentformat?: 'none' | 'e' | 'E' | 'power' | 'SI' | 'B';
 }
 
 export interface PlotShape {
@@ -86,6 +127,7 @@ export interface PlotAnnotation {
   font?: PlotFont;
   bgcolor?: string;
   align?: 'left' | 'center' | 'right';
+  textangle?: number;
 }
 
 export interface PlotLayout {
@@ -114,6 +156,7 @@ export interface PlotLayout {
   autosize?: boolean;
   height?: number;
   uirevision?: string | number;
+  dragmode?: 'zoom' | 'pan' | false;
 }
 
 export interface PlotConfig {

@@ -492,7 +492,8 @@ export const PLAN_FILE_SCHEMA = z.strictObject(
 
 /** The schema's output and the documented {@link PlanFile} must describe the same thing (checked by tsc). */
 type MutuallyAssignable<A, B> = [A] extends [B] ? ([B] extends [A] ? true : false) : false;
-export const PLAN_FILE_SCHEMA_MATCHES_INTERFACE: MutuallyAssignable<z.output<typeof PLAN_FILE_SCHEMA>, PlanFile> = true;
+const schemaMatchesInterface: MutuallyAssignable<z.output<typeof PLAN_FILE_SCHEMA>, PlanFile> = true;
+void schemaMatchesInterface;
 
 function heaterArea(h: { geometry?: unknown; area_m2?: unknown; radius_m?: unknown }): number | null {
   if (h.geometry === 'disk') return isNumber(h.radius_m) ? Math.PI * h.radius_m * h.radius_m : null;

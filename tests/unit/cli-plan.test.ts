@@ -3,10 +3,12 @@ import { mkdirSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'nod
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { parseFlags } from '../../src/cli/args';
+import { parseFlags, type QuantityArg } from '../../src/cli/args';
+import { UsageError } from '../../src/cli/errors';
+import { computeFor, kernelCall } from '../../src/cli/kernel-call';
 import type { CliIo } from '../../src/cli/io';
 import { main } from '../../src/cli/main';
-import { heliumProperties } from '../../src/physics';
+import { heliumProperties, InvalidInputError } from '../../src/physics';
 
 const REPO_ROOT = fileURLToPath(new URL('../..', import.meta.url));
 const DEMO_PATH = join(REPO_ROOT, 'public/demo-plan.json');
@@ -374,6 +376,36 @@ describe('bad command lines: one line on stderr, status 2', () => {
   it.each(cases)('%s', async (_name, argv, expected) => {
     const line = expectUsageError(await run(...argv));
     for (const fragment of expected) expect(line).toContain(fragment);
+  });
+});
+
+describe('kernel errors from a flag', () => {
+  const temperature: QuantityArg = {
+    spec: { kind: 'quantity', name: 'temperature', dimension: 'temperature', placeholder: 'T', range: [0.3, 4.24], help: '' },
+    text: '1.8K',
+    value: 1.8,
+  };
+
+  it('an InvalidInputError names the flag, what was typed and the kernel’s message', () => {
+    const call = () =>
+      computeFor(temperature, () => {
+        throw new InvalidInputError('spacer material', 'unknown "steel"');
+      });
+    expect(call).toThrow(UsageError);
+    expect(call).toThrow('--temperature 1.8K: spacer material: unknown "steel"');
+  });
+
+  it('kernelCall turns any kernel error into a usage error and lets other errors through', () => {
+    expect(() =>
+      kernelCall(() => {
+        throw new InvalidInputError('echo order', 'must be a whole number 0–12');
+      }),
+    ).toThrow(new UsageError('echo order: must be a whole number 0–12'));
+    expect(() =>
+      kernelCall(() => {
+        throw new TypeError('a bug');
+      }),
+    ).toThrow(TypeError);
   });
 });
 

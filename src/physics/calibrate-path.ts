@@ -1,4 +1,4 @@
-import { InvalidInputError } from './errors';
+import { InvalidInputError, requireInRange } from './errors';
 import { fitParabola, parabolaVertex } from './parabola';
 import { secondSoundRelativeSd } from './temperature-resolution';
 import { SECOND_SOUND_EXTREMA } from './second-sound-extrema';
@@ -40,6 +40,12 @@ const HALF_WINDOW = 3;
  */
 export function calibratePathFromSweep(points: readonly SweepPoint[], offset_s = 0, offsetSd_s = 0): PathCalibration {
   if (points.length < 5) throw new InvalidInputError('sweep', `needs at least 5 readings through the maximum, got ${points.length}`);
+  points.forEach((p, i) => {
+    requireInRange(`sweep position (reading ${i + 1})`, p.x, -1e12, 1e12, '');
+    requireInRange(`delay (reading ${i + 1})`, p.delay_s, 1e-9, 1e4, 's');
+  });
+  requireInRange('offset', offset_s, -1e3, 1e3, 's');
+  requireInRange('offset sd', offsetSd_s, 0, 1e3, 's');
   const sorted = [...points].sort((a, b) => a.x - b.x);
   let iMin = 0;
   sorted.forEach((p, i) => {
@@ -69,6 +75,7 @@ export function calibratePathFromSweep(points: readonly SweepPoint[], offset_s =
   const transit = shortest - offset_s;
   if (!(transit > 0)) throw new InvalidInputError('offset', 'is not shorter than the shortest delay');
   const L = uMax * transit;
+  if (!(Number.isFinite(L) && Number.isFinite(shortestSd))) throw new InvalidInputError('sweep', 'the readings do not fix a shortest delay');
   const relL = Math.sqrt(relU ** 2 + (shortestSd ** 2 + offsetSd_s ** 2) / transit ** 2);
   return {
     pathLength_m: L,

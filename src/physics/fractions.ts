@@ -2,7 +2,7 @@ import { CubicBSpline } from './bspline';
 import { MODEL_MIN_K, PROPERTIES_MAX_K, T_LAMBDA_K } from './constants';
 import { densityUnchecked_g_cm3, DENSITY_G_CM3_TO_KG_M3 } from './density';
 import { requireInRange } from './errors';
-import { landauGas } from './landau';
+import { landauGasUnchecked } from './landau';
 import { SUPERFLUID_DENSITY_SPLINE } from './reference-splines';
 
 /*
@@ -25,7 +25,7 @@ export function normalFractionUnchecked(T: number): number {
   if (T >= T_LAMBDA_K) return 1;
   const rho = densityUnchecked_g_cm3(T);
   const fromSpline = () => Math.min(1, Math.max(0, 1 - spline.value(T) / rho));
-  const fromLandau = () => landauGas(T).normalDensity_kg_m3 / (rho * DENSITY_G_CM3_TO_KG_M3);
+  const fromLandau = () => landauGasUnchecked(T).normalDensity_kg_m3 / (rho * DENSITY_G_CM3_TO_KG_M3);
   if (T >= BLEND_END_K) return fromSpline();
   if (T <= BLEND_START_K) return fromLandau();
   const x = (T - BLEND_START_K) / (BLEND_END_K - BLEND_START_K);

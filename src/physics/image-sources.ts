@@ -35,10 +35,14 @@ export interface SourceImage {
 export const MAX_ECHO_ORDER = 12;
 /** Highest order generated: one more than reported, for partners of the last echo. */
 const MAX_IMAGE_ORDER = MAX_ECHO_ORDER + 1;
-/** Images weaker than this (|∏R|) are dropped: below any sensor's noise in practice. */
-export const MIN_IMAGE_FACTOR = 1e-4;
+/**
+ * Images weaker than this (|∏R|) are dropped: below any sensor's noise in practice. Low enough
+ * that the partner of a reported echo (one more reflection, at the sensor's own plate) survives
+ * up to the highest order at R = 0.4.
+ */
+export const MIN_IMAGE_FACTOR = 1e-6;
 /** Most images generated, however many planes: keeps a recompute fast. */
-export const MAX_IMAGES = 2000;
+export const MAX_IMAGES = 400;
 const AXIS_INDEX = { x: 0, y: 1, z: 2 } as const;
 const ON_PLANE_M = 1e-12;
 

@@ -2,7 +2,7 @@ import { MODEL_MIN_K, T_LAMBDA_K } from './constants';
 import { requireInRange } from './errors';
 import { secondSoundRegion, secondSoundUnchecked, secondSoundValueUnchecked } from './second-sound';
 import { SECOND_SOUND_EXTREMA } from './second-sound-extrema';
-import { secondSoundRelativeSd, temperatureSpread } from './temperature-resolution';
+import { secondSoundRelativeSd, secondSoundRelativeSdUnchecked, temperatureSpreadUnchecked } from './temperature-resolution';
 
 /*
  * Speed → every temperature with u2(T) = u (PHYSICS notes §6). u2 is not monotonic: it falls from
@@ -137,8 +137,8 @@ const EXTREMA_TABLE_REL_SD = {
 };
 
 function candidateAt({ T, at }: Root, branch: Branch, relSd: number, kind: TemperatureCandidate['kind'] = 'root'): TemperatureCandidate {
-  const table = secondSoundRelativeSd(T, at);
-  const spread = temperatureSpread(T, Math.sqrt(relSd * relSd + table * table), at);
+  const table = secondSoundRelativeSdUnchecked(T, at);
+  const spread = temperatureSpreadUnchecked(T, Math.sqrt(relSd * relSd + table * table), at);
   return { temperature_K: T, sd_K: spread.sd_K, slope_m_s_K: at.slope, branch, insensitive: spread.insensitive, region: secondSoundRegion(T), kind };
 }
 

@@ -1,3 +1,4 @@
+import { requireInRange } from './errors';
 import {
   BOLTZMANN_J_K,
   FIRST_SOUND_T0_M_S,
@@ -36,8 +37,20 @@ const PHONON_S = (2 * Math.PI ** 2 * kB ** 4) / (45 * hbar3 * c ** 3);
 const PHONON_RHO = (2 * Math.PI ** 2 * kB ** 4) / (45 * hbar3 * c ** 5);
 const ROTON_N = (2 * Math.sqrt(mu) * p0 * p0 * Math.sqrt(kB)) / ((2 * Math.PI) ** 1.5 * hbar3);
 
-/** Phonon and roton contributions at temperature T (K, > 0). */
+/** Temperatures at which the Landau sums are offered, K (a dilute gas of excitations). */
+export const LANDAU_RANGE_K = [1e-3, 2] as const;
+
+/**
+ * Phonon and roton contributions at temperature T, K (1 mK – 2 K; physically meaningful below
+ * about 1 K). Throws OutOfRangeError / NonFiniteInputError.
+ */
 export function landauGas(T: number): LandauGas {
+  requireInRange('temperature', T, LANDAU_RANGE_K[0], LANDAU_RANGE_K[1], 'K');
+  return landauGasUnchecked(T);
+}
+
+/** {@link landauGas} without the range check (kernel-internal). */
+export function landauGasUnchecked(T: number): LandauGas {
   const x = gap / (kB * T);
   const T3 = T * T * T;
   const sPh = PHONON_S * T3;
@@ -56,10 +69,17 @@ export function landauGas(T: number): LandauGas {
 
 /**
  * Second sound of the Landau gas from the two-fluid relation u2² = (ρs/ρn)·T·S²/(ρ·C), m/s,
- * for total density ρ (kg/m³). Tends to c/√3 as T → 0.
+ * for total density ρ (kg/m³, 100–200). Tends to c/√3 as T → 0. T as for {@link landauGas}.
  */
 export function landauSecondSound(T: number, density_kg_m3: number): number {
-  const g = landauGas(T);
+  requireInRange('temperature', T, LANDAU_RANGE_K[0], LANDAU_RANGE_K[1], 'K');
+  requireInRange('density', density_kg_m3, 100, 200, 'kg/m³');
+  return landauSecondSoundUnchecked(T, density_kg_m3);
+}
+
+/** {@link landauSecondSound} without range checks (kernel-internal). */
+export function landauSecondSoundUnchecked(T: number, density_kg_m3: number): number {
+  const g = landauGasUnchecked(T);
   const rhoS = density_kg_m3 - g.normalDensity_kg_m3;
   return Math.sqrt(((rhoS / g.normalDensity_kg_m3) * T * g.entropy_J_m3K ** 2) / (density_kg_m3 * g.heatCapacity_J_m3K));
 }

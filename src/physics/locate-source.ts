@@ -53,11 +53,12 @@ export interface ConfidenceRegion {
 
 export interface LocateResult {
   source_m: Vec3;
-  sourceSd_m: Vec3;
-  /** Covariance of the source position (Cartesian), m². */
-  covariance_m2: Matrix;
+  /** One-sigma per coordinate, m; null when the layout cannot fix the source (degenerate). */
+  sourceSd_m: Vec3 | null;
+  /** Covariance of the source position (Cartesian), m²; null when degenerate. */
+  covariance_m2: Matrix | null;
   offset_s: number;
-  offsetSd_s: number;
+  offsetSd_s: number | null;
   speed_m_s: number;
   speedSd_m_s: number | null;
   residuals_s: number[];
@@ -69,8 +70,8 @@ export interface LocateResult {
   dropped: number[];
   chiSquare: number;
   degreesOfFreedom: number;
-  /** 1σ (68.3 %) and 2σ (95.4 %) joint regions of the free position coordinates. */
-  regions: { sigma1: ConfidenceRegion; sigma2: ConfidenceRegion };
+  /** 1σ (68.3 %) and 2σ (95.4 %) joint regions of the free position coordinates; null when degenerate. */
+  regions: { sigma1: ConfidenceRegion; sigma2: ConfidenceRegion } | null;
   /** The layout cannot fix the source (sensors on a line, too few, or a singular fit). */
   degenerate: boolean;
   /** Plain statements about the geometry and the fit. */
@@ -443,35 +444,39 @@ function finish(
   const notes = [...geometry.notes];
   let degenerate = geometry.degenerate || inv === null;
   const k = param.dims;
-  let covPos = zeros(3, 3);
-  let t0Sd = Number.NaN;
+  let covPos: Matrix | null = null;
+  let t0Sd: number | null = null;
   let uSd: number | null = null;
   if (inv) {
     const covQ = inv.slice(0, k).map((row) => row.slice(0, k).map((c) => c * inflation));
     const dxdq = param.jacobian(q);
-    covPos = multiply(multiply(dxdq, covQ), transpose(dxdq));
-    t0Sd = Math.sqrt(Math.max(0, ((inv[k] as number[])[k] as number) * inflation));
-    if (options.fitSpeed) uSd = Math.sqrt(Math.max(0, ((inv[k + 1] as number[])[k + 1] as number) * inflation));
-    const e = symmetricEigen(covPos);
-    const largest = Math.sqrt(Math.max(0, e.values[0] ?? 0));
+    const candidate = multiply(multiply(dxdq, covQ), transpose(dxdq));
+    const t0Var = ((inv[k] as number[])[k] as number) * inflation;
+    const uVar = options.fitSpeed ? ((inv[k + 1] as number[])[k + 1] as number) * inflation : 0;
     const spread = Math.max(...problem.sensors.map((s) => norm(sub(s, centroid(problem.sensors)))));
-    if (!Number.isFinite(largest) || largest > 1e3 * Math.max(spread, 1e-6)) {
+    const largest = Math.sqrt(Math.max(0, symmetricEigen(candidate).values[0] ?? 0));
+    if (![...candidate.flat(), t0Var, uVar].every(Number.isFinite)) {
+      degenerate = true;
+    } else if (largest > 1e3 * Math.max(spread, 1e-6)) {
       degenerate = true;
       notes.push('The fit leaves the position almost free in one direction: the layout cannot fix the source.');
+    } else {
+      covPos = candidate;
+      t0Sd = Math.sqrt(Math.max(0, t0Var));
+      if (options.fitSpeed) uSd = Math.sqrt(Math.max(0, uVar));
     }
-  } else {
-    notes.push('The fit is singular: the layout cannot fix the source.');
   }
+  if (!covPos && !notes.some((n) => n.includes('cannot fix'))) notes.push('The fit is singular: the layout cannot fix the source.');
   if (inflation > 1 && !degenerate) notes.push(`The residuals scatter ${Math.sqrt(inflation).toFixed(2)}× more than the stated timing sd; the uncertainties are scaled up by that.`);
   // Residuals for every sensor, dropped ones included.
   const residuals_s = arrivals.map((a) => a.arrival_s - t0 - norm(sub(x, a.position_m)) / u);
   const normalised = residuals_s.map((r, i) => r / ((arrivals[i] as SensorArrival).arrivalSd_s ?? options.arrivalSd_s));
   const outliers = normalised.flatMap((r, i) => (Math.abs(r) > limit ? [i] : []));
-  const safeCov = covPos.map((row) => row.map((c) => (Number.isFinite(c) ? c : 0)));
+  const cov = covPos;
   return {
     source_m: x,
-    sourceSd_m: vec3((i) => Math.sqrt(Math.max(0, (safeCov[i] as number[])[i] as number))),
-    covariance_m2: safeCov,
+    sourceSd_m: cov ? vec3((i) => Math.sqrt(Math.max(0, (cov[i] as number[])[i] as number))) : null,
+    covariance_m2: cov,
     offset_s: t0,
     offsetSd_s: t0Sd,
     speed_m_s: u,
@@ -482,7 +487,7 @@ function finish(
     dropped,
     chiSquare: fit.chi,
     degreesOfFreedom: dof,
-    regions: { sigma1: region(safeCov, param.dims, 0), sigma2: region(safeCov, param.dims, 1) },
+    regions: cov ? { sigma1: region(cov, param.dims, 0), sigma2: region(cov, param.dims, 1) } : null,
     degenerate,
     notes,
     iterations: fit.iterations,

@@ -62,7 +62,11 @@ export function fitParabola(u: ArrayLike<number>, y: ArrayLike<number>): Parabol
     const ui = u[i] as number;
     sq += ((y[i] as number) - a - b * ui - c * ui * ui) ** 2;
   }
-  return { a, b, c, inverse, rms: Math.sqrt(sq / n), n };
+  const rms = Math.sqrt(sq / n);
+  if (![a, b, c, rms, ...inverse.flat()].every(Number.isFinite)) {
+    throw new InvalidInputError('points', 'do not fix a parabola (positions too close together or values not finite)');
+  }
+  return { a, b, c, inverse, rms, n };
 }
 
 export interface Vertex {

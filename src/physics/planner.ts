@@ -160,6 +160,9 @@ export const PLAN_LIMITS = {
   heaterArea_m2: [1e-12, 1],
   heaterRadius_m: [1e-6, 0.5],
   power_W: [1e-9, 1e4],
+  /** Heat flux on the heater face: up to 100 kW/cm², far past any film; a guard against typing slips. */
+  flux_W_m2: [1e-6, 1e9],
+  reflectors: [0, 16],
   repetitionRate_Hz: [1e-4, 1e5],
   averages: [1, 1e7],
   sensorCount: [1, 64],
@@ -208,6 +211,10 @@ function checkInputs(plan: PlanInput): void {
   requireInRange('heater power', h.power_W, L.power_W[0], L.power_W[1], 'W');
   requireInRange('repetition rate', h.repetitionRate_Hz, L.repetitionRate_Hz[0], L.repetitionRate_Hz[1], 'Hz');
   requireInRange('pulses averaged', h.averages, L.averages[0], L.averages[1], '');
+  if (!Number.isInteger(h.averages)) throw new InvalidInputError('pulses averaged', 'must be a whole number');
+  const area = h.geometry === 'disk' ? Math.PI * h.radius_m * h.radius_m : h.area_m2;
+  requireInRange('heat flux', h.power_W / area, L.flux_W_m2[0], L.flux_W_m2[1], 'W/m²');
+  requireInRange('number of reflecting planes', plan.reflectors.length, L.reflectors[0], L.reflectors[1], '');
   requireInRange('number of sensors', plan.sensors.length, L.sensorCount[0], L.sensorCount[1], '');
   plan.sensors.forEach((s, i) => {
     const name = `sensor ${i + 1} (${s.label})`;
@@ -215,6 +222,7 @@ function checkInputs(plan: PlanInput): void {
       requireInRange(`${name} ${'xyz'[k]}`, c, -PATH_LENGTH_RANGE_M[1], PATH_LENGTH_RANGE_M[1], 'm');
     });
     if (!(s.position_m[2] > 0)) throw new InvalidInputError(`${name} z`, 'the sensor must sit in front of the heater (z above 0)');
+    requireInRange(`${name} distance`, Math.hypot(...s.position_m), PATH_LENGTH_RANGE_M[0], PATH_LENGTH_RANGE_M[1], 'm');
     requireInRange(`${name} distance uncertainty`, s.distanceSd_m, L.distanceSd_m[0], L.distanceSd_m[1], 'm');
     requireInRange(`${name} area`, s.area_m2, L.sensorArea_m2[0], L.sensorArea_m2[1], 'm²');
     requireInRange(`${name} responsivity`, s.responsivity_V_K, L.responsivity_V_K[0], L.responsivity_V_K[1], 'V/K');
@@ -543,9 +551,10 @@ function sensorResult(c: SensorContext): SensorPlanResult {
   const timingSd = Math.hypot(riseAtSensor / snrAveraged, sampleInterval / Math.sqrt(12));
   const transit = arrival;
   const relSpeedSd = Math.hypot(pathSd / directLength, timingSd / transit);
-  const spreadT = temperatureSpread(plan.temperature_K, relSpeedSd);
-  const changeT = temperatureSpread(plan.temperature_K, timingSd / transit);
-  const withModel = temperatureSpread(plan.temperature_K, Math.hypot(relSpeedSd, secondSoundRelativeSd(plan.temperature_K)));
+  // Relative speed uncertainties above 1 mean the reading says nothing; they are capped there.
+  const spreadT = temperatureSpread(plan.temperature_K, Math.min(1, relSpeedSd));
+  const changeT = temperatureSpread(plan.temperature_K, Math.min(1, timingSd / transit));
+  const withModel = temperatureSpread(plan.temperature_K, Math.min(1, Math.hypot(relSpeedSd, secondSoundRelativeSd(plan.temperature_K))));
   const shortest = shortestDistanceForResolution(plan.temperature_K, plan.targets.temperatureSd_K, timingSd, pathSd);
 
   sensorWarnings(c, { arrival, amplitude, echoes, snrAveraged, pulsesForTarget, riseAtSensor, spreadT, directLength, spread });

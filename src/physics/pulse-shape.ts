@@ -116,6 +116,6 @@ export function pulseProfile(shape: PulseShape, width_s: number, riseTime_s: num
   }
   requireInRange('pulse width', width_s, PULSE_WIDTH_RANGE_S[0], PULSE_WIDTH_RANGE_S[1], 's');
   if (shape.kind === 'half-sine') return halfSine(width_s);
-  requireInRange('rise time', riseTime_s, width_s * 1e-6, width_s, 's', 'above 0 and at most the pulse width');
+  requireInRange('rise time', riseTime_s, width_s * 1e-6, width_s, 's', 'from a millionth of the pulse width up to the width');
   return trapezoid(width_s, riseTime_s);
 }

@@ -1,3 +1,4 @@
+import { InvalidInputError, requireInRange } from './errors';
 import type { Vec3 } from './image-sources';
 import type { PulseProfile } from './pulse-shape';
 
@@ -75,8 +76,12 @@ const DISK_RULE = [
   ...Array.from({ length: 6 }, (_, i) => ({ r: DISK_RULE_R, phi: (i * Math.PI) / 3, w: 0.125 })),
 ];
 
-/** Angle (rad) of the circle of radius s about a point at distance d from the centre of a disk of radius a that lies inside the disk. */
+/**
+ * Angle (rad, 0–2π) of the circle of radius s about a point at distance d from the centre of a
+ * disk of radius a that lies inside the disk. Lengths ≥ 0 in any one unit; NaN gives 0.
+ */
 export function ringAngleInsideDisk(s: number, d: number, a: number): number {
+  if (!(s >= 0 && d >= 0 && a >= 0)) return 0;
   if (s <= a - d) return 2 * Math.PI;
   if (s >= a + d || s <= d - a) return 0;
   const c = (s * s + d * d - a * a) / (2 * s * d);
@@ -102,14 +107,47 @@ function grid(first_s: number, last_s: number, step: number): SampledSignal {
   // Anchored at multiples of the step so that signals on the same step add sample by sample.
   const i0 = Math.floor(first_s / step) - 1;
   const i1 = Math.ceil(last_s / step) + 1;
+  if (i1 - i0 + 1 > MAX_PULSE_SAMPLES) {
+    throw new InvalidInputError('time step', `${step} s would need ${i1 - i0 + 1} samples for this pulse (at most ${MAX_PULSE_SAMPLES})`);
+  }
   return { start_s: i0 * step, step_s: step, values: new Float64Array(i1 - i0 + 1) };
+}
+
+/** Most samples one received pulse may hold: a guard against a step far too fine for the pulse. */
+export const MAX_PULSE_SAMPLES = 2_000_000;
+/** Most multiply-adds one disk integral may take (samples × delay bins). */
+export const MAX_DISK_WORK = 200_000_000;
+
+function checkPulseInputs(source: PulseSource, sensor: SensorPoint, medium: Medium, step_s: number): void {
+  requireInRange('time step', step_s, 1e-15, 1, 's');
+  requireInRange('second-sound speed', medium.secondSound_m_s, 1e-6, 1e3, 'm/s');
+  requireInRange('density', medium.density_kg_m3, 1, 1e3, 'kg/m³');
+  requireInRange('specific heat', medium.specificHeat_J_kgK, 1e-6, 1e7, 'J/(kg·K)');
+  requireInRange('heat flux', source.peakFlux_W_m2, 0, 1e12, 'W/m²');
+  requireInRange('heater power', source.peakPower_W, 0, 1e6, 'W');
+  if (source.geometry === 'disk') requireInRange('heater radius', source.radius_m, 1e-9, 100, 'm');
+  requireInRange('reflection product', source.amplitudeFactor, -1, 1, '');
+  requireInRange('sensor radius', sensor.radius_m, 0, 100, 'm');
+  requireInRange('sensor lag', sensor.lag_s, 0, 10, 's');
+  for (const [name, v] of [
+    ['source', source.centre],
+    ['sensor', sensor.position],
+  ] as const) {
+    v.forEach((x, k) => {
+      requireInRange(`${name} ${'xyz'[k]}`, x, -1e3, 1e3, 'm');
+    });
+  }
+  const dz = Math.abs(sensor.position[2] - source.centre[2]);
+  if (!(dz > 0)) throw new InvalidInputError('sensor position', 'must lie off the heater plane (z differs from the heater)');
 }
 
 /**
  * δT(t) (K) at one sensor from one heater (or heater image), on a grid of the given step.
- * Time zero is the pulse onset at the heater. Inputs in SI; `step_s` > 0.
+ * Time zero is the pulse onset at the heater. Inputs in SI; `step_s` > 0. Throws typed errors
+ * naming the field for bad input, and when the pulse would need more than 2 million samples.
  */
 export function receivedPulse(source: PulseSource, sensor: SensorPoint, medium: Medium, step_s: number): ReceivedPulse {
+  checkPulseInputs(source, sensor, medium, step_s);
   const u = medium.secondSound_m_s;
   const rhoC = medium.density_kg_m3 * medium.specificHeat_J_kgK;
   const dx = sensor.position[0] - source.centre[0];
@@ -196,6 +234,9 @@ function diskRayleigh(out: SampledSignal, c: DiskCase, points: { d: number; w: n
   const tauMax = Math.max(...points.map((p) => Math.hypot(c.z, p.d + c.a))) / c.u;
   const j0 = Math.floor(tauMin / h);
   const bins = Math.max(1, Math.ceil(tauMax / h) - j0);
+  if (bins * out.values.length > MAX_DISK_WORK) {
+    throw new InvalidInputError('time step', `${h} s is too fine for a disk this size seen from here (${bins} delay bins × ${out.values.length} samples)`);
+  }
   const phi = new Float64Array(bins);
   for (const { d, w } of points) {
     for (let j = 0; j < bins; j++) {

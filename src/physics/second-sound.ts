@@ -2,7 +2,7 @@ import { CubicBSpline } from './bspline';
 import { MODEL_MIN_K, T_LAMBDA_K } from './constants';
 import { densityUnchecked_g_cm3, DENSITY_G_CM3_TO_KG_M3 } from './density';
 import { requireInRange } from './errors';
-import { landauSecondSound } from './landau';
+import { landauSecondSoundUnchecked } from './landau';
 import { SECOND_SOUND_SPLINE } from './reference-splines';
 
 /*
@@ -34,7 +34,7 @@ const tJoin = 1 - SECOND_SOUND_CRITICAL_JOIN_K / T_LAMBDA_K;
 const criticalAmplitude = spline.value(SECOND_SOUND_CRITICAL_JOIN_K) / tJoin ** CRITICAL_EXPONENT;
 
 function landauU2(T: number): number {
-  return landauSecondSound(T, densityUnchecked_g_cm3(T) * DENSITY_G_CM3_TO_KG_M3);
+  return landauSecondSoundUnchecked(T, densityUnchecked_g_cm3(T) * DENSITY_G_CM3_TO_KG_M3);
 }
 
 const MODEL_STEP_K = 1e-6;

@@ -1,4 +1,5 @@
 import { MODEL_MIN_K, T_LAMBDA_K } from './constants';
+import { requireInRange } from './errors';
 import { secondSoundSdUnchecked, secondSoundUnchecked } from './second-sound';
 
 /*
@@ -55,7 +56,14 @@ function absCurvature(T: number): number {
  * @param T temperature, K.  @param relSpeedSd σ_u/u, dimensionless (≥ 0).
  * @param at u2 and its slope at T when the caller has them (saves an evaluation).
  */
-export function temperatureSpread(T: number, relSpeedSd: number, at = secondSoundUnchecked(T)): TemperatureSpread {
+export function temperatureSpread(T: number, relSpeedSd: number, at?: { value: number; slope: number }): TemperatureSpread {
+  requireInRange('temperature', T, MODEL_MIN_K, T_LAMBDA_K, 'K');
+  requireInRange('relative speed uncertainty', relSpeedSd, 0, 1, '');
+  return temperatureSpreadUnchecked(T, relSpeedSd, at ?? secondSoundUnchecked(T));
+}
+
+/** {@link temperatureSpread} without range checks (kernel-internal). */
+export function temperatureSpreadUnchecked(T: number, relSpeedSd: number, at: { value: number; slope: number }): TemperatureSpread {
   const sigmaU = relSpeedSd * at.value;
   const s = Math.abs(at.slope);
   if (!Number.isFinite(s)) return { sd_K: 0, insensitive: false };
@@ -65,8 +73,17 @@ export function temperatureSpread(T: number, relSpeedSd: number, at = secondSoun
   return { sd_K: denominator > 0 ? sigmaU / denominator : 0, insensitive: curved > s2 };
 }
 
-/** Relative uncertainty of the tabulated u2 at T (the model's own share of a temperature sd). */
-export function secondSoundRelativeSd(T: number, at = secondSoundUnchecked(T)): number {
+/**
+ * Relative uncertainty of the tabulated u2 at T (the model's own share of a temperature sd).
+ * @param T temperature, K, 0.3 K – Tλ. Throws on bad input.
+ */
+export function secondSoundRelativeSd(T: number): number {
+  requireInRange('temperature', T, MODEL_MIN_K, T_LAMBDA_K, 'K');
+  return secondSoundRelativeSdUnchecked(T, secondSoundUnchecked(T));
+}
+
+/** {@link secondSoundRelativeSd} without the range check, given u2 and its slope at T. */
+export function secondSoundRelativeSdUnchecked(T: number, at: { value: number; slope: number }): number {
   return at.value > 0 ? secondSoundSdUnchecked(T, at.value, at.slope) / at.value : 0;
 }
 
@@ -76,6 +93,10 @@ export function secondSoundRelativeSd(T: number, at = secondSoundUnchecked(T)): 
  * d = k √(σ_d² + (σ_t u2)²)/σ_target. Infinity where du2/dT = 0.
  */
 export function shortestDistanceForResolution(T: number, targetSd_K: number, timingSd_s: number, distanceSd_m: number): number {
+  requireInRange('temperature', T, MODEL_MIN_K, T_LAMBDA_K, 'K');
+  requireInRange('target temperature sd', targetSd_K, 1e-12, 10, 'K');
+  requireInRange('timing sd', timingSd_s, 0, 1e3, 's');
+  requireInRange('distance sd', distanceSd_m, 0, 100, 'm');
   const { value: u, slope } = secondSoundUnchecked(T);
   if (slope === 0) return Number.POSITIVE_INFINITY;
   const k = u / Math.abs(slope);

@@ -6,8 +6,11 @@
 import { HELP_FLAGS, parseFlags } from './args';
 import type { Command } from './command';
 import { arrivalsCommand } from './commands/arrivals';
+import { delayCommand } from './commands/delay';
+import { fitCommand } from './commands/fit';
 import { planCommand } from './commands/plan';
 import { propsCommand } from './commands/props';
+import { traceCommand } from './commands/trace';
 import { vapourCommand } from './commands/vapour';
 import { EXIT_INTERNAL, EXIT_OK, EXIT_USAGE, UsageError } from './errors';
 import { renderCommandHelp, renderGeneralHelp } from './help';
@@ -15,7 +18,7 @@ import { type CliIo, processIo } from './io';
 import { packageVersion } from './version';
 
 /** Every command, in the order `sekundo --help` lists them. Add new commands here. */
-export const COMMANDS: readonly Command[] = [propsCommand, vapourCommand, arrivalsCommand, planCommand];
+export const COMMANDS: readonly Command[] = [propsCommand, vapourCommand, arrivalsCommand, planCommand, delayCommand, traceCommand, fitCommand];
 
 const PROGRAM = 'sekundo';
 const VERSION_FLAG = '--version';

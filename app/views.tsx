@@ -1,5 +1,6 @@
 import type { ComponentType } from 'react';
 import { ExplorerView } from '../src/ui/explorer/ExplorerView';
+import { PlannerView } from '../src/ui/planner/PlannerView';
 import type { ViewId } from '../src/ui/store/view-slice';
 
 /** The page's views, in tab order. A new view adds its id to ViewId and an entry here. */
@@ -18,5 +19,12 @@ export const VIEWS: readonly ViewEntry[] = [
     label: 'Helium properties',
     purpose: 'Every property of liquid helium-4 along the saturated vapour pressure, with its source and uncertainty.',
     component: ExplorerView,
+  },
+  {
+    id: 'planner',
+    label: 'Plan a measurement',
+    purpose:
+      'Before a cooldown: when each wave reaches each sensor, how big the signal is, what overlaps or distorts, and how finely the delay pins the temperature.',
+    component: PlannerView,
   },
 ];

@@ -28,6 +28,15 @@ describe('Sekundo store', () => {
     expect(keys).not.toContain('secondSound_m_s');
     expect(keys.filter((key) => typeof store()[key as keyof ReturnType<typeof store>] !== 'function').sort()).toEqual([
       'activeView',
+      'plannerDrafts',
+      'plannerErrors',
+      'plannerMapSensorKey',
+      'plannerPlan',
+      'plannerReflectorKeys',
+      'plannerSensorKeys',
+      'plannerSource',
+      'plannerStatus',
+      'plannerTimelineView',
       'sourceDetailsShown',
       'temperatureDraft',
       'temperatureError',

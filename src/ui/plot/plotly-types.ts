@@ -34,7 +34,8 @@ export interface PlotMarker {
   /** One colour, or one number per point read through `colorscale`. */
   color?: string | readonly number[];
   size?: number;
-  symbol?: string;
+  /** One symbol, or one per point. */
+  symbol?: string | readonly string[];
   line?: PlotLine;
   opacity?: number;
   /** [[fraction 0–1, colour], …] for numeric colours. */

@@ -1,4 +1,5 @@
 export { useHeliumProperties } from './derived';
+export type { PlannerSlice, PlannerSource, TimelineView } from './planner-slice';
 export { resetSekundoStore, useSekundoStore } from './sekundo-store';
 export type { SekundoState } from './state';
 export { DEFAULT_TEMPERATURE_K, draftFor, type TemperatureSlice } from './temperature-slice';

@@ -1,4 +1,5 @@
 import { create } from 'zustand';
+import { createPlannerSlice } from './planner-slice';
 import type { SekundoState } from './state';
 import { createTemperatureSlice } from './temperature-slice';
 import { createViewSlice } from './view-slice';
@@ -7,6 +8,7 @@ import { createViewSlice } from './view-slice';
 export const useSekundoStore = create<SekundoState>()((...args) => ({
   ...createTemperatureSlice(...args),
   ...createViewSlice(...args),
+  ...createPlannerSlice(...args),
 }));
 
 /** Puts every slice back to its initial state (tests, "start over"). */

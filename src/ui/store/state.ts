@@ -1,5 +1,6 @@
+import type { PlannerSlice } from './planner-slice';
 import type { TemperatureSlice } from './temperature-slice';
 import type { ViewSlice } from './view-slice';
 
 /** The whole store: inputs only. Results are derived from them with kernel calls. */
-export type SekundoState = TemperatureSlice & ViewSlice;
+export type SekundoState = TemperatureSlice & ViewSlice & PlannerSlice;

@@ -1,0 +1,60 @@
+import { type PlanFile, planBath } from '../../io/plan-file';
+import { vapourPressure } from '../../physics';
+import { formatSignificant } from '../format/format-number';
+import { useSekundoStore } from '../store';
+import { formatKelvin } from '../temperature/temperature-units';
+import { ChoiceGroup, EditorCard } from './EditorCard';
+import { PlanFieldMessage, PlanNumberField } from './PlanField';
+import { type BathMode, bathMode, setBathMode } from './plan-edits';
+import { BATH_FIELDS } from './plan-fields';
+
+const MODES = [
+  { value: 'temperature', label: 'Temperature' },
+  { value: 'pressure', label: 'Vapour-pressure reading' },
+] as const;
+
+/** The bath: its temperature, typed or read as the vapour pressure over it, and the liquid depth. */
+export function BathEditor() {
+  const plan = useSekundoStore((s) => s.plannerPlan);
+  const edit = useSekundoStore((s) => s.editPlanner);
+  const mode = bathMode(plan);
+  return (
+    <EditorCard id="planner-bath" title="Bath">
+      <div className="plan-grid">
+        <ChoiceGroup<BathMode>
+          legend="Give the bath as"
+          name="planner-bath-mode"
+          value={mode}
+          options={MODES}
+          onChange={(m) => edit('bath.mode', (p) => setBathMode(p, m))}
+        />
+        <PlanFieldMessage fieldKey="bath.mode" />
+        {mode === 'temperature' ? (
+          <PlanNumberField field={BATH_FIELDS.temperature} label="Bath temperature" hint={temperatureHint(plan)} />
+        ) : (
+          <PlanNumberField field={BATH_FIELDS.vapourPressure} label="Vapour pressure over the bath" hint={pressureHint(plan)} />
+        )}
+        <PlanNumberField field={BATH_FIELDS.liquidDepth} label="Liquid above the setup" hint="Adds a hydrostatic head; He II stays isothermal." />
+      </div>
+    </EditorCard>
+  );
+}
+
+function temperatureHint(plan: PlanFile): string {
+  const T = plan.bath.temperature_K;
+  if (T === undefined) return 'K or mK';
+  try {
+    return `K or mK · saturated vapour pressure ${formatSignificant(vapourPressure(T).pressure_Pa)} Pa`;
+  } catch {
+    return 'K or mK · no vapour-pressure scale at this temperature';
+  }
+}
+
+function pressureHint(plan: PlanFile): string {
+  try {
+    const bath = planBath(plan);
+    return `Pa, kPa, mbar or torr · T = ${formatKelvin(bath.temperature_K)} K (${bath.scale ?? 'as typed'})`;
+  } catch {
+    return 'Pa, kPa, mbar or torr';
+  }
+}

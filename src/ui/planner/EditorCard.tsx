@@ -1,0 +1,47 @@
+import type { ReactNode } from 'react';
+import { PanelErrorBoundary } from '../layout/PanelErrorBoundary';
+
+/** A titled group of plan inputs in its own error boundary. */
+export function EditorCard({ id, title, children, aside }: { id: string; title: string; children: ReactNode; aside?: ReactNode }) {
+  const titleId = `${id}-title`;
+  return (
+    <section className="card plan-card" aria-labelledby={titleId}>
+      <div className="card-head">
+        <h3 id={titleId} className="card-title">
+          {title}
+        </h3>
+        {aside}
+      </div>
+      <PanelErrorBoundary panel={`${title.toLowerCase()} editor`}>{children}</PanelErrorBoundary>
+    </section>
+  );
+}
+
+/** Two or three choices as a row of radio buttons (a labelled group). */
+export function ChoiceGroup<T extends string>({
+  legend,
+  name,
+  value,
+  options,
+  onChange,
+}: {
+  legend: string;
+  name: string;
+  value: T;
+  options: readonly { value: T; label: string }[];
+  onChange: (value: T) => void;
+}) {
+  return (
+    <fieldset className="plan-choices">
+      <legend className="plan-field__label">{legend}</legend>
+      <div className="plan-choices__row">
+        {options.map((option) => (
+          <label key={option.value} className="plan-choice">
+            <input type="radio" name={name} value={option.value} checked={value === option.value} onChange={() => onChange(option.value)} />
+            {option.label}
+          </label>
+        ))}
+      </div>
+    </fieldset>
+  );
+}

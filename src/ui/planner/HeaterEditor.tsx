@@ -1,0 +1,89 @@
+import { useSekundoStore } from '../store';
+import { ChoiceGroup, EditorCard } from './EditorCard';
+import { PlanFieldMessage, PlanNumberField } from './PlanField';
+import { PulseShapeEditor } from './PulseShapeEditor';
+import { type DriveMode, driveMode, type Geometry, setDriveMode, setGeometry } from './plan-edits';
+import { HEATER_FIELDS } from './plan-fields';
+
+const GEOMETRIES = [
+  { value: 'planar', label: 'Planar film' },
+  { value: 'disk', label: 'Disk' },
+  { value: 'point', label: 'Point' },
+] as const;
+
+const DRIVES = [
+  { value: 'flux', label: 'Heat flux' },
+  { value: 'power', label: 'Power' },
+] as const;
+
+const GEOMETRY_NOTE: Record<Geometry, string> = {
+  planar: 'Wider than the path: a plane wave.',
+  disk: 'Flat disk in a wall: pulses turn bipolar and fall as 1/z far away.',
+  point: 'Small heater: the signal follows dP/dt.',
+};
+
+/** The heater: geometry and size, drive, pulse shape and timing, repetition and averaging. */
+export function HeaterEditor() {
+  const geometry = useSekundoStore((s) => s.plannerPlan.heater.geometry);
+  const drive = useSekundoStore((s) => driveMode(s.plannerPlan));
+  const edit = useSekundoStore((s) => s.editPlanner);
+  return (
+    <EditorCard id="planner-heater" title="Heater">
+      <HeaterCaution />
+      <div className="plan-grid">
+        <div className="plan-field">
+          <label className="plan-field__label" htmlFor="planner-geometry">
+            Heater geometry
+          </label>
+          <select
+            id="planner-geometry"
+            className="plan-select"
+            value={geometry}
+            onChange={(event) => edit('heater.geometry', (p) => setGeometry(p, event.target.value as Geometry))}
+          >
+            {GEOMETRIES.map((g) => (
+              <option key={g.value} value={g.value}>
+                {g.label}
+              </option>
+            ))}
+          </select>
+          <p className="field-hint plan-field__hint">{GEOMETRY_NOTE[geometry]}</p>
+          <PlanFieldMessage fieldKey="heater.geometry" />
+        </div>
+        {geometry === 'disk' ? (
+          <PlanNumberField field={HEATER_FIELDS.radius} label="Disk radius" />
+        ) : (
+          <PlanNumberField field={HEATER_FIELDS.area} label={geometry === 'point' ? 'Nominal area (for the flux)' : 'Heater area'} />
+        )}
+        <ChoiceGroup<DriveMode> legend="Drive given as" name="planner-drive" value={drive} options={DRIVES} onChange={(m) => edit('heater.drive', (p) => setDriveMode(p, m))} />
+        {drive === 'flux' ? (
+          <PlanNumberField field={HEATER_FIELDS.flux} label="Peak heat flux" hint="e.g. 0.1 W/cm2" />
+        ) : (
+          <PlanNumberField field={HEATER_FIELDS.power} label="Peak power" hint="e.g. 100 mW" />
+        )}
+      </div>
+      <PulseShapeEditor />
+      <div className="plan-grid">
+        <PlanNumberField field={HEATER_FIELDS.repetitionRate} label="Repetition rate" />
+        <PlanNumberField field={HEATER_FIELDS.averages} label="Pulses averaged" />
+      </div>
+    </EditorCard>
+  );
+}
+
+/** The usual cautions for heaters in cryogenic baths, beside the heater inputs. */
+function HeaterCaution() {
+  return (
+    <aside className="plan-caution" aria-label="Heater safety">
+      <p>
+        <span aria-hidden="true" className="plan-caution__icon">
+          ⚠
+        </span>{' '}
+        <strong>Heaters in a cryogenic bath.</strong> Leads and heaters that end up in vacuum or gas instead of liquid
+        overheat and can burn out; every joule boils off helium, and boil-off in a closed volume builds pressure, so keep
+        relief valves and vents clear and rooms ventilated (asphyxiation). Check the drive against the wiring's rating
+        before cooling. Follow your local codes and your lab's licensed safety practice.
+      </p>
+    </aside>
+  );
+}

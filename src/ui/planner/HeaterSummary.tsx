@@ -1,0 +1,56 @@
+import { formatSignificant } from '../format/format-number';
+import { type Ladder, LADDERS, readText } from './display-units';
+import { usePlanOutcome } from './use-plan';
+
+/** What the heater does: flux, energy, power into the bath, the wave it launches and where it would shock. */
+export function HeaterSummary() {
+  const outcome = usePlanOutcome();
+  if (!outcome.ok) return null;
+  const { heater, temperature_K, headPressure_Pa } = outcome.result;
+  const bath = outcome.bath;
+  const show = (x: number | null, ladder: Ladder, digits = 3) => (x === null ? '—' : readText(x, ladder, digits));
+  const rows: [string, string, string?][] = [
+    [
+      'Bath temperature',
+      `${temperature_K.toFixed(4)} K`,
+      bath.vapourPressure_Pa === null ? 'as typed' : `from ${formatSignificant(bath.vapourPressure_Pa)} Pa (${bath.scale})`,
+    ],
+    ['Peak heat flux', show(heater.flux_W_m2, LADDERS.heatFlux), `peak power ${show(heater.power_W, LADDERS.power)}`],
+    ['Energy per pulse', show(heater.energyPerPulse_J, ENERGY)],
+    ['Average power into the bath', show(heater.averagePower_W, LADDERS.power), 'boils helium off; check the cooling power'],
+    ['δT at the heater face', show(heater.faceDeltaT_K, LADDERS.temperatureDifference), 'q/(ρ cₚ u₂), plane wave'],
+    ['Counterflow velocity', heater.counterflowVelocity_m_s === null ? '—' : `${formatSignificant(heater.counterflowVelocity_m_s * 100, 3)} cm/s`, 'q/(ρs s T)'],
+    [
+      'Shock distance',
+      heater.shockDistance_m === null ? '—' : Number.isFinite(heater.shockDistance_m) ? show(heater.shockDistance_m, LADDERS.length) : 'none',
+      'where the front would steepen',
+    ],
+    ['Pulse length', show(heater.duration_s, LADDERS.time), `effective rise ${show(heater.effectiveRise_s, LADDERS.time)}`],
+    ['Head pressure at the setup', `${formatSignificant(headPressure_Pa, 3)} Pa`],
+  ];
+  return (
+    <section className="card plan-heater-summary" aria-labelledby="planner-heater-summary-title">
+      <h3 id="planner-heater-summary-title" className="card-title">
+        Heater and bath
+      </h3>
+      <dl className="summary-list">
+        {rows.map(([term, value, detail]) => (
+          <div key={term}>
+            <dt>{term}</dt>
+            <dd>
+              <span className="summary-list__value">{value}</span>
+              {detail ? <span className="summary-list__detail"> {detail}</span> : null}
+            </dd>
+          </div>
+        ))}
+      </dl>
+    </section>
+  );
+}
+
+/** Joules with SI prefixes: the watt's ladder gives the same factors (only the symbols differ). */
+const ENERGY: Ladder = [
+  { shown: 'J', unit: 'W' },
+  { shown: 'mJ', unit: 'mW' },
+  { shown: 'µJ', unit: 'µW' },
+];

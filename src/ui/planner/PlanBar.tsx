@@ -1,0 +1,106 @@
+import { useRef, useState } from 'react';
+import { useSekundoStore } from '../store';
+import { describePlanMessage } from './plan-paths';
+import { loadDemoPlan } from './load-demo';
+import { PlanTextField } from './PlanField';
+import { setPlanName } from './plan-edits';
+import { downloadPlanFile, readPlanFile } from './plan-file-actions';
+import { useRecomputeTimes } from './recompute-timer';
+
+const SOURCE_LABEL = { demo: 'Demo plan (invented setup)', 'built-in': 'Built-in plan', file: 'From a file' } as const;
+
+/** The plan's name and origin, opening and saving plan files, and the last recompute time. */
+export function PlanBar() {
+  const source = useSekundoStore((s) => s.plannerSource);
+  const plan = useSekundoStore((s) => s.plannerPlan);
+  const load = useSekundoStore((s) => s.loadPlannerPlan);
+  const [fileProblem, setFileProblem] = useState<{ name: string; errors: string[] } | null>(null);
+  const input = useRef<HTMLInputElement>(null);
+
+  const open = async (file: File) => {
+    const read = await readPlanFile(file);
+    if (read.ok) {
+      setFileProblem(null);
+      load(read.plan, { kind: 'file', note: `Opened “${file.name}”.` });
+    } else {
+      setFileProblem({ name: file.name, errors: read.errors });
+    }
+  };
+  const reloadDemo = async () => {
+    const demo = await loadDemoPlan();
+    setFileProblem(null);
+    load(demo.plan, demo.source);
+  };
+
+  return (
+    <section className="card plan-bar" aria-label="Plan">
+      <div className="plan-bar__main">
+        <PlanTextField
+          className="plan-bar__name"
+          label="Plan name"
+          fieldKey="plan.name"
+          select={(p) => p.name}
+          edit={(p, text) => ({ ok: true, plan: setPlanName(p, text) })}
+        />
+        <div className="plan-bar__source">
+          <span className={`badge plan-source plan-source--${source.kind}`}>{SOURCE_LABEL[source.kind]}</span>
+          <RecomputeTime />
+        </div>
+        <div className="plan-bar__actions">
+          <button type="button" className="button" onClick={() => input.current?.click()}>
+            Open plan file…
+          </button>
+          <input
+            ref={input}
+            type="file"
+            accept=".json,application/json"
+            className="visually-hidden"
+            tabIndex={-1}
+            aria-label="Plan file to open"
+            onChange={(event) => {
+              const file = event.target.files?.[0];
+              event.target.value = '';
+              if (file) void open(file);
+            }}
+          />
+          <button type="button" className="button" onClick={() => downloadPlanFile(plan)}>
+            Save plan file
+          </button>
+          <button type="button" className="button" onClick={() => void reloadDemo()}>
+            Start again from the demo
+          </button>
+        </div>
+      </div>
+      {source.note ? (
+        <p className={source.kind === 'built-in' ? 'plan-bar__note plan-bar__note--warn' : 'plan-bar__note'} role="status">
+          {source.note}
+        </p>
+      ) : null}
+      {plan.notes ? <p className="plan-bar__notes">{plan.notes}</p> : null}
+      {fileProblem ? (
+        <div className="field-error plan-bar__file-error" role="alert">
+          <p>
+            “{fileProblem.name}” was not opened; the current plan is kept. {fileProblem.errors.length === 1 ? 'Problem:' : 'Problems:'}
+          </p>
+          <ul>
+            {fileProblem.errors.map((e) => (
+              <li key={e}>{describePlanMessage(e)}</li>
+            ))}
+          </ul>
+        </div>
+      ) : null}
+    </section>
+  );
+}
+
+/** "Recomputed in 6.2 ms": edit → results and timeline redrawn, measured in this browser. */
+function RecomputeTime() {
+  const times = useRecomputeTimes();
+  if (times.timeline_ms === null) return <span className="recompute-time" data-recompute-ms="" />;
+  const map = times.map_ms === null ? '' : `; map ${times.map_ms.toFixed(1)} ms`;
+  return (
+    <span className="recompute-time" data-recompute-ms={times.timeline_ms.toFixed(2)} data-map-ms={times.map_ms?.toFixed(2) ?? ''} title="From the edit to the redrawn results and timeline, measured in this browser">
+      Recomputed in {times.timeline_ms.toFixed(1)} ms{map}
+    </span>
+  );
+}

@@ -1,0 +1,88 @@
+import { useEffect } from 'react';
+import { PanelErrorBoundary } from '../layout/PanelErrorBoundary';
+import { useSekundoStore } from '../store';
+import { BathEditor } from './BathEditor';
+import { DigitiserEditor } from './DigitiserEditor';
+import { HeaterEditor } from './HeaterEditor';
+import { HeaterSummary } from './HeaterSummary';
+import { loadDemoPlan } from './load-demo';
+import { PlanBar } from './PlanBar';
+import { ResolutionMap } from './ResolutionMap';
+import { ResultsTable } from './ResultsTable';
+import { SensorsEditor } from './SensorsEditor';
+import { SetupEditor } from './SetupEditor';
+import { TimelineChart } from './TimelineChart';
+import { usePlanOutcome } from './use-plan';
+import { WarningsList } from './WarningsList';
+
+/** The measurement planner: edit a proposed setup and see arrivals, signals, warnings and resolution. */
+export function PlannerView() {
+  useDemoPlanOnFirstOpen();
+  const status = useSekundoStore((s) => s.plannerStatus);
+  if (status !== 'ready') {
+    return (
+      <p className="planner-loading" role="status">
+        Loading the demo plan…
+      </p>
+    );
+  }
+  return (
+    <div className="planner">
+      <PanelErrorBoundary panel="plan bar">
+        <PlanBar />
+      </PanelErrorBoundary>
+      <PlanProblem />
+      <div className="planner-top">
+        <div className="planner-inputs">
+          <BathEditor />
+          <HeaterEditor />
+          <DigitiserEditor />
+          <SetupEditor />
+        </div>
+        <div className="planner-outputs">
+          <PanelErrorBoundary panel="timeline">
+            <TimelineChart />
+          </PanelErrorBoundary>
+          <PanelErrorBoundary panel="warnings list">
+            <WarningsList />
+          </PanelErrorBoundary>
+          <PanelErrorBoundary panel="heater summary">
+            <HeaterSummary />
+          </PanelErrorBoundary>
+        </div>
+      </div>
+      <SensorsEditor />
+      <PanelErrorBoundary panel="results table">
+        <ResultsTable />
+      </PanelErrorBoundary>
+      <PanelErrorBoundary panel="resolution map">
+        <ResolutionMap />
+      </PanelErrorBoundary>
+    </div>
+  );
+}
+
+/** Opens the demo plan the first time the planner is shown (the built-in plan if it cannot be had). */
+function useDemoPlanOnFirstOpen(): void {
+  const begin = useSekundoStore((s) => s.beginPlannerLoad);
+  const load = useSekundoStore((s) => s.loadPlannerPlan);
+  useEffect(() => {
+    if (useSekundoStore.getState().plannerStatus !== 'idle') return;
+    begin();
+    void loadDemoPlan().then(({ plan, source }) => load(plan, source));
+  }, [begin, load]);
+}
+
+/** When the kernel refuses the plan as a whole (e.g. one opened from a file), say why; the plan is kept as it is. */
+function PlanProblem() {
+  const outcome = usePlanOutcome();
+  if (outcome.ok) return null;
+  return (
+    <div className="panel-failure plan-problem" role="alert">
+      <p>
+        <strong>No results for this plan.</strong> {outcome.message}
+      </p>
+      <p>The plan is kept as it is; change the field named above.</p>
+    </div>
+  );
+}

@@ -1,0 +1,147 @@
+import { useId, useState } from 'react';
+import { CUSTOM_PULSE_MAX_POINTS } from '../../physics';
+import { useSekundoStore } from '../store';
+import { PlanFieldMessage, PlanNumberField } from './PlanField';
+import { addPulsePoint, customPoints, parsePastedPoints, removePulsePoint, setPulsePoints, setShape, type ShapeKind, shapeKind } from './plan-edits';
+import { HEATER_FIELDS, pulsePointField } from './plan-fields';
+import { inputText, KINDS } from './display-units';
+
+const SHAPES = [
+  { value: 'rectangle', label: 'Rectangle' },
+  { value: 'half-sine', label: 'Half-sine' },
+  { value: 'custom', label: 'Custom points' },
+] as const;
+
+/** Pulse shape, width and rise time; a custom pulse as an editable list of points or pasted lines. */
+export function PulseShapeEditor() {
+  const kind = useSekundoStore((s) => shapeKind(s.plannerPlan));
+  const edit = useSekundoStore((s) => s.editPlanner);
+  return (
+    <div className="plan-grid plan-grid--pulse">
+      <div className="plan-field">
+        <label className="plan-field__label" htmlFor="planner-shape">
+          Pulse shape
+        </label>
+        <select id="planner-shape" className="plan-select" value={kind} onChange={(event) => edit('heater.shape', (p) => setShape(p, event.target.value as ShapeKind), 'pulse.')}>
+          {SHAPES.map((s) => (
+            <option key={s.value} value={s.value}>
+              {s.label}
+            </option>
+          ))}
+        </select>
+        <PlanFieldMessage fieldKey="heater.shape" />
+      </div>
+      {kind === 'custom' ? null : <PlanNumberField field={HEATER_FIELDS.width} label="Pulse width" />}
+      {kind === 'rectangle' ? <PlanNumberField field={HEATER_FIELDS.riseTime} label="Rise time" hint="Edge time of the heater drive." /> : null}
+      {kind === 'custom' ? <CustomPoints /> : null}
+    </div>
+  );
+}
+
+function CustomPoints() {
+  const points = useSekundoStore((s) => customPoints(s.plannerPlan));
+  const edit = useSekundoStore((s) => s.editPlanner);
+  const count = points.length;
+  return (
+    <div className="pulse-points">
+      <table className="plan-table pulse-points__table">
+        <caption className="visually-hidden">Custom pulse points</caption>
+        <thead>
+          <tr>
+            <th scope="col">#</th>
+            <th scope="col">Time from onset</th>
+            <th scope="col">Relative amplitude</th>
+            <th scope="col">
+              <span className="visually-hidden">Actions</span>
+            </th>
+          </tr>
+        </thead>
+        <tbody>
+          {points.map((_, i) => (
+            // Points have no identity beyond their place; drafts are cleared when the list changes.
+            // biome-ignore lint/suspicious/noArrayIndexKey: a point is its position in the list
+            <tr key={i}>
+              <td className="num">{i + 1}</td>
+              <td>
+                <PlanNumberField field={pulsePointField(i, 0)} label={`Point ${i + 1} time`} labelHidden message="elsewhere" />
+              </td>
+              <td>
+                <PlanNumberField field={pulsePointField(i, 1)} label={`Point ${i + 1} amplitude`} labelHidden message="elsewhere" />
+              </td>
+              <td>
+                <button type="button" className="icon-button" disabled={count <= 2} aria-label={`Remove point ${i + 1}`} onClick={() => edit('pulse.points', (p) => removePulsePoint(p, i), 'pulse.')}>
+                  ×
+                </button>
+              </td>
+            </tr>
+          ))}
+        </tbody>
+      </table>
+      {points.map((_, i) => (
+        // biome-ignore lint/suspicious/noArrayIndexKey: messages follow the point rows above
+        <div key={i}>
+          <PlanFieldMessage fieldKey={pulsePointField(i, 0).key} />
+          <PlanFieldMessage fieldKey={pulsePointField(i, 1).key} />
+        </div>
+      ))}
+      <PlanFieldMessage fieldKey="pulse.points" />
+      <div className="pulse-points__actions">
+        <button type="button" className="button button--small" disabled={count >= CUSTOM_PULSE_MAX_POINTS} onClick={() => edit('pulse.points', addPulsePoint, 'pulse.')}>
+          Add point
+        </button>
+        <span className="field-hint">
+          Amplitudes are scaled so the largest is 1; the pulse lasts until the last point ({inputText(points[count - 1]?.[0] ?? 0, KINDS.time.ladder)}).
+        </span>
+      </div>
+      <PastePoints />
+    </div>
+  );
+}
+
+/** Paste "t, a" lines (from a spreadsheet or a scope export) to replace the points. */
+function PastePoints() {
+  const id = useId();
+  const [text, setText] = useState('');
+  const [problem, setProblem] = useState<string | null>(null);
+  const edit = useSekundoStore((s) => s.editPlanner);
+  const error = useSekundoStore((s) => s.plannerErrors['pulse.paste']);
+  const apply = () => {
+    const parsed = parsePastedPoints(text);
+    if (!parsed.ok) {
+      setProblem(parsed.message);
+      return;
+    }
+    setProblem(null);
+    edit('pulse.paste', (p) => setPulsePoints(p, parsed.points), 'pulse.');
+  };
+  const message = problem ?? error;
+  return (
+    <details className="pulse-paste">
+      <summary>Paste points as “time, amplitude” lines</summary>
+      <label htmlFor={id} className="plan-field__label">
+        Pulse points, one “time, amplitude” per line
+      </label>
+      <textarea
+        id={id}
+        className="text-input pulse-paste__text"
+        rows={5}
+        value={text}
+        placeholder={'0 us, 0\n2 us, 1\n98 us, 1\n100 us, 0'}
+        spellCheck={false}
+        aria-invalid={message ? true : undefined}
+        onChange={(event) => setText(event.target.value)}
+      />
+      <div className="pulse-points__actions">
+        <button type="button" className="button button--small" onClick={apply} disabled={text.trim() === ''}>
+          Use these points
+        </button>
+        <span className="field-hint">A bare time is in seconds; # starts a comment.</span>
+      </div>
+      {message ? (
+        <p className="field-error" role="alert">
+          {message}
+        </p>
+      ) : null}
+    </details>
+  );
+}

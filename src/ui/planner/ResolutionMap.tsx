@@ -1,0 +1,102 @@
+import { useDeferredValue, useId, useMemo } from 'react';
+import { SPACER_MATERIALS } from '../../physics';
+import { ChartFigure } from '../charts/ChartFigure';
+import { PlotlyChart } from '../plot/PlotlyChart';
+import { useSekundoStore } from '../store';
+import { LADDERS, readText } from './display-units';
+import { MAP_DISTANCE_RANGE_M, type MapSensor, mapFigure, mapGrid, onMap, spreadAt } from './resolution-map';
+import { reportDrawn } from './recompute-timer';
+import { usePlanOutcome } from './use-plan';
+
+export const MAP_CHART_ID = 'planner-resolution-map';
+
+/**
+ * Temperature sd over temperature × distance for one sensor's timing and distance uncertainty.
+ * Drawn from a deferred copy of the plan, so typing never waits for the map.
+ */
+export function ResolutionMap() {
+  const outcome = useDeferredValue(usePlanOutcome());
+  const sensorKeys = useSekundoStore((s) => s.plannerSensorKeys);
+  const chosenKey = useSekundoStore((s) => s.plannerMapSensorKey);
+  const choose = useSekundoStore((s) => s.setPlannerMapSensor);
+  const spacer = useSekundoStore((s) => s.plannerPlan.spacer);
+  const selectId = useId();
+  const index = Math.max(0, chosenKey === null ? 0 : sensorKeys.indexOf(chosenKey));
+  const result = outcome.ok ? outcome.result : null;
+  const sensor = result?.sensors[index] ?? result?.sensors[0] ?? null;
+  const planSensor = outcome.ok ? outcome.input.sensors[index] : undefined;
+  const material = SPACER_MATERIALS.find((m) => m.id === spacer.materialId);
+
+  const mapSensor: MapSensor | null = useMemo(() => {
+    if (!sensor || sensor.timingSd_s === null || !planSensor) return null;
+    const scale = spacer.measuredWarm ? 1 - (material?.contraction ?? 0) : 1;
+    return {
+      timingSd_s: sensor.timingSd_s,
+      distanceSd_m: planSensor.distanceSd_m * scale,
+      contractionSd: spacer.measuredWarm ? (material?.contractionSd ?? 0) / scale : 0,
+      lag_s: planSensor.lag_s,
+    };
+  }, [sensor, planSensor, spacer.measuredWarm, material]);
+
+  const T = result?.temperature_K ?? Number.NaN;
+  const distance = sensor?.pathLength_m ?? Number.NaN;
+  const target = outcome.ok ? outcome.input.targets.temperatureSd_K : 1e-3;
+  const figure = useMemo(() => {
+    if (!mapSensor) return null;
+    const range: [number, number] = [Math.min(MAP_DISTANCE_RANGE_M[0], distance / 1.5), Math.max(MAP_DISTANCE_RANGE_M[1], distance * 1.5)];
+    const planned = onMap(T) && sensor ? { temperature_K: T, distance_m: distance, sd_K: spreadAt(T, distance, mapSensor).sd_K, label: sensor.id } : null;
+    return { ...mapFigure(mapGrid(mapSensor, range), { planned, target_K: target }), planned };
+  }, [mapSensor, T, distance, target, sensor]);
+
+  if (!result || !sensor) return null;
+  const choice = (
+    <div className="plan-field map-sensor">
+      <label htmlFor={selectId} className="plan-field__label">
+        Timing and distance sd of
+      </label>
+      <select id={selectId} className="plan-select" value={sensorKeys[index] ?? ''} onChange={(event) => choose(event.target.value)}>
+        {result.sensors.map((s, i) => (
+          <option key={sensorKeys[i] ?? s.id} value={sensorKeys[i] ?? s.id}>
+            {s.label} ({s.id})
+          </option>
+        ))}
+      </select>
+    </div>
+  );
+  if (!mapSensor || !figure) {
+    return (
+      <ChartFigure id={MAP_CHART_ID} title="Temperature resolution map" caption="No second sound at this bath temperature (He I): time of flight cannot give the temperature.">
+        {choice}
+      </ChartFigure>
+    );
+  }
+  const sdText = (x: number | null) => (x === null ? '—' : readText(x, LADDERS.temperatureDifference, 2));
+  const plannedText = figure.planned
+    ? `At the plan (${T.toFixed(3)} K, ${readText(distance, LADDERS.length, 3)}) the map gives σT ≈ ${sdText(figure.planned.sd_K)} (results table: ${sdText(sensor.temperatureSd_K)}).`
+    : `The planned ${T.toFixed(3)} K is outside this map.`;
+  return (
+    <ChartFigure
+      id={MAP_CHART_ID}
+      title="Temperature resolution map"
+      caption={
+        <>
+          <span className="caption-values">{plannedText}</span> One reading with {sensor.id}’s timing sd{' '}
+          {readText(mapSensor.timingSd_s, LADDERS.time, 2)} and distance sd {readText(mapSensor.distanceSd_m, LADDERS.length, 2)}
+          {mapSensor.contractionSd > 0 ? ' plus the spacer’s contraction uncertainty' : ''}. Colour bands: σT; dashed line: the target{' '}
+          {sdText(target)} is reached above it. White dotted patches: insensitive, near the u₂ minimum and maximum. Diamond: the plan.
+        </>
+      }
+    >
+      {choice}
+      <div className="map-box">
+        <PlotlyChart
+          chartId={MAP_CHART_ID}
+          label={`Map of the temperature sd over bath temperature and heater–sensor distance. ${plannedText}`}
+          data={figure.data}
+          layout={figure.layout}
+          onDrawn={() => reportDrawn('map')}
+        />
+      </div>
+    </ChartFigure>
+  );
+}

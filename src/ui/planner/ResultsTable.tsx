@@ -1,0 +1,106 @@
+import type { ReactNode } from 'react';
+import type { SensorPlanResult } from '../../physics';
+import { formatSignificant } from '../format/format-number';
+import { type DisplayUnit, inUnit, type Ladder, LADDERS, unitForColumn } from './display-units';
+import { sensorColour } from './planner-colours';
+import { usePlanOutcome } from './use-plan';
+
+interface Column {
+  key: string;
+  /** Header text; the unit is added in brackets. */
+  header: ReactNode;
+  /** What the column means, for the header's title and screen readers. */
+  about: string;
+  ladder: Ladder | null;
+  value: (s: SensorPlanResult) => number | null;
+  /** Digits shown. */
+  digits?: number;
+  /** Whole numbers (counts). */
+  count?: boolean;
+}
+
+const COLUMNS: readonly Column[] = [
+  { key: 'path', header: 'Cold path', about: 'Shortest heater–sensor path at low temperature', ladder: LADDERS.length, value: (s) => s.pathLength_m },
+  { key: 'pathSd', header: '± sd', about: 'One-sigma of the cold path (measurement and contraction)', ladder: LADDERS.length, value: (s) => s.pathLengthSd_m, digits: 2 },
+  { key: 'first', header: 'First sound', about: 'First-sound arrival after the pulse onset', ladder: LADDERS.time, value: (s) => s.firstSoundArrival_s },
+  { key: 'second', header: 'Second sound', about: 'Second-sound arrival after the pulse onset, with the sensor lag', ladder: LADDERS.time, value: (s) => s.secondSoundArrival_s },
+  { key: 'amplitude', header: 'δT peak', about: 'Peak temperature swing of the direct pulse at the sensor', ladder: LADDERS.temperatureDifference, value: (s) => s.amplitude_K },
+  { key: 'signal', header: 'Signal', about: 'Peak signal: δT × responsivity', ladder: LADDERS.voltage, value: (s) => s.signal_V },
+  { key: 'snr1', header: 'SNR, 1 pulse', about: 'Peak signal over rms noise, one pulse', ladder: null, value: (s) => s.snrSingle, digits: 3 },
+  { key: 'snrN', header: 'SNR, averaged', about: 'Peak signal over rms noise after averaging', ladder: null, value: (s) => s.snrAveraged, digits: 3 },
+  { key: 'pulses', header: 'Pulses for target SNR', about: 'Pulses to average to reach the target SNR', ladder: null, value: (s) => s.pulsesForTargetSnr, count: true },
+  { key: 'timing', header: 'Timing sd', about: 'One-sigma arrival time of one averaged reading', ladder: LADDERS.time, value: (s) => s.timingSd_s, digits: 2 },
+  { key: 'tsd', header: 'T sd', about: 'One-sigma temperature from one reading (timing and distance)', ladder: LADDERS.temperatureDifference, value: (s) => s.temperatureSd_K, digits: 2 },
+  { key: 'tchange', header: 'T sd, changes', about: 'One-sigma of a temperature change between readings (timing only)', ladder: LADDERS.temperatureDifference, value: (s) => s.temperatureChangeSd_K, digits: 2 },
+  { key: 'shortest', header: 'Shortest distance for target', about: 'Shortest path that reaches the target temperature sd with this timing', ladder: LADDERS.length, value: (s) => s.shortestDistanceForTarget_m, digits: 3 },
+];
+
+/** Every sensor's arrivals, signal, noise and temperature resolution, one row per sensor. */
+export function ResultsTable() {
+  const outcome = usePlanOutcome();
+  if (!outcome.ok) return null;
+  const sensors = outcome.result.sensors;
+  const units = COLUMNS.map((c) => (c.ladder ? unitForColumn(sensors.map(c.value), c.ladder) : null));
+  return (
+    <section className="card plan-results" aria-labelledby="planner-results-title">
+      <div className="card-head">
+        <h3 id="planner-results-title" className="card-title">
+          Results per sensor
+        </h3>
+        <p className="muted">Linear theory at {outcome.result.temperature_K.toFixed(4)} K; “—” where there is no second sound.</p>
+      </div>
+      <div className="table-scroll">
+        <table className="properties-table results-table">
+          <caption className="visually-hidden">Predicted arrivals, signals and temperature resolution for each sensor</caption>
+          <thead>
+            <tr>
+              <th scope="col">Sensor</th>
+              {COLUMNS.map((c, i) => (
+                <th key={c.key} scope="col" className="num" title={c.about}>
+                  {c.header}
+                  {units[i] ? <span className="results-unit"> ({(units[i] as DisplayUnit).shown})</span> : null}
+                </th>
+              ))}
+              <th scope="col" title="Near an extremum of u2 the delay hardly changes with temperature">
+                Sensitivity
+              </th>
+            </tr>
+          </thead>
+          <tbody>
+            {sensors.map((s, row) => (
+              <tr key={s.id}>
+                <th scope="row" className="results-sensor">
+                  <span className="swatch" style={{ background: sensorColour(row) }} aria-hidden="true" />
+                  <span>{s.label}</span> <span className="muted">({s.id})</span>
+                </th>
+                {COLUMNS.map((c, i) => (
+                  <td key={c.key} className="num" data-column={c.key}>
+                    {cellText(c.value(s), c, units[i] ?? null)}
+                  </td>
+                ))}
+                <td>{sensitivity(s)}</td>
+              </tr>
+            ))}
+          </tbody>
+        </table>
+      </div>
+    </section>
+  );
+}
+
+function cellText(value: number | null, column: Column, unit: DisplayUnit | null): string {
+  if (value === null || !Number.isFinite(value)) return '—';
+  if (column.count) return value.toLocaleString('en-GB');
+  return formatSignificant(unit ? inUnit(value, unit) : value, column.digits ?? 4);
+}
+
+function sensitivity(s: SensorPlanResult): ReactNode {
+  if (s.temperatureSd_K === null) return <span className="muted">—</span>;
+  return s.insensitive ? (
+    <span className="badge badge--model" title="Near an extremum of u2: the delay pins the temperature poorly">
+      ⚠ insensitive
+    </span>
+  ) : (
+    <span className="badge badge--superfluid">✓ usable</span>
+  );
+}

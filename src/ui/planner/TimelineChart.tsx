@@ -1,0 +1,70 @@
+import { useMemo } from 'react';
+import { ChartFigure } from '../charts/ChartFigure';
+import { PlotlyChart } from '../plot/PlotlyChart';
+import { useSekundoStore } from '../store';
+import type { TimelineView } from '../store/planner-slice';
+import { reportDrawn } from './recompute-timer';
+import { formatMs, timelineFigure } from './timeline-figure';
+import { usePlanOutcome } from './use-plan';
+import { useElementWidth } from './use-width';
+
+/** Chart id of the timeline (tests read the drawn figure from the element with this data-chart). */
+export const TIMELINE_CHART_ID = 'planner-timeline';
+/** Horizontal room Plotly takes for the axis and margins, px. */
+const PLOT_MARGIN_PX = 80;
+
+const VIEWS: readonly { value: TimelineView; label: string }[] = [
+  { value: 'arrivals', label: 'Direct arrivals' },
+  { value: 'record', label: 'Whole record' },
+  { value: 'early', label: 'Heater and first sound' },
+];
+
+/** One pulse, from the heater to every sensor: predicted waveforms, arrivals and the record window. */
+export function TimelineChart() {
+  const outcome = usePlanOutcome();
+  const view = useSekundoStore((s) => s.plannerTimelineView);
+  const setView = useSekundoStore((s) => s.setPlannerTimelineView);
+  const [box, width] = useElementWidth<HTMLDivElement>(900);
+  const columns = Math.max(100, width - PLOT_MARGIN_PX);
+  const result = outcome.ok ? outcome.result : null;
+  const figure = useMemo(() => (result ? timelineFigure(result, view, columns) : null), [result, view, columns]);
+  if (!result || !figure) return null;
+  const second = result.sensors.filter((s) => s.secondSoundArrival_s !== null);
+  const summary =
+    second.length > 0
+      ? `Second sound arrives at ${second.map((s) => `${s.id} ${formatMs(s.secondSoundArrival_s as number)}`).join(', ')}.`
+      : 'No second sound (He I): only first sound arrives.';
+  return (
+    <ChartFigure
+      id={TIMELINE_CHART_ID}
+      title="Timeline of one pulse"
+      caption={
+        <>
+          <span className="caption-values">{summary}</span> Top: heater flux. Below: predicted δT at each sensor (linear
+          theory). Markers: ▽ dotted first sound, ▼ solid second sound, ◇ dashed echoes. Shaded: the record window.
+        </>
+      }
+    >
+      <fieldset className="timeline-views">
+        <legend className="visually-hidden">Time span shown</legend>
+        {VIEWS.map((v) => (
+          <button key={v.value} type="button" className="chip" aria-pressed={view === v.value} onClick={() => setView(v.value)}>
+            {v.label}
+          </button>
+        ))}
+        <span className="field-hint">
+          {formatMs(figure.range_s[0])} to {formatMs(figure.range_s[1])}
+        </span>
+      </fieldset>
+      <div ref={box} className="timeline-box">
+        <PlotlyChart
+          chartId={TIMELINE_CHART_ID}
+          label={`Timeline of one heater pulse with the predicted signal at ${result.sensors.length} sensors. ${summary}`}
+          data={figure.data}
+          layout={figure.layout}
+          onDrawn={() => reportDrawn('timeline')}
+        />
+      </div>
+    </ChartFigure>
+  );
+}

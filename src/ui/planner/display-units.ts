@@ -1,0 +1,116 @@
+/**
+ * How the planner shows SI values: each kind of quantity has a ladder of display units, and a
+ * value is shown in the largest unit that keeps its number at or above 1 ("100 µs", "9.97 mm").
+ * Conversion uses src/io/quantity.ts, so what is shown can be typed back unchanged.
+ */
+import { type Dimension, fromBaseUnit, type Unit } from '../../io/quantity';
+import { formatSignificant } from '../format/format-number';
+
+/** A unit as shown (µ and ², which the parser also accepts) and the symbol the parser knows. */
+export interface DisplayUnit {
+  shown: string;
+  unit: Unit;
+}
+
+const u = (shown: string, unit: Unit): DisplayUnit => ({ shown, unit });
+
+/** Display ladders, largest unit first. The first entry of each is also the unit for zero unless `zero` says otherwise. */
+export const LADDERS = {
+  temperature: [u('K', 'K')],
+  temperatureDifference: [u('K', 'K'), u('mK', 'mK'), u('µK', 'µK')],
+  pressure: [u('kPa', 'kPa'), u('Pa', 'Pa')],
+  length: [u('m', 'm'), u('mm', 'mm'), u('µm', 'µm')],
+  time: [u('s', 's'), u('ms', 'ms'), u('µs', 'µs'), u('ns', 'ns')],
+  area: [u('m²', 'm2'), u('cm²', 'cm2'), u('mm²', 'mm2'), u('µm²', 'µm2')],
+  frequency: [u('GHz', 'GHz'), u('MHz', 'MHz'), u('kHz', 'kHz'), u('Hz', 'Hz')],
+  sampleRate: [u('GS/s', 'GS/s'), u('MS/s', 'MS/s'), u('kS/s', 'kS/s'), u('S/s', 'S/s')],
+  voltage: [u('V', 'V'), u('mV', 'mV'), u('µV', 'µV'), u('nV', 'nV')],
+  responsivity: [u('V/K', 'V/K'), u('mV/K', 'mV/K'), u('µV/K', 'µV/K')],
+  power: [u('W', 'W'), u('mW', 'mW'), u('µW', 'µW')],
+  heatFlux: [u('W/cm²', 'W/cm2'), u('mW/cm²', 'mW/cm2')],
+} as const satisfies Record<string, readonly DisplayUnit[]>;
+
+export type Ladder = readonly DisplayUnit[];
+
+/** A kind of quantity the planner edits: what the parser reads, how it is shown, an example. */
+export interface QuantityKind {
+  dimension: Dimension;
+  ladder: Ladder;
+  /** Unit for a value of zero (default: the smallest of the ladder). */
+  zero?: DisplayUnit;
+  /** Typed example for messages, e.g. "100 us". */
+  example: string;
+}
+
+export const KINDS = {
+  temperature: { dimension: 'temperature', ladder: LADDERS.temperature, example: '1.8 K or 1800 mK' },
+  temperatureDifference: { dimension: 'temperature difference', ladder: LADDERS.temperatureDifference, example: '1 mK or 50 uK' },
+  pressure: { dimension: 'pressure', ladder: LADDERS.pressure, example: '1638 Pa or 16.4 mbar' },
+  length: { dimension: 'length', ladder: LADDERS.length, zero: LADDERS.length[1], example: '50 mm' },
+  time: { dimension: 'time', ladder: LADDERS.time, zero: LADDERS.time[2], example: '100 us' },
+  area: { dimension: 'area', ladder: LADDERS.area, zero: LADDERS.area[2], example: '1 cm2 or 2 mm2' },
+  frequency: { dimension: 'frequency', ladder: LADDERS.frequency, example: '5 Hz' },
+  sampleRate: { dimension: 'frequency', ladder: LADDERS.sampleRate, example: '10 MS/s' },
+  voltage: { dimension: 'voltage', ladder: LADDERS.voltage, example: '1 uV' },
+  responsivity: { dimension: 'responsivity', ladder: LADDERS.responsivity, example: '2 V/K' },
+  power: { dimension: 'power', ladder: LADDERS.power, example: '100 mW' },
+  heatFlux: { dimension: 'heat flux', ladder: LADDERS.heatFlux, example: '0.1 W/cm2' },
+} as const satisfies Record<string, QuantityKind>;
+
+/** The unit of `ladder` that shows `value` (SI) with a number of at least 1, or the smallest unit. */
+export function unitFor(value: number, ladder: Ladder, zero?: DisplayUnit): DisplayUnit {
+  const last = ladder[ladder.length - 1] as DisplayUnit;
+  if (value === 0 || !Number.isFinite(value)) return zero ?? last;
+  const magnitude = Math.abs(value) * (1 + 1e-12);
+  return ladder.find((d) => fromBaseUnit(magnitude, d.unit) >= 1) ?? last;
+}
+
+/** Up to six significant digits, no trailing zeros, ASCII minus (so the text parses again). */
+export function plainNumber(x: number, digits = 6): string {
+  if (!Number.isFinite(x)) return '';
+  return String(Number(x.toPrecision(digits)));
+}
+
+/** A value as text for an input field: "100 µs", "9.97 mm", "1 cm²". */
+export function inputText(value: number, ladder: Ladder, zero?: DisplayUnit): string {
+  const unit = unitFor(value, ladder, zero);
+  return `${plainNumber(fromBaseUnit(value, unit.unit))} ${unit.shown}`;
+}
+
+/** A value for reading (tables, messages): four significant digits, true minus, "× 10ⁿ" when extreme. */
+export function readText(value: number, ladder: Ladder, digits = 4, zero?: DisplayUnit): string {
+  const unit = unitFor(value, ladder, zero);
+  return `${formatSignificant(fromBaseUnit(value, unit.unit), digits)} ${unit.shown}`;
+}
+
+/** One unit that suits a whole column of values (the largest value decides). */
+export function unitForColumn(values: readonly (number | null)[], ladder: Ladder): DisplayUnit {
+  const finite = values.filter((v): v is number => v !== null && Number.isFinite(v) && v !== 0).map(Math.abs);
+  return unitFor(finite.length > 0 ? Math.max(...finite) : 0, ladder);
+}
+
+/** A value in a given display unit, as a number (for tables and chart axes). */
+export function inUnit(value: number, unit: DisplayUnit): number {
+  return fromBaseUnit(value, unit.unit);
+}
+
+/** A value with its unit for a message: "10 ns", "0 mm", "−100 m" (up to six digits). */
+export function messageText(value: number, ladder: Ladder, zero?: DisplayUnit): string {
+  const unit = unitFor(value, ladder, zero);
+  return `${plainNumber(fromBaseUnit(value, unit.unit)).replace('-', '\u2212')} ${unit.shown}`;
+}
+
+/** "10 ns–10 s", "0–10 mm", "from −100 m to 100 m": a closed range in readable units. */
+export function rangeText(min: number, max: number, ladder: Ladder, zero?: DisplayUnit): string {
+  const a = messageText(min, ladder, zero);
+  const b = messageText(max, ladder, zero);
+  if (min < 0) return `from ${a} to ${b}`;
+  const [aNumber, aUnit] = splitUnit(a);
+  const [bNumber, bUnit] = splitUnit(b);
+  return aUnit === bUnit ? `${aNumber}–${bNumber} ${bUnit}` : `${a}–${b}`;
+}
+
+function splitUnit(text: string): [string, string] {
+  const space = text.indexOf(' ');
+  return [text.slice(0, space), text.slice(space + 1)];
+}

@@ -1,0 +1,304 @@
+/**
+ * The resolution map: how finely one time-of-flight reading pins the bath temperature, over
+ * temperature × heater–sensor distance, for one sensor's timing and distance uncertainties.
+ *
+ * At distance d the transit is t = d/u2 + lag, and σ_u/u = √((σ_d(d)/d)² + (σ_t/t)²), with
+ * σ_d(d) = √(σ_meas² + (d·σ_ε)²) when the distance was measured warm (σ_ε: the spacer's
+ * contraction sd) — the same sum the planner uses for each sensor. The kernel's temperatureSpread
+ * turns that into σ_T, including the curvature bound near the extremes of u2, and flags the
+ * "insensitive" spots there. σ_T falls steadily with d at each temperature, so each iso-line
+ * σ_T = L is one distance per temperature, found by log–log interpolation on the grid. Filled
+ * bands between iso-lines draw the map (the basic Plotly bundle has no heatmap).
+ */
+import { SECOND_SOUND_EXTREMA, secondSound, secondSoundSlope, T_LAMBDA_K, temperatureSpread } from '../../physics';
+import { axis, baseLayout, CHART_COLOURS } from '../charts/chart-theme';
+import type { PlotAnnotation, PlotLayout, PlotShape, PlotTrace } from '../plot/plotly-types';
+import { LADDERS, readText } from './display-units';
+import { bandColours, PLANNER_COLOURS } from './planner-colours';
+
+/** Temperatures shown, K: from where second sound is a measured wave well into He II, up to just below Tλ. */
+export const MAP_TEMPERATURE_RANGE_K: [number, number] = [0.6, 2.17];
+/** Distances shown, m (log axis). */
+export const MAP_DISTANCE_RANGE_M: [number, number] = [1e-3, 0.3];
+const TEMPERATURE_STEP_K = 0.0025;
+const DISTANCE_POINTS = 36;
+/** Candidate iso-levels, K: 1–3 steps from 1 µK to 1 K. */
+const CANDIDATE_LEVELS_K = [1e-6, 3e-6, 1e-5, 3e-5, 1e-4, 3e-4, 1e-3, 3e-3, 1e-2, 3e-2, 1e-1, 3e-1, 1];
+const MAX_LEVELS = 9;
+
+/** What the map depends on: one sensor's uncertainties (SI). */
+export interface MapSensor {
+  /** One-sigma timing of one averaged reading, s. */
+  timingSd_s: number;
+  /** One-sigma of the distance as measured (scaled to cold), m. */
+  distanceSd_m: number;
+  /** Relative sd of the spacer contraction when measured warm (0 otherwise). */
+  contractionSd: number;
+  /** Sensor lag added to the transit, s. */
+  lag_s: number;
+}
+
+export interface MapGrid {
+  temperature_K: number[];
+  distance_m: number[];
+  /** sd_K[i][j] at temperature i, distance j. */
+  sd_K: number[][];
+  insensitive: boolean[][];
+}
+
+/** σ_T (K) and the insensitive flag at one temperature and distance, from the kernel. */
+export function spreadAt(T: number, d: number, sensor: MapSensor, at = { value: secondSound(T), slope: secondSoundSlope(T) }) {
+  const transit = d / at.value + sensor.lag_s;
+  const distanceSd = Math.hypot(sensor.distanceSd_m, d * sensor.contractionSd);
+  const relative = Math.min(1, Math.hypot(distanceSd / d, sensor.timingSd_s / transit));
+  return temperatureSpread(T, relative, at);
+}
+
+function logSpace(a: number, b: number, n: number): number[] {
+  return Array.from({ length: n }, (_, i) => a * (b / a) ** (i / (n - 1)));
+}
+
+/** The grid behind the map: σ_T at every temperature (2.5 mK steps) and distance (36 log steps). */
+export function mapGrid(sensor: MapSensor, distanceRange_m: [number, number] = MAP_DISTANCE_RANGE_M): MapGrid {
+  const [t0, t1] = MAP_TEMPERATURE_RANGE_K;
+  const steps = Math.round((t1 - t0) / TEMPERATURE_STEP_K);
+  const temperature_K = Array.from({ length: steps + 1 }, (_, i) => t0 + ((t1 - t0) * i) / steps);
+  const distance_m = logSpace(distanceRange_m[0], distanceRange_m[1], DISTANCE_POINTS);
+  const sd_K: number[][] = [];
+  const insensitive: boolean[][] = [];
+  for (const T of temperature_K) {
+    const at = { value: secondSound(T), slope: secondSoundSlope(T) };
+    const spreads = distance_m.map((d) => spreadAt(T, d, sensor, at));
+    sd_K.push(spreads.map((s) => s.sd_K));
+    insensitive.push(spreads.map((s) => s.insensitive));
+  }
+  return { temperature_K, distance_m, sd_K, insensitive };
+}
+
+/**
+ * Distance (m) at which σ_T falls to `level` at one temperature, from one grid column (σ_T falling
+ * with d): log–log interpolation; the grid's end when the level is not reached inside it.
+ */
+export function isoDistance(column: readonly number[], distance_m: readonly number[], level: number): number {
+  const n = column.length;
+  const first = column[0] as number;
+  if (first <= level) return distance_m[0] as number;
+  for (let j = 1; j < n; j++) {
+    const s1 = column[j] as number;
+    if (s1 <= level) {
+      const s0 = column[j - 1] as number;
+      const d0 = distance_m[j - 1] as number;
+      const d1 = distance_m[j] as number;
+      const f = Math.log(s0 / level) / Math.log(s0 / s1);
+      return Math.exp(Math.log(d0) + f * Math.log(d1 / d0));
+    }
+  }
+  return distance_m[n - 1] as number;
+}
+
+/** Iso-levels for a grid: 1–3 steps covering its values, at most nine (decades only if more). */
+export function mapLevels(grid: MapGrid): number[] {
+  let min = Number.POSITIVE_INFINITY;
+  let max = 0;
+  for (const column of grid.sd_K) {
+    for (const v of column) {
+      if (v > 0 && v < min) min = v;
+      if (v > max) max = v;
+    }
+  }
+  const inside = CANDIDATE_LEVELS_K.filter((L) => L > min && L < max);
+  if (inside.length <= MAX_LEVELS) return inside.length > 0 ? inside : [CANDIDATE_LEVELS_K.find((L) => L >= max) ?? 1];
+  const decades = inside.filter((L) => Math.abs(Math.log10(L) - Math.round(Math.log10(L))) < 1e-9);
+  return decades.slice(0, MAX_LEVELS);
+}
+
+export interface MapMarks {
+  planned: { temperature_K: number; distance_m: number; sd_K: number | null; label: string } | null;
+  target_K: number;
+}
+
+const MM = 1e3;
+
+function levelText(L: number): string {
+  return readText(L, LADDERS.temperatureDifference, 3);
+}
+
+/** The map as a Plotly figure: filled bands, the target iso-line, insensitive spots, the planned point. */
+export function mapFigure(grid: MapGrid, marks: MapMarks): { data: PlotTrace[]; layout: PlotLayout; levels: number[] } {
+  const levels = mapLevels(grid);
+  const colours = bandColours(levels.length + 1);
+  const T = grid.temperature_K;
+  const dMin = grid.distance_m[0] as number;
+  const dMax = grid.distance_m[grid.distance_m.length - 1] as number;
+  const edge = (name: string, d: number): PlotTrace => ({
+    type: 'scatter',
+    name,
+    x: [T[0] as number, T[T.length - 1] as number],
+    y: [d * MM, d * MM],
+    mode: 'lines',
+    line: { width: 0, color: 'rgba(0,0,0,0)' },
+    hoverinfo: 'skip',
+    showlegend: false,
+  });
+  const data: PlotTrace[] = [edge('top edge', dMax)];
+  levels.forEach((L, k) => {
+    data.push({
+      type: 'scatter',
+      name: `σT = ${levelText(L)}`,
+      x: T,
+      y: grid.sd_K.map((column) => isoDistance(column, grid.distance_m, L) * MM),
+      mode: 'lines',
+      line: { color: 'rgba(16, 34, 58, 0.28)', width: 0.6 },
+      fill: 'tonexty',
+      fillcolor: colours[k] as string,
+      hovertemplate: `σT = ${levelText(L)} at %{x:.3f} K from %{y:.3g} mm<extra></extra>`,
+      showlegend: false,
+    });
+  });
+  data.push({ ...edge('bottom edge', dMin), fill: 'tonexty', fillcolor: colours[levels.length] as string });
+  data.push(colourBarTrace(levels, colours));
+  data.push(...insensitiveTraces(grid));
+  data.push({
+    type: 'scatter',
+    name: `Target σT = ${levelText(marks.target_K)}`,
+    x: T,
+    y: grid.sd_K.map((column) => isoDistance(column, grid.distance_m, marks.target_K) * MM),
+    mode: 'lines',
+    line: { color: PLANNER_COLOURS.target, width: 2.4, dash: 'dash' },
+    hovertemplate: `target σT = ${levelText(marks.target_K)} reached from %{y:.3g} mm at %{x:.3f} K<extra></extra>`,
+  });
+  if (marks.planned) {
+    const p = marks.planned;
+    data.push({
+      type: 'scatter',
+      name: 'Planned',
+      x: [p.temperature_K],
+      y: [p.distance_m * MM],
+      mode: 'markers',
+      marker: { color: PLANNER_COLOURS.planned, size: 13, symbol: 'diamond', line: { color: '#ffffff', width: 1.5 } },
+      text: [`${p.label}: ${p.temperature_K.toFixed(4)} K, ${Number((p.distance_m * MM).toPrecision(4))} mm, σT ≈ ${p.sd_K === null ? '—' : levelText(p.sd_K)}`],
+      hovertemplate: '%{text}<extra></extra>',
+      cliponaxis: false,
+    });
+  }
+  const layout: PlotLayout = {
+    ...baseLayout(),
+    margin: { l: 64, r: 16, t: 30, b: 48 },
+    dragmode: false,
+    showlegend: true,
+    legend: { orientation: 'h', x: 0, y: 1.01, xanchor: 'left', yanchor: 'bottom', font: { size: 12 } },
+    xaxis: axis('Bath temperature T (K)', { range: MAP_TEMPERATURE_RANGE_K, fixedrange: true }),
+    yaxis: axis('Heater–sensor distance (mm)', { type: 'log', range: [Math.log10(dMin * MM), Math.log10(dMax * MM)], fixedrange: true }),
+    shapes: plannedLines(marks),
+    annotations: extremumLabels(),
+  };
+  return { data, layout, levels };
+}
+
+/** A hidden trace that carries the colour bar: one colour per band, labels at the band edges. */
+function colourBarTrace(levels: readonly number[], colours: readonly string[]): PlotTrace {
+  const n = colours.length;
+  const scale: [number, string][] = colours.flatMap((c, k): [number, string][] => [
+    [k / n, c],
+    [(k + 1) / n, c],
+  ]);
+  return {
+    type: 'scatter',
+    name: 'colour bar',
+    x: [MAP_TEMPERATURE_RANGE_K[0]],
+    y: [MAP_DISTANCE_RANGE_M[0] * MM],
+    mode: 'markers',
+    marker: {
+      color: [0],
+      cmin: 0,
+      cmax: n,
+      colorscale: scale,
+      showscale: true,
+      opacity: 0,
+      size: 1,
+      colorbar: {
+        title: { text: 'σT', side: 'top', font: { size: 12, color: CHART_COLOURS.inkMuted } },
+        tickvals: levels.map((_, k) => k + 1),
+        ticktext: levels.map(levelText),
+        tickfont: { size: 11 },
+        thickness: 14,
+        len: 0.92,
+        outlinewidth: 0,
+      },
+    },
+    hoverinfo: 'skip',
+    showlegend: false,
+  };
+}
+
+/**
+ * Where the kernel calls a reading insensitive (near the extremes of u2, the curvature bound
+ * governs): for each temperature, the distances below which that holds, as shaded regions.
+ */
+function insensitiveTraces(grid: MapGrid): PlotTrace[] {
+  const runs: { T: number[]; d: number[] }[] = [];
+  let run: { T: number[]; d: number[] } | null = null;
+  grid.insensitive.forEach((flags, i) => {
+    const below = flags.findIndex((f) => !f);
+    const upTo = below === 0 ? null : below < 0 ? (grid.distance_m[grid.distance_m.length - 1] as number) : (grid.distance_m[below] as number);
+    if (upTo === null) {
+      run = null;
+      return;
+    }
+    if (!run) {
+      run = { T: [], d: [] };
+      runs.push(run);
+    }
+    run.T.push(grid.temperature_K[i] as number);
+    run.d.push(upTo);
+  });
+  const dMin = grid.distance_m[0] as number;
+  return runs.map((r, k) => ({
+    type: 'scatter',
+    name: 'Insensitive (u₂ extremum)',
+    legendgroup: 'insensitive',
+    showlegend: k === 0,
+    x: [...r.T, ...[...r.T].reverse()],
+    y: [...r.d.map((d) => d * MM), ...r.T.map(() => dMin * MM)],
+    mode: 'lines',
+    fill: 'toself',
+    fillcolor: PLANNER_COLOURS.insensitiveFill,
+    line: { color: PLANNER_COLOURS.insensitiveEdge, width: 1, dash: 'dot' },
+    hovertemplate: 'insensitive: u₂ hardly changes with T here<extra></extra>',
+  }));
+}
+
+function plannedLines(marks: MapMarks): PlotShape[] {
+  if (!marks.planned) return [];
+  const { temperature_K, distance_m } = marks.planned;
+  const line = { color: PLANNER_COLOURS.planned, width: 1, dash: 'dot' as const };
+  return [
+    { name: 'planned-temperature', type: 'line', xref: 'x', yref: 'paper', x0: temperature_K, x1: temperature_K, y0: 0, y1: 1, line, layer: 'above' },
+    { name: 'planned-distance', type: 'line', xref: 'paper', yref: 'y', x0: 0, x1: 1, y0: distance_m * MM, y1: distance_m * MM, line, layer: 'above' },
+  ];
+}
+
+function extremumLabels(): PlotAnnotation[] {
+  const { minimum, maximum } = SECOND_SOUND_EXTREMA;
+  return [
+    { kind: 'min', at: minimum.temperature_K },
+    { kind: 'max', at: maximum.temperature_K },
+  ].map(({ kind, at }) => ({
+    name: `u2-${kind}`,
+    text: `u₂ ${kind} ${at.toFixed(2)} K`,
+    xref: 'x',
+    yref: 'paper',
+    x: at,
+    y: 0.02,
+    xanchor: 'center',
+    yanchor: 'bottom',
+    showarrow: false,
+    bgcolor: 'rgba(255,255,255,0.8)',
+    font: { size: 11, color: CHART_COLOURS.ink },
+  }));
+}
+
+/** Whether a temperature is on the map (He II, inside the shown range). */
+export function onMap(temperature_K: number): boolean {
+  return temperature_K >= MAP_TEMPERATURE_RANGE_K[0] && temperature_K <= MAP_TEMPERATURE_RANGE_K[1] && temperature_K < T_LAMBDA_K;
+}

@@ -1,0 +1,231 @@
+/**
+ * The timeline of one heater pulse as a Plotly figure: the heater's flux on top, the predicted
+ * δT at each sensor below, vertical markers where first sound, second sound and each echo arrive,
+ * and the digitiser's record window shaded. Pure: built from a PlanResult, no DOM.
+ */
+import type { PlanResult, SampledSignal, SensorPlanResult } from '../../physics';
+import { axis, baseLayout, CHART_COLOURS } from '../charts/chart-theme';
+import type { PlotAnnotation, PlotLayout, PlotShape, PlotTrace } from '../plot/plotly-types';
+import type { TimelineView } from '../store/planner-slice';
+import { decimateSegments } from './decimate';
+import { type DisplayUnit, inUnit, LADDERS, unitForColumn } from './display-units';
+import { PLANNER_COLOURS, sensorColour } from './planner-colours';
+
+const MS = 1e3;
+/** Fraction of the plot height given to the sensors (bottom) and the heater (top). */
+const SENSOR_DOMAIN: [number, number] = [0, 0.76];
+const HEATER_DOMAIN: [number, number] = [0.84, 1];
+
+export interface TimelineFigure {
+  data: PlotTrace[];
+  layout: PlotLayout;
+  /** Time span shown, s. */
+  range_s: [number, number];
+  /** Unit of the δT axis. */
+  amplitudeUnit: DisplayUnit;
+}
+
+/** End of the segment of `waveform` that holds time t (or t itself). */
+function segmentEnd(waveform: readonly SampledSignal[], t: number): number {
+  const segment = waveform.find((s) => s.start_s <= t && t <= s.start_s + (s.values.length - 1) * s.step_s);
+  return segment ? segment.start_s + (segment.values.length - 1) * segment.step_s : t;
+}
+
+function lastSampleTime(waveform: readonly SampledSignal[]): number {
+  return Math.max(0, ...waveform.map((s) => s.start_s + (s.values.length - 1) * s.step_s));
+}
+
+/** The time span each view shows, s. */
+export function timelineRange(result: PlanResult, view: TimelineView): [number, number] {
+  const sensors = result.sensors;
+  const duration = result.heater.duration_s;
+  const firstSound = Math.max(...sensors.map((s) => s.firstSoundArrival_s));
+  if (view === 'early') {
+    const to = Math.max(firstSound, duration) * 1.6;
+    return [-0.08 * to, to];
+  }
+  if (view === 'record') {
+    const lastSignal = Math.max(firstSound, ...sensors.map((s) => lastSampleTime(s.waveform)));
+    const from = Math.min(result.record.start_s, 0);
+    const to = Math.max(result.record.end_s, lastSignal);
+    const pad = 0.02 * (to - from);
+    return [from - pad, to + pad];
+  }
+  const directEnds = sensors.map((s) => (s.secondSoundArrival_s === null ? s.firstSoundArrival_s + duration : segmentEnd(s.waveform, s.secondSoundArrival_s)));
+  const to = Math.max(duration, ...directEnds) * 1.12;
+  return [-0.05 * to, to];
+}
+
+interface Arrival {
+  kind: 'first sound' | 'second sound' | 'echo';
+  t_s: number;
+  detail: string;
+}
+
+function arrivalsOf(sensor: SensorPlanResult): Arrival[] {
+  const list: Arrival[] = [{ kind: 'first sound', t_s: sensor.firstSoundArrival_s, detail: 'first sound' }];
+  if (sensor.secondSoundArrival_s !== null) list.push({ kind: 'second sound', t_s: sensor.secondSoundArrival_s, detail: 'second sound' });
+  for (const echo of sensor.echoes) {
+    const path = echo.path.length > 0 ? ` via ${echo.path.join(' → ')}` : '';
+    list.push({ kind: 'echo', t_s: echo.arrival_s, detail: `echo, order ${echo.order}${path}` });
+  }
+  return list;
+}
+
+const MARKER_STYLE = {
+  'first sound': { dash: 'dot', width: 1.2, symbol: 'triangle-down-open' },
+  'second sound': { dash: 'solid', width: 1.8, symbol: 'triangle-down' },
+  echo: { dash: 'dash', width: 1, symbol: 'diamond-open' },
+} as const;
+
+function peakOf(sensor: SensorPlanResult): { min: number; max: number } {
+  let min = 0;
+  let max = 0;
+  for (const s of sensor.waveform) {
+    for (const v of s.values) {
+      if (v < min) min = v;
+      if (v > max) max = v;
+    }
+  }
+  return { min, max };
+}
+
+/**
+ * The figure for a plan result. `columns` is the plot's width in pixels: each waveform is cut to
+ * at most about two points per pixel column before Plotly sees it.
+ */
+export function timelineFigure(result: PlanResult, view: TimelineView, columns: number): TimelineFigure {
+  const [from, to] = timelineRange(result, view);
+  const peaks = result.sensors.map(peakOf);
+  const amplitudeUnit = unitForColumn(
+    peaks.flatMap((p) => [p.min, p.max]),
+    LADDERS.temperatureDifference,
+  );
+  const scale = (v: number) => inUnit(v, amplitudeUnit);
+  const low = scale(Math.min(0, ...peaks.map((p) => p.min)));
+  const high = scale(Math.max(...peaks.map((p) => p.max)));
+  const span = high - low || 1;
+  const yRange: [number, number] = [low - 0.08 * span, high + 0.2 * span];
+  const markerY = yRange[1] - 0.06 * (yRange[1] - yRange[0]);
+
+  const heaterLine = decimateSegments([result.heaterPulse], from, to, columns);
+  const data: PlotTrace[] = [
+    {
+      type: 'scatter',
+      name: 'Heater flux',
+      x: heaterLine.t.map((t) => t * MS),
+      y: heaterLine.v,
+      mode: 'lines',
+      yaxis: 'y2',
+      fill: 'tozeroy',
+      fillcolor: PLANNER_COLOURS.heaterFill,
+      line: { color: PLANNER_COLOURS.heater, width: 1.4 },
+      hovertemplate: 't = %{x:.4g} ms<br>heater at %{y:.0%} of peak<extra></extra>',
+    },
+  ];
+  const shapes: PlotShape[] = [recordWindow(result)];
+  result.sensors.forEach((sensor, i) => {
+    const colour = sensorColour(i);
+    const line = decimateSegments(sensor.waveform, from, to, columns);
+    const name = `${sensor.label} (${sensor.id})`;
+    data.push({
+      type: 'scatter',
+      name,
+      legendgroup: sensor.id,
+      x: line.t.map((t) => t * MS),
+      y: line.v.map(scale),
+      mode: 'lines',
+      line: { color: colour, width: 1.6 },
+      hovertemplate: `${escapeHover(sensor.id)}: t = %{x:.4g} ms, δT = %{y:.3g} ${amplitudeUnit.shown}<extra></extra>`,
+    });
+    const arrivals = arrivalsOf(sensor).filter((a) => a.t_s >= from && a.t_s <= to);
+    data.push({
+      type: 'scatter',
+      name: `${name} arrivals`,
+      legendgroup: sensor.id,
+      showlegend: false,
+      x: arrivals.map((a) => a.t_s * MS),
+      y: arrivals.map(() => markerY),
+      mode: 'markers',
+      marker: { color: colour, size: 9, symbol: arrivals.map((a) => MARKER_STYLE[a.kind].symbol), line: { color: colour, width: 1.2 } },
+      text: arrivals.map((a) => `${escapeHover(sensor.id)} · ${a.detail}: ${formatMs(a.t_s)}`),
+      hovertemplate: '%{text}<extra></extra>',
+      cliponaxis: false,
+    });
+    for (const a of arrivals) {
+      const style = MARKER_STYLE[a.kind];
+      shapes.push({
+        name: `arrival-${sensor.id}-${a.kind.replace(' ', '-')}`,
+        type: 'line',
+        xref: 'x',
+        yref: 'paper',
+        x0: a.t_s * MS,
+        x1: a.t_s * MS,
+        y0: SENSOR_DOMAIN[0],
+        y1: SENSOR_DOMAIN[1],
+        line: { color: colour, width: style.width, dash: style.dash },
+        opacity: a.kind === 'echo' ? 0.55 : 0.8,
+        layer: 'below',
+      });
+    }
+  });
+
+  const layout: PlotLayout = {
+    ...baseLayout(),
+    margin: { l: 64, r: 16, t: 8, b: 46 },
+    dragmode: 'zoom',
+    legend: { orientation: 'h', x: 0, y: -0.2, xanchor: 'left', yanchor: 'top', font: { size: 12 } },
+    xaxis: axis('Time after the heater pulse starts (ms)', { range: [from * MS, to * MS], fixedrange: true, anchor: 'y', zeroline: true }),
+    yaxis: axis(`δT at sensor (${amplitudeUnit.shown})`, { domain: SENSOR_DOMAIN, range: yRange, anchor: 'x' }),
+    yaxis2: axis('Heater', { domain: HEATER_DOMAIN, range: [0, 1.15], anchor: 'x', showticklabels: false, fixedrange: true, ticks: '' }),
+    shapes,
+    annotations: recordLabels(result, from, to),
+  };
+  return { data, layout, range_s: [from, to], amplitudeUnit };
+}
+
+function recordWindow(result: PlanResult): PlotShape {
+  return {
+    name: 'record-window',
+    type: 'rect',
+    xref: 'x',
+    yref: 'paper',
+    x0: result.record.start_s * MS,
+    x1: result.record.end_s * MS,
+    y0: 0,
+    y1: 1,
+    fillcolor: PLANNER_COLOURS.recordFill,
+    line: { color: PLANNER_COLOURS.recordEdge, width: 1, dash: 'dot' },
+    layer: 'below',
+  };
+}
+
+/** "record starts" / "record ends" labels where the window's edges are in view. */
+function recordLabels(result: PlanResult, from: number, to: number): PlotAnnotation[] {
+  const labels: PlotAnnotation[] = [];
+  const edge = (name: string, t: number, text: string, xanchor: 'left' | 'right'): PlotAnnotation => ({
+    name,
+    text,
+    xref: 'x',
+    yref: 'paper',
+    x: t * MS,
+    y: 1,
+    xanchor,
+    yanchor: 'top',
+    showarrow: false,
+    font: { size: 11, color: CHART_COLOURS.secondSound },
+  });
+  if (result.record.start_s > from && result.record.start_s < to) labels.push(edge('record-start', result.record.start_s, ' record starts', 'left'));
+  if (result.record.end_s > from && result.record.end_s < to) labels.push(edge('record-end', result.record.end_s, 'record ends ', 'right'));
+  return labels;
+}
+
+/** A time in ms or µs for hover text. */
+export function formatMs(t_s: number): string {
+  return Math.abs(t_s) >= 1e-3 ? `${Number((t_s * 1e3).toPrecision(4))} ms` : `${Number((t_s * 1e6).toPrecision(4))} µs`;
+}
+
+/** Plotly hover text treats < and > as markup; user labels must not. */
+function escapeHover(text: string): string {
+  return text.replace(/</g, '‹').replace(/>/g, '›');
+}

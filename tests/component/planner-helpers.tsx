@@ -1,0 +1,54 @@
+import { readFileSync } from 'node:fs';
+import { render, screen, waitFor } from '@testing-library/react';
+import userEvent from '@testing-library/user-event';
+import { vi } from 'vitest';
+import { App } from '../../app/App';
+import { type PlanFile, parsePlanFile } from '../../src/io/plan-file';
+import { useSekundoStore } from '../../src/ui/store';
+import { lastDraw } from './fake-plotly';
+
+/** The demo plan file as the page fetches it. */
+export const DEMO_TEXT = readFileSync('public/demo-plan.json', 'utf8');
+
+export function demoPlan(): PlanFile {
+  const parsed = parsePlanFile(DEMO_TEXT);
+  if (!parsed.ok) throw new Error(parsed.errors.join('\n'));
+  return parsed.plan;
+}
+
+/** Serves the demo plan to the page's fetch (or a failure), and returns the mock to inspect. */
+export function serveDemo(answer: 'demo' | 'missing' | 'offline' = 'demo') {
+  const fetchMock = vi.fn(async (_url: string) => {
+    if (answer === 'offline') throw new TypeError('Failed to fetch');
+    if (answer === 'missing') return new Response('not found', { status: 404, statusText: 'Not Found' });
+    return new Response(DEMO_TEXT, { status: 200, headers: { 'content-type': 'application/json' } });
+  });
+  vi.stubGlobal('fetch', fetchMock);
+  return fetchMock;
+}
+
+export const store = () => useSekundoStore.getState();
+
+/** Renders the page, opens the planner tab and waits until the plan and its timeline are shown. */
+export async function openPlanner(answer: 'demo' | 'missing' | 'offline' = 'demo') {
+  const fetchMock = serveDemo(answer);
+  const user = userEvent.setup();
+  const view = render(<App />);
+  await user.click(screen.getByRole('tab', { name: 'Plan a measurement' }));
+  await screen.findByRole('region', { name: 'Bath' });
+  await waitFor(() => expect(lastDraw('planner-timeline')).toBeDefined());
+  return { user, view, fetchMock };
+}
+
+/** The text box with this accessible name (exact). */
+export function field(name: string | RegExp): HTMLInputElement {
+  return screen.getByRole('textbox', { name }) as HTMLInputElement;
+}
+
+/** Replaces a field's text by typing, as a user would. */
+export async function retype(user: ReturnType<typeof userEvent.setup>, name: string | RegExp, text: string) {
+  const input = field(name);
+  await user.clear(input);
+  await user.type(input, text);
+  return input;
+}

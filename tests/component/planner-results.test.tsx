@@ -1,0 +1,73 @@
+import { screen, within } from '@testing-library/react';
+import { planFileToInput } from '../../src/io/plan-file';
+import { computePlan } from '../../src/physics';
+import { formatSignificant } from '../../src/ui/format/format-number';
+import { inUnit, LADDERS, unitForColumn } from '../../src/ui/planner/display-units';
+import { demoPlan, openPlanner, store } from './planner-helpers';
+
+describe('planner results for the demo plan', () => {
+  it('opens the demo plan by default', async () => {
+    const { fetchMock } = await openPlanner();
+    expect(fetchMock).toHaveBeenCalledWith('./demo-plan.json');
+    expect(store().plannerPlan).toEqual(demoPlan());
+    expect(screen.getByText('Demo plan (invented setup)')).toBeInTheDocument();
+    expect(screen.getByRole('textbox', { name: 'Plan name' })).toHaveValue(demoPlan().name);
+  });
+
+  it('shows, for every sensor, the values computePlan gives', async () => {
+    await openPlanner();
+    const expected = computePlan(planFileToInput(demoPlan()));
+    const table = screen.getByRole('table', { name: /predicted arrivals, signals and temperature resolution/i });
+    const rows = within(table).getAllByRole('row').slice(1);
+    expect(rows).toHaveLength(expected.sensors.length);
+    const ms = unitForColumn(expected.sensors.map((s) => s.secondSoundArrival_s), LADDERS.time);
+    const tsd = unitForColumn(expected.sensors.map((s) => s.temperatureSd_K), LADDERS.temperatureDifference);
+    expected.sensors.forEach((sensor, i) => {
+      const row = rows[i] as HTMLElement;
+      expect(within(row).getByRole('rowheader')).toHaveTextContent(`${sensor.label} (${sensor.id})`);
+      const cell = (key: string) => row.querySelector(`[data-column="${key}"]`)?.textContent;
+      expect(cell('second')).toBe(formatSignificant(inUnit(sensor.secondSoundArrival_s as number, ms), 4));
+      expect(cell('tsd')).toBe(formatSignificant(inUnit(sensor.temperatureSd_K as number, tsd), 2));
+      expect(cell('snrN')).toBe(formatSignificant(sensor.snrAveraged as number, 3));
+      expect(cell('pulses')).toBe((sensor.pulsesForTargetSnr as number).toLocaleString('en-GB'));
+      expect(cell('path')).toBe(formatSignificant(inUnit(sensor.pathLength_m, unitForColumn(expected.sensors.map((s) => s.pathLength_m), LADDERS.length)), 4));
+    });
+    // Units in the headers: the arrivals of the demo are in milliseconds, the temperature sd in millikelvin.
+    const headers = within(table)
+      .getAllByRole('columnheader')
+      .map((h) => h.textContent);
+    expect(headers).toContain('Second sound (ms)');
+    expect(headers).toContain('T sd (mK)');
+  });
+
+  it('summarises the heater as computePlan does', async () => {
+    await openPlanner();
+    const expected = computePlan(planFileToInput(demoPlan())).heater;
+    const summary = screen.getByRole('region', { name: 'Heater and bath' });
+    const value = (term: string) => within(summary).getByText(term).nextElementSibling?.querySelector('.summary-list__value')?.textContent;
+    expect(value('Peak heat flux')).toBe(`${formatSignificant(expected.flux_W_m2 / 10, 3)} mW/cm²`);
+    expect(value('Average power into the bath')).toBe(`${formatSignificant(expected.averagePower_W * 1e6, 3)} µW`);
+    expect(value('Energy per pulse')).toBe(`${formatSignificant(expected.energyPerPulse_J * 1e6, 3)} µJ`);
+    expect(value('δT at the heater face')).toBe(`${formatSignificant((expected.faceDeltaT_K as number) * 1e6, 3)} µK`);
+    expect(value('Counterflow velocity')).toBe(`${formatSignificant((expected.counterflowVelocity_m_s as number) * 100, 3)} cm/s`);
+    expect(value('Shock distance')).toBe(`${formatSignificant((expected.shockDistance_m as number) * 1e3, 3)} mm`);
+  });
+
+  it('lists the kernel’s warnings with severity in words, the number and its limit', async () => {
+    await openPlanner();
+    const expected = computePlan(planFileToInput(demoPlan())).warnings;
+    const list = screen.getByRole('list', { name: 'Plan warnings' });
+    const items = within(list).getAllByRole('listitem');
+    expect(items).toHaveLength(expected.length);
+    for (const w of expected) expect(within(list).getByText(w.message)).toBeInTheDocument();
+    const heating = items.find((item) => item.getAttribute('data-code') === 'bath-heating') as HTMLElement;
+    expect(within(heating).getByText('Note')).toBeInTheDocument();
+    expect(heating).toHaveTextContent('average power 50.0 µW');
+  });
+
+  it('stores the plan and no results', async () => {
+    await openPlanner();
+    const keys = Object.keys(store());
+    for (const derived of ['plannerResult', 'result', 'warnings', 'sensors']) expect(keys).not.toContain(derived);
+  });
+});

@@ -123,8 +123,8 @@ export function numberAt(table: CsvTable, row: TableRow, column: TableColumn, op
   if (cell === '' && optional) return undefined;
   const value = readNumberCell(cell, table.delimiter !== ',');
   if (!Number.isFinite(value)) {
-    const what = cell === '' ? 'is empty' : /^"?[+-]?(nan|inf|infinity)"?$/i.test(cell) ? `is "${cell}", not a finite number` : `"${cell.length > 24 ? `${cell.slice(0, 24)}…` : cell}" is not a number`;
-    throw new CsvInputError('not-a-number', `column "${column.name}" ${what}`, row.line);
+    const what = cell === '' ? 'empty cell' : /^"?[+-]?(nan|inf|infinity)"?$/i.test(cell) ? `"${cell}" is not a finite number` : `"${cell.length > 24 ? `${cell.slice(0, 24)}…` : cell}" is not a number`;
+    throw new CsvInputError('not-a-number', `column "${column.name}": ${what}`, row.line);
   }
   return toSi(value, column.pow10);
 }

@@ -388,8 +388,10 @@ export class TraceCsvParser {
   // ---- Header phase: keep lines until three numeric rows agree on a delimiter and a width. ----
 
   private headerLine(text: string): void {
-    const blank = text.trim() === '';
-    if (!blank) this.sawContent = true;
+    const trimmed = text.trim();
+    if (trimmed !== '') this.sawContent = true;
+    // Blank and "#" lines neither start nor break a run of numeric rows.
+    const blank = trimmed === '' || trimmed.startsWith('#');
     this.pendingChars += text.length;
     if (this.pending.length >= TRACE_CSV_MAX_HEADER_LINES + CONFIRM_ROWS || this.pendingChars > TRACE_CSV_MAX_LINE_CHARS) {
       throw new CsvInputError(
@@ -564,11 +566,11 @@ export class TraceCsvParser {
     const trimmed = cell.trim();
     const what =
       trimmed === '' || trimmed === '""'
-        ? 'is empty'
+        ? 'empty cell'
         : /^"?\s*[+-]?(nan|inf|infinity)\s*"?$/i.test(trimmed)
-          ? `is "${trimmed}", not a finite number`
+          ? `"${trimmed}" is not a finite number`
           : `"${clip(trimmed)}" is not a number`;
-    throw new CsvInputError('not-a-number', `column "${name}" ${what}`, line);
+    throw new CsvInputError('not-a-number', `column "${name}": ${what}`, line);
   }
 
   /** A delimiter other than the file's inside a cell that failed to read as a number. */

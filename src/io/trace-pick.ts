@@ -27,7 +27,10 @@ export type TemplateSource = 'heater drive' | 'half-height rectangle';
 
 export interface TracePickOptions {
   picker: PickerKind;
-  /** Sensor channel; default the first channel that is not the heater. */
+  /**
+   * Sensor channel; default the first channel that is not the heater and not named like a drive
+   * or trigger ("heater", "drive", "trig…", "pulse"), else the first that is not the heater.
+   */
   sensor?: string;
   /** Heater drive channel: time zero moves to its onset. */
   heater?: string;
@@ -119,8 +122,12 @@ export function pickTraceArrival(trace: TraceCsv, options: TracePickOptions): Tr
   };
 }
 
+/** Channel names skipped when choosing the sensor by default: drive and trigger channels. */
+const NOT_A_SENSOR = /heater|drive|trig|pulse/i;
+
 function defaultSensor(trace: TraceCsv, heater: string | null): string {
-  const channel = trace.channels.find((c) => c.name !== heater);
+  const others = trace.channels.filter((c) => c.name !== heater);
+  const channel = others.find((c) => !NOT_A_SENSOR.test(c.name)) ?? others[0];
   if (!channel) throw new CsvInputError('missing-column', `no sensor channel: the file's only channel is the heater "${heater}"`);
   return channel.name;
 }

@@ -47,7 +47,7 @@ export const OFFSET_FLAG: QuantityFlag = {
   dimension: 'time',
   placeholder: 't0',
   range: DELAY_LIMITS.offset_s,
-  rangeNote: 'and less than the delay',
+  rangeNote: 'must be less than the delay',
   help: 'offset t0 subtracted from every delay: heater and sensor lags, electronics (default 0)',
 };
 

@@ -106,7 +106,7 @@ export const delayCommand: Command = {
     const delay_s = computeFor(delay, (v) => requireInRange('delay', v, DELAY_LIMITS.delay_s[0], DELAY_LIMITS.delay_s[1], 's'));
     const sds = readUncertainties(args);
     const offset = args.quantity(OFFSET_FLAG.name);
-    if (offset) computeFor(offset, (v) => requireInRange('offset', v, DELAY_LIMITS.offset_s[0], delay_s * (1 - 1e-12), 's', 'the offset must be less than the delay'));
+    if (offset) computeFor(offset, (v) => requireInRange('offset', v, DELAY_LIMITS.offset_s[0], delay_s * (1 - 1e-12), 's'));
     const choice = readChoiceRule('delay', args);
     const conversion = convertOne(distance_m, delay_s, sds, distance.text, delay.text);
     const result: DelayJson = { distance_m, delay_s, offset_s: sds.offset_s, ...conversion, ...chooseFor(conversion.candidates, choice) };

@@ -64,7 +64,7 @@ const SENSOR_FLAG: TextFlag = {
   kind: 'text',
   name: 'sensor-column',
   placeholder: 'NAME',
-  help: 'the sensor channel (default: the first channel that is not the heater)',
+  help: 'the sensor channel (default: the first channel not named like heater, drive, trigger or pulse)',
 };
 
 const TIME_FLAG: TextFlag = {
@@ -193,12 +193,12 @@ export const traceCommand: Command = {
           ...optional('thresholdSigma', args.number(THRESHOLD_FLAG.name)?.value),
           ...optional('fraction', args.number(FRACTION_FLAG.name)?.value),
         }),
-      (error) => (heater === undefined && /pre-trigger/.test(error.message) ? 'give --heater-column to put time zero at the heater onset' : undefined),
+      (error) => (heater === undefined && /pre-trigger: needs/.test(error.message) ? 'give --heater-column to put time zero at the heater onset' : undefined),
     );
     let conversion: DelayConversion | null = null;
     if (distance_m !== null) {
       const offset = args.quantity(OFFSET_FLAG.name);
-      if (offset) computeFor(offset, (v) => requireInRange('offset', v, DELAY_LIMITS.offset_s[0], pick.delay_s * (1 - 1e-12), 's', 'the offset must be less than the delay'));
+      if (offset) computeFor(offset, (v) => requireInRange('offset', v, DELAY_LIMITS.offset_s[0], pick.delay_s * (1 - 1e-12), 's'));
       conversion = fromFile('trace file', path, () => {
         requireInRange('picked delay', pick.delay_s, DELAY_LIMITS.delay_s[0], DELAY_LIMITS.delay_s[1], 's', 'the arrival must come after time zero');
         return convertDelay({ distance_m, delay_s: pick.delay_s, distanceSd_m: sds.distanceSd_m, delaySd_s: pick.delaySd_s, offset_s: sds.offset_s, offsetSd_s: sds.offsetSd_s });
@@ -254,14 +254,14 @@ function readTrace(path: string, timeColumn: string | undefined): TraceCsv {
 export function renderTrace(r: TraceJson): string[] {
   const us = (s: number) => formatSignificant(s * 1e6);
   const rows: string[][] = [
-    ['Trace', `${r.file}: ${r.rows} rows, sensor "${r.sensor}"${r.heater ? `, heater "${r.heater}"` : ''}`, ''],
-    ['Time zero', r.heater ? `heater onset at ${us(r.timeZero_s)} ± ${formatSignificant(r.timeZeroSd_s * 1e6, 2)}` : 'file t = 0', r.heater ? 'µs' : ''],
-    ['Picker', `${r.picker}${r.template ? ` (template: ${r.template})` : ''}, SNR ${formatSignificant(r.snr, 3)}`, ''],
-    ['Arrival', `${us(r.arrival_s)} ± ${formatSignificant(r.arrivalSd_s * 1e6, 2)}`, 'µs'],
-    ['Delay', `${us(r.delay_s)} ± ${formatSignificant(r.delaySd_s * 1e6, 2)}`, 'µs'],
+    ['Trace', `${r.file}: ${r.rows} rows, sensor "${r.sensor}"${r.heater ? `, heater "${r.heater}"` : ''}`],
+    ['Time zero', r.heater ? `heater onset, ${us(r.timeZero_s)} ± ${formatSignificant(r.timeZeroSd_s * 1e6, 2)} µs on the file's axis` : "the file's t = 0"],
+    ['Picker', `${r.picker}${r.template ? ` (template: ${r.template})` : ''}, SNR ${formatSignificant(r.snr, 3)}`],
+    ['Arrival', `${us(r.arrival_s)} ± ${formatSignificant(r.arrivalSd_s * 1e6, 2)} µs on the file's axis`],
+    ['Delay', `${us(r.delay_s)} ± ${formatSignificant(r.delaySd_s * 1e6, 2)} µs after time zero`],
   ];
-  if (r.speed_m_s !== null && r.speedSd_m_s !== null) rows.push(['Speed', `${formatSignificant(r.speed_m_s)} ± ${formatSignificant(r.speedSd_m_s, 2)}`, 'm/s']);
-  const lines = alignTable(rows, ['left', 'left', 'left']);
+  if (r.speed_m_s !== null && r.speedSd_m_s !== null) rows.push(['Speed', `${formatSignificant(r.speed_m_s)} ± ${formatSignificant(r.speedSd_m_s, 2)} m/s`]);
+  const lines = alignTable(rows, ['left', 'left']);
   if (r.distance_m === null) return [...lines, '', 'Give --distance to convert the delay into speed and temperatures.'];
   const chosen = r.chosen === null ? null : r.candidates[r.chosen];
   return [

@@ -1,8 +1,8 @@
 /**
  * Quantities typed by people: "1.8K", "1800 mK", "1.6e3Pa", "50mm", "2.5 ms", "1W/cm2", "20mW",
- * "1 cm2", "10 MS/s", "1 uV", "2 V/K", "50 µK". Parsing turns text into a number in the SI base unit
- * (K, Pa, m, s, W/m2, W, m2, Hz, V, V/K); every other unit exists only here, at the edge, through
- * {@link toBaseUnit} and {@link fromBaseUnit}. Used by the command line and the page.
+ * "1 cm2", "10 MS/s", "1 uV", "2 V/K", "50 µK", "20 m/s". Parsing turns text into a number in the SI
+ * base unit (K, Pa, m, s, W/m2, W, m2, Hz, V, V/K, m/s); every other unit exists only here, at the
+ * edge, through {@link toBaseUnit} and {@link fromBaseUnit}. Used by the command line and the page.
  */
 
 /** The kinds of quantity a user can type. */
@@ -17,7 +17,8 @@ export type Dimension =
   | 'area'
   | 'frequency'
   | 'voltage'
-  | 'responsivity';
+  | 'responsivity'
+  | 'speed';
 
 /**
  * One unit: its value in the base unit is 10^pow10 · numerator / denominator, all exact.
@@ -70,6 +71,8 @@ const UNIT_TABLE = {
   },
   voltage: { V: decimal(0), mV: decimal(-3), uV: decimal(-6), 'µV': decimal(-6), nV: decimal(-9) },
   responsivity: { 'V/K': decimal(0), 'mV/K': decimal(-3), 'uV/K': decimal(-6), 'µV/K': decimal(-6), 'V/mK': decimal(3) },
+  // A speed (second sound, an effective pulse speed): SI prefixes on the metre, exact.
+  speed: { 'm/s': decimal(0), 'cm/s': decimal(-2), 'mm/s': decimal(-3) },
 } as const satisfies Record<Dimension, Record<string, UnitDefinition>>;
 
 /** Unit symbols accepted for a dimension, e.g. `UnitOf<'temperature'>` is `'K' | 'mK'`. */
@@ -90,6 +93,7 @@ export const BASE_UNIT = {
   frequency: 'Hz',
   voltage: 'V',
   responsivity: 'V/K',
+  speed: 'm/s',
 } as const satisfies { [D in Dimension]: UnitOf<D> };
 
 /** Every dimension, in the order help text lists them. */
@@ -261,6 +265,7 @@ const EXAMPLES: Readonly<Record<Dimension, string>> = {
   frequency: '10MHz',
   voltage: '1uV',
   responsivity: '2V/K',
+  speed: '20m/s',
 };
 
 /** A short typed example of `dimension`, for help and error text. */

@@ -1,5 +1,7 @@
 import react from '@vitejs/plugin-react';
+import { fileURLToPath } from 'node:url';
 import { defineConfig, type Plugin } from 'vite';
+import { offlineCache } from './app/offline/service-worker-plugin.ts';
 
 // The built page may load only its own files: no fonts, scripts or requests from elsewhere, no eval.
 // Styles allow 'unsafe-inline' because Plotly writes its own <style> and style attributes.
@@ -32,7 +34,7 @@ export default defineConfig({
   root: 'app',
   publicDir: '../public',
   base: './',
-  plugins: [react(), contentSecurityPolicy()],
+  plugins: [react(), contentSecurityPolicy(), offlineCache(fileURLToPath(new URL('./public', import.meta.url)))],
   build: {
     outDir: '../dist',
     emptyOutDir: true,

@@ -1,6 +1,7 @@
 import { StrictMode } from 'react';
 import { createRoot } from 'react-dom/client';
 import { App } from './App';
+import { registerOfflineCache } from './offline/register';
 import './styles.css';
 
 const container = document.getElementById('root');
@@ -11,3 +12,5 @@ createRoot(container).render(
     <App />
   </StrictMode>,
 );
+
+registerOfflineCache();

@@ -2,7 +2,9 @@ import { defineConfig, devices } from '@playwright/test';
 
 // Browser tests run Debian's Chromium against the production build served by `vite preview`.
 // No browser is downloaded: the executable path points at the system package.
-const BASE_URL = 'http://127.0.0.1:4173';
+// SEKUNDO_E2E_PORT lets a second checkout run its browser tests beside this one.
+const PORT = Number(process.env.SEKUNDO_E2E_PORT ?? 4173);
+const BASE_URL = `http://127.0.0.1:${PORT}`;
 
 export default defineConfig({
   testDir: 'tests/e2e',
@@ -44,7 +46,7 @@ export default defineConfig({
     },
   ],
   webServer: {
-    command: 'npm run build && npm run preview',
+    command: `npm run build && npx vite preview --config vite.config.ts --host 127.0.0.1 --port ${PORT} --strictPort`,
     url: BASE_URL,
     reuseExistingServer: !process.env.CI,
     timeout: 180_000,

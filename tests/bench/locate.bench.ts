@@ -4,18 +4,8 @@
  */
 import { bench, describe } from 'vitest';
 import { layoutQuality, locateSource, type Vec3 } from '../../src/physics';
+import { SCENARIO_SENSORS as SENSORS, SCENARIO_U2_M_S as U2 } from '../support/locate-scenario';
 
-const U2 = 19.9;
-const SENSORS: Vec3[] = [
-  [0.1, 0, 0],
-  [-0.1, 0, 0],
-  [0, 0.1, 0.02],
-  [0, -0.1, 0.05],
-  [0.05, 0.05, 0.15],
-  [-0.06, 0.04, -0.1],
-  [0.03, -0.08, 0.1],
-  [-0.02, -0.03, 0.2],
-];
 const SOURCE: Vec3 = [0.02, -0.01, 0.05];
 // Deterministic "noise": a fixed pattern of ±5 µs.
 const data = SENSORS.map((s, i) => ({

@@ -7,20 +7,10 @@
 import { describe, expect, it } from 'vitest';
 import { bestAddedSensor, type LocateResult, layoutQuality, locateSource, type SensorArrival, type SurfaceConstraint, type Vec3 } from '../../src/physics';
 import { invert } from '../../src/physics/small-matrix';
+import { SCENARIO_SENSORS as SENSORS, SCENARIO_U2_M_S as U2 } from '../support/locate-scenario';
 import { gaussian, seededRandom } from '../support/synthetic-trace';
 
-const U2 = 19.9; // m/s, second sound near 1.8 K (D&B 1998 curve)
 const SD = 5e-6; // s, timing sd
-const SENSORS: Vec3[] = [
-  [0.1, 0, 0],
-  [-0.1, 0, 0],
-  [0, 0.1, 0.02],
-  [0, -0.1, 0.05],
-  [0.05, 0.05, 0.15],
-  [-0.06, 0.04, -0.1],
-  [0.03, -0.08, 0.1],
-  [-0.02, -0.03, 0.2],
-];
 
 /** Length of the per-coordinate sd vector; the fit must have fixed the source. */
 function sdOf(r: LocateResult): number {

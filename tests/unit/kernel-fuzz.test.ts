@@ -26,7 +26,8 @@ function assertAllFinite(value: unknown, path = 'result'): void {
   if (typeof value === 'number') {
     expect(Number.isFinite(value), `${path} = ${value}`).toBe(true);
   } else if (ArrayBuffer.isView(value)) {
-    for (const x of value as unknown as ArrayLike<number>) expect(Number.isFinite(x), `${path}[…] = ${x}`).toBe(true);
+    const view = value as unknown as ArrayLike<number>;
+    for (let i = 0; i < view.length; i++) expect(Number.isFinite(view[i]), `${path}[${i}] = ${view[i]}`).toBe(true);
   } else if (Array.isArray(value)) {
     value.forEach((v, i) => assertAllFinite(v, `${path}[${i}]`));
   } else if (value && typeof value === 'object') {

@@ -1,4 +1,5 @@
 import type { ComponentType } from 'react';
+import { ConverterView } from '../src/ui/converter/ConverterView';
 import { ExplorerView } from '../src/ui/explorer/ExplorerView';
 import { PlannerView } from '../src/ui/planner/PlannerView';
 import type { ViewId } from '../src/ui/store/view-slice';
@@ -26,5 +27,12 @@ export const VIEWS: readonly ViewEntry[] = [
     purpose:
       'Before a cooldown: when each wave reaches each sensor, how big the signal is, what overlaps or distorts, and how finely the delay pins the temperature.',
     component: PlannerView,
+  },
+  {
+    id: 'converter',
+    label: 'Read the temperature',
+    purpose:
+      'During a cooldown: a second-sound delay, a batch of delays or a saved trace → every temperature it can mean, each with its uncertainty, and the one your evidence favours.',
+    component: ConverterView,
   },
 ];

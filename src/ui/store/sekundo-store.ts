@@ -1,4 +1,5 @@
 import { create } from 'zustand';
+import { createConverterSlice } from '../converter/converter-slice';
 import { createPlannerSlice } from './planner-slice';
 import type { SekundoState } from './state';
 import { createTemperatureSlice } from './temperature-slice';
@@ -9,6 +10,7 @@ export const useSekundoStore = create<SekundoState>()((...args) => ({
   ...createTemperatureSlice(...args),
   ...createViewSlice(...args),
   ...createPlannerSlice(...args),
+  ...createConverterSlice(...args),
 }));
 
 /** Puts every slice back to its initial state (tests, "start over"). */

@@ -1,6 +1,7 @@
+import type { ConverterSlice } from '../converter/converter-slice';
 import type { PlannerSlice } from './planner-slice';
 import type { TemperatureSlice } from './temperature-slice';
 import type { ViewSlice } from './view-slice';
 
 /** The whole store: inputs only. Results are derived from them with kernel calls. */
-export type SekundoState = TemperatureSlice & ViewSlice & PlannerSlice;
+export type SekundoState = TemperatureSlice & ViewSlice & PlannerSlice & ConverterSlice;

@@ -1,0 +1,100 @@
+/**
+ * Words for the candidates: what each flag means, why the chosen one was chosen and why each other
+ * one was not. Pure; the kernel decides, this only says it.
+ */
+import {
+  type Choice,
+  type ChoiceRule,
+  chooseCandidate,
+  PhysicsError,
+  SECOND_SOUND_EXTREMA,
+  type TemperatureCandidate,
+  temperatureFromVapourPressure,
+} from '../../physics';
+import { formatSignificant } from '../format/format-number';
+import { sentence } from './converter-checks';
+
+/** A flag shown on a candidate, with the sentence that explains it. */
+export interface CandidateFlag {
+  key: 'extremum' | 'insensitive' | 'landau' | 'critical';
+  label: string;
+  explanation: string;
+}
+
+const BRANCH_WORDS: Readonly<Record<TemperatureCandidate['branch'], string>> = {
+  low: 'low (u₂ falls with T)',
+  middle: 'middle (u₂ rises with T)',
+  high: 'high (u₂ falls with T)',
+};
+
+export function branchWords(branch: TemperatureCandidate['branch']): string {
+  return BRANCH_WORDS[branch];
+}
+
+/** The flags of a candidate, each explained. */
+export function candidateFlags(c: TemperatureCandidate): CandidateFlag[] {
+  const flags: CandidateFlag[] = [];
+  if (c.kind === 'extremum') {
+    const which = Math.abs(c.temperature_K - SECOND_SOUND_EXTREMA.maximum.temperature_K) < Math.abs(c.temperature_K - SECOND_SOUND_EXTREMA.minimum.temperature_K) ? 'maximum' : 'minimum';
+    const u = SECOND_SOUND_EXTREMA[which].speed_m_s;
+    flags.push({
+      key: 'extremum',
+      label: `u₂ ${which}`,
+      explanation: `The speed lies just ${which === 'maximum' ? 'above' : 'below'} the u₂ ${which} (${formatSignificant(u)} m/s), within two sd: no temperature has exactly this speed, but the ${which} itself is consistent with it.`,
+    });
+  }
+  if (c.insensitive) {
+    flags.push({
+      key: 'insensitive',
+      label: 'insensitive here',
+      explanation: `u₂ barely changes with T here (du₂/dT = ${formatSignificant(c.slope_m_s_K, 2)} m/s/K), so the delay pins the temperature poorly; the sd is the second-order bound.`,
+    });
+  }
+  if (c.region === 'Landau model') flags.push({ key: 'landau', label: 'Landau model', explanation: 'Below 0.55 K u₂ comes from the Landau model, not from measurements.' });
+  if (c.region === 'critical scaling') flags.push({ key: 'critical', label: 'critical scaling', explanation: 'In the last 5 µK below Tλ u₂ comes from critical scaling.' });
+  return flags;
+}
+
+/** The choice the rule makes, or why it could not be applied. */
+export function applyRule(candidates: readonly TemperatureCandidate[], rule: ChoiceRule | null): Choice & { problem: string | null } {
+  if (rule === null) return { index: null, reason: 'no way of choosing is set', problem: null };
+  try {
+    return { ...chooseCandidate(candidates, rule), problem: null };
+  } catch (error) {
+    if (error instanceof PhysicsError) return { index: null, reason: 'the rule cannot be applied', problem: sentence(error.message) };
+    throw error;
+  }
+}
+
+/** Temperature the rule points at (vapour pressure → ITS-90 T, expected T), for the notes and the chart. */
+export function ruleTemperature(rule: ChoiceRule | null): number | null {
+  if (rule === null || rule.kind === 'range') return null;
+  if (rule.kind === 'near') return rule.temperature_K;
+  try {
+    return temperatureFromVapourPressure(rule.pressure_Pa).temperature_K;
+  } catch {
+    return null;
+  }
+}
+
+/** Why candidate `i` was or was not chosen, in a few words. */
+export function choiceNote(candidates: readonly TemperatureCandidate[], i: number, rule: ChoiceRule | null, choice: Choice): string {
+  const c = candidates[i];
+  if (!c) return '';
+  if (choice.index === i) return `Chosen: ${choice.reason}.`;
+  if (rule === null) return candidates.length === 1 ? 'The only candidate.' : 'Not chosen: no way of choosing is set.';
+  if (rule.kind === 'range') {
+    const inside = c.temperature_K >= rule.min_K && c.temperature_K <= rule.max_K;
+    return inside ? `Inside the range, but ${choice.reason}: the range does not decide.` : `Outside ${kelvin(rule.min_K)}–${kelvin(rule.max_K)}.`;
+  }
+  const target = ruleTemperature(rule);
+  if (target === null) return 'Not chosen.';
+  const dT_mK = (c.temperature_K - target) * 1e3;
+  const source = rule.kind === 'pressure' ? 'the vapour-pressure temperature' : 'the expected temperature';
+  const sigmas = c.sd_K > 0 ? ` (${formatSignificant(Math.abs(c.temperature_K - target) / c.sd_K, 2)} sd)` : '';
+  return `${dT_mK >= 0 ? '+' : '−'}${formatSignificant(Math.abs(dT_mK), 3)} mK from ${source} ${kelvin(target)}${sigmas}.`;
+}
+
+function kelvin(T: number): string {
+  return `${T.toFixed(4)} K`;
+}

@@ -1,0 +1,237 @@
+/**
+ * Many trace files → a temperature series: the files in time order (a timestamp in their header,
+ * else their names in natural order), each file's picked delay converted to speed and candidates,
+ * and one candidate chosen per file: by that file's vapour pressure when its header gives one, by
+ * the start rule for the first file, then by continuity (the candidate nearest the one before).
+ * Pure functions; the CSV is plain text, never HTML.
+ */
+import { type CsvCell, writeCsv } from '../../io/csv-common';
+import { parseQuantity } from '../../io/quantity';
+import type { TracePick } from '../../io/trace-pick';
+import {
+  type ChoiceRule,
+  chooseAlongSeries,
+  convertDelay,
+  type DelayConversion,
+  PhysicsError,
+  PROPERTIES_RANGE_K,
+  type TemperatureCandidate,
+} from '../../physics';
+import { candidateFlags } from './candidate-notes';
+import { sentence } from './converter-checks';
+
+/** Header keys read as a timestamp (compared in lower case, without spaces, "_" or "-"). */
+const TIMESTAMP_KEYS: ReadonlySet<string> = new Set(['timestamp', 'time', 'date', 'datetime', 'acquired', 'acquisitiontime', 'triggertime', 'starttime', 'recorded']);
+
+export interface Timestamp {
+  text: string;
+  /** Milliseconds since the epoch (text dates), or the number given in seconds × 1000. */
+  ms: number;
+}
+
+/** The file's timestamp from its header ("Timestamp: 2026-11-03T14:02:11", "date = …"), or null. */
+export function timestampOf(fields: Readonly<Record<string, string>>): Timestamp | null {
+  for (const [key, value] of Object.entries(fields)) {
+    if (!TIMESTAMP_KEYS.has(key.toLowerCase().replace(/[\s_-]+/g, ''))) continue;
+    const text = value.trim();
+    const number = /^[+-]?\d+(?:\.\d+)?(?:[eE][+-]?\d+)?$/.test(text) ? Number(text) * 1000 : Number.NaN;
+    const ms = Number.isFinite(number) ? number : Date.parse(text);
+    if (Number.isFinite(ms)) return { text, ms };
+  }
+  return null;
+}
+
+/** The bath vapour pressure from the header ("pressure_Pa: 1638", "bath pressure = 16.38 mbar"), Pa, or null. */
+export function pressureOf(fields: Readonly<Record<string, string>>): number | null {
+  for (const [key, value] of Object.entries(fields)) {
+    const k = key.toLowerCase();
+    if (!k.includes('pressure')) continue;
+    const unit = /(?:^|[\s_([])(pa|kpa|mbar|torr)[)\]]?\s*$/.exec(k)?.[1];
+    const canonical = unit === 'pa' ? 'Pa' : unit === 'kpa' ? 'kPa' : unit;
+    const text = value.trim();
+    try {
+      return parseQuantity(/^[+-]?[\d.]+(?:[eE][+-]?\d+)?$/.test(text) && canonical ? `${text} ${canonical}` : text, 'pressure');
+    } catch {}
+  }
+  return null;
+}
+
+export interface SeriesFile {
+  id: string;
+  name: string;
+  fields: Readonly<Record<string, string>>;
+}
+
+/** Files in reading order: by header timestamp when every file has one, else by name (shot-2 before shot-10). */
+export function orderFiles<F extends SeriesFile>(files: readonly F[]): { files: F[]; by: 'timestamp' | 'name' } {
+  const stamps = files.map((f) => timestampOf(f.fields));
+  const byName = (a: F, b: F) => a.name.localeCompare(b.name, undefined, { numeric: true, sensitivity: 'base' });
+  if (files.length > 0 && stamps.every((s) => s !== null)) {
+    const order = files.map((f, i) => ({ f, ms: (stamps[i] as Timestamp).ms }));
+    order.sort((a, b) => a.ms - b.ms || byName(a.f, b.f));
+    return { files: order.map((o) => o.f), by: 'timestamp' };
+  }
+  return { files: [...files].sort(byName), by: 'name' };
+}
+
+/** Distance and timing settings shared by every file (SI). */
+export interface SeriesSettings {
+  distance_m: number;
+  distanceSd_m: number;
+  offset_s: number;
+  offsetSd_s: number;
+}
+
+export type ChosenBy = 'pressure' | 'vapour pressure in the file' | 'expected' | 'range' | 'only candidate' | 'continuity';
+
+export interface SeriesRow {
+  file: SeriesFile;
+  timestamp: Timestamp | null;
+  pressure_Pa: number | null;
+  pick: TracePick | null;
+  conversion: DelayConversion | null;
+  chosen: number | null;
+  chosenBy: ChosenBy | null;
+  /** Why the file has no temperature (pick or conversion failed), or null. */
+  problem: string | null;
+}
+
+const ONLY_CANDIDATE: ChoiceRule = { kind: 'range', min_K: 0, max_K: PROPERTIES_RANGE_K[1] };
+
+/**
+ * Converts each file's pick (null: not picked, with `problems[id]` saying why) and chooses a
+ * candidate per file along the series. `start` decides the first file of the series (and of each
+ * run after a file with its own vapour pressure resets it); null decides only single candidates.
+ */
+export function buildSeries(
+  files: readonly SeriesFile[],
+  picks: ReadonlyMap<string, TracePick>,
+  problems: ReadonlyMap<string, string>,
+  settings: SeriesSettings,
+  start: ChoiceRule | null,
+): SeriesRow[] {
+  const rows: SeriesRow[] = files.map((file) => {
+    const pick = picks.get(file.id) ?? null;
+    const row: SeriesRow = { file, timestamp: timestampOf(file.fields), pressure_Pa: pressureOf(file.fields), pick, conversion: null, chosen: null, chosenBy: null, problem: problems.get(file.id) ?? null };
+    if (!pick) {
+      row.problem ??= 'not picked yet';
+      return row;
+    }
+    try {
+      row.conversion = convertDelay({
+        distance_m: settings.distance_m,
+        delay_s: pick.delay_s,
+        distanceSd_m: settings.distanceSd_m,
+        delaySd_s: pick.delaySd_s,
+        offset_s: settings.offset_s,
+        offsetSd_s: settings.offsetSd_s,
+      });
+    } catch (error) {
+      if (!(error instanceof PhysicsError)) throw error;
+      row.problem = sentence(error.message);
+    }
+    return row;
+  });
+  let runStart = 0;
+  for (let i = 1; i <= rows.length; i++) {
+    if (i === rows.length || rows[i]?.pressure_Pa != null) {
+      chooseRun(rows.slice(runStart, i), start);
+      runStart = i;
+    }
+  }
+  return rows;
+}
+
+function chooseRun(run: SeriesRow[], start: ChoiceRule | null): void {
+  const head = run[0];
+  if (!head) return;
+  const own = head.pressure_Pa;
+  const rule: ChoiceRule = own != null ? { kind: 'pressure', pressure_Pa: own } : (start ?? ONLY_CANDIDATE);
+  const label: ChosenBy = own != null ? 'vapour pressure in the file' : start === null ? 'only candidate' : start.kind === 'near' ? 'expected' : start.kind;
+  let choices: { index: number | null }[];
+  try {
+    choices = chooseAlongSeries(
+      run.map((r) => r.conversion?.candidates ?? []),
+      rule,
+    );
+  } catch (error) {
+    if (!(error instanceof PhysicsError)) throw error;
+    head.problem = sentence(error.message);
+    return;
+  }
+  let decided = false;
+  run.forEach((row, k) => {
+    const index = choices[k]?.index ?? null;
+    row.chosen = index;
+    row.chosenBy = index === null ? null : decided ? 'continuity' : label;
+    if (index !== null) decided = true;
+  });
+}
+
+/** The chosen candidate of a row, or undefined. */
+export function chosenOf(row: Pick<SeriesRow, 'conversion' | 'chosen'>): TemperatureCandidate | undefined {
+  return row.chosen === null ? undefined : row.conversion?.candidates[row.chosen];
+}
+
+/** Notes for a candidate as one CSV word list: "extremum insensitive Landau-model". */
+export function noteWords(c: TemperatureCandidate): string {
+  return candidateFlags(c)
+    .map((f) => (f.key === 'extremum' ? 'extremum' : f.key === 'insensitive' ? 'insensitive' : f.key === 'landau' ? 'Landau-model' : 'critical-scaling'))
+    .join(' ');
+}
+
+const MAX_CANDIDATES = 3;
+
+/** The series as CSV (RFC 4180): one row per file in series order; numbers in full precision, SI units. */
+export function seriesCsv(rows: readonly SeriesRow[]): string {
+  const header = [
+    'order',
+    'file',
+    'timestamp',
+    'pressure_Pa',
+    'sensor',
+    'heater',
+    'picker',
+    'delay_s',
+    'delay_sd_s',
+    'snr',
+    'speed_m_s',
+    'speed_sd_m_s',
+    'candidates',
+    'chosen',
+    'chosen_by',
+    'T_K',
+    'T_sd_K',
+  ];
+  for (let i = 1; i <= MAX_CANDIDATES; i++) header.push(`T${i}_K`, `T${i}_sd_K`, `T${i}_branch`, `T${i}_note`);
+  header.push('problem');
+  const body = rows.map((r, k): CsvCell[] => {
+    const c = chosenOf(r);
+    const cells: CsvCell[] = [
+      k + 1,
+      r.file.name,
+      r.timestamp?.text ?? '',
+      r.pressure_Pa,
+      r.pick?.sensor ?? '',
+      r.pick?.heater ?? '',
+      r.pick?.picker ?? '',
+      r.pick?.delay_s,
+      r.pick?.delaySd_s,
+      r.pick?.snr,
+      r.conversion?.speed_m_s,
+      r.conversion?.speedSd_m_s,
+      r.conversion ? r.conversion.candidates.length : null,
+      r.chosen === null ? null : r.chosen + 1,
+      r.chosenBy ?? '',
+      c?.temperature_K,
+      c?.sd_K,
+    ];
+    for (let i = 0; i < MAX_CANDIDATES; i++) {
+      const x = r.conversion?.candidates[i];
+      cells.push(x?.temperature_K, x?.sd_K, x?.branch, x ? noteWords(x) : undefined);
+    }
+    cells.push(r.problem ?? '');
+    return cells;
+  });
+  return writeCsv(header, body);
+}

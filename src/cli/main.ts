@@ -8,6 +8,7 @@ import type { Command } from './command';
 import { arrivalsCommand } from './commands/arrivals';
 import { delayCommand } from './commands/delay';
 import { fitCommand } from './commands/fit';
+import { locateCommand } from './commands/locate';
 import { planCommand } from './commands/plan';
 import { propsCommand } from './commands/props';
 import { traceCommand } from './commands/trace';
@@ -18,7 +19,7 @@ import { type CliIo, processIo } from './io';
 import { packageVersion } from './version';
 
 /** Every command, in the order `sekundo --help` lists them. Add new commands here. */
-export const COMMANDS: readonly Command[] = [propsCommand, vapourCommand, arrivalsCommand, planCommand, delayCommand, traceCommand, fitCommand];
+export const COMMANDS: readonly Command[] = [propsCommand, vapourCommand, arrivalsCommand, planCommand, delayCommand, traceCommand, fitCommand, locateCommand];
 
 const PROGRAM = 'sekundo';
 const VERSION_FLAG = '--version';

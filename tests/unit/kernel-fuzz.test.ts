@@ -29,7 +29,9 @@ function assertAllFinite(value: unknown, path = 'result'): void {
     const view = value as unknown as ArrayLike<number>;
     for (let i = 0; i < view.length; i++) expect(Number.isFinite(view[i]), `${path}[${i}] = ${view[i]}`).toBe(true);
   } else if (Array.isArray(value)) {
-    value.forEach((v, i) => assertAllFinite(v, `${path}[${i}]`));
+    value.forEach((v, i) => {
+      assertAllFinite(v, `${path}[${i}]`);
+    });
   } else if (value && typeof value === 'object') {
     for (const [k, v] of Object.entries(value)) {
       if (typeof v !== 'function') assertAllFinite(v, `${path}.${k}`);

@@ -133,7 +133,7 @@ describe('preferences', () => {
     const store = memoryStore();
     savePreferences(store, { theme: 'dark', 'unit.length': 'mm' });
     expect(loadPreferences(store)).toEqual({ theme: 'dark', 'unit.length': 'mm' });
-    store.setItem('sekundo.prefs', '{"__proto__":{"polluted":"yes"},"theme":"light","n":5,"long":"' + 'x'.repeat(300) + '"}');
+    store.setItem('sekundo.prefs', `{"__proto__":{"polluted":"yes"},"theme":"light","n":5,"long":"${'x'.repeat(300)}"}`);
     const prefs = loadPreferences(store);
     expect(prefs).toEqual({ theme: 'light' });
     expect(({} as Record<string, unknown>).polluted).toBeUndefined();

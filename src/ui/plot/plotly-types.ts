@@ -96,6 +96,11 @@ export interface PlotAxis {
   tickvals?: readonly number[];
   ticktext?: readonly string[];
   nticks?: number;
+  /** Ties this axis's scale to another ("x"): equal lengths in both directions. */
+  scaleanchor?: string;
+  scaleratio?: number;
+  /** What gives way to keep the scale: the range or the axis domain. */
+  constrain?: 'range' | 'domain';
   exponentformat?: 'none' | 'e' | 'E' | 'power' | 'SI' | 'B';
 }
 

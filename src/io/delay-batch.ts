@@ -14,10 +14,12 @@
  *  Other columns are ignored.
  *
  * Choice of temperature per row: a row with a pressure takes the candidate nearest its ITS-90
- * vapour-pressure temperature; the rows after it follow by continuity (the kernel's
+ * vapour-pressure temperature; the rows after it follow by continuity (the rule of the kernel's
  * chooseAlongSeries: nearest to the previous choice) until the next row with a pressure. Before
- * the first pressure, a start rule decides (e.g. "near 1.8 K"); without one, the first row with a
- * single candidate starts the series. Rows nothing decides stay undecided (empty `chosen`).
+ * the first decided row, a start rule decides (e.g. "near 1.8 K"); without one, the first row with
+ * a single candidate starts the series. Rows nothing decides stay undecided (empty `chosen`).
+ * The choice is made row by row as results are stored in typed arrays, so the series is never
+ * held as objects (chooseAlongSeries would need every row's candidates at once).
  *
  * Output columns (one row per input row, in order; header always the same for the same input):
  *   line, [timestamp], <delay column as in the input, in its own unit>, distance_m, [pressure_Pa],
@@ -29,8 +31,9 @@
  *   the input has them. Numbers in full (shortest round-trip) precision.
  */
 import {
+  type Branch,
   type ChoiceRule,
-  chooseAlongSeries,
+  chooseCandidate,
   convertDelay,
   type DelayConversion,
   PhysicsError,
@@ -109,6 +112,45 @@ export interface DelayBatchSettings {
 
 export type ChosenBy = 'pressure' | 'near' | 'range' | 'only candidate' | 'continuity';
 
+/** Codes of the typed-array columns of {@link DelayBatchResults}. */
+export const BRANCH_CODES: readonly Branch[] = ['low', 'middle', 'high'];
+export const REGION_CODES: readonly TemperatureCandidate['region'][] = ['measured', 'Landau model', 'critical scaling'];
+export const KIND_CODES: readonly TemperatureCandidate['kind'][] = ['root', 'extremum'];
+export const CHOSEN_BY_CODES: readonly ChosenBy[] = ['pressure', 'near', 'range', 'only candidate', 'continuity'];
+/** Code of "none" in the Uint8Array code columns. */
+export const NO_CODE = 255;
+
+/**
+ * Results of a batch, column by column in typed arrays (numbers only, so a batch of any length
+ * costs no garbage collection and a Web Worker can transfer the buffers). Candidate k (0–2,
+ * coldest first) of row i sits at index 3i + k; NaN and {@link NO_CODE} where a row has fewer.
+ * {@link delayResultAt} gives one row as objects.
+ */
+export interface DelayBatchResults {
+  batch: DelayBatch;
+  count: number;
+  distance_m: Float64Array;
+  speed_m_s: Float64Array;
+  speedSd_m_s: Float64Array;
+  candidateCount: Uint8Array;
+  temperature_K: Float64Array;
+  sd_K: Float64Array;
+  slope_m_s_K: Float64Array;
+  /** Index into {@link BRANCH_CODES}. */
+  branch: Uint8Array;
+  /** Index into {@link REGION_CODES}. */
+  region: Uint8Array;
+  /** Index into {@link KIND_CODES}. */
+  kind: Uint8Array;
+  /** 1 where the candidate is insensitive (near an extremum of u2). */
+  insensitive: Uint8Array;
+  /** Index of the chosen candidate, or −1. */
+  chosen: Int8Array;
+  /** Index into {@link CHOSEN_BY_CODES}, or {@link NO_CODE}. */
+  chosenBy: Uint8Array;
+}
+
+/** One row of a batch as objects. */
 export interface DelayResult extends DelayConversion {
   row: DelayRow;
   distance_m: number;
@@ -121,81 +163,140 @@ export interface DelayResult extends DelayConversion {
 const ONLY_CANDIDATE: ChoiceRule = { kind: 'range', min_K: 0, max_K: PROPERTIES_RANGE_K[1] };
 
 /**
- * Converts every row (kernel convertDelay) and chooses temperatures as described above.
- * Throws {@link CsvInputError} naming the line for a row the kernel refuses (its message says
- * which quantity and range) or a row without any distance.
+ * Converts every row (kernel convertDelay) and chooses temperatures as described above, row by
+ * row: a row with a pressure by its pressure; after a decided row, by continuity (the rule of the
+ * kernel's chooseAlongSeries, nearest to the previous choice, applied as each row comes); before
+ * any, by the start rule. Throws {@link CsvInputError} naming the line for a row the kernel refuses
+ * (its message says which quantity and range) or a row without any distance.
  */
-export function convertDelayBatch(batch: DelayBatch, settings: DelayBatchSettings): DelayResult[] {
-  const conversions = batch.rows.map((row) => {
+export function convertDelayBatch(batch: DelayBatch, settings: DelayBatchSettings): DelayBatchResults {
+  const n = batch.rows.length;
+  const m = n * MAX_CANDIDATES;
+  const out: DelayBatchResults = {
+    batch,
+    count: n,
+    distance_m: new Float64Array(n),
+    speed_m_s: new Float64Array(n),
+    speedSd_m_s: new Float64Array(n),
+    candidateCount: new Uint8Array(n),
+    temperature_K: new Float64Array(m).fill(Number.NaN),
+    sd_K: new Float64Array(m).fill(Number.NaN),
+    slope_m_s_K: new Float64Array(m).fill(Number.NaN),
+    branch: new Uint8Array(m).fill(NO_CODE),
+    region: new Uint8Array(m).fill(NO_CODE),
+    kind: new Uint8Array(m).fill(NO_CODE),
+    insensitive: new Uint8Array(m),
+    chosen: new Int8Array(n).fill(-1),
+    chosenBy: new Uint8Array(n).fill(NO_CODE),
+  };
+  const start = settings.start ?? ONLY_CANDIDATE;
+  const startBy = CHOSEN_BY_CODES.indexOf(settings.start ? settings.start.kind : 'only candidate');
+  const reading = {
+    distance_m: 0,
+    delay_s: 0,
+    distanceSd_m: settings.distanceSd_m ?? 0,
+    delaySd_s: settings.delaySd_s ?? 0,
+    offset_s: settings.offset_s ?? 0,
+    offsetSd_s: settings.offsetSd_s ?? 0,
+  };
+  let previous: number | null = null;
+  for (let i = 0; i < n; i++) {
+    const row = batch.rows[i] as DelayRow;
     const distance_m = row.distance_m ?? settings.distance_m;
     if (distance_m === undefined) throw new CsvInputError('missing-column', 'no distance: give a default distance or a distance_m cell', row.line);
+    reading.distance_m = distance_m;
+    reading.delay_s = row.delay_s;
+    let rule: ChoiceRule;
+    let by: number;
+    if (row.pressure_Pa !== undefined) {
+      rule = { kind: 'pressure', pressure_Pa: row.pressure_Pa };
+      by = 0;
+    } else if (previous !== null) {
+      rule = { kind: 'near', temperature_K: previous };
+      by = 4;
+    } else {
+      rule = start;
+      by = startBy;
+    }
+    let candidates: TemperatureCandidate[];
+    let index: number | null;
     try {
-      const conversion = convertDelay({
-        distance_m,
-        delay_s: row.delay_s,
-        distanceSd_m: settings.distanceSd_m ?? 0,
-        delaySd_s: settings.delaySd_s ?? 0,
-        offset_s: settings.offset_s ?? 0,
-        offsetSd_s: settings.offsetSd_s ?? 0,
-      });
-      // Fields copied one by one: an object spread here costs several times the conversion.
-      const result: DelayResult = {
-        speed_m_s: conversion.speed_m_s,
-        speedSd_m_s: conversion.speedSd_m_s,
-        candidates: conversion.candidates,
-        row,
-        distance_m,
-        chosen: null,
-        chosenBy: null,
-      };
-      return result;
+      const conversion = convertDelay(reading);
+      candidates = conversion.candidates;
+      out.speed_m_s[i] = conversion.speed_m_s;
+      out.speedSd_m_s[i] = conversion.speedSd_m_s;
+      index = chooseCandidate(candidates, rule).index;
     } catch (error) {
       if (error instanceof PhysicsError) throw new CsvInputError('out-of-range', error.message, row.line);
       throw error;
     }
-  });
-  // Runs: each starts at a row with a pressure (or at the top), continuity inside.
-  let runStart = 0;
-  for (let i = 1; i <= conversions.length; i++) {
-    if (i === conversions.length || conversions[i]?.row.pressure_Pa !== undefined) {
-      chooseRun(conversions.slice(runStart, i), settings.start);
-      runStart = i;
+    out.distance_m[i] = distance_m;
+    const count = Math.min(candidates.length, MAX_CANDIDATES);
+    out.candidateCount[i] = count;
+    for (let k = 0; k < count; k++) {
+      const c = candidates[k] as TemperatureCandidate;
+      const j = i * MAX_CANDIDATES + k;
+      out.temperature_K[j] = c.temperature_K;
+      out.sd_K[j] = c.sd_K;
+      out.slope_m_s_K[j] = c.slope_m_s_K;
+      out.branch[j] = BRANCH_CODES.indexOf(c.branch);
+      out.region[j] = REGION_CODES.indexOf(c.region);
+      out.kind[j] = KIND_CODES.indexOf(c.kind);
+      out.insensitive[j] = c.insensitive ? 1 : 0;
+    }
+    if (index !== null && index < count) {
+      out.chosen[i] = index;
+      out.chosenBy[i] = by;
+      previous = (candidates[index] as TemperatureCandidate).temperature_K;
     }
   }
-  return conversions;
+  return out;
 }
 
-function chooseRun(run: DelayResult[], start: ChoiceRule | undefined): void {
-  const head = run[0];
-  if (!head) return;
-  const rule: ChoiceRule = head.row.pressure_Pa !== undefined ? { kind: 'pressure', pressure_Pa: head.row.pressure_Pa } : (start ?? ONLY_CANDIDATE);
-  const label: ChosenBy = rule === ONLY_CANDIDATE ? 'only candidate' : rule.kind;
-  let choices: ReturnType<typeof chooseAlongSeries>;
-  try {
-    choices = chooseAlongSeries(
-      run.map((r) => r.candidates),
-      rule,
-    );
-  } catch (error) {
-    if (error instanceof PhysicsError) throw new CsvInputError('out-of-range', error.message, head.row.line);
-    throw error;
+/** The candidates of row `i` as the kernel's objects, coldest first. */
+export function candidatesAt(results: DelayBatchResults, i: number): TemperatureCandidate[] {
+  const out: TemperatureCandidate[] = [];
+  for (let k = 0; k < (results.candidateCount[i] ?? 0); k++) {
+    const j = i * MAX_CANDIDATES + k;
+    out.push({
+      temperature_K: results.temperature_K[j] as number,
+      sd_K: results.sd_K[j] as number,
+      slope_m_s_K: results.slope_m_s_K[j] as number,
+      branch: BRANCH_CODES[results.branch[j] as number] as Branch,
+      insensitive: results.insensitive[j] === 1,
+      region: REGION_CODES[results.region[j] as number] as TemperatureCandidate['region'],
+      kind: KIND_CODES[results.kind[j] as number] as TemperatureCandidate['kind'],
+    });
   }
-  let decided = false;
-  run.forEach((result, k) => {
-    const index = choices[k]?.index ?? null;
-    result.chosen = index;
-    result.chosenBy = index === null ? null : decided ? 'continuity' : label;
-    if (index !== null) decided = true;
-  });
+  return out;
+}
+
+/** Row `i` of the results as objects. */
+export function delayResultAt(results: DelayBatchResults, i: number): DelayResult {
+  const chosen = results.chosen[i] as number;
+  return {
+    row: results.batch.rows[i] as DelayRow,
+    distance_m: results.distance_m[i] as number,
+    speed_m_s: results.speed_m_s[i] as number,
+    speedSd_m_s: results.speedSd_m_s[i] as number,
+    candidates: candidatesAt(results, i),
+    chosen: chosen < 0 ? null : chosen,
+    chosenBy: CHOSEN_BY_CODES[results.chosenBy[i] as number] ?? null,
+  };
+}
+
+/** Every row of the results as objects (for small batches; large ones read the columns). */
+export function delayResultList(results: DelayBatchResults): DelayResult[] {
+  return Array.from({ length: results.count }, (_, i) => delayResultAt(results, i));
 }
 
 /** Words for a candidate's note column. */
-function noteOf(c: TemperatureCandidate): string {
+function noteOf(extremum: boolean, insensitive: boolean, region: number): string {
   const words: string[] = [];
-  if (c.kind === 'extremum') words.push('extremum');
-  if (c.insensitive) words.push('insensitive');
-  if (c.region === 'Landau model') words.push('Landau-model');
-  if (c.region === 'critical scaling') words.push('critical-scaling');
+  if (extremum) words.push('extremum');
+  if (insensitive) words.push('insensitive');
+  if (REGION_CODES[region] === 'Landau model') words.push('Landau-model');
+  if (REGION_CODES[region] === 'critical scaling') words.push('critical-scaling');
   return words.join(' ');
 }
 
@@ -210,25 +311,35 @@ export function delayResultHeader(batch: Pick<DelayBatch, 'delayColumn' | 'hasTi
   return header;
 }
 
-/** One output row's cells, in the order of {@link delayResultHeader}. */
-export function delayResultCells(batch: Pick<DelayBatch, 'hasTimestamp' | 'hasPressure'>, r: DelayResult): CsvCell[] {
-  const cells: CsvCell[] = [r.row.line];
-  if (batch.hasTimestamp) cells.push(r.row.timestamp ?? '');
-  cells.push(r.row.delayAsWritten, r.distance_m);
-  if (batch.hasPressure) cells.push(r.row.pressure_Pa ?? null);
-  const chosen = r.chosen === null ? undefined : r.candidates[r.chosen];
-  cells.push(r.speed_m_s, r.speedSd_m_s, r.candidates.length, r.chosen === null ? null : r.chosen + 1, r.chosenBy ?? '', chosen?.temperature_K, chosen?.sd_K);
-  for (let i = 0; i < MAX_CANDIDATES; i++) {
-    const c = r.candidates[i];
-    cells.push(c?.temperature_K, c?.sd_K, c?.branch, c ? noteOf(c) : undefined);
+/** Row `i`'s cells, in the order of {@link delayResultHeader}. */
+export function delayResultCells(r: DelayBatchResults, i: number): CsvCell[] {
+  const row = r.batch.rows[i] as DelayRow;
+  const cells: CsvCell[] = [row.line];
+  if (r.batch.hasTimestamp) cells.push(row.timestamp ?? '');
+  cells.push(row.delayAsWritten, r.distance_m[i]);
+  if (r.batch.hasPressure) cells.push(row.pressure_Pa ?? null);
+  const chosen = r.chosen[i] as number;
+  const c = i * MAX_CANDIDATES + chosen;
+  const by = r.chosenBy[i] as number;
+  cells.push(r.speed_m_s[i], r.speedSd_m_s[i], r.candidateCount[i], chosen < 0 ? null : chosen + 1, CHOSEN_BY_CODES[by] ?? '');
+  cells.push(chosen < 0 ? null : r.temperature_K[c], chosen < 0 ? null : r.sd_K[c]);
+  for (let k = 0; k < MAX_CANDIDATES; k++) {
+    const j = i * MAX_CANDIDATES + k;
+    const present = k < (r.candidateCount[i] as number);
+    cells.push(
+      present ? r.temperature_K[j] : null,
+      present ? r.sd_K[j] : null,
+      present ? BRANCH_CODES[r.branch[j] as number] : null,
+      present ? noteOf(r.kind[j] === 1, r.insensitive[j] === 1, r.region[j] as number) : null,
+    );
   }
   return cells;
 }
 
 /** The results as CSV text (RFC 4180 quoting, LF line ends, a header row first). */
-export function delayResultsToCsv(batch: DelayBatch, results: readonly DelayResult[]): string {
+export function delayResultsToCsv(results: DelayBatchResults): string {
   return writeCsv(
-    delayResultHeader(batch),
-    results.map((r) => delayResultCells(batch, r)),
+    delayResultHeader(results.batch),
+    Array.from({ length: results.count }, (_, i) => delayResultCells(results, i)),
   );
 }

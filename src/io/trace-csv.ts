@@ -39,7 +39,6 @@ import {
   sniffEncoding,
   splitQuoted,
   type TextEncodingName,
-  toSi,
   unitOfColumn,
 } from './csv-common';
 
@@ -619,7 +618,11 @@ export class TraceCsvParser {
     this.columns = [];
     const time = columns[this.timeIndex] as Float64Array;
     const pow10 = this.timeUnit ? TIME_UNIT_POW10[this.timeUnit] : 0;
-    if (pow10 !== 0) for (let i = 0; i < n; i++) time[i] = toSi(time[i] as number, pow10);
+    if (pow10 !== 0) {
+      // As toSi: one correctly rounded division by an exact power of ten.
+      const divisor = 10 ** -pow10;
+      for (let i = 0; i < n; i++) time[i] = (time[i] as number) / divisor;
+    }
     const trace: TraceCsv = {
       time_s: time,
       channels: columns.flatMap((values, i) => (i === this.timeIndex ? [] : [{ name: this.names[i] as string, values }])),

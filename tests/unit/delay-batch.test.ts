@@ -7,9 +7,18 @@
 import Papa from 'papaparse';
 import { describe, expect, it } from 'vitest';
 import { CsvInputError, writeCsv } from '../../src/io/csv-common';
-import { convertDelayBatch, DEFAULT_DELAY_COLUMN, delayResultHeader, delayResultsToCsv, parseDelayCsv } from '../../src/io/delay-batch';
+import {
+  convertDelayBatch,
+  DEFAULT_DELAY_COLUMN,
+  type DelayBatch,
+  type DelayBatchSettings,
+  delayResultHeader,
+  delayResultList,
+  delayResultsToCsv,
+  parseDelayCsv,
+} from '../../src/io/delay-batch';
 import { parseFitCsv } from '../../src/io/fit-csv';
-import { fitDistances, temperatureFromVapourPressure } from '../../src/physics';
+import { convertDelay, fitDistances, temperatureFromVapourPressure } from '../../src/physics';
 
 const ITS90_1638_PA_K = 1.8; // ITS-90 helium-4 vapour pressure: 1638.2 Pa at 1.800 K (to 0.5 mK)
 
@@ -21,6 +30,11 @@ function errorOf(f: () => unknown): CsvInputError {
     throw error;
   }
   throw new Error('expected a CsvInputError');
+}
+
+/** The results of a batch, one object per row. */
+function convert(batch: DelayBatch, settings: DelayBatchSettings) {
+  return delayResultList(convertDelayBatch(batch, settings));
 }
 
 /** Reads CSV text back into rows of cells (papaparse, RFC 4180). */
@@ -89,7 +103,7 @@ describe('reading a delay batch', () => {
 describe('converting a batch and choosing temperatures', () => {
   it('speed d/t on every row, all candidates, pressure then continuity', () => {
     const batch = parseDelayCsv(BATCH);
-    const results = convertDelayBatch(batch, { distance_m: 0.05 });
+    const results = convert(batch, { distance_m: 0.05 });
     expect(results.map((r) => r.speed_m_s)).toEqual(batch.rows.map((r) => 0.05 / r.delay_s));
     // 20 m/s lies between the minimum (18.34) and maximum (20.37) of u2: three temperatures.
     expect(results[0]?.candidates.map((c) => c.branch)).toEqual(['low', 'middle', 'high']);
@@ -105,9 +119,19 @@ describe('converting a batch and choosing temperatures', () => {
     expect(results[3]?.chosen).toBe(0);
   });
 
+  it('keeps the results as typed-array columns: candidate k of row i at 3i + k, NaN where absent', () => {
+    const columns = convertDelayBatch(parseDelayCsv('delay_s\n0.0025\n0.0024\n'), { distance_m: 0.05 });
+    expect(columns.count).toBe(2);
+    expect(Array.from(columns.candidateCount)).toEqual([3, 1]);
+    expect(columns.temperature_K).toBeInstanceOf(Float64Array);
+    expect(Number.isNaN(columns.temperature_K[4])).toBe(true); // row 1 has one candidate
+    expect(Array.from(columns.chosen)).toEqual([-1, 0]);
+    expect(delayResultList(columns)[0]?.candidates).toEqual(convertDelay({ distance_m: 0.05, delay_s: 0.0025, distanceSd_m: 0, delaySd_s: 0, offset_s: 0, offsetSd_s: 0 }).candidates);
+  });
+
   it('a later pressure row starts a new run', () => {
     const batch = parseDelayCsv('delay_s,pressure_Pa\n0.0025,1638.2\n0.0025,\n0.0025,300\n0.0025,\n');
-    const results = convertDelayBatch(batch, { distance_m: 0.05 });
+    const results = convert(batch, { distance_m: 0.05 });
     expect(results.map((r) => r.chosenBy)).toEqual(['pressure', 'continuity', 'pressure', 'continuity']);
     // 300 Pa is about 1.4 K (ITS-90): the middle branch.
     expect(temperatureFromVapourPressure(300).temperature_K).toBeGreaterThan(1.35);
@@ -116,17 +140,17 @@ describe('converting a batch and choosing temperatures', () => {
 
   it('without a pressure: the start rule, else the first row with a single candidate', () => {
     const batch = parseDelayCsv('delay_s\n0.0025\n0.0025\n0.0024\n0.0025\n');
-    const plain = convertDelayBatch(batch, { distance_m: 0.05 });
+    const plain = convert(batch, { distance_m: 0.05 });
     expect(plain.map((r) => r.chosenBy)).toEqual([null, null, 'only candidate', 'continuity']);
     expect(plain.map((r) => r.chosen)).toEqual([null, null, 0, 0]);
-    const near = convertDelayBatch(batch, { distance_m: 0.05, start: { kind: 'near', temperature_K: 1.8 } });
+    const near = convert(batch, { distance_m: 0.05, start: { kind: 'near', temperature_K: 1.8 } });
     expect(near.map((r) => r.chosenBy)).toEqual(['near', 'continuity', 'continuity', 'continuity']);
     expect(near[0]?.chosen).toBe(2);
   });
 
   it('uses each row distance before the default and the sds for every row', () => {
     const batch = parseDelayCsv('delay_s,distance_m\n0.0025,0.04\n0.0025,\n');
-    const results = convertDelayBatch(batch, { distance_m: 0.05, distanceSd_m: 2e-5, delaySd_s: 1e-6 });
+    const results = convert(batch, { distance_m: 0.05, distanceSd_m: 2e-5, delaySd_s: 1e-6 });
     expect(results.map((r) => r.distance_m)).toEqual([0.04, 0.05]);
     const rel = Math.hypot(2e-5 / 0.05, 1e-6 / 0.0025);
     expect(results[1]?.speedSd_m_s).toBeCloseTo(20 * rel, 12);
@@ -134,17 +158,18 @@ describe('converting a batch and choosing temperatures', () => {
 
   it('refuses a row without any distance, and a row the kernel refuses, by line', () => {
     const noDistance = parseDelayCsv('delay_s,distance_m\n0.0025,0.05\n0.0025,\n');
-    expect(errorOf(() => convertDelayBatch(noDistance, {})).message).toBe('line 3: no distance: give a default distance or a distance_m cell');
+    expect(errorOf(() => convert(noDistance, {})).message).toBe('line 3: no distance: give a default distance or a distance_m cell');
     const tooFast = parseDelayCsv('delay_s\n0.0025\n1e-6\n');
-    const error = errorOf(() => convertDelayBatch(tooFast, { distance_m: 0.05 }));
+    const error = errorOf(() => convert(tooFast, { distance_m: 0.05 }));
     expect(error.message).toMatch(/^line 3: speed .* is outside the valid range/);
   });
 });
 
 describe('the results as CSV', () => {
   const batch = parseDelayCsv(BATCH);
-  const results = convertDelayBatch(batch, { distance_m: 0.05 });
-  const text = delayResultsToCsv(batch, results);
+  const columns = convertDelayBatch(batch, { distance_m: 0.05 });
+  const results = delayResultList(columns);
+  const text = delayResultsToCsv(columns);
   const rows = readBack(text);
 
   it('has a fixed header and one row per input row', () => {
@@ -173,7 +198,7 @@ describe('the results as CSV', () => {
 
   it('echoes a named delay column in its own unit', () => {
     const b = parseDelayCsv('delay_ms\n2.5\n', { column: 'delay_ms' });
-    const back = readBack(delayResultsToCsv(b, convertDelayBatch(b, { distance_m: 0.05 })));
+    const back = readBack(delayResultsToCsv(convertDelayBatch(b, { distance_m: 0.05 })));
     expect(back[0]?.slice(0, 4)).toEqual(['line', 'delay_ms', 'distance_m', 'speed_m_s']);
     expect(back[1]?.slice(0, 4)).toEqual(['2', '2.5', '0.05', '20']);
   });

@@ -148,7 +148,7 @@ function runBatch(args: Parameters<Command['run']>[0], path: string, io: Paramet
   if (missing) throw new UsageError(`delay file "${path}", line ${missing.line}: no distance_m on this row; give --distance, e.g. --distance 50mm`);
   const settings = { ...sds, ...(distance_m === undefined ? {} : { distance_m }), ...(start ? { start } : {}) };
   const results = fromFile('delay file', path, () => convertDelayBatch(batch, settings));
-  io.stdout(delayResultsToCsv(batch, results));
+  io.stdout(delayResultsToCsv(results));
   return EXIT_OK;
 }
 

@@ -34,8 +34,8 @@ export function renderGeneralHelp(commands: readonly Command[], version: string)
     '  e.g. 1.8K, "1.8 K", 1800mK, 1.6e3Pa, 16.38mbar, 1atm, 50mm, 100us, 1W/cm2, "0.5 W/cm²";',
     '  flags as --flag value or --flag=value.',
     '',
-    'Output is a table, or one JSON object with --json. Bad input prints one line on stderr and',
-    'exits with status 2; an internal error exits with status 1.',
+    'Output is a table, or one JSON object with --json ("delay --input" writes CSV). Bad input',
+    'prints one line on stderr and exits with status 2; an internal error exits with status 1.',
     '',
   ].join('\n');
 }

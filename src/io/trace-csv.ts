@@ -28,6 +28,10 @@
  *  - Header lines of the form "key: value", "key = value" or "key<delimiter>value" are kept as
  *    metadata fields; all header lines are kept as they were.
  *  - Size limit: {@link TRACE_CSV_SIZE_LIMIT_BYTES} (512 MiB); larger inputs are refused.
+ *
+ * In a Web Worker: `parseTraceCsvBlob(file, { signal, onProgress: (p) => postMessage(p) })`, or
+ * drive a {@link TraceCsvParser} by hand with `feed(chunk)` per chunk of `file.stream()`; post the
+ * result back with its Float64Array buffers in the transfer list, so nothing is copied.
  */
 import { heaterOnset, type Trace } from '../physics';
 import {

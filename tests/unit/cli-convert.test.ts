@@ -249,6 +249,12 @@ describe('sekundo trace on synthetic traces (SNR 20)', () => {
     expect(json.chosen).toBeNull();
   });
 
+  it('warns in the table when the pick has a low SNR (a window without the pulse)', async () => {
+    const { status, stdout } = await run('trace', file('shot-empty.csv', traceCsv(9)), '--heater-column', 'heater', '--picker', 'peak', '--to', '1ms');
+    expect(status).toBe(0);
+    expect(stdout).toMatch(/Warning: SNR [\d.]+ is low: the pick may be noise/);
+  });
+
   it('--pressure chooses among the candidates; the table says which', async () => {
     const { status, stdout } = await run('trace', file('shot-table.csv', traceCsv(8)), '--distance', '50mm', '--heater-column', 'heater', '--pressure', '1638.2Pa');
     expect(status).toBe(0);

@@ -35,6 +35,9 @@ import {
 } from './convert-shared';
 import { JSON_FLAG, writeJson } from './shared';
 
+/** Below this peak/noise ratio the table warns that the pick may be noise. */
+const LOW_SNR = 5;
+
 /** The picker used when --picker is absent: the leading edge at half height. */
 export const DEFAULT_PICKER: PickerKind = 'fraction';
 
@@ -262,6 +265,7 @@ export function renderTrace(r: TraceJson): string[] {
   ];
   if (r.speed_m_s !== null && r.speedSd_m_s !== null) rows.push(['Speed', `${formatSignificant(r.speed_m_s)} ± ${formatSignificant(r.speedSd_m_s, 2)} m/s`]);
   const lines = alignTable(rows, ['left', 'left']);
+  if (r.snr < LOW_SNR) lines.push('', `Warning: SNR ${formatSignificant(r.snr, 3)} is low: the pick may be noise, not the pulse (check the channel and --from/--to).`);
   if (r.distance_m === null) return [...lines, '', 'Give --distance to convert the delay into speed and temperatures.'];
   const chosen = r.chosen === null ? null : r.candidates[r.chosen];
   return [

@@ -15,7 +15,7 @@ import { JSON_FLAG, writeJson } from './shared';
 const FILE_OPERAND: OperandSpec = {
   name: 'file',
   placeholder: 'FILE',
-  help: 'a CSV with columns distance_m, delay_s and optionally delay_sd_s ("-" reads standard input)',
+  help: 'a CSV with columns distance_m, delay_s and optionally delay_sd_s',
 };
 
 /** The JSON printed by `fit`. */

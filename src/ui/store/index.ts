@@ -1,4 +1,5 @@
 export { useHeliumProperties } from './derived';
+export type { LocateOrigin, LocateSlice } from './locate-slice';
 export type { PlannerSlice, PlannerSource, TimelineView } from './planner-slice';
 export { resetSekundoStore, useSekundoStore } from './sekundo-store';
 export type { SekundoState } from './state';

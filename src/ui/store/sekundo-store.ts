@@ -1,5 +1,6 @@
 import { create } from 'zustand';
 import { createConverterSlice } from '../converter/converter-slice';
+import { createLocateSlice } from './locate-slice';
 import { createPlannerSlice } from './planner-slice';
 import type { SekundoState } from './state';
 import { createTemperatureSlice } from './temperature-slice';
@@ -11,6 +12,7 @@ export const useSekundoStore = create<SekundoState>()((...args) => ({
   ...createViewSlice(...args),
   ...createPlannerSlice(...args),
   ...createConverterSlice(...args),
+  ...createLocateSlice(...args),
 }));
 
 /** Puts every slice back to its initial state (tests, "start over"). */

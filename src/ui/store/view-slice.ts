@@ -2,7 +2,7 @@ import type { StateCreator } from 'zustand';
 import type { SekundoState } from './state';
 
 /** The page's views (tabs). */
-export type ViewId = 'explorer' | 'planner' | 'converter';
+export type ViewId = 'explorer' | 'planner' | 'converter' | 'locate';
 
 /** How the page is shown (no physics here). */
 export interface ViewSlice {

@@ -1,0 +1,161 @@
+import type { StateCreator } from 'zustand';
+import { LOCATE_MAX_SENSORS, type LocateSensor } from '../../io/locate-csv';
+import {
+  DEFAULT_LOCATE_DISPLAY,
+  DEFAULT_LOCATE_OPTIONS,
+  type LocateDisplay,
+  type LocateEdit,
+  type LocateInputs,
+  type LocateOptionsInput,
+  type LocateRowInput,
+} from '../locate/locate-inputs';
+import type { SekundoState } from './state';
+
+/** Where the sensors on screen came from. */
+export interface LocateOrigin {
+  kind: 'demo' | 'built-in' | 'file';
+  /** File name, or the demo's name. */
+  name: string;
+  /** What to tell the user about it (e.g. why the demo did not load); null for nothing. */
+  note: string | null;
+}
+
+/** A change made from a field's text: the inputs it gives, or why it is refused. */
+export type LocateTextEdit = (inputs: LocateInputs, text: string) => LocateEdit;
+
+/**
+ * The source-location view's inputs: sensor rows and fit options (always values the fields
+ * accepted), how results are shown, and the text of fields being typed or refused. Results are
+ * derived from these with the kernel (src/ui/locate/derive-locate.ts), never stored.
+ */
+export interface LocateSlice {
+  locateRows: readonly LocateRowInput[];
+  locateOptions: LocateOptionsInput;
+  locateDisplay: LocateDisplay;
+  /** 'idle' until the view first opens, 'loading' while the demo is fetched, then 'ready'. */
+  locateStatus: 'idle' | 'loading' | 'ready';
+  locateOrigin: LocateOrigin;
+  /** Text typed into fields, by field key, until the field is left with a good value. */
+  locateDrafts: Readonly<Record<string, string>>;
+  /** Why a field's text (or a file, or an action) was refused, by key; the inputs keep their last good value. */
+  locateErrors: Readonly<Record<string, string>>;
+  beginLocateLoad: () => void;
+  /** Replaces every sensor (demo, file); clears drafts and messages. Options are kept unless given. */
+  loadLocateSensors: (sensors: readonly LocateSensor[], origin: LocateOrigin, options?: Partial<LocateOptionsInput>) => void;
+  /** Text typed into a field: kept as the draft; applied when good, otherwise refused with a message. */
+  typeLocateField: (key: string, text: string, edit: LocateTextEdit) => void;
+  /** Leaving a field: a good draft gives way to the value; a refused one stays with its message. */
+  leaveLocateField: (key: string) => void;
+  /** Drops a field's draft and message (Escape): the field shows the value in effect again. */
+  discardLocateDraft: (key: string) => void;
+  /** A change from a control (checkbox, select, button); a refusal is shown under `key`. */
+  changeLocate: (key: string, change: (inputs: LocateInputs) => LocateEdit | LocateInputs) => void;
+  addLocateSensor: () => void;
+  removeLocateSensor: (key: string) => void;
+  /** A message under `key` that no edit caused (a file that could not be read). */
+  refuseLocate: (key: string, message: string) => void;
+  clearLocateMessage: (key: string) => void;
+  setLocateDisplay: (change: Partial<LocateDisplay>) => void;
+}
+
+/** Store key of messages about adding and removing rows. */
+export const LOCATE_ROWS_KEY = 'rows';
+
+let keyCounter = 0;
+function newKey(): string {
+  keyCounter += 1;
+  return `s${keyCounter}`;
+}
+
+function without(record: Readonly<Record<string, string>>, key: string): Record<string, string> {
+  if (!(key in record)) return record as Record<string, string>;
+  const copy = { ...record };
+  delete copy[key];
+  return copy;
+}
+
+function withoutPrefix(record: Readonly<Record<string, string>>, prefix: string): Record<string, string> {
+  return Object.fromEntries(Object.entries(record).filter(([key]) => !key.startsWith(prefix)));
+}
+
+/** A label not yet used: S1, S2, … */
+function freeLabel(rows: readonly LocateRowInput[]): string {
+  const used = new Set(rows.map((r) => r.label));
+  for (let n = rows.length + 1; ; n++) if (!used.has(`S${n}`)) return `S${n}`;
+}
+
+export const createLocateSlice: StateCreator<SekundoState, [], [], LocateSlice> = (set, get) => {
+  const inputs = (): LocateInputs => ({ rows: get().locateRows, options: get().locateOptions });
+  const refuse = (key: string, message: string): void => set({ locateErrors: { ...get().locateErrors, [key]: message } });
+
+  return {
+    locateRows: [],
+    locateOptions: DEFAULT_LOCATE_OPTIONS,
+    locateDisplay: DEFAULT_LOCATE_DISPLAY,
+    locateStatus: 'idle',
+    locateOrigin: { kind: 'built-in', name: 'built-in layout', note: null },
+    locateDrafts: {},
+    locateErrors: {},
+
+    beginLocateLoad: () => set({ locateStatus: 'loading' }),
+
+    loadLocateSensors: (sensors, origin, options) =>
+      set({
+        locateRows: sensors.map((s) => ({ ...s, key: newKey() })),
+        locateOrigin: origin,
+        locateOptions: options ? { ...get().locateOptions, ...options } : get().locateOptions,
+        locateStatus: 'ready',
+        locateDrafts: {},
+        locateErrors: {},
+      }),
+
+    typeLocateField: (key, text, edit) => {
+      set({ locateDrafts: { ...get().locateDrafts, [key]: text } });
+      const result = edit(inputs(), text);
+      if (result.ok) set({ locateRows: result.inputs.rows, locateOptions: result.inputs.options, locateErrors: without(get().locateErrors, key) });
+      else refuse(key, result.message);
+    },
+
+    leaveLocateField: (key) => {
+      const { locateErrors, locateDrafts } = get();
+      if (key in locateErrors || !(key in locateDrafts)) return;
+      set({ locateDrafts: without(locateDrafts, key) });
+    },
+
+    discardLocateDraft: (key) => set({ locateDrafts: without(get().locateDrafts, key), locateErrors: without(get().locateErrors, key) }),
+
+    changeLocate: (key, change) => {
+      const result = change(inputs());
+      const edit: LocateEdit = 'ok' in result ? result : { ok: true, inputs: result };
+      if (edit.ok) set({ locateRows: edit.inputs.rows, locateOptions: edit.inputs.options, locateErrors: without(get().locateErrors, key) });
+      else refuse(key, edit.message);
+    },
+
+    addLocateSensor: () => {
+      const rows = get().locateRows;
+      if (rows.length >= LOCATE_MAX_SENSORS) return refuse(LOCATE_ROWS_KEY, `At most ${LOCATE_MAX_SENSORS} sensors.`);
+      const last = rows.at(-1);
+      const row: LocateRowInput = {
+        key: newKey(),
+        label: freeLabel(rows),
+        position_m: last ? [last.position_m[0], last.position_m[1], last.position_m[2]] : [0, 0, 0],
+        arrival_s: null,
+        arrivalSd_s: null,
+      };
+      set({ locateRows: [...rows, row], locateErrors: without(get().locateErrors, LOCATE_ROWS_KEY) });
+    },
+
+    removeLocateSensor: (key) => {
+      const { locateRows, locateDrafts, locateErrors } = get();
+      set({
+        locateRows: locateRows.filter((r) => r.key !== key),
+        locateDrafts: withoutPrefix(locateDrafts, `row.${key}.`),
+        locateErrors: withoutPrefix(without(locateErrors, LOCATE_ROWS_KEY), `row.${key}.`),
+      });
+    },
+
+    refuseLocate: refuse,
+    clearLocateMessage: (key) => set({ locateErrors: without(get().locateErrors, key) }),
+    setLocateDisplay: (change) => set({ locateDisplay: { ...get().locateDisplay, ...change } }),
+  };
+};

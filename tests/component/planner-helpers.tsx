@@ -29,14 +29,17 @@ export function serveDemo(answer: 'demo' | 'missing' | 'offline' = 'demo') {
 
 export const store = () => useSekundoStore.getState();
 
-/** Renders the page, opens the planner tab and waits until the plan and its timeline are shown. */
-export async function openPlanner(answer: 'demo' | 'missing' | 'offline' = 'demo') {
+/**
+ * Renders the page, opens the planner tab and waits until the plan and (unless told not to, for
+ * tests that load the page's modules afresh) its timeline are shown.
+ */
+export async function openPlanner(answer: 'demo' | 'missing' | 'offline' = 'demo', waitForTimeline = true) {
   const fetchMock = serveDemo(answer);
   const user = userEvent.setup();
   const view = render(<App />);
   await user.click(screen.getByRole('tab', { name: 'Plan a measurement' }));
   await screen.findByRole('region', { name: 'Bath' });
-  await waitFor(() => expect(lastDraw('planner-timeline')).toBeDefined());
+  if (waitForTimeline) await waitFor(() => expect(lastDraw('planner-timeline')).toBeDefined());
   return { user, view, fetchMock };
 }
 

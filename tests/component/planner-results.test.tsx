@@ -5,7 +5,7 @@ import { formatSignificant } from '../../src/ui/format/format-number';
 import { inUnit, LADDERS, unitForColumn } from '../../src/ui/planner/display-units';
 import { demoPlan, openPlanner, store } from './planner-helpers';
 
-describe('planner results for the demo plan', () => {
+describe('planner results for the demo plan', { timeout: 20_000 }, () => {
   it('opens the demo plan by default', async () => {
     const { fetchMock } = await openPlanner();
     expect(fetchMock).toHaveBeenCalledWith('./demo-plan.json');

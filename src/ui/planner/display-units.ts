@@ -97,13 +97,17 @@ export function inUnit(value: number, unit: DisplayUnit): number {
 /** A value with its unit for a message: "10 ns", "0 mm", "−100 m" (up to six digits). */
 export function messageText(value: number, ladder: Ladder, zero?: DisplayUnit): string {
   const unit = unitFor(value, ladder, zero);
-  return `${plainNumber(fromBaseUnit(value, unit.unit)).replace('-', '\u2212')} ${unit.shown}`;
+  const inUnit = fromBaseUnit(value, unit.unit);
+  // Far below the smallest unit on the ladder: the SI number with its exponent ("1e-15 V").
+  const [number, shown] = value !== 0 && Math.abs(inUnit) < 1e-3 ? [plainNumber(value), (ladder[0] as DisplayUnit).shown] : [plainNumber(inUnit), unit.shown];
+  return `${number.replace(/^-/, '\u2212')} ${shown}`;
 }
 
 /** "10 ns–10 s", "0–10 mm", "from −100 m to 100 m": a closed range in readable units. */
 export function rangeText(min: number, max: number, ladder: Ladder, zero?: DisplayUnit): string {
-  const a = messageText(min, ladder, zero);
   const b = messageText(max, ladder, zero);
+  // A range from zero reads best in the unit of its top: "0–20 ms".
+  const a = min === 0 && max > 0 ? `0 ${splitUnit(b)[1]}` : messageText(min, ladder, zero);
   if (min < 0) return `from ${a} to ${b}`;
   const [aNumber, aUnit] = splitUnit(a);
   const [bNumber, bUnit] = splitUnit(b);

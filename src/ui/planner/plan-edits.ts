@@ -100,7 +100,7 @@ export function setShape(plan: PlanFile, kind: ShapeKind): PlanFile {
         : [
             [0, 0],
             [rise, 1],
-            [width - rise, 1],
+            [Number((width - rise).toPrecision(12)), 1],
             [width, 0],
           ];
     return { ...plan, heater: { ...h, shape: { custom: points } } };

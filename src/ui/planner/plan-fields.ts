@@ -49,7 +49,7 @@ export function fieldRangeText(field: NumberField, plan: PlanFile): string {
   const text = field.kind
     ? rangeText(min, max, field.kind.ladder, field.kind.zero)
     : min < 0
-      ? `from ${plainNumber(min).replace('-', '\u2212')} to ${plainNumber(max)}`
+      ? `from ${plainNumber(min).replace(/^-/, '\u2212')} to ${plainNumber(max)}`
       : `${plainNumber(min)}–${plainNumber(max)}`;
   const whole = field.integer ? 'a whole number ' : '';
   return `${whole}${text}${field.rangeNote ? ` (${field.rangeNote})` : ''}`;

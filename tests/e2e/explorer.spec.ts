@@ -122,7 +122,7 @@ test.describe('property explorer', () => {
   test('keyboard users see where focus is', async ({ page }) => {
     await page.goto('/');
     await page.keyboard.press('Tab');
-    const skip = page.getByRole('link', { name: 'Skip to the explorer' });
+    const skip = page.getByRole('link', { name: 'Skip to the content' });
     await expect(skip).toBeFocused();
     const outline = await skip.evaluate((element) => getComputedStyle(element).outlineStyle);
     expect(outline).not.toBe('none');

@@ -10,32 +10,12 @@ import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import Papa from 'papaparse';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { CliIo } from '../../src/cli/io';
-import { main } from '../../src/cli/main';
 import { gaussian, seededRandom } from '../support/synthetic-trace';
+import { expectUsageError, run, runJson as runJsonAs } from '../support/cli-harness';
 
 const REPO_ROOT = fileURLToPath(new URL('../..', import.meta.url));
 
-interface Run {
-  status: number;
-  stdout: string;
-  stderr: string;
-}
 
-async function run(...argv: string[]): Promise<Run> {
-  let stdout = '';
-  let stderr = '';
-  const io: CliIo = {
-    stdout: (text) => {
-      stdout += text;
-    },
-    stderr: (text) => {
-      stderr += text;
-    },
-  };
-  const status = await main(argv, io);
-  return { status, stdout, stderr };
-}
 
 interface Candidate {
   temperature_K: number;
@@ -50,12 +30,7 @@ interface Json {
   chosen: number | null;
 }
 
-async function runJson(...argv: string[]): Promise<Json> {
-  const result = await run(...argv, '--json');
-  expect(result.stderr).toBe('');
-  expect(result.status).toBe(0);
-  return JSON.parse(result.stdout) as Json;
-}
+const runJson = (...argv: string[]) => runJsonAs<Json>(...argv);
 
 function num(json: Json, key: string): number {
   const value = json[key];
@@ -63,16 +38,6 @@ function num(json: Json, key: string): number {
   return value;
 }
 
-/** Bad input: status 2, nothing on stdout, exactly one line on stderr, no stack frame. */
-function expectUsageError(result: Run): string {
-  expect(result.status).toBe(2);
-  expect(result.stdout).toBe('');
-  const lines = result.stderr.split('\n').slice(0, -1);
-  expect(lines).toHaveLength(1);
-  expect(result.stderr).not.toMatch(/\bat .*\.(ts|js|mjs):\d+/);
-  expect(result.stderr.startsWith('sekundo: ')).toBe(true);
-  return lines[0] ?? '';
-}
 
 let dir = '';
 beforeAll(() => {

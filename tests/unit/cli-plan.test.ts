@@ -6,9 +6,8 @@ import { fileURLToPath } from 'node:url';
 import { parseFlags, type QuantityArg } from '../../src/cli/args';
 import { UsageError } from '../../src/cli/errors';
 import { computeFor, kernelCall } from '../../src/cli/kernel-call';
-import type { CliIo } from '../../src/cli/io';
-import { main } from '../../src/cli/main';
 import { heliumProperties, InvalidInputError } from '../../src/physics';
+import { expectUsageError, run, runJson as runJsonAs } from '../support/cli-harness';
 
 const REPO_ROOT = fileURLToPath(new URL('../..', import.meta.url));
 const DEMO_PATH = join(REPO_ROOT, 'public/demo-plan.json');
@@ -21,49 +20,13 @@ const PLANE_WAVE = 'PHYSICS notes §4, from the reference data: 1 W/cm² at 1.8 
 const IMAGES = 'method of images (PHYSICS notes §3): parallel plates at spacing d give echoes at (2k+1)d/u2, × R per bounce';
 const WALL = 'method of images: at a reflecting wall the incident and reflected pulses add, (1 + R)·δT';
 
-interface Run {
-  status: number;
-  stdout: string;
-  stderr: string;
-}
 
-/** Runs main() in-process and collects what it writes. */
-async function run(...argv: string[]): Promise<Run> {
-  let stdout = '';
-  let stderr = '';
-  const io: CliIo = {
-    stdout: (text) => {
-      stdout += text;
-    },
-    stderr: (text) => {
-      stderr += text;
-    },
-  };
-  const status = await main(argv, io);
-  return { status, stdout, stderr };
-}
 
 // biome-ignore lint/suspicious/noExplicitAny: JSON output is checked field by field below
 type Json = any;
 
-async function runJson(...argv: string[]): Promise<Json> {
-  const result = await run(...argv, '--json');
-  expect(result).toMatchObject({ status: 0, stderr: '' });
-  return JSON.parse(result.stdout);
-}
+const runJson = (...argv: string[]) => runJsonAs<Json>(...argv);
 
-/** Bad input: status 2, nothing on stdout, exactly one line on stderr, no stack frame. */
-function expectUsageError(result: Run): string {
-  expect(result.status).toBe(2);
-  expect(result.stdout).toBe('');
-  expect(result.stderr.endsWith('\n')).toBe(true);
-  const lines = result.stderr.split('\n').slice(0, -1);
-  expect(lines).toHaveLength(1);
-  expect(result.stderr).not.toMatch(/^\s*at /m);
-  expect(result.stderr).not.toMatch(/\bat .*\.(ts|js|mjs):\d+/);
-  expect(result.stderr.startsWith('sekundo: ')).toBe(true);
-  return lines[0] ?? '';
-}
 
 const ARRIVALS_1_8K_50MM = ['arrivals', '--temperature', '1.8K', '--distance', '50mm'];
 

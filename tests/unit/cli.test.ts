@@ -3,9 +3,10 @@ import { readdirSync, readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { type FlagSpec, parseFlags } from '../../src/cli/args';
-import type { CliIo } from '../../src/cli/io';
 import { COMMANDS, main } from '../../src/cli/main';
 import { heliumProperties } from '../../src/physics';
+import type { CliIo } from '../../src/cli/io';
+import { expectUsageError, type Run, run, runJson as runJsonAs } from '../support/cli-harness';
 
 const REPO_ROOT = fileURLToPath(new URL('../..', import.meta.url));
 const PACKAGE_VERSION: unknown = JSON.parse(readFileSync(join(REPO_ROOT, 'package.json'), 'utf8')).version;
@@ -34,33 +35,9 @@ const PROPS_FIELDS = [
   'model',
 ] as const;
 
-interface Run {
-  status: number;
-  stdout: string;
-  stderr: string;
-}
 
-/** Runs main() in-process and collects what it writes. */
-async function run(...argv: string[]): Promise<Run> {
-  let stdout = '';
-  let stderr = '';
-  const io: CliIo = {
-    stdout: (text) => {
-      stdout += text;
-    },
-    stderr: (text) => {
-      stderr += text;
-    },
-  };
-  const status = await main(argv, io);
-  return { status, stdout, stderr };
-}
 
-async function runJson(...argv: string[]): Promise<Record<string, unknown>> {
-  const result = await run(...argv, '--json');
-  expect(result).toMatchObject({ status: 0, stderr: '' });
-  return JSON.parse(result.stdout) as Record<string, unknown>;
-}
+const runJson = (...argv: string[]) => runJsonAs<Record<string, unknown>>(...argv);
 
 function numberField(object: Record<string, unknown>, key: string): number {
   const value = object[key];
@@ -68,18 +45,6 @@ function numberField(object: Record<string, unknown>, key: string): number {
   return value;
 }
 
-/** Bad input: status 2, nothing on stdout, exactly one line on stderr, no stack frame. */
-function expectUsageError(result: Run): string {
-  expect(result.status).toBe(2);
-  expect(result.stdout).toBe('');
-  expect(result.stderr.endsWith('\n')).toBe(true);
-  const lines = result.stderr.split('\n').slice(0, -1);
-  expect(lines).toHaveLength(1);
-  expect(result.stderr).not.toMatch(/^\s*at /m);
-  expect(result.stderr).not.toMatch(/\bat .*\.(ts|js|mjs):\d+/);
-  expect(result.stderr.startsWith('sekundo: ')).toBe(true);
-  return lines[0] ?? '';
-}
 
 /**
  * Reference values: [argv (before --json), field, expected, tolerance, source]. Each tolerance is

@@ -1,0 +1,46 @@
+import { expect } from 'vitest';
+import type { CliIo } from '../../src/cli/io';
+import { main } from '../../src/cli/main';
+
+/** What one in-process run of the command line wrote and returned. */
+export interface Run {
+  status: number;
+  stdout: string;
+  stderr: string;
+}
+
+/** Runs main() in-process and collects what it writes. */
+export async function run(...argv: string[]): Promise<Run> {
+  let stdout = '';
+  let stderr = '';
+  const io: CliIo = {
+    stdout: (text) => {
+      stdout += text;
+    },
+    stderr: (text) => {
+      stderr += text;
+    },
+  };
+  const status = await main(argv, io);
+  return { status, stdout, stderr };
+}
+
+/** Runs with --json, expects success, and returns the parsed object. */
+export async function runJson<T = Record<string, unknown>>(...argv: string[]): Promise<T> {
+  const result = await run(...argv, '--json');
+  expect(result).toMatchObject({ status: 0, stderr: '' });
+  return JSON.parse(result.stdout) as T;
+}
+
+/** Bad input: status 2, nothing on stdout, exactly one line on stderr, no stack frame. Returns the line. */
+export function expectUsageError(result: Run): string {
+  expect(result.status).toBe(2);
+  expect(result.stdout).toBe('');
+  expect(result.stderr.endsWith('\n')).toBe(true);
+  const lines = result.stderr.split('\n').slice(0, -1);
+  expect(lines).toHaveLength(1);
+  expect(result.stderr).not.toMatch(/^\s*at /m);
+  expect(result.stderr).not.toMatch(/\bat .*\.(ts|js|mjs):\d+/);
+  expect(result.stderr.startsWith('sekundo: ')).toBe(true);
+  return lines[0] ?? '';
+}

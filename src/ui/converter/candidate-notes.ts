@@ -11,7 +11,7 @@ import {
   type TemperatureCandidate,
   temperatureFromVapourPressure,
 } from '../../physics';
-import { formatSignificant } from '../format/format-number';
+import { formatFixed, formatSignificant } from '../format/format-number';
 import { sentence } from './converter-checks';
 
 /** A flag shown on a candidate, with the sentence that explains it. */
@@ -92,7 +92,7 @@ export function choiceNote(candidates: readonly TemperatureCandidate[], i: numbe
   const dT_mK = (c.temperature_K - target) * 1e3;
   const source = rule.kind === 'pressure' ? 'the vapour-pressure temperature' : 'the expected temperature';
   const sigmas = c.sd_K > 0 ? ` (${formatSignificant(Math.abs(c.temperature_K - target) / c.sd_K, 2)} sd)` : '';
-  return `${dT_mK >= 0 ? '+' : '−'}${formatSignificant(Math.abs(dT_mK), 3)} mK from ${source} ${kelvin(target)}${sigmas}.`;
+  return `${dT_mK >= 0 ? '+' : '−'}${formatFixed(Math.abs(dT_mK), 1)} mK from ${source} ${kelvin(target)}${sigmas}.`;
 }
 
 function kelvin(T: number): string {

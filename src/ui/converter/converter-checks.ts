@@ -3,6 +3,8 @@
  * impossible (an offset longer than the delay, a speed no second sound has) is refused with the
  * kernel's own message, and the last good value stays. Pure functions over SI values.
  */
+import { CsvInputError } from '../../io/csv-common';
+import { convertDelayBatch, type DelayBatch, type DelayBatchSettings } from '../../io/delay-batch';
 import { type ChoiceRule, convertDelay, type DelayConversion, PhysicsError } from '../../physics';
 import type { ConverterFieldKey } from './converter-fields';
 
@@ -40,15 +42,46 @@ export function convertReading(v: FieldValues): { ok: true; conversion: DelayCon
   }
 }
 
+/** What a new value is checked against besides its own range. */
+export interface CheckContext {
+  /** The single reading on screen: distance, delay and offset must give a speed. */
+  reading: boolean;
+  /** The batch loaded in batch mode: every row must still convert. */
+  batch: DelayBatch | null;
+  choice: ChoiceKind;
+}
+
+/** Settings of a batch conversion from the fields (SI) and the way of choosing. */
+export function batchSettingsOf(v: FieldValues, choice: ChoiceKind): DelayBatchSettings {
+  const start = choiceRuleOf(choice, v);
+  return {
+    ...(v.distance === null ? {} : { distance_m: v.distance }),
+    distanceSd_m: v.distanceSd ?? 0,
+    delaySd_s: v.delaySd ?? 0,
+    offset_s: v.offset ?? 0,
+    offsetSd_s: v.offsetSd ?? 0,
+    ...(start === null ? {} : { start }),
+  };
+}
+
 /**
- * Why a new value of `key` cannot be taken with the other values, or null if it can. Only the
- * single reading ties fields together (offset < delay, a speed second sound can have), and the
- * two ends of the temperature range and of the search window.
+ * Why a new value of `key` cannot be taken with the other values, or null if it can: the single
+ * reading on screen must still give a speed (offset < delay, a speed second sound can have), every
+ * row of a loaded batch must still convert, and the two ends of the temperature range and of the
+ * search window must be in order.
  */
-export function crossFieldProblem(key: ConverterFieldKey, next: FieldValues, checkReading: boolean): string | null {
-  if (checkReading && READING_FIELDS.includes(key)) {
+export function crossFieldProblem(key: ConverterFieldKey, next: FieldValues, context: CheckContext): string | null {
+  if (context.reading && READING_FIELDS.includes(key)) {
     const result = convertReading(next);
     if (!result.ok) return result.message;
+  }
+  if (context.batch && READING_FIELDS.includes(key) && key !== 'delay') {
+    try {
+      convertDelayBatch(context.batch, batchSettingsOf(next, context.choice));
+    } catch (error) {
+      if (error instanceof CsvInputError) return `With this value the batch cannot be converted: ${error.message}.`;
+      throw error;
+    }
   }
   if ((key === 'rangeMin' || key === 'rangeMax') && next.rangeMin !== null && next.rangeMax !== null && next.rangeMin > next.rangeMax) {
     return key === 'rangeMin' ? 'Range from must not be above Range to.' : 'Range to must not be below Range from.';

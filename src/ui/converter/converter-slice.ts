@@ -5,6 +5,7 @@ import type { PickerKind } from '../../physics';
 import type { SekundoState } from '../store/state';
 import { type ChoiceKind, crossFieldProblem, type FieldValues } from './converter-checks';
 import { type ConverterFieldKey, FIELD_SPECS, fieldText, readField } from './converter-fields';
+import { readDistanceRows } from './table-input';
 import type { TraceInfo } from './trace/trace-protocol';
 
 /*
@@ -78,7 +79,7 @@ export interface ConverterSlice {
   converterErrors: Readonly<Partial<Record<ConverterFieldKey, string>>>;
   converterChoice: ChoiceKind;
   converterDistanceRows: readonly DistanceRow[];
-  converterDistanceUnits: { distance: Unit; delay: Unit };
+  converterDistanceUnits: { distance: Unit; delay: Unit; sd: Unit };
   converterDistancePoints: DistancePoints | null;
   converterDistanceError: string | null;
   converterSweepText: string;
@@ -106,6 +107,8 @@ export interface ConverterSlice {
   editConverterField: (key: ConverterFieldKey, text: string) => void;
   /** Applies the field's text if it is valid alone and with the other fields; otherwise keeps the value and sets the message. */
   commitConverterField: (key: ConverterFieldKey) => void;
+  /** Drops a refused or unfinished entry (Escape): the field shows its good value again. */
+  discardConverterDraft: (key: ConverterFieldKey) => void;
   /** Changes the unit of a field: the value stays, the text is shown in the new unit. */
   setConverterFieldUnit: (key: ConverterFieldKey, unit: Unit) => void;
   /** Sets field values from a result ("use this path length"); each is checked like a typed one. */
@@ -116,7 +119,7 @@ export interface ConverterSlice {
   removeConverterDistanceRow: (key: string) => void;
   /** Replaces the table's rows from pasted lines (already split into cells). */
   setConverterDistanceRows: (rows: readonly { distance: string; delay: string; sd: string }[]) => void;
-  setConverterDistanceUnit: (column: 'distance' | 'delay', unit: Unit) => void;
+  setConverterDistanceUnit: (column: DistanceColumn, unit: Unit) => void;
   /** Sets the table's last good points, or refuses with a message (points unchanged). */
   commitConverterDistances: (result: { ok: true; points: DistancePoints } | { ok: false; message: string }) => void;
   editConverterSweep: (text: string) => void;
@@ -173,6 +176,9 @@ const EXAMPLE_DISTANCE_ROWS = [
   { distance: '50', delay: '2.66783', sd: '' },
 ];
 
+const EXAMPLE_DISTANCE_READ = readDistanceRows(EXAMPLE_DISTANCE_ROWS, { distance: 'mm', delay: 'ms', sd: 'µs' });
+const EXAMPLE_DISTANCE_POINTS: DistancePoints | null = EXAMPLE_DISTANCE_READ.ok ? EXAMPLE_DISTANCE_READ.value : null;
+
 function without<K extends string>(record: Readonly<Partial<Record<K, string>>>, key: K): Partial<Record<K, string>> {
   if (!(key in record)) return record;
   const copy = { ...record };
@@ -185,13 +191,17 @@ export const createConverterSlice: StateCreator<SekundoState, [], [], ConverterS
   const apply = (key: ConverterFieldKey, text: string, unit: Unit | ''): void => {
     const spec = FIELD_SPECS[key];
     const read = readField(spec, text, unit);
-    const { converterFields, converterErrors, converterMode, converterMethod } = get();
+    const { converterFields, converterErrors, converterMode, converterMethod, converterBatch, converterChoice } = get();
     if (!read.ok) {
       set({ converterErrors: { ...converterErrors, [key]: read.message } });
       return;
     }
     const next = { ...valuesOf(converterFields), [key]: read.value };
-    const problem = crossFieldProblem(key, next, converterMode === 'reading' && converterMethod === 'single');
+    const problem = crossFieldProblem(key, next, {
+      reading: converterMode === 'reading' && converterMethod === 'single',
+      batch: converterMode === 'batch' ? (converterBatch?.batch ?? null) : null,
+      choice: converterChoice,
+    });
     if (problem !== null) {
       set({ converterErrors: { ...converterErrors, [key]: problem } });
       return;
@@ -209,8 +219,8 @@ export const createConverterSlice: StateCreator<SekundoState, [], [], ConverterS
     converterErrors: {},
     converterChoice: 'none',
     converterDistanceRows: EXAMPLE_DISTANCE_ROWS.map((r) => ({ key: rowKey(), ...r })),
-    converterDistanceUnits: { distance: 'mm', delay: 'ms' },
-    converterDistancePoints: null,
+    converterDistanceUnits: { distance: 'mm', delay: 'ms', sd: 'µs' },
+    converterDistancePoints: EXAMPLE_DISTANCE_POINTS,
     converterDistanceError: null,
     converterSweepText: '',
     converterSweepUnit: 'ms',
@@ -239,6 +249,15 @@ export const createConverterSlice: StateCreator<SekundoState, [], [], ConverterS
     commitConverterField: (key) => {
       const field = get().converterFields[key];
       apply(key, field.text, field.unit);
+    },
+
+    discardConverterDraft: (key) => {
+      const { converterFields, converterErrors } = get();
+      const field = converterFields[key];
+      set({
+        converterFields: { ...converterFields, [key]: { ...field, text: fieldText(FIELD_SPECS[key], field.value, field.unit) } },
+        converterErrors: without(converterErrors, key),
+      });
     },
 
     setConverterFieldUnit: (key, unit) => {

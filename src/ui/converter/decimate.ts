@@ -30,9 +30,9 @@ export function lowerBound(a: ArrayLike<number>, value: number): number {
 /**
  * Decimates (x, y) to at most 2·columns points (+2 at the edges) over x in [from, to].
  * `x` must increase; `y` has the same length. Pure; allocates only the output.
- * `scale` multiplies x on output (e.g. 1e3 to draw seconds as milliseconds).
+ * On output x becomes (x − shift)·scale (e.g. shift = time zero, scale = 1e3 for milliseconds).
  */
-export function decimateMinMax(x: ArrayLike<number>, y: ArrayLike<number>, from: number, to: number, columns: number, scale = 1): DecimatedLine {
+export function decimateMinMax(x: ArrayLike<number>, y: ArrayLike<number>, from: number, to: number, columns: number, scale = 1, shift = 0): DecimatedLine {
   const out: DecimatedLine = { x: [], y: [] };
   const n = Math.min(x.length, y.length);
   if (n === 0 || !(to > from)) return out;
@@ -43,7 +43,7 @@ export function decimateMinMax(x: ArrayLike<number>, y: ArrayLike<number>, from:
   const first = Math.max(0, start - 1);
   const last = Math.min(n - 1, end);
   const push = (i: number) => {
-    out.x.push((x[i] as number) * scale);
+    out.x.push(((x[i] as number) - shift) * scale);
     out.y.push(y[i] as number);
   };
   if (end - start <= 2 * count) {

@@ -92,6 +92,8 @@ export interface SeriesRow {
   conversion: DelayConversion | null;
   chosen: number | null;
   chosenBy: ChosenBy | null;
+  /** The rule that decided this row: its own pressure, the start rule, or "near" the row before (continuity). */
+  rule: ChoiceRule | null;
   /** Why the file has no temperature (pick or conversion failed), or null. */
   problem: string | null;
 }
@@ -112,7 +114,7 @@ export function buildSeries(
 ): SeriesRow[] {
   const rows: SeriesRow[] = files.map((file) => {
     const pick = picks.get(file.id) ?? null;
-    const row: SeriesRow = { file, timestamp: timestampOf(file.fields), pressure_Pa: pressureOf(file.fields), pick, conversion: null, chosen: null, chosenBy: null, problem: problems.get(file.id) ?? null };
+    const row: SeriesRow = { file, timestamp: timestampOf(file.fields), pressure_Pa: pressureOf(file.fields), pick, conversion: null, chosen: null, chosenBy: null, rule: null, problem: problems.get(file.id) ?? null };
     if (!pick) {
       row.problem ??= 'not picked yet';
       return row;
@@ -159,12 +161,14 @@ function chooseRun(run: SeriesRow[], start: ChoiceRule | null): void {
     head.problem = sentence(error.message);
     return;
   }
-  let decided = false;
+  let previous: number | null = null;
   run.forEach((row, k) => {
     const index = choices[k]?.index ?? null;
+    row.rule = previous === null ? (own != null || start !== null ? rule : null) : { kind: 'near', temperature_K: previous };
     row.chosen = index;
-    row.chosenBy = index === null ? null : decided ? 'continuity' : label;
-    if (index !== null) decided = true;
+    row.chosenBy = index === null ? null : previous !== null ? 'continuity' : label;
+    const c = index === null ? undefined : row.conversion?.candidates[index];
+    if (c) previous = c.temperature_K;
   });
 }
 
@@ -182,8 +186,8 @@ export function noteWords(c: TemperatureCandidate): string {
 
 const MAX_CANDIDATES = 3;
 
-/** The series as CSV (RFC 4180): one row per file in series order; numbers in full precision, SI units. */
-export function seriesCsv(rows: readonly SeriesRow[]): string {
+/** The series as a table: one row per file in series order; numbers in full precision, SI units. */
+export function seriesTable(rows: readonly SeriesRow[]): { header: string[]; rows: CsvCell[][] } {
   const header = [
     'order',
     'file',
@@ -233,5 +237,11 @@ export function seriesCsv(rows: readonly SeriesRow[]): string {
     cells.push(r.problem ?? '');
     return cells;
   });
-  return writeCsv(header, body);
+  return { header, rows: body };
+}
+
+/** The series as CSV (RFC 4180, LF), see {@link seriesTable}. */
+export function seriesCsv(rows: readonly SeriesRow[]): string {
+  const table = seriesTable(rows);
+  return writeCsv(table.header, table.rows);
 }

@@ -1,0 +1,244 @@
+import { useId, useMemo, useState } from 'react';
+import { delayResultAt, delayResultsToCsv, delayResultCells, delayResultHeader, type DelayBatchResults } from '../../io/delay-batch';
+import { ChartFigure } from '../charts/ChartFigure';
+import { formatSignificant } from '../format/format-number';
+import { PanelErrorBoundary } from '../layout/PanelErrorBoundary';
+import { PlotlyChart } from '../plot/PlotlyChart';
+import { useSekundoStore } from '../store';
+import { formatKelvin } from '../temperature/temperature-units';
+import { BATCH_FILE_LIMIT_BYTES, batchFigure, batchMinutes, batchResults, exampleBatchText, readBatch } from './batch-results';
+import { ChoiceCard } from './ChoiceCard';
+import { valuesOf } from './converter-slice';
+import { formatSdMillikelvin, formatTemperature } from './CandidatesTable';
+import { DropZone } from './DropZone';
+import { exportName, tableTsv } from './export-text';
+import { ResultActions } from './ResultActions';
+import { SetupCard } from './SetupCard';
+import { useFieldValues } from './use-converter';
+
+/** Rows shown at a time in the results table. */
+const PAGE_ROWS = 100;
+
+/** Reads a dropped batch file into the store, or refuses it (the batch already loaded stays). */
+export async function loadBatchFile(file: Blob & { name: string }): Promise<void> {
+  const state = useSekundoStore.getState();
+  if (file.size > BATCH_FILE_LIMIT_BYTES) {
+    state.refuseConverterBatch(`${file.name} is ${Number((file.size / 1048576).toPrecision(3))} MiB, over the ${BATCH_FILE_LIMIT_BYTES / 1048576} MiB limit for batch files; split it into smaller files.`);
+    return;
+  }
+  const bytes = new Uint8Array(await file.arrayBuffer());
+  const now = useSekundoStore.getState();
+  const read = readBatch(file.name, bytes, valuesOf(now.converterFields), now.converterChoice);
+  if (read.ok) now.loadConverterBatch({ fileName: file.name, batch: read.batch });
+  else now.refuseConverterBatch(read.message);
+}
+
+/** A CSV of delays → a table of speeds and temperatures, a chart and a CSV to take away. */
+export function BatchMode() {
+  return (
+    <div className="converter-grid">
+      <div className="converter-inputs">
+        <PanelErrorBoundary panel="batch file">
+          <BatchFileCard />
+        </PanelErrorBoundary>
+        <SetupCard
+          title="Distance and timing"
+          pairs={['distance', 'delaySd', 'offset']}
+          lead="The distance for rows without their own distance cell; the delay sd and offset t₀ apply to every row."
+        />
+        <PanelErrorBoundary panel="choice of candidate">
+          <ChoiceCard series />
+        </PanelErrorBoundary>
+      </div>
+      <div className="converter-results">
+        <PanelErrorBoundary panel="batch results">
+          <BatchResults />
+        </PanelErrorBoundary>
+      </div>
+    </div>
+  );
+}
+
+function BatchFileCard() {
+  const headingId = useId();
+  const batch = useSekundoStore((s) => s.converterBatch);
+  const error = useSekundoStore((s) => s.converterBatchError);
+  const clear = useSekundoStore((s) => s.clearConverterBatch);
+  const onFiles = (files: File[]) => {
+    const file = files[0];
+    if (file) void loadBatchFile(file);
+  };
+  return (
+    <section className="card converter-card" aria-labelledby={headingId}>
+      <h2 id={headingId} className="card-title">
+        Batch of delays
+      </h2>
+      <p className="muted converter-card__lead">
+        A CSV with a header row and one delay per row: <code>delay_s</code> (or <code>delay_ms</code>, <code>delay_us</code>, …); optional{' '}
+        <code>distance_m</code> (or mm, …), <code>pressure_Pa</code> (or mbar, kPa) and <code>timestamp</code>. A row with a pressure chooses its
+        own temperature; the rows after it follow by continuity. Up to {BATCH_FILE_LIMIT_BYTES / 1048576} MiB.
+      </p>
+      <DropZone buttonLabel="Choose a CSV file" onFiles={onFiles}>
+        <div className="drop-zone__extra">
+          <button type="button" className="button button--small" onClick={() => void loadBatchFile(new File([exampleBatchText()], 'invented-cooldown.csv', { type: 'text/csv' }))}>
+            Load an invented example
+          </button>
+          {batch ? (
+            <button type="button" className="button button--small" onClick={clear}>
+              Clear
+            </button>
+          ) : null}
+        </div>
+      </DropZone>
+      {batch ? (
+        <p className="file-status" role="status">
+          Loaded <strong className="file-name">{batch.fileName}</strong>: {batch.batch.rows.length} rows, delays from “{batch.batch.delayColumn}”
+          {batch.batch.hasPressure ? ', with pressures' : ''}
+          {batch.batch.hasTimestamp ? ', with timestamps' : ''}.
+        </p>
+      ) : null}
+      {error ? (
+        <p className="field-error" role="alert">
+          {error} {batch ? 'The batch loaded before stays.' : ''}
+        </p>
+      ) : null}
+    </section>
+  );
+}
+
+function batchExport() {
+  const state = useSekundoStore.getState();
+  const input = state.converterBatch;
+  if (!input) return null;
+  const outcome = batchResults(input.batch, valuesOf(state.converterFields), state.converterChoice);
+  if (!outcome.ok) return null;
+  const r = outcome.results;
+  const header = delayResultHeader(r.batch);
+  const rows = Array.from({ length: r.count }, (_, i) => delayResultCells(r, i));
+  return { fileName: exportName(input.fileName, 'temperatures'), csv: delayResultsToCsv(r), tsv: tableTsv({ header, rows }) };
+}
+
+function BatchResults() {
+  const headingId = useId();
+  const input = useSekundoStore((s) => s.converterBatch);
+  const kind = useSekundoStore((s) => s.converterChoice);
+  const values = useFieldValues();
+  const outcome = useMemo(() => (input ? batchResults(input.batch, values, kind) : null), [input, values, kind]);
+  const minutes = useMemo(() => (input ? batchMinutes(input.batch) : null), [input]);
+  const figure = useMemo(() => (outcome?.ok ? batchFigure(outcome.results, minutes) : null), [outcome, minutes]);
+  if (!input || outcome === null) {
+    return (
+      <p className="card converter-empty" role="status">
+        Drop a CSV of delays, or load the invented example, to see every row’s speed and temperature.
+      </p>
+    );
+  }
+  if (!outcome.ok) {
+    return (
+      <p className="card field-error" role="alert">
+        {outcome.message}
+      </p>
+    );
+  }
+  const r = outcome.results;
+  let decided = 0;
+  let lo = Number.POSITIVE_INFINITY;
+  let hi = Number.NEGATIVE_INFINITY;
+  for (let i = 0; i < r.count; i++) {
+    const c = r.chosen[i] as number;
+    if (c < 0) continue;
+    decided++;
+    const T = r.temperature_K[i * 3 + c] as number;
+    lo = Math.min(lo, T);
+    hi = Math.max(hi, T);
+  }
+  return (
+    <>
+      <section className="card converter-card result-card" aria-labelledby={headingId}>
+        <div className="card-head">
+          <h2 id={headingId} className="card-title">
+            Temperatures of the batch
+          </h2>
+          <ResultActions what="batch results" content={batchExport} />
+        </div>
+        <p className="caption-values batch-summary">
+          {r.count} readings; {decided} with a chosen temperature
+          {decided > 0 ? `, from ${formatKelvin(lo)} K to ${formatKelvin(hi)} K` : ''}.
+          {decided < r.count ? ' Undecided rows have several candidates and nothing to choose by: set a way of choosing.' : ''}
+        </p>
+        <BatchTable results={r} />
+      </section>
+      {figure ? (
+        <ChartFigure
+          id="converter-batch"
+          title="Temperature along the batch"
+          caption="Amber: the chosen temperature with its ± sd band; grey: the other candidates of each reading."
+        >
+          <PlotlyChart chartId="converter-batch" label={`Chart of the chosen temperature of ${r.count} readings.`} data={figure.data} layout={figure.layout} />
+        </ChartFigure>
+      ) : null}
+    </>
+  );
+}
+
+function BatchTable({ results }: { results: DelayBatchResults }) {
+  const [shown, setShown] = useState(PAGE_ROWS);
+  const batch = results.batch;
+  const count = Math.min(shown, results.count);
+  return (
+    <div className="table-scroll batch-table-scroll">
+      <table className="properties-table batch-table">
+        <caption>
+          Each reading’s speed and temperature{results.count > count ? ` (first ${count} of ${results.count}; the export has them all)` : ''}
+        </caption>
+        <thead>
+          <tr>
+            <th scope="col">Line</th>
+            {batch.hasTimestamp ? <th scope="col">Timestamp</th> : null}
+            <th scope="col" className="num as-written">
+              {batch.delayColumn}
+            </th>
+            {batch.hasPressure ? (
+              <th scope="col" className="num">
+                Pressure
+              </th>
+            ) : null}
+            <th scope="col" className="num">
+              Speed
+            </th>
+            <th scope="col" className="num">
+              Temperature
+            </th>
+            <th scope="col">Chosen by</th>
+            <th scope="col">All candidates</th>
+          </tr>
+        </thead>
+        <tbody>
+          {Array.from({ length: count }, (_, i) => {
+            const r = delayResultAt(results, i);
+            const c = r.chosen === null ? undefined : r.candidates[r.chosen];
+            return (
+              <tr key={r.row.line}>
+                <th scope="row">{r.row.line}</th>
+                {batch.hasTimestamp ? <td className="nowrap">{r.row.timestamp}</td> : null}
+                <td className="num">{formatSignificant(r.row.delayAsWritten, 6)}</td>
+                {batch.hasPressure ? <td className="num">{r.row.pressure_Pa === undefined ? '' : `${formatSignificant(r.row.pressure_Pa, 5)} Pa`}</td> : null}
+                <td className="num">
+                  {formatSignificant(r.speed_m_s)} ± {formatSignificant(r.speedSd_m_s, 2)} m/s
+                </td>
+                <td className="num value">{c ? `${formatTemperature(c.temperature_K, c.sd_K)} K ± ${formatSdMillikelvin(c.sd_K)}` : '—'}</td>
+                <td>{r.chosenBy ?? 'undecided'}</td>
+                <td className="candidate-list">{r.candidates.map((x) => `${x.temperature_K.toFixed(4)}${x.kind === 'extremum' ? '*' : ''}`).join(' · ') || 'none'}</td>
+              </tr>
+            );
+          })}
+        </tbody>
+      </table>
+      {results.count > count ? (
+        <button type="button" className="button button--small" onClick={() => setShown(shown + PAGE_ROWS * 5)}>
+          Show {Math.min(PAGE_ROWS * 5, results.count - count)} more rows
+        </button>
+      ) : null}
+    </div>
+  );
+}

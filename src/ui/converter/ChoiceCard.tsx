@@ -1,0 +1,51 @@
+import { useId } from 'react';
+import { useSekundoStore } from '../store';
+import type { ChoiceKind } from './converter-checks';
+import { ConverterField } from './ConverterField';
+
+const OPTIONS: readonly { kind: ChoiceKind; label: string; hint: string }[] = [
+  { kind: 'none', label: 'Show all, choose none', hint: 'Every candidate stays undecided.' },
+  { kind: 'pressure', label: 'Vapour-pressure reading', hint: 'The candidate nearest the ITS-90 temperature of the bath’s vapour pressure.' },
+  { kind: 'expected', label: 'Expected temperature', hint: 'The candidate nearest the temperature you expect.' },
+  { kind: 'range', label: 'Temperature range', hint: 'The one candidate inside the range (none if several are).' },
+];
+
+/** How to choose among the candidates: a vapour-pressure reading, an expected temperature, or a range. */
+export function ChoiceCard({ series = false }: { series?: boolean }) {
+  const headingId = useId();
+  const name = useId();
+  const choice = useSekundoStore((s) => s.converterChoice);
+  const setChoice = useSekundoStore((s) => s.setConverterChoice);
+  return (
+    <section className="card converter-card" aria-labelledby={headingId}>
+      <h2 id={headingId} className="card-title">
+        Choose among the candidates
+      </h2>
+      <p className="muted converter-card__lead">
+        {series
+          ? 'Decides the first reading; each later one takes the candidate nearest the one before (a row or file with its own vapour pressure starts afresh).'
+          : 'One delay can mean up to three temperatures. Say what else you know; the others stay listed with the reason.'}
+      </p>
+      <fieldset className="choice-options">
+        <legend className="visually-hidden">Way of choosing</legend>
+        {OPTIONS.map((o) => (
+          <div key={o.kind} className={`choice-option${choice === o.kind ? ' is-active' : ''}`}>
+            <label className="choice-option__label">
+              <input type="radio" name={name} value={o.kind} checked={choice === o.kind} onChange={() => setChoice(o.kind)} />
+              <span>{o.label}</span>
+            </label>
+            {choice === o.kind ? <p className="field-hint">{o.hint}</p> : null}
+            {o.kind === 'pressure' ? <ConverterField fieldKey="pressure" label="Vapour pressure" labelHidden className="choice-option__field" onApplied={() => setChoice('pressure')} /> : null}
+            {o.kind === 'expected' ? <ConverterField fieldKey="expected" label="Expected temperature" labelHidden className="choice-option__field" onApplied={() => setChoice('expected')} /> : null}
+            {o.kind === 'range' ? (
+              <div className="choice-option__pair">
+                <ConverterField fieldKey="rangeMin" label="From" className="choice-option__field" onApplied={() => setChoice('range')} />
+                <ConverterField fieldKey="rangeMax" label="To" className="choice-option__field" onApplied={() => setChoice('range')} />
+              </div>
+            ) : null}
+          </div>
+        ))}
+      </fieldset>
+    </section>
+  );
+}

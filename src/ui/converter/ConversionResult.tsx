@@ -1,0 +1,97 @@
+import { type ReactNode, useId } from 'react';
+import type { TemperatureCandidate } from '../../physics';
+import { formatSignificant } from '../format/format-number';
+import { PanelErrorBoundary } from '../layout/PanelErrorBoundary';
+import { branchWords } from './candidate-notes';
+import { CandidatesTable, formatSdMillikelvin, formatTemperature } from './CandidatesTable';
+import type { Chosen } from './reading-results';
+import { type ExportContent, ResultActions } from './ResultActions';
+import { SpeedChart } from './SpeedChart';
+
+interface ConversionResultProps {
+  /** Heading of the result card. */
+  title: string;
+  /** Id of the chart (data-chart). */
+  chartId: string;
+  speed_m_s: number;
+  speedSd_m_s: number;
+  /** How the speed was found, e.g. "u = d/(t − t₀)". */
+  speedLabel: string;
+  candidates: readonly TemperatureCandidate[];
+  chosen: Chosen;
+  exportContent: () => ExportContent | null;
+  /** Extra figures under the key figures (a fit's offset and correlation). */
+  children?: ReactNode;
+}
+
+/** A speed, the temperature chosen from it (or the candidates), the candidates table and the u₂ chart. */
+export function ConversionResult({ title, chartId, speed_m_s, speedSd_m_s, speedLabel, candidates, chosen, exportContent, children }: ConversionResultProps) {
+  const headingId = useId();
+  const { choice, rule } = chosen;
+  const pick = choice.index === null ? undefined : candidates[choice.index];
+  return (
+    <>
+      <section className="card converter-card result-card" aria-labelledby={headingId}>
+        <div className="card-head">
+          <h2 id={headingId} className="card-title">
+            {title}
+          </h2>
+          <ResultActions what="result" content={exportContent} />
+        </div>
+        <dl className="key-figures converter-figures">
+          <div className="key-figure">
+            <dt>{pick ? 'Temperature' : 'Candidates'}</dt>
+            <dd>
+              {pick ? (
+                <>
+                  <span className="key-figure__value" data-testid="chosen-temperature">
+                    {formatTemperature(pick.temperature_K, pick.sd_K)}
+                  </span>{' '}
+                  <span className="key-figure__unit">K ± {formatSdMillikelvin(pick.sd_K)}</span>
+                  <span className="key-figure__detail">
+                    candidate {(choice.index ?? 0) + 1} of {candidates.length}, {branchWords(pick.branch)} branch
+                  </span>
+                </>
+              ) : (
+                <>
+                  <span className="key-figure__value">{candidates.length}</span>{' '}
+                  <span className="key-figure__unit">{candidates.length === 1 ? 'temperature' : 'temperatures'}</span>
+                  <span className="key-figure__detail">{candidates.map((c) => `${formatTemperature(c.temperature_K, c.sd_K)} K`).join(' · ') || 'none in 0.3 K – Tλ'}</span>
+                </>
+              )}
+            </dd>
+          </div>
+          <div className="key-figure">
+            <dt>Speed {speedLabel}</dt>
+            <dd>
+              <span className="key-figure__value" data-testid="speed">
+                {formatSignificant(speed_m_s)}
+              </span>{' '}
+              <span className="key-figure__unit">m/s ± {formatSignificant(speedSd_m_s, 2)}</span>
+              <span className="key-figure__detail">relative sd {formatSignificant((speedSd_m_s / speed_m_s) * 100, 2)} %</span>
+            </dd>
+          </div>
+          <div className="key-figure">
+            <dt>How chosen</dt>
+            <dd className="choice-reason">{choice.problem ?? (choice.index === null ? undecided(candidates.length, rule === null, choice.reason) : `${sentenceCase(choice.reason)}.`)}</dd>
+          </div>
+        </dl>
+        {children}
+        <CandidatesTable candidates={candidates} rule={rule} choice={choice} caption={`Every temperature with u₂ = ${formatSignificant(speed_m_s)} m/s, coldest first`} />
+      </section>
+      <PanelErrorBoundary panel="u₂ chart">
+        <SpeedChart id={chartId} speed_m_s={speed_m_s} speedSd_m_s={speedSd_m_s} candidates={candidates} chosen={choice.index} rule={rule} />
+      </PanelErrorBoundary>
+    </>
+  );
+}
+
+function undecided(count: number, noRule: boolean, reason: string): string {
+  if (count === 0) return 'Nothing to choose.';
+  if (noRule) return count === 1 ? 'Only one temperature has this speed.' : 'Not chosen: give a vapour pressure, an expected temperature or a range.';
+  return `Not decided: ${reason}.`;
+}
+
+function sentenceCase(text: string): string {
+  return text.charAt(0).toUpperCase() + text.slice(1);
+}

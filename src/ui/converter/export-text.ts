@@ -1,0 +1,82 @@
+/**
+ * Results as text for the clipboard and as CSV files. Downloads go through a Blob and an object URL;
+ * nothing is ever written as HTML, so file names and cells from the user stay plain text.
+ */
+import { type CsvCell, csvCell, writeCsv } from '../../io/csv-common';
+import type { Choice, TemperatureCandidate } from '../../physics';
+
+/** Columns describing one candidate, after the context columns. */
+const CANDIDATE_COLUMNS = ['candidate', 'T_K', 'T_sd_K', 'slope_m_s_K', 'branch', 'region', 'kind', 'insensitive', 'chosen', 'choice'];
+
+/** A table of candidates, one row each, every row led by the same context cells (the reading, the fit). */
+export interface CandidateTable {
+  header: string[];
+  rows: CsvCell[][];
+}
+
+export function candidateTable(context: readonly (readonly [string, CsvCell])[], candidates: readonly TemperatureCandidate[], choice: Choice | null): CandidateTable {
+  const header = [...context.map(([name]) => name), ...CANDIDATE_COLUMNS];
+  const lead = context.map(([, value]) => value);
+  const rows = candidates.map((c, i): CsvCell[] => [
+    ...lead,
+    i + 1,
+    c.temperature_K,
+    c.sd_K,
+    c.slope_m_s_K,
+    c.branch,
+    c.region,
+    c.kind,
+    c.insensitive,
+    choice?.index === i,
+    choice?.index === i ? choice.reason : '',
+  ]);
+  if (rows.length === 0) rows.push([...lead, ...CANDIDATE_COLUMNS.map(() => null)]);
+  return { header, rows };
+}
+
+/** The table as CSV (RFC 4180, LF). */
+export function tableCsv(table: CandidateTable): string {
+  return writeCsv(table.header, table.rows);
+}
+
+/** The table as tab-separated text (pastes into a spreadsheet). */
+export function tableTsv(table: { header: readonly string[]; rows: readonly (readonly CsvCell[])[] }): string {
+  const cell = (c: CsvCell) => (typeof c === 'string' ? c.replace(/[\t\r\n]+/g, ' ') : csvCell(c));
+  return `${[table.header.map(cell).join('\t'), ...table.rows.map((r) => r.map(cell).join('\t'))].join('\n')}\n`;
+}
+
+/** Offers text as a file download (nothing leaves the browser). */
+export function downloadText(fileName: string, text: string, type = 'text/csv;charset=utf-8'): void {
+  const url = URL.createObjectURL(new Blob([text], { type }));
+  const link = document.createElement('a');
+  link.href = url;
+  link.download = fileName;
+  link.rel = 'noopener';
+  document.body.append(link);
+  link.click();
+  link.remove();
+  setTimeout(() => URL.revokeObjectURL(url), 0);
+}
+
+/** Puts text on the clipboard; resolves false when the browser refuses. */
+export async function copyText(text: string): Promise<boolean> {
+  try {
+    if (!navigator.clipboard) return false;
+    await navigator.clipboard.writeText(text);
+    return true;
+  } catch {
+    return false;
+  }
+}
+
+/** A file name from a source name: "shot 17.csv" → "shot-17-temperatures.csv". */
+export function exportName(base: string, suffix: string): string {
+  const stem = base
+    .replace(/\.[^.]*$/, '')
+    .normalize('NFKD')
+    .replace(/[^\w\s-]/g, '')
+    .trim()
+    .replace(/[\s_]+/g, '-')
+    .slice(0, 60);
+  return `${stem || 'sekundo'}-${suffix}.csv`;
+}

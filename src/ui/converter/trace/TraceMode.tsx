@@ -1,0 +1,249 @@
+import { useId, useMemo } from 'react';
+import type { TracePickOptions } from '../../../io/trace-pick';
+import { PICKER_KINDS, type PickerKind } from '../../../physics';
+import { formatSignificant } from '../../format/format-number';
+import { PanelErrorBoundary } from '../../layout/PanelErrorBoundary';
+import { useSekundoStore } from '../../store';
+import { ChoiceCard } from '../ChoiceCard';
+import { ConverterField } from '../ConverterField';
+import type { Polarity, TraceFileEntry } from '../converter-slice';
+import { DropZone } from '../DropZone';
+import { SetupCard } from '../SetupCard';
+import { useFieldValues } from '../use-converter';
+import { exampleTraceFiles } from './trace-example';
+import { cancelTraceLoading, clearTraceFiles, loadTraceFiles, removeTraceFile } from './trace-loader';
+import { forgetPicks, pickOptionsOf } from './trace-picks';
+import { TRACE_FILE_LIMIT_BYTES } from './trace-protocol';
+import { TraceResults } from './TraceResults';
+
+export const PICKER_LABELS: Readonly<Record<PickerKind, string>> = {
+  threshold: 'Threshold: first crossing of k noise sd',
+  fraction: 'Leading edge at a fraction of the peak',
+  peak: 'Peak (parabola through the top)',
+  xcorr: 'Cross-correlation with a template',
+};
+
+/** Digitiser traces → picked arrivals → temperatures, one file or a series. */
+export function TraceMode() {
+  return (
+    <div className="converter-grid">
+      <div className="converter-inputs">
+        <PanelErrorBoundary panel="trace files">
+          <TraceFilesCard />
+        </PanelErrorBoundary>
+        <PanelErrorBoundary panel="picker options">
+          <PickerCard />
+        </PanelErrorBoundary>
+        <SetupCard title="Distance and offset" pairs={['distance', 'offset']} lead="The delay and its sd come from the pick in each trace." />
+        <PanelErrorBoundary panel="choice of candidate">
+          <ChoiceCard series />
+        </PanelErrorBoundary>
+      </div>
+      <div className="converter-results">
+        <PanelErrorBoundary panel="trace results">
+          <TraceResults />
+        </PanelErrorBoundary>
+      </div>
+    </div>
+  );
+}
+
+/** The picker options from the store, as the worker takes them. */
+export function useTracePickOptions(): TracePickOptions {
+  const picker = useSekundoStore((s) => s.converterTracePicker);
+  const heater = useSekundoStore((s) => s.converterTraceHeater);
+  const sensor = useSekundoStore((s) => s.converterTraceSensor);
+  const polarity = useSekundoStore((s) => s.converterTracePolarity);
+  const v = useFieldValues();
+  return useMemo(
+    () => pickOptionsOf({ picker, heater, sensor, polarity, threshold: v.threshold, fraction: v.fraction, from_s: v.searchFrom, to_s: v.searchTo }),
+    [picker, heater, sensor, polarity, v.threshold, v.fraction, v.searchFrom, v.searchTo],
+  );
+}
+
+function mib(bytes: number): string {
+  return bytes >= 1048576 ? `${formatSignificant(bytes / 1048576, 3)} MiB` : `${formatSignificant(bytes / 1024, 3)} KiB`;
+}
+
+function TraceFilesCard() {
+  const headingId = useId();
+  const files = useSekundoStore((s) => s.converterTraceFiles);
+  const notice = useSekundoStore((s) => s.converterTraceNotice);
+  return (
+    <section className="card converter-card" aria-labelledby={headingId}>
+      <h2 id={headingId} className="card-title">
+        Trace files
+      </h2>
+      <p className="muted converter-card__lead">
+        Digitiser CSV: a time column (time, t or s, with a unit such as “Time (us)”) and one or more channels, comma-, semicolon- or tab-separated,
+        header lines allowed. Files are read in the background; each may be up to {TRACE_FILE_LIMIT_BYTES / 1048576} MiB. Several files make a
+        temperature series, ordered by a “Timestamp:” header line or else by name.
+      </p>
+      <DropZone buttonLabel="Choose trace files" multiple onFiles={(f) => loadTraceFiles(f)}>
+        <div className="drop-zone__extra">
+          <button type="button" className="button button--small" onClick={() => loadTraceFiles(exampleTraceFiles())}>
+            Load invented example traces
+          </button>
+          {files.length > 0 ? (
+            <button
+              type="button"
+              className="button button--small"
+              onClick={() => {
+                clearTraceFiles();
+                forgetPicks();
+              }}
+            >
+              Clear all
+            </button>
+          ) : null}
+        </div>
+      </DropZone>
+      <ReadingProgress />
+      {notice ? (
+        <p className="field-error" role="alert">
+          {notice}
+        </p>
+      ) : null}
+      {files.length > 0 ? <FileList files={files} /> : null}
+    </section>
+  );
+}
+
+function ReadingProgress() {
+  const progress = useSekundoStore((s) => s.converterTraceProgress);
+  if (!progress) return null;
+  const percent = progress.totalBytes > 0 ? Math.min(100, (100 * progress.bytes) / progress.totalBytes) : 0;
+  const label = `Reading ${progress.name}${progress.count > 1 ? ` (file ${progress.index} of ${progress.count})` : ''}`;
+  return (
+    <div className="read-progress">
+      <div className="read-progress__head">
+        <span id="trace-progress-label">{label}</span>
+        <span className="read-progress__numbers">
+          {mib(progress.bytes)} of {mib(progress.totalBytes)} · {progress.rows.toLocaleString('en')} rows
+        </span>
+      </div>
+      <div className="read-progress__row">
+        <div
+          className="read-progress__track"
+          role="progressbar"
+          aria-labelledby="trace-progress-label"
+          aria-valuemin={0}
+          aria-valuemax={100}
+          aria-valuenow={Math.round(percent)}
+          aria-valuetext={`${Math.round(percent)} %`}
+        >
+          <div className="read-progress__bar" style={{ width: `${percent}%` }} />
+        </div>
+        <button type="button" className="button button--small" onClick={cancelTraceLoading}>
+          Cancel
+        </button>
+      </div>
+    </div>
+  );
+}
+
+const STATUS_WORDS: Readonly<Record<TraceFileEntry['status'], string>> = {
+  queued: 'waiting',
+  reading: 'reading…',
+  ready: 'read',
+  failed: 'not read',
+  cancelled: 'cancelled',
+};
+
+function FileList({ files }: { files: readonly TraceFileEntry[] }) {
+  const selected = useSekundoStore((s) => s.converterTraceSelected);
+  const select = useSekundoStore((s) => s.selectConverterTrace);
+  return (
+    <ul className="trace-files" aria-label="Trace files loaded">
+      {files.map((f) => (
+        <li key={f.id} className={`trace-file trace-file--${f.status}${f.id === selected ? ' is-selected' : ''}`}>
+          <button type="button" className="trace-file__select" aria-pressed={f.id === selected} onClick={() => select(f.id)} disabled={f.status !== 'ready'}>
+            <span className="trace-file__name">{f.name}</span>
+            <span className="trace-file__meta">
+              {mib(f.size)} · {f.info ? `${f.info.rows.toLocaleString('en')} rows, ${f.info.channels.length} channel${f.info.channels.length === 1 ? '' : 's'}` : STATUS_WORDS[f.status]}
+            </span>
+          </button>
+          <button type="button" className="icon-button" aria-label={`Remove ${f.name}`} onClick={() => removeTraceFile(f.id)}>
+            ×
+          </button>
+          {f.message ? <p className={f.status === 'failed' ? 'trace-file__message field-error' : 'trace-file__message muted'}>{f.message}</p> : null}
+        </li>
+      ))}
+    </ul>
+  );
+}
+
+function PickerCard() {
+  const headingId = useId();
+  const files = useSekundoStore((s) => s.converterTraceFiles);
+  const picker = useSekundoStore((s) => s.converterTracePicker);
+  const heater = useSekundoStore((s) => s.converterTraceHeater);
+  const sensor = useSekundoStore((s) => s.converterTraceSensor);
+  const polarity = useSekundoStore((s) => s.converterTracePolarity);
+  const setPicker = useSekundoStore((s) => s.setConverterTracePicker);
+  const setChannels = useSekundoStore((s) => s.setConverterTraceChannels);
+  const setPolarity = useSekundoStore((s) => s.setConverterTracePolarity);
+  const channels = useMemo(() => [...new Set(files.flatMap((f) => f.info?.channels ?? []))], [files]);
+  const heaterId = useId();
+  const sensorId = useId();
+  const pickerId = useId();
+  const polarityId = useId();
+  return (
+    <section className="card converter-card" aria-labelledby={headingId}>
+      <h2 id={headingId} className="card-title">
+        Channels and picker
+      </h2>
+      <div className="picker-grid">
+        <label className="field-label" htmlFor={heaterId}>
+          Heater / trigger channel
+        </label>
+        <select id={heaterId} className="select" value={heater ?? ''} onChange={(e) => setChannels({ heater: e.target.value === '' ? null : e.target.value })}>
+          <option value="">None: time zero is the file’s t = 0</option>
+          {channels.map((c) => (
+            <option key={c} value={c}>
+              {c}
+            </option>
+          ))}
+        </select>
+        <label className="field-label" htmlFor={sensorId}>
+          Sensor channel
+        </label>
+        <select id={sensorId} className="select" value={sensor ?? ''} onChange={(e) => setChannels({ sensor: e.target.value === '' ? null : e.target.value })}>
+          <option value="">First channel that is not the heater</option>
+          {channels.map((c) => (
+            <option key={c} value={c}>
+              {c}
+            </option>
+          ))}
+        </select>
+        <label className="field-label" htmlFor={pickerId}>
+          Picker
+        </label>
+        <select id={pickerId} className="select" value={picker} onChange={(e) => setPicker(e.target.value as PickerKind)}>
+          {PICKER_KINDS.map((k) => (
+            <option key={k} value={k}>
+              {k === 'xcorr' ? `${PICKER_LABELS[k]} (${heater ? 'the heater drive' : 'a half-height rectangle'})` : PICKER_LABELS[k]}
+            </option>
+          ))}
+        </select>
+        <label className="field-label" htmlFor={polarityId}>
+          Pulse polarity
+        </label>
+        <select id={polarityId} className="select" value={polarity} onChange={(e) => setPolarity(e.target.value as Polarity)}>
+          <option value="auto">Automatic (the larger excursion)</option>
+          <option value="positive">Positive-going</option>
+          <option value="negative">Negative-going</option>
+        </select>
+      </div>
+      <div className="picker-fields">
+        {picker === 'threshold' ? <ConverterField fieldKey="threshold" label="Threshold k (noise sd)" /> : null}
+        {picker === 'fraction' ? <ConverterField fieldKey="fraction" label="Fraction of the peak" /> : null}
+        <ConverterField fieldKey="searchFrom" label="Search from (after time zero)" />
+        <ConverterField fieldKey="searchTo" label="Search to" />
+      </div>
+      <p className="field-hint">
+        Baseline and noise come from the samples before time zero. A search window past the heater pickup keeps the picker off it.
+      </p>
+    </section>
+  );
+}

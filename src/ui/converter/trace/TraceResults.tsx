@@ -1,0 +1,363 @@
+import { useId, useMemo } from 'react';
+import type { TracePick } from '../../../io/trace-pick';
+import type { ChoiceRule } from '../../../physics';
+import { ChartFigure } from '../../charts/ChartFigure';
+import { axis, baseLayout, CHART_COLOURS } from '../../charts/chart-theme';
+import { formatSignificant } from '../../format/format-number';
+import { PanelErrorBoundary } from '../../layout/PanelErrorBoundary';
+import { useElementWidth } from '../../planner/use-width';
+import { PlotlyChart } from '../../plot/PlotlyChart';
+import type { PlotLayout, PlotTrace } from '../../plot/plotly-types';
+import { useSekundoStore } from '../../store';
+import { applyRule } from '../candidate-notes';
+import { formatSdMillikelvin, formatTemperature } from '../CandidatesTable';
+import { choiceRuleOf, type FieldValues } from '../converter-checks';
+import type { TraceFileEntry } from '../converter-slice';
+import { ConversionResult } from '../ConversionResult';
+import { candidateTable, tableCsv, tableTsv } from '../export-text';
+import type { Chosen } from '../reading-results';
+import { ResultActions } from '../ResultActions';
+import { buildSeries, chosenOf, orderFiles, type SeriesRow, seriesCsv, seriesTable } from '../series';
+import { Segmented } from '../Segmented';
+import { useFieldValues } from '../use-converter';
+import { traceFigure } from './trace-figure';
+import { type PickState, usePicks, useTraceSamples } from './trace-picks';
+import { PICKER_LABELS, useTracePickOptions } from './TraceMode';
+
+/** Rows of the series from the files read and their picks (derived, never stored). */
+function seriesRows(files: readonly TraceFileEntry[], picks: ReadonlyMap<string, PickState>, values: FieldValues, start: ChoiceRule | null) {
+  const ready = files.filter((f) => f.status === 'ready' && f.info);
+  const ordered = orderFiles(ready.map((f) => ({ id: f.id, name: f.name, fields: f.info?.fields ?? {} })));
+  const picked = new Map<string, TracePick>();
+  const problems = new Map<string, string>();
+  for (const [id, p] of picks) {
+    if (p.status === 'picked') picked.set(id, p.pick);
+    if (p.status === 'failed') problems.set(id, p.message);
+    if (p.status === 'picking') problems.set(id, 'picking…');
+  }
+  const rows = buildSeries(
+    ordered.files,
+    picked,
+    problems,
+    { distance_m: values.distance ?? Number.NaN, distanceSd_m: values.distanceSd ?? 0, offset_s: values.offset ?? 0, offsetSd_s: values.offsetSd ?? 0 },
+    start,
+  );
+  return { rows, by: ordered.by };
+}
+
+/** The results of the trace lab: the selected trace with its pick and temperature, then the series. */
+export function TraceResults() {
+  const files = useSekundoStore((s) => s.converterTraceFiles);
+  const selected = useSekundoStore((s) => s.converterTraceSelected);
+  const kind = useSekundoStore((s) => s.converterChoice);
+  const values = useFieldValues();
+  const options = useTracePickOptions();
+  const readyIds = useMemo(() => files.filter((f) => f.status === 'ready').map((f) => f.id), [files]);
+  const picks = usePicks(readyIds, options);
+  const start = choiceRuleOf(kind, values);
+  const series = useMemo(() => seriesRows(files, picks, values, start), [files, picks, values, start]);
+  const selectedFile = files.find((f) => f.id === selected && f.status === 'ready');
+  if (readyIds.length === 0) {
+    return (
+      <p className="card converter-empty" role="status">
+        {files.some((f) => f.status === 'queued' || f.status === 'reading')
+          ? 'Reading the traces…'
+          : 'Drop one or more digitiser CSV files, or load the invented example traces, to pick the arrival and read the temperature.'}
+      </p>
+    );
+  }
+  return (
+    <>
+      {selectedFile ? (
+        <SelectedTrace file={selectedFile} pick={picks.get(selectedFile.id)} row={series.rows.find((r) => r.file.id === selectedFile.id)} />
+      ) : (
+        <p className="card converter-empty">Choose a file in the list to see its trace.</p>
+      )}
+      {readyIds.length > 1 ? (
+        <PanelErrorBoundary panel="temperature series">
+          <SeriesCard rows={series.rows} by={series.by} />
+        </PanelErrorBoundary>
+      ) : null}
+    </>
+  );
+}
+
+/** The choice for one row of the series, in the words of the result card. */
+function rowChosen(row: SeriesRow): Chosen {
+  const candidates = row.conversion?.candidates ?? [];
+  const choice = applyRule(candidates, row.rule);
+  if (row.chosenBy === 'continuity' && row.rule?.kind === 'near') {
+    return { rule: row.rule, choice: { ...choice, reason: `nearest to the file before (${row.rule.temperature_K.toFixed(4)} K)` } };
+  }
+  if (row.chosenBy === 'vapour pressure in the file') return { rule: row.rule, choice: { ...choice, reason: `${choice.reason}, from the file’s own header` } };
+  return { rule: row.rule, choice };
+}
+
+function SelectedTrace({ file, pick, row }: { file: TraceFileEntry; pick: PickState | undefined; row: SeriesRow | undefined }) {
+  const headingId = useId();
+  const view = useSekundoStore((s) => s.converterTraceView);
+  const setView = useSekundoStore((s) => s.setConverterTraceView);
+  const options = useTracePickOptions();
+  const values = useFieldValues();
+  const samples = useTraceSamples(file.id);
+  const [plotRef, width] = useElementWidth<HTMLDivElement>(900);
+  const picked = pick?.status === 'picked' ? pick.pick : null;
+  const sensor = picked?.sensor ?? options.sensor ?? file.info?.channels.find((c) => c !== options.heater) ?? '';
+  const figure = useMemo(() => {
+    if (samples.status !== 'ready') return null;
+    const level =
+      options.picker === 'threshold' ? { kind: 'threshold' as const, sigma: options.thresholdSigma ?? 5 } : options.picker === 'fraction' ? { kind: 'fraction' as const, fraction: options.fraction ?? 0.5 } : null;
+    return traceFigure({
+      samples: samples.samples,
+      sensor,
+      heater: picked?.heater ?? options.heater ?? null,
+      pick: picked,
+      level,
+      search: { from_s: values.searchFrom, to_s: values.searchTo },
+      view,
+      columns: Math.max(200, width - 120),
+    });
+  }, [samples, sensor, picked, options, values.searchFrom, values.searchTo, view, width]);
+  const chosen = row?.conversion ? rowChosen(row) : null;
+  const exportContent = () => {
+    if (!row?.conversion || !row.pick || !chosen) return null;
+    const p = row.pick;
+    const table = candidateTable(
+      [
+        ['file', file.name],
+        ['sensor', p.sensor],
+        ['heater', p.heater ?? ''],
+        ['picker', p.picker],
+        ['time_zero', p.timeZero],
+        ['delay_s', p.delay_s],
+        ['delay_sd_s', p.delaySd_s],
+        ['snr', p.snr],
+        ['distance_m', values.distance],
+        ['distance_sd_m', values.distanceSd],
+        ['offset_s', values.offset],
+        ['offset_sd_s', values.offsetSd],
+        ['speed_m_s', row.conversion.speed_m_s],
+        ['speed_sd_m_s', row.conversion.speedSd_m_s],
+      ],
+      row.conversion.candidates,
+      chosen.choice,
+    );
+    return { fileName: `${file.name.replace(/\.[^.]*$/, '') || 'trace'}-reading.csv`, csv: tableCsv(table), tsv: tableTsv(table) };
+  };
+  return (
+    <>
+      <section className="card converter-card trace-card" aria-labelledby={headingId}>
+        <div className="card-head">
+          <h2 id={headingId} className="card-title">
+            Trace: <span className="file-name">{file.name}</span>
+          </h2>
+          <Segmented
+            label="Trace view"
+            options={[
+              { value: 'record', label: 'Whole record' },
+              { value: 'arrival', label: 'Around the arrival' },
+            ]}
+            value={view}
+            onChange={setView}
+            panelId="trace-plot"
+            idPrefix="trace-view"
+            size="small"
+          />
+        </div>
+        <div id="trace-plot" ref={plotRef} className="trace-plot">
+          {samples.status === 'failed' ? (
+            <p className="field-error" role="alert">
+              {samples.message}
+            </p>
+          ) : figure ? (
+            <PanelErrorBoundary panel="trace chart">
+              <PlotlyChart chartId="converter-trace" label={`Trace of ${sensor} in ${file.name}${picked ? ` with the arrival at ${(picked.delay_s * 1e3).toFixed(4)} ms` : ''}.`} data={figure.data} layout={figure.layout} />
+            </PanelErrorBoundary>
+          ) : (
+            <p className="plot-loading">Fetching the samples…</p>
+          )}
+        </div>
+        <PickSummary pick={pick} />
+      </section>
+      {row?.conversion && chosen ? (
+        <ConversionResult
+          title={`Temperature from ${file.name}`}
+          chartId="converter-trace-speed"
+          speed_m_s={row.conversion.speed_m_s}
+          speedSd_m_s={row.conversion.speedSd_m_s}
+          speedLabel="u = d/(t − t₀)"
+          candidates={row.conversion.candidates}
+          chosen={chosen}
+          exportContent={exportContent}
+        />
+      ) : row?.pick && row.problem ? (
+        <p className="card field-error" role="alert">
+          No temperature: {row.problem}
+        </p>
+      ) : null}
+    </>
+  );
+}
+
+function PickSummary({ pick }: { pick: PickState | undefined }) {
+  if (!pick || pick.status === 'picking') {
+    return (
+      <p className="pick-summary muted" role="status">
+        Picking the arrival…
+      </p>
+    );
+  }
+  if (pick.status === 'failed') {
+    return (
+      <p className="field-error" role="alert">
+        No arrival picked: {pick.message}
+      </p>
+    );
+  }
+  const p = pick.pick;
+  return (
+    <dl className="pick-summary state-list" aria-label="Picked arrival">
+      <div>
+        <dt>Delay (arrival − time zero)</dt>
+        <dd>
+          <strong data-testid="picked-delay">{formatSignificant(p.delay_s * 1e3, 6)} ms</strong> ± {formatSignificant(p.delaySd_s * 1e6, 2)} µs
+        </dd>
+      </div>
+      <div>
+        <dt>Time zero</dt>
+        <dd>
+          {p.timeZero === 'heater onset'
+            ? `heater onset (50 % of the drive’s rise) at ${formatSignificant(p.timeZero_s * 1e6, 4)} ± ${formatSignificant(p.timeZeroSd_s * 1e6, 2)} µs on the file’s axis`
+            : 'the file’s t = 0 (no heater channel)'}
+        </dd>
+      </div>
+      <div>
+        <dt>Picker</dt>
+        <dd>
+          {PICKER_LABELS[p.picker]}
+          {p.template ? ` (template: ${p.template})` : ''}; sensor “{p.sensor}”
+        </dd>
+      </div>
+      <div>
+        <dt>Signal</dt>
+        <dd>
+          peak {formatSignificant(p.peak, 3)} over noise {formatSignificant(p.baseline.noise, 2)} (SNR {formatSignificant(p.snr, 3)}), baseline from{' '}
+          {p.baseline.samples.toLocaleString('en')} samples
+          {p.snr < 5 ? <span className="badge badge--model"> low SNR: check the pick</span> : null}
+        </dd>
+      </div>
+    </dl>
+  );
+}
+
+function seriesExport(rows: readonly SeriesRow[]) {
+  return () => ({ fileName: 'sekundo-trace-series.csv', csv: seriesCsv(rows), tsv: tableTsv(seriesTable(rows)) });
+}
+
+function SeriesCard({ rows, by }: { rows: readonly SeriesRow[]; by: 'timestamp' | 'name' }) {
+  const headingId = useId();
+  const select = useSekundoStore((s) => s.selectConverterTrace);
+  const figure = useMemo(() => seriesFigure(rows, by), [rows, by]);
+  const decided = rows.filter((r) => chosenOf(r) !== undefined).length;
+  return (
+    <>
+      <section className="card converter-card result-card" aria-labelledby={headingId}>
+        <div className="card-head">
+          <h2 id={headingId} className="card-title">
+            Temperature series
+          </h2>
+          <ResultActions what="series" content={seriesExport(rows)} />
+        </div>
+        <p className="caption-values batch-summary">
+          {rows.length} files, ordered by {by === 'timestamp' ? 'the timestamp in their headers' : 'name (no timestamp in every header)'}; {decided} with a chosen temperature.
+        </p>
+        <div className="table-scroll batch-table-scroll">
+          <table className="properties-table batch-table">
+            <caption>Each file’s delay, speed and temperature</caption>
+            <thead>
+              <tr>
+                <th scope="col">#</th>
+                <th scope="col">File</th>
+                {by === 'timestamp' ? <th scope="col">Timestamp</th> : null}
+                <th scope="col" className="num">
+                  Delay
+                </th>
+                <th scope="col" className="num">
+                  Speed
+                </th>
+                <th scope="col" className="num">
+                  Temperature
+                </th>
+                <th scope="col">Chosen by</th>
+                <th scope="col">All candidates</th>
+              </tr>
+            </thead>
+            <tbody>
+              {rows.map((r, i) => {
+                const c = chosenOf(r);
+                return (
+                  <tr key={r.file.id}>
+                    <th scope="row">{i + 1}</th>
+                    <td>
+                      <button type="button" className="link-button file-name" onClick={() => select(r.file.id)}>
+                        {r.file.name}
+                      </button>
+                    </td>
+                    {by === 'timestamp' ? <td className="nowrap">{r.timestamp?.text}</td> : null}
+                    <td className="num">{r.pick ? `${formatSignificant(r.pick.delay_s * 1e3, 6)} ms ± ${formatSignificant(r.pick.delaySd_s * 1e6, 2)} µs` : '—'}</td>
+                    <td className="num">{r.conversion ? `${formatSignificant(r.conversion.speed_m_s)} ± ${formatSignificant(r.conversion.speedSd_m_s, 2)} m/s` : '—'}</td>
+                    <td className="num value">{c ? `${formatTemperature(c.temperature_K, c.sd_K)} K ± ${formatSdMillikelvin(c.sd_K)}` : '—'}</td>
+                    <td>{r.problem && !r.conversion ? <span className="field-error-inline">{r.problem}</span> : (r.chosenBy ?? 'undecided')}</td>
+                    <td className="candidate-list">{r.conversion?.candidates.map((x) => x.temperature_K.toFixed(4)).join(' · ') ?? ''}</td>
+                  </tr>
+                );
+              })}
+            </tbody>
+          </table>
+        </div>
+      </section>
+      <ChartFigure id="converter-series" title="Temperature along the series" caption="Amber: each file’s chosen temperature with its ± sd band; grey: the other candidates.">
+        <PlotlyChart chartId="converter-series" label={`Chart of the chosen temperature of ${rows.length} trace files.`} data={figure.data} layout={figure.layout} />
+      </ChartFigure>
+    </>
+  );
+}
+
+function seriesFigure(rows: readonly SeriesRow[], by: 'timestamp' | 'name'): { data: PlotTrace[]; layout: PlotLayout } {
+  const first = rows.find((r) => r.timestamp)?.timestamp?.ms ?? 0;
+  const xOf = (r: SeriesRow, i: number) => (by === 'timestamp' && r.timestamp ? (r.timestamp.ms - first) / 60000 : i + 1);
+  const chosen: { x: number; T: number; sd: number; name: string }[] = [];
+  const others: { x: number; T: number }[] = [];
+  rows.forEach((r, i) => {
+    r.conversion?.candidates.forEach((c, k) => {
+      if (k === r.chosen) chosen.push({ x: xOf(r, i), T: c.temperature_K, sd: c.sd_K, name: r.file.name });
+      else others.push({ x: xOf(r, i), T: c.temperature_K });
+    });
+  });
+  const data: PlotTrace[] = [
+    { type: 'scatter', name: 'lower', x: chosen.map((c) => c.x), y: chosen.map((c) => c.T - c.sd), mode: 'lines', line: { width: 0 }, hoverinfo: 'skip', showlegend: false },
+    { type: 'scatter', name: '± sd', x: chosen.map((c) => c.x), y: chosen.map((c) => c.T + c.sd), mode: 'lines', line: { width: 0 }, fill: 'tonexty', fillcolor: 'rgba(217, 119, 43, 0.22)', hoverinfo: 'skip' },
+    { type: 'scatter', name: 'Other candidates', x: others.map((c) => c.x), y: others.map((c) => c.T), mode: 'markers', marker: { color: CHART_COLOURS.inkMuted, size: 6, opacity: 0.55 }, hovertemplate: '%{y:.4f} K<extra>other candidate</extra>' },
+    {
+      type: 'scatter',
+      name: 'Chosen temperature',
+      x: chosen.map((c) => c.x),
+      y: chosen.map((c) => c.T),
+      text: chosen.map((c) => c.name),
+      mode: 'lines+markers',
+      line: { color: CHART_COLOURS.chosen, width: 1.5 },
+      marker: { color: CHART_COLOURS.chosen, size: 7 },
+      hovertemplate: '%{text}<br>%{y:.4f} K<extra></extra>',
+    },
+  ];
+  return {
+    data,
+    layout: {
+      ...baseLayout(),
+      margin: { l: 64, r: 16, t: 30, b: 46 },
+      legend: { orientation: 'h', x: 1, y: 1.01, xanchor: 'right', yanchor: 'bottom' },
+      xaxis: axis(by === 'timestamp' ? 'Minutes since the first file' : 'File (in name order)'),
+      yaxis: axis('Temperature T (K)'),
+    },
+  };
+}

@@ -29,7 +29,6 @@ export function HeaterEditor() {
   const edit = useSekundoStore((s) => s.editPlanner);
   return (
     <EditorCard id="planner-heater" title="Heater">
-      <HeaterCaution />
       <div className="plan-grid">
         <div className="plan-field">
           <label className="plan-field__label" htmlFor="planner-geometry">
@@ -67,6 +66,7 @@ export function HeaterEditor() {
         <PlanNumberField field={HEATER_FIELDS.repetitionRate} label="Repetition rate" />
         <PlanNumberField field={HEATER_FIELDS.averages} label="Pulses averaged" />
       </div>
+      <HeaterCaution />
     </EditorCard>
   );
 }

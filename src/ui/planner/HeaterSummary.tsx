@@ -35,11 +35,11 @@ export function HeaterSummary() {
       </h3>
       <dl className="summary-list">
         {rows.map(([term, value, detail]) => (
-          <div key={term}>
+          <div key={term} className="summary-list__item">
             <dt>{term}</dt>
             <dd>
               <span className="summary-list__value">{value}</span>
-              {detail ? <span className="summary-list__detail"> {detail}</span> : null}
+              {detail ? <span className="summary-list__detail">{detail}</span> : null}
             </dd>
           </div>
         ))}

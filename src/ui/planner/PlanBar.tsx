@@ -47,7 +47,7 @@ export function PlanBar() {
           <RecomputeTime />
         </div>
         <div className="plan-bar__actions">
-          <button type="button" className="button" onClick={() => input.current?.click()}>
+          <button type="button" className="button button--small" onClick={() => input.current?.click()}>
             Open plan file…
           </button>
           <input
@@ -63,10 +63,10 @@ export function PlanBar() {
               if (file) void open(file);
             }}
           />
-          <button type="button" className="button" onClick={() => downloadPlanFile(plan)}>
+          <button type="button" className="button button--small" onClick={() => downloadPlanFile(plan)}>
             Save plan file
           </button>
-          <button type="button" className="button" onClick={() => void reloadDemo()}>
+          <button type="button" className="button button--small" onClick={() => void reloadDemo()}>
             Start again from the demo
           </button>
         </div>
@@ -76,7 +76,12 @@ export function PlanBar() {
           {source.note}
         </p>
       ) : null}
-      {plan.notes ? <p className="plan-bar__notes">{plan.notes}</p> : null}
+      {plan.notes ? (
+        <details className="plan-bar__notes">
+          <summary>About this plan</summary>
+          <p>{plan.notes}</p>
+        </details>
+      ) : null}
       {fileProblem ? (
         <div className="field-error plan-bar__file-error" role="alert">
           <p>

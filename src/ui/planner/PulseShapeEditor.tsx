@@ -5,6 +5,7 @@ import { PlanFieldMessage, PlanNumberField } from './PlanField';
 import { addPulsePoint, customPoints, parsePastedPoints, removePulsePoint, setPulsePoints, setShape, type ShapeKind, shapeKind } from './plan-edits';
 import { HEATER_FIELDS, pulsePointField } from './plan-fields';
 import { inputText, KINDS } from './display-units';
+import { RemoveIcon } from './RowIcons';
 
 const SHAPES = [
   { value: 'rectangle', label: 'Rectangle' },
@@ -69,8 +70,14 @@ function CustomPoints() {
                 <PlanNumberField field={pulsePointField(i, 1)} label={`Point ${i + 1} amplitude`} labelHidden message="elsewhere" />
               </td>
               <td>
-                <button type="button" className="icon-button" disabled={count <= 2} aria-label={`Remove point ${i + 1}`} onClick={() => edit('pulse.points', (p) => removePulsePoint(p, i), 'pulse.')}>
-                  ×
+                <button
+                  type="button"
+                  className="icon-button"
+                  disabled={count <= 2}
+                  aria-label={`Remove point ${i + 1}`}
+                  onClick={() => edit('pulse.points', (p) => removePulsePoint(p, i), 'pulse.')}
+                >
+                  <RemoveIcon />
                 </button>
               </td>
             </tr>

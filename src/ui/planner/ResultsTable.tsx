@@ -71,7 +71,7 @@ export function ResultsTable() {
               <tr key={s.id}>
                 <th scope="row" className="results-sensor">
                   <span className="swatch" style={{ background: sensorColour(row) }} aria-hidden="true" />
-                  <span>{s.label}</span> <span className="muted">({s.id})</span>
+                  {s.label} <span className="results-sensor__id">({s.id})</span>
                 </th>
                 {COLUMNS.map((c, i) => (
                   <td key={c.key} className="num" data-column={c.key}>

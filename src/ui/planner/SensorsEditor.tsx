@@ -6,6 +6,7 @@ import { messageId, PlanFieldMessage, PlanNumberField, PlanTextField } from './P
 import { MAX_SENSORS, type PositionMode, positionMode, setPositionMode, setSensorText } from './plan-edits';
 import { sensorFields } from './plan-fields';
 import { sensorColour } from './planner-colours';
+import { CopyIcon, RemoveIcon } from './RowIcons';
 
 /** The sensors as a table: one row each, with add, duplicate and remove. */
 export function SensorsEditor() {
@@ -113,10 +114,10 @@ function SensorRow({ index, rowKey, count }: { index: number; rowKey: string; co
         </td>
         <td className="row-actions">
           <button type="button" className="icon-button" aria-label={`Duplicate sensor ${n} (${sensor.id})`} title="Duplicate" disabled={count >= MAX_SENSORS} onClick={() => duplicate(index)}>
-            ⧉
+            <CopyIcon />
           </button>
           <button type="button" className="icon-button" aria-label={`Remove sensor ${n} (${sensor.id})`} title={count <= 1 ? 'A plan needs at least one sensor' : 'Remove'} disabled={count <= 1} onClick={() => remove(index)}>
-            ×
+            <RemoveIcon />
           </button>
         </td>
       </tr>
@@ -138,7 +139,7 @@ function PositionCell({ index, sensor, fields, modeKey }: { index: number; senso
         onChange={(event) => edit(modeKey, (p) => setPositionMode(p, index, event.target.value as PositionMode))}
       >
         <option value="axis">on axis</option>
-        <option value="xyz">x, y, z</option>
+        <option value="xyz">x y z</option>
       </select>
       {mode === 'axis' ? (
         <PlanNumberField field={fields.distance} label={`Sensor ${n} distance`} labelHidden message="elsewhere" />

@@ -4,6 +4,7 @@ import { EditorCard } from './EditorCard';
 import { PlanFieldMessage, PlanNumberField, PlanTextField } from './PlanField';
 import { MAX_REFLECTORS, setReflector, setSpacer } from './plan-edits';
 import { ECHO_ORDER_FIELD, reflectorFields } from './plan-fields';
+import { RemoveIcon } from './RowIcons';
 import { RowMessages } from './SensorsEditor';
 
 /** Spacer material (cold path lengths) and the reflecting planes that make echoes. */
@@ -14,7 +15,7 @@ export function SetupEditor() {
   return (
     <EditorCard id="planner-setup" title="Spacer and reflections">
       <div className="plan-grid">
-        <div className="plan-field">
+        <div className="plan-field plan-field--wide">
           <label className="plan-field__label" htmlFor="planner-spacer">
             Spacer material
           </label>
@@ -59,7 +60,7 @@ function Reflectors() {
         <p className="field-hint">No reflecting planes: only direct arrivals.</p>
       ) : (
         <table className="plan-table reflectors-table">
-          <caption className="visually-hidden">Reflecting planes: the plane is axis = position; R is the amplitude reflection coefficient</caption>
+          <caption className="field-hint reflectors__caption">Each plane is “axis = position” (z = across the heater axis, x or y = a side wall); R is the amplitude reflection coefficient.</caption>
           <thead>
             <tr>
               <th scope="col">Label</th>
@@ -109,9 +110,9 @@ function ReflectorRow({ index, rowKey }: { index: number; rowKey: string }) {
             value={plane.axis}
             onChange={(event) => edit(axisKey, (p) => setReflector(p, index, { axis: event.target.value as 'x' | 'y' | 'z' }))}
           >
-            <option value="z">z = (across the axis)</option>
-            <option value="x">x = (side wall)</option>
-            <option value="y">y = (side wall)</option>
+            <option value="z">z =</option>
+            <option value="x">x =</option>
+            <option value="y">y =</option>
           </select>
         </td>
         <td>
@@ -122,7 +123,7 @@ function ReflectorRow({ index, rowKey }: { index: number; rowKey: string }) {
         </td>
         <td className="row-actions">
           <button type="button" className="icon-button" aria-label={`Remove plane ${n} (${plane.label})`} title="Remove" onClick={() => remove(index)}>
-            ×
+            <RemoveIcon />
           </button>
         </td>
       </tr>

@@ -52,9 +52,7 @@ export function TimelineChart() {
             {v.label}
           </button>
         ))}
-        <span className="field-hint">
-          {formatMs(figure.range_s[0])} to {formatMs(figure.range_s[1])}
-        </span>
+        <span className="field-hint">{spanText(figure.range_s)}</span>
       </fieldset>
       <div ref={box} className="timeline-box">
         <PlotlyChart
@@ -67,4 +65,10 @@ export function TimelineChart() {
       </div>
     </ChartFigure>
   );
+}
+
+/** "−0.153 to 3.05 ms": the span shown, in milliseconds. */
+function spanText([from, to]: [number, number]): string {
+  const ms = (t: number) => String(Number((t * 1e3).toPrecision(3))).replace(/^-/, '\u2212');
+  return `${ms(from)} to ${ms(to)} ms`;
 }

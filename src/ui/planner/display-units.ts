@@ -18,7 +18,7 @@ const u = (shown: string, unit: Unit): DisplayUnit => ({ shown, unit });
 export const LADDERS = {
   temperature: [u('K', 'K')],
   temperatureDifference: [u('K', 'K'), u('mK', 'mK'), u('µK', 'µK')],
-  pressure: [u('kPa', 'kPa'), u('Pa', 'Pa')],
+  pressure: [u('Pa', 'Pa')],
   length: [u('m', 'm'), u('mm', 'mm'), u('µm', 'µm')],
   time: [u('s', 's'), u('ms', 'ms'), u('µs', 'µs'), u('ns', 'ns')],
   area: [u('m²', 'm2'), u('cm²', 'cm2'), u('mm²', 'mm2'), u('µm²', 'µm2')],

@@ -13,7 +13,7 @@
 import { SECOND_SOUND_EXTREMA, secondSound, secondSoundSlope, T_LAMBDA_K, temperatureSpread } from '../../physics';
 import { axis, baseLayout, CHART_COLOURS } from '../charts/chart-theme';
 import type { PlotAnnotation, PlotLayout, PlotShape, PlotTrace } from '../plot/plotly-types';
-import { LADDERS, readText } from './display-units';
+import { LADDERS, messageText, readText } from './display-units';
 import { bandColours, PLANNER_COLOURS } from './planner-colours';
 
 /** Temperatures shown, K: from where second sound is a measured wave well into He II, up to just below Tλ. */
@@ -120,8 +120,11 @@ export interface MapMarks {
 const MM = 1e3;
 
 function levelText(L: number): string {
-  return readText(L, LADDERS.temperatureDifference, 3);
+  return messageText(L, LADDERS.temperatureDifference);
 }
+
+/** Distance ticks, mm: 1–2–5 steps, labelled plainly (a log axis would label every minor step). */
+const DISTANCE_TICKS_MM = [0.1, 0.2, 0.5, 1, 2, 5, 10, 20, 50, 100, 200, 500, 1000, 2000, 5000];
 
 /** The map as a Plotly figure: filled bands, the target iso-line, insensitive spots, the planned point. */
 export function mapFigure(grid: MapGrid, marks: MapMarks): { data: PlotTrace[]; layout: PlotLayout; levels: number[] } {
@@ -176,7 +179,7 @@ export function mapFigure(grid: MapGrid, marks: MapMarks): { data: PlotTrace[]; 
       y: [p.distance_m * MM],
       mode: 'markers',
       marker: { color: PLANNER_COLOURS.planned, size: 13, symbol: 'diamond', line: { color: '#ffffff', width: 1.5 } },
-      text: [`${p.label}: ${p.temperature_K.toFixed(4)} K, ${Number((p.distance_m * MM).toPrecision(4))} mm, σT ≈ ${p.sd_K === null ? '—' : levelText(p.sd_K)}`],
+      text: [`${p.label}: ${p.temperature_K.toFixed(4)} K, ${Number((p.distance_m * MM).toPrecision(4))} mm, σT ≈ ${p.sd_K === null ? '—' : readText(p.sd_K, LADDERS.temperatureDifference, 2)}`],
       hovertemplate: '%{text}<extra></extra>',
       cliponaxis: false,
     });
@@ -188,7 +191,13 @@ export function mapFigure(grid: MapGrid, marks: MapMarks): { data: PlotTrace[]; 
     showlegend: true,
     legend: { orientation: 'h', x: 0, y: 1.01, xanchor: 'left', yanchor: 'bottom', font: { size: 12 } },
     xaxis: axis('Bath temperature T (K)', { range: MAP_TEMPERATURE_RANGE_K, fixedrange: true }),
-    yaxis: axis('Heater–sensor distance (mm)', { type: 'log', range: [Math.log10(dMin * MM), Math.log10(dMax * MM)], fixedrange: true }),
+    yaxis: axis('Heater–sensor distance (mm)', {
+      type: 'log',
+      range: [Math.log10(dMin * MM), Math.log10(dMax * MM)],
+      fixedrange: true,
+      tickvals: DISTANCE_TICKS_MM,
+      ticktext: DISTANCE_TICKS_MM.map(String),
+    }),
     shapes: plannedLines(marks),
     annotations: extremumLabels(),
   };

@@ -120,7 +120,6 @@ export const createPlannerSlice: StateCreator<SekundoState, [], [], PlannerSlice
     beginPlannerLoad: () => set({ plannerStatus: 'loading' }),
 
     loadPlannerPlan: (plan, source) => {
-      markPlanEdit();
       set({ plannerPlan: plan, plannerSource: source, plannerStatus: 'ready', plannerDrafts: {}, plannerErrors: {}, plannerMapSensorKey: null, ...freshKeys(plan) });
     },
 

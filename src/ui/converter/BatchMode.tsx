@@ -5,11 +5,10 @@ import { formatSignificant } from '../format/format-number';
 import { PanelErrorBoundary } from '../layout/PanelErrorBoundary';
 import { PlotlyChart } from '../plot/PlotlyChart';
 import { useSekundoStore } from '../store';
-import { formatKelvin } from '../temperature/temperature-units';
 import { BATCH_FILE_LIMIT_BYTES, batchFigure, batchMinutes, batchResults, exampleBatchText, readBatch } from './batch-results';
 import { ChoiceCard } from './ChoiceCard';
 import { valuesOf } from './converter-slice';
-import { formatSdMillikelvin, formatTemperature } from './CandidatesTable';
+import { formatTemperature } from './CandidatesTable';
 import { DropZone } from './DropZone';
 import { exportName, tableTsv } from './export-text';
 import { ResultActions } from './ResultActions';
@@ -163,7 +162,7 @@ function BatchResults() {
         </div>
         <p className="caption-values batch-summary">
           {r.count} readings; {decided} with a chosen temperature
-          {decided > 0 ? `, from ${formatKelvin(lo)} K to ${formatKelvin(hi)} K` : ''}.
+          {decided > 0 ? `, from ${lo.toFixed(4)} K to ${hi.toFixed(4)} K` : ''}.
           {decided < r.count ? ' Undecided rows have several candidates and nothing to choose by: set a way of choosing.' : ''}
         </p>
         <BatchTable results={r} />
@@ -199,18 +198,23 @@ function BatchTable({ results }: { results: DelayBatchResults }) {
               {batch.delayColumn}
             </th>
             {batch.hasPressure ? (
-              <th scope="col" className="num">
-                Pressure
+              <th scope="col" className="num as-written">
+                Pressure (Pa)
               </th>
             ) : null}
-            <th scope="col" className="num">
-              Speed
+            <th scope="col" className="num as-written">
+              Speed (m/s)
             </th>
-            <th scope="col" className="num">
-              Temperature
+            <th scope="col" className="num as-written">
+              T (K)
+            </th>
+            <th scope="col" className="num as-written">
+              sd (mK)
             </th>
             <th scope="col">Chosen by</th>
-            <th scope="col">All candidates</th>
+            <th scope="col" className="as-written">
+              All candidates (K)
+            </th>
           </tr>
         </thead>
         <tbody>
@@ -220,13 +224,18 @@ function BatchTable({ results }: { results: DelayBatchResults }) {
             return (
               <tr key={r.row.line}>
                 <th scope="row">{r.row.line}</th>
-                {batch.hasTimestamp ? <td className="nowrap">{r.row.timestamp}</td> : null}
+                {batch.hasTimestamp ? (
+                  <td className="nowrap" title={r.row.timestamp}>
+                    {shortTimestamp(r.row.timestamp ?? '')}
+                  </td>
+                ) : null}
                 <td className="num">{formatSignificant(r.row.delayAsWritten, 6)}</td>
-                {batch.hasPressure ? <td className="num">{r.row.pressure_Pa === undefined ? '' : `${formatSignificant(r.row.pressure_Pa, 5)} Pa`}</td> : null}
+                {batch.hasPressure ? <td className="num">{r.row.pressure_Pa === undefined ? '' : formatSignificant(r.row.pressure_Pa, 5)}</td> : null}
                 <td className="num">
-                  {formatSignificant(r.speed_m_s)} ± {formatSignificant(r.speedSd_m_s, 2)} m/s
+                  {formatSignificant(r.speed_m_s)} ± {formatSignificant(r.speedSd_m_s, 2)}
                 </td>
-                <td className="num value">{c ? `${formatTemperature(c.temperature_K, c.sd_K)} K ± ${formatSdMillikelvin(c.sd_K)}` : '—'}</td>
+                <td className="num value">{c ? formatTemperature(c.temperature_K, c.sd_K) : '—'}</td>
+                <td className="num uncertainty">{c ? formatSignificant(c.sd_K * 1e3, 2) : ''}</td>
                 <td>{r.chosenBy ?? 'undecided'}</td>
                 <td className="candidate-list">{r.candidates.map((x) => `${x.temperature_K.toFixed(4)}${x.kind === 'extremum' ? '*' : ''}`).join(' · ') || 'none'}</td>
               </tr>
@@ -241,4 +250,9 @@ function BatchTable({ results }: { results: DelayBatchResults }) {
       ) : null}
     </div>
   );
+}
+
+/** "2026-11-03T14:00:30Z" → "14:00:30" (the full text stays in the cell's title); other text as it is. */
+export function shortTimestamp(text: string): string {
+  return /^\d{4}-\d\d-\d\d[T ](\d\d:\d\d(?::\d\d(?:\.\d+)?)?)/.exec(text)?.[1] ?? text;
 }

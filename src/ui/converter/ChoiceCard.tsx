@@ -38,7 +38,7 @@ export function ChoiceCard({ series = false }: { series?: boolean }) {
             {o.kind === 'pressure' ? <ConverterField fieldKey="pressure" label="Vapour pressure" labelHidden className="choice-option__field" onApplied={() => setChoice('pressure')} /> : null}
             {o.kind === 'expected' ? <ConverterField fieldKey="expected" label="Expected temperature" labelHidden className="choice-option__field" onApplied={() => setChoice('expected')} /> : null}
             {o.kind === 'range' ? (
-              <div className="choice-option__pair">
+              <div className="choice-option__pair choice-option__pair--range">
                 <ConverterField fieldKey="rangeMin" label="From" className="choice-option__field" onApplied={() => setChoice('range')} />
                 <ConverterField fieldKey="rangeMax" label="To" className="choice-option__field" onApplied={() => setChoice('range')} />
               </div>

@@ -2,7 +2,6 @@ import { type ReactNode, useId } from 'react';
 import type { TemperatureCandidate } from '../../physics';
 import { formatSignificant } from '../format/format-number';
 import { PanelErrorBoundary } from '../layout/PanelErrorBoundary';
-import { branchWords } from './candidate-notes';
 import { CandidatesTable, formatSdMillikelvin, formatTemperature } from './CandidatesTable';
 import type { Chosen } from './reading-results';
 import { type ExportContent, ResultActions } from './ResultActions';
@@ -49,7 +48,7 @@ export function ConversionResult({ title, chartId, speed_m_s, speedSd_m_s, speed
                   </span>{' '}
                   <span className="key-figure__unit">K ± {formatSdMillikelvin(pick.sd_K)}</span>
                   <span className="key-figure__detail">
-                    candidate {(choice.index ?? 0) + 1} of {candidates.length}, {branchWords(pick.branch)} branch
+                    candidate {(choice.index ?? 0) + 1} of {candidates.length}, {pick.branch} branch (u₂ {pick.branch === 'middle' ? 'rising' : 'falling'})
                   </span>
                 </>
               ) : (

@@ -119,8 +119,9 @@ export function batchFigure(results: DelayBatchResults, minutes: Float64Array | 
 
 /**
  * An invented cooldown log: 48 readings, one every 30 s, of a bath drifting from 1.95 K down to
- * 1.55 K over a 50 mm path, with ±1.5 µs of scatter, a bath vapour pressure noted on the first
- * row only. Demo data from the kernel's own u₂ and ITS-90, not a measurement.
+ * 1.55 K over a 50 mm path, with ±1.5 µs of scatter, and the bath vapour pressure noted on the
+ * first row and again on row 41 (1.61 K, after the bath has passed the u₂ maximum, where
+ * continuity alone cannot tell the middle branch from the high one). Demo data from the kernel's own u₂ and ITS-90, not a measurement.
  */
 export function exampleBatchText(): string {
   const scatter_us = [0.4, -1.1, 1.3, -0.2, 0.8, -1.5, 0.1, 1.0, -0.7, 0.5, -1.2, 1.4, -0.3, 0.6, -0.9, 1.1];
@@ -129,7 +130,7 @@ export function exampleBatchText(): string {
     const T = 1.95 - (0.4 * i) / 47;
     const delay_ms = (0.05 / secondSound(T) + (scatter_us[i % scatter_us.length] as number) * 1e-6) * 1e3;
     const time = new Date(Date.UTC(2026, 10, 3, 14, 0, 0) + i * 30_000).toISOString().replace('.000Z', 'Z');
-    const pressure = i === 0 ? vapourPressure(T).pressure_Pa.toFixed(1) : '';
+    const pressure = i === 0 || i === 40 ? vapourPressure(T).pressure_Pa.toFixed(1) : '';
     lines.push(`${time},${delay_ms.toFixed(5)},${pressure}`);
   }
   return `${lines.join('\n')}\n`;

@@ -22,9 +22,9 @@ export interface CandidateFlag {
 }
 
 const BRANCH_WORDS: Readonly<Record<TemperatureCandidate['branch'], string>> = {
-  low: 'low (u₂ falls with T)',
-  middle: 'middle (u₂ rises with T)',
-  high: 'high (u₂ falls with T)',
+  low: 'low, falling',
+  middle: 'middle, rising',
+  high: 'high, falling',
 };
 
 export function branchWords(branch: TemperatureCandidate['branch']): string {
@@ -82,7 +82,7 @@ export function choiceNote(candidates: readonly TemperatureCandidate[], i: numbe
   const c = candidates[i];
   if (!c) return '';
   if (choice.index === i) return `Chosen: ${choice.reason}.`;
-  if (rule === null) return candidates.length === 1 ? 'The only candidate.' : 'Not chosen: no way of choosing is set.';
+  if (rule === null) return candidates.length === 1 ? 'The only candidate.' : 'Undecided.';
   if (rule.kind === 'range') {
     const inside = c.temperature_K >= rule.min_K && c.temperature_K <= rule.max_K;
     return inside ? `Inside the range, but ${choice.reason}: the range does not decide.` : `Outside ${kelvin(rule.min_K)}–${kelvin(rule.max_K)}.`;

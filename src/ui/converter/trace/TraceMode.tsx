@@ -17,10 +17,10 @@ import { TRACE_FILE_LIMIT_BYTES } from './trace-protocol';
 import { TraceResults } from './TraceResults';
 
 export const PICKER_LABELS: Readonly<Record<PickerKind, string>> = {
-  threshold: 'Threshold: first crossing of k noise sd',
-  fraction: 'Leading edge at a fraction of the peak',
-  peak: 'Peak (parabola through the top)',
-  xcorr: 'Cross-correlation with a template',
+  threshold: 'Threshold (k noise sd)',
+  fraction: 'Fraction of the peak',
+  peak: 'Peak (parabola)',
+  xcorr: 'Cross-correlation',
 };
 
 /** Digitiser traces → picked arrivals → temperatures, one file or a series. */
@@ -222,7 +222,7 @@ function PickerCard() {
         <select id={pickerId} className="select" value={picker} onChange={(e) => setPicker(e.target.value as PickerKind)}>
           {PICKER_KINDS.map((k) => (
             <option key={k} value={k}>
-              {k === 'xcorr' ? `${PICKER_LABELS[k]} (${heater ? 'the heater drive' : 'a half-height rectangle'})` : PICKER_LABELS[k]}
+              {k === 'xcorr' ? `${PICKER_LABELS[k]} (${heater ? 'heater drive' : 'rectangle'})` : PICKER_LABELS[k]}
             </option>
           ))}
         </select>
@@ -236,13 +236,14 @@ function PickerCard() {
         </select>
       </div>
       <div className="picker-fields">
-        {picker === 'threshold' ? <ConverterField fieldKey="threshold" label="Threshold k (noise sd)" /> : null}
-        {picker === 'fraction' ? <ConverterField fieldKey="fraction" label="Fraction of the peak" /> : null}
-        <ConverterField fieldKey="searchFrom" label="Search from (after time zero)" />
+        {picker === 'threshold' ? <ConverterField fieldKey="threshold" label="Threshold k (noise sd)" className="picker-fields__wide" /> : null}
+        {picker === 'fraction' ? <ConverterField fieldKey="fraction" label="Fraction of the peak (0.05–0.95)" className="picker-fields__wide" /> : null}
+        <ConverterField fieldKey="searchFrom" label="Search from" />
         <ConverterField fieldKey="searchTo" label="Search to" />
       </div>
       <p className="field-hint">
-        Baseline and noise come from the samples before time zero. A search window past the heater pickup keeps the picker off it.
+        Search window times count from time zero. Baseline and noise come from the samples before time zero; a window starting past the heater
+        pickup keeps the picker off it.
       </p>
     </section>
   );

@@ -9,8 +9,9 @@ import { useElementWidth } from '../../planner/use-width';
 import { PlotlyChart } from '../../plot/PlotlyChart';
 import type { PlotLayout, PlotTrace } from '../../plot/plotly-types';
 import { useSekundoStore } from '../../store';
+import { shortTimestamp } from '../BatchMode';
 import { applyRule } from '../candidate-notes';
-import { formatSdMillikelvin, formatTemperature } from '../CandidatesTable';
+import { formatTemperature } from '../CandidatesTable';
 import { choiceRuleOf, type FieldValues } from '../converter-checks';
 import type { TraceFileEntry } from '../converter-slice';
 import { ConversionResult } from '../ConversionResult';
@@ -279,17 +280,22 @@ function SeriesCard({ rows, by }: { rows: readonly SeriesRow[]; by: 'timestamp' 
                 <th scope="col">#</th>
                 <th scope="col">File</th>
                 {by === 'timestamp' ? <th scope="col">Timestamp</th> : null}
-                <th scope="col" className="num">
-                  Delay
+                <th scope="col" className="num as-written">
+                  Delay (ms)
                 </th>
-                <th scope="col" className="num">
-                  Speed
+                <th scope="col" className="num as-written">
+                  Speed (m/s)
                 </th>
-                <th scope="col" className="num">
-                  Temperature
+                <th scope="col" className="num as-written">
+                  T (K)
+                </th>
+                <th scope="col" className="num as-written">
+                  sd (mK)
                 </th>
                 <th scope="col">Chosen by</th>
-                <th scope="col">All candidates</th>
+                <th scope="col" className="as-written">
+                  All candidates (K)
+                </th>
               </tr>
             </thead>
             <tbody>
@@ -303,10 +309,15 @@ function SeriesCard({ rows, by }: { rows: readonly SeriesRow[]; by: 'timestamp' 
                         {r.file.name}
                       </button>
                     </td>
-                    {by === 'timestamp' ? <td className="nowrap">{r.timestamp?.text}</td> : null}
-                    <td className="num">{r.pick ? `${formatSignificant(r.pick.delay_s * 1e3, 6)} ms ± ${formatSignificant(r.pick.delaySd_s * 1e6, 2)} µs` : '—'}</td>
-                    <td className="num">{r.conversion ? `${formatSignificant(r.conversion.speed_m_s)} ± ${formatSignificant(r.conversion.speedSd_m_s, 2)} m/s` : '—'}</td>
-                    <td className="num value">{c ? `${formatTemperature(c.temperature_K, c.sd_K)} K ± ${formatSdMillikelvin(c.sd_K)}` : '—'}</td>
+                    {by === 'timestamp' ? (
+                      <td className="nowrap" title={r.timestamp?.text}>
+                        {shortTimestamp(r.timestamp?.text ?? '')}
+                      </td>
+                    ) : null}
+                    <td className="num">{r.pick ? formatSignificant(r.pick.delay_s * 1e3, 6) : '—'}</td>
+                    <td className="num">{r.conversion ? `${formatSignificant(r.conversion.speed_m_s)} ± ${formatSignificant(r.conversion.speedSd_m_s, 2)}` : '—'}</td>
+                    <td className="num value">{c ? formatTemperature(c.temperature_K, c.sd_K) : '—'}</td>
+                    <td className="num uncertainty">{c ? formatSignificant(c.sd_K * 1e3, 2) : ''}</td>
                     <td>{r.problem && !r.conversion ? <span className="field-error-inline">{r.problem}</span> : (r.chosenBy ?? 'undecided')}</td>
                     <td className="candidate-list">{r.conversion?.candidates.map((x) => x.temperature_K.toFixed(4)).join(' · ') ?? ''}</td>
                   </tr>

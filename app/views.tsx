@@ -1,6 +1,7 @@
 import type { ComponentType } from 'react';
 import { ConverterView } from '../src/ui/converter/ConverterView';
 import { ExplorerView } from '../src/ui/explorer/ExplorerView';
+import { LocateView } from '../src/ui/locate/LocateView';
 import { PlannerView } from '../src/ui/planner/PlannerView';
 import type { ViewId } from '../src/ui/store/view-slice';
 
@@ -34,5 +35,12 @@ export const VIEWS: readonly ViewEntry[] = [
     purpose:
       'During a cooldown: a second-sound delay, a batch of delays or a saved trace → every temperature it can mean, each with its uncertainty, and the one your evidence favours.',
     component: ConverterView,
+  },
+  {
+    id: 'locate',
+    label: 'Locate a source',
+    purpose:
+      'Where is the heat source? Arrival times at several sensors → its position with 1σ and 2σ regions and residuals; before a cooldown, how well a sensor layout would place it.',
+    component: LocateView,
   },
 ];

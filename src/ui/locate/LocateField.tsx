@@ -1,0 +1,65 @@
+import { type KeyboardEvent, useId } from 'react';
+import { useSekundoStore } from '../store';
+import type { LocateTextEdit } from '../store/locate-slice';
+import { fieldText, type QuantityFieldSpec } from './locate-fields';
+
+interface LocateFieldProps {
+  /** Store key of the draft and its message, e.g. "row.s3.x". */
+  fieldKey: string;
+  spec: QuantityFieldSpec;
+  /** The value in effect, SI (null: blank). */
+  value: number | null;
+  edit: LocateTextEdit;
+  /** Visible label; when `hideLabel`, only for assistive technology (table cells). */
+  label: string;
+  hideLabel?: boolean;
+  /** Unit shown after the box. */
+  unit?: string;
+  /** Show the message under the field (false: the caller shows it, e.g. in a table row). */
+  inlineMessage?: boolean;
+  placeholder?: string;
+}
+
+/** A typed quantity: a good value applies as it is typed; a bad one keeps the last good value and says why. */
+export function LocateField({ fieldKey, spec, value, edit, label, hideLabel = false, unit, inlineMessage = true, placeholder }: LocateFieldProps) {
+  const id = useId();
+  const draft = useSekundoStore((s) => s.locateDrafts[fieldKey]);
+  const error = useSekundoStore((s) => s.locateErrors[fieldKey]);
+  const type = useSekundoStore((s) => s.typeLocateField);
+  const leave = useSekundoStore((s) => s.leaveLocateField);
+  const discard = useSekundoStore((s) => s.discardLocateDraft);
+  const onKeyDown = (event: KeyboardEvent<HTMLInputElement>) => {
+    if (event.key === 'Escape') discard(fieldKey);
+    if (event.key === 'Enter') leave(fieldKey);
+  };
+  return (
+    <div className="locate-field">
+      <label htmlFor={id} className={hideLabel ? 'visually-hidden' : 'locate-field__label'}>
+        {label}
+      </label>
+      <div className="locate-field__box">
+        <input
+          id={id}
+          className="locate-input"
+          type="text"
+          inputMode="decimal"
+          autoComplete="off"
+          spellCheck={false}
+          value={draft ?? fieldText(spec, value)}
+          placeholder={placeholder}
+          aria-invalid={error ? true : undefined}
+          aria-describedby={error ? `${id}-error` : undefined}
+          onChange={(event) => type(fieldKey, event.target.value, edit)}
+          onBlur={() => leave(fieldKey)}
+          onKeyDown={onKeyDown}
+        />
+        {unit ? <span className="locate-field__unit">{unit}</span> : null}
+      </div>
+      {error ? (
+        <p id={`${id}-error`} className={inlineMessage ? 'field-error' : 'visually-hidden'} role={inlineMessage ? 'alert' : undefined}>
+          {error}
+        </p>
+      ) : null}
+    </div>
+  );
+}

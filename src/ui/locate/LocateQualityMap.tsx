@@ -1,0 +1,123 @@
+import { useDeferredValue, useId, useMemo } from 'react';
+import type { Vec3 } from '../../physics';
+import { formatSignificant } from '../format/format-number';
+import { PanelErrorBoundary } from '../layout/PanelErrorBoundary';
+import { PlotlyChart } from '../plot/PlotlyChart';
+import { useSekundoStore } from '../store';
+import { speedOf } from './derive-locate';
+import { qualityFigure } from './locate-figures';
+import { MAP_POINTS_PER_SIDE, median, qualityMap } from './locate-geometry';
+import { AXIS_NAMES, axesOf, constraintOf, PLANE_PAIRS, type PlanePair, pairName } from './locate-inputs';
+import { locateOutcomeFor, useWidth } from './use-locate';
+
+export const QUALITY_CHART_ID = 'locate-quality-map';
+/** Height of the map, px, and the margins of its plot area (locate-figures). */
+const MAP_HEIGHT_PX = 460;
+const PLOT_MARGIN_X_PX = 60 + 12 + 90;
+const PLOT_MARGIN_Y_PX = 40 + 46;
+
+const mm = (m: number) => formatSignificant(m * 1e3, 3);
+
+function centroid(points: readonly Vec3[]): Vec3 {
+  const n = Math.max(1, points.length);
+  return [0, 1, 2].map((k) => points.reduce((acc, p) => acc + p[k as 0], 0) / n) as unknown as Vec3;
+}
+
+/**
+ * Before a cooldown: the expected position sd of a source anywhere in a plane, from the layout and
+ * the timing sd alone; and where one more sensor would help most. Drawn from deferred inputs.
+ */
+export function LocateQualityMap() {
+  const rows = useDeferredValue(useSekundoStore((s) => s.locateRows));
+  const options = useDeferredValue(useSekundoStore((s) => s.locateOptions));
+  const plane = useSekundoStore((s) => s.locateDisplay.mapPlane);
+  const setDisplay = useSekundoStore((s) => s.setLocateDisplay);
+  const selectId = useId();
+  const [boxRef, width] = useWidth<HTMLDivElement>(640);
+  const outcome = locateOutcomeFor(rows, options);
+  const speed = speedOf(options);
+  const positions = useMemo(() => rows.map((r) => r.position_m), [rows]);
+  const located = outcome.ok && !outcome.result.degenerate;
+  const through: Vec3 = located ? outcome.result.source_m : centroid(positions);
+  const timingSd = median(rows.map((r) => r.arrivalSd_s ?? options.arrivalSd_s));
+  const sdForMap = Number.isFinite(timingSd) ? timingSd : options.arrivalSd_s;
+  const constraint = useMemo(() => constraintOf(options), [options]);
+  const speed_m_s = speed.ok ? speed.speed_m_s : null;
+  const fitSpeed = options.fitSpeed;
+  const [t0, t1, t2] = through;
+  const map = useMemo(() => {
+    if (speed_m_s === null || positions.length === 0) return null;
+    return qualityMap(positions, [t0, t1, t2], plane, { speed_m_s, arrivalSd_s: sdForMap, fitSpeed, constraint });
+  }, [positions, t0, t1, t2, plane, speed_m_s, sdForMap, fitSpeed, constraint]);
+  const side = Math.max(120, Math.min(width - PLOT_MARGIN_X_PX, MAP_HEIGHT_PX - PLOT_MARGIN_Y_PX));
+  const cellPx = Math.max(4, side / MAP_POINTS_PER_SIDE + 1);
+  const figure = useMemo(
+    () => (map ? qualityFigure({ map, positions, labels: rows.map((r) => r.label), source: located ? [t0, t1, t2] : null, cellPx }) : null),
+    [map, positions, rows, located, t0, t1, t2, cellPx],
+  );
+  const { c } = axesOf(plane);
+  const level = `${AXIS_NAMES[c]} = ${mm(through[c])} mm`;
+  const best = map?.best ?? null;
+  return (
+    <section className="card locate-card locate-map" aria-labelledby="locate-map-title">
+      <div className="card-head">
+        <h2 id="locate-map-title" className="card-title">
+          Layout quality and the best added sensor
+        </h2>
+        <div className="locate-inline-field">
+          <label htmlFor={selectId} className="locate-field__label">
+            Map plane
+          </label>
+          <select id={selectId} className="locate-select" value={plane} onChange={(event) => setDisplay({ mapPlane: event.target.value as PlanePair })}>
+            {PLANE_PAIRS.map((p) => (
+              <option key={p} value={p}>
+                {pairName(p)}
+              </option>
+            ))}
+          </select>
+        </div>
+      </div>
+      {!speed.ok ? (
+        <p className="muted">No map: {speed.message}</p>
+      ) : positions.length === 0 ? (
+        <p className="muted">No sensors yet: add some to see how well they would place a source.</p>
+      ) : (
+        <div className="locate-map__body">
+          <div ref={boxRef} className="locate-map__chart">
+            {figure ? (
+              <PanelErrorBoundary panel="layout-quality map">
+                <PlotlyChart
+                  chartId={QUALITY_CHART_ID}
+                  label={`Expected position sd over the ${pairName(plane)} plane at ${level}${best ? `; best added sensor at ${best.position_m.map(mm).join(', ')} mm` : ''}.`}
+                  data={figure.data}
+                  layout={figure.layout}
+                />
+              </PanelErrorBoundary>
+            ) : null}
+          </div>
+          <div className="locate-map__text">
+            <p className="locate-best" role="status">
+              {best ? (
+                <>
+                  <strong>One more sensor at ({best.position_m.map(mm).join(', ')}) mm</strong> would help most: the mean expected sd over this map falls from{' '}
+                  {Number.isFinite(best.baselineMeanSd_m) ? `${mm(best.baselineMeanSd_m)} mm` : 'undetermined (the layout cannot fix every point)'} to{' '}
+                  {mm(best.meanSd_m)} mm.
+                </>
+              ) : (
+                <>No single added sensor on the box around the layout lowers the mean expected sd over this map.</>
+              )}
+            </p>
+            <p className="muted">
+              Colour: the expected position sd, √(σx² + σy² + σz²), of a source at each point of the {pairName(plane)} plane at {level} (
+              {located ? 'through the located source' : 'through the sensors’ centroid'}), from the geometry and a timing sd of{' '}
+              {formatSignificant(sdForMap * 1e6, 2)} µs (the median of the sensors’), with the speed {options.fitSpeed ? 'fitted' : 'known'}
+              {constraint.kind === 'none' ? '' : ` and the source held on the ${constraint.kind} (each point stands for its nearest point there)`}. Grey:
+              the layout cannot fix a source there. Diamond: the best of {map?.candidates ?? 0} candidate places on the faces of the box around the sensors
+              (widened by a tenth), judged by the mean sd over the map. Circles: the sensors, projected.
+            </p>
+          </div>
+        </div>
+      )}
+    </section>
+  );
+}

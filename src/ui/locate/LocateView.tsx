@@ -1,0 +1,66 @@
+import { useEffect } from 'react';
+import { PanelErrorBoundary } from '../layout/PanelErrorBoundary';
+import { useSekundoStore } from '../store';
+import { loadLocateDemo } from './load-demo';
+import { LocateBar } from './LocateBar';
+import { LocateOptions } from './LocateOptions';
+import { LocateProjections } from './LocateProjections';
+import { LocateQualityMap } from './LocateQualityMap';
+import { LocateResiduals } from './LocateResiduals';
+import { LocateSensors } from './LocateSensors';
+import { LocateSummary } from './LocateSummary';
+
+/** Where is the heat source? Sensors and arrival times → the source, its regions, residuals; and how good a layout is. */
+export function LocateView() {
+  useDemoOnFirstOpen();
+  const status = useSekundoStore((s) => s.locateStatus);
+  if (status !== 'ready') {
+    return (
+      <p className="locate-loading" role="status">
+        Loading the demo sensors…
+      </p>
+    );
+  }
+  return (
+    <div className="locate">
+      <PanelErrorBoundary panel="sensor data bar">
+        <LocateBar />
+      </PanelErrorBoundary>
+      <div className="locate-top">
+        <div className="locate-side">
+          <PanelErrorBoundary panel="located source">
+            <LocateSummary />
+          </PanelErrorBoundary>
+          <PanelErrorBoundary panel="fit options">
+            <LocateOptions />
+          </PanelErrorBoundary>
+        </div>
+        <PanelErrorBoundary panel="projections">
+          <LocateProjections />
+        </PanelErrorBoundary>
+      </div>
+      <div className="locate-middle">
+        <PanelErrorBoundary panel="sensor table">
+          <LocateSensors />
+        </PanelErrorBoundary>
+        <PanelErrorBoundary panel="residuals">
+          <LocateResiduals />
+        </PanelErrorBoundary>
+      </div>
+      <PanelErrorBoundary panel="layout-quality map">
+        <LocateQualityMap />
+      </PanelErrorBoundary>
+    </div>
+  );
+}
+
+/** Opens the demo the first time the view is shown (a built-in layout if it cannot be had). */
+function useDemoOnFirstOpen(): void {
+  const begin = useSekundoStore((s) => s.beginLocateLoad);
+  const load = useSekundoStore((s) => s.loadLocateSensors);
+  useEffect(() => {
+    if (useSekundoStore.getState().locateStatus !== 'idle') return;
+    begin();
+    void loadLocateDemo().then(({ sensors, origin }) => load(sensors, origin));
+  }, [begin, load]);
+}

@@ -1,0 +1,425 @@
+/**
+ * Plotly figures of the source-location view: a projection of sensors, source and confidence
+ * ellipses; and the layout-quality map. Positions are drawn in millimetres on equal-scale axes.
+ */
+import type { SensorOutcome } from '../../io/locate-csv';
+import type { LocateResult, SurfaceConstraint, Vec3 } from '../../physics';
+import { axis, baseLayout, CHART_COLOURS } from '../charts/chart-theme';
+import type { PlotAnnotation, PlotLayout, PlotTrace } from '../plot/plotly-types';
+import { ELLIPSE_DCHI2, ellipseAxes, ellipsePoints, marginalCovariance, project, type QualityMap } from './locate-geometry';
+import { AXIS_NAMES, axesOf, type PlanePair } from './locate-inputs';
+
+/** Colours of this view (the house palette, chart-theme and app/styles.css). */
+export const LOCATE_COLOURS = {
+  sensor: CHART_COLOURS.ink,
+  outlier: CHART_COLOURS.normal,
+  source: CHART_COLOURS.chosen,
+  sigma1Fill: 'rgba(217, 119, 43, 0.18)',
+  surface: CHART_COLOURS.lambda,
+  best: '#0b7a76',
+} as const;
+
+/** Names of the traces (tests and readers of the figure find them by name). */
+export const TRACE_NAMES = {
+  sensors: 'sensors',
+  outliers: 'outliers',
+  dropped: 'left out of the fit',
+  noArrival: 'no arrival time',
+  source: 'located source',
+  sigma1: '1σ region (68.3 %)',
+  sigma2: '2σ region (95.4 %)',
+  surface: 'surface',
+  map: 'expected position sd',
+  unfixed: 'cannot fix a source here',
+  best: 'best added sensor',
+} as const;
+
+const mm = (m: number) => m * 1e3;
+const fmt = (x: number, digits = 3) => (Number.isFinite(x) ? Number(x.toPrecision(digits)).toString() : '—');
+
+export interface ProjectionInput {
+  pair: PlanePair;
+  positions: readonly Vec3[];
+  labels: readonly string[];
+  /** Per row; null when there is no fit. */
+  outcomes: readonly SensorOutcome[] | null;
+  result: LocateResult | null;
+  constraint: SurfaceConstraint;
+  zoom: 'layout' | 'source';
+}
+
+/** One projection: sensors by how they took part, the source, its 1σ and 2σ ellipses, the surface. */
+export function projectionFigure(p: ProjectionInput): { data: PlotTrace[]; layout: PlotLayout } {
+  const { a, b } = axesOf(p.pair);
+  const groups: { name: string; symbol: string; colour: string; rows: number[] }[] = [
+    { name: TRACE_NAMES.sensors, symbol: 'circle', colour: LOCATE_COLOURS.sensor, rows: [] },
+    { name: TRACE_NAMES.outliers, symbol: 'x', colour: LOCATE_COLOURS.outlier, rows: [] },
+    { name: TRACE_NAMES.dropped, symbol: 'x-open', colour: LOCATE_COLOURS.outlier, rows: [] },
+    { name: TRACE_NAMES.noArrival, symbol: 'circle-open', colour: LOCATE_COLOURS.sensor, rows: [] },
+  ];
+  p.positions.forEach((_, i) => {
+    const status = p.outcomes?.[i]?.status ?? 'fitted';
+    const g = status === 'outlier' ? 1 : status === 'dropped' ? 2 : status === 'no arrival' ? 3 : 0;
+    groups[g]?.rows.push(i);
+  });
+  const data: PlotTrace[] = [];
+  const surface = surfaceOutline(p.constraint, p.pair, reachOf(p.positions, p.constraint));
+  if (surface) {
+    data.push({
+      type: 'scatter',
+      name: TRACE_NAMES.surface,
+      x: surface.x,
+      y: surface.y,
+      mode: 'lines',
+      line: { color: LOCATE_COLOURS.surface, width: 1.5, dash: 'dot' },
+      hoverinfo: 'skip',
+      connectgaps: false,
+    });
+  }
+  for (const g of groups) {
+    if (g.rows.length === 0) continue;
+    data.push({
+      type: 'scatter',
+      name: g.name,
+      x: g.rows.map((i) => mm((p.positions[i] as Vec3)[a])),
+      y: g.rows.map((i) => mm((p.positions[i] as Vec3)[b])),
+      mode: 'markers',
+      marker: { color: g.colour, size: g.symbol.startsWith('x') ? 11 : 10, symbol: g.symbol, line: { color: g.colour, width: 2 } },
+      text: g.rows.map((i) => p.labels[i] ?? ''),
+      hovertemplate: `%{text}: ${AXIS_NAMES[a]} %{x:.1f} mm, ${AXIS_NAMES[b]} %{y:.1f} mm<extra>${g.name}</extra>`,
+    });
+  }
+  const r = p.result;
+  let sigma2Extent = 0;
+  if (r) {
+    const centre = project(r.source_m, p.pair).map(mm) as [number, number];
+    if (r.covariance_m2) {
+      const cov = marginalCovariance(r.covariance_m2, p.pair).map((x) => x * 1e6) as [number, number, number];
+      sigma2Extent = ellipseAxes(cov, ELLIPSE_DCHI2.sigma2).major;
+      const e2 = ellipsePoints(centre, cov, ELLIPSE_DCHI2.sigma2);
+      const e1 = ellipsePoints(centre, cov, ELLIPSE_DCHI2.sigma1);
+      data.push({
+        type: 'scatter',
+        name: TRACE_NAMES.sigma2,
+        x: e2.x,
+        y: e2.y,
+        mode: 'lines',
+        line: { color: LOCATE_COLOURS.source, width: 1.5, dash: 'dash' },
+        hoverinfo: 'skip',
+      });
+      data.push({
+        type: 'scatter',
+        name: TRACE_NAMES.sigma1,
+        x: e1.x,
+        y: e1.y,
+        mode: 'lines',
+        line: { color: LOCATE_COLOURS.source, width: 2 },
+        fill: 'toself',
+        fillcolor: LOCATE_COLOURS.sigma1Fill,
+        hoverinfo: 'skip',
+      });
+    }
+    data.push({
+      type: 'scatter',
+      name: TRACE_NAMES.source,
+      x: [centre[0]],
+      y: [centre[1]],
+      mode: 'markers',
+      marker: { color: LOCATE_COLOURS.source, size: 15, symbol: 'star', line: { color: '#ffffff', width: 1 } },
+      hovertemplate: `source: ${AXIS_NAMES[a]} %{x:.2f} mm, ${AXIS_NAMES[b]} %{y:.2f} mm<extra>${r.degenerate ? 'not determined' : ''}</extra>`,
+    });
+  }
+  const annotations: PlotAnnotation[] = p.zoom === 'layout' ? sensorLabels(p, a, b) : [];
+  const layout: PlotLayout = {
+    ...baseLayout(),
+    uirevision: `${p.pair}-${p.zoom}`,
+    margin: { l: 56, r: 36, t: 12, b: 44 },
+    xaxis: axis(`${AXIS_NAMES[a]} (mm)`, { constrain: 'domain' }),
+    yaxis: axis(`${AXIS_NAMES[b]} (mm)`, { scaleanchor: 'x', scaleratio: 1, constrain: 'domain' }),
+    annotations,
+    // The view draws one legend for both projections, in the page.
+    showlegend: false,
+  };
+  if (p.zoom === 'source' && r) {
+    const centre = project(r.source_m, p.pair).map(mm) as [number, number];
+    const half = Math.max(1.6 * sigma2Extent, 2);
+    layout.xaxis = { ...layout.xaxis, range: [centre[0] - half, centre[0] + half], autorange: false };
+    layout.yaxis = { ...layout.yaxis, range: [centre[1] - half, centre[1] + half], autorange: false };
+  }
+  return { data, layout };
+}
+
+/**
+ * Sensor labels beside their markers; sensors that fall on one spot in this projection (one above
+ * the other) share one label, "U90, L135", so no text is drawn over another.
+ */
+function sensorLabels(p: ProjectionInput, a: 0 | 1 | 2, b: 0 | 1 | 2): PlotAnnotation[] {
+  const spots = new Map<string, { x: number; y: number; names: string[] }>();
+  p.positions.forEach((pos, i) => {
+    const x = mm(pos[a]);
+    const y = mm(pos[b]);
+    const key = `${Math.round(x * 2)}:${Math.round(y * 2)}`;
+    const status = p.outcomes?.[i]?.status;
+    const name = `${p.labels[i] ?? ''}${status === 'outlier' || status === 'dropped' ? ' (outlier)' : ''}`;
+    const spot = spots.get(key);
+    if (spot) spot.names.push(name);
+    else spots.set(key, { x, y, names: [name] });
+  });
+  return [...spots.values()].map((spot, k) => ({
+    name: `label-${k}`,
+    text: `  ${spot.names.join(', ')}`,
+    xref: 'x',
+    yref: 'y',
+    x: spot.x,
+    y: spot.y,
+    showarrow: false,
+    xanchor: 'left',
+    yanchor: 'middle',
+    font: { size: 11, color: CHART_COLOURS.inkMuted },
+  }));
+}
+
+/**
+ * The outline of the surface in a projection, mm, where it is simple: a sphere's rim; a cylinder
+ * seen along its axis (a circle) or from the side (two lines); a plane seen edge-on (a line).
+ * Null when the surface covers the view or is seen at a slant.
+ */
+export function surfaceOutline(c: SurfaceConstraint, pair: PlanePair, reach_m = 0.3): { x: number[]; y: (number | null)[] } | null {
+  const { a, b, c: n } = axesOf(pair);
+  const circle = (centre: Vec3, R: number) => {
+    const x: number[] = [];
+    const y: number[] = [];
+    for (let k = 0; k <= 120; k++) {
+      const t = (2 * Math.PI * k) / 120;
+      x.push(mm(centre[a] + R * Math.cos(t)));
+      y.push(mm(centre[b] + R * Math.sin(t)));
+    }
+    return { x, y };
+  };
+  const LONG = reach_m;
+  if (c.kind === 'sphere') return circle(c.centre_m, c.radius_m);
+  if (c.kind === 'cylinder') {
+    const len = Math.hypot(...c.axisDirection);
+    const d = c.axisDirection.map((x) => x / len) as unknown as Vec3;
+    if (Math.abs(Math.abs(d[n]) - 1) < 1e-9) return circle(c.axisPoint_m, c.radius_m);
+    if (Math.abs(d[n]) < 1e-9) {
+      // Axis in the view plane: the two silhouette lines, ±R across the projected axis.
+      const da = d[a];
+      const db = d[b];
+      const pa = c.axisPoint_m[a];
+      const pb = c.axisPoint_m[b];
+      const side = (sign: number) => {
+        const oa = pa - sign * c.radius_m * db;
+        const ob = pb + sign * c.radius_m * da;
+        return [
+          [mm(oa - LONG * da), mm(ob - LONG * db)],
+          [mm(oa + LONG * da), mm(ob + LONG * db)],
+        ] as const;
+      };
+      const [s1, s2] = [side(1), side(-1)];
+      // A null y breaks the line between the two sides.
+      return { x: [s1[0][0], s1[1][0], s1[1][0], s2[0][0], s2[1][0]], y: [s1[0][1], s1[1][1], null, s2[0][1], s2[1][1]] };
+    }
+    return null;
+  }
+  if (c.kind === 'plane') {
+    const len = Math.hypot(...c.normal);
+    const nn = c.normal.map((x) => x / len) as unknown as Vec3;
+    if (Math.abs(nn[n]) > 1e-9) return null;
+    // Edge-on: the line through the point, perpendicular to the normal's projection.
+    const ta = -nn[b];
+    const tb = nn[a];
+    const pa = c.point_m[a];
+    const pb = c.point_m[b];
+    return { x: [mm(pa - LONG * ta), mm(pa + LONG * ta)], y: [mm(pb - LONG * tb), mm(pb + LONG * tb)] };
+  }
+  return null;
+}
+
+/** How far the lines of a cylinder or plane reach from its point, m: a little beyond the farthest sensor. */
+export function reachOf(positions: readonly Vec3[], c: SurfaceConstraint): number {
+  const origin = c.kind === 'cylinder' ? c.axisPoint_m : c.kind === 'plane' ? c.point_m : c.kind === 'sphere' ? c.centre_m : ([0, 0, 0] as const);
+  const far = Math.max(0, ...positions.map((p) => Math.hypot(p[0] - origin[0], p[1] - origin[1], p[2] - origin[2])));
+  return far > 0 ? 1.1 * far : 0.3;
+}
+
+/** Colour scale of the map: teal where the layout is good, amber to rust where it is poor. */
+const QUALITY_COLOURS: readonly (readonly [number, string])[] = [
+  [0, '#0b6d69'],
+  [0.35, '#6cc3b6'],
+  [0.6, '#f1e3b5'],
+  [0.8, '#e39a52'],
+  [1, '#a4401f'],
+];
+
+export interface QualityFigureInput {
+  map: QualityMap;
+  positions: readonly Vec3[];
+  labels: readonly string[];
+  source: Vec3 | null;
+  /** Marker size that tiles the plot area, px. */
+  cellPx: number;
+}
+
+/** Tick values (log10 of mm) across [lo, hi]: 1, 2, 5 × 10ⁿ, or finer steps when the range is narrow. */
+function logTicks(lo: number, hi: number): number[] {
+  const ladders = [[1, 2, 5], [1, 1.5, 2, 3, 5, 7], [1, 1.2, 1.5, 2, 2.5, 3, 4, 5, 6, 8]];
+  let out: number[] = [];
+  for (const ladder of ladders) {
+    out = [];
+    for (let e = Math.floor(lo) - 1; e <= Math.ceil(hi) + 1; e++) {
+      for (const m of ladder) {
+        const v = Math.log10(m) + e;
+        if (v >= lo - 1e-9 && v <= hi + 1e-9) out.push(v);
+      }
+    }
+    if (out.length >= 4) return out;
+  }
+  if (out.length >= 3) return out;
+  // A narrow range: even steps in mm (0.1, 0.2, 0.25, 0.5 × 10ⁿ), about five of them.
+  const from = 10 ** lo;
+  const to = 10 ** hi;
+  const raw = (to - from) / 5;
+  const p10 = 10 ** Math.floor(Math.log10(raw));
+  const step = ([1, 2, 2.5, 5, 10].find((m) => m * p10 >= raw) ?? 10) * p10;
+  const linear: number[] = [];
+  for (let t = Math.ceil(from / step) * step; t <= to + 1e-12; t += step) linear.push(Math.log10(t));
+  return linear.length > 0 ? linear : [lo, hi];
+}
+
+/** The layout-quality map: expected position sd as coloured squares, sensors, the best added sensor. */
+export function qualityFigure(q: QualityFigureInput): { data: PlotTrace[]; layout: PlotLayout } {
+  const { pair, u, v } = q.map.grid;
+  const { a, b } = axesOf(pair);
+  const xs: number[] = [];
+  const ys: number[] = [];
+  const logs: number[] = [];
+  const insideLogs: number[] = [];
+  const texts: string[] = [];
+  const bad = { x: [] as number[], y: [] as number[] };
+  q.map.grid.points.forEach((p, i) => {
+    const sd = q.map.sd_m[i] ?? Number.POSITIVE_INFINITY;
+    const x = mm(p[a]);
+    const y = mm(p[b]);
+    if (!Number.isFinite(sd) || sd <= 0) {
+      bad.x.push(x);
+      bad.y.push(y);
+      return;
+    }
+    xs.push(x);
+    ys.push(y);
+    const log = Math.log10(mm(sd));
+    logs.push(log);
+    if (q.map.inside[i]) insideLogs.push(log);
+    texts.push(fmt(mm(sd), 2));
+  });
+  // The colours span the sds inside the sensors' extent; farther out they saturate.
+  const sorted = [...(insideLogs.length > 0 ? insideLogs : logs)].sort((p, r) => p - r);
+  const lo = sorted[Math.floor(0.02 * (sorted.length - 1))] ?? 0;
+  const hi = sorted[Math.floor(0.98 * (sorted.length - 1))] ?? 1;
+  const cmax = hi - lo > 0.05 ? hi : lo + 0.05;
+  const ticks = logTicks(lo, cmax);
+  const data: PlotTrace[] = [
+    {
+      type: 'scatter',
+      name: TRACE_NAMES.map,
+      x: xs,
+      y: ys,
+      mode: 'markers',
+      marker: {
+        symbol: 'square',
+        size: q.cellPx,
+        color: logs,
+        colorscale: QUALITY_COLOURS,
+        cmin: lo,
+        cmax,
+        showscale: true,
+        colorbar: {
+          title: { text: 'expected sd (mm)', side: 'right' },
+          tickvals: ticks,
+          ticktext: ticks.map((t) => fmt(10 ** t, 2)),
+          thickness: 14,
+          outlinewidth: 0,
+        },
+        line: { width: 0 },
+      },
+      text: texts,
+      hovertemplate: `${AXIS_NAMES[a]} %{x:.0f} mm, ${AXIS_NAMES[b]} %{y:.0f} mm: sd %{text} mm<extra></extra>`,
+      showlegend: false,
+    },
+  ];
+  if (bad.x.length > 0) {
+    data.push({
+      type: 'scatter',
+      name: TRACE_NAMES.unfixed,
+      x: bad.x,
+      y: bad.y,
+      mode: 'markers',
+      marker: { symbol: 'square', size: q.cellPx, color: '#d8d4ca', line: { width: 0 } },
+      hovertemplate: `${AXIS_NAMES[a]} %{x:.0f} mm, ${AXIS_NAMES[b]} %{y:.0f} mm: the layout cannot fix a source here<extra></extra>`,
+    });
+  }
+  data.push({
+    type: 'scatter',
+    name: TRACE_NAMES.sensors,
+    x: q.positions.map((p) => mm(p[a])),
+    y: q.positions.map((p) => mm(p[b])),
+    mode: 'markers',
+    marker: { symbol: 'circle', size: 9, color: '#ffffff', line: { color: LOCATE_COLOURS.sensor, width: 2 } },
+    text: [...q.labels],
+    hovertemplate: '%{text}<extra>sensor (projected)</extra>',
+  });
+  if (q.source) {
+    data.push({
+      type: 'scatter',
+      name: TRACE_NAMES.source,
+      x: [mm(q.source[a])],
+      y: [mm(q.source[b])],
+      mode: 'markers',
+      marker: { symbol: 'star', size: 13, color: LOCATE_COLOURS.source, line: { color: '#ffffff', width: 1 } },
+      hoverinfo: 'skip',
+    });
+  }
+  const annotations: PlotAnnotation[] = [];
+  const best = q.map.best;
+  if (best) {
+    const { c } = axesOf(pair);
+    data.push({
+      type: 'scatter',
+      name: TRACE_NAMES.best,
+      x: [mm(best.position_m[a])],
+      y: [mm(best.position_m[b])],
+      mode: 'markers',
+      marker: { symbol: 'diamond', size: 15, color: LOCATE_COLOURS.best, line: { color: '#ffffff', width: 2 } },
+      text: [`${AXIS_NAMES[c]} = ${fmt(mm(best.position_m[c]), 4)} mm`],
+      hovertemplate: 'add a sensor here (%{text})<extra></extra>',
+      cliponaxis: false,
+    });
+    annotations.push({
+      name: 'best-added-sensor',
+      text: `add here (${AXIS_NAMES[c]} ${fmt(mm(best.position_m[c]), 3)} mm)`,
+      xref: 'x',
+      yref: 'y',
+      x: mm(best.position_m[a]),
+      y: mm(best.position_m[b]),
+      showarrow: false,
+      // Toward the middle of the map, so the words stay inside it.
+      xanchor: mm(best.position_m[a]) > ((u[0] ?? 0) + (u.at(-1) ?? 0)) * 500 ? 'right' : 'left',
+      yanchor: mm(best.position_m[b]) > ((v[0] ?? 0) + (v.at(-1) ?? 0)) * 500 ? 'top' : 'bottom',
+      font: { size: 11, color: LOCATE_COLOURS.best },
+      bgcolor: 'rgba(255,255,255,0.85)',
+    });
+  }
+  // Half a cell beyond the outer points, so edge squares and the candidate box show whole.
+  const pad = (u.length > 1 ? (u[1] as number) - (u[0] as number) : 0) * 0.6;
+  const layout: PlotLayout = {
+    ...baseLayout(),
+    uirevision: `map-${pair}`,
+    margin: { l: 60, r: 12, t: 40, b: 46 },
+    xaxis: axis(`${AXIS_NAMES[a]} (mm)`, { range: [mm((u[0] ?? 0) - pad), mm((u.at(-1) ?? 0) + pad)], constrain: 'domain' }),
+    yaxis: axis(`${AXIS_NAMES[b]} (mm)`, { range: [mm((v[0] ?? 0) - pad), mm((v.at(-1) ?? 0) + pad)], scaleanchor: 'x', scaleratio: 1, constrain: 'domain' }),
+    annotations,
+    showlegend: true,
+  };
+  return { data, layout };
+}

@@ -1,0 +1,44 @@
+import { type RefObject, useEffect, useRef, useState } from 'react';
+import type { LocateOptionsInput, LocateRowInput } from './locate-inputs';
+import { deriveLocate, type LocateOutcome } from './derive-locate';
+import { useSekundoStore } from '../store';
+
+/** The last few inputs and their outcomes: every panel (and the deferred map) reads the same fit, computed once per change. */
+let recent: { rows: readonly LocateRowInput[]; options: LocateOptionsInput; outcome: LocateOutcome }[] = [];
+const KEEP = 3;
+
+/** The fit for the given inputs, reusing a recent one when the inputs are the same objects. */
+export function locateOutcomeFor(rows: readonly LocateRowInput[], options: LocateOptionsInput): LocateOutcome {
+  const hit = recent.find((e) => e.rows === rows && e.options === options);
+  if (hit) return hit.outcome;
+  const outcome = deriveLocate(rows, options);
+  recent = [{ rows, options, outcome }, ...recent].slice(0, KEEP);
+  return outcome;
+}
+
+/** The located source (or why there is none), derived from the store's inputs. */
+export function useLocateOutcome(): LocateOutcome {
+  const rows = useSekundoStore((s) => s.locateRows);
+  const options = useSekundoStore((s) => s.locateOptions);
+  return locateOutcomeFor(rows, options);
+}
+
+/** Width of an element in CSS pixels (rounded to 10 px), following resizes; `fallback` until measured. */
+export function useWidth<T extends HTMLElement>(fallback: number): [RefObject<T | null>, number] {
+  const ref = useRef<T>(null);
+  const [width, setWidth] = useState(fallback);
+  useEffect(() => {
+    const element = ref.current;
+    if (!element) return;
+    const measure = () => {
+      const w = Math.round(element.getBoundingClientRect().width / 10) * 10;
+      if (w > 0) setWidth(w);
+    };
+    measure();
+    if (typeof ResizeObserver === 'undefined') return;
+    const observer = new ResizeObserver(measure);
+    observer.observe(element);
+    return () => observer.disconnect();
+  }, []);
+  return [ref, width];
+}

@@ -1,0 +1,124 @@
+import { mkdirSync } from 'node:fs';
+import { expect, type Page, test } from '@playwright/test';
+
+const ARTIFACTS = 'test-results/artifacts';
+const PROJECTIONS = ['locate-projection-1', 'locate-projection-2'] as const;
+const MAP = 'locate-quality-map';
+
+interface DrawnTrace {
+  name?: string;
+  x?: number[];
+  y?: number[];
+}
+
+/** The traces Plotly holds for a drawn chart: name and point count. */
+function tracesOf(page: Page, chartId: string): Promise<{ name: string; points: number }[]> {
+  return page.evaluate((id) => {
+    const plot = document.querySelector(`[data-chart="${id}"]`) as (HTMLElement & { data?: DrawnTrace[] }) | null;
+    return (plot?.data ?? []).map((t) => ({ name: t.name ?? '', points: t.x?.length ?? 0 }));
+  }, chartId);
+}
+
+/** x of the located source as drawn in a projection, mm. */
+function drawnSourceX(page: Page, chartId: string): Promise<number | null> {
+  return page.evaluate((id) => {
+    const plot = document.querySelector(`[data-chart="${id}"]`) as (HTMLElement & { data?: DrawnTrace[] }) | null;
+    const source = plot?.data?.find((t) => t.name === 'located source');
+    return source?.x?.[0] ?? null;
+  }, chartId);
+}
+
+async function waitForCharts(page: Page) {
+  for (const id of [...PROJECTIONS, MAP]) await expect(page.locator(`[data-chart="${id}"]`)).toHaveAttribute('data-drawn', 'true');
+}
+
+async function openLocate(page: Page) {
+  await page.goto('/');
+  await page.getByRole('tab', { name: 'Locate a source' }).click();
+  await expect(page.getByRole('tab', { name: 'Locate a source' })).toHaveAttribute('aria-selected', 'true');
+  await expect(page.getByText('Linnet-1 quench (invented demo)')).toBeVisible();
+  await waitForCharts(page);
+}
+
+test.describe('source location', () => {
+  const requests: string[] = [];
+  const problems: string[] = [];
+
+  test.beforeEach(async ({ page }) => {
+    requests.length = 0;
+    problems.length = 0;
+    page.on('request', (request) => requests.push(request.url()));
+    page.on('pageerror', (error) => problems.push(`page error: ${error.message}`));
+    page.on('console', (message) => {
+      if (message.type() === 'error') problems.push(`console: ${message.text()}`);
+    });
+  });
+
+  test.afterEach(() => {
+    const outside = requests.filter((url) => {
+      const { protocol, hostname } = new URL(url);
+      return !(protocol === 'data:' || protocol === 'blob:' || hostname === '127.0.0.1');
+    });
+    expect(outside, 'no request may leave 127.0.0.1').toEqual([]);
+    expect(problems).toEqual([]);
+  });
+
+  test('the demo opens with the source, its 1σ and 2σ ellipses and the quality map drawn', async ({ page }) => {
+    await openLocate(page);
+    for (const id of PROJECTIONS) {
+      const traces = await tracesOf(page, id);
+      const byName = new Map(traces.map((t) => [t.name, t.points]));
+      expect(byName.get('located source')).toBe(1);
+      expect(byName.get('1σ region (68.3 %)') ?? 0).toBeGreaterThan(20);
+      expect(byName.get('2σ region (95.4 %)') ?? 0).toBeGreaterThan(20);
+      expect(byName.get('sensors') ?? 0).toBeGreaterThanOrEqual(7);
+      // The demo's late sensor is drawn apart and named in the residual table.
+      expect(byName.get('outliers')).toBe(1);
+    }
+    await expect(page.getByRole('row', { name: /L225/ }).filter({ hasText: 'OUTLIER' })).toBeVisible();
+    const map = await tracesOf(page, MAP);
+    expect(map.find((t) => t.name === 'expected position sd')?.points ?? 0).toBeGreaterThan(500);
+    expect(map.find((t) => t.name === 'best added sensor')?.points).toBe(1);
+    await expect(page.getByText(/One more sensor at/)).toBeVisible();
+    // The source near the equator of the invented cell (about −48 mm, 92 mm, 5 mm).
+    const x = await drawnSourceX(page, 'locate-projection-1');
+    expect(x).not.toBeNull();
+    expect(Math.abs((x ?? 0) + 48)).toBeLessThan(5);
+
+    await page.mouse.move(0, 0);
+    mkdirSync(ARTIFACTS, { recursive: true });
+    await page.screenshot({ path: `${ARTIFACTS}/locate.png` });
+    await page.screenshot({ path: `${ARTIFACTS}/locate-full-page.png`, fullPage: true });
+
+    // A close-up of the source shows the ellipses at a readable size.
+    await page.getByText('Close-up of the source').click();
+    await expect.poll(async () => (await page.locator('[data-chart="locate-projection-1"]').evaluate((el) => (el as HTMLElement & { layout?: { xaxis?: { range?: number[] } } }).layout?.xaxis?.range?.length ?? 0))).toBe(2);
+    await page.locator('.locate-projections').scrollIntoViewIfNeeded();
+    await page.locator('.locate-projections').screenshot({ path: `${ARTIFACTS}/locate-close-up.png` });
+  });
+
+  test('editing an arrival moves the source; the robust refit drops the outlier', async ({ page }) => {
+    await openLocate(page);
+    const before = await drawnSourceX(page, 'locate-projection-1');
+    await page.getByLabel('Robust refit: leave out the worst sensor while its residual exceeds 3σ').check();
+    await expect(page.getByRole('row', { name: /L225/ }).filter({ hasText: 'left out of the fit' })).toBeVisible();
+    await expect.poll(() => drawnSourceX(page, 'locate-projection-1')).not.toBe(before);
+    const arrival = page.getByLabel('Arrival at U90 (ms)');
+    await arrival.fill('5.2');
+    await arrival.press('Tab');
+    await expect(page.getByTestId('locate-source-x')).not.toHaveText('');
+    // A bad entry names the field and its range, and the last good value stays in effect.
+    await arrival.fill('soon');
+    await expect(page.getByRole('alert').filter({ hasText: 'arrival at sensor U90' })).toContainText('valid range');
+    await expect(page.getByText('No source located')).toHaveCount(0);
+  });
+
+  test('reads well at 1600×1000', async ({ page }) => {
+    await page.setViewportSize({ width: 1600, height: 1000 });
+    await openLocate(page);
+    await page.mouse.move(0, 0);
+    mkdirSync(ARTIFACTS, { recursive: true });
+    await page.screenshot({ path: `${ARTIFACTS}/locate-1600x1000.png` });
+    await page.screenshot({ path: `${ARTIFACTS}/locate-1600x1000-full-page.png`, fullPage: true });
+  });
+});

@@ -63,7 +63,9 @@ export function CandidatesTable({ candidates, rule, choice, caption }: Candidate
             const chosen = choice.index === i;
             return (
               <tr key={`${c.branch}-${c.kind}`} className={chosen ? 'candidate is-chosen' : choice.index === null ? 'candidate' : 'candidate is-other'} aria-current={chosen ? 'true' : undefined}>
-                <th scope="row">{i + 1}</th>
+                <th scope="row" className="candidate-index">
+                  {i + 1}
+                </th>
                 <td className="num value">{formatTemperature(c.temperature_K, c.sd_K)} K</td>
                 <td className="num uncertainty">± {formatSdMillikelvin(c.sd_K)}</td>
                 <td className="num">{formatSignificant(c.slope_m_s_K, 3)}</td>

@@ -73,25 +73,27 @@ export class TraceService {
     const controller = new AbortController();
     this.jobs.set(id, controller);
     let last = Number.NEGATIVE_INFINITY;
-    const parser = new TraceCsvParser({
-      totalBytes: file.size,
-      sizeLimitBytes,
-      signal: controller.signal,
-      onProgress: (p) => {
-        const now = Date.now();
-        if (!p.done && now - last < PROGRESS_INTERVAL_MS) return;
-        last = now;
-        this.send({ type: 'progress', id, bytes: p.bytes, totalBytes: file.size, rows: p.rows });
-      },
-    });
+    let parser: TraceCsvParser | null = null;
     try {
+      // The constructor refuses an oversize file at once, before any byte is read.
+      parser = new TraceCsvParser({
+        totalBytes: file.size,
+        sizeLimitBytes,
+        signal: controller.signal,
+        onProgress: (p) => {
+          const now = Date.now();
+          if (!p.done && now - last < PROGRESS_INTERVAL_MS) return;
+          last = now;
+          this.send({ type: 'progress', id, bytes: p.bytes, totalBytes: file.size, rows: p.rows });
+        },
+      });
       await feedAll(parser, file, controller.signal);
       const trace = parser.finish();
       if (controller.signal.aborted) throw new CsvInputError('cancelled', 'reading the trace was cancelled');
       this.traces.set(id, trace);
       this.send({ type: 'parsed', id, info: infoOf(trace) });
     } catch (error) {
-      parser.cancel();
+      parser?.cancel();
       const cancelled = controller.signal.aborted || (error instanceof CsvInputError && error.problem === 'cancelled');
       this.send({ type: 'parse-failed', id, message: cancelled ? 'cancelled before it was read' : messageOf(error), cancelled });
     } finally {

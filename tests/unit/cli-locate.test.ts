@@ -10,10 +10,10 @@ import { mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { parseLocateCsv } from '../../src/io/locate-csv';
+import { arrivalsOf as kernelInputsOf, locateResultsToCsv, locateSensorsToCsv, parseLocateCsv, sensorOutcomes } from '../../src/io/locate-csv';
 import type { CliIo } from '../../src/cli/io';
 import { main } from '../../src/cli/main';
-import { secondSound, type Vec3 } from '../../src/physics';
+import { locateSource, secondSound, type Vec3 } from '../../src/physics';
 import { gaussian, seededRandom } from '../support/synthetic-trace';
 
 const REPO_ROOT = fileURLToPath(new URL('../..', import.meta.url));
@@ -390,4 +390,31 @@ describe('sekundo locate: help, the demo, a real process', () => {
     expect(json.sourceSd_m).toHaveLength(3);
     expect(json.outlierLabels).toEqual(['L225']);
   }, 60_000);
+});
+
+describe('locate CSV: written files read back', () => {
+  const scenario: Scenario = { sensors: FRAME, source: [0.01, 0.02, 0.03], t0_s: 1e-4, speed_m_s: U2_1_8K, sd_s: 10e-6, seed: 101 };
+
+  it('sensors written in the input format read back exactly (labels with commas and quotes too)', () => {
+    const input = parseLocateCsv(scenarioCsv(scenario));
+    const sensors = input.sensors.map((s, i) => (i === 0 ? { ...s, label: 'north, "top"' } : i === 1 ? { ...s, arrival_s: null, arrivalSd_s: null } : s));
+    expect(parseLocateCsv(locateSensorsToCsv(sensors)).sensors).toEqual(sensors);
+  });
+
+  it('a results file carries the source in comments and reads back as the same sensors', () => {
+    const { sensors } = parseLocateCsv(scenarioCsv(scenario));
+    const { arrivals, indices } = kernelInputsOf(sensors);
+    const result = locateSource(arrivals, { speed_m_s: U2_1_8K, fitSpeed: false, arrivalSd_s: 1e-5, constraint: { kind: 'none' }, dropOutliers: false });
+    const text = locateResultsToCsv(sensors, sensorOutcomes(sensors, indices, result), result, {
+      speedFrom: 'u2 at 1.8 K',
+      fitSpeed: false,
+      defaultArrivalSd_s: 1e-5,
+      constraint: { kind: 'sphere', centre_m: [0, 0, 0], radius_m: 0.1 },
+      dropOutliers: false,
+    });
+    expect(text).toContain(`# source_m (x y z): ${result.source_m.join(' ')}`);
+    expect(text).toContain('surface: sphere centre 0 0 0 m, radius 0.1 m');
+    expect(text.split('\n').find((l) => l.startsWith('label,'))).toBe('label,x_m,y_m,z_m,arrival_s,arrival_sd_s,predicted_arrival_s,residual_s,normalised_residual,status');
+    expect(parseLocateCsv(text).sensors).toEqual(sensors);
+  });
 });

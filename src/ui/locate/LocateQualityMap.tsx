@@ -8,9 +8,11 @@ import { speedOf } from './derive-locate';
 import { qualityFigure } from './locate-figures';
 import { MAP_POINTS_PER_SIDE, median, qualityMap } from './locate-geometry';
 import { AXIS_NAMES, axesOf, constraintOf, PLANE_PAIRS, type PlanePair, pairName } from './locate-inputs';
-import { locateOutcomeFor, useWidth } from './use-locate';
+import { locateOutcomeFor, useSettled, useWidth } from './use-locate';
 
 export const QUALITY_CHART_ID = 'locate-quality-map';
+/** The map is redrawn once typing pauses this long, ms (it takes about a tenth of a second). */
+const SETTLE_MS = 250;
 /** Height of the map, px, and the margins of its plot area (locate-figures). */
 const MAP_HEIGHT_PX = 460;
 const PLOT_MARGIN_X_PX = 60 + 12 + 90;
@@ -28,8 +30,8 @@ function centroid(points: readonly Vec3[]): Vec3 {
  * the timing sd alone; and where one more sensor would help most. Drawn from deferred inputs.
  */
 export function LocateQualityMap() {
-  const rows = useDeferredValue(useSekundoStore((s) => s.locateRows));
-  const options = useDeferredValue(useSekundoStore((s) => s.locateOptions));
+  const rows = useDeferredValue(useSettled(useSekundoStore((s) => s.locateRows), SETTLE_MS));
+  const options = useDeferredValue(useSettled(useSekundoStore((s) => s.locateOptions), SETTLE_MS));
   const plane = useSekundoStore((s) => s.locateDisplay.mapPlane);
   const setDisplay = useSekundoStore((s) => s.setLocateDisplay);
   const selectId = useId();
@@ -99,12 +101,12 @@ export function LocateQualityMap() {
             <p className="locate-best" role="status">
               {best ? (
                 <>
-                  <strong>One more sensor at ({best.position_m.map(mm).join(', ')}) mm</strong> would help most: the mean expected sd over this map falls from{' '}
+                  <strong>One more sensor at ({best.position_m.map(mm).join(', ')}) mm</strong> would help most: the mean expected sd inside the layout on this map falls from{' '}
                   {Number.isFinite(best.baselineMeanSd_m) ? `${mm(best.baselineMeanSd_m)} mm` : 'undetermined (the layout cannot fix every point)'} to{' '}
                   {mm(best.meanSd_m)} mm.
                 </>
               ) : (
-                <>No single added sensor on the box around the layout lowers the mean expected sd over this map.</>
+                <>No single added sensor on the box around the layout lowers the mean expected sd inside the layout on this map.</>
               )}
             </p>
             <p className="muted">
@@ -113,7 +115,7 @@ export function LocateQualityMap() {
               {formatSignificant(sdForMap * 1e6, 2)} µs (the median of the sensors’), with the speed {options.fitSpeed ? 'fitted' : 'known'}
               {constraint.kind === 'none' ? '' : ` and the source held on the ${constraint.kind} (each point stands for its nearest point there)`}. Grey:
               the layout cannot fix a source there. Diamond: the best of {map?.candidates ?? 0} candidate places on the faces of the box around the sensors
-              (widened by a tenth), judged by the mean sd over the map. Circles: the sensors, projected.
+              (widened by a tenth), judged by the mean sd at points of this map within the sensors’ extent. Circles: the sensors, projected.
             </p>
           </div>
         </div>

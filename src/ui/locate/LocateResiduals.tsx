@@ -27,7 +27,7 @@ export function LocateResiduals() {
       ) : (
         <>
           <div className="table-scroll">
-            <table className="locate-table locate-residuals-table">
+            <table className="locate-table locate-residuals-table" aria-label="Residual of each sensor">
               <thead>
                 <tr>
                   <th scope="col">Sensor</th>

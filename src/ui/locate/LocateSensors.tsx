@@ -26,7 +26,7 @@ export function LocateSensors() {
         11563 us). Leave the arrival blank for a sensor without a reading; leave the sd blank to use the default ({(defaultSd * 1e6).toPrecision(3)} µs).
       </p>
       <div className="table-scroll">
-        <table className="locate-table locate-sensors-table">
+        <table className="locate-table locate-sensors-table" aria-label="Sensor positions and readings">
           <thead>
             <tr>
               <th scope="col">Label</th>

@@ -132,8 +132,8 @@ export interface QualityMap {
 /** Grid points per side of the map, and per edge of the candidate box. */
 export const MAP_POINTS_PER_SIDE = 31;
 export const CANDIDATES_PER_EDGE = 5;
-/** Most grid points that count toward the best added sensor (cost: candidates × sources fits). */
-const MAX_BEST_SOURCES = 150;
+/** Most grid points that count toward the best added sensor (cost: candidates × sources layouts, ~30 µs each). */
+const MAX_BEST_SOURCES = 36;
 
 /**
  * The map over the pair's plane through `through` (covering the sensors and the candidate box),
@@ -150,9 +150,20 @@ export function qualityMap(sensors: readonly Vec3[], through: Vec3, pair: PlaneP
   const [b0, b1] = extent(b);
   const flat = !(a1 - a0 > 1e-9 && b1 - b0 > 1e-9);
   const inside = grid.points.map((p) => flat || (p[a] >= a0 && p[a] <= a1 && p[b] >= b0 && p[b] <= b1));
+  // Sources for the comparison sit a fraction of a cell off the grid, so none lands exactly on a
+  // plane of symmetry of the layout, where the sd is infinite and would swamp every mean.
+  const cellA = (grid.u[1] ?? 0) - (grid.u[0] ?? 0);
+  const cellB = (grid.v[1] ?? 0) - (grid.v[0] ?? 0);
   const insidePoints = grid.points.filter((_, i) => inside[i]);
   const stride = Math.max(1, Math.ceil(insidePoints.length / MAX_BEST_SOURCES));
-  const sources = insidePoints.filter((_, i) => i % stride === Math.floor(stride / 2));
+  const sources = insidePoints
+    .filter((_, i) => i % stride === Math.floor(stride / 2))
+    .map((p) => {
+      const q: [number, number, number] = [p[0], p[1], p[2]];
+      q[a] += 0.37 * cellA;
+      q[b] += 0.29 * cellB;
+      return q;
+    });
   let best: QualityMap['best'] = null;
   if (candidates.length > 0 && sources.length > 0) {
     const found = bestAddedSensor(sensors, candidates, sources, o);

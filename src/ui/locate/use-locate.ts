@@ -42,3 +42,14 @@ export function useWidth<T extends HTMLElement>(fallback: number): [RefObject<T 
   }, []);
   return [ref, width];
 }
+
+/** `value` once it has stayed the same for `delay_ms` (the first value at once): costly maps wait for typing to pause. */
+export function useSettled<T>(value: T, delay_ms: number): T {
+  const [settled, setSettled] = useState(value);
+  useEffect(() => {
+    if (Object.is(value, settled)) return;
+    const timer = setTimeout(() => setSettled(value), delay_ms);
+    return () => clearTimeout(timer);
+  }, [value, settled, delay_ms]);
+  return settled;
+}

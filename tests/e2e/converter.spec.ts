@@ -258,6 +258,7 @@ test.describe('converter', () => {
     const delay = Number((await page.getByTestId('picked-delay').textContent())?.replace(' ms', ''));
     expect(delay).toBeCloseTo((DISTANCE_M / secondSound(1.8) + 2e-6) * 1e3, 3);
     await expect(page.locator('[data-chart="converter-trace"]')).toHaveAttribute('data-drawn', 'true');
+    await page.evaluate(() => window.scrollTo(0, 0));
     await page.mouse.move(0, 0);
     await page.screenshot({ path: `${ARTIFACTS}/converter-trace-large.png` });
   });

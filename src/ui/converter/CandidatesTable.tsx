@@ -51,7 +51,11 @@ export function CandidatesTable({ candidates, rule, choice, caption }: Candidate
             <th scope="col" className="num as-written">
               du₂/dT (m/s/K)
             </th>
-            <th scope="col" title="Branch of u₂(T): low (below the minimum near 1.12 K), middle (between the extrema), high (above the maximum near 1.65 K)">
+            <th
+              scope="col"
+              className="as-written"
+              title="Branch of u₂(T): low (below the minimum near 1.12 K), middle (between the extrema), high (above the maximum near 1.65 K)"
+            >
               Branch of u₂
             </th>
             <th scope="col">Notes</th>
@@ -69,7 +73,7 @@ export function CandidatesTable({ candidates, rule, choice, caption }: Candidate
                 <td className="num value">{formatTemperature(c.temperature_K, c.sd_K)} K</td>
                 <td className="num uncertainty">± {formatSdMillikelvin(c.sd_K)}</td>
                 <td className="num">{formatSignificant(c.slope_m_s_K, 3)}</td>
-                <td className="nowrap">{branchWords(c.branch)}</td>
+                <td className="nowrap">{c.kind === 'extremum' ? 'at the extremum' : branchWords(c.branch)}</td>
                 <td>
                   {candidateFlags(c).length === 0 ? <span className="muted">—</span> : null}
                   {candidateFlags(c).map((f) => (

@@ -75,19 +75,20 @@ export function DistancesInput() {
         Delays at several distances
       </h2>
       <p className="muted converter-card__lead">
-        Sensors at different distances in one bath: t = t₀ + d/u₂. A straight-line fit gives u₂ and the common offset t₀. Give a delay sd on every row
-        or on none (then the scatter sets the uncertainties). Paste rows from a spreadsheet into any cell.
+        Sensors at different distances in one bath: t = t₀ + d/u₂. A straight-line fit gives u₂ and the common offset t₀. The delay sd is optional: give
+        it on every row or on none (then the scatter sets the uncertainties). Paste rows from a spreadsheet into any cell.
       </p>
       <div className="table-scroll">
         <table id={tableId} className="distance-table" onBlur={onBlur}>
           <thead>
             <tr>
-              <th scope="col">#</th>
+              <th scope="col" className="distance-table__index">
+                #
+              </th>
               {COLUMNS.map((column) => (
                 <th key={column} scope="col">
                   <span className="distance-table__head">
                     {COLUMN_NAMES[column]}
-                    {column === 'sd' ? <span className="muted"> (optional)</span> : null}
                     <select
                       className="unit-select"
                       aria-label={`${COLUMN_NAMES[column]} unit`}
@@ -106,7 +107,7 @@ export function DistancesInput() {
                   </span>
                 </th>
               ))}
-              <th scope="col">
+              <th scope="col" className="distance-table__remove">
                 <span className="visually-hidden">Remove</span>
               </th>
             </tr>
@@ -219,9 +220,11 @@ export function DistancesResult() {
             </dd>
           </div>
           <div>
-            <dt>χ² / degrees of freedom</dt>
+            <dt>{f.weighted ? 'χ² / degrees of freedom' : 'Scatter (rms residual)'}</dt>
             <dd>
-              {formatSignificant(f.chiSquare, 3)} / {f.degreesOfFreedom} {f.weighted ? '(weighted by the sds given)' : '(no sds given: scaled by the scatter)'}
+              {f.weighted
+                ? `${formatSignificant(f.chiSquare, 3)} / ${f.degreesOfFreedom} (weighted by the sds given)`
+                : `${formatSignificant(Math.sqrt(f.chiSquare / Math.max(1, f.degreesOfFreedom)) * 1e6, 2)} µs over ${f.degreesOfFreedom} degree${f.degreesOfFreedom === 1 ? '' : 's'} of freedom (no sds given: the scatter sets the uncertainties)`}
             </dd>
           </div>
         </dl>

@@ -71,7 +71,7 @@ export function SweepInput() {
       <p className="muted converter-card__lead">
         Let the bath drift through the u₂ maximum ({formatSignificant(SECOND_SOUND_EXTREMA.maximum.speed_m_s)} m/s near{' '}
         {SECOND_SOUND_EXTREMA.maximum.temperature_K.toFixed(2)} K) while you log delays. The shortest delay belongs to the maximum, so L = u₂,max · (t_min − t₀)
-        without a thermometer. x is the time of each reading or its number. The offset t₀ above is subtracted.
+        without a thermometer. x is the time of each reading or its number; the offset t₀ (below) is subtracted.
       </p>
       <label className="field-label" htmlFor={areaId}>
         Sweep readings (x, delay), one per line

@@ -43,7 +43,8 @@ export function traceFigure({ samples, sensor, heater, pick, level, search, view
   const ms = (t: number) => (t - zero) * 1e3;
   const data: PlotTrace[] = [];
   const sensorValues = samples.channels.find((c) => c.name === sensor)?.values;
-  const heaterValues = heater === null ? undefined : samples.channels.find((c) => c.name === heater)?.values;
+  // Around the arrival the drive is long over: its trace would only add a flat line and an axis.
+  const heaterValues = heater === null || (view === 'arrival' && pick) ? undefined : samples.channels.find((c) => c.name === heater)?.values;
   if (heaterValues) {
     const line = decimateMinMax(samples.time_s, heaterValues, from, to, columns, 1e3, zero);
     data.push({ type: 'scatter', name: `${heater} (heater)`, x: line.x, y: line.y, yaxis: 'y2', mode: 'lines', line: { color: CHART_COLOURS.inkMuted, width: 1 }, opacity: 0.7, hoverinfo: 'skip' });

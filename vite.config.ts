@@ -9,6 +9,8 @@ import { offlineCache } from './app/offline/service-worker-plugin.ts';
 const CONTENT_SECURITY_POLICY = [
   "default-src 'self'",
   "script-src 'self'",
+  // Workers (the converter's trace reader, the offline cache) come from the page's own files only.
+  "worker-src 'self'",
   "style-src 'self' 'unsafe-inline'",
   "img-src 'self' data: blob:",
   "font-src 'self'",

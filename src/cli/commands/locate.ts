@@ -175,8 +175,8 @@ export const locateCommand: Command = {
   name: 'locate',
   summary: 'arrival times at several sensors (CSV) → where the heat source is, with its uncertainty',
   synopsis: [
-    'locate FILE (--temperature <T> | --speed <u>) [--fit-speed] [--arrival-sd <σt>] [--drop-outliers] [--outlier-limit <k>]',
-    '       [--sphere <cx,cy,cz,R> | --cylinder <px,py,pz,dx,dy,dz,R> | --plane <px,py,pz,nx,ny,nz>] [--json]',
+    'locate FILE (--temperature <T> | --speed <u>) [--fit-speed] [--arrival-sd <σt>] [--json]',
+    'locate FILE … [--drop-outliers] [--outlier-limit <k>] [--sphere <cx,cy,cz,R> | --cylinder <px,py,pz,dx,dy,dz,R> | --plane <px,py,pz,nx,ny,nz>]',
   ],
   description:
     'Finds the point x and emission time t0 that best explain the arrival times t_i = t0 + |x − s_i|/u at ' +

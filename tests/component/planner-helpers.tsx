@@ -55,3 +55,10 @@ export async function retype(user: ReturnType<typeof userEvent.setup>, name: str
   await user.type(input, text);
   return input;
 }
+
+/** Times (ms) of a sensor's arrivals of one kind, as marked on the last drawn timeline. */
+export function arrivalTimes(sensorId: string, kind: 'first sound' | 'second sound' | 'echo'): number[] {
+  const marks = lastDraw('planner-timeline')?.data.find((t) => t.name === 'Arrivals');
+  if (!marks) return [];
+  return (marks.text ?? []).flatMap((text, i) => (text.startsWith(`${sensorId} · ${kind}`) ? [marks.x[i] as number] : []));
+}

@@ -4,7 +4,7 @@ import { field, openPlanner, retype, store } from './planner-helpers';
 
 const sensors = () => store().plannerPlan.sensors;
 const resultRows = () => within(screen.getByRole('table', { name: /predicted arrivals/i })).getAllByRole('row').slice(1);
-const sensorTraces = () => lastDraw('planner-timeline')?.data.filter((t) => t.mode === 'lines' && t.yaxis === undefined) ?? [];
+const sensorTraces = () => lastDraw('planner-timeline')?.data.filter((t) => t.legendgroup !== undefined && !t.legendgroup.startsWith('arrivals-')) ?? [];
 
 describe('planner sensors', { timeout: 20_000 }, () => {
   it('adds a sensor beyond the farthest one; the results table and the timeline follow', async () => {

@@ -104,7 +104,13 @@ function RecomputeTime() {
   if (times.timeline_ms === null) return <span className="recompute-time" data-recompute-ms="" />;
   const map = times.map_ms === null ? '' : `; map ${times.map_ms.toFixed(1)} ms`;
   return (
-    <span className="recompute-time" data-recompute-ms={times.timeline_ms.toFixed(2)} data-map-ms={times.map_ms?.toFixed(2) ?? ''} title="From the edit to the redrawn results and timeline, measured in this browser">
+    <span
+      className="recompute-time"
+      data-recompute-ms={times.timeline_ms.toFixed(2)}
+      data-map-ms={times.map_ms?.toFixed(2) ?? ''}
+      data-edits={times.edits}
+      title="From the edit to the redrawn results and timeline, measured in this browser"
+    >
       Recomputed in {times.timeline_ms.toFixed(1)} ms{map}
     </span>
   );

@@ -1,42 +1,46 @@
-import { useDeferredValue, useId, useMemo } from 'react';
+import { useEffect, useId, useMemo, useState } from 'react';
 import { SPACER_MATERIALS } from '../../physics';
 import { ChartFigure } from '../charts/ChartFigure';
 import { PlotlyChart } from '../plot/PlotlyChart';
 import { useSekundoStore } from '../store';
 import { LADDERS, readText } from './display-units';
 import { MAP_DISTANCE_RANGE_M, type MapSensor, mapFigure, mapGrid, onMap, spreadAt } from './resolution-map';
-import { reportDrawn } from './recompute-timer';
+import { markMapStart, reportDrawn } from './recompute-timer';
 import { usePlanOutcome } from './use-plan';
 
 export const MAP_CHART_ID = 'planner-resolution-map';
 
+/** How long typing must pause before the map follows, ms. */
+const MAP_SETTLE_MS = 150;
+
 /**
  * Temperature sd over temperature × distance for one sensor's timing and distance uncertainty.
- * Drawn from a deferred copy of the plan, so typing never waits for the map.
+ * It follows the plan once typing pauses, so a keystroke never waits for the map.
  */
 export function ResolutionMap() {
-  const outcome = useDeferredValue(usePlanOutcome());
+  const outcome = useSettledValue(usePlanOutcome(), MAP_SETTLE_MS);
   const sensorKeys = useSekundoStore((s) => s.plannerSensorKeys);
   const chosenKey = useSekundoStore((s) => s.plannerMapSensorKey);
   const choose = useSekundoStore((s) => s.setPlannerMapSensor);
-  const spacer = useSekundoStore((s) => s.plannerPlan.spacer);
   const selectId = useId();
   const index = Math.max(0, chosenKey === null ? 0 : sensorKeys.indexOf(chosenKey));
   const result = outcome.ok ? outcome.result : null;
   const sensor = result?.sensors[index] ?? result?.sensors[0] ?? null;
   const planSensor = outcome.ok ? outcome.input.sensors[index] : undefined;
-  const material = SPACER_MATERIALS.find((m) => m.id === spacer.materialId);
+  const spacer = outcome.ok ? outcome.input.spacer : null;
+  const material = SPACER_MATERIALS.find((m) => m.id === spacer?.materialId);
+  const measuredWarm = spacer?.measuredWarm ?? false;
 
   const mapSensor: MapSensor | null = useMemo(() => {
     if (!sensor || sensor.timingSd_s === null || !planSensor) return null;
-    const scale = spacer.measuredWarm ? 1 - (material?.contraction ?? 0) : 1;
+    const scale = measuredWarm ? 1 - (material?.contraction ?? 0) : 1;
     return {
       timingSd_s: sensor.timingSd_s,
       distanceSd_m: planSensor.distanceSd_m * scale,
-      contractionSd: spacer.measuredWarm ? (material?.contractionSd ?? 0) / scale : 0,
+      contractionSd: measuredWarm ? (material?.contractionSd ?? 0) / scale : 0,
       lag_s: planSensor.lag_s,
     };
-  }, [sensor, planSensor, spacer.measuredWarm, material]);
+  }, [sensor, planSensor, measuredWarm, material]);
 
   const T = result?.temperature_K ?? Number.NaN;
   const distance = sensor?.pathLength_m ?? Number.NaN;
@@ -99,4 +103,18 @@ export function ResolutionMap() {
       </div>
     </ChartFigure>
   );
+}
+
+/** `value`, but only once it has stayed the same for `delay_ms` (the first value at once). */
+function useSettledValue<T>(value: T, delay_ms: number): T {
+  const [settled, setSettled] = useState(value);
+  useEffect(() => {
+    if (Object.is(value, settled)) return;
+    const timer = setTimeout(() => {
+      markMapStart();
+      setSettled(value);
+    }, delay_ms);
+    return () => clearTimeout(timer);
+  }, [value, settled, delay_ms]);
+  return settled;
 }

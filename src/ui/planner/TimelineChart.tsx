@@ -4,7 +4,7 @@ import { PlotlyChart } from '../plot/PlotlyChart';
 import { useSekundoStore } from '../store';
 import type { TimelineView } from '../store/planner-slice';
 import { reportDrawn } from './recompute-timer';
-import { formatMs, timelineFigure } from './timeline-figure';
+import { formatMs, type TimelineKeyEntry, timelineFigure } from './timeline-figure';
 import { usePlanOutcome } from './use-plan';
 import { useElementWidth } from './use-width';
 
@@ -41,7 +41,8 @@ export function TimelineChart() {
       caption={
         <>
           <span className="caption-values">{summary}</span> Top: heater flux. Below: predicted δT at each sensor (linear
-          theory). Markers: ▽ dotted first sound, ▼ solid second sound, ◇ dashed echoes. Shaded: the record window.
+          theory). Vertical lines mark the arrivals; each marker on top has its sensor’s colour. Shaded: the record
+          window.
         </>
       }
     >
@@ -63,6 +64,7 @@ export function TimelineChart() {
           onDrawn={() => reportDrawn('timeline')}
         />
       </div>
+      <TimelineKey entries={figure.key} />
     </ChartFigure>
   );
 }
@@ -71,4 +73,51 @@ export function TimelineChart() {
 function spanText([from, to]: [number, number]): string {
   const ms = (t: number) => String(Number((t * 1e3).toPrecision(3))).replace(/^-/, '\u2212');
   return `${ms(from)} to ${ms(to)} ms`;
+}
+
+/** The chart's key in HTML: what each colour and line style means. */
+function TimelineKey({ entries }: { entries: readonly TimelineKeyEntry[] }) {
+  return (
+    <ul className="timeline-key" aria-label="Key to the timeline">
+      {entries.map((entry) => (
+        <li key={entry.label} className={`timeline-key__item timeline-key__item--${entry.kind.replace(' ', '-')}`}>
+          <svg viewBox="0 0 28 12" width="28" height="12" aria-hidden="true" focusable="false">
+            <KeySymbol entry={entry} />
+          </svg>
+          {entry.label}
+        </li>
+      ))}
+    </ul>
+  );
+}
+
+function KeySymbol({ entry }: { entry: TimelineKeyEntry }) {
+  const stroke = entry.colour;
+  switch (entry.kind) {
+    case 'fill':
+      return <path d="M1 11V3h12v8z" fill="rgba(90, 110, 138, 0.22)" stroke={stroke} strokeWidth="1.2" />;
+    case 'line':
+      return <path d="M1 6h26" stroke={stroke} strokeWidth="2.4" />;
+    case 'first sound':
+      return (
+        <>
+          <path d="M14 4v8" stroke={stroke} strokeWidth="1.4" strokeDasharray="1.5 1.5" />
+          <path d="M10.5 1h7L14 5z" fill="none" stroke={stroke} strokeWidth="1.1" />
+        </>
+      );
+    case 'second sound':
+      return (
+        <>
+          <path d="M14 4v8" stroke={stroke} strokeWidth="1.4" />
+          <path d="M10.5 1h7L14 5z" fill={stroke} />
+        </>
+      );
+    default:
+      return (
+        <>
+          <path d="M14 5v7" stroke={stroke} strokeWidth="1.2" strokeDasharray="3 1.5" />
+          <path d="M14 0.5l2.5 2.5L14 5.5 11.5 3z" fill="none" stroke={stroke} strokeWidth="1.1" />
+        </>
+      );
+  }
 }

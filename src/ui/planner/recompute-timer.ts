@@ -10,7 +10,10 @@ export type TimedChart = 'timeline' | 'map';
 export interface RecomputeTimes {
   /** Edit → results table and timeline redrawn, ms; null before the first timed edit. */
   timeline_ms: number | null;
-  /** Edit → resolution map redrawn, ms (drawn after the timeline, without holding up typing). */
+  /**
+   * Resolution map recomputed and redrawn, ms, from the moment it starts (it waits until typing
+   * pauses, so it never holds up the timeline).
+   */
   map_ms: number | null;
   /** Edits timed so far. */
   edits: number;
@@ -22,9 +25,12 @@ const listeners = new Set<() => void>();
 
 /** Marks the moment the plan changed (called by the store just before it updates). */
 export function markPlanEdit(): void {
-  const now = performance.now();
-  pending.timeline = now;
-  pending.map = now;
+  pending.timeline = performance.now();
+}
+
+/** The map starts its recompute now (after typing paused): its figure is timed from here. */
+export function markMapStart(): void {
+  pending.map = performance.now();
 }
 
 /** A chart finished drawing; if an edit is pending for it, its time is recorded. */

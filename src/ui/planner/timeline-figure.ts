@@ -16,8 +16,18 @@ const MS = 1e3;
 const SENSOR_DOMAIN: [number, number] = [0, 0.76];
 const HEATER_DOMAIN: [number, number] = [0.84, 1];
 
+/** One entry of the chart's key. */
+export interface TimelineKeyEntry {
+  label: string;
+  colour: string;
+  /** How the entry is drawn: a line, a filled pulse, or an arrival line with its marker. */
+  kind: 'line' | 'fill' | 'first sound' | 'second sound' | 'echo';
+}
+
 export interface TimelineFigure {
   data: PlotTrace[];
+  /** The key: heater, each sensor in its colour, the three kinds of arrival line. */
+  key: TimelineKeyEntry[];
   layout: PlotLayout;
   /** Time span shown, s. */
   range_s: [number, number];
@@ -52,12 +62,25 @@ export function timelineRange(result: PlanResult, view: TimelineView): [number, 
     return [from - pad, to + pad];
   }
   const directEnds = sensors.map((s) => (s.secondSoundArrival_s === null ? s.firstSoundArrival_s + duration : segmentEnd(s.waveform, s.secondSoundArrival_s)));
-  const to = Math.max(duration, ...directEnds) * 1.12;
+  // Rounded up to a tidy span, so the axis holds still while a value is being typed.
+  const to = tidyCeil(Math.max(duration, ...directEnds) * 1.08);
   return [-0.05 * to, to];
 }
 
+/** The smallest of 1, 1.2, 1.5, 2, 2.5, 3, 4, 5, 6, 8 × 10ⁿ at or above x (x > 0). */
+export function tidyCeil(x: number): number {
+  const power = 10 ** Math.floor(Math.log10(x));
+  const mantissa = x / power;
+  const step = [1, 1.2, 1.5, 2, 2.5, 3, 4, 5, 6, 8, 10].find((k) => k >= mantissa * (1 - 1e-12)) ?? 10;
+  return step * power;
+}
+
+type ArrivalKind = 'first sound' | 'second sound' | 'echo';
+const ARRIVAL_KINDS: readonly ArrivalKind[] = ['first sound', 'second sound', 'echo'];
+const ARRIVAL_LEGEND: Record<ArrivalKind, string> = { 'first sound': 'First sound', 'second sound': 'Second sound', echo: 'Echoes' };
+
 interface Arrival {
-  kind: 'first sound' | 'second sound' | 'echo';
+  kind: ArrivalKind;
   t_s: number;
   detail: string;
 }
@@ -73,9 +96,9 @@ function arrivalsOf(sensor: SensorPlanResult): Arrival[] {
 }
 
 const MARKER_STYLE = {
-  'first sound': { dash: 'dot', width: 1.2, symbol: 'triangle-down-open' },
-  'second sound': { dash: 'solid', width: 1.8, symbol: 'triangle-down' },
-  echo: { dash: 'dash', width: 1, symbol: 'diamond-open' },
+  'first sound': { dash: 'dot', width: 1.2, symbol: 'triangle-down-open', colour: 'rgba(74, 92, 156, 0.75)' },
+  'second sound': { dash: 'solid', width: 1.3, symbol: 'triangle-down', colour: 'rgba(16, 34, 58, 0.55)' },
+  echo: { dash: 'dash', width: 1, symbol: 'diamond-open', colour: 'rgba(90, 110, 138, 0.55)' },
 } as const;
 
 function peakOf(sensor: SensorPlanResult): { min: number; max: number } {
@@ -102,10 +125,13 @@ export function timelineFigure(result: PlanResult, view: TimelineView, columns: 
     LADDERS.temperatureDifference,
   );
   const scale = (v: number) => inUnit(v, amplitudeUnit);
-  const low = scale(Math.min(0, ...peaks.map((p) => p.min)));
-  const high = scale(Math.max(...peaks.map((p) => p.max)));
-  const span = high - low || 1;
-  const yRange: [number, number] = [low - 0.08 * span, high + 0.2 * span];
+  const lowest = scale(Math.min(0, ...peaks.map((p) => p.min)));
+  const highest = scale(Math.max(...peaks.map((p) => p.max)));
+  // Tidy limits too: the δT axis only moves when the peaks change noticeably.
+  const high = highest > 0 ? tidyCeil(highest * 1.2) : 1;
+  const low = lowest < 0 ? -tidyCeil(-lowest * 1.1) : 0;
+  const span = high - low;
+  const yRange: [number, number] = [low - 0.06 * span, high];
   const markerY = yRange[1] - 0.06 * (yRange[1] - yRange[0]);
 
   const heaterLine = decimateSegments([result.heaterPulse], from, to, columns);
@@ -124,6 +150,8 @@ export function timelineFigure(result: PlanResult, view: TimelineView, columns: 
     },
   ];
   const shapes: PlotShape[] = [recordWindow(result)];
+  const marks: { t_ms: number; colour: string; symbol: string; text: string }[] = [];
+  const lines: Record<ArrivalKind, number[]> = { 'first sound': [], 'second sound': [], echo: [] };
   result.sensors.forEach((sensor, i) => {
     const colour = sensorColour(i);
     const line = decimateSegments(sensor.waveform, from, to, columns);
@@ -139,49 +167,62 @@ export function timelineFigure(result: PlanResult, view: TimelineView, columns: 
       hovertemplate: `${escapeHover(sensor.id)}: t = %{x:.4g} ms, δT = %{y:.3g} ${amplitudeUnit.shown}<extra></extra>`,
     });
     const arrivals = arrivalsOf(sensor).filter((a) => a.t_s >= from && a.t_s <= to);
+    for (const a of arrivals) {
+      marks.push({ t_ms: a.t_s * MS, colour, symbol: MARKER_STYLE[a.kind].symbol, text: `${escapeHover(sensor.id)} · ${a.detail}: ${formatMs(a.t_s)}` });
+      lines[a.kind].push(a.t_s * MS);
+    }
+  });
+
+  // The vertical arrival lines: one trace per kind (a few traces draw much faster than dozens of
+  // shapes); the coloured marker on top of each line says which sensor it belongs to.
+  for (const kind of ARRIVAL_KINDS) {
+    const times = lines[kind];
+    const style = MARKER_STYLE[kind];
     data.push({
       type: 'scatter',
-      name: `${name} arrivals`,
-      legendgroup: sensor.id,
-      showlegend: false,
-      x: arrivals.map((a) => a.t_s * MS),
-      y: arrivals.map(() => markerY),
-      mode: 'markers',
-      marker: { color: colour, size: 9, symbol: arrivals.map((a) => MARKER_STYLE[a.kind].symbol), line: { color: colour, width: 1.2 } },
-      text: arrivals.map((a) => `${escapeHover(sensor.id)} · ${a.detail}: ${formatMs(a.t_s)}`),
-      hovertemplate: '%{text}<extra></extra>',
-      cliponaxis: false,
+      name: ARRIVAL_LEGEND[kind],
+      legendgroup: `arrivals-${kind}`,
+      x: times.flatMap((t) => [t, t, t]),
+      y: times.flatMap(() => [yRange[0], markerY, null]),
+      mode: 'lines',
+      line: { color: style.colour, width: style.width, dash: style.dash },
+      hoverinfo: 'skip',
+      connectgaps: false,
     });
-    for (const a of arrivals) {
-      const style = MARKER_STYLE[a.kind];
-      shapes.push({
-        name: `arrival-${sensor.id}-${a.kind.replace(' ', '-')}`,
-        type: 'line',
-        xref: 'x',
-        yref: 'paper',
-        x0: a.t_s * MS,
-        x1: a.t_s * MS,
-        y0: SENSOR_DOMAIN[0],
-        y1: SENSOR_DOMAIN[1],
-        line: { color: colour, width: style.width, dash: style.dash },
-        opacity: a.kind === 'echo' ? 0.55 : 0.8,
-        layer: 'below',
-      });
-    }
+  }
+
+  // Every arrival's marker in one trace, in its sensor's colour, with the arrival in the hover text.
+  data.push({
+    type: 'scatter',
+    name: 'Arrivals',
+    showlegend: false,
+    x: marks.map((m) => m.t_ms),
+    y: marks.map(() => markerY),
+    mode: 'markers',
+    marker: { color: marks.map((m) => m.colour), size: 9, symbol: marks.map((m) => m.symbol), line: { color: marks.map((m) => m.colour), width: 1.2 } },
+    text: marks.map((m) => m.text),
+    hovertemplate: '%{text}<extra></extra>',
+    cliponaxis: false,
   });
 
   const layout: PlotLayout = {
     ...baseLayout(),
     margin: { l: 64, r: 16, t: 8, b: 46 },
     dragmode: 'zoom',
-    legend: { orientation: 'h', x: 0, y: -0.2, xanchor: 'left', yanchor: 'top', font: { size: 12 } },
+    // The key is drawn in HTML beside the chart (TimelineKey): cheaper to redraw while typing.
+    showlegend: false,
     xaxis: axis('Time after the heater pulse starts (ms)', { range: [from * MS, to * MS], fixedrange: true, anchor: 'y', zeroline: true }),
     yaxis: axis(`δT at sensor (${amplitudeUnit.shown})`, { domain: SENSOR_DOMAIN, range: yRange, anchor: 'x' }),
     yaxis2: axis('Heater', { domain: HEATER_DOMAIN, range: [0, 1.15], anchor: 'x', showticklabels: false, fixedrange: true, ticks: '' }),
     shapes,
     annotations: recordLabels(result, from, to),
   };
-  return { data, layout, range_s: [from, to], amplitudeUnit };
+  const key: TimelineKeyEntry[] = [
+    { label: 'Heater flux', colour: PLANNER_COLOURS.heater, kind: 'fill' },
+    ...result.sensors.map((sensor, i): TimelineKeyEntry => ({ label: `${sensor.label} (${sensor.id})`, colour: sensorColour(i), kind: 'line' })),
+    ...ARRIVAL_KINDS.map((kind): TimelineKeyEntry => ({ label: ARRIVAL_LEGEND[kind], colour: MARKER_STYLE[kind].colour, kind })),
+  ];
+  return { data, key, layout, range_s: [from, to], amplitudeUnit };
 }
 
 function recordWindow(result: PlanResult): PlotShape {

@@ -10,7 +10,8 @@ export interface PlotFont {
 }
 
 export interface PlotLine {
-  color?: string;
+  /** One colour (a marker outline may take one per point). */
+  color?: string | readonly string[];
   width?: number;
   dash?: 'solid' | 'dot' | 'dash' | 'longdash' | 'dashdot';
   shape?: 'linear' | 'spline';
@@ -31,8 +32,8 @@ export interface PlotColorBar {
 }
 
 export interface PlotMarker {
-  /** One colour, or one number per point read through `colorscale`. */
-  color?: string | readonly number[];
+  /** One colour, one colour per point, or one number per point read through `colorscale`. */
+  color?: string | readonly string[] | readonly number[];
   size?: number;
   /** One symbol, or one per point. */
   symbol?: string | readonly string[];

@@ -1,0 +1,167 @@
+import { mkdirSync } from 'node:fs';
+import { expect, type Page, test } from '@playwright/test';
+
+const ARTIFACTS = 'test-results/artifacts';
+const TIMELINE = '[data-chart="planner-timeline"]';
+const MAP = '[data-chart="planner-resolution-map"]';
+
+interface DrawnTrace {
+  name: string;
+  x: number[];
+  y: (number | null)[];
+}
+
+/** The traces Plotly holds on the drawn timeline. */
+function timelineTraces(page: Page): Promise<DrawnTrace[]> {
+  return page.evaluate((selector) => {
+    const plot = document.querySelector(selector) as (HTMLElement & { data?: DrawnTrace[] }) | null;
+    return (plot?.data ?? []).map((t) => ({ name: t.name, x: Array.from(t.x), y: Array.from(t.y) }));
+  }, TIMELINE);
+}
+
+/** Time (ms) of the peak of a sensor's waveform on the drawn timeline. */
+async function peakTime(page: Page, sensorId: string): Promise<number | null> {
+  const trace = (await timelineTraces(page)).find((t) => t.name.endsWith(`(${sensorId})`));
+  if (!trace) return null;
+  let best = 0;
+  trace.y.forEach((v, i) => {
+    if ((v ?? 0) > (trace.y[best] ?? 0)) best = i;
+  });
+  return trace.x[best] ?? null;
+}
+
+/** Time (ms) of a sensor's arrival as marked on the drawn timeline (the markers' hover text names it). */
+function arrivalX(page: Page, sensorId: string, kind: string): Promise<number | null> {
+  return page.evaluate(
+    ([selector, prefix]) => {
+      const plot = document.querySelector(selector as string) as (HTMLElement & { data?: { name: string; x: number[]; text?: string[] }[] }) | null;
+      const marks = plot?.data?.find((t) => t.name === 'Arrivals');
+      const i = marks?.text?.findIndex((t) => t.startsWith(prefix as string)) ?? -1;
+      return i >= 0 ? (marks?.x[i] ?? null) : null;
+    },
+    [TIMELINE, `${sensorId} · ${kind}`],
+  );
+}
+
+async function openPlanner(page: Page) {
+  await page.goto('/');
+  await page.getByRole('tab', { name: 'Plan a measurement' }).click();
+  await expect(page.getByText('Demo plan (invented setup)')).toBeVisible();
+  await expect(page.locator(TIMELINE)).toHaveAttribute('data-drawn', 'true');
+  await expect(page.locator(MAP)).toHaveAttribute('data-drawn', 'true');
+}
+
+/** Number of timed edits so far (the page counts each edit → redrawn timeline). */
+async function timedEdits(page: Page): Promise<number> {
+  return Number((await page.locator('.recompute-time').getAttribute('data-edits')) ?? 0);
+}
+
+test.describe('measurement planner', () => {
+  const requests: string[] = [];
+  const problems: string[] = [];
+
+  test.beforeEach(async ({ page }) => {
+    requests.length = 0;
+    problems.length = 0;
+    page.on('request', (request) => requests.push(request.url()));
+    page.on('pageerror', (error) => problems.push(`page error: ${error.message}`));
+    page.on('console', (message) => {
+      if (message.type() === 'error') problems.push(`console: ${message.text()}`);
+    });
+  });
+
+  test.afterEach(() => {
+    const outside = requests.filter((url) => {
+      const { protocol, hostname } = new URL(url);
+      return !(protocol === 'data:' || protocol === 'blob:' || hostname === '127.0.0.1');
+    });
+    expect(outside, 'no request may leave 127.0.0.1').toEqual([]);
+    expect(problems).toEqual([]);
+  });
+
+  test('the demo opens; moving a sensor moves its pulse and brings an echo warning', async ({ page }) => {
+    await openPlanner(page);
+    expect(requests.some((url) => url.endsWith('/demo-plan.json'))).toBe(true);
+    await expect(page.getByRole('textbox', { name: 'Plan name' })).toHaveValue(/Orrin-2 insert/);
+    await expect(page.getByRole('textbox', { name: 'Sensor 4 distance', exact: true })).toHaveValue('50 mm');
+    const table = page.getByRole('table', { name: /predicted arrivals/i });
+    await expect(table.getByRole('row')).toHaveCount(5);
+    await expect(page.locator('[data-code="echo-overlap"]')).toHaveCount(0);
+
+    const peakBefore = (await peakTime(page, 'b50')) ?? Number.NaN;
+    const arrivalBefore = (await arrivalX(page, 'b50', 'second sound')) ?? Number.NaN;
+    expect(peakBefore).toBeGreaterThan(arrivalBefore);
+    expect(arrivalBefore).toBeCloseTo(2.5247, 3);
+
+    // The sensor goes from 50 mm to 59.9 mm, right under the glass lid at 60 mm.
+    await page.getByRole('textbox', { name: 'Sensor 4 distance', exact: true }).fill('59.9 mm');
+    await expect.poll(() => arrivalX(page, 'b50', 'second sound')).toBeGreaterThan(arrivalBefore + 0.4);
+    const arrivalAfter = (await arrivalX(page, 'b50', 'second sound')) ?? Number.NaN;
+    // 9.87 mm further (cold) at u2 ≈ 19.75 m/s: about 0.5 ms later.
+    expect(arrivalAfter - arrivalBefore).toBeCloseTo(0.4997, 2);
+    await expect.poll(() => peakTime(page, 'b50')).toBeGreaterThan(peakBefore + 0.4);
+    const echo = page.locator('[data-code="echo-overlap"]');
+    await expect(echo).toHaveCount(1);
+    await expect(echo).toContainText('Caution');
+    await expect(echo).toContainText('(b50)');
+    await expect(table.getByRole('row').nth(4)).toContainText('3.021');
+
+    // A bad entry keeps the plan: the timeline stays where it was.
+    await page.getByRole('textbox', { name: 'Sensor 4 distance', exact: true }).fill('-3 mm');
+    await expect(page.getByRole('alert')).toContainText('Sensor 4 distance must be 1 µm–100 m');
+    expect(await arrivalX(page, 'b50', 'second sound')).toBe(arrivalAfter);
+    await page.getByRole('textbox', { name: 'Sensor 4 distance', exact: true }).press('Escape');
+    await expect(page.getByRole('alert')).toHaveCount(0);
+
+    await page.mouse.move(0, 0);
+    mkdirSync(ARTIFACTS, { recursive: true });
+    await page.screenshot({ path: `${ARTIFACTS}/planner.png` });
+    await page.screenshot({ path: `${ARTIFACTS}/planner-full-page.png`, fullPage: true });
+  });
+
+  test('reads well at 1600×1000', async ({ page }) => {
+    await page.setViewportSize({ width: 1600, height: 1000 });
+    await openPlanner(page);
+    await expect(page.getByRole('complementary', { name: 'Heater safety' })).toContainText('licensed safety practice');
+    await page.mouse.move(0, 0);
+    mkdirSync(ARTIFACTS, { recursive: true });
+    await page.screenshot({ path: `${ARTIFACTS}/planner-1600x1000.png` });
+    await page.getByRole('heading', { name: 'Temperature resolution map' }).scrollIntoViewIfNeeded();
+    await page.screenshot({ path: `${ARTIFACTS}/planner-map-1600x1000.png` });
+  });
+
+  test('recompute and redraw time per edit with eight sensors', async ({ page }) => {
+    await openPlanner(page);
+    for (let i = 0; i < 4; i++) await page.getByRole('button', { name: 'Add sensor' }).click();
+    await expect(page.getByRole('table', { name: /predicted arrivals/i }).getByRole('row')).toHaveCount(9);
+    await expect.poll(async () => (await timelineTraces(page)).filter((t) => /\(s\d+\)$/.test(t.name)).length).toBe(4);
+
+    const field = page.getByRole('textbox', { name: 'Sensor 1 distance', exact: true });
+    // A few edits first, so the figures are of the page at work rather than of the first compile.
+    for (const warmUp of ['10.2 mm', '10.4 mm', '10.6 mm', '10.8 mm']) {
+      const before = await timedEdits(page);
+      await field.fill(warmUp);
+      await expect.poll(() => timedEdits(page)).toBe(before + 1);
+    }
+    const figures: number[] = [];
+    const spacings = ['11 mm', '12 mm', '13 mm', '14 mm', '15 mm', '16 mm', '17 mm', '18 mm', '19 mm', '20 mm', '12.5 mm', '10 mm'];
+    for (const spacing of spacings) {
+      const before = await timedEdits(page);
+      await field.fill(spacing);
+      await expect.poll(() => timedEdits(page)).toBe(before + 1);
+      figures.push(Number(await page.locator('.recompute-time').getAttribute('data-recompute-ms')));
+    }
+    // The map follows once typing pauses; its own recompute and redraw time is shown beside.
+    await expect.poll(async () => (await page.locator('.recompute-time').getAttribute('data-map-ms')) ?? '').not.toBe('');
+    const mapFigure = Number(await page.locator('.recompute-time').getAttribute('data-map-ms'));
+    const sorted = [...figures].sort((a, b) => a - b);
+    const median = sorted[Math.floor(sorted.length / 2)] ?? Number.NaN;
+    const worst = sorted[sorted.length - 1] ?? Number.NaN;
+    const all = figures.map((f) => f.toFixed(0)).join(', ');
+    const report = `8-sensor plan, ${figures.length} edits: edit → results + timeline redrawn median ${median.toFixed(1)} ms, worst ${worst.toFixed(1)} ms (budget 50 ms; all: ${all}); resolution map, once typing pauses, ${mapFigure.toFixed(1)} ms`;
+    console.log(report);
+    test.info().annotations.push({ type: 'recompute', description: report });
+    await expect(page.locator('.recompute-time')).toContainText(/Recomputed in \d+(\.\d)? ms/);
+    expect(figures.every((f) => Number.isFinite(f) && f > 0)).toBe(true);
+  });
+});

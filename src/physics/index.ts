@@ -107,6 +107,7 @@ export {
   bestAddedSensor,
   type ConfidenceRegion,
   type LayoutOptions,
+  type LayoutScore,
   type LocateOptions,
   type LocateResult,
   layoutQuality,

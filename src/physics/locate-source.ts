@@ -525,23 +525,51 @@ export function layoutQuality(sensors: readonly Vec3[], sources: readonly Vec3[]
   });
 }
 
+/** How well a layout serves a region: the mean expected sd over the sources it can fix, and how many it cannot. */
+export interface LayoutScore {
+  /** Mean expected position sd over the sources the layout fixes, m (Infinity if it fixes none). */
+  meanSd_m: number;
+  /** Sources the layout cannot fix at all (sensors on a line through them, and the like). */
+  unfixable: number;
+}
+
+function score(values: readonly number[]): LayoutScore {
+  const finite = values.filter(Number.isFinite);
+  return {
+    meanSd_m: finite.length > 0 ? finite.reduce((a, b) => a + b, 0) / finite.length : Number.POSITIVE_INFINITY,
+    unfixable: values.length - finite.length,
+  };
+}
+
+/** True when layout score a beats b: fewer unfixable sources first, then the smaller mean sd. */
+function better(a: LayoutScore, b: LayoutScore): boolean {
+  return a.unfixable < b.unfixable || (a.unfixable === b.unfixable && a.meanSd_m < b.meanSd_m);
+}
+
 /**
- * Which one of `candidates`, added to the sensors, lowers the mean expected position uncertainty
- * over `sources` the most. Returns its index and the mean before and after.
+ * Which one of `candidates`, added to the sensors, serves the region of `sources` best: first by
+ * how many sources it leaves unfixable, then by the mean expected position sd over the rest.
+ * Returns its index and the score before and after.
  */
 export function bestAddedSensor(
   sensors: readonly Vec3[],
   candidates: readonly Vec3[],
   sources: readonly Vec3[],
   o: LayoutOptions,
-): { index: number; meanSd_m: number; baselineMeanSd_m: number } {
+): { index: number; meanSd_m: number; unfixable: number; baselineMeanSd_m: number; baselineUnfixable: number } {
   if (candidates.length === 0) throw new InvalidInputError('candidate positions', 'give at least one');
-  const mean = (xs: number[]) => xs.reduce((a, b) => a + b, 0) / xs.length;
-  const baseline = mean(layoutQuality(sensors, sources, o));
-  let best = { index: 0, meanSd_m: Number.POSITIVE_INFINITY };
+  if (sources.length === 0) throw new InvalidInputError('source positions', 'give at least one');
+  const baseline = score(layoutQuality(sensors, sources, o));
+  let best = { index: 0, s: { meanSd_m: Number.POSITIVE_INFINITY, unfixable: Number.POSITIVE_INFINITY } as LayoutScore };
   candidates.forEach((c, i) => {
-    const m = mean(layoutQuality([...sensors, c], sources, o));
-    if (m < best.meanSd_m) best = { index: i, meanSd_m: m };
+    const s = score(layoutQuality([...sensors, c], sources, o));
+    if (better(s, best.s)) best = { index: i, s };
   });
-  return { ...best, baselineMeanSd_m: baseline };
+  return {
+    index: best.index,
+    meanSd_m: best.s.meanSd_m,
+    unfixable: best.s.unfixable,
+    baselineMeanSd_m: baseline.meanSd_m,
+    baselineUnfixable: baseline.unfixable,
+  };
 }

@@ -167,3 +167,19 @@ describe('layout quality before cooldown', () => {
     expect(best.meanSd_m).toBeLessThan(best.baselineMeanSd_m);
   });
 });
+
+describe('best added sensor with sources the layout cannot fix', () => {
+  it('prefers the candidate that fixes every source, then the smaller mean sd', () => {
+    const options = { speed_m_s: U2, arrivalSd_s: SD, fitSpeed: false, constraint: { kind: 'none' } as const };
+    const line: Vec3[] = [0, 1, 2, 3].map((i) => [0.05 * i, 0, 0]);
+    // Sensors on a line fix no source. Adding one on the line changes nothing; adding one off it
+    // makes the layout planar: sources off that plane become fixable, those in it stay unfixable.
+    const sources: Vec3[] = [[0.07, 0, 0], [0.05, 0.05, 0.05]];
+    const candidates: Vec3[] = [[0.2, 0, 0], [0.05, 0.1, -0.03]];
+    const best = bestAddedSensor(line, candidates, sources, options);
+    expect(best.baselineUnfixable).toBe(2);
+    expect(best.index).toBe(1);
+    expect(best.unfixable).toBe(1);
+    expect(Number.isFinite(best.meanSd_m)).toBe(true);
+  });
+});

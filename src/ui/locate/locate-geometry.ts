@@ -168,7 +168,8 @@ export function qualityMap(sensors: readonly Vec3[], through: Vec3, pair: PlaneP
   if (candidates.length > 0 && sources.length > 0) {
     const found = bestAddedSensor(sensors, candidates, sources, o);
     const position = candidates[found.index];
-    if (position && Number.isFinite(found.meanSd_m) && found.meanSd_m < found.baselineMeanSd_m) {
+    const improves = found.unfixable < found.baselineUnfixable || (found.unfixable === found.baselineUnfixable && found.meanSd_m < found.baselineMeanSd_m);
+    if (position && Number.isFinite(found.meanSd_m) && improves) {
       best = { position_m: position, meanSd_m: found.meanSd_m, baselineMeanSd_m: found.baselineMeanSd_m };
     }
   }

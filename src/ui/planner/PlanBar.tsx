@@ -6,6 +6,7 @@ import { PlanTextField } from './PlanField';
 import { setPlanName } from './plan-edits';
 import { downloadPlanFile, readPlanFile } from './plan-file-actions';
 import { useRecomputeTimes } from './recompute-timer';
+import { WarningCounts } from './WarningsList';
 
 const SOURCE_LABEL = { demo: 'Demo plan (invented setup)', 'built-in': 'Built-in plan', file: 'From a file' } as const;
 
@@ -44,6 +45,7 @@ export function PlanBar() {
         />
         <div className="plan-bar__source">
           <span className={`badge plan-source plan-source--${source.kind}`}>{SOURCE_LABEL[source.kind]}</span>
+          <WarningCounts />
           <RecomputeTime />
         </div>
         <div className="plan-bar__actions">

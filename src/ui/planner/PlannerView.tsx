@@ -46,12 +46,12 @@ export function PlannerView() {
           <PanelErrorBoundary panel="warnings list">
             <WarningsList />
           </PanelErrorBoundary>
-          <PanelErrorBoundary panel="heater summary">
-            <HeaterSummary />
-          </PanelErrorBoundary>
         </div>
       </div>
       <SensorsEditor />
+      <PanelErrorBoundary panel="heater summary">
+        <HeaterSummary />
+      </PanelErrorBoundary>
       <PanelErrorBoundary panel="results table">
         <ResultsTable />
       </PanelErrorBoundary>

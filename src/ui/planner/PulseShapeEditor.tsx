@@ -84,14 +84,7 @@ function CustomPoints() {
           ))}
         </tbody>
       </table>
-      {points.map((_, i) => (
-        // biome-ignore lint/suspicious/noArrayIndexKey: messages follow the point rows above
-        <div key={i}>
-          <PlanFieldMessage fieldKey={pulsePointField(i, 0).key} />
-          <PlanFieldMessage fieldKey={pulsePointField(i, 1).key} />
-        </div>
-      ))}
-      <PlanFieldMessage fieldKey="pulse.points" />
+      <PointMessages count={count} />
       <div className="pulse-points__actions">
         <button type="button" className="button button--small" disabled={count >= CUSTOM_PULSE_MAX_POINTS} onClick={() => edit('pulse.points', addPulsePoint, 'pulse.')}>
           Add point
@@ -150,5 +143,19 @@ function PastePoints() {
         </p>
       ) : null}
     </details>
+  );
+}
+
+/** Messages of the point fields (the table cells have no room for them), and of the list itself. */
+function PointMessages({ count }: { count: number }) {
+  const keys = [...Array.from({ length: count }, (_, i) => [pulsePointField(i, 0).key, pulsePointField(i, 1).key]).flat(), 'pulse.points'];
+  const shown = useSekundoStore((s) => keys.filter((k) => s.plannerErrors[k] !== undefined).join('\n'));
+  if (shown === '') return null;
+  return (
+    <div className="pulse-points__messages">
+      {shown.split('\n').map((k) => (
+        <PlanFieldMessage key={k} fieldKey={k} />
+      ))}
+    </div>
   );
 }

@@ -5,6 +5,26 @@ import { warningFigures } from './warning-figures';
 const SEVERITY_ORDER: Record<PlanWarning['severity'], number> = { stop: 0, caution: 1, info: 2 };
 const SEVERITY_TEXT: Record<PlanWarning['severity'], string> = { stop: 'Stop', caution: 'Caution', info: 'Note' };
 
+/** Counts of the plan's warnings by severity, as icon and words, linking to the list (for the plan bar). */
+export function WarningCounts() {
+  const outcome = usePlanOutcome();
+  if (!outcome.ok) return null;
+  const warnings = outcome.result.warnings;
+  return (
+    <a className="plan-warnings__counts plan-warnings__counts--link" href="#planner-warnings-title">
+      {(['stop', 'caution', 'info'] as const).map((sev) => {
+        const n = warnings.filter((w) => w.severity === sev).length;
+        return (
+          <span key={sev} className={`warning-count warning-count--${sev}`}>
+            <SeverityIcon severity={sev} /> {n} {SEVERITY_TEXT[sev].toLowerCase()}
+            {n === 1 ? '' : 's'}
+          </span>
+        );
+      })}
+    </a>
+  );
+}
+
 /** The plan's warnings, most severe first: icon and word for the severity, message, the number and its limit, the sensor. */
 export function WarningsList() {
   const outcome = usePlanOutcome();

@@ -98,8 +98,9 @@ export function inUnit(value: number, unit: DisplayUnit): number {
 export function messageText(value: number, ladder: Ladder, zero?: DisplayUnit): string {
   const unit = unitFor(value, ladder, zero);
   const inUnit = fromBaseUnit(value, unit.unit);
-  // Far below the smallest unit on the ladder: the SI number with its exponent ("1e-15 V").
-  const [number, shown] = value !== 0 && Math.abs(inUnit) < 1e-3 ? [plainNumber(value), (ladder[0] as DisplayUnit).shown] : [plainNumber(inUnit), unit.shown];
+  // Far below the smallest unit on the ladder: the number in the SI unit ("1e-15 V", "0.0001 Hz").
+  const base = ladder.find((d) => fromBaseUnit(1, d.unit) === 1) ?? (ladder[0] as DisplayUnit);
+  const [number, shown] = value !== 0 && Math.abs(inUnit) < 1e-3 ? [plainNumber(value), base.shown] : [plainNumber(inUnit), unit.shown];
   return `${number.replace(/^-/, '\u2212')} ${shown}`;
 }
 

@@ -244,20 +244,21 @@ function recordWindow(result: PlanResult): PlotShape {
 /** "record starts" / "record ends" labels where the window's edges are in view. */
 function recordLabels(result: PlanResult, from: number, to: number): PlotAnnotation[] {
   const labels: PlotAnnotation[] = [];
-  const edge = (name: string, t: number, text: string, xanchor: 'left' | 'right'): PlotAnnotation => ({
+  const edge = (name: string, t: number, text: string, xanchor: 'left' | 'right', y: number): PlotAnnotation => ({
     name,
     text,
     xref: 'x',
     yref: 'paper',
     x: t * MS,
-    y: 1,
+    y,
     xanchor,
     yanchor: 'top',
     showarrow: false,
     font: { size: 11, color: CHART_COLOURS.secondSound },
   });
-  if (result.record.start_s > from && result.record.start_s < to) labels.push(edge('record-start', result.record.start_s, ' record starts', 'left'));
-  if (result.record.end_s > from && result.record.end_s < to) labels.push(edge('record-end', result.record.end_s, 'record ends ', 'right'));
+  // Each label sits to the right of its edge, one above the other, so they never overlap.
+  if (result.record.start_s > from && result.record.start_s < to) labels.push(edge('record-start', result.record.start_s, ' record starts', 'left', 1));
+  if (result.record.end_s > from && result.record.end_s < to) labels.push(edge('record-end', result.record.end_s, ' record ends', 'left', 0.93));
   return labels;
 }
 

@@ -113,9 +113,12 @@ test.describe('measurement planner', () => {
     await page.getByRole('textbox', { name: 'Sensor 4 distance', exact: true }).press('Escape');
     await expect(page.getByRole('alert')).toHaveCount(0);
 
+    // Scrolled just far enough that the timeline and warnings stay in view beside the editors.
+    await page.evaluate(() => window.scrollTo(0, 300));
     await page.mouse.move(0, 0);
     mkdirSync(ARTIFACTS, { recursive: true });
     await page.screenshot({ path: `${ARTIFACTS}/planner.png` });
+    await page.evaluate(() => window.scrollTo(0, 0));
     await page.screenshot({ path: `${ARTIFACTS}/planner-full-page.png`, fullPage: true });
   });
 

@@ -44,7 +44,15 @@ export interface MapGrid {
   /** sd_K[i][j] at temperature i, distance j. */
   sd_K: number[][];
   insensitive: boolean[][];
+  /**
+   * At each temperature, the distance up to which a reading is insensitive (the flag flips there,
+   * found by bisection between grid points); null where it is insensitive nowhere on the grid.
+   */
+  insensitiveUpTo_m: (number | null)[];
 }
+
+/** Bisection steps for the insensitive edge: 2^-12 of a grid step in log distance. */
+const EDGE_BISECTIONS = 12;
 
 /** σ_T (K) and the insensitive flag at one temperature and distance, from the kernel. */
 export function spreadAt(T: number, d: number, sensor: MapSensor, at = { value: secondSound(T), slope: secondSoundSlope(T) }) {
@@ -66,13 +74,31 @@ export function mapGrid(sensor: MapSensor, distanceRange_m: [number, number] = M
   const distance_m = logSpace(distanceRange_m[0], distanceRange_m[1], DISTANCE_POINTS);
   const sd_K: number[][] = [];
   const insensitive: boolean[][] = [];
+  const insensitiveUpTo_m: (number | null)[] = [];
   for (const T of temperature_K) {
     const at = { value: secondSound(T), slope: secondSoundSlope(T) };
     const spreads = distance_m.map((d) => spreadAt(T, d, sensor, at));
+    const flags = spreads.map((s) => s.insensitive);
     sd_K.push(spreads.map((s) => s.sd_K));
-    insensitive.push(spreads.map((s) => s.insensitive));
+    insensitive.push(flags);
+    insensitiveUpTo_m.push(insensitiveEdge(T, at, flags, distance_m, sensor));
   }
-  return { temperature_K, distance_m, sd_K, insensitive };
+  return { temperature_K, distance_m, sd_K, insensitive, insensitiveUpTo_m };
+}
+
+/** Where the insensitive flag turns off along one grid column (it holds at short distances only). */
+function insensitiveEdge(T: number, at: { value: number; slope: number }, flags: readonly boolean[], distance_m: readonly number[], sensor: MapSensor): number | null {
+  if (!flags[0]) return null;
+  const off = flags.indexOf(false);
+  if (off < 0) return distance_m[distance_m.length - 1] as number;
+  let lo = Math.log(distance_m[off - 1] as number);
+  let hi = Math.log(distance_m[off] as number);
+  for (let k = 0; k < EDGE_BISECTIONS; k++) {
+    const mid = (lo + hi) / 2;
+    if (spreadAt(T, Math.exp(mid), sensor, at).insensitive) lo = mid;
+    else hi = mid;
+  }
+  return Math.exp((lo + hi) / 2);
 }
 
 /**
@@ -247,9 +273,7 @@ function colourBarTrace(levels: readonly number[], colours: readonly string[]): 
 function insensitiveTraces(grid: MapGrid): PlotTrace[] {
   const runs: { T: number[]; d: number[] }[] = [];
   let run: { T: number[]; d: number[] } | null = null;
-  grid.insensitive.forEach((flags, i) => {
-    const below = flags.findIndex((f) => !f);
-    const upTo = below === 0 ? null : below < 0 ? (grid.distance_m[grid.distance_m.length - 1] as number) : (grid.distance_m[below] as number);
+  grid.insensitiveUpTo_m.forEach((upTo, i) => {
     if (upTo === null) {
       run = null;
       return;

@@ -258,9 +258,14 @@ test.describe('converter', () => {
     const delay = Number((await page.getByTestId('picked-delay').textContent())?.replace(' ms', ''));
     expect(delay).toBeCloseTo((DISTANCE_M / secondSound(1.8) + 2e-6) * 1e3, 3);
     await expect(page.locator('[data-chart="converter-trace"]')).toHaveAttribute('data-drawn', 'true');
+    // 3.7 million samples: the whole record, then the view around the arrival, each decimated per pixel column.
     await page.evaluate(() => window.scrollTo(0, 0));
     await page.mouse.move(0, 0);
     await page.screenshot({ path: `${ARTIFACTS}/converter-trace-large.png` });
+    await page.getByRole('tab', { name: 'Around the arrival' }).click();
+    await expect.poll(() => page.evaluate(() => (document.querySelector('[data-chart="converter-trace"]') as HTMLElement & { layout?: { xaxis?: { range?: number[] } } })?.layout?.xaxis?.range?.[1] ?? 0)).toBeLessThan(1000);
+    await page.mouse.move(0, 0);
+    await page.screenshot({ path: `${ARTIFACTS}/converter-trace-large-arrival.png` });
   });
 
   test('cancels a large parse', async ({ page }) => {

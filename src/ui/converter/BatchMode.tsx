@@ -188,7 +188,8 @@ function BatchTable({ results }: { results: DelayBatchResults }) {
     <div className="table-scroll batch-table-scroll">
       <table className="properties-table batch-table">
         <caption>
-          Each reading’s speed and temperature{results.count > count ? ` (first ${count} of ${results.count}; the export has them all)` : ''}
+          Each reading’s speed and temperature{results.count > count ? ` (first ${count} of ${results.count}; the export has them all)` : ''}.
+          {results.kind.includes(1) ? ' * marks an extremum of u₂: the speed lies just beyond it, within two sd.' : ''}
         </caption>
         <thead>
           <tr>

@@ -33,7 +33,8 @@ export function viewSpan(samples: TraceSamples, pick: TracePick | null, view: 'r
   const first = t[0] ?? 0;
   const last = t[t.length - 1] ?? 1;
   if (view === 'record' || !pick) return [first, last];
-  const half = Math.max(0.04 * (last - first), 40 * pick.arrivalSd_s);
+  // A fifth of the delay each side shows the whole leading edge and the top of the pulse, whatever the record length.
+  const half = pick.delay_s > 0 ? Math.max(0.2 * pick.delay_s, 40 * pick.arrivalSd_s) : 0.04 * (last - first);
   return [Math.max(first, pick.arrival_s - half), Math.min(last, pick.arrival_s + half)];
 }
 

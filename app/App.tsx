@@ -1,33 +1,49 @@
 import { type KeyboardEvent, useRef } from 'react';
 import { AppHeader } from '../src/ui/layout/AppHeader';
 import { PanelErrorBoundary } from '../src/ui/layout/PanelErrorBoundary';
+import { PreferencesNotice } from '../src/ui/layout/PreferencesNotice';
 import { useSekundoStore } from '../src/ui/store';
+import { useDocumentTheme } from '../src/ui/theme/use-theme';
+import { GuidedTour } from '../src/ui/tour/GuidedTour';
 import { VIEWS } from './views';
 
-/** The page: header, the view tabs, the active view, and the footer. */
+/** The page: header, the view tabs, the active view, and the footer; the tour over them on a first visit. */
 export function App() {
   const activeView = useSekundoStore((s) => s.activeView);
+  // While the tour (a modal dialog) is open, the page behind it takes no focus or clicks.
+  const tourOpen = useSekundoStore((s) => s.tourOpen);
+  const openTour = useSekundoStore((s) => s.openTour);
+  useDocumentTheme();
   const active = VIEWS.find((v) => v.id === activeView) ?? VIEWS[0];
   if (!active) return null;
   const View = active.component;
   return (
     <>
-      <a className="skip-link" href="#view">
+      <a className="skip-link" href="#view" inert={tourOpen}>
         Skip to the content
       </a>
-      <AppHeader />
-      <ViewTabs />
-      <main id="view" className="page" role="tabpanel" aria-labelledby={`tab-${active.id}`} tabIndex={-1}>
+      <div className="app-top" inert={tourOpen}>
+        <AppHeader />
+        <ViewTabs />
+        <PreferencesNotice />
+      </div>
+      <main id="view" className="page" role="tabpanel" aria-labelledby={`tab-${active.id}`} tabIndex={-1} inert={tourOpen}>
         <p className="view-purpose">{active.purpose}</p>
         <PanelErrorBoundary panel={`${active.label} view`}>
           <View />
         </PanelErrorBoundary>
       </main>
-      <footer className="app-footer">
+      <footer className="app-footer" inert={tourOpen}>
         <p>
-          Sekundo computes everything in your browser; it sends nothing anywhere. A planning aid, not a safety system.
+          Sekundo computes everything in your browser; it sends nothing anywhere. A planning aid, not a safety system.{' '}
+          <button type="button" className="inline-link-button" onClick={openTour}>
+            Show the tour again
+          </button>
         </p>
       </footer>
+      <PanelErrorBoundary panel="tour">
+        <GuidedTour />
+      </PanelErrorBoundary>
     </>
   );
 }

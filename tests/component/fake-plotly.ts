@@ -1,4 +1,4 @@
-import type { PlotConfig, PlotLayout, PlotlyApi, PlotShape, PlotTrace } from '../../src/ui/plot/plotly-types';
+import type { PlotConfig, PlotImageOptions, PlotLayout, PlotlyApi, PlotShape, PlotTrace } from '../../src/ui/plot/plotly-types';
 
 /*
  * A stand-in for the Plotly bundle (jsdom cannot draw it): records what each chart is given so
@@ -13,14 +13,22 @@ export interface DrawCall {
   config: PlotConfig;
 }
 
+/** A request for a chart's image (export). */
+export interface ImageCall {
+  chartId: string | null;
+  options: PlotImageOptions;
+}
+
 export const fakePlotly = {
   draws: [] as DrawCall[],
   purged: [] as HTMLElement[],
+  images: [] as ImageCall[],
   /** Chart id whose drawing fails, to exercise the error boundaries. */
   failFor: null as string | null,
   reset(): void {
     this.draws = [];
     this.purged = [];
+    this.images = [];
     this.failFor = null;
   },
 };
@@ -38,6 +46,11 @@ export const fakePlotlyApi: PlotlyApi = {
     fakePlotly.purged.push(element);
   },
   Plots: { resize: () => undefined },
+  toImage(element, options) {
+    fakePlotly.images.push({ chartId: element.getAttribute('data-chart'), options });
+    // A tiny stand-in image: SVG text, or base64 for PNG ("PNG" in ASCII).
+    return Promise.resolve(options.format === 'svg' ? '<svg xmlns="http://www.w3.org/2000/svg"></svg>' : 'UE5H');
+  },
 };
 
 /** The last figure drawn for a chart, or undefined if it was never drawn. */

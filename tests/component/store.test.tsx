@@ -52,6 +52,7 @@ describe('Sekundo store', () => {
       'converterTraceSelected',
       'converterTraceSensor',
       'converterTraceView',
+      'displayUnits',
       'locateDisplay',
       'locateDrafts',
       'locateErrors',
@@ -68,10 +69,14 @@ describe('Sekundo store', () => {
       'plannerSource',
       'plannerStatus',
       'plannerTimelineView',
+      'preferencesNotice',
       'sourceDetailsShown',
       'temperatureDraft',
       'temperatureError',
       'temperature_K',
+      'themeChoice',
+      'tourOpen',
+      'tourSeen',
     ]);
   });
 

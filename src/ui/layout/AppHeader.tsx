@@ -1,12 +1,19 @@
-/** Product name, what it is for, and the mark. */
+import { ThemeToggle } from '../theme/ThemeToggle';
+import { UnitsSettings } from '../units/UnitsSettings';
+
+/** Product name, what it is for, the mark; the theme and the display units. */
 export function AppHeader() {
   return (
     <header className="app-header">
       <div className="app-header__inner">
         <SekundoMark />
-        <div>
+        <div className="app-header__title">
           <h1 className="app-title">Sekundo</h1>
           <p className="app-tagline">Second-sound time-of-flight planning and thermometry for superfluid helium-4 (He II)</p>
+        </div>
+        <div className="app-header__controls">
+          <ThemeToggle />
+          <UnitsSettings />
         </div>
       </div>
     </header>

@@ -1,6 +1,6 @@
 import { useId, useMemo } from 'react';
 import { PanelErrorBoundary } from '../layout/PanelErrorBoundary';
-import { PlotlyChart } from '../plot/PlotlyChart';
+import { PLOT_TOOLS_HEIGHT_PX, PlotlyChart } from '../plot/PlotlyChart';
 import { useSekundoStore } from '../store';
 import { projectionFigure, surfaceOutline, TRACE_NAMES } from './locate-figures';
 import { PLANE_PAIRS, type PlanePair, pairName } from './locate-inputs';
@@ -110,7 +110,7 @@ function Projection({ slot }: { slot: 0 | 1 }) {
           ))}
         </select>
       </div>
-      <div ref={boxRef} className="locate-projection__plot" style={{ height: `${height}px` }}>
+      <div ref={boxRef} className="locate-projection__plot" style={{ height: `${height + PLOT_TOOLS_HEIGHT_PX}px` }}>
         <PanelErrorBoundary panel={`${pairName(pair)} projection`}>
           <PlotlyChart chartId={projectionChartId(slot)} label={`Sensors and source in the ${pairName(pair)} plane; ${where}.`} data={figure.data} layout={figure.layout} />
         </PanelErrorBoundary>

@@ -184,4 +184,19 @@ export interface PlotlyApi {
   react(element: HTMLElement, data: readonly PlotTrace[], layout: PlotLayout, config: PlotConfig): Promise<unknown>;
   purge(element: HTMLElement): void;
   Plots: { resize(element: HTMLElement): Promise<unknown> | undefined };
+  /**
+   * The drawn chart as an image. With `imageDataOnly`, PNG comes as base64 text without the
+   * "data:" prefix and SVG as the SVG text itself.
+   */
+  toImage(element: HTMLElement, options: PlotImageOptions): Promise<string>;
+}
+
+/** What {@link PlotlyApi.toImage} makes. */
+export interface PlotImageOptions {
+  format: 'png' | 'svg';
+  width?: number;
+  height?: number;
+  /** Pixels per CSS pixel of a PNG. */
+  scale?: number;
+  imageDataOnly?: boolean;
 }

@@ -2,6 +2,7 @@ import { create } from 'zustand';
 import { createConverterSlice } from '../converter/converter-slice';
 import { createLocateSlice } from './locate-slice';
 import { createPlannerSlice } from './planner-slice';
+import { createPreferencesSlice } from './preferences-slice';
 import type { SekundoState } from './state';
 import { createTemperatureSlice } from './temperature-slice';
 import { createViewSlice } from './view-slice';
@@ -13,6 +14,7 @@ export const useSekundoStore = create<SekundoState>()((...args) => ({
   ...createPlannerSlice(...args),
   ...createConverterSlice(...args),
   ...createLocateSlice(...args),
+  ...createPreferencesSlice(...args),
 }));
 
 /** Puts every slice back to its initial state (tests, "start over"). */

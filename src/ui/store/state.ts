@@ -1,8 +1,9 @@
 import type { ConverterSlice } from '../converter/converter-slice';
 import type { LocateSlice } from './locate-slice';
 import type { PlannerSlice } from './planner-slice';
+import type { PreferencesSlice } from './preferences-slice';
 import type { TemperatureSlice } from './temperature-slice';
 import type { ViewSlice } from './view-slice';
 
 /** The whole store: inputs only. Results are derived from them with kernel calls. */
-export type SekundoState = TemperatureSlice & ViewSlice & PlannerSlice & ConverterSlice & LocateSlice;
+export type SekundoState = TemperatureSlice & ViewSlice & PlannerSlice & ConverterSlice & LocateSlice & PreferencesSlice;

@@ -32,8 +32,8 @@ function DataSources() {
         </li>
       </ul>
       <p className="muted">
-        Temperatures are on ITS-90 (T90). Values are shown to four significant digits; ± is one standard deviation
-        where the reference states one.
+        Temperatures are on ITS-90 (T90). Values are shown to four significant digits, or, where the reference states
+        an uncertainty, to the digit it supports; ± is one standard deviation, to one or two digits.
       </p>
     </div>
   );

@@ -4,7 +4,8 @@ import { formatSignificant } from '../format/format-number';
 import { PlotlyChart } from '../plot/PlotlyChart';
 import type { PlotLayout, PlotTrace } from '../plot/plotly-types';
 import { useHeliumProperties } from '../store';
-import { formatKelvin } from '../temperature/temperature-units';
+import { formatTemperature } from '../temperature/temperature-units';
+import { useDisplayUnit } from '../units/use-display-unit';
 import { ChartFigure } from './ChartFigure';
 import {
   axis,
@@ -15,6 +16,7 @@ import {
   temperatureBand,
 } from './chart-theme';
 import { chosenPoint } from './chosen-point';
+import { inTemperatureUnit, type TemperatureUnit } from './temperature-axis';
 import { propertyCurves } from './curves';
 import { lambdaLabel, modelRegionLabel } from './labels';
 
@@ -76,7 +78,9 @@ export function FractionsChart() {
     [T, properties],
   );
   const layout = useMemo(() => fractionsLayout(T), [T]);
-  const summary = fractionsSummary(properties);
+  const { unit } = useDisplayUnit('temperature');
+  const summary = fractionsSummary(properties, unit);
+  const figure = useMemo(() => inTemperatureUnit({ data, layout }, unit), [data, layout, unit]);
   return (
     <ChartFigure
       id="fractions"
@@ -91,13 +95,13 @@ export function FractionsChart() {
       <PlotlyChart
         chartId="fractions"
         label={`Chart of the superfluid and normal fractions against temperature. ${summary}`}
-        data={data}
-        layout={layout}
+        data={figure.data}
+        layout={figure.layout}
       />
     </ChartFigure>
   );
 }
 
-function fractionsSummary(p: HeliumProperties): string {
-  return `At ${formatKelvin(p.temperature_K)} K: ρs/ρ = ${formatSignificant(p.superfluidFraction)}, ρn/ρ = ${formatSignificant(p.normalFraction)}.`;
+function fractionsSummary(p: HeliumProperties, unit: TemperatureUnit): string {
+  return `At ${formatTemperature(p.temperature_K, unit)}: ρs/ρ = ${formatSignificant(p.superfluidFraction)}, ρn/ρ = ${formatSignificant(p.normalFraction)}.`;
 }

@@ -4,7 +4,8 @@ import { formatSignificant } from '../format/format-number';
 import { PlotlyChart } from '../plot/PlotlyChart';
 import type { PlotLayout, PlotTrace } from '../plot/plotly-types';
 import { useHeliumProperties } from '../store';
-import { formatKelvin } from '../temperature/temperature-units';
+import { formatTemperature } from '../temperature/temperature-units';
+import { useDisplayUnit } from '../units/use-display-unit';
 import { ChartFigure } from './ChartFigure';
 import {
   axis,
@@ -15,6 +16,7 @@ import {
   temperatureBand,
 } from './chart-theme';
 import { chosenPoint } from './chosen-point';
+import { inTemperatureUnit, type TemperatureUnit } from './temperature-axis';
 import { propertyCurves } from './curves';
 import { lambdaLabel, modelRegionLabel } from './labels';
 
@@ -95,7 +97,9 @@ export function SpeedsChart() {
     [T, properties],
   );
   const layout = useMemo(() => speedsLayout(T), [T]);
-  const summary = speedsSummary(properties);
+  const { unit } = useDisplayUnit('temperature');
+  const summary = speedsSummary(properties, unit);
+  const figure = useMemo(() => inTemperatureUnit({ data, layout }, unit), [data, layout, unit]);
   return (
     <ChartFigure
       id="speeds"
@@ -107,12 +111,12 @@ export function SpeedsChart() {
         </>
       }
     >
-      <PlotlyChart chartId="speeds" label={`Chart of u₂ and u₁ against temperature. ${summary}`} data={data} layout={layout} />
+      <PlotlyChart chartId="speeds" label={`Chart of u₂ and u₁ against temperature. ${summary}`} data={figure.data} layout={figure.layout} />
     </ChartFigure>
   );
 }
 
-function speedsSummary(p: HeliumProperties): string {
+function speedsSummary(p: HeliumProperties, unit: TemperatureUnit): string {
   const u2 = p.secondSound_m_s === null ? 'no second sound (He I)' : `u₂ = ${formatSignificant(p.secondSound_m_s)} m/s`;
-  return `At ${formatKelvin(p.temperature_K)} K: ${u2}, u₁ = ${formatSignificant(p.firstSound_m_s)} m/s.`;
+  return `At ${formatTemperature(p.temperature_K, unit)}: ${u2}, u₁ = ${formatSignificant(p.firstSound_m_s)} m/s.`;
 }

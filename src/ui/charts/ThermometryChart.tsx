@@ -4,10 +4,12 @@ import { formatFixed, formatSignificant } from '../format/format-number';
 import { PlotlyChart } from '../plot/PlotlyChart';
 import type { PlotAnnotation, PlotLayout, PlotShape, PlotTrace } from '../plot/plotly-types';
 import { useHeliumProperties } from '../store';
-import { formatKelvin } from '../temperature/temperature-units';
+import { formatTemperature } from '../temperature/temperature-units';
+import { useDisplayUnit } from '../units/use-display-unit';
 import { ChartFigure } from './ChartFigure';
 import { axis, baseLayout, CHART_COLOURS, chosenTemperatureLine, referenceLine, temperatureBand } from './chart-theme';
 import { chosenPoint } from './chosen-point';
+import { inTemperatureUnit, type TemperatureUnit } from './temperature-axis';
 import {
   INSENSITIVE_SLOPE_M_S_K,
   insensitiveIntervals,
@@ -94,13 +96,13 @@ function extremeLabel(extreme: SecondSoundExtreme): PlotAnnotation {
   };
 }
 
-function outOfViewNote(temperature_K: number): PlotAnnotation | null {
+function outOfViewNote(temperature_K: number, unit: TemperatureUnit): PlotAnnotation | null {
   const [from, to] = THERMOMETRY_VIEW_K;
   if (temperature_K >= from && temperature_K < to) return null;
   const why = temperature_K >= to ? 'He I, no second sound' : 'below this view';
   return {
     name: 'chosen-out-of-view',
-    text: `Chosen ${formatKelvin(temperature_K)} K: ${why}`,
+    text: `Chosen ${formatTemperature(temperature_K, unit)}: ${why}`,
     xref: 'paper',
     yref: 'paper',
     x: 0.02,
@@ -113,8 +115,8 @@ function outOfViewNote(temperature_K: number): PlotAnnotation | null {
   };
 }
 
-function thermometryLayout(temperature_K: number, curves: ThermometryCurves): PlotLayout {
-  const note = outOfViewNote(temperature_K);
+function thermometryLayout(temperature_K: number, curves: ThermometryCurves, unit: TemperatureUnit): PlotLayout {
+  const note = outOfViewNote(temperature_K, unit);
   return {
     ...baseLayout(),
     showlegend: false,
@@ -147,8 +149,10 @@ export function ThermometryChart() {
     ],
     [curves, T, properties],
   );
-  const layout = useMemo(() => thermometryLayout(T, curves), [T, curves]);
-  const summary = thermometrySummary(properties);
+  const { unit } = useDisplayUnit('temperature');
+  const layout = useMemo(() => thermometryLayout(T, curves, unit), [T, curves, unit]);
+  const summary = thermometrySummary(properties, unit);
+  const figure = useMemo(() => inTemperatureUnit({ data, layout }, unit), [data, layout, unit]);
   return (
     <ChartFigure
       id="thermometry"
@@ -164,8 +168,8 @@ export function ThermometryChart() {
       <PlotlyChart
         chartId="thermometry"
         label={`Chart of u₂ and du₂/dT in He II with insensitive regions shaded. ${summary}`}
-        data={data}
-        layout={layout}
+        data={figure.data}
+        layout={figure.layout}
       />
     </ChartFigure>
   );
@@ -177,11 +181,11 @@ function intervalsText(intervals: readonly TemperatureInterval[]): string {
   return `Insensitive here: ${list}.`;
 }
 
-function thermometrySummary(p: HeliumProperties): string {
+function thermometrySummary(p: HeliumProperties, unit: TemperatureUnit): string {
   if (p.secondSound_m_s === null || p.secondSoundSlope_m_s_K === null) {
-    return `At ${formatKelvin(p.temperature_K)} K: He I, no second sound.`;
+    return `At ${formatTemperature(p.temperature_K, unit)}: He I, no second sound.`;
   }
   const slope = p.secondSoundSlope_m_s_K;
   const verdict = Math.abs(slope) < INSENSITIVE_SLOPE_M_S_K ? 'insensitive' : 'usable';
-  return `At ${formatKelvin(p.temperature_K)} K: u₂ = ${formatSignificant(p.secondSound_m_s)} m/s, du₂/dT = ${formatSignificant(slope, 3)} m/s/K (${verdict}).`;
+  return `At ${formatTemperature(p.temperature_K, unit)}: u₂ = ${formatSignificant(p.secondSound_m_s)} m/s, du₂/dT = ${formatSignificant(slope, 3)} m/s/K (${verdict}).`;
 }

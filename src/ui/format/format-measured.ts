@@ -80,6 +80,13 @@ export function formatMeasured(value: number, sd: number | null, digits: number 
   return { value: v, sd: s, text: `${v} ± ${s}` };
 }
 
+/** An sd shown alone (a row that is itself an uncertainty): one or two digits by the rule above. */
+export function formatSd(sd: number): string {
+  const last = sdLastDigit(sd);
+  if (last === null) return formatSignificant(sd, 2);
+  return formatMeasured(sd, sd).sd ?? formatSignificant(sd, 2);
+}
+
 /** `x` rounded to the digit 10^last, as plain decimal text. */
 function atDigit(x: number, last: number): string {
   if (last <= 0) return normaliseZero(x.toFixed(-last));

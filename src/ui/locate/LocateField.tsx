@@ -1,4 +1,5 @@
 import { type KeyboardEvent, useId } from 'react';
+import { describedBy as joinIds, type HelpTopic, useFieldHelp } from '../help/FieldHelp';
 import { useSekundoStore } from '../store';
 import type { LocateTextEdit } from '../store/locate-slice';
 import { fieldText, type QuantityFieldSpec } from './locate-fields';
@@ -18,11 +19,17 @@ interface LocateFieldProps {
   /** Show the message under the field (false: the caller shows it, e.g. in a table row). */
   inlineMessage?: boolean;
   placeholder?: string;
+  /** What the field is, its units, range and default: a "?" beside the label (visible labels only). */
+  help?: HelpTopic;
+  /** Ids of text elsewhere that describes the field (a table column's help). */
+  describedBy?: string;
 }
 
 /** A typed quantity: a good value applies as it is typed; a bad one keeps the last good value and says why. */
-export function LocateField({ fieldKey, spec, value, edit, label, hideLabel = false, unit, inlineMessage = true, placeholder }: LocateFieldProps) {
+export function LocateField({ fieldKey, spec, value, edit, label, hideLabel = false, unit, inlineMessage = true, placeholder, help, describedBy }: LocateFieldProps) {
   const id = useId();
+  const fieldHelp = useFieldHelp(label, help ?? { what: '' });
+  const hasHelp = help !== undefined && !hideLabel;
   const draft = useSekundoStore((s) => s.locateDrafts[fieldKey]);
   const error = useSekundoStore((s) => s.locateErrors[fieldKey]);
   const type = useSekundoStore((s) => s.typeLocateField);
@@ -34,9 +41,19 @@ export function LocateField({ fieldKey, spec, value, edit, label, hideLabel = fa
   };
   return (
     <div className="locate-field">
-      <label htmlFor={id} className={hideLabel ? 'visually-hidden' : 'locate-field__label'}>
-        {label}
-      </label>
+      {hasHelp ? (
+        <div className="field-head">
+          <label htmlFor={id} className="locate-field__label">
+            {label}
+          </label>
+          {fieldHelp.button}
+        </div>
+      ) : (
+        <label htmlFor={id} className={hideLabel ? 'visually-hidden' : 'locate-field__label'}>
+          {label}
+        </label>
+      )}
+      {hasHelp ? fieldHelp.panel : null}
       <div className="locate-field__box">
         <input
           id={id}
@@ -48,7 +65,7 @@ export function LocateField({ fieldKey, spec, value, edit, label, hideLabel = fa
           value={draft ?? fieldText(spec, value)}
           placeholder={placeholder}
           aria-invalid={error ? true : undefined}
-          aria-describedby={error ? `${id}-error` : undefined}
+          aria-describedby={joinIds(error && `${id}-error`, hasHelp && fieldHelp.describedBy, describedBy)}
           onChange={(event) => type(fieldKey, event.target.value, edit)}
           onBlur={() => leave(fieldKey)}
           onKeyDown={onKeyDown}

@@ -1,8 +1,11 @@
-import { useId } from 'react';
-import { useSekundoStore } from '../store';
+import { type ReactNode, useId } from 'react';
 import { formatSignificant } from '../format/format-number';
+import { type HelpTopic, useFieldHelp } from '../help/FieldHelp';
+import { useSekundoStore } from '../store';
+import { useDisplayUnit } from '../units/use-display-unit';
 import { speedOf } from './derive-locate';
-import { DEFAULT_SD_SPEC, defaultSdEdit, SPEED_SPEC, SURFACE_FIELDS, speedEdit, TEMPERATURE_SPEC, temperatureEdit } from './locate-fields';
+import { DEFAULT_SD_SPEC, defaultSdEdit, SPEED_SPEC, speedEdit, surfaceFields, temperatureEditIn, temperatureSpec } from './locate-fields';
+import { LOCATE_HELP } from './locate-help';
 import type { LocateOptionsInput, SurfaceKind } from './locate-inputs';
 import { LocateField } from './LocateField';
 
@@ -17,7 +20,11 @@ const SURFACE_CHOICES: readonly { kind: SurfaceKind; label: string }[] = [
 export function LocateOptions() {
   const options = useSekundoStore((s) => s.locateOptions);
   const change = useSekundoStore((s) => s.changeLocate);
+  const temperature = useDisplayUnit('temperature');
+  const length = useDisplayUnit('length');
   const surfaceId = useId();
+  const speedHelp = useFieldHelp('speed of the front', LOCATE_HELP.speedMode);
+  const surfaceHelp = useFieldHelp('source on a surface', LOCATE_HELP.surface);
   const set = (key: string, patch: Partial<LocateOptionsInput>) => change(key, (inputs) => ({ ...inputs, options: { ...inputs.options, ...patch } }));
   const speed = speedOf(options);
   return (
@@ -25,15 +32,26 @@ export function LocateOptions() {
       <h2 id="locate-options-title" className="card-title">
         Fit options
       </h2>
-      <fieldset className="locate-group">
-        <legend className="locate-field__label">Speed of the front</legend>
+      <fieldset className="locate-group" aria-describedby={speedHelp.describedBy}>
+        <legend className="locate-field__label field-head">
+          Speed of the front {speedHelp.button}
+        </legend>
+        {speedHelp.panel}
         <label className="locate-choice">
           <input type="radio" name="locate-speed-mode" checked={options.speedMode === 'temperature'} onChange={() => set('opt.speedMode', { speedMode: 'temperature' })} />
           u₂ at the bath temperature
         </label>
         {options.speedMode === 'temperature' ? (
           <div className="locate-indent">
-            <LocateField fieldKey="opt.temperature" spec={TEMPERATURE_SPEC} value={options.temperature_K} edit={temperatureEdit} label="Bath temperature T90" unit="K" />
+            <LocateField
+              fieldKey="opt.temperature"
+              spec={temperatureSpec(temperature.unit)}
+              value={options.temperature_K}
+              edit={temperatureEditIn(temperature.unit)}
+              label="Bath temperature T90"
+              unit={temperature.shown}
+              help={LOCATE_HELP.temperature(temperature.shown)}
+            />
             <p className="field-hint" aria-live="polite">
               {speed.ok ? `u₂ = ${formatSignificant(speed.speed_m_s, 4)} m/s (Donnelly & Barenghi 1998 curve)` : speed.message}
             </p>
@@ -45,20 +63,42 @@ export function LocateOptions() {
         </label>
         {options.speedMode === 'speed' ? (
           <div className="locate-indent">
-            <LocateField fieldKey="opt.speed" spec={SPEED_SPEC} value={options.speed_m_s} edit={speedEdit} label="Speed" unit="m/s" />
+            <LocateField fieldKey="opt.speed" spec={SPEED_SPEC} value={options.speed_m_s} edit={speedEdit} label="Speed" unit="m/s" help={LOCATE_HELP.speed} />
           </div>
         ) : null}
-        <label className="locate-choice">
-          <input type="checkbox" checked={options.fitSpeed} onChange={(event) => set('opt.fitSpeed', { fitSpeed: event.target.checked })} />
+        <CheckWithHelp
+          name="fit an effective speed"
+          help={LOCATE_HELP.fitSpeed}
+          checked={options.fitSpeed}
+          onChange={(checked) => set('opt.fitSpeed', { fitSpeed: checked })}
+        >
           Fit an effective speed too (strong pulses can travel faster than u₂; needs one more sensor)
-        </label>
+        </CheckWithHelp>
       </fieldset>
-      <LocateField fieldKey="opt.arrivalSd" spec={DEFAULT_SD_SPEC} value={options.arrivalSd_s} edit={defaultSdEdit} label="Timing sd of sensors without their own" unit="µs" />
+      <LocateField
+        fieldKey="opt.arrivalSd"
+        spec={DEFAULT_SD_SPEC}
+        value={options.arrivalSd_s}
+        edit={defaultSdEdit}
+        label="Timing sd of sensors without their own"
+        unit="µs"
+        help={LOCATE_HELP.defaultSd}
+      />
       <div className="locate-group">
-        <label htmlFor={surfaceId} className="locate-field__label">
-          Source on a surface
-        </label>
-        <select id={surfaceId} className="locate-select" value={options.surface} onChange={(event) => set('opt.surface', { surface: event.target.value as SurfaceKind })}>
+        <div className="field-head">
+          <label htmlFor={surfaceId} className="locate-field__label">
+            Source on a surface
+          </label>
+          {surfaceHelp.button}
+        </div>
+        {surfaceHelp.panel}
+        <select
+          id={surfaceId}
+          className="locate-select"
+          value={options.surface}
+          aria-describedby={surfaceHelp.describedBy}
+          onChange={(event) => set('opt.surface', { surface: event.target.value as SurfaceKind })}
+        >
           {SURFACE_CHOICES.map((c) => (
             <option key={c.kind} value={c.kind}>
               {c.label}
@@ -67,7 +107,7 @@ export function LocateOptions() {
         </select>
         {options.surface !== 'none' ? (
           <div className="locate-surface-fields">
-            {SURFACE_FIELDS[options.surface].map((f) => (
+            {surfaceFields(length.unit)[options.surface].map((f) => (
               <LocateField
                 key={f.id}
                 fieldKey={`opt.${f.id}`}
@@ -75,16 +115,38 @@ export function LocateOptions() {
                 value={f.value(options)}
                 edit={f.edit}
                 label={f.spec.name.replace(/^(Sphere|Cylinder|Plane) /, '')}
-                unit={f.spec.unit === 'mm' ? 'mm' : undefined}
+                unit={f.spec.dimension === 'length' ? length.shown : undefined}
+                describedBy={surfaceHelp.describedBy}
               />
             ))}
           </div>
         ) : null}
       </div>
-      <label className="locate-choice">
-        <input type="checkbox" checked={options.dropOutliers} onChange={(event) => set('opt.dropOutliers', { dropOutliers: event.target.checked })} />
+      <CheckWithHelp
+        name="robust refit"
+        help={LOCATE_HELP.dropOutliers}
+        checked={options.dropOutliers}
+        onChange={(checked) => set('opt.dropOutliers', { dropOutliers: checked })}
+      >
         Robust refit: leave out the worst sensor while its residual exceeds 3σ
-      </label>
+      </CheckWithHelp>
     </section>
+  );
+}
+
+/** A checkbox with its label and a "?" beside it (a button cannot sit inside the label). */
+function CheckWithHelp({ name, help, checked, onChange, children }: { name: string; help: HelpTopic; checked: boolean; onChange: (checked: boolean) => void; children: ReactNode }) {
+  const fieldHelp = useFieldHelp(name, help);
+  return (
+    <div className="locate-check">
+      <div className="locate-check__row">
+        <label className="locate-choice">
+          <input type="checkbox" checked={checked} aria-describedby={fieldHelp.describedBy} onChange={(event) => onChange(event.target.checked)} />
+          {children}
+        </label>
+        {fieldHelp.button}
+      </div>
+      {fieldHelp.panel}
+    </div>
   );
 }

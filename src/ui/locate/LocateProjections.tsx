@@ -1,8 +1,11 @@
-import { useId, useMemo } from 'react';
+import { type ReactNode, useId, useMemo } from 'react';
+import { useFieldHelp } from '../help/FieldHelp';
 import { PanelErrorBoundary } from '../layout/PanelErrorBoundary';
 import { PLOT_TOOLS_HEIGHT_PX, PlotlyChart } from '../plot/PlotlyChart';
 import { useSekundoStore } from '../store';
-import { projectionFigure, surfaceOutline, TRACE_NAMES } from './locate-figures';
+import { useDisplayUnit } from '../units/use-display-unit';
+import { lengthScale, projectionFigure, surfaceOutline, TRACE_NAMES } from './locate-figures';
+import { LOCATE_HELP } from './locate-help';
 import { PLANE_PAIRS, type PlanePair, pairName } from './locate-inputs';
 import { ProjectionLegend } from './ProjectionLegend';
 import { useLocateOutcome, useWidth } from './use-locate';
@@ -27,26 +30,35 @@ export function LocateProjections() {
     regions: hasRegions,
     surface: display.projections.some((pair) => surfaceOutline(outcome.constraint, pair) !== null),
   };
+  const zoomHelp = useFieldHelp('extent of the projections', LOCATE_HELP.zoom);
+  const projectionHelp = useFieldHelp('projection', LOCATE_HELP.projection);
   return (
     <section className="card locate-card" aria-labelledby="locate-projections-title">
       <div className="card-head">
         <h2 id="locate-projections-title" className="card-title">
           Sensors and source, two projections
         </h2>
-        <fieldset className="locate-segmented">
-          <legend className="visually-hidden">Extent of the projections</legend>
-          {(['layout', 'source'] as const).map((zoom) => (
-            <label key={zoom} className="locate-segmented__option">
-              <input type="radio" name="locate-zoom" checked={display.zoom === zoom} disabled={zoom === 'source' && !outcome.ok} onChange={() => setDisplay({ zoom })} />
-              {zoom === 'layout' ? 'Whole layout' : 'Close-up of the source'}
-            </label>
-          ))}
-        </fieldset>
+        <div className="table-tools">
+          <fieldset className="locate-segmented" aria-describedby={zoomHelp.describedBy}>
+            <legend className="visually-hidden">Extent of the projections</legend>
+            {(['layout', 'source'] as const).map((zoom) => (
+              <label key={zoom} className="locate-segmented__option">
+                <input type="radio" name="locate-zoom" checked={display.zoom === zoom} disabled={zoom === 'source' && !outcome.ok} onChange={() => setDisplay({ zoom })} />
+                {zoom === 'layout' ? 'Whole layout' : 'Close-up of the source'}
+              </label>
+            ))}
+          </fieldset>
+          {zoomHelp.button}
+        </div>
+      </div>
+      <div className="help-panels">
+        {zoomHelp.panel}
+        {projectionHelp.panel}
       </div>
       <ProjectionLegend present={present} />
       <div className="locate-projections">
         {([0, 1] as const).map((slot) => (
-          <Projection key={slot} slot={slot} />
+          <Projection key={slot} slot={slot} help={slot === 0 ? projectionHelp.button : null} describedBy={projectionHelp.describedBy} />
         ))}
       </div>
       <p className="chart-caption">
@@ -67,7 +79,7 @@ export function LocateProjections() {
   );
 }
 
-function Projection({ slot }: { slot: 0 | 1 }) {
+function Projection({ slot, help, describedBy }: { slot: 0 | 1; help: ReactNode; describedBy: string }) {
   const id = useId();
   const display = useSekundoStore((s) => s.locateDisplay);
   const setDisplay = useSekundoStore((s) => s.setLocateDisplay);
@@ -76,6 +88,7 @@ function Projection({ slot }: { slot: 0 | 1 }) {
   const pair = display.projections[slot];
   const zoom = outcome.ok ? display.zoom : 'layout';
   const [boxRef, width] = useWidth<HTMLDivElement>(600);
+  const length = useDisplayUnit('length');
   const figure = useMemo(
     () =>
       projectionFigure({
@@ -86,8 +99,9 @@ function Projection({ slot }: { slot: 0 | 1 }) {
         result: outcome.ok ? outcome.result : null,
         constraint: outcome.constraint,
         zoom,
+        length: lengthScale(length.unit),
       }),
-    [pair, rows, outcome, zoom],
+    [pair, rows, outcome, zoom, length.unit],
   );
   const choose = (next: PlanePair) => {
     const projections: [PlanePair, PlanePair] = [display.projections[0], display.projections[1]];
@@ -95,14 +109,15 @@ function Projection({ slot }: { slot: 0 | 1 }) {
     setDisplay({ projections });
   };
   const height = frameHeight(figure.data.filter((t) => t.name !== TRACE_NAMES.surface), width, zoom);
-  const where = outcome.ok ? `source at ${outcome.result.source_m.map((x) => `${(x * 1e3).toFixed(1)}`).join(', ')} mm` : 'no source located';
+  const where = outcome.ok ? `source at ${outcome.result.source_m.map((x) => length.format(x, 4)).join(', ')} ${length.shown}` : 'no source located';
   return (
     <figure className="locate-projection">
       <div className="locate-projection__head">
         <label htmlFor={id} className="locate-field__label">
           Projection
         </label>
-        <select id={id} className="locate-select" value={pair} onChange={(event) => choose(event.target.value as PlanePair)}>
+        {help}
+        <select id={id} className="locate-select" value={pair} aria-describedby={describedBy} onChange={(event) => choose(event.target.value as PlanePair)}>
           {PLANE_PAIRS.map((p) => (
             <option key={p} value={p}>
               {pairName(p)} {p === 'xy' ? '(top view)' : '(side view)'}

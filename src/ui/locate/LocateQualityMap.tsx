@@ -1,11 +1,14 @@
 import { useDeferredValue, useId, useMemo } from 'react';
 import type { Vec3 } from '../../physics';
 import { formatSignificant } from '../format/format-number';
+import { useFieldHelp } from '../help/FieldHelp';
 import { PanelErrorBoundary } from '../layout/PanelErrorBoundary';
 import { PlotlyChart } from '../plot/PlotlyChart';
 import { useSekundoStore } from '../store';
 import { speedOf } from './derive-locate';
-import { qualityFigure } from './locate-figures';
+import { useDisplayUnit } from '../units/use-display-unit';
+import { lengthScale, qualityFigure } from './locate-figures';
+import { LOCATE_HELP } from './locate-help';
 import { MAP_POINTS_PER_SIDE, median, qualityMap } from './locate-geometry';
 import { AXIS_NAMES, axesOf, constraintOf, PLANE_PAIRS, type PlanePair, pairName } from './locate-inputs';
 import { locateOutcomeFor, useSettled, useWidth } from './use-locate';
@@ -17,8 +20,6 @@ const SETTLE_MS = 250;
 const MAP_HEIGHT_PX = 460;
 const PLOT_MARGIN_X_PX = 60 + 12 + 90;
 const PLOT_MARGIN_Y_PX = 40 + 46;
-
-const mm = (m: number) => formatSignificant(m * 1e3, 3);
 
 function centroid(points: readonly Vec3[]): Vec3 {
   const n = Math.max(1, points.length);
@@ -35,6 +36,9 @@ export function LocateQualityMap() {
   const plane = useSekundoStore((s) => s.locateDisplay.mapPlane);
   const setDisplay = useSekundoStore((s) => s.setLocateDisplay);
   const selectId = useId();
+  const length = useDisplayUnit('length');
+  const mm = (m: number) => length.format(m, 3);
+  const planeHelp = useFieldHelp('map plane', LOCATE_HELP.mapPlane);
   const [boxRef, width] = useWidth<HTMLDivElement>(640);
   const outcome = locateOutcomeFor(rows, options);
   const speed = speedOf(options);
@@ -54,11 +58,11 @@ export function LocateQualityMap() {
   const side = Math.max(120, Math.min(width - PLOT_MARGIN_X_PX, MAP_HEIGHT_PX - PLOT_MARGIN_Y_PX));
   const cellPx = Math.max(4, side / MAP_POINTS_PER_SIDE + 1);
   const figure = useMemo(
-    () => (map ? qualityFigure({ map, positions, labels: rows.map((r) => r.label), source: located ? [t0, t1, t2] : null, cellPx }) : null),
-    [map, positions, rows, located, t0, t1, t2, cellPx],
+    () => (map ? qualityFigure({ map, positions, labels: rows.map((r) => r.label), source: located ? [t0, t1, t2] : null, cellPx, length: lengthScale(length.unit) }) : null),
+    [map, positions, rows, located, t0, t1, t2, cellPx, length.unit],
   );
   const { c } = axesOf(plane);
-  const level = `${AXIS_NAMES[c]} = ${mm(through[c])} mm`;
+  const level = `${AXIS_NAMES[c]} = ${mm(through[c])} ${length.shown}`;
   const best = map?.best ?? null;
   return (
     <section className="card locate-card locate-map" aria-labelledby="locate-map-title">
@@ -70,7 +74,8 @@ export function LocateQualityMap() {
           <label htmlFor={selectId} className="locate-field__label">
             Map plane
           </label>
-          <select id={selectId} className="locate-select" value={plane} onChange={(event) => setDisplay({ mapPlane: event.target.value as PlanePair })}>
+          {planeHelp.button}
+          <select id={selectId} className="locate-select" value={plane} aria-describedby={planeHelp.describedBy} onChange={(event) => setDisplay({ mapPlane: event.target.value as PlanePair })}>
             {PLANE_PAIRS.map((p) => (
               <option key={p} value={p}>
                 {pairName(p)}
@@ -79,6 +84,7 @@ export function LocateQualityMap() {
           </select>
         </div>
       </div>
+      {planeHelp.panel}
       {!speed.ok ? (
         <p className="muted">No map: {speed.message}</p>
       ) : positions.length === 0 ? (
@@ -90,7 +96,7 @@ export function LocateQualityMap() {
               <PanelErrorBoundary panel="layout-quality map">
                 <PlotlyChart
                   chartId={QUALITY_CHART_ID}
-                  label={`Expected position sd over the ${pairName(plane)} plane at ${level}${best ? `; best added sensor at ${best.position_m.map(mm).join(', ')} mm` : ''}.`}
+                  label={`Expected position sd over the ${pairName(plane)} plane at ${level}${best ? `; best added sensor at ${best.position_m.map(mm).join(', ')} ${length.shown}` : ''}.`}
                   data={figure.data}
                   layout={figure.layout}
                 />
@@ -101,9 +107,11 @@ export function LocateQualityMap() {
             <p className="locate-best" role="status">
               {best ? (
                 <>
-                  <strong>One more sensor at ({best.position_m.map(mm).join(', ')}) mm</strong> would help most: the mean expected sd inside the layout on this map falls from{' '}
-                  {Number.isFinite(best.baselineMeanSd_m) ? `${mm(best.baselineMeanSd_m)} mm` : 'undetermined (the layout cannot fix every point)'} to{' '}
-                  {mm(best.meanSd_m)} mm.
+                  <strong>
+                    One more sensor at ({best.position_m.map(mm).join(', ')}) {length.shown}
+                  </strong> would help most: the mean expected sd inside the layout on this map falls from{' '}
+                  {Number.isFinite(best.baselineMeanSd_m) ? `${mm(best.baselineMeanSd_m)} ${length.shown}` : 'undetermined (the layout cannot fix every point)'} to{' '}
+                  {mm(best.meanSd_m)} {length.shown}.
                 </>
               ) : (
                 <>No single added sensor on the box around the layout lowers the mean expected sd inside the layout on this map.</>

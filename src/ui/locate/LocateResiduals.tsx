@@ -1,7 +1,12 @@
 import type { SensorStatus } from '../../io/locate-csv';
+import { CsvExportButton } from '../export/CsvExportButton';
 import { formatFixed, formatSignificant } from '../format/format-number';
 import { useSekundoStore } from '../store';
+import { useDisplayUnit } from '../units/use-display-unit';
 import { useLocateOutcome } from './use-locate';
+
+/** Decimals of a predicted arrival: 0.1 µs in any unit. */
+const PREDICTED_DECIMALS = { ms: 4, µs: 1, s: 7 } as const;
 
 const STATUS_TEXT: Record<SensorStatus, string> = {
   fitted: 'fitted',
@@ -17,11 +22,22 @@ const BAR_LIMIT = 6;
 export function LocateResiduals() {
   const outcome = useLocateOutcome();
   const rows = useSekundoStore((s) => s.locateRows);
+  const time = useDisplayUnit('time');
+  const csv = () =>
+    outcome.ok
+      ? {
+          header: ['sensor', `predicted arrival (${time.unit})`, 'residual (us)', 'residual / sd', 'status'],
+          rows: outcome.outcomes.map((o) => [o.label, time.fromSi(o.predictedArrival_s), o.residual_s === null ? null : o.residual_s * 1e6, o.normalisedResidual, STATUS_TEXT[o.status]]),
+        }
+      : null;
   return (
     <section className="card locate-card" aria-labelledby="locate-residuals-title">
-      <h2 id="locate-residuals-title" className="card-title">
-        Residuals per sensor
-      </h2>
+      <div className="card-head">
+        <h2 id="locate-residuals-title" className="card-title">
+          Residuals per sensor
+        </h2>
+        <CsvExportButton table={csv} fileName="locate-residuals.csv" what="the residuals table" disabled={!outcome.ok} />
+      </div>
       {!outcome.ok ? (
         <p className="muted">No fit, so no residuals. {outcome.message}</p>
       ) : (
@@ -32,10 +48,10 @@ export function LocateResiduals() {
                 <tr>
                   <th scope="col">Sensor</th>
                   <th scope="col" className="num">
-                    Predicted (ms)
+                    Predicted <span className="unit-as-written">({time.shown})</span>
                   </th>
                   <th scope="col" className="num">
-                    Residual (µs)
+                    Residual <span className="unit-as-written">(µs)</span>
                   </th>
                   <th scope="col" className="num">
                     in σ
@@ -53,7 +69,7 @@ export function LocateResiduals() {
                   return (
                     <tr key={rows[i]?.key ?? o.label} className={flagged ? 'locate-flagged' : undefined}>
                       <th scope="row">{o.label}</th>
-                      <td className="num">{formatFixed(o.predictedArrival_s * 1e3, 4)}</td>
+                      <td className="num">{formatFixed(time.fromSi(o.predictedArrival_s), PREDICTED_DECIMALS[time.unit])}</td>
                       <td className="num">{o.residual_s === null ? '—' : formatFixed(o.residual_s * 1e6, 1)}</td>
                       <td className="num">{z === null ? '—' : formatSignificant(z, 2)}</td>
                       <td className="locate-resbar-cell" aria-hidden="true">

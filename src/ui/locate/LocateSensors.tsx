@@ -1,9 +1,19 @@
 import { Fragment, useId } from 'react';
+import { useFieldHelp } from '../help/FieldHelp';
 import { useSekundoStore } from '../store';
 import { LOCATE_ROWS_KEY } from '../store/locate-slice';
-import { arrivalEdit, arrivalSpec, labelEdit, positionEdit, positionSpec, sensorSdEdit, sensorSdSpec } from './locate-fields';
+import { useDisplayUnit } from '../units/use-display-unit';
+import { arrivalEdit, arrivalSpec, labelEdit, type LengthUnit, positionEdit, positionSpec, sensorSdEdit, sensorSdSpec, type TimeUnit } from './locate-fields';
+import { LOCATE_HELP } from './locate-help';
 import type { LocateRowInput } from './locate-inputs';
 import { LocateField } from './LocateField';
+
+/** Units of the table's columns, and the ids of each column's help. */
+interface Columns {
+  length: { unit: LengthUnit; shown: string };
+  time: { unit: TimeUnit; shown: string };
+  help: { label: string; position: string; arrival: string; sd: string };
+}
 
 /** The sensors as an editable table: label, position, arrival time (or blank) and timing sd. */
 export function LocateSensors() {
@@ -11,6 +21,17 @@ export function LocateSensors() {
   const add = useSekundoStore((s) => s.addLocateSensor);
   const rowsError = useSekundoStore((s) => s.locateErrors[LOCATE_ROWS_KEY]);
   const defaultSd = useSekundoStore((s) => s.locateOptions.arrivalSd_s);
+  const length = useDisplayUnit('length');
+  const time = useDisplayUnit('time');
+  const labelHelp = useFieldHelp('sensor label', LOCATE_HELP.label);
+  const positionHelp = useFieldHelp('sensor position', LOCATE_HELP.position(length.shown));
+  const arrivalHelp = useFieldHelp('arrival time', LOCATE_HELP.arrival(time.shown));
+  const sdHelp = useFieldHelp('timing sd of a sensor', LOCATE_HELP.sensorSd);
+  const columns: Columns = {
+    length: { unit: length.unit, shown: length.shown },
+    time: { unit: time.unit, shown: time.shown },
+    help: { label: labelHelp.describedBy, position: positionHelp.describedBy, arrival: arrivalHelp.describedBy, sd: sdHelp.describedBy },
+  };
   return (
     <section className="card locate-card" aria-labelledby="locate-sensors-title">
       <div className="card-head">
@@ -22,19 +43,44 @@ export function LocateSensors() {
         </button>
       </div>
       <p className="muted locate-lead">
-        Positions in mm, arrival times in ms on any common clock, timing sd in µs (a bare number is in the column’s unit; you may type another: 0.12 m,
-        11563 us). Leave the arrival blank for a sensor without a reading; leave the sd blank to use the default ({(defaultSd * 1e6).toPrecision(3)} µs).
+        Positions in {length.shown}, arrival times in {time.shown} on any common clock, timing sd in µs (a bare number is in the column’s unit; you may
+        type another: 0.12 m, 11563 us). Leave the arrival blank for a sensor without a reading; leave the sd blank to use the default (
+        {(defaultSd * 1e6).toPrecision(3)} µs). The “?” in a column’s heading says more.
       </p>
+      <div className="help-panels">
+        {labelHelp.panel}
+        {positionHelp.panel}
+        {arrivalHelp.panel}
+        {sdHelp.panel}
+      </div>
       <div className="table-scroll">
         <table className="locate-table locate-sensors-table" aria-label="Sensor positions and readings">
           <thead>
             <tr>
-              <th scope="col">Label</th>
-              <th scope="col">x (mm)</th>
-              <th scope="col">y (mm)</th>
-              <th scope="col">z (mm)</th>
-              <th scope="col">Arrival (ms)</th>
-              <th scope="col">Timing sd (µs)</th>
+              <th scope="col">
+                <span className="th-help">Label {labelHelp.button}</span>
+              </th>
+              <th scope="col">
+                <span className="th-help">
+                  x <span className="unit-as-written">({length.shown})</span> {positionHelp.button}
+                </span>
+              </th>
+              <th scope="col">
+                y <span className="unit-as-written">({length.shown})</span>
+              </th>
+              <th scope="col">
+                z <span className="unit-as-written">({length.shown})</span>
+              </th>
+              <th scope="col">
+                <span className="th-help">
+                  Arrival <span className="unit-as-written">({time.shown})</span> {arrivalHelp.button}
+                </span>
+              </th>
+              <th scope="col">
+                <span className="th-help">
+                  Timing sd <span className="unit-as-written">(µs)</span> {sdHelp.button}
+                </span>
+              </th>
               <th scope="col">
                 <span className="visually-hidden">Actions</span>
               </th>
@@ -42,7 +88,7 @@ export function LocateSensors() {
           </thead>
           <tbody>
             {rows.map((row) => (
-              <SensorRow key={row.key} row={row} />
+              <SensorRow key={row.key} row={row} columns={columns} />
             ))}
           </tbody>
         </table>
@@ -57,7 +103,7 @@ export function LocateSensors() {
   );
 }
 
-function SensorRow({ row }: { row: LocateRowInput }) {
+function SensorRow({ row, columns }: { row: LocateRowInput; columns: Columns }) {
   const remove = useSekundoStore((s) => s.removeLocateSensor);
   const errors = useSekundoStore((s) => s.locateErrors);
   const labelId = useId();
@@ -67,16 +113,17 @@ function SensorRow({ row }: { row: LocateRowInput }) {
     <Fragment>
       <tr>
         <td>
-          <LabelField row={row} id={labelId} />
+          <LabelField row={row} id={labelId} describedBy={columns.help.label} />
         </td>
         {([0, 1, 2] as const).map((axis) => (
           <td key={axis} className="locate-cell">
             <LocateField
               fieldKey={`${prefix}${'xyz'[axis]}`}
-              spec={positionSpec(row.label, axis)}
+              spec={positionSpec(row.label, axis, columns.length.unit)}
               value={row.position_m[axis]}
-              edit={positionEdit(row, axis)}
-              label={`${'xyz'[axis]} of ${row.label} (mm)`}
+              edit={positionEdit(row, axis, columns.length.unit)}
+              label={`${'xyz'[axis]} of ${row.label} (${columns.length.shown})`}
+              describedBy={columns.help.position}
               hideLabel
               inlineMessage={false}
             />
@@ -85,10 +132,11 @@ function SensorRow({ row }: { row: LocateRowInput }) {
         <td className="locate-cell">
           <LocateField
             fieldKey={`${prefix}arrival`}
-            spec={arrivalSpec(row.label)}
+            spec={arrivalSpec(row.label, columns.time.unit)}
             value={row.arrival_s}
-            edit={arrivalEdit(row)}
-            label={`Arrival at ${row.label} (ms)`}
+            edit={arrivalEdit(row, columns.time.unit)}
+            label={`Arrival at ${row.label} (${columns.time.shown})`}
+            describedBy={columns.help.arrival}
             hideLabel
             inlineMessage={false}
             placeholder="no reading"
@@ -101,6 +149,7 @@ function SensorRow({ row }: { row: LocateRowInput }) {
             value={row.arrivalSd_s}
             edit={sensorSdEdit(row)}
             label={`Timing sd of ${row.label} (µs)`}
+            describedBy={columns.help.sd}
             hideLabel
             inlineMessage={false}
             placeholder="default"
@@ -127,7 +176,7 @@ function SensorRow({ row }: { row: LocateRowInput }) {
   );
 }
 
-function LabelField({ row, id }: { row: LocateRowInput; id: string }) {
+function LabelField({ row, id, describedBy }: { row: LocateRowInput; id: string; describedBy: string }) {
   const key = `row.${row.key}.label`;
   const draft = useSekundoStore((s) => s.locateDrafts[key]);
   const error = useSekundoStore((s) => s.locateErrors[key]);
@@ -147,6 +196,7 @@ function LabelField({ row, id }: { row: LocateRowInput; id: string }) {
         spellCheck={false}
         value={draft ?? row.label}
         aria-invalid={error ? true : undefined}
+        aria-describedby={describedBy}
         onChange={(event) => type(key, event.target.value, labelEdit(row))}
         onBlur={() => leave(key)}
         onKeyDown={(event) => {

@@ -1,16 +1,18 @@
-import { formatFixed, formatSignificant } from '../format/format-number';
+import { CsvExportButton } from '../export/CsvExportButton';
+import { formatMeasured } from '../format/format-measured';
+import { formatSignificant } from '../format/format-number';
 import { useSekundoStore } from '../store';
+import { useDisplayUnit } from '../units/use-display-unit';
 import { AXIS_NAMES } from './locate-inputs';
 import { useLocateOutcome } from './use-locate';
-
-const mm = (m: number) => formatFixed(m * 1e3, 2);
-const mmSd = (m: number) => formatSignificant(m * 1e3, 2);
 
 /** The located source with its sds, the emission time, the speed, the fit; or plainly why there is none. */
 export function LocateSummary() {
   const outcome = useLocateOutcome();
   const rows = useSekundoStore((s) => s.locateRows);
   const fitSpeed = useSekundoStore((s) => s.locateOptions.fitSpeed);
+  const length = useDisplayUnit('length');
+  const time = useDisplayUnit('time');
   if (!outcome.ok) {
     return (
       <section className="card locate-card locate-summary" aria-labelledby="locate-summary-title">
@@ -33,11 +35,29 @@ export function LocateSummary() {
   const dropped = outcomes.filter((o) => o.status === 'dropped').map((o) => o.label);
   const noArrival = outcomes.filter((o) => o.status === 'no arrival').length;
   const reducedChi = r.degreesOfFreedom > 0 ? r.chiSquare / r.degreesOfFreedom : Number.NaN;
+  // Each coordinate to the digit its sd supports (no sd: where the fit stopped, four digits).
+  const position = r.source_m.map((x, k) => length.measured(x, sd ? (sd[k as 0] ?? null) : null));
+  const t0 = time.measured(r.offset_s, r.offsetSd_s);
+  const speedText = formatMeasured(r.speed_m_s, r.speedSd_m_s);
+  const csv = () => ({
+    header: ['quantity', 'value', 'sd', 'unit'],
+    rows: [
+      ...r.source_m.map((x, k) => [`source ${AXIS_NAMES[k]}`, length.fromSi(x), sd ? length.fromSi(sd[k as 0] ?? Number.NaN) : null, length.unit]),
+      ['emission time t0', time.fromSi(r.offset_s), r.offsetSd_s === null ? null : time.fromSi(r.offsetSd_s), time.unit],
+      ['speed', r.speed_m_s, r.speedSd_m_s, 'm/s'],
+      ['chi-square', r.chiSquare, null, ''],
+      ['degrees of freedom', r.degreesOfFreedom, null, ''],
+      ['determined', r.degenerate ? 'no' : 'yes', null, ''],
+    ],
+  });
   return (
     <section className="card locate-card locate-summary" aria-labelledby="locate-summary-title">
-      <h2 id="locate-summary-title" className="card-title">
-        Located source
-      </h2>
+      <div className="card-head">
+        <h2 id="locate-summary-title" className="card-title">
+          Located source
+        </h2>
+        <CsvExportButton table={csv} fileName="located-source.csv" what="the located source" />
+      </div>
       {r.degenerate ? (
         <div className="locate-degenerate" role="status">
           <p>
@@ -57,7 +77,7 @@ export function LocateSummary() {
             <th scope="col" className="locate-position__axis" />
             {AXIS_NAMES.map((n) => (
               <th key={n} scope="col" className="locate-position__axis">
-                {n} (mm)
+                {n} <span className="unit-as-written">({length.shown})</span>
               </th>
             ))}
           </tr>
@@ -67,9 +87,9 @@ export function LocateSummary() {
             <th scope="row" className="locate-position__row">
               {r.degenerate ? 'fit stopped at' : 'source'}
             </th>
-            {r.source_m.map((x, k) => (
+            {r.source_m.map((_, k) => (
               <td key={AXIS_NAMES[k]} className="locate-position__value" data-testid={`locate-source-${AXIS_NAMES[k]}`}>
-                {mm(x)}
+                {position[k]?.value}
               </td>
             ))}
           </tr>
@@ -79,7 +99,7 @@ export function LocateSummary() {
             </th>
             {[0, 1, 2].map((k) => (
               <td key={AXIS_NAMES[k]} className="num">
-                {sd ? `± ${mmSd(sd[k as 0])}` : '—'}
+                {position[k]?.sd ? `± ${position[k]?.sd}` : '—'}
               </td>
             ))}
           </tr>
@@ -89,14 +109,14 @@ export function LocateSummary() {
         <div>
           <dt>Emission time t0</dt>
           <dd>
-            {formatFixed(r.offset_s * 1e3, 4)} ms{r.offsetSd_s !== null ? ` ± ${formatSignificant(r.offsetSd_s * 1e6, 2)} µs` : ''}
+            {t0.text} {time.shown}
             <span className="locate-facts__detail">on the clock of the arrival times</span>
           </dd>
         </div>
         <div>
           <dt>Speed</dt>
           <dd>
-            {formatSignificant(r.speed_m_s, 4)} m/s{r.speedSd_m_s !== null ? ` ± ${formatSignificant(r.speedSd_m_s, 2)}` : ''}
+            {speedText.text} m/s
             <span className="locate-facts__detail">{fitSpeed ? `fitted, starting from ${speed.from}` : `fixed: ${speed.from}`}</span>
           </dd>
         </div>

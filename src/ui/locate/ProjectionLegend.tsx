@@ -1,5 +1,7 @@
 import type { ReactNode } from 'react';
-import { LOCATE_COLOURS, TRACE_NAMES } from './locate-figures';
+import { themedColour } from '../plot/plot-theme';
+import { useResolvedTheme } from '../theme/use-theme';
+import { LOCATE_COLOURS as WRITTEN_COLOURS, TRACE_NAMES } from './locate-figures';
 
 /** Which entries the projections show now. */
 export interface LegendPresence {
@@ -30,6 +32,9 @@ const cross = (colour: string, open: boolean) => (
 
 /** One legend for both projections: symbol and words for every kind of mark on them. */
 export function ProjectionLegend({ present }: { present: LegendPresence }) {
+  // The same colours as the charts beside it, in the page's theme.
+  const theme = useResolvedTheme();
+  const LOCATE_COLOURS = Object.fromEntries(Object.entries(WRITTEN_COLOURS).map(([k, c]) => [k, themedColour(c, theme)])) as Record<keyof typeof WRITTEN_COLOURS, string>;
   const entries: { key: string; show: boolean; icon: ReactNode; text: string }[] = [
     {
       key: 'sensors',

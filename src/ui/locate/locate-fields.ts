@@ -71,19 +71,26 @@ export function fieldText(spec: QuantityFieldSpec, value: number | null): string
 }
 
 // ---- Specs of every field ----
+// Lengths, arrival times and the bath temperature are shown in the person's display units
+// (src/ui/units); sds stay in µs, the scale they are read on.
 
-export const positionSpec = (label: string, axis: 0 | 1 | 2): QuantityFieldSpec => ({
+/** Display units of length and time the view takes (src/ui/units). */
+export type LengthUnit = 'mm' | 'cm' | 'm';
+export type TimeUnit = 'ms' | 'µs' | 's';
+export type TemperatureUnit = 'K' | 'mK';
+
+export const positionSpec = (label: string, axis: 0 | 1 | 2, unit: LengthUnit = 'mm'): QuantityFieldSpec => ({
   name: `${AXIS_NAMES[axis]} of sensor ${label}`,
   dimension: 'length',
-  unit: 'mm',
+  unit,
   range: LOCATE_POSITION_RANGE_M,
   rangeText: `${LOCATE_POSITION_RANGE_M[0]} to ${LOCATE_POSITION_RANGE_M[1]} m`,
 });
 
-export const arrivalSpec = (label: string): QuantityFieldSpec => ({
+export const arrivalSpec = (label: string, unit: TimeUnit = 'ms'): QuantityFieldSpec => ({
   name: `arrival at sensor ${label}`,
   dimension: 'time',
-  unit: 'ms',
+  unit,
   range: LOCATE_ARRIVAL_RANGE_S,
   rangeText: `${LOCATE_ARRIVAL_RANGE_S[0]} to ${LOCATE_ARRIVAL_RANGE_S[1]} s, or blank for no reading`,
   blankAllowed: true,
@@ -99,13 +106,15 @@ export const sensorSdSpec = (label: string): QuantityFieldSpec => ({
   aboveMin: true,
 });
 
-export const TEMPERATURE_SPEC: QuantityFieldSpec = {
+export const temperatureSpec = (unit: TemperatureUnit = 'K'): QuantityFieldSpec => ({
   name: 'Bath temperature',
   dimension: 'temperature',
-  unit: 'K',
+  unit,
   range: [MODEL_MIN_K, T_LAMBDA_K],
   rangeText: `${MODEL_MIN_K}–${T_LAMBDA_K} K (He II)`,
-};
+});
+
+export const TEMPERATURE_SPEC: QuantityFieldSpec = temperatureSpec('K');
 
 export const SPEED_SPEC: QuantityFieldSpec = {
   name: 'Speed',
@@ -124,18 +133,18 @@ export const DEFAULT_SD_SPEC: QuantityFieldSpec = {
   aboveMin: true,
 };
 
-export const surfacePointSpec = (what: string, axis: 0 | 1 | 2): QuantityFieldSpec => ({
+export const surfacePointSpec = (what: string, axis: 0 | 1 | 2, unit: LengthUnit = 'mm'): QuantityFieldSpec => ({
   name: `${what} ${AXIS_NAMES[axis]}`,
   dimension: 'length',
-  unit: 'mm',
+  unit,
   range: LOCATE_POSITION_RANGE_M,
   rangeText: `${LOCATE_POSITION_RANGE_M[0]} to ${LOCATE_POSITION_RANGE_M[1]} m`,
 });
 
-export const radiusSpec = (what: string): QuantityFieldSpec => ({
+export const radiusSpec = (what: string, unit: LengthUnit = 'mm'): QuantityFieldSpec => ({
   name: `${what} radius`,
   dimension: 'length',
-  unit: 'mm',
+  unit,
   range: [0, 100],
   rangeText: 'above 0 mm, up to 100 m',
   aboveMin: true,
@@ -170,12 +179,12 @@ function setAxis(v: Vec3, axis: 0 | 1 | 2, x: number): Vec3 {
 }
 
 /** Sensor coordinate. */
-export function positionEdit(row: LocateRowInput, axis: 0 | 1 | 2) {
-  return fieldEdit(positionSpec(row.label, axis), (inputs, value) => withRow(inputs, row.key, (r) => ({ ...r, position_m: setAxis(r.position_m, axis, value ?? 0) })));
+export function positionEdit(row: LocateRowInput, axis: 0 | 1 | 2, unit: LengthUnit = 'mm') {
+  return fieldEdit(positionSpec(row.label, axis, unit), (inputs, value) => withRow(inputs, row.key, (r) => ({ ...r, position_m: setAxis(r.position_m, axis, value ?? 0) })));
 }
 
-export function arrivalEdit(row: LocateRowInput) {
-  return fieldEdit(arrivalSpec(row.label), (inputs, value) => withRow(inputs, row.key, (r) => ({ ...r, arrival_s: value })));
+export function arrivalEdit(row: LocateRowInput, unit: TimeUnit = 'ms') {
+  return fieldEdit(arrivalSpec(row.label, unit), (inputs, value) => withRow(inputs, row.key, (r) => ({ ...r, arrival_s: value })));
 }
 
 export function sensorSdEdit(row: LocateRowInput) {
@@ -197,7 +206,9 @@ function withOptions(inputs: LocateInputs, change: (o: LocateOptionsInput) => Lo
   return { ...inputs, options: change(inputs.options) };
 }
 
-export const temperatureEdit = fieldEdit(TEMPERATURE_SPEC, (inputs, value) => withOptions(inputs, (o) => ({ ...o, temperature_K: value ?? o.temperature_K })));
+export const temperatureEditIn = (unit: TemperatureUnit) =>
+  fieldEdit(temperatureSpec(unit), (inputs, value) => withOptions(inputs, (o) => ({ ...o, temperature_K: value ?? o.temperature_K })));
+export const temperatureEdit = temperatureEditIn('K');
 export const speedEdit = fieldEdit(SPEED_SPEC, (inputs, value) => withOptions(inputs, (o) => ({ ...o, speed_m_s: value ?? o.speed_m_s })));
 export const defaultSdEdit = fieldEdit(DEFAULT_SD_SPEC, (inputs, value) => withOptions(inputs, (o) => ({ ...o, arrivalSd_s: value ?? o.arrivalSd_s })));
 
@@ -225,8 +236,8 @@ function directionField(what: string, id: string, axis: 0 | 1 | 2, get: (o: Loca
   };
 }
 
-function pointField(what: string, id: string, axis: 0 | 1 | 2, get: (o: LocateOptionsInput) => Vec3, set: (o: LocateOptionsInput, v: Vec3) => LocateOptionsInput): SurfaceField {
-  const spec = surfacePointSpec(what, axis);
+function pointField(what: string, id: string, axis: 0 | 1 | 2, get: (o: LocateOptionsInput) => Vec3, set: (o: LocateOptionsInput, v: Vec3) => LocateOptionsInput, unit: LengthUnit): SurfaceField {
+  const spec = surfacePointSpec(what, axis, unit);
   return {
     id: `${id}.${AXIS_NAMES[axis]}`,
     spec,
@@ -235,25 +246,35 @@ function pointField(what: string, id: string, axis: 0 | 1 | 2, get: (o: LocateOp
   };
 }
 
-function radiusField(what: string, id: string, get: (o: LocateOptionsInput) => number, set: (o: LocateOptionsInput, r: number) => LocateOptionsInput): SurfaceField {
-  const spec = radiusSpec(what);
+function radiusField(what: string, id: string, get: (o: LocateOptionsInput) => number, set: (o: LocateOptionsInput, r: number) => LocateOptionsInput, unit: LengthUnit): SurfaceField {
+  const spec = radiusSpec(what, unit);
   return { id, spec, value: get, edit: fieldEdit(spec, (inputs, value) => withOptions(inputs, (o) => set(o, value ?? get(o)))) };
 }
 
-/** The fields of each surface, in the order they are shown. */
-export const SURFACE_FIELDS: Readonly<Record<'sphere' | 'cylinder' | 'plane', readonly SurfaceField[]>> = {
-  sphere: [
-    ...AXES.map((k) => pointField('Sphere centre', 'sphere.centre', k, (o) => o.sphere.centre_m, (o, v) => ({ ...o, sphere: { ...o.sphere, centre_m: v } }))),
-    radiusField('Sphere', 'sphere.radius', (o) => o.sphere.radius_m, (o, r) => ({ ...o, sphere: { ...o.sphere, radius_m: r } })),
-  ],
-  cylinder: [
-    ...AXES.map((k) => pointField('Cylinder axis point', 'cylinder.point', k, (o) => o.cylinder.axisPoint_m, (o, v) => ({ ...o, cylinder: { ...o.cylinder, axisPoint_m: v } }))),
-    ...AXES.map((k) => directionField('Cylinder axis direction', 'cylinder.direction', k, (o) => o.cylinder.axisDirection, (o, v) => ({ ...o, cylinder: { ...o.cylinder, axisDirection: v } }))),
-    radiusField('Cylinder', 'cylinder.radius', (o) => o.cylinder.radius_m, (o, r) => ({ ...o, cylinder: { ...o.cylinder, radius_m: r } })),
-  ],
-  plane: [
-    ...AXES.map((k) => pointField('Plane point', 'plane.point', k, (o) => o.plane.point_m, (o, v) => ({ ...o, plane: { ...o.plane, point_m: v } }))),
-    ...AXES.map((k) => directionField('Plane normal', 'plane.normal', k, (o) => o.plane.normal, (o, v) => ({ ...o, plane: { ...o.plane, normal: v } }))),
-  ],
-};
+/** The fields of each surface, in the order they are shown, with lengths in `unit`. */
+export function surfaceFields(unit: LengthUnit): Readonly<Record<'sphere' | 'cylinder' | 'plane', readonly SurfaceField[]>> {
+  const cached = surfaceFieldCache.get(unit);
+  if (cached) return cached;
+  const fields = {
+    sphere: [
+      ...AXES.map((k) => pointField('Sphere centre', 'sphere.centre', k, (o) => o.sphere.centre_m, (o, v) => ({ ...o, sphere: { ...o.sphere, centre_m: v } }), unit)),
+      radiusField('Sphere', 'sphere.radius', (o) => o.sphere.radius_m, (o, r) => ({ ...o, sphere: { ...o.sphere, radius_m: r } }), unit),
+    ],
+    cylinder: [
+      ...AXES.map((k) => pointField('Cylinder axis point', 'cylinder.point', k, (o) => o.cylinder.axisPoint_m, (o, v) => ({ ...o, cylinder: { ...o.cylinder, axisPoint_m: v } }), unit)),
+      ...AXES.map((k) => directionField('Cylinder axis direction', 'cylinder.direction', k, (o) => o.cylinder.axisDirection, (o, v) => ({ ...o, cylinder: { ...o.cylinder, axisDirection: v } }))),
+      radiusField('Cylinder', 'cylinder.radius', (o) => o.cylinder.radius_m, (o, r) => ({ ...o, cylinder: { ...o.cylinder, radius_m: r } }), unit),
+    ],
+    plane: [
+      ...AXES.map((k) => pointField('Plane point', 'plane.point', k, (o) => o.plane.point_m, (o, v) => ({ ...o, plane: { ...o.plane, point_m: v } }), unit)),
+      ...AXES.map((k) => directionField('Plane normal', 'plane.normal', k, (o) => o.plane.normal, (o, v) => ({ ...o, plane: { ...o.plane, normal: v } }))),
+    ],
+  };
+  surfaceFieldCache.set(unit, fields);
+  return fields;
+}
 
+const surfaceFieldCache = new Map<LengthUnit, Readonly<Record<'sphere' | 'cylinder' | 'plane', readonly SurfaceField[]>>>();
+
+/** The fields of each surface with lengths in mm. */
+export const SURFACE_FIELDS = surfaceFields('mm');

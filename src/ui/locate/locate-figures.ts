@@ -34,7 +34,24 @@ export const TRACE_NAMES = {
   best: 'best added sensor',
 } as const;
 
-const mm = (m: number) => m * 1e3;
+/** How lengths are drawn: the unit and its size (per metre), with the decimals hover labels show. */
+export interface LengthScale {
+  perMetre: number;
+  shown: string;
+  /** Decimals of a sensor position in hover labels. */
+  decimals: number;
+}
+
+/** Millimetres: the default, and what the positions on these charts were first written in. */
+export const MM_SCALE: LengthScale = { perMetre: 1e3, shown: 'mm', decimals: 1 };
+
+/** The scale of a display unit of length. */
+export function lengthScale(unit: 'mm' | 'cm' | 'm'): LengthScale {
+  if (unit === 'cm') return { perMetre: 1e2, shown: 'cm', decimals: 2 };
+  if (unit === 'm') return { perMetre: 1, shown: 'm', decimals: 4 };
+  return MM_SCALE;
+}
+
 const fmt = (x: number, digits = 3) => (Number.isFinite(x) ? Number(x.toPrecision(digits)).toString() : '—');
 
 export interface ProjectionInput {
@@ -46,11 +63,16 @@ export interface ProjectionInput {
   result: LocateResult | null;
   constraint: SurfaceConstraint;
   zoom: 'layout' | 'source';
+  /** Unit of the axes (mm when absent). */
+  length?: LengthScale;
 }
 
 /** One projection: sensors by how they took part, the source, its 1σ and 2σ ellipses, the surface. */
 export function projectionFigure(p: ProjectionInput): { data: PlotTrace[]; layout: PlotLayout } {
   const { a, b } = axesOf(p.pair);
+  const L = p.length ?? MM_SCALE;
+  const mm = (m: number) => m * L.perMetre;
+  const d = L.decimals;
   const groups: { name: string; symbol: string; colour: string; rows: number[] }[] = [
     { name: TRACE_NAMES.sensors, symbol: 'circle', colour: LOCATE_COLOURS.sensor, rows: [] },
     { name: TRACE_NAMES.outliers, symbol: 'x', colour: LOCATE_COLOURS.outlier, rows: [] },
@@ -63,7 +85,7 @@ export function projectionFigure(p: ProjectionInput): { data: PlotTrace[]; layou
     groups[g]?.rows.push(i);
   });
   const data: PlotTrace[] = [];
-  const surface = surfaceOutline(p.constraint, p.pair, reachOf(p.positions, p.constraint));
+  const surface = surfaceOutline(p.constraint, p.pair, reachOf(p.positions, p.constraint), L);
   if (surface) {
     data.push({
       type: 'scatter',
@@ -86,7 +108,7 @@ export function projectionFigure(p: ProjectionInput): { data: PlotTrace[]; layou
       mode: 'markers',
       marker: { color: g.colour, size: g.symbol.startsWith('x') ? 11 : 10, symbol: g.symbol, line: { color: g.colour, width: 2 } },
       text: g.rows.map((i) => p.labels[i] ?? ''),
-      hovertemplate: `%{text}: ${AXIS_NAMES[a]} %{x:.1f} mm, ${AXIS_NAMES[b]} %{y:.1f} mm<extra>${g.name}</extra>`,
+      hovertemplate: `%{text}: ${AXIS_NAMES[a]} %{x:.${d}f} ${L.shown}, ${AXIS_NAMES[b]} %{y:.${d}f} ${L.shown}<extra>${g.name}</extra>`,
     });
   }
   const r = p.result;
@@ -94,7 +116,7 @@ export function projectionFigure(p: ProjectionInput): { data: PlotTrace[]; layou
   if (r) {
     const centre = project(r.source_m, p.pair).map(mm) as [number, number];
     if (r.covariance_m2) {
-      const cov = marginalCovariance(r.covariance_m2, p.pair).map((x) => x * 1e6) as [number, number, number];
+      const cov = marginalCovariance(r.covariance_m2, p.pair).map((x) => x * L.perMetre ** 2) as [number, number, number];
       sigma2Extent = ellipseAxes(cov, ELLIPSE_DCHI2.sigma2).major;
       const e2 = ellipsePoints(centre, cov, ELLIPSE_DCHI2.sigma2);
       const e1 = ellipsePoints(centre, cov, ELLIPSE_DCHI2.sigma1);
@@ -126,23 +148,24 @@ export function projectionFigure(p: ProjectionInput): { data: PlotTrace[]; layou
       y: [centre[1]],
       mode: 'markers',
       marker: { color: LOCATE_COLOURS.source, size: 15, symbol: 'star', line: { color: '#ffffff', width: 1 } },
-      hovertemplate: `source: ${AXIS_NAMES[a]} %{x:.2f} mm, ${AXIS_NAMES[b]} %{y:.2f} mm<extra>${r.degenerate ? 'not determined' : ''}</extra>`,
+      hovertemplate: `source: ${AXIS_NAMES[a]} %{x:.${d + 1}f} ${L.shown}, ${AXIS_NAMES[b]} %{y:.${d + 1}f} ${L.shown}<extra>${r.degenerate ? 'not determined' : ''}</extra>`,
     });
   }
-  const annotations: PlotAnnotation[] = p.zoom === 'layout' ? sensorLabels(p, a, b) : [];
+  const annotations: PlotAnnotation[] = p.zoom === 'layout' ? sensorLabels(p, a, b, L) : [];
   const layout: PlotLayout = {
     ...baseLayout(),
     uirevision: `${p.pair}-${p.zoom}`,
     margin: { l: 56, r: 36, t: 12, b: 44 },
-    xaxis: axis(`${AXIS_NAMES[a]} (mm)`, { constrain: 'domain' }),
-    yaxis: axis(`${AXIS_NAMES[b]} (mm)`, { scaleanchor: 'x', scaleratio: 1, constrain: 'domain' }),
+    xaxis: axis(`${AXIS_NAMES[a]} (${L.shown})`, { constrain: 'domain' }),
+    yaxis: axis(`${AXIS_NAMES[b]} (${L.shown})`, { scaleanchor: 'x', scaleratio: 1, constrain: 'domain' }),
     annotations,
     // The view draws one legend for both projections, in the page.
     showlegend: false,
   };
   if (p.zoom === 'source' && r) {
     const centre = project(r.source_m, p.pair).map(mm) as [number, number];
-    const half = Math.max(1.6 * sigma2Extent, 2);
+    // At least 2 mm either side of the source.
+    const half = Math.max(1.6 * sigma2Extent, 2e-3 * L.perMetre);
     layout.xaxis = { ...layout.xaxis, range: [centre[0] - half, centre[0] + half], autorange: false };
     layout.yaxis = { ...layout.yaxis, range: [centre[1] - half, centre[1] + half], autorange: false };
   }
@@ -153,12 +176,13 @@ export function projectionFigure(p: ProjectionInput): { data: PlotTrace[]; layou
  * Sensor labels beside their markers; sensors that fall on one spot in this projection (one above
  * the other) share one label, "U90, L135", so no text is drawn over another.
  */
-function sensorLabels(p: ProjectionInput, a: 0 | 1 | 2, b: 0 | 1 | 2): PlotAnnotation[] {
+function sensorLabels(p: ProjectionInput, a: 0 | 1 | 2, b: 0 | 1 | 2, L: LengthScale): PlotAnnotation[] {
   const spots = new Map<string, { x: number; y: number; names: string[] }>();
   p.positions.forEach((pos, i) => {
-    const x = mm(pos[a]);
-    const y = mm(pos[b]);
-    const key = `${Math.round(x * 2)}:${Math.round(y * 2)}`;
+    const x = pos[a] * L.perMetre;
+    const y = pos[b] * L.perMetre;
+    // One spot per half millimetre, whatever the unit.
+    const key = `${Math.round(pos[a] * 2e3)}:${Math.round(pos[b] * 2e3)}`;
     const status = p.outcomes?.[i]?.status;
     const name = `${p.labels[i] ?? ''}${status === 'outlier' || status === 'dropped' ? ' (outlier)' : ''}`;
     const spot = spots.get(key);
@@ -180,12 +204,13 @@ function sensorLabels(p: ProjectionInput, a: 0 | 1 | 2, b: 0 | 1 | 2): PlotAnnot
 }
 
 /**
- * The outline of the surface in a projection, mm, where it is simple: a sphere's rim; a cylinder
+ * The outline of the surface in a projection (mm, or the given length unit), where it is simple: a sphere's rim; a cylinder
  * seen along its axis (a circle) or from the side (two lines); a plane seen edge-on (a line).
  * Null when the surface covers the view or is seen at a slant.
  */
-export function surfaceOutline(c: SurfaceConstraint, pair: PlanePair, reach_m = 0.3): { x: number[]; y: (number | null)[] } | null {
+export function surfaceOutline(c: SurfaceConstraint, pair: PlanePair, reach_m = 0.3, length: LengthScale = MM_SCALE): { x: number[]; y: (number | null)[] } | null {
   const { a, b, c: n } = axesOf(pair);
+  const mm = (m: number) => m * length.perMetre;
   const circle = (centre: Vec3, R: number) => {
     const x: number[] = [];
     const y: number[] = [];
@@ -259,9 +284,11 @@ export interface QualityFigureInput {
   source: Vec3 | null;
   /** Marker size that tiles the plot area, px. */
   cellPx: number;
+  /** Unit of the axes and the sd (mm when absent). */
+  length?: LengthScale;
 }
 
-/** Tick values (log10 of mm) across [lo, hi]: 1, 2, 5 × 10ⁿ, or finer steps when the range is narrow. */
+/** Tick values (log10 of a length) across [lo, hi]: 1, 2, 5 × 10ⁿ, or finer steps when the range is narrow. */
 function logTicks(lo: number, hi: number): number[] {
   const ladders = [[1, 2, 5], [1, 1.5, 2, 3, 5, 7], [1, 1.2, 1.5, 2, 2.5, 3, 4, 5, 6, 8]];
   let out: number[] = [];
@@ -276,7 +303,7 @@ function logTicks(lo: number, hi: number): number[] {
     if (out.length >= 4) return out;
   }
   if (out.length >= 3) return out;
-  // A narrow range: even steps in mm (0.1, 0.2, 0.25, 0.5 × 10ⁿ), about five of them.
+  // A narrow range: even steps (0.1, 0.2, 0.25, 0.5 × 10ⁿ), about five of them.
   const from = 10 ** lo;
   const to = 10 ** hi;
   const raw = (to - from) / 5;
@@ -291,6 +318,10 @@ function logTicks(lo: number, hi: number): number[] {
 export function qualityFigure(q: QualityFigureInput): { data: PlotTrace[]; layout: PlotLayout } {
   const { pair, u, v } = q.map.grid;
   const { a, b } = axesOf(pair);
+  const L = q.length ?? MM_SCALE;
+  const mm = (m: number) => m * L.perMetre;
+  const unit = L.shown;
+  const d = Math.max(0, L.decimals - 1);
   const xs: number[] = [];
   const ys: number[] = [];
   const logs: number[] = [];
@@ -335,7 +366,7 @@ export function qualityFigure(q: QualityFigureInput): { data: PlotTrace[]; layou
         cmax,
         showscale: true,
         colorbar: {
-          title: { text: 'expected sd (mm)', side: 'right' },
+          title: { text: `expected sd (${unit})`, side: 'right' },
           tickvals: ticks,
           ticktext: ticks.map((t) => fmt(10 ** t, 2)),
           thickness: 14,
@@ -344,7 +375,7 @@ export function qualityFigure(q: QualityFigureInput): { data: PlotTrace[]; layou
         line: { width: 0 },
       },
       text: texts,
-      hovertemplate: `${AXIS_NAMES[a]} %{x:.0f} mm, ${AXIS_NAMES[b]} %{y:.0f} mm: sd %{text} mm<extra></extra>`,
+      hovertemplate: `${AXIS_NAMES[a]} %{x:.${d}f} ${unit}, ${AXIS_NAMES[b]} %{y:.${d}f} ${unit}: sd %{text} ${unit}<extra></extra>`,
       showlegend: false,
     },
   ];
@@ -356,7 +387,7 @@ export function qualityFigure(q: QualityFigureInput): { data: PlotTrace[]; layou
       y: bad.y,
       mode: 'markers',
       marker: { symbol: 'square', size: q.cellPx, color: '#d8d4ca', line: { width: 0 } },
-      hovertemplate: `${AXIS_NAMES[a]} %{x:.0f} mm, ${AXIS_NAMES[b]} %{y:.0f} mm: the layout cannot fix a source here<extra></extra>`,
+      hovertemplate: `${AXIS_NAMES[a]} %{x:.${d}f} ${unit}, ${AXIS_NAMES[b]} %{y:.${d}f} ${unit}: the layout cannot fix a source here<extra></extra>`,
     });
   }
   data.push({
@@ -391,21 +422,21 @@ export function qualityFigure(q: QualityFigureInput): { data: PlotTrace[]; layou
       y: [mm(best.position_m[b])],
       mode: 'markers',
       marker: { symbol: 'diamond', size: 15, color: LOCATE_COLOURS.best, line: { color: '#ffffff', width: 2 } },
-      text: [`${AXIS_NAMES[c]} = ${fmt(mm(best.position_m[c]), 4)} mm`],
+      text: [`${AXIS_NAMES[c]} = ${fmt(mm(best.position_m[c]), 4)} ${unit}`],
       hovertemplate: 'add a sensor here (%{text})<extra></extra>',
       cliponaxis: false,
     });
     annotations.push({
       name: 'best-added-sensor',
-      text: `add here (${AXIS_NAMES[c]} ${fmt(mm(best.position_m[c]), 3)} mm)`,
+      text: `add here (${AXIS_NAMES[c]} ${fmt(mm(best.position_m[c]), 3)} ${unit})`,
       xref: 'x',
       yref: 'y',
       x: mm(best.position_m[a]),
       y: mm(best.position_m[b]),
       showarrow: false,
       // Toward the middle of the map, so the words stay inside it.
-      xanchor: mm(best.position_m[a]) > ((u[0] ?? 0) + (u.at(-1) ?? 0)) * 500 ? 'right' : 'left',
-      yanchor: mm(best.position_m[b]) > ((v[0] ?? 0) + (v.at(-1) ?? 0)) * 500 ? 'top' : 'bottom',
+      xanchor: best.position_m[a] > ((u[0] ?? 0) + (u.at(-1) ?? 0)) / 2 ? 'right' : 'left',
+      yanchor: best.position_m[b] > ((v[0] ?? 0) + (v.at(-1) ?? 0)) / 2 ? 'top' : 'bottom',
       font: { size: 11, color: LOCATE_COLOURS.best },
       bgcolor: 'rgba(255,255,255,0.85)',
     });
@@ -416,8 +447,8 @@ export function qualityFigure(q: QualityFigureInput): { data: PlotTrace[]; layou
     ...baseLayout(),
     uirevision: `map-${pair}`,
     margin: { l: 60, r: 12, t: 40, b: 46 },
-    xaxis: axis(`${AXIS_NAMES[a]} (mm)`, { range: [mm((u[0] ?? 0) - pad), mm((u.at(-1) ?? 0) + pad)], constrain: 'domain' }),
-    yaxis: axis(`${AXIS_NAMES[b]} (mm)`, { range: [mm((v[0] ?? 0) - pad), mm((v.at(-1) ?? 0) + pad)], scaleanchor: 'x', scaleratio: 1, constrain: 'domain' }),
+    xaxis: axis(`${AXIS_NAMES[a]} (${unit})`, { range: [mm((u[0] ?? 0) - pad), mm((u.at(-1) ?? 0) + pad)], constrain: 'domain' }),
+    yaxis: axis(`${AXIS_NAMES[b]} (${unit})`, { range: [mm((v[0] ?? 0) - pad), mm((v.at(-1) ?? 0) + pad)], scaleanchor: 'x', scaleratio: 1, constrain: 'domain' }),
     annotations,
     showlegend: true,
   };

@@ -5,7 +5,8 @@
  * labels, legend) take the theme's colours, and each colour a figure names is swapped for its dark
  * counterpart so lines, markers and labels stay readable on a dark plot.
  *
- * Colour scales and opaque filled areas (bands of a map) encode data and keep their colours.
+ * Colour scales and opaque filled areas (bands of a map) encode data and keep their colours; a
+ * translucent white wash stays a wash.
  */
 import type { PlotLayout, PlotTrace } from './plotly-types';
 
@@ -159,15 +160,21 @@ export function themedColour(colour: string, theme: PlotTheme): string {
 /** Keys whose string values are colours. */
 const COLOUR_KEYS = new Set(['color', 'bgcolor', 'bordercolor', 'gridcolor', 'linecolor', 'tickcolor', 'zerolinecolor', 'outlinecolor']);
 
-function isOpaqueArea(colour: string): boolean {
+/**
+ * Filled areas that keep their colour: opaque ones (bands of a map encode data) and translucent
+ * white (a wash that pales what lies under it, meant the same on a dark plot).
+ */
+function keepsFill(colour: string): boolean {
   const c = parseColour(colour);
-  return c !== null && c.a >= 1 && !(c.r > 240 && c.g > 240 && c.b > 240);
+  if (c === null) return true;
+  const white = c.r > 240 && c.g > 240 && c.b > 240;
+  return c.a >= 1 ? !white : white;
 }
 
 /** Maps every colour in a figure object; arrays of data (x, y, text) are not walked. */
 function mapColours(value: unknown, key: string | null): unknown {
   if (typeof value === 'string') {
-    if (key === 'fillcolor') return isOpaqueArea(value) ? value : darkColour(value);
+    if (key === 'fillcolor') return keepsFill(value) ? value : darkColour(value);
     return key !== null && COLOUR_KEYS.has(key) ? darkColour(value) : value;
   }
   if (Array.isArray(value)) {

@@ -1,5 +1,6 @@
 import type { HeliumProperties } from '../../physics';
-import { formatSignificant, UNCERTAINTY_SIGNIFICANT_DIGITS } from '../format/format-number';
+import { formatMeasured } from '../format/format-measured';
+import { formatSignificant } from '../format/format-number';
 
 interface KeyFigureProps {
   label: string;
@@ -24,13 +25,15 @@ function KeyFigure({ label, value, unit, detail }: KeyFigureProps) {
 export function KeyFigures({ properties: p }: { properties: HeliumProperties }) {
   const u2 = p.secondSound_m_s;
   const sd = p.secondSoundSd_m_s;
+  // u₂ to the digit its sd supports.
+  const measured = u2 === null ? null : formatMeasured(u2, sd);
   return (
     <dl className="key-figures" aria-label="Key figures">
       <KeyFigure
         label="Second sound u₂"
-        value={u2 === null ? 'none' : formatSignificant(u2)}
+        value={measured === null ? 'none' : measured.value}
         unit={u2 === null ? 'in He I' : 'm/s'}
-        detail={sd === null ? undefined : `± ${formatSignificant(sd, UNCERTAINTY_SIGNIFICANT_DIGITS)} m/s`}
+        detail={measured?.sd ? `± ${measured.sd} m/s` : undefined}
       />
       <KeyFigure label="First sound u₁" value={formatSignificant(p.firstSound_m_s)} unit="m/s" />
       <KeyFigure label="Superfluid fraction ρs/ρ" value={formatSignificant(p.superfluidFraction)} unit="" />

@@ -1,15 +1,16 @@
 import type { HeliumProperties, PropertyInfo } from '../../physics';
-import { displayProperty, shortSource } from './property-display';
+import { displayProperty, type PropertyUnits, propertyUnit, shortSource } from './property-display';
 
 interface PropertyRowProps {
   info: PropertyInfo;
   properties: HeliumProperties;
   detailsShown: boolean;
+  units: PropertyUnits;
 }
 
 /** One property: symbol and name, value or the reason it is absent, unit, uncertainty, source. */
-export function PropertyRow({ info, properties, detailsShown }: PropertyRowProps) {
-  const display = displayProperty(info, properties);
+export function PropertyRow({ info, properties, detailsShown, units }: PropertyRowProps) {
+  const display = displayProperty(info, properties, units);
   const rowClass = [display.kind === 'absent' ? 'is-absent' : '', detailsShown ? 'has-details' : ''].join(' ').trim() || undefined;
   return (
     <>
@@ -20,7 +21,7 @@ export function PropertyRow({ info, properties, detailsShown }: PropertyRowProps
         {display.kind === 'value' ? (
           <>
             <td className="num value">{display.value}</td>
-            <td className="unit">{info.unit}</td>
+            <td className="unit">{propertyUnit(info, units)}</td>
             <td className="num uncertainty">{display.uncertainty ?? <NotStated />}</td>
           </>
         ) : (

@@ -7,7 +7,17 @@ import {
   type PropertyInfo,
   type PropertyKey,
 } from '../../physics';
+import { formatMeasured, formatSd } from '../format/format-measured';
 import { DISPLAY_SIGNIFICANT_DIGITS, formatSignificant, UNCERTAINTY_SIGNIFICANT_DIGITS } from '../format/format-number';
+import { fromSi, shownUnit } from '../units/unit-choices';
+
+/** Display units the table uses: properties in these kinds are shown in the chosen unit. */
+export interface PropertyUnits {
+  pressure: 'Pa' | 'mbar' | 'torr';
+}
+
+/** The table's units before anyone chooses. */
+export const SI_PROPERTY_UNITS: PropertyUnits = { pressure: 'Pa' };
 
 /** What one table row shows: a number with its uncertainty, or why there is none. */
 export type PropertyDisplay =
@@ -26,17 +36,37 @@ const SECOND_SOUND_KEYS: ReadonlySet<PropertyKey> = new Set([
 /** Keys whose value is itself an uncertainty (shown to fewer digits). */
 const UNCERTAINTY_KEYS: ReadonlySet<PropertyKey> = new Set(['secondSoundSd_m_s']);
 
-/** Row content for a property at the properties' temperature. Never shows "NaN". */
-export function displayProperty(info: PropertyInfo, properties: HeliumProperties): PropertyDisplay {
+/** A property's value in the table's unit (SI unless a display unit applies), null when absent. */
+export function propertyValue(info: PropertyInfo, properties: HeliumProperties, units: PropertyUnits = SI_PROPERTY_UNITS): { value: number; sd: number | null } | null {
   const value = properties[info.key];
-  if (value === null || !Number.isFinite(value)) return { kind: 'absent', reason: absentReason(info.key, properties) };
+  if (value === null || !Number.isFinite(value)) return null;
   const sd = info.key === 'secondSound_m_s' ? properties.secondSoundSd_m_s : null;
+  if (info.key === 'vapourPressure_Pa') return { value: fromSi(value, units.pressure), sd: null };
+  return { value, sd };
+}
+
+/** The unit a property is shown in: its SI unit, or the chosen display unit. */
+export function propertyUnit(info: PropertyInfo, units: PropertyUnits = SI_PROPERTY_UNITS): string {
+  return info.key === 'vapourPressure_Pa' ? shownUnit(units.pressure) : info.unit;
+}
+
+/**
+ * Row content for a property at the properties' temperature. A value with an sd is rounded to the
+ * digit the sd supports (sd to one or two digits); others show four significant digits. Never "NaN".
+ */
+export function displayProperty(info: PropertyInfo, properties: HeliumProperties, units: PropertyUnits = SI_PROPERTY_UNITS): PropertyDisplay {
+  const shown = propertyValue(info, properties, units);
+  if (shown === null) return { kind: 'absent', reason: absentReason(info.key, properties) };
   const digits = UNCERTAINTY_KEYS.has(info.key) ? UNCERTAINTY_SIGNIFICANT_DIGITS : DISPLAY_SIGNIFICANT_DIGITS;
-  return {
-    kind: 'value',
-    value: formatSignificant(value, digits),
-    uncertainty: sd === null ? null : `± ${formatSignificant(sd, UNCERTAINTY_SIGNIFICANT_DIGITS)}`,
-  };
+  if (UNCERTAINTY_KEYS.has(info.key)) return { kind: 'value', value: formatSd(shown.value), uncertainty: null };
+  if (shown.sd === null) return { kind: 'value', value: formatSignificant(shown.value, digits), uncertainty: null };
+  const measured = formatMeasured(shown.value, shown.sd, digits);
+  return { kind: 'value', value: measured.value, uncertainty: measured.sd === null ? null : `± ${measured.sd}` };
+}
+
+/** Why a property has no value at the properties' temperature (the table and its CSV say so). */
+export function absentReasonOf(key: PropertyKey, properties: HeliumProperties): string {
+  return absentReason(key, properties);
 }
 
 function absentReason(key: PropertyKey, properties: HeliumProperties): string {

@@ -2,6 +2,7 @@ import type { StateCreator } from 'zustand';
 import type { Preferences } from '../../io/workspace-storage';
 import { asDisplayUnit, DEFAULT_DISPLAY_UNITS, type DisplayUnitOf, type DisplayUnits, UNIT_KIND_LIST, type UnitKind } from '../units/unit-choices';
 import type { SekundoState } from './state';
+import { draftFor } from './temperature-slice';
 
 /** The colour theme a person chose; "system" follows the operating system's light or dark setting. */
 export type ThemeChoice = 'light' | 'dark' | 'system';
@@ -55,7 +56,11 @@ export const createPreferencesSlice: StateCreator<SekundoState, [], [], Preferen
   themeChoice: 'system',
   setThemeChoice: (choice) => set({ themeChoice: choice }),
   displayUnits: DEFAULT_DISPLAY_UNITS,
-  setDisplayUnit: (kind, unit) => set({ displayUnits: { ...get().displayUnits, [kind]: unit } }),
+  setDisplayUnit: (kind, unit) => {
+    const before = get();
+    const displayUnits = { ...before.displayUnits, [kind]: unit };
+    set({ displayUnits, ...temperatureDraftIn(before, displayUnits.temperature) });
+  },
   tourOpen: false,
   tourSeen: false,
   openTour: () => set({ tourOpen: true }),
@@ -73,8 +78,15 @@ export const createPreferencesSlice: StateCreator<SekundoState, [], [], Preferen
     set({
       themeChoice: isThemeChoice(theme) ? theme : get().themeChoice,
       displayUnits: units as DisplayUnits,
+      ...temperatureDraftIn(get(), (units as DisplayUnits).temperature),
       tourSeen: seen,
       tourOpen: !seen,
     });
   },
 });
+
+/** The temperature field's text in a new unit, unless someone is typing in it (then it is left alone). */
+function temperatureDraftIn(state: SekundoState, unit: DisplayUnits['temperature']): { temperatureDraft?: string } {
+  const shown = draftFor(state.temperature_K, state.displayUnits.temperature);
+  return state.temperatureDraft === shown ? { temperatureDraft: draftFor(state.temperature_K, unit) } : {};
+}

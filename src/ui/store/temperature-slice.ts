@@ -1,5 +1,5 @@
 import type { StateCreator } from 'zustand';
-import { checkTemperature, formatKelvin, parseTemperature, type TemperatureParse } from '../temperature/temperature-units';
+import { checkTemperature, formatTemperature, parseTemperature, type TemperatureParse } from '../temperature/temperature-units';
 import type { SekundoState } from './state';
 
 /** Temperature the explorer shows when it opens, K: a typical He II working point. */
@@ -20,22 +20,22 @@ export interface TemperatureSlice {
   commitTemperatureDraft: () => void;
 }
 
-/** Text the field shows for a temperature. */
-export function draftFor(temperature_K: number): string {
-  return `${formatKelvin(temperature_K)} K`;
+/** Text the field shows for a temperature, in the display unit (kelvin unless mK was chosen). */
+export function draftFor(temperature_K: number, unit: 'K' | 'mK' = 'K'): string {
+  return formatTemperature(temperature_K, unit);
 }
 
 export const createTemperatureSlice: StateCreator<SekundoState, [], [], TemperatureSlice> = (set, get) => ({
   temperature_K: DEFAULT_TEMPERATURE_K,
   temperatureDraft: draftFor(DEFAULT_TEMPERATURE_K),
   temperatureError: null,
-  setTemperature: (temperature_K) => set(applied(checkTemperature(temperature_K))),
+  setTemperature: (temperature_K) => set(applied(checkTemperature(temperature_K), get().displayUnits.temperature)),
   editTemperatureDraft: (text) => set({ temperatureDraft: text, temperatureError: null }),
-  commitTemperatureDraft: () => set(applied(parseTemperature(get().temperatureDraft))),
+  commitTemperatureDraft: () => set(applied(parseTemperature(get().temperatureDraft), get().displayUnits.temperature)),
 });
 
 /** The state change for a checked entry: the new temperature, or only the message. */
-function applied(entry: TemperatureParse): Partial<TemperatureSlice> {
+function applied(entry: TemperatureParse, unit: 'K' | 'mK'): Partial<TemperatureSlice> {
   if (!entry.ok) return { temperatureError: entry.message };
-  return { temperature_K: entry.temperature_K, temperatureDraft: draftFor(entry.temperature_K), temperatureError: null };
+  return { temperature_K: entry.temperature_K, temperatureDraft: draftFor(entry.temperature_K, unit), temperatureError: null };
 }

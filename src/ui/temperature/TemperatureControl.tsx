@@ -3,7 +3,9 @@ import { useSekundoStore } from '../store';
 import { TemperatureField } from './TemperatureField';
 import { TemperaturePresets } from './TemperaturePresets';
 import { TemperatureSlider } from './TemperatureSlider';
-import { formatKelvin, formatMillikelvin } from './temperature-units';
+import { TEMPERATURE_HELP } from './temperature-help';
+import { useDisplayUnit } from '../units/use-display-unit';
+import { formatTemperature, otherTemperatureUnit } from './temperature-units';
 
 /** The chosen temperature: readout, typed field, slider and quick picks. */
 export function TemperatureControl() {
@@ -17,7 +19,7 @@ export function TemperatureControl() {
         <TemperatureReadout />
       </div>
       <TemperatureField />
-      <TemperatureSlider />
+      <TemperatureSlider help={TEMPERATURE_HELP.slider} />
       <TemperaturePresets />
     </section>
   );
@@ -25,10 +27,11 @@ export function TemperatureControl() {
 
 function TemperatureReadout() {
   const temperature_K = useSekundoStore((state) => state.temperature_K);
+  const { unit } = useDisplayUnit('temperature');
   return (
     <output className="readout" aria-live="polite" aria-label="Temperature in effect">
-      <span className="readout-main">{formatKelvin(temperature_K)} K</span>
-      <span className="readout-alt">{formatMillikelvin(temperature_K)} mK</span>
+      <span className="readout-main">{formatTemperature(temperature_K, unit)}</span>
+      <span className="readout-alt">{formatTemperature(temperature_K, otherTemperatureUnit(unit))}</span>
     </output>
   );
 }

@@ -1,5 +1,7 @@
 import type { FormEvent } from 'react';
+import { describedBy, useFieldHelp } from '../help/FieldHelp';
 import { useSekundoStore } from '../store';
+import { TEMPERATURE_HELP } from './temperature-help';
 import { TEMPERATURE_RANGE_TEXT } from './temperature-units';
 
 const INPUT_ID = 'temperature-input';
@@ -12,6 +14,7 @@ export function TemperatureField() {
   const error = useSekundoStore((state) => state.temperatureError);
   const edit = useSekundoStore((state) => state.editTemperatureDraft);
   const commit = useSekundoStore((state) => state.commitTemperatureDraft);
+  const help = useFieldHelp('temperature', TEMPERATURE_HELP.field);
 
   const submit = (event: FormEvent<HTMLFormElement>) => {
     event.preventDefault();
@@ -20,9 +23,13 @@ export function TemperatureField() {
 
   return (
     <form className="temperature-form" onSubmit={submit} noValidate>
-      <label className="field-label" htmlFor={INPUT_ID}>
-        Temperature (type K or mK)
-      </label>
+      <div className="field-head">
+        <label className="field-label" htmlFor={INPUT_ID}>
+          Temperature (type K or mK)
+        </label>
+        {help.button}
+      </div>
+      {help.panel}
       <div className="field-row">
         <input
           id={INPUT_ID}
@@ -35,7 +42,7 @@ export function TemperatureField() {
           onChange={(event) => edit(event.target.value)}
           onBlur={commit}
           aria-invalid={error !== null}
-          aria-describedby={error === null ? HINT_ID : `${ERROR_ID} ${HINT_ID}`}
+          aria-describedby={describedBy(error !== null && ERROR_ID, HINT_ID, help.describedBy)}
         />
         <button type="submit" className="button button--primary">
           Set

@@ -1,7 +1,10 @@
 import { T_LAMBDA_K } from '../../physics';
 import { propertyCurves, secondSoundExtremes } from '../charts/curves';
 import { formatFixed } from '../format/format-number';
+import { useFieldHelp } from '../help/FieldHelp';
 import { useSekundoStore } from '../store';
+import { useDisplayUnit } from '../units/use-display-unit';
+import { TEMPERATURE_HELP } from './temperature-help';
 
 interface Preset {
   label: string;
@@ -33,9 +36,12 @@ function notableTemperatures(): Preset[] {
 /** One-click jumps to notable temperatures. */
 export function TemperaturePresets() {
   const setTemperature = useSekundoStore((state) => state.setTemperature);
+  const { unit } = useDisplayUnit('temperature');
+  const help = useFieldHelp('jump to', TEMPERATURE_HELP.presets);
   return (
-    <fieldset className="presets">
-      <legend className="field-label">Jump to</legend>
+    <fieldset className="presets" aria-describedby={help.describedBy}>
+      <legend className="field-label field-head">Jump to {help.button}</legend>
+      {help.panel}
       <div className="chips">
       {notableTemperatures().map((preset) => (
         <button
@@ -44,7 +50,8 @@ export function TemperaturePresets() {
           className="chip"
           onClick={() => setTemperature(preset.temperature_K)}
         >
-          <span className="chip__label">{preset.label}</span> {formatFixed(preset.temperature_K, 3)} K
+          <span className="chip__label">{preset.label}</span>{' '}
+          {unit === 'mK' ? `${formatFixed(preset.temperature_K * 1000, 0)} mK` : `${formatFixed(preset.temperature_K, 3)} K`}
         </button>
       ))}
       </div>

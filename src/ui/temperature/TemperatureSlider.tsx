@@ -1,7 +1,9 @@
 import type { CSSProperties } from 'react';
 import { PROPERTIES_RANGE_K, T_LAMBDA_K } from '../../physics';
+import { type HelpTopic, useFieldHelp } from '../help/FieldHelp';
 import { useSekundoStore } from '../store';
-import { formatKelvin, formatMillikelvin } from './temperature-units';
+import { useDisplayUnit } from '../units/use-display-unit';
+import { formatTemperature, otherTemperatureUnit } from './temperature-units';
 
 /** Slider step, K: 10 mK per arrow key; the typed field reaches any value in between. */
 export const SLIDER_STEP_K = 0.01;
@@ -12,14 +14,20 @@ const LAMBDA_PERCENT = ((T_LAMBDA_K - MIN_K) / (MAX_K - MIN_K)) * 100;
 const TRACK_STYLE = { '--lambda-position': `${LAMBDA_PERCENT}%` } as CSSProperties;
 
 /** Sweeps the temperature over the whole range; the track shows where He II ends. */
-export function TemperatureSlider() {
+export function TemperatureSlider({ help }: { help: HelpTopic }) {
   const temperature_K = useSekundoStore((state) => state.temperature_K);
   const setTemperature = useSekundoStore((state) => state.setTemperature);
+  const { unit } = useDisplayUnit('temperature');
+  const fieldHelp = useFieldHelp('sweep the temperature', help);
   return (
     <div className="slider-block" style={TRACK_STYLE}>
-      <label className="field-label" htmlFor="temperature-slider">
-        Sweep the temperature
-      </label>
+      <div className="field-head">
+        <label className="field-label" htmlFor="temperature-slider">
+          Sweep the temperature
+        </label>
+        {fieldHelp.button}
+      </div>
+      {fieldHelp.panel}
       <input
         id="temperature-slider"
         className="temperature-slider"
@@ -28,7 +36,8 @@ export function TemperatureSlider() {
         max={MAX_K}
         step={SLIDER_STEP_K}
         value={temperature_K}
-        aria-valuetext={`${formatKelvin(temperature_K)} K (${formatMillikelvin(temperature_K)} mK)`}
+        aria-valuetext={`${formatTemperature(temperature_K, unit)} (${formatTemperature(temperature_K, otherTemperatureUnit(unit))})`}
+        aria-describedby={fieldHelp.describedBy}
         onChange={(event) => setTemperature(Number(event.target.value))}
       />
       <div className="slider-scale" aria-hidden="true">

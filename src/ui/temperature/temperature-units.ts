@@ -18,6 +18,16 @@ export function formatMillikelvin(T_K: number): string {
   return trimDecimals((T_K * MILLIKELVIN_PER_KELVIN).toFixed(3), 1);
 }
 
+/** A temperature in kelvin as text in the chosen display unit, with the unit: "1.8000 K", "1800.0 mK". */
+export function formatTemperature(T_K: number, unit: 'K' | 'mK'): string {
+  return unit === 'mK' ? `${formatMillikelvin(T_K)} mK` : `${formatKelvin(T_K)} K`;
+}
+
+/** The other unit of the two, for a second reading beside the first. */
+export function otherTemperatureUnit(unit: 'K' | 'mK'): 'K' | 'mK' {
+  return unit === 'mK' ? 'K' : 'mK';
+}
+
 /** Drops trailing zeros after the decimal point, keeping at least `minDecimals`. */
 function trimDecimals(fixed: string, minDecimals: number): string {
   const point = fixed.indexOf('.');

@@ -4,7 +4,7 @@
  * does the arithmetic). The choice lives in the store (preferences slice) and in the browser's
  * preferences, under "unit.<kind>".
  */
-import { type Dimension, fromBaseUnit, toBaseUnit, type UnitOf } from '../../io/quantity';
+import { type Dimension, fromBaseUnit, toBaseUnit, type Unit } from '../../io/quantity';
 
 /** One unit a person may choose: the symbol the parser knows and the symbol as shown. */
 export interface UnitChoice<U extends string = string> {
@@ -13,34 +13,34 @@ export interface UnitChoice<U extends string = string> {
   shown: string;
 }
 
-const choice = <U extends string>(unit: U, shown: string = unit): UnitChoice<U> => ({ unit, shown });
+const choice = <const U extends Unit>(unit: U, shown: string = unit): UnitChoice<U> => ({ unit, shown });
 
 /** The kinds of quantity with a chosen display unit, their dimension and choices (default first). */
 export const UNIT_KINDS = {
   temperature: {
     label: 'Temperature',
     dimension: 'temperature',
-    choices: [choice<UnitOf<'temperature'>>('K'), choice<UnitOf<'temperature'>>('mK')],
+    choices: [choice('K'), choice('mK')],
   },
   length: {
     label: 'Length',
     dimension: 'length',
-    choices: [choice<UnitOf<'length'>>('mm'), choice<UnitOf<'length'>>('cm'), choice<UnitOf<'length'>>('m')],
+    choices: [choice('mm'), choice('cm'), choice('m')],
   },
   time: {
     label: 'Time',
     dimension: 'time',
-    choices: [choice<UnitOf<'time'>>('ms'), choice<UnitOf<'time'>>('µs'), choice<UnitOf<'time'>>('s')],
+    choices: [choice('ms'), choice('µs'), choice('s')],
   },
   pressure: {
     label: 'Pressure',
     dimension: 'pressure',
-    choices: [choice<UnitOf<'pressure'>>('Pa'), choice<UnitOf<'pressure'>>('mbar'), choice<UnitOf<'pressure'>>('torr')],
+    choices: [choice('Pa'), choice('mbar'), choice('torr')],
   },
   heatFlux: {
     label: 'Heat flux',
     dimension: 'heat flux',
-    choices: [choice<UnitOf<'heat flux'>>('W/cm2', 'W/cm²'), choice<UnitOf<'heat flux'>>('W/m2', 'W/m²')],
+    choices: [choice('W/cm2', 'W/cm²'), choice('W/m2', 'W/m²')],
   },
 } as const satisfies Record<string, { label: string; dimension: Dimension; choices: readonly UnitChoice[] }>;
 

@@ -1,0 +1,92 @@
+/**
+ * Help for every input of the source-location view: what it is, its units, typical values and the
+ * valid range, and where its starting value comes from. Shown by the fields' "?" buttons and read
+ * out with each field (src/ui/help/FieldHelp.tsx).
+ */
+import { LOCATE_ARRIVAL_RANGE_S, LOCATE_ARRIVAL_SD_RANGE_S, LOCATE_LABEL_MAX, LOCATE_MAX_SENSORS, LOCATE_POSITION_RANGE_M } from '../../io/locate-csv';
+import { MODEL_MIN_K, T_LAMBDA_K } from '../../physics';
+import type { HelpTopic } from '../help/FieldHelp';
+import { LOCATE_DEFAULT_ARRIVAL_SD_S, LOCATE_DEFAULT_TEMPERATURE_K } from './locate-inputs';
+
+const DEMO = 'the demo file public/demo-locate.csv (an invented cavity test), or a sensor CSV you open';
+const DEFAULT_SD_US = LOCATE_DEFAULT_ARRIVAL_SD_S * 1e6;
+
+/** Typed quantities: a bare number is in the shown unit; any unit of the kind may be typed. */
+const typed = (unit: string, examples: string) => `${unit} (a bare number); or type a unit: ${examples}`;
+
+export const LOCATE_HELP = {
+  label: {
+    what: 'A name for the sensor, used in the tables, on the charts and in saved CSV files.',
+    range: `1–${LOCATE_LABEL_MAX} characters, different for each sensor`,
+    origin: `${DEMO}; new rows are named S1, S2, …`,
+  },
+  position: (unit: string): HelpTopic => ({
+    what: 'Where the sensor sits: x, y and z in one frame of your choice (the source comes out in the same frame). Use the sensing face, as measured warm or cold, consistently.',
+    units: typed(unit, '0.12 m, 15 cm, 150 mm'),
+    range: `typically a few mm to a few hundred mm apart; valid ${LOCATE_POSITION_RANGE_M[0]} to ${LOCATE_POSITION_RANGE_M[1]} m`,
+    origin: `${DEMO}; a new row copies the last sensor's position`,
+  }),
+  arrival: (unit: string): HelpTopic => ({
+    what: 'When the second-sound front reached this sensor, on any clock common to all sensors (e.g. from the trigger). Blank: no reading; the sensor still counts for the layout map.',
+    units: typed(unit, '11.563 ms, 11563 us, 0.011563 s'),
+    range: `a few to tens of ms at 20 m/s over 0.1–0.5 m; valid ${LOCATE_ARRIVAL_RANGE_S[0]} to ${LOCATE_ARRIVAL_RANGE_S[1]} s, or blank`,
+    origin: `${DEMO}; blank for a new row`,
+  }),
+  sensorSd: {
+    what: 'One standard deviation of this sensor’s arrival time: how well its pick is known. Blank: the default timing sd below.',
+    units: typed('µs', '0.05 ms, 50 us'),
+    range: `typically 1–100 µs (a few samples of the digitiser, plus the pick’s spread); valid above 0, up to ${LOCATE_ARRIVAL_SD_RANGE_S[1]} s`,
+    origin: `${DEMO}; blank for a new row`,
+  },
+  speedMode: {
+    what: 'How fast the heat front travelled: u₂ at the bath temperature from the kernel (Donnelly & Barenghi 1998 curve), or a speed you give (e.g. measured on a known path).',
+    origin: 'u₂ at the bath temperature',
+  },
+  temperature: (unit: string): HelpTopic => ({
+    what: 'Temperature of the He II bath on ITS-90, to take u₂ from.',
+    units: typed(unit, '1.8 K, 1800 mK'),
+    range: `typically 1.4–2.1 K; valid ${MODEL_MIN_K}–${T_LAMBDA_K} K (He II only: no second sound above Tλ)`,
+    origin: `${LOCATE_DEFAULT_TEMPERATURE_K} K, a common He II working point`,
+  }),
+  speed: {
+    what: 'The speed of the front, used instead of u₂ (strong pulses can travel faster than small-signal second sound).',
+    units: typed('m/s', '20 m/s, 2000 cm/s'),
+    range: 'second sound is 15–21 m/s from 1.2 K to 2.1 K; valid 0.001–10 000 m/s',
+    origin: '20 m/s, about u₂ in the usual working range',
+  },
+  fitSpeed: {
+    what: 'Fit an effective speed together with the position and emission time, starting from the speed above. Needs one more sensor with a reading than a fixed speed.',
+    origin: 'off',
+  },
+  defaultSd: {
+    what: 'Timing sd for every sensor whose own sd is blank; it weights the fit and sets the scale of the uncertainties.',
+    units: typed('µs', '0.005 ms, 5 us'),
+    range: `typically 1–100 µs; valid above 0, up to ${LOCATE_ARRIVAL_SD_RANGE_S[1]} s`,
+    origin: `${DEFAULT_SD_US} µs: a few samples of a fast digitiser (common practice, no source)`,
+  },
+  surface: {
+    what: 'Hold the source on a surface (a cavity cell, a beam tube, a wall) when it can only be there: fewer unknowns, so fewer sensors are needed and the position is tighter along the surface.',
+    units: 'lengths in the shown unit; direction components are plain numbers (any length)',
+    range: 'centre or point within ±100 m; radius above 0, up to 100 m',
+    origin: 'none: anywhere in 3-D. A surface starts centred on the origin, radius 100 mm, axis or normal along z',
+  },
+  dropOutliers: {
+    what: 'Refit without the sensor with the largest residual while that residual exceeds 3σ, one sensor at a time; those left out are named in the residuals.',
+    origin: 'off: outliers are flagged and kept',
+  },
+  projection: {
+    what: 'Which two coordinates this chart shows: x–y looks down the z axis (top view), x–z and y–z look from the side.',
+    origin: 'x–y on the left, x–z on the right',
+  },
+  zoom: {
+    what: 'Whole layout shows every sensor; close-up shows the source and its 1σ and 2σ regions (once a source is located).',
+    origin: 'whole layout',
+  },
+  mapPlane: {
+    what: 'The plane the layout-quality map is drawn in, through the located source (or the sensors’ centroid before there is one).',
+    origin: 'x–y',
+  },
+  rows: {
+    what: `Sensors with their positions, arrival times and timing sds; at most ${LOCATE_MAX_SENSORS}. Four readings fix a source with a known speed, fewer on a surface.`,
+  },
+} as const satisfies Record<string, HelpTopic | ((unit: string) => HelpTopic)>;

@@ -32,13 +32,13 @@ export function LocateOptions() {
       <h2 id="locate-options-title" className="card-title">
         Fit options
       </h2>
-      <fieldset className="locate-group" aria-describedby={speedHelp.describedBy}>
+      <fieldset className="locate-group">
         <legend className="locate-field__label field-head">
           Speed of the front {speedHelp.button}
         </legend>
         {speedHelp.panel}
         <label className="locate-choice">
-          <input type="radio" name="locate-speed-mode" checked={options.speedMode === 'temperature'} onChange={() => set('opt.speedMode', { speedMode: 'temperature' })} />
+          <input type="radio" name="locate-speed-mode" aria-describedby={speedHelp.describedBy} checked={options.speedMode === 'temperature'} onChange={() => set('opt.speedMode', { speedMode: 'temperature' })} />
           u₂ at the bath temperature
         </label>
         {options.speedMode === 'temperature' ? (
@@ -58,7 +58,7 @@ export function LocateOptions() {
           </div>
         ) : null}
         <label className="locate-choice">
-          <input type="radio" name="locate-speed-mode" checked={options.speedMode === 'speed'} onChange={() => set('opt.speedMode', { speedMode: 'speed' })} />
+          <input type="radio" name="locate-speed-mode" aria-describedby={speedHelp.describedBy} checked={options.speedMode === 'speed'} onChange={() => set('opt.speedMode', { speedMode: 'speed' })} />
           A speed I give
         </label>
         {options.speedMode === 'speed' ? (

@@ -39,11 +39,11 @@ export function LocateProjections() {
           Sensors and source, two projections
         </h2>
         <div className="table-tools">
-          <fieldset className="locate-segmented" aria-describedby={zoomHelp.describedBy}>
+          <fieldset className="locate-segmented">
             <legend className="visually-hidden">Extent of the projections</legend>
             {(['layout', 'source'] as const).map((zoom) => (
               <label key={zoom} className="locate-segmented__option">
-                <input type="radio" name="locate-zoom" checked={display.zoom === zoom} disabled={zoom === 'source' && !outcome.ok} onChange={() => setDisplay({ zoom })} />
+                <input type="radio" name="locate-zoom" aria-describedby={zoomHelp.describedBy} checked={display.zoom === zoom} disabled={zoom === 'source' && !outcome.ok} onChange={() => setDisplay({ zoom })} />
                 {zoom === 'layout' ? 'Whole layout' : 'Close-up of the source'}
               </label>
             ))}

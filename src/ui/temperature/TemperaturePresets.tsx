@@ -39,7 +39,7 @@ export function TemperaturePresets() {
   const { unit } = useDisplayUnit('temperature');
   const help = useFieldHelp('jump to', TEMPERATURE_HELP.presets);
   return (
-    <fieldset className="presets" aria-describedby={help.describedBy}>
+    <fieldset className="presets">
       <legend className="field-label field-head">Jump to {help.button}</legend>
       {help.panel}
       <div className="chips">
@@ -48,6 +48,7 @@ export function TemperaturePresets() {
           key={preset.label}
           type="button"
           className="chip"
+          aria-describedby={help.describedBy}
           onClick={() => setTemperature(preset.temperature_K)}
         >
           <span className="chip__label">{preset.label}</span>{' '}

@@ -14,6 +14,7 @@ export default defineConfig({
           name: 'unit',
           environment: 'node',
           include: ['tests/unit/**/*.test.ts'],
+          testTimeout: 30_000,
           benchmark: { include: ['tests/bench/**/*.bench.ts'] },
         },
       },
@@ -24,6 +25,8 @@ export default defineConfig({
           environment: 'jsdom',
           include: ['tests/component/**/*.test.tsx'],
           setupFiles: ['tests/component/setup.ts'],
+          // jsdom renders whole views; on a busy 2-core machine one test can take several seconds.
+          testTimeout: 30_000,
           benchmark: { include: [] },
         },
       },

@@ -4,9 +4,13 @@ import { App } from './App';
 import { startPreferences } from '../src/ui/preferences/persist-preferences';
 import { registerOfflineCache } from './offline/register';
 import './styles.css';
+import '../src/ui/workspace/workspace.css';
+import { startWorkspace } from '../src/ui/workspace/persist-workspace';
 
 // Theme, display units and the tour's state as the browser kept them, before the first paint.
 startPreferences();
+// The plan of the last visit (else the demo opens), named plans, undo history, autosave, a plan link.
+startWorkspace();
 
 const container = document.getElementById('root');
 if (!container) throw new Error('Sekundo: the page has no #root element.');

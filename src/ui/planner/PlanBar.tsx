@@ -8,7 +8,14 @@ import { downloadPlanFile, readPlanFile } from './plan-file-actions';
 import { useRecomputeTimes } from './recompute-timer';
 import { WarningCounts } from './WarningsList';
 
-const SOURCE_LABEL = { demo: 'Demo plan (invented setup)', 'built-in': 'Built-in plan', file: 'From a file' } as const;
+const SOURCE_LABEL = {
+  demo: 'Demo plan (invented setup)',
+  'built-in': 'Built-in plan',
+  file: 'From a file',
+  restored: 'Restored from your last visit',
+  saved: 'Saved plan',
+  link: 'From a shared link',
+} as const;
 
 /** The plan's name and origin, opening and saving plan files, and the last recompute time. */
 export function PlanBar() {

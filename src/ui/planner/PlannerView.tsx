@@ -14,6 +14,7 @@ import { SetupEditor } from './SetupEditor';
 import { TimelineChart } from './TimelineChart';
 import { usePlanOutcome } from './use-plan';
 import { WarningsList } from './WarningsList';
+import { WorkspaceBar } from '../workspace/WorkspaceBar';
 
 /** The measurement planner: edit a proposed setup and see arrivals, signals, warnings and resolution. */
 export function PlannerView() {
@@ -30,6 +31,9 @@ export function PlannerView() {
     <div className="planner">
       <PanelErrorBoundary panel="plan bar">
         <PlanBar />
+      </PanelErrorBoundary>
+      <PanelErrorBoundary panel="workspace bar">
+        <WorkspaceBar />
       </PanelErrorBoundary>
       <PlanProblem />
       <div className="planner-top">

@@ -1,0 +1,138 @@
+import { useEffect, useRef } from 'react';
+import { useSekundoStore } from '../store';
+import { SetupSheetHost } from './SetupSheet';
+import { acceptSharedPlan, declineSharedPlan } from './share-actions';
+import { dismissToast, useWorkspaceStore } from './workspace-store';
+
+/** Whether a workspace dialog (shared plan, setup sheet) holds the page; the page behind is then inert. */
+export function useWorkspaceModal(): boolean {
+  return useWorkspaceStore((s) => s.sharePrompt !== null || s.sheetOpen);
+}
+
+/** Storage and link notices under the header. */
+export function WorkspaceNotices() {
+  const notice = useWorkspaceStore((s) => s.storageNotice);
+  const linkProblem = useWorkspaceStore((s) => s.linkProblem);
+  return (
+    <>
+      {notice ? (
+        <div className="workspace-notice" role="status">
+          <p>{notice}</p>
+          <button type="button" className="inline-link-button" onClick={() => useWorkspaceStore.setState({ storageNotice: null })}>
+            Dismiss
+          </button>
+        </div>
+      ) : null}
+      {linkProblem ? (
+        <div className="workspace-notice workspace-notice--error" role="alert">
+          <div>
+            <p>The plan link could not be opened; nothing was changed.</p>
+            <ul>
+              {linkProblem.map((m) => (
+                <li key={m}>{m}</li>
+              ))}
+            </ul>
+          </div>
+          <button type="button" className="inline-link-button" onClick={() => useWorkspaceStore.setState({ linkProblem: null })}>
+            Dismiss
+          </button>
+        </div>
+      ) : null}
+    </>
+  );
+}
+
+/** Toasts, the shared-plan question and the setup sheet: above the page, outside its inert parts. */
+export function WorkspaceOverlays() {
+  return (
+    <>
+      <Toasts />
+      <SharePromptDialog />
+      <SetupSheetHost />
+    </>
+  );
+}
+
+function Toasts() {
+  const toasts = useWorkspaceStore((s) => s.toasts);
+  return (
+    <div className="toasts" aria-live="polite">
+      {toasts.map((t) => (
+        <div key={t.id} className="toast">
+          <span>{t.text}</span>
+          {t.action ? (
+            <button
+              type="button"
+              className="button button--small"
+              onClick={() => {
+                t.action?.run();
+                dismissToast(t.id);
+              }}
+            >
+              {t.action.label}
+            </button>
+          ) : null}
+          <button type="button" className="toast__close" aria-label="Dismiss" onClick={() => dismissToast(t.id)}>
+            ×
+          </button>
+        </div>
+      ))}
+    </div>
+  );
+}
+
+function SharePromptDialog() {
+  const prompt = useWorkspaceStore((s) => s.sharePrompt);
+  const tourOpen = useSekundoStore((s) => s.tourOpen);
+  const keep = useRef<HTMLButtonElement>(null);
+  const open = useRef<HTMLButtonElement>(null);
+  useEffect(() => {
+    if (prompt && !tourOpen) open.current?.focus();
+  }, [prompt, tourOpen]);
+  if (!prompt || tourOpen) return null;
+  const current = useSekundoStore.getState();
+  const replacing = current.plannerStatus === 'ready' ? current.plannerPlan.name : null;
+  return (
+    <div className="modal-backdrop">
+      <div
+        className="modal workspace-confirm"
+        role="alertdialog"
+        aria-modal="true"
+        aria-labelledby="share-confirm-title"
+        aria-describedby="share-confirm-text"
+        onKeyDown={(event) => {
+          if (event.key === 'Escape') declineSharedPlan();
+          if (event.key === 'Tab') {
+            event.preventDefault();
+            (document.activeElement === open.current ? keep : open).current?.focus();
+          }
+        }}
+      >
+        <h2 id="share-confirm-title">Open the shared plan?</h2>
+        <div id="share-confirm-text">
+          <p>
+            This link carries the plan <strong className="workspace-confirm__name">“{prompt.plan.name}”</strong> with {prompt.plan.sensors.length}{' '}
+            {prompt.plan.sensors.length === 1 ? 'sensor' : 'sensors'}.
+          </p>
+          <p>
+            {replacing !== null ? (
+              <>
+                It replaces the plan you are editing, <span className="workspace-confirm__name">“{replacing}”</span>; Undo brings that back.
+              </>
+            ) : (
+              'It opens in the planner.'
+            )}
+          </p>
+        </div>
+        <div className="modal__actions">
+          <button ref={open} type="button" className="button button--primary" onClick={acceptSharedPlan}>
+            Open shared plan
+          </button>
+          <button ref={keep} type="button" className="button" onClick={declineSharedPlan}>
+            Keep my plan
+          </button>
+        </div>
+      </div>
+    </div>
+  );
+}

@@ -1,0 +1,52 @@
+/**
+ * Share links: the open plan carried in the URL fragment (src/io/share-link.ts), which never
+ * reaches a server. Opening a link asks before the plan replaces the open one; a damaged or
+ * foreign link says why and changes nothing.
+ */
+import type { PlanFile } from '../../io/plan-file';
+import { decodeShareFragment, encodeShareFragment } from '../../io/share-link';
+import { describePlanMessage } from '../planner/plan-paths';
+import { useSekundoStore } from '../store';
+import { useWorkspaceStore } from './workspace-store';
+
+/** The page's address with the plan in its fragment. */
+export function shareUrl(plan: PlanFile, location: Pick<Location, 'origin' | 'pathname' | 'search'> = window.location): string {
+  return `${location.origin}${location.pathname}${location.search}${encodeShareFragment(plan)}`;
+}
+
+/** Takes the link out of the address bar, so a reload does not ask again. */
+function clearFragment(): void {
+  if (typeof window === 'undefined' || !window.location.hash) return;
+  try {
+    window.history.replaceState(window.history.state, '', `${window.location.pathname}${window.location.search}`);
+  } catch {
+    // An address that cannot be rewritten costs only the tidy address bar.
+  }
+}
+
+/**
+ * Reads a URL fragment: a plan waits for the person's yes; a broken link is reported; anything
+ * else (no fragment, another page's fragment) is left alone. Never changes the open plan.
+ */
+export function readShareFragment(hash: string): void {
+  const decoded = decodeShareFragment(hash);
+  if (decoded.ok === 'none') return;
+  clearFragment();
+  if (decoded.ok) useWorkspaceStore.setState({ sharePrompt: { plan: decoded.plan }, linkProblem: null });
+  else useWorkspaceStore.setState({ linkProblem: decoded.errors.map(describePlanMessage), sharePrompt: null });
+}
+
+/** Yes: the shared plan replaces the open one (Undo brings that back), and the planner shows it. */
+export function acceptSharedPlan(): void {
+  const prompt = useWorkspaceStore.getState().sharePrompt;
+  if (!prompt) return;
+  const main = useSekundoStore.getState();
+  main.loadPlannerPlan(prompt.plan, { kind: 'link', note: 'Opened from a shared link.' });
+  main.setActiveView('planner');
+  useWorkspaceStore.setState({ sharePrompt: null, currentSavedId: null });
+}
+
+/** No: the open plan stays. */
+export function declineSharedPlan(): void {
+  useWorkspaceStore.setState({ sharePrompt: null });
+}

@@ -107,7 +107,9 @@ function ChartExport({ chartId, label, plotly, surface }: { chartId: string; lab
     if (!plotly || !element) return;
     setStatus(null);
     try {
-      const image = await plotly.toImage(element, { format, imageDataOnly: true, ...(format === 'png' ? { scale: PNG_SCALE } : {}) });
+      // The size on screen (Plotly would otherwise draw a copy at its default 700 × 450 px).
+      const size = { width: Math.round(element.clientWidth) || undefined, height: Math.round(element.clientHeight) || undefined };
+      const image = await plotly.toImage(element, { format, imageDataOnly: true, ...size, ...(format === 'png' ? { scale: PNG_SCALE } : {}) });
       const blob = format === 'svg' ? new Blob([image], { type: 'image/svg+xml' }) : new Blob([base64Bytes(image)], { type: 'image/png' });
       downloadBlob(blob, `sekundo-${fileSlug(chartId)}.${format}`);
     } catch (error) {

@@ -27,7 +27,7 @@ export function SavedPlansPanel({ id }: { id: string }) {
         }}
       >
         <label>
-          Name <input type="text" value={name} maxLength={120} onChange={(e) => setName(e.target.value)} />
+          Save the open plan as <input type="text" value={name} maxLength={120} onChange={(e) => setName(e.target.value)} />
         </label>
         <button type="submit" className="button button--small">
           Save as new

@@ -41,7 +41,7 @@ export function acceptSharedPlan(): void {
   const prompt = useWorkspaceStore.getState().sharePrompt;
   if (!prompt) return;
   const main = useSekundoStore.getState();
-  main.loadPlannerPlan(prompt.plan, { kind: 'link', note: 'Opened from a shared link.' });
+  main.loadPlannerPlan(prompt.plan, { kind: 'link', note: null });
   main.setActiveView('planner');
   useWorkspaceStore.setState({ sharePrompt: null, currentSavedId: null });
 }

@@ -193,6 +193,7 @@ test.describe('workspace', () => {
     await name.press('Tab');
     await page.getByRole('button', { name: 'Undo', exact: false }).first().click();
     await expect(name).toHaveValue(DEMO_NAME);
+    await expect(page.getByText(/Changes are not being kept in this browser/)).toBeVisible();
     await page.screenshot({ path: `${ARTIFACTS}/workspace-storage-off.png` });
   });
 

@@ -142,7 +142,7 @@ function PlanSummary({ plan, result, vapour_Pa }: { plan: PlanFile; result: Plan
     ['Repetition and averaging', `${n(h.repetitionRate_Hz, 4)} Hz, ${h.averages} pulses averaged; ${energy(result.heater.energyPerPulse_J)} per pulse, mean power ${q(result.heater.averagePower_W, LADDERS.power)}`],
     ['Digitiser', `${q(plan.digitiser.sampleRate_Hz, LADDERS.sampleRate)}, record ${q(plan.digitiser.recordLength_s, LADDERS.time)}, pre-trigger ${q(plan.digitiser.preTrigger_s, LADDERS.time)}`],
     ['Spacer', `${plan.spacer.materialId}; distances measured ${plan.spacer.measuredWarm ? 'warm (contraction applied)' : 'cold'}`],
-    ['Reflecting planes', plan.reflectors.length === 0 ? 'none' : plan.reflectors.map((r) => `${r.label} (${r.axis} = ${q(r.position_m, LADDERS.length)}, r = ${n(r.reflection)})`).join('; ')],
+    ['Reflecting planes', plan.reflectors.length === 0 ? 'none' : plan.reflectors.map((r) => `${r.label} (${r.axis} = ${r.position_m === 0 ? '0 mm' : q(r.position_m, LADDERS.length)}, r = ${n(r.reflection)})`).join('; ')],
     ['Targets', `SNR ${n(plan.targets.snr)}, temperature sd ${q(plan.targets.temperatureSd_K, LADDERS.temperatureDifference)}`],
   ];
   return (

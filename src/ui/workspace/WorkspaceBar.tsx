@@ -14,6 +14,7 @@ export function WorkspaceBar() {
   const canUndo = useWorkspaceStore((s) => s.past.length > 0);
   const canRedo = useWorkspaceStore((s) => s.future.length > 0);
   const savedCount = useWorkspaceStore((s) => s.savedPlans.length);
+  const kept = useWorkspaceStore((s) => s.storageAvailable && s.storageNotice === null);
   const [panelOpen, setPanelOpen] = useState(false);
   const [link, setLink] = useState<{ url: string; copied: boolean } | null>(null);
   const panelId = useId();
@@ -59,7 +60,9 @@ export function WorkspaceBar() {
             Print setup sheet
           </button>
         </div>
-        <p className="workspace-bar__hint muted">Every change is kept in this browser as you type.</p>
+        <p className="workspace-bar__hint muted">
+          {kept ? 'Every change is kept in this browser as you type.' : 'Changes are not being kept in this browser; save a plan file to keep them.'}
+        </p>
       </div>
       {link ? (
         <div className="workspace-bar__link" role="status">

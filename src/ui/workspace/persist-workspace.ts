@@ -81,6 +81,7 @@ export function startWorkspace(store: KeyValueStore | null = browserStore(), opt
   const stops: (() => void)[] = [];
   stops.push(startHistory());
 
+  useWorkspaceStore.setState({ storageAvailable: store !== null });
   if (store === null) setNotice(STORAGE_OFF);
   const restored = loadAutosave(store);
   if (!restored.ok) setNotice(`${restored.message} The planner opens the demo plan instead; the damaged entry is overwritten by your next edit.`);

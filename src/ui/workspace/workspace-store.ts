@@ -43,6 +43,8 @@ export interface WorkspaceState {
   toasts: readonly Toast[];
   /** The printable setup sheet is on screen. */
   sheetOpen: boolean;
+  /** Whether the browser lets the page keep plans at all. */
+  storageAvailable: boolean;
 }
 
 export const INITIAL_WORKSPACE: WorkspaceState = {
@@ -56,6 +58,7 @@ export const INITIAL_WORKSPACE: WorkspaceState = {
   sharePrompt: null,
   toasts: [],
   sheetOpen: false,
+  storageAvailable: true,
 };
 
 export const useWorkspaceStore = create<WorkspaceState>()(() => INITIAL_WORKSPACE);

@@ -115,7 +115,10 @@ test.describe('measurement planner', () => {
     await expect(page.getByRole('alert')).toHaveCount(0);
 
     // Scrolled just far enough that the timeline and warnings stay in view beside the editors.
-    await page.evaluate(() => window.scrollTo(0, 300));
+    await page.evaluate(() => {
+      const outputs = document.querySelector('.planner-outputs');
+      if (outputs) window.scrollTo(0, outputs.getBoundingClientRect().top + window.scrollY - 12);
+    });
     await page.mouse.move(0, 0);
     mkdirSync(ARTIFACTS, { recursive: true });
     await page.screenshot({ path: `${ARTIFACTS}/planner.png` });

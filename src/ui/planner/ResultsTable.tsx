@@ -2,6 +2,8 @@ import type { ReactNode } from 'react';
 import type { SensorPlanResult } from '../../physics';
 import { formatSignificant } from '../format/format-number';
 import { type DisplayUnit, inUnit, type Ladder, LADDERS, unitForColumn } from './display-units';
+import { themedColour } from '../plot/plot-theme';
+import { useResolvedTheme } from '../theme/use-theme';
 import { sensorColour } from './planner-colours';
 import { usePlanOutcome } from './use-plan';
 
@@ -38,6 +40,7 @@ const COLUMNS: readonly Column[] = [
 /** Every sensor's arrivals, signal, noise and temperature resolution, one row per sensor. */
 export function ResultsTable() {
   const outcome = usePlanOutcome();
+  const theme = useResolvedTheme();
   if (!outcome.ok) return null;
   const sensors = outcome.result.sensors;
   const units = COLUMNS.map((c) => (c.ladder ? unitForColumn(sensors.map(c.value), c.ladder) : null));
@@ -70,7 +73,7 @@ export function ResultsTable() {
             {sensors.map((s, row) => (
               <tr key={s.id}>
                 <th scope="row" className="results-sensor">
-                  <span className="swatch" style={{ background: sensorColour(row) }} aria-hidden="true" />
+                  <span className="swatch" style={{ background: themedColour(sensorColour(row), theme) }} aria-hidden="true" />
                   {s.label} <span className="results-sensor__id">({s.id})</span>
                 </th>
                 {COLUMNS.map((c, i) => (

@@ -5,6 +5,8 @@ import { EditorCard } from './EditorCard';
 import { messageId, PlanFieldMessage, PlanNumberField, PlanTextField } from './PlanField';
 import { MAX_SENSORS, type PositionMode, positionMode, setPositionMode, setSensorText } from './plan-edits';
 import { sensorFields } from './plan-fields';
+import { themedColour } from '../plot/plot-theme';
+import { useResolvedTheme } from '../theme/use-theme';
 import { sensorColour } from './planner-colours';
 import { CopyIcon, RemoveIcon } from './RowIcons';
 
@@ -59,6 +61,7 @@ export function SensorsEditor() {
 function SensorRow({ index, rowKey, count }: { index: number; rowKey: string; count: number }) {
   const sensor = useSekundoStore((s) => s.plannerPlan.sensors[index]);
   const duplicate = useSekundoStore((s) => s.duplicatePlannerSensor);
+  const theme = useResolvedTheme();
   const remove = useSekundoStore((s) => s.removePlannerSensor);
   if (!sensor) return null;
   const fields = sensorFields(index, rowKey);
@@ -69,7 +72,7 @@ function SensorRow({ index, rowKey, count }: { index: number; rowKey: string; co
     <tbody className="sensor-row">
       <tr>
         <td className="num">
-          <span className="swatch" style={{ background: sensorColour(index) }} aria-hidden="true" />
+          <span className="swatch" style={{ background: themedColour(sensorColour(index), theme) }} aria-hidden="true" />
           {n}
         </td>
         <td>

@@ -1,8 +1,11 @@
 import { useMemo } from 'react';
 import { ChartFigure } from '../charts/ChartFigure';
 import { PlotlyChart } from '../plot/PlotlyChart';
+import { themedColour } from '../plot/plot-theme';
 import { useSekundoStore } from '../store';
 import type { TimelineView } from '../store/planner-slice';
+import { useResolvedTheme } from '../theme/use-theme';
+import { PLANNER_COLOURS } from './planner-colours';
 import { reportDrawn } from './recompute-timer';
 import { formatMs, type TimelineKeyEntry, timelineFigure } from './timeline-figure';
 import { usePlanOutcome } from './use-plan';
@@ -77,12 +80,13 @@ function spanText([from, to]: [number, number]): string {
 
 /** The chart's key in HTML: what each colour and line style means. */
 function TimelineKey({ entries }: { entries: readonly TimelineKeyEntry[] }) {
+  const theme = useResolvedTheme();
   return (
     <ul className="timeline-key" aria-label="Key to the timeline">
       {entries.map((entry) => (
         <li key={entry.label} className={`timeline-key__item timeline-key__item--${entry.kind.replace(' ', '-')}`}>
           <svg viewBox="0 0 28 12" width="28" height="12" aria-hidden="true" focusable="false">
-            <KeySymbol entry={entry} />
+            <KeySymbol entry={{ ...entry, colour: themedColour(entry.colour, theme) }} fill={themedColour(PLANNER_COLOURS.heaterFill, theme)} />
           </svg>
           {entry.label}
         </li>
@@ -91,11 +95,11 @@ function TimelineKey({ entries }: { entries: readonly TimelineKeyEntry[] }) {
   );
 }
 
-function KeySymbol({ entry }: { entry: TimelineKeyEntry }) {
+function KeySymbol({ entry, fill }: { entry: TimelineKeyEntry; fill: string }) {
   const stroke = entry.colour;
   switch (entry.kind) {
     case 'fill':
-      return <path d="M1 11V3h12v8z" fill="rgba(90, 110, 138, 0.22)" stroke={stroke} strokeWidth="1.2" />;
+      return <path d="M1 11V3h12v8z" fill={fill} stroke={stroke} strokeWidth="1.2" />;
     case 'line':
       return <path d="M1 6h26" stroke={stroke} strokeWidth="2.4" />;
     case 'first sound':

@@ -248,20 +248,40 @@ test.describe('workspace habits', () => {
     }
   });
 
-  test('storage that refuses writes: the page says so once and works on', async ({ page }) => {
+  test('storage full for preferences: the page says so once and works on', async ({ page }) => {
+    await page.addInitScript(() => {
+      const setItem = Storage.prototype.setItem;
+      Storage.prototype.setItem = function (key: string, value: string) {
+        if (key === 'sekundo.prefs') throw new DOMException('The quota has been exceeded.', 'QuotaExceededError');
+        setItem.call(this, key, value);
+      };
+    });
+    await page.goto('/');
+    await waitForCharts(page);
+    await themeOption(page, 'Dark').click();
+    await expect(page.locator('html')).toHaveAttribute('data-theme', 'dark');
+    const notice = page.getByRole('status').filter({ hasText: /Your settings cannot be saved in this browser/ });
+    await expect(notice).toHaveCount(1);
+    await themeOption(page, 'Light').click();
+    await page.getByRole('button', { name: /^Units/ }).click();
+    await page.getByRole('combobox', { name: 'Length' }).selectOption('cm');
+    await expect(notice).toHaveCount(1);
+    await expect(page.locator('html')).toHaveAttribute('data-theme', 'light');
+    await expect(page.getByRole('table', { name: /Liquid helium-4 at 1\.8000 K/ })).toBeVisible();
+  });
+
+  test('storage turned off: one message about it, and the page works', async ({ page }) => {
     await page.addInitScript(() => {
       Storage.prototype.setItem = () => {
-        throw new DOMException('The quota has been exceeded.', 'QuotaExceededError');
+        throw new DOMException('The operation is insecure.', 'SecurityError');
       };
     });
     await page.goto('/');
     // Nothing could be kept, so this is a first visit: the tour opens.
     await page.getByRole('dialog').getByRole('button', { name: 'Close the tour' }).click();
-    const notice = page.getByText(/Your settings cannot be saved in this browser/);
-    await expect(notice).toBeVisible();
     await themeOption(page, 'Dark').click();
     await expect(page.locator('html')).toHaveAttribute('data-theme', 'dark');
-    await expect(notice).toHaveCount(1);
+    await expect(page.getByRole('status').filter({ hasText: /cannot be saved in this browser|does not let Sekundo keep data/ })).toHaveCount(1);
     await waitForCharts(page);
     await expect(page.getByRole('table', { name: /Liquid helium-4 at 1\.8000 K/ })).toBeVisible();
   });

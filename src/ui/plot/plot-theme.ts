@@ -214,7 +214,8 @@ export function themeFigure(data: readonly PlotTrace[], layout: PlotLayout, them
     if (!a) continue;
     themed[k] = {
       ...a,
-      gridcolor: a.gridcolor === 'rgba(0,0,0,0)' ? a.gridcolor : s.grid,
+      // A grid hidden on purpose (a transparent colour) stays hidden.
+      gridcolor: a.gridcolor !== undefined && parseColour(a.gridcolor)?.a === 0 ? a.gridcolor : s.grid,
       linecolor: s.axis,
       tickcolor: s.axis,
       tickfont: { ...a.tickfont, color: a.tickfont?.color ?? s.text },

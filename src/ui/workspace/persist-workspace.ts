@@ -115,6 +115,8 @@ export function startWorkspace(store: KeyValueStore | null = browserStore(), opt
     const onKey = (event: KeyboardEvent) => {
       const wish = historyKey(event);
       if (wish === null) return;
+      // Text boxes that are not part of the plan keep their own undo.
+      if (event.target instanceof Element && event.target.closest('.saved-plans, .workspace-bar__link')) return;
       const main = useSekundoStore.getState();
       const ws = useWorkspaceStore.getState();
       if (main.activeView !== 'planner' || main.tourOpen || ws.sharePrompt !== null || ws.sheetOpen) return;

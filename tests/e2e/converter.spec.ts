@@ -79,6 +79,14 @@ test.describe('converter', () => {
   test.beforeEach(async ({ page }) => {
     requests.length = 0;
     problems.length = 0;
+    // The first-visit tour is remembered as seen, so it does not cover the page.
+    await page.addInitScript(() => {
+      try {
+        if (!localStorage.getItem('sekundo.prefs')) localStorage.setItem('sekundo.prefs', JSON.stringify({ tour: 'done' }));
+      } catch {
+        // Storage off: nothing to remember the tour in.
+      }
+    });
     page.on('request', (request) => requests.push(request.url()));
     page.on('pageerror', (error) => problems.push(`page error: ${error.message}`));
     page.on('console', (message) => {

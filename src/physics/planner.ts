@@ -545,19 +545,10 @@ function sensorResult(c: SensorContext): SensorPlanResult {
   const signal = amplitude * sensor.responsivity_V_K;
   const snrSingle = signal / sensor.noise_V;
   const snrAveraged = snrSingle * Math.sqrt(h.averages);
-  const pulsesForTarget = Math.ceil((plan.targets.snr / snrSingle) ** 2);
   const riseAtSensor = Math.hypot(profile.effectiveRise_s, sensor.lag_s, spread);
-  const sampleInterval = 1 / plan.digitiser.sampleRate_Hz;
-  const timingSd = Math.hypot(riseAtSensor / snrAveraged, sampleInterval / Math.sqrt(12));
-  const transit = arrival;
-  const relSpeedSd = Math.hypot(pathSd / directLength, timingSd / transit);
-  // Relative speed uncertainties above 1 mean the reading says nothing; they are capped there.
-  const spreadT = temperatureSpread(plan.temperature_K, Math.min(1, relSpeedSd));
-  const changeT = temperatureSpread(plan.temperature_K, Math.min(1, timingSd / transit));
-  const withModel = temperatureSpread(plan.temperature_K, Math.min(1, Math.hypot(relSpeedSd, secondSoundRelativeSd(plan.temperature_K))));
-  const shortest = shortestDistanceForResolution(plan.temperature_K, plan.targets.temperatureSd_K, timingSd, pathSd);
+  const timing = snrAveraged > 0 ? timingFigures(plan, { snrSingle, snrAveraged, riseAtSensor, arrival, pathSd, directLength }) : null;
 
-  sensorWarnings(c, { arrival, amplitude, echoes, snrAveraged, pulsesForTarget, riseAtSensor, spreadT, directLength, spread });
+  sensorWarnings(c, { arrival, amplitude, echoes, snrAveraged, pulsesForTarget: timing?.pulsesForTarget ?? null, riseAtSensor, spreadT: timing?.spreadT ?? null, directLength, spread });
 
   return {
     ...base,
@@ -566,16 +557,34 @@ function sensorResult(c: SensorContext): SensorPlanResult {
     signal_V: signal,
     snrSingle,
     snrAveraged,
-    pulsesForTargetSnr: pulsesForTarget,
+    pulsesForTargetSnr: timing?.pulsesForTarget ?? null,
     echoes,
     waveform,
-    timingSd_s: timingSd,
-    temperatureSd_K: spreadT.sd_K,
-    temperatureChangeSd_K: changeT.sd_K,
-    temperatureSdWithModel_K: withModel.sd_K,
-    insensitive: spreadT.insensitive,
-    shortestDistanceForTarget_m: Number.isFinite(shortest) ? shortest : null,
+    timingSd_s: timing?.timingSd ?? null,
+    temperatureSd_K: timing?.spreadT.sd_K ?? null,
+    temperatureChangeSd_K: timing?.changeT.sd_K ?? null,
+    temperatureSdWithModel_K: timing?.withModel.sd_K ?? null,
+    insensitive: timing?.spreadT.insensitive ?? false,
+    shortestDistanceForTarget_m: timing && Number.isFinite(timing.shortest) ? timing.shortest : null,
   };
+}
+
+/** Timing and temperature resolution of one sensor with a signal above zero. */
+function timingFigures(
+  plan: PlanInput,
+  f: { snrSingle: number; snrAveraged: number; riseAtSensor: number; arrival: number; pathSd: number; directLength: number },
+) {
+  const T = plan.temperature_K;
+  const pulsesForTarget = Math.ceil((plan.targets.snr / f.snrSingle) ** 2);
+  const sampleInterval = 1 / plan.digitiser.sampleRate_Hz;
+  const timingSd = Math.hypot(f.riseAtSensor / f.snrAveraged, sampleInterval / Math.sqrt(12));
+  const relSpeedSd = Math.hypot(f.pathSd / f.directLength, timingSd / f.arrival);
+  // Relative speed uncertainties above 1 mean the reading says nothing; they are capped there.
+  const spreadT = temperatureSpread(T, Math.min(1, relSpeedSd));
+  const changeT = temperatureSpread(T, Math.min(1, timingSd / f.arrival));
+  const withModel = temperatureSpread(T, Math.min(1, Math.hypot(relSpeedSd, secondSoundRelativeSd(T))));
+  const shortest = Number.isFinite(timingSd) ? shortestDistanceForResolution(T, plan.targets.temperatureSd_K, Math.min(timingSd, 1e3), f.pathSd) : Number.POSITIVE_INFINITY;
+  return { pulsesForTarget: Number.isFinite(pulsesForTarget) ? pulsesForTarget : null, timingSd, spreadT, changeT, withModel, shortest };
 }
 
 interface SensorFigures {
@@ -583,9 +592,10 @@ interface SensorFigures {
   amplitude: number;
   echoes: EchoArrival[];
   snrAveraged: number;
-  pulsesForTarget: number;
+  /** Null when there is no signal to time. */
+  pulsesForTarget: number | null;
   riseAtSensor: number;
-  spreadT: { sd_K: number; insensitive: boolean };
+  spreadT: { sd_K: number; insensitive: boolean } | null;
   directLength: number;
   spread: number;
 }
@@ -633,9 +643,10 @@ function sensorWarnings(c: SensorContext, f: SensorFigures): void {
     warn(warnings, 'coarse-sampling', 'caution', `${name}: samples every ${fmt(interval * 1e6)} µs put fewer than ${SAMPLES_PER_EDGE} points on the ${fmt(f.riseAtSensor * 1e6)} µs edge; the arrival cannot be timed well (sample at ${fmt(SAMPLES_PER_EDGE / f.riseAtSensor / 1e6)} MS/s or faster).`, interval, wanted, id);
   }
   if (f.snrAveraged < plan.targets.snr) {
-    warn(warnings, 'low-snr', 'caution', `${name}: SNR ${fmt(f.snrAveraged)} with ${h.averages} pulses averaged is below the target ${fmt(plan.targets.snr)}; average ${f.pulsesForTarget} pulses or raise the signal.`, f.snrAveraged, plan.targets.snr, id);
+    const remedy = f.pulsesForTarget === null ? 'the predicted signal is zero: raise the heater power or move the sensor' : `average ${f.pulsesForTarget} pulses or raise the signal`;
+    warn(warnings, 'low-snr', 'caution', `${name}: SNR ${fmt(f.snrAveraged)} with ${h.averages} pulses averaged is below the target ${fmt(plan.targets.snr)}; ${remedy}.`, f.snrAveraged, plan.targets.snr, id);
   }
-  if (f.spreadT.insensitive) {
+  if (f.spreadT?.insensitive) {
     warn(warnings, 'insensitive', 'caution', `${name}: at ${fmt(plan.temperature_K, 4)} K second sound hardly changes with temperature (an extremum of u2 is near); the delay pins the temperature only to about ${fmt(f.spreadT.sd_K * 1e3)} mK.`, f.spreadT.sd_K, plan.targets.temperatureSd_K, id);
   }
 }

@@ -29,6 +29,16 @@ export interface PulseProfile {
   effectiveRise_s: number;
   /** Relative flux at time t after the onset (0 outside the pulse). */
   value(t: number): number;
+  /** ∫₀ᵗ f dt′, s: 0 before the onset, `area_s` after the end. */
+  integral(t: number): number;
+}
+
+/**
+ * The pulse averaged over a window of length h centred on t: (F(t + h/2) − F(t − h/2))/h. Sampled
+ * this way a pulse keeps its area on any grid, even one much coarser than the pulse itself.
+ */
+export function averageOverStep(profile: PulseProfile, t: number, h: number): number {
+  return (profile.integral(t + h / 2) - profile.integral(t - h / 2)) / h;
 }
 
 function trapezoid(width: number, rise: number): PulseProfile {
@@ -42,6 +52,16 @@ function trapezoid(width: number, rise: number): PulseProfile {
       if (t <= width) return 1;
       return 1 - (t - width) / rise;
     },
+    integral(t) {
+      if (t <= 0) return 0;
+      if (t < rise) return (t * t) / (2 * rise);
+      if (t <= width) return rise / 2 + (t - rise);
+      if (t < width + rise) {
+        const u = t - width;
+        return width - rise / 2 + u - (u * u) / (2 * rise);
+      }
+      return width;
+    },
   };
 }
 
@@ -52,6 +72,11 @@ function halfSine(width: number): PulseProfile {
     effectiveRise_s: width / Math.PI,
     value(t) {
       return t <= 0 || t >= width ? 0 : Math.sin((Math.PI * t) / width);
+    },
+    integral(t) {
+      if (t <= 0) return 0;
+      if (t >= width) return (2 * width) / Math.PI;
+      return (width / Math.PI) * (1 - Math.cos((Math.PI * t) / width));
     },
   };
 }
@@ -80,23 +105,40 @@ function piecewiseLinear(points: readonly (readonly [number, number])[]): PulseP
     steepest = Math.max(steepest, Math.abs((fs[i] as number) - (fs[i - 1] as number)) / dt);
   }
   const last = ts.length - 1;
+  // Cumulative area at each point, for the integral.
+  const cumulative = new Float64Array(ts.length);
+  for (let i = 1; i < ts.length; i++) {
+    cumulative[i] = (cumulative[i - 1] as number) + (((ts[i] as number) - (ts[i - 1] as number)) * ((fs[i] as number) + (fs[i - 1] as number))) / 2;
+  }
+  const segment = (t: number): number => {
+    let lo = 0;
+    let hi = last;
+    while (hi - lo > 1) {
+      const mid = (lo + hi) >> 1;
+      if (t >= (ts[mid] as number)) lo = mid;
+      else hi = mid;
+    }
+    return lo;
+  };
+  const valueIn = (i: number, t: number): number => {
+    const t0 = ts[i] as number;
+    const t1 = ts[i + 1] as number;
+    const f0 = fs[i] as number;
+    return t1 > t0 ? f0 + (((fs[i + 1] as number) - f0) * (t - t0)) / (t1 - t0) : f0;
+  };
   return {
     duration_s: ts[last] as number,
     area_s: area,
     effectiveRise_s: steepest > 0 ? 1 / steepest : (ts[last] as number),
     value(t) {
       if (t < (ts[0] as number) || t > (ts[last] as number)) return 0;
-      let lo = 0;
-      let hi = last;
-      while (hi - lo > 1) {
-        const mid = (lo + hi) >> 1;
-        if (t >= (ts[mid] as number)) lo = mid;
-        else hi = mid;
-      }
-      const t0 = ts[lo] as number;
-      const t1 = ts[hi] as number;
-      const f0 = fs[lo] as number;
-      return t1 > t0 ? f0 + (((fs[hi] as number) - f0) * (t - t0)) / (t1 - t0) : f0;
+      return valueIn(Math.min(segment(t), last - 1), t);
+    },
+    integral(t) {
+      if (t <= (ts[0] as number)) return 0;
+      if (t >= (ts[last] as number)) return area;
+      const i = Math.min(segment(t), last - 1);
+      return (cumulative[i] as number) + ((t - (ts[i] as number)) * ((fs[i] as number) + valueIn(i, t))) / 2;
     },
   };
 }

@@ -1,6 +1,6 @@
 import { InvalidInputError, requireInRange } from './errors';
 import type { Vec3 } from './image-sources';
-import type { PulseProfile } from './pulse-shape';
+import { averageOverStep, type PulseProfile } from './pulse-shape';
 
 /*
  * The temperature pulse a sensor receives from a heater in linear second-sound theory.
@@ -17,6 +17,8 @@ import type { PulseProfile } from './pulse-shape';
  *    sensor's foot point, rings of radius s give ∫ q̇(t − R/u2) Φ(R) dR, Φ the angle of the ring
  *    inside the disk; a finite sensor is averaged with a 7-point disk rule (exact to degree 3).
  * A sensor with a first-order lag τ (time constant) filters the result: y′ = (δT − y)/τ.
+ * Each sample is the signal averaged over its time step (the pulse enters through its integral),
+ * so a pulse keeps its area on any grid: a slow sensor, sampled coarsely, still sees it.
  */
 
 export type HeaterGeometry = 'planar' | 'disk' | 'point';
@@ -162,7 +164,7 @@ export function receivedPulse(source: PulseSource, sensor: SensorPoint, medium: 
     const out = grid(arrival, arrival + tail, step_s);
     const scale = (source.amplitudeFactor * source.peakFlux_W_m2) / (rhoC * u);
     out.values.forEach((_, i) => {
-      out.values[i] = scale * f.value(out.start_s + i * step_s - arrival);
+      out.values[i] = scale * averageOverStep(f, out.start_s + i * step_s - arrival, step_s);
     });
     applyLag(out.values, step_s, sensor.lag_s);
     return { arrival_s: arrival, path_m: z, signal: out };
@@ -193,7 +195,7 @@ export function receivedPulse(source: PulseSource, sensor: SensorPoint, medium: 
     const scale = q0 / (rhoC * u);
     out.values.forEach((_, i) => {
       const t = out.start_s + i * step_s;
-      out.values[i] = scale * (f.value(t - z / u) - f.value(t - edge));
+      out.values[i] = scale * (averageOverStep(f, t - z / u, step_s) - averageOverStep(f, t - edge, step_s));
     });
   } else {
     diskRayleigh(out, { q0, a, z, u, rhoC, profile: f }, sensorPoints(dx, dy, sensor.radius_m));
@@ -248,12 +250,13 @@ function diskRayleigh(out: SampledSignal, c: DiskCase, points: { d: number; w: n
       phi[j] = (phi[j] as number) + (w * sum) / PHI_SUBSAMPLES;
     }
   }
-  // Pulse increments D[m] = f(m h) − f((m − 1) h) for every lag the convolution needs.
+  // Pulse increments D[m] = f̄(m h) − f̄((m − 1) h), f̄ the pulse averaged over one step (so the
+  // output is averaged over its step too), for every lag the convolution needs.
   const n0 = Math.round(out.start_s / h);
   const mMin = n0 - (j0 + bins - 1);
   const mMax = n0 + out.values.length - 1 - j0;
   const increments = new Float64Array(mMax - mMin + 1);
-  for (let m = mMin; m <= mMax; m++) increments[m - mMin] = c.profile.value(m * h) - c.profile.value((m - 1) * h);
+  for (let m = mMin; m <= mMax; m++) increments[m - mMin] = averageOverStep(c.profile, m * h, h) - averageOverStep(c.profile, (m - 1) * h, h);
   const scale = c.q0 / (2 * Math.PI * c.rhoC * c.u);
   for (let i = 0; i < out.values.length; i++) {
     const base = n0 + i - j0 - mMin;

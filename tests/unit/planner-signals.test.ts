@@ -280,3 +280,42 @@ describe('pulse shapes', () => {
     expect(() => pulseProfile({ kind: 'rectangle' }, 100e-6, 200e-6)).toThrow(/rise time/);
   });
 });
+
+describe('coarse time steps keep the pulse (each sample is the signal averaged over its step)', () => {
+  it('a 1 s sensor lag on a 100 µs pulse: the sensor sees the pulse area spread over its time constant', () => {
+    const plan = withSensor(basePlan(), { lag_s: 1 });
+    const s = computePlan(plan).sensors[0];
+    const face = plan.heater.power_W / plan.heater.area_m2 / (medium.density_kg_m3 * medium.specificHeat_J_kgK * U2);
+    // A first-order sensor much slower than the pulse peaks at (pulse area)/τ times the height.
+    expect(s?.amplitude_K).toBeGreaterThan(0);
+    expect(Math.abs((s?.amplitude_K as number) / ((face * 100e-6) / 1) - 1)).toBeLessThan(0.01);
+    expect(s?.timingSd_s).toBeGreaterThan(0);
+  });
+
+  it('a 10 ns custom pulse on a much coarser step keeps its area', () => {
+    const profile = pulseProfile({ kind: 'custom', points: [[0, 0], [5e-9, 1], [10e-9, 0]] }, 0, 0);
+    const source = { geometry: 'planar' as const, peakFlux_W_m2: 1e6, peakPower_W: 0, radius_m: 0, profile, centre: [0, 0, 0] as const, amplitudeFactor: 1 };
+    const step = 1e-6;
+    const r = receivedPulse(source, { position: [0, 0, 0.01], radius_m: 0, lag_s: 0 }, medium, step);
+    const area = r.signal.values.reduce((a, v) => a + v, 0) * step;
+    const expected = (1e6 * profile.area_s) / (medium.density_kg_m3 * medium.specificHeat_J_kgK * U2);
+    expect(area / expected).toBeCloseTo(1, 9);
+  });
+
+  it('the pulse integral matches its samples: trapezoid, half-sine and custom', () => {
+    for (const profile of [
+      pulseProfile({ kind: 'rectangle' }, 100e-6, 7e-6),
+      pulseProfile({ kind: 'half-sine' }, 80e-6, 0),
+      pulseProfile({ kind: 'custom', points: [[0, 0], [10e-6, 2], [30e-6, 1], [45e-6, 0]] }, 0, 0),
+    ]) {
+      const n = 20000;
+      const h = (profile.duration_s * 1.2) / n;
+      let sum = 0;
+      for (let i = 0; i < n; i++) {
+        sum += profile.value((i + 0.5) * h) * h;
+        if (i % 997 === 0) expect(profile.integral((i + 1) * h)).toBeCloseTo(sum, 9);
+      }
+      expect(profile.integral(profile.duration_s * 2)).toBeCloseTo(profile.area_s, 15);
+    }
+  });
+});

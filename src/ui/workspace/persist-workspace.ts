@@ -28,7 +28,7 @@ export const AUTOSAVE_DELAY_MS = 400;
 
 /** What the page says when the browser keeps nothing at all. */
 export const STORAGE_OFF =
-  'This browser does not let Sekundo keep data (storage is turned off or blocked): your plan is not saved between visits and saved plans are unavailable. Everything else works; use “Save plan file” to keep your work.';
+  'This browser does not let Sekundo keep data (storage is turned off or blocked): your plan and settings are not kept between visits and saved plans are unavailable. Everything else works; use “Save plan file” to keep your work.';
 
 let kv: KeyValueStore | null = null;
 let autosaveMessageShown: string | null = null;

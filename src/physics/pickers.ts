@@ -202,25 +202,51 @@ function pickPeak(trace: Trace, base: Baseline, w: Window, step: number): { t: n
   return { t: centre + offset * step, sd: Math.max(vertex.uSd * step, step / Math.sqrt(12 * n)) };
 }
 
+/**
+ * Multiply-adds above which the cross-correlation first searches every k-th lag and then every lag
+ * around the best coarse one. k is at most an eighth of the template: the correlation of a pulse
+ * with its template has a main lobe about as wide as the template, so such a stride cannot step
+ * over it.
+ */
+const XCORR_FULL_SEARCH_WORK = 2e7;
+
 function pickXcorr(trace: Trace, base: Baseline, w: Window, step: number, template: Float64Array): { t: number; sd: number } {
   const m = template.length;
   if (m < 3) throw new InvalidInputError('template', 'needs at least 3 samples');
   const n = trace.values.length;
   const lastStart = Math.min(w.i1, n - m);
   if (lastStart < w.i0) throw new InvalidInputError('template', 'is longer than the search window');
-  let best = w.i0;
-  let bestScore = Number.NEGATIVE_INFINITY;
-  const scores = new Float64Array(lastStart - w.i0 + 1);
-  for (let s = w.i0; s <= lastStart; s++) {
+  const score = (start: number): number => {
     let acc = 0;
-    for (let j = 0; j < m; j++) acc += (template[j] as number) * w.sign * ((trace.values[s + j] as number) - base.level);
-    scores[s - w.i0] = acc;
-    if (acc > bestScore) {
-      bestScore = acc;
-      best = s;
+    for (let j = 0; j < m; j++) acc += (template[j] as number) * w.sign * ((trace.values[start + j] as number) - base.level);
+    return acc;
+  };
+  const lags = lastStart - w.i0 + 1;
+  const stride = Math.max(1, Math.min(Math.floor(m / 8), Math.ceil((lags * m) / XCORR_FULL_SEARCH_WORK)));
+  let coarseBest = w.i0;
+  let coarseScore = Number.NEGATIVE_INFINITY;
+  for (let start = w.i0; start <= lastStart; start += stride) {
+    const acc = score(start);
+    if (acc > coarseScore) {
+      coarseScore = acc;
+      coarseBest = start;
     }
   }
-  const k = best - w.i0;
+  // Every lag within two strides of the coarse best (all lags when the stride is 1).
+  const lo = stride === 1 ? w.i0 : Math.max(w.i0, coarseBest - 2 * stride);
+  const hi = stride === 1 ? lastStart : Math.min(lastStart, coarseBest + 2 * stride);
+  let best = lo;
+  let bestScore = Number.NEGATIVE_INFINITY;
+  const scores = new Float64Array(hi - lo + 1);
+  for (let start = lo; start <= hi; start++) {
+    const acc = score(start);
+    scores[start - lo] = acc;
+    if (acc > bestScore) {
+      bestScore = acc;
+      best = start;
+    }
+  }
+  const k = best - lo;
   const ym = k > 0 ? (scores[k - 1] as number) : bestScore;
   const yp = k < scores.length - 1 ? (scores[k + 1] as number) : bestScore;
   const { offset } = threePointVertex(ym, bestScore, yp);

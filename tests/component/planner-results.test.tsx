@@ -71,3 +71,32 @@ describe('planner results for the demo plan', { timeout: 20_000 }, () => {
     for (const derived of ['plannerResult', 'result', 'warnings', 'sensors']) expect(keys).not.toContain(derived);
   });
 });
+
+describe('planner results as CSV', () => {
+  it('writes one row per sensor in SI units, unrounded, with empty cells in He I', async () => {
+    const { resultsCsv } = await import('../../src/ui/planner/results-csv');
+    const { tableCsv } = await import('../../src/ui/export/csv-export');
+    const result = computePlan(planFileToInput(demoPlan()));
+    const text = tableCsv(resultsCsv(result));
+    const { default: Papa } = await import('papaparse');
+    const parse = (csv: string) => Papa.parse<string[]>(csv.trim()).data;
+    const lines = text.trim().split('\r\n');
+    expect(lines[0]).toBe(
+      'sensor_id,label,pathLength_m,pathLengthSd_m,firstSoundArrival_s,secondSoundArrival_s,amplitude_K,signal_V,snrSingle,snrAveraged,pulsesForTargetSnr,timingSd_s,temperatureSd_K,temperatureChangeSd_K,temperatureSdWithModel_K,shortestDistanceForTarget_m,insensitive',
+    );
+    expect(lines).toHaveLength(result.sensors.length + 1);
+    const first = result.sensors[0];
+    const rows = parse(text);
+    expect(rows[1]?.[1]).toBe(first?.label);
+    expect(rows[1]?.[5]).toBe(String(first?.secondSoundArrival_s));
+    const heI = computePlan({ ...planFileToInput(demoPlan()), temperature_K: 2.5 });
+    const heILine = parse(tableCsv(resultsCsv(heI)))[1] ?? [];
+    expect(heILine[5]).toBe('');
+    expect(heILine[16]).toBe('');
+  });
+
+  it('offers the table as a download beside it', async () => {
+    await openPlanner();
+    expect(screen.getByRole('button', { name: 'Download the results per sensor as CSV' })).toBeInTheDocument();
+  });
+});

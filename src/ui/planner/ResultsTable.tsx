@@ -2,9 +2,11 @@ import type { ReactNode } from 'react';
 import type { SensorPlanResult } from '../../physics';
 import { formatSignificant } from '../format/format-number';
 import { type DisplayUnit, inUnit, type Ladder, LADDERS, unitForColumn } from './display-units';
+import { CsvExportButton } from '../export/CsvExportButton';
 import { themedColour } from '../plot/plot-theme';
 import { useResolvedTheme } from '../theme/use-theme';
 import { sensorColour } from './planner-colours';
+import { resultsCsv } from './results-csv';
 import { usePlanOutcome } from './use-plan';
 
 interface Column {
@@ -51,6 +53,7 @@ export function ResultsTable() {
           Results per sensor
         </h3>
         <p className="muted">Linear theory at {outcome.result.temperature_K.toFixed(4)} K; “—” where there is no second sound.</p>
+        <CsvExportButton table={() => resultsCsv(outcome.result)} fileName="planned-results-per-sensor.csv" what="the results per sensor" />
       </div>
       <div className="table-scroll">
         <table className="properties-table results-table">

@@ -1,5 +1,6 @@
 import { mkdirSync } from 'node:fs';
 import { expect, type Page, test } from '@playwright/test';
+import { guardEveryPage } from './page-guard';
 
 const ARTIFACTS = 'test-results/artifacts';
 const PROJECTIONS = ['locate-projection-1', 'locate-projection-2'] as const;
@@ -41,27 +42,7 @@ async function openLocate(page: Page) {
 }
 
 test.describe('source location', () => {
-  const requests: string[] = [];
-  const problems: string[] = [];
-
-  test.beforeEach(async ({ page }) => {
-    requests.length = 0;
-    problems.length = 0;
-    page.on('request', (request) => requests.push(request.url()));
-    page.on('pageerror', (error) => problems.push(`page error: ${error.message}`));
-    page.on('console', (message) => {
-      if (message.type() === 'error') problems.push(`console: ${message.text()}`);
-    });
-  });
-
-  test.afterEach(() => {
-    const outside = requests.filter((url) => {
-      const { protocol, hostname } = new URL(url);
-      return !(protocol === 'data:' || protocol === 'blob:' || hostname === '127.0.0.1');
-    });
-    expect(outside, 'no request may leave 127.0.0.1').toEqual([]);
-    expect(problems).toEqual([]);
-  });
+  guardEveryPage();
 
   test('the demo opens with the source, its 1σ and 2σ ellipses and the quality map drawn', async ({ page }) => {
     await openLocate(page);

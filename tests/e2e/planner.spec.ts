@@ -1,6 +1,7 @@
 import { mkdirSync } from 'node:fs';
 import { cpus, loadavg } from 'node:os';
 import { expect, type Page, test } from '@playwright/test';
+import { guardEveryPage } from './page-guard';
 
 const ARTIFACTS = 'test-results/artifacts';
 const TIMELINE = '[data-chart="planner-timeline"]';
@@ -58,27 +59,7 @@ async function timedEdits(page: Page): Promise<number> {
 }
 
 test.describe('measurement planner', () => {
-  const requests: string[] = [];
-  const problems: string[] = [];
-
-  test.beforeEach(async ({ page }) => {
-    requests.length = 0;
-    problems.length = 0;
-    page.on('request', (request) => requests.push(request.url()));
-    page.on('pageerror', (error) => problems.push(`page error: ${error.message}`));
-    page.on('console', (message) => {
-      if (message.type() === 'error') problems.push(`console: ${message.text()}`);
-    });
-  });
-
-  test.afterEach(() => {
-    const outside = requests.filter((url) => {
-      const { protocol, hostname } = new URL(url);
-      return !(protocol === 'data:' || protocol === 'blob:' || hostname === '127.0.0.1');
-    });
-    expect(outside, 'no request may leave 127.0.0.1').toEqual([]);
-    expect(problems).toEqual([]);
-  });
+  const { requests } = guardEveryPage();
 
   test('the demo opens; moving a sensor moves its pulse and brings an echo warning', async ({ page }) => {
     await openPlanner(page);

@@ -1,5 +1,6 @@
 import { mkdirSync, readFileSync } from 'node:fs';
 import { expect, type Page, test } from '@playwright/test';
+import { guardEveryPage } from './page-guard';
 
 const ARTIFACTS = 'test-results/artifacts';
 const VIEWS = [
@@ -47,28 +48,8 @@ async function openTab(page: Page, tab: string) {
 }
 
 test.describe('workspace habits', () => {
-  const requests: string[] = [];
-  const problems: string[] = [];
-
-  test.beforeEach(async ({ page }) => {
-    requests.length = 0;
-    problems.length = 0;
-    page.on('request', (request) => requests.push(request.url()));
-    page.on('pageerror', (error) => problems.push(`page error: ${error.message}`));
-    page.on('console', (message) => {
-      // A Content-Security-Policy refusal shows here too.
-      if (message.type() === 'error') problems.push(`console: ${message.text()}`);
-    });
-  });
-
-  test.afterEach(() => {
-    const outside = requests.filter((url) => {
-      const { protocol, hostname } = new URL(url);
-      return !(protocol === 'data:' || protocol === 'blob:' || hostname === '127.0.0.1');
-    });
-    expect(outside, 'no request may leave 127.0.0.1').toEqual([]);
-    expect(problems).toEqual([]);
-  });
+  // Also fails on a Content-Security-Policy refusal, which the console reports as an error.
+  guardEveryPage();
 
   test('theme and display units are chosen, kept across a reload, and followed by tables and charts', async ({ page }) => {
     await page.goto('/');

@@ -111,7 +111,7 @@ interface Window {
   i0: number;
   i1: number;
   sign: number;
-  /** Index of the extreme excursion (in sign) within the window. */
+  /** Index of the extreme excursion (in sign) inside the search range. */
   iPeak: number;
 }
 

@@ -1,6 +1,6 @@
 /**
  * Published cubic B-spline representations of helium-4 properties along the saturated vapour
- * pressure (T90 in kelvin), copied from the project's reference set (transcribed by hand from
+ * pressure (T90 in kelvin), copied from the project's reference set (copied by hand from
  * R. J. Donnelly and C. F. Barenghi, 'The Observed Properties of Liquid Helium at the Saturated Vapor Pressure', J. Phys. Chem. Ref. Data 27, 1217 (1998), doi:10.1063/1.556028).
  *
  * Values copied unchanged from tests/reference/he4-svp.json (same source); edit only together with
@@ -16,13 +16,13 @@ export interface SplineData {
   readonly note: string;
 }
 
-/** second sound speed: The last five non-zero coefficients (knots 2.1766-2.1768 K) are given here as 6.743104e-1 ... 1.059874e-1. One transcription prints them with exponent e-2, which makes u2/t^(1/3) (t = 1 - T/T_lambda) collapse within 0.1 mK of T_lambda; with e-1 that ratio stays smooth (about 31 -> 25 m/s from t = 8e-4 to 2e-6), as the critical scaling of u2 requires. Treat the region within 0.2 mK of T_lambda as uncertain either way. */
+/** second sound speed: The last five non-zero coefficients (knots 2.1766-2.1768 K) are given here as 6.743104e-1 ... 1.059874e-1. One printed copy gives them with exponent e-2, which makes u2/t^(1/3) (t = 1 - T/T_lambda) collapse within 0.1 mK of T_lambda; with e-1 that ratio stays smooth (about 31 -> 25 m/s from t = 8e-4 to 2e-6), as the critical scaling of u2 requires. Treat the region within 0.2 mK of T_lambda as uncertain either way. */
 export const SECOND_SOUND_SPLINE: SplineData = {
   knots: [0.5517426, 0.5517426, 0.5517426, 0.5517426, 0.64197, 0.80623, 0.9297, 1.06964, 1.2855, 1.7202, 1.94043, 2.06885, 2.12622, 2.153079, 2.164207, 2.169182, 2.170551, 2.174832, 2.175738, 2.176319, 2.1766, 2.176735, 2.17678, 2.176787, 2.176797, 2.1768, 2.1768, 2.1768, 2.1768, 2.1768],
   coefficients: [105.0, 92.87425, 49.73642, 27.12778, 19.31258, 17.95336, 19.23863, 21.15625, 19.21708, 15.75245, 11.92157, 8.953338, 6.771458, 5.50638, 4.456879, 3.840343, 2.542421, 1.957438, 1.427086, 1.001273, 0.6743104, 0.4565972, 0.3519492, 0.2088277, 0.1059874, 0.0],
   range: [0.5517426, 2.1768],
   unit: 'm/s',
-  note: "The last five non-zero coefficients (knots 2.1766-2.1768 K) are given here as 6.743104e-1 ... 1.059874e-1. One transcription prints them with exponent e-2, which makes u2/t^(1/3) (t = 1 - T/T_lambda) collapse within 0.1 mK of T_lambda; with e-1 that ratio stays smooth (about 31 -> 25 m/s from t = 8e-4 to 2e-6), as the critical scaling of u2 requires. Treat the region within 0.2 mK of T_lambda as uncertain either way.",
+  note: "The last five non-zero coefficients (knots 2.1766-2.1768 K) are given here as 6.743104e-1 ... 1.059874e-1. One printed copy gives them with exponent e-2, which makes u2/t^(1/3) (t = 1 - T/T_lambda) collapse within 0.1 mK of T_lambda; with e-1 that ratio stays smooth (about 31 -> 25 m/s from t = 8e-4 to 2e-6), as the critical scaling of u2 requires. Treat the region within 0.2 mK of T_lambda as uncertain either way.",
 };
 
 /** first sound speed: Covers He II and He I; minimum (cusp) at T_lambda. */

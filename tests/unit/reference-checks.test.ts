@@ -10,7 +10,7 @@ import { readReferenceCsv } from '../support/reference-csv';
 
 describe('second sound against Donnelly & Barenghi 1998 Table 4.1', () => {
   // Peshkov's points: the published representation scatters around them by up to about 0.25 %
-  // (reference README), so 0.3 %; his stated uncertainty (0.75 %) would hide a transcription slip.
+  // (reference README), so 0.3 %; his stated uncertainty (0.75 %) would hide a copying slip.
   const PESHKOV_REL_TOL = 0.003;
   // Wang, Wagner & Donnelly: stated 0.07 %; the spline must sit within that.
   const WANG_REL_TOL = 0.0007;

@@ -8,7 +8,8 @@ import { lengthScale, projectionFigure, surfaceOutline, TRACE_NAMES } from './lo
 import { LOCATE_HELP } from './locate-help';
 import { PLANE_PAIRS, type PlanePair, pairName } from './locate-inputs';
 import { ProjectionLegend } from './ProjectionLegend';
-import { useLocateOutcome, useWidth } from './use-locate';
+import { useElementWidth as useWidth } from '../layout/use-element-width';
+import { useLocateOutcome } from './use-locate';
 
 /** Chart id of the projection in slot 0 or 1 (tests and readers of the figure find it). */
 export const projectionChartId = (slot: 0 | 1) => `locate-projection-${slot + 1}`;

@@ -11,7 +11,8 @@ import { lengthScale, qualityFigure } from './locate-figures';
 import { LOCATE_HELP } from './locate-help';
 import { MAP_POINTS_PER_SIDE, median, qualityMap } from './locate-geometry';
 import { AXIS_NAMES, axesOf, constraintOf, PLANE_PAIRS, type PlanePair, pairName } from './locate-inputs';
-import { locateOutcomeFor, useSettled, useWidth } from './use-locate';
+import { useElementWidth as useWidth } from '../layout/use-element-width';
+import { locateOutcomeFor, useSettled } from './use-locate';
 
 export const QUALITY_CHART_ID = 'locate-quality-map';
 /** The map is redrawn once typing pauses this long, ms (it takes about a tenth of a second). */

@@ -1,4 +1,4 @@
-import { type RefObject, useEffect, useRef, useState } from 'react';
+import { useEffect, useState } from 'react';
 import type { LocateOptionsInput, LocateRowInput } from './locate-inputs';
 import { deriveLocate, type LocateOutcome } from './derive-locate';
 import { useSekundoStore } from '../store';
@@ -23,25 +23,6 @@ export function useLocateOutcome(): LocateOutcome {
   return locateOutcomeFor(rows, options);
 }
 
-/** Width of an element in CSS pixels (rounded to 10 px), following resizes; `fallback` until measured. */
-export function useWidth<T extends HTMLElement>(fallback: number): [RefObject<T | null>, number] {
-  const ref = useRef<T>(null);
-  const [width, setWidth] = useState(fallback);
-  useEffect(() => {
-    const element = ref.current;
-    if (!element) return;
-    const measure = () => {
-      const w = Math.round(element.getBoundingClientRect().width / 10) * 10;
-      if (w > 0) setWidth(w);
-    };
-    measure();
-    if (typeof ResizeObserver === 'undefined') return;
-    const observer = new ResizeObserver(measure);
-    observer.observe(element);
-    return () => observer.disconnect();
-  }, []);
-  return [ref, width];
-}
 
 /** `value` once it has stayed the same for `delay_ms` (the first value at once): costly maps wait for typing to pause. */
 export function useSettled<T>(value: T, delay_ms: number): T {

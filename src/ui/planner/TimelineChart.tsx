@@ -9,7 +9,7 @@ import { PLANNER_COLOURS } from './planner-colours';
 import { reportDrawn } from './recompute-timer';
 import { formatMs, type TimelineKeyEntry, timelineFigure } from './timeline-figure';
 import { usePlanOutcome } from './use-plan';
-import { useElementWidth } from './use-width';
+import { useElementWidth } from '../layout/use-element-width';
 
 /** Chart id of the timeline (tests read the drawn figure from the element with this data-chart). */
 export const TIMELINE_CHART_ID = 'planner-timeline';

@@ -5,7 +5,7 @@ import { ChartFigure } from '../../charts/ChartFigure';
 import { axis, baseLayout, CHART_COLOURS } from '../../charts/chart-theme';
 import { formatSignificant } from '../../format/format-number';
 import { PanelErrorBoundary } from '../../layout/PanelErrorBoundary';
-import { useElementWidth } from '../../planner/use-width';
+import { useElementWidth } from '../../layout/use-element-width';
 import { PlotlyChart } from '../../plot/PlotlyChart';
 import type { PlotLayout, PlotTrace } from '../../plot/plotly-types';
 import { useSekundoStore } from '../../store';

@@ -11,57 +11,16 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { arrivalsOf as kernelInputsOf, locateResultsToCsv, locateSensorsToCsv, parseLocateCsv, sensorOutcomes } from '../../src/io/locate-csv';
-import type { CliIo } from '../../src/cli/io';
-import { main } from '../../src/cli/main';
 import { locateSource, secondSound, type Vec3 } from '../../src/physics';
+import { expectUsageError, run, runJson as runJsonAs } from '../support/cli-harness';
 import { gaussian, seededRandom } from '../support/synthetic-trace';
 
 const REPO_ROOT = fileURLToPath(new URL('../..', import.meta.url));
 const U2_1_8K = secondSound(1.8); // this kernel's u2 at 1.8 K (D&B 1998 curve: 19.90 m/s)
 
-interface Run {
-  status: number;
-  stdout: string;
-  stderr: string;
-}
-
-async function run(...argv: string[]): Promise<Run> {
-  let stdout = '';
-  let stderr = '';
-  const io: CliIo = {
-    stdout: (text) => {
-      stdout += text;
-    },
-    stderr: (text) => {
-      stderr += text;
-    },
-  };
-  const status = await main(argv, io);
-  return { status, stdout, stderr };
-}
-
 // biome-ignore lint/suspicious/noExplicitAny: JSON output is checked field by field below
 type Json = any;
-
-async function runJson(...argv: string[]): Promise<Json> {
-  const result = await run(...argv, '--json');
-  expect(result.stderr).toBe('');
-  expect(result.status).toBe(0);
-  return JSON.parse(result.stdout);
-}
-
-/** Bad input: status 2, nothing on stdout, exactly one line on stderr, no stack frame. */
-function expectUsageError(result: Run): string {
-  expect(result.status).toBe(2);
-  expect(result.stdout).toBe('');
-  expect(result.stderr.endsWith('\n')).toBe(true);
-  const lines = result.stderr.split('\n').slice(0, -1);
-  expect(lines).toHaveLength(1);
-  expect(result.stderr).not.toMatch(/^\s*at /m);
-  expect(result.stderr).not.toMatch(/\bat .*\.(ts|js|mjs):\d+/);
-  expect(result.stderr.startsWith('sekundo: ')).toBe(true);
-  return lines[0] ?? '';
-}
+const runJson = (...argv: string[]) => runJsonAs<Json>(...argv);
 
 let dir = '';
 beforeAll(() => {

@@ -7,22 +7,8 @@
  * 355–949: one digit (0.0498 → 0.05); 950–999: it rounds up to 1000, shown as two digits of the next
  * power (0.0973 → 0.10).
  */
-import { DISPLAY_SIGNIFICANT_DIGITS, formatSignificant } from './format-number';
+import { DISPLAY_SIGNIFICANT_DIGITS, formatSignificant, superscript, withMinus } from './format-number';
 
-const MINUS = '\u2212';
-const SUPERSCRIPT: Readonly<Record<string, string>> = {
-  '-': '⁻',
-  '0': '⁰',
-  '1': '¹',
-  '2': '²',
-  '3': '³',
-  '4': '⁴',
-  '5': '⁵',
-  '6': '⁶',
-  '7': '⁷',
-  '8': '⁸',
-  '9': '⁹',
-};
 /** Beyond these the numbers share a power of ten: "(1.156 ± 0.021) × 10⁻⁵". */
 const FIXED_BELOW = 1e6;
 const MOST_DECIMALS = 6;
@@ -97,15 +83,4 @@ function atDigit(x: number, last: number): string {
 /** "−0.00" reads as a signed zero: show it unsigned. */
 function normaliseZero(text: string): string {
   return /^-0(\.0*)?$/.test(text) ? text.slice(1) : text;
-}
-
-function withMinus(text: string): string {
-  return text.startsWith('-') ? `${MINUS}${text.slice(1)}` : text;
-}
-
-function superscript(n: number): string {
-  return String(n)
-    .split('')
-    .map((c) => SUPERSCRIPT[c] ?? c)
-    .join('');
 }

@@ -39,11 +39,7 @@ export function formatSignificant(x: number, digits: number = DISPLAY_SIGNIFICAN
 /** `x` as "3.142 × 10⁻⁶". */
 export function formatScientific(x: number, digits: number): string {
   const [mantissa = '', exponent = '0'] = x.toExponential(digits - 1).split('e');
-  const power = String(Number(exponent))
-    .split('')
-    .map((c) => SUPERSCRIPT[c] ?? c)
-    .join('');
-  return `${withMinus(mantissa)} × 10${power}`;
+  return `${withMinus(mantissa)} × 10${superscript(Number(exponent))}`;
 }
 
 /** `x` with a fixed number of decimals and a true minus sign. */
@@ -52,6 +48,15 @@ export function formatFixed(x: number, decimals: number): string {
   return withMinus(x.toFixed(decimals));
 }
 
-function withMinus(text: string): string {
+/** The text with a leading hyphen replaced by a true minus sign. */
+export function withMinus(text: string): string {
   return text.startsWith('-') ? `${MINUS}${text.slice(1)}` : text;
+}
+
+/** A whole number as superscript digits, for powers of ten: −5 → "⁻⁵". */
+export function superscript(n: number): string {
+  return String(n)
+    .split('')
+    .map((c) => SUPERSCRIPT[c] ?? c)
+    .join('');
 }

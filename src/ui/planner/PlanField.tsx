@@ -29,7 +29,7 @@ interface NumberFieldProps extends FieldProps {
  * last good value. Escape brings back the plan's value.
  */
 export function PlanNumberField({ field, ...props }: NumberFieldProps) {
-  const value = useSekundoStore((s) => fieldText(field, s.plannerPlan));
+  const value = useSekundoStore((s) => fieldText(field, s.plannerPlan, s.displayUnits));
   const edit = (plan: PlanFile, text: string) => editField(field, plan, text);
   return <PlanTextInput {...props} fieldKey={field.key} value={value} edit={edit} rangeHint={(plan) => fieldRangeText(field, plan)} />;
 }

@@ -1,10 +1,16 @@
 /**
  * How the planner shows SI values: each kind of quantity has a ladder of display units, and a
  * value is shown in the largest unit that keeps its number at or above 1 ("100 µs", "9.97 mm").
+ * Temperatures, lengths, times, pressures and heat fluxes are shown instead in the unit chosen in
+ * the header (src/ui/units), as in every view: {@link chosenLadders} swaps their ladders for that
+ * one unit. Uncertainties (a timing or distance sd) and temperature differences keep the ladder, as
+ * they are orders of magnitude smaller than the values, and so do messages and valid ranges
+ * ("10 ns–10 s" reads better than "0.00001–10000 ms").
  * Conversion uses src/io/quantity.ts, so what is shown can be typed back unchanged.
  */
 import { type Dimension, fromBaseUnit, type Unit } from '../../io/quantity';
 import { formatSignificant } from '../format/format-number';
+import { type DisplayUnits, shownUnit, type UnitKind } from '../units/unit-choices';
 
 /** A unit as shown (µ and ², which the parser also accepts) and the symbol the parser knows. */
 export interface DisplayUnit {
@@ -40,22 +46,66 @@ export interface QuantityKind {
   zero?: DisplayUnit;
   /** Typed example for messages, e.g. "100 us". */
   example: string;
+  /** The header's unit kind this quantity is shown in, when it follows the chosen display unit. */
+  follows?: UnitKind;
 }
 
 export const KINDS = {
-  temperature: { dimension: 'temperature', ladder: LADDERS.temperature, example: '1.8 K or 1800 mK' },
+  temperature: { dimension: 'temperature', ladder: LADDERS.temperature, example: '1.8 K or 1800 mK', follows: 'temperature' },
   temperatureDifference: { dimension: 'temperature difference', ladder: LADDERS.temperatureDifference, example: '1 mK or 50 uK' },
-  pressure: { dimension: 'pressure', ladder: LADDERS.pressure, example: '1638 Pa or 16.4 mbar' },
-  length: { dimension: 'length', ladder: LADDERS.length, zero: LADDERS.length[1], example: '50 mm' },
-  time: { dimension: 'time', ladder: LADDERS.time, zero: LADDERS.time[2], example: '100 us' },
+  pressure: { dimension: 'pressure', ladder: LADDERS.pressure, example: '1638 Pa or 16.4 mbar', follows: 'pressure' },
+  length: { dimension: 'length', ladder: LADDERS.length, zero: LADDERS.length[1], example: '50 mm', follows: 'length' },
+  /** An uncertainty of a length: shown on the ladder, not in the chosen unit. */
+  lengthSd: { dimension: 'length', ladder: LADDERS.length, zero: LADDERS.length[1], example: '0.1 mm' },
+  time: { dimension: 'time', ladder: LADDERS.time, zero: LADDERS.time[2], example: '100 us', follows: 'time' },
   area: { dimension: 'area', ladder: LADDERS.area, zero: LADDERS.area[2], example: '1 cm2 or 2 mm2' },
   frequency: { dimension: 'frequency', ladder: LADDERS.frequency, example: '5 Hz' },
   sampleRate: { dimension: 'frequency', ladder: LADDERS.sampleRate, example: '10 MS/s' },
   voltage: { dimension: 'voltage', ladder: LADDERS.voltage, example: '1 uV' },
   responsivity: { dimension: 'responsivity', ladder: LADDERS.responsivity, example: '2 V/K' },
   power: { dimension: 'power', ladder: LADDERS.power, example: '100 mW' },
-  heatFlux: { dimension: 'heat flux', ladder: LADDERS.heatFlux, example: '0.1 W/cm2' },
+  heatFlux: { dimension: 'heat flux', ladder: LADDERS.heatFlux, example: '0.1 W/cm2', follows: 'heatFlux' },
 } as const satisfies Record<string, QuantityKind>;
+
+/** A one-unit ladder: the chosen display unit of a kind. */
+function onlyUnit(unit: string): Ladder {
+  return [{ shown: shownUnit(unit), unit: unit as Unit }];
+}
+
+/** The ladders with the header's chosen units in place of those that follow them (see the top of this file). */
+export type ShownLadders = { readonly [K in keyof typeof LADDERS]: Ladder };
+
+/** {@link LADDERS} with temperature, pressure, length, time and heat flux each in the one unit chosen. */
+export function chosenLadders(units: DisplayUnits): ShownLadders {
+  return {
+    ...LADDERS,
+    temperature: onlyUnit(units.temperature),
+    pressure: onlyUnit(units.pressure),
+    length: onlyUnit(units.length),
+    time: onlyUnit(units.time),
+    heatFlux: onlyUnit(units.heatFlux),
+  };
+}
+
+/** The ladder and zero unit a field of `kind` is shown with: its chosen unit when it follows one. */
+export function shownLadder(kind: QuantityKind, units: DisplayUnits | undefined): { ladder: Ladder; zero?: DisplayUnit } {
+  if (kind.follows && units) {
+    const ladder = onlyUnit(units[kind.follows]);
+    return { ladder, zero: ladder[0] };
+  }
+  return { ladder: kind.ladder, zero: kind.zero };
+}
+
+/**
+ * An absolute temperature to a fixed resolution in its unit: 0.1 mK shows as "1.8000 K" or
+ * "1800.0 mK" (bath temperatures are set and read to about that).
+ */
+export function temperatureText(value_K: number, ladder: Ladder, resolution_K = 1e-4): string {
+  const unit = ladder[0] as DisplayUnit;
+  const step = fromBaseUnit(resolution_K, unit.unit);
+  const decimals = Math.max(0, Math.ceil(-Math.log10(step) - 1e-9));
+  return `${fromBaseUnit(value_K, unit.unit).toFixed(decimals)} ${unit.shown}`;
+}
 
 /** The unit of `ladder` that shows `value` (SI) with a number of at least 1, or the smallest unit. */
 export function unitFor(value: number, ladder: Ladder, zero?: DisplayUnit): DisplayUnit {

@@ -14,7 +14,8 @@ import {
   VAPOUR_PRESSURE_RANGE_PA,
   vapourPressure,
 } from '../../physics';
-import { inputText, KINDS, plainNumber, type QuantityKind, rangeText } from './display-units';
+import type { DisplayUnits } from '../units/unit-choices';
+import { inputText, KINDS, plainNumber, type QuantityKind, rangeText, shownLadder } from './display-units';
 
 export type Range = readonly [number, number];
 
@@ -95,11 +96,16 @@ function unitProblem(error: QuantityParseError): string {
   }
 }
 
-/** The field's current value as text for its input ("100 µs"); empty when the plan has none. */
-export function fieldText(field: NumberField, plan: PlanFile): string {
+/**
+ * The field's current value as text for its input ("100 µs"); empty when the plan has none. With
+ * `units`, quantities that follow the header's display units are shown in the chosen one ("0.1 ms").
+ */
+export function fieldText(field: NumberField, plan: PlanFile, units?: DisplayUnits): string {
   const value = field.get(plan);
   if (value === undefined) return '';
-  return field.kind ? inputText(value, field.kind.ladder, field.kind.zero) : plainNumber(value);
+  if (!field.kind) return plainNumber(value);
+  const { ladder, zero } = shownLadder(field.kind, units);
+  return inputText(value, ladder, zero);
 }
 
 /** The edit typing `text` into `field` makes (before the whole-plan check). */
@@ -240,7 +246,7 @@ export function sensorFields(index: number, rowKey: string) {
     x: coordinateField(index, rowKey, 0),
     y: coordinateField(index, rowKey, 1),
     z: coordinateField(index, rowKey, 2),
-    distanceSd: field('distanceSd_m', 'distanceSd', 'distance sd', KINDS.length, PLAN_LIMITS.distanceSd_m),
+    distanceSd: field('distanceSd_m', 'distanceSd', 'distance sd', KINDS.lengthSd, PLAN_LIMITS.distanceSd_m),
     area: field('area_m2', 'area', 'area', KINDS.area, PLAN_LIMITS.sensorArea_m2),
     responsivity: field('responsivity_V_K', 'responsivity', 'responsivity', KINDS.responsivity, PLAN_LIMITS.responsivity_V_K),
     noise: field('noise_V', 'noise', 'noise', KINDS.voltage, PLAN_LIMITS.noise_V),

@@ -45,7 +45,7 @@ describe('planner results for the demo plan', { timeout: 20_000 }, () => {
     const expected = computePlan(planFileToInput(demoPlan())).heater;
     const summary = screen.getByRole('region', { name: 'Heater and bath' });
     const value = (term: string) => within(summary).getByText(term).nextElementSibling?.querySelector('.summary-list__value')?.textContent;
-    expect(value('Peak heat flux')).toBe(`${formatSignificant(expected.flux_W_m2 / 10, 3)} mW/cm²`);
+    expect(value('Peak heat flux')).toBe(`${formatSignificant(expected.flux_W_m2 / 1e4, 3)} W/cm²`);
     expect(value('Average power into the bath')).toBe(`${formatSignificant(expected.averagePower_W * 1e6, 3)} µW`);
     expect(value('Energy per pulse')).toBe(`${formatSignificant(expected.energyPerPulse_J * 1e6, 3)} µJ`);
     expect(value('δT at the heater face')).toBe(`${formatSignificant((expected.faceDeltaT_K as number) * 1e6, 3)} µK`);

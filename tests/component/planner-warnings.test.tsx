@@ -26,7 +26,7 @@ describe('planner warnings', { timeout: 20_000 }, () => {
     const item = overlap as HTMLElement;
     expect(within(item).getByText('Caution')).toBeInTheDocument();
     expect(item).toHaveTextContent(/Sensor Bolometer D, 50 mm \(b50\)/);
-    expect(item).toHaveTextContent(/echo after the pulse \d+(\.\d+)? µs · pulse lasts 161 µs/);
+    expect(item).toHaveTextContent(/echo after the pulse 0\.0\d+ ms · pulse lasts 0\.161 ms/);
     // The timeline marks the echo right after the direct arrival.
     await waitFor(() => {
       const [direct = Number.NaN] = arrivalTimes('b50', 'second sound');

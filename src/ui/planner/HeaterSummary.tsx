@@ -1,10 +1,12 @@
 import { formatSignificant } from '../format/format-number';
-import { type Ladder, LADDERS, readText } from './display-units';
+import { LADDERS, type Ladder, readText, temperatureText } from './display-units';
 import { usePlanOutcome } from './use-plan';
+import { useShownLadders } from './use-shown-ladders';
 
 /** What the heater does: flux, energy, power into the bath, the wave it launches and where it would shock. */
 export function HeaterSummary() {
   const outcome = usePlanOutcome();
+  const L = useShownLadders();
   if (!outcome.ok) return null;
   const { heater, temperature_K, headPressure_Pa } = outcome.result;
   const bath = outcome.bath;
@@ -12,21 +14,21 @@ export function HeaterSummary() {
   const rows: [string, string, string?][] = [
     [
       'Bath temperature',
-      `${temperature_K.toFixed(4)} K`,
-      bath.vapourPressure_Pa === null ? 'as typed' : `from ${formatSignificant(bath.vapourPressure_Pa)} Pa (${bath.scale})`,
+      temperatureText(temperature_K, L.temperature),
+      bath.vapourPressure_Pa === null ? 'as typed' : `from ${readText(bath.vapourPressure_Pa, L.pressure)} (${bath.scale})`,
     ],
-    ['Peak heat flux', show(heater.flux_W_m2, LADDERS.heatFlux), `peak power ${show(heater.power_W, LADDERS.power)}`],
+    ['Peak heat flux', show(heater.flux_W_m2, L.heatFlux), `peak power ${show(heater.power_W, L.power)}`],
     ['Energy per pulse', show(heater.energyPerPulse_J, ENERGY)],
-    ['Average power into the bath', show(heater.averagePower_W, LADDERS.power), 'boils helium off; check the cooling power'],
-    ['δT at the heater face', show(heater.faceDeltaT_K, LADDERS.temperatureDifference), 'q/(ρ cₚ u₂), plane wave'],
+    ['Average power into the bath', show(heater.averagePower_W, L.power), 'boils helium off; check the cooling power'],
+    ['δT at the heater face', show(heater.faceDeltaT_K, L.temperatureDifference), 'q/(ρ cₚ u₂), plane wave'],
     ['Counterflow velocity', heater.counterflowVelocity_m_s === null ? '—' : `${formatSignificant(heater.counterflowVelocity_m_s * 100, 3)} cm/s`, 'q/(ρs s T)'],
     [
       'Shock distance',
-      heater.shockDistance_m === null ? '—' : Number.isFinite(heater.shockDistance_m) ? show(heater.shockDistance_m, LADDERS.length) : 'none',
+      heater.shockDistance_m === null ? '—' : Number.isFinite(heater.shockDistance_m) ? show(heater.shockDistance_m, L.length) : 'none',
       'where the front would steepen',
     ],
-    ['Pulse length', show(heater.duration_s, LADDERS.time), `effective rise ${show(heater.effectiveRise_s, LADDERS.time)}`],
-    ['Head pressure at the setup', `${formatSignificant(headPressure_Pa, 3)} Pa`],
+    ['Pulse length', show(heater.duration_s, L.time), `effective rise ${show(heater.effectiveRise_s, LADDERS.time)}`],
+    ['Head pressure at the setup', show(headPressure_Pa, L.pressure)],
   ];
   return (
     <section className="card plan-heater-summary" aria-labelledby="planner-heater-summary-title">

@@ -3,10 +3,11 @@ import { SPACER_MATERIALS } from '../../physics';
 import { ChartFigure } from '../charts/ChartFigure';
 import { PlotlyChart } from '../plot/PlotlyChart';
 import { useSekundoStore } from '../store';
-import { LADDERS, readText } from './display-units';
+import { type DisplayUnit, LADDERS, readText, temperatureText } from './display-units';
 import { MAP_DISTANCE_RANGE_M, type MapSensor, mapFigure, mapGrid, onMap, spreadAt } from './resolution-map';
 import { markMapStart, reportDrawn } from './recompute-timer';
 import { usePlanOutcome } from './use-plan';
+import { useShownLadders } from './use-shown-ladders';
 
 export const MAP_CHART_ID = 'planner-resolution-map';
 
@@ -23,6 +24,8 @@ export function ResolutionMap() {
   const chosenKey = useSekundoStore((s) => s.plannerMapSensorKey);
   const choose = useSekundoStore((s) => s.setPlannerMapSensor);
   const selectId = useId();
+  const ladders = useShownLadders();
+  const units = useMemo(() => ({ temperature: ladders.temperature[0] as DisplayUnit, length: ladders.length[0] as DisplayUnit }), [ladders]);
   const index = Math.max(0, chosenKey === null ? 0 : sensorKeys.indexOf(chosenKey));
   const result = outcome.ok ? outcome.result : null;
   const sensor = result?.sensors[index] ?? result?.sensors[0] ?? null;
@@ -49,8 +52,8 @@ export function ResolutionMap() {
     if (!mapSensor) return null;
     const range: [number, number] = [Math.min(MAP_DISTANCE_RANGE_M[0], distance / 1.5), Math.max(MAP_DISTANCE_RANGE_M[1], distance * 1.5)];
     const planned = onMap(T) && sensor ? { temperature_K: T, distance_m: distance, sd_K: spreadAt(T, distance, mapSensor).sd_K, label: sensor.id } : null;
-    return { ...mapFigure(mapGrid(mapSensor, range), { planned, target_K: target }), planned };
-  }, [mapSensor, T, distance, target, sensor]);
+    return { ...mapFigure(mapGrid(mapSensor, range), { planned, target_K: target }, units), planned };
+  }, [mapSensor, T, distance, target, sensor, units]);
 
   if (!result || !sensor) return null;
   const choice = (
@@ -76,8 +79,8 @@ export function ResolutionMap() {
   }
   const sdText = (x: number | null) => (x === null ? '—' : readText(x, LADDERS.temperatureDifference, 2));
   const plannedText = figure.planned
-    ? `At the plan (${T.toFixed(3)} K, ${readText(distance, LADDERS.length, 3)}) the map gives σT ≈ ${sdText(figure.planned.sd_K)} (results table: ${sdText(sensor.temperatureSd_K)}).`
-    : `The planned ${T.toFixed(3)} K is outside this map.`;
+    ? `At the plan (${temperatureText(T, ladders.temperature, 1e-3)}, ${readText(distance, ladders.length, 3)}) the map gives σT ≈ ${sdText(figure.planned.sd_K)} (results table: ${sdText(sensor.temperatureSd_K)}).`
+    : `The planned ${temperatureText(T, ladders.temperature, 1e-3)} is outside this map.`;
   return (
     <ChartFigure
       id={MAP_CHART_ID}

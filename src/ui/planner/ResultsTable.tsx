@@ -1,13 +1,14 @@
 import type { ReactNode } from 'react';
 import type { SensorPlanResult } from '../../physics';
 import { formatSignificant } from '../format/format-number';
-import { type DisplayUnit, inUnit, type Ladder, LADDERS, unitForColumn } from './display-units';
+import { type DisplayUnit, inUnit, LADDERS, type ShownLadders, temperatureText, unitForColumn } from './display-units';
 import { CsvExportButton } from '../export/CsvExportButton';
 import { themedColour } from '../plot/plot-theme';
 import { useResolvedTheme } from '../theme/use-theme';
 import { sensorColour } from './planner-colours';
 import { resultsCsv } from './results-csv';
 import { usePlanOutcome } from './use-plan';
+import { useShownLadders } from './use-shown-ladders';
 
 interface Column {
   key: string;
@@ -15,7 +16,10 @@ interface Column {
   header: ReactNode;
   /** What the column means, for the header's title and screen readers. */
   about: string;
-  ladder: Ladder | null;
+  /** Which ladder shows the column; null for plain numbers. */
+  ladder: keyof ShownLadders | null;
+  /** An uncertainty standing alone: on the ladder, not in the header's chosen unit. */
+  uncertainty?: boolean;
   value: (s: SensorPlanResult) => number | null;
   /** Digits shown. */
   digits?: number;
@@ -24,35 +28,36 @@ interface Column {
 }
 
 const COLUMNS: readonly Column[] = [
-  { key: 'path', header: 'Cold path', about: 'Shortest heater–sensor path at low temperature', ladder: LADDERS.length, value: (s) => s.pathLength_m },
-  { key: 'pathSd', header: '± sd', about: 'One-sigma of the cold path (measurement and contraction)', ladder: LADDERS.length, value: (s) => s.pathLengthSd_m, digits: 2 },
-  { key: 'first', header: 'First sound', about: 'First-sound arrival after the pulse onset', ladder: LADDERS.time, value: (s) => s.firstSoundArrival_s },
-  { key: 'second', header: 'Second sound', about: 'Second-sound arrival after the pulse onset, with the sensor lag', ladder: LADDERS.time, value: (s) => s.secondSoundArrival_s },
-  { key: 'amplitude', header: 'δT peak', about: 'Peak temperature swing of the direct pulse at the sensor', ladder: LADDERS.temperatureDifference, value: (s) => s.amplitude_K },
-  { key: 'signal', header: 'Signal', about: 'Peak signal: δT × responsivity', ladder: LADDERS.voltage, value: (s) => s.signal_V },
+  { key: 'path', header: 'Cold path', about: 'Shortest heater–sensor path at low temperature', ladder: 'length', value: (s) => s.pathLength_m },
+  { key: 'pathSd', header: '± sd', about: 'One-sigma of the cold path (measurement and contraction)', ladder: 'length', value: (s) => s.pathLengthSd_m, digits: 2 },
+  { key: 'first', header: 'First sound', about: 'First-sound arrival after the pulse onset', ladder: 'time', value: (s) => s.firstSoundArrival_s },
+  { key: 'second', header: 'Second sound', about: 'Second-sound arrival after the pulse onset, with the sensor lag', ladder: 'time', value: (s) => s.secondSoundArrival_s },
+  { key: 'amplitude', header: 'δT peak', about: 'Peak temperature swing of the direct pulse at the sensor', ladder: 'temperatureDifference', value: (s) => s.amplitude_K },
+  { key: 'signal', header: 'Signal', about: 'Peak signal: δT × responsivity', ladder: 'voltage', value: (s) => s.signal_V },
   { key: 'snr1', header: 'SNR, 1 pulse', about: 'Peak signal over rms noise, one pulse', ladder: null, value: (s) => s.snrSingle, digits: 3 },
   { key: 'snrN', header: 'SNR, averaged', about: 'Peak signal over rms noise after averaging', ladder: null, value: (s) => s.snrAveraged, digits: 3 },
   { key: 'pulses', header: 'Pulses for target SNR', about: 'Pulses to average to reach the target SNR', ladder: null, value: (s) => s.pulsesForTargetSnr, count: true },
-  { key: 'timing', header: 'Timing sd', about: 'One-sigma arrival time of one averaged reading', ladder: LADDERS.time, value: (s) => s.timingSd_s, digits: 2 },
-  { key: 'tsd', header: 'T sd', about: 'One-sigma temperature from one reading (timing and distance)', ladder: LADDERS.temperatureDifference, value: (s) => s.temperatureSd_K, digits: 2 },
-  { key: 'tchange', header: 'T sd, changes', about: 'One-sigma of a temperature change between readings (timing only)', ladder: LADDERS.temperatureDifference, value: (s) => s.temperatureChangeSd_K, digits: 2 },
-  { key: 'shortest', header: 'Shortest distance for target', about: 'Shortest path that reaches the target temperature sd with this timing', ladder: LADDERS.length, value: (s) => s.shortestDistanceForTarget_m, digits: 3 },
+  { key: 'timing', header: 'Timing sd', about: 'One-sigma arrival time of one averaged reading', ladder: 'time', uncertainty: true, value: (s) => s.timingSd_s, digits: 2 },
+  { key: 'tsd', header: 'T sd', about: 'One-sigma temperature from one reading (timing and distance)', ladder: 'temperatureDifference', value: (s) => s.temperatureSd_K, digits: 2 },
+  { key: 'tchange', header: 'T sd, changes', about: 'One-sigma of a temperature change between readings (timing only)', ladder: 'temperatureDifference', value: (s) => s.temperatureChangeSd_K, digits: 2 },
+  { key: 'shortest', header: 'Shortest distance for target', about: 'Shortest path that reaches the target temperature sd with this timing', ladder: 'length', value: (s) => s.shortestDistanceForTarget_m, digits: 3 },
 ];
 
 /** Every sensor's arrivals, signal, noise and temperature resolution, one row per sensor. */
 export function ResultsTable() {
   const outcome = usePlanOutcome();
   const theme = useResolvedTheme();
+  const ladders = useShownLadders();
   if (!outcome.ok) return null;
   const sensors = outcome.result.sensors;
-  const units = COLUMNS.map((c) => (c.ladder ? unitForColumn(sensors.map(c.value), c.ladder) : null));
+  const units = COLUMNS.map((c) => (c.ladder ? unitForColumn(sensors.map(c.value), (c.uncertainty ? LADDERS : ladders)[c.ladder]) : null));
   return (
     <section className="card plan-results" aria-labelledby="planner-results-title">
       <div className="card-head">
         <h3 id="planner-results-title" className="card-title">
           Results per sensor
         </h3>
-        <p className="muted">Linear theory at {outcome.result.temperature_K.toFixed(4)} K; “—” where there is no second sound.</p>
+        <p className="muted">Linear theory at {temperatureText(outcome.result.temperature_K, ladders.temperature)}; “—” where there is no second sound.</p>
         <CsvExportButton table={() => resultsCsv(outcome.result)} fileName="planned-results-per-sensor.csv" what="the results per sensor" />
       </div>
       <div className="table-scroll">

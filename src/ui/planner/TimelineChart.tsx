@@ -7,8 +7,10 @@ import type { TimelineView } from '../store/planner-slice';
 import { useResolvedTheme } from '../theme/use-theme';
 import { PLANNER_COLOURS } from './planner-colours';
 import { reportDrawn } from './recompute-timer';
-import { formatMs, type TimelineKeyEntry, timelineFigure } from './timeline-figure';
+import { type DisplayUnit, inUnit } from './display-units';
+import { formatTime, type TimelineKeyEntry, timelineFigure } from './timeline-figure';
 import { usePlanOutcome } from './use-plan';
+import { useShownLadders } from './use-shown-ladders';
 import { useElementWidth } from '../layout/use-element-width';
 
 /** Chart id of the timeline (tests read the drawn figure from the element with this data-chart). */
@@ -30,12 +32,13 @@ export function TimelineChart() {
   const [box, width] = useElementWidth<HTMLDivElement>(900);
   const columns = Math.max(100, width - PLOT_MARGIN_PX);
   const result = outcome.ok ? outcome.result : null;
-  const figure = useMemo(() => (result ? timelineFigure(result, view, columns) : null), [result, view, columns]);
+  const timeUnit = useShownLadders().time[0] as DisplayUnit;
+  const figure = useMemo(() => (result ? timelineFigure(result, view, columns, timeUnit) : null), [result, view, columns, timeUnit]);
   if (!result || !figure) return null;
   const second = result.sensors.filter((s) => s.secondSoundArrival_s !== null);
   const summary =
     second.length > 0
-      ? `Second sound arrives at ${second.map((s) => `${s.id} ${formatMs(s.secondSoundArrival_s as number)}`).join(', ')}.`
+      ? `Second sound arrives at ${second.map((s) => `${s.id} ${formatTime(s.secondSoundArrival_s as number, timeUnit)}`).join(', ')}.`
       : 'No second sound (He I): only first sound arrives.';
   return (
     <ChartFigure
@@ -56,7 +59,7 @@ export function TimelineChart() {
             {v.label}
           </button>
         ))}
-        <span className="field-hint">{spanText(figure.range_s)}</span>
+        <span className="field-hint">{spanText(figure.range_s, timeUnit)}</span>
       </fieldset>
       <div ref={box} className="timeline-box">
         <PlotlyChart
@@ -72,10 +75,10 @@ export function TimelineChart() {
   );
 }
 
-/** "−0.153 to 3.05 ms": the span shown, in milliseconds. */
-function spanText([from, to]: [number, number]): string {
-  const ms = (t: number) => String(Number((t * 1e3).toPrecision(3))).replace(/^-/, '\u2212');
-  return `${ms(from)} to ${ms(to)} ms`;
+/** "−0.153 to 3.05 ms": the span shown, in the chosen time unit. */
+function spanText([from, to]: [number, number], unit: DisplayUnit): string {
+  const text = (t: number) => String(Number(inUnit(t, unit).toPrecision(3))).replace(/^-/, '\u2212');
+  return `${text(from)} to ${text(to)} ${unit.shown}`;
 }
 
 /** The chart's key in HTML: what each colour and line style means. */

@@ -1,6 +1,8 @@
 import type { PlanWarning } from '../../physics';
+import { CsvExportButton } from '../export/CsvExportButton';
 import { usePlanOutcome } from './use-plan';
-import { warningFigures } from './warning-figures';
+import { useShownLadders } from './use-shown-ladders';
+import { warningFigures, warningsCsv } from './warning-figures';
 
 const SEVERITY_ORDER: Record<PlanWarning['severity'], number> = { stop: 0, caution: 1, info: 2 };
 const SEVERITY_TEXT: Record<PlanWarning['severity'], string> = { stop: 'Stop', caution: 'Caution', info: 'Note' };
@@ -28,6 +30,7 @@ export function WarningCounts() {
 /** The plan's warnings, most severe first: icon and word for the severity, message, the number and its limit, the sensor. */
 export function WarningsList() {
   const outcome = usePlanOutcome();
+  const ladders = useShownLadders();
   if (!outcome.ok) return null;
   const labels = new Map(outcome.result.sensors.map((s) => [s.id, s.label]));
   const warnings = [...outcome.result.warnings].sort((a, b) => SEVERITY_ORDER[a.severity] - SEVERITY_ORDER[b.severity]);
@@ -46,6 +49,12 @@ export function WarningsList() {
             </span>
           ))}
         </p>
+        <CsvExportButton
+          table={() => warningsCsv(warnings, labels)}
+          fileName="plan-warnings.csv"
+          what="the plan's warnings"
+          disabled={warnings.length === 0}
+        />
       </div>
       {warnings.length === 0 ? (
         <p className="muted">Nothing to warn about for this plan.</p>
@@ -63,7 +72,7 @@ export function WarningsList() {
                 <p className="warning__message">{w.message}</p>
                 <p className="warning__figures">
                   {w.sensorId !== null ? <span className="warning__sensor">Sensor {labels.get(w.sensorId) ?? w.sensorId} ({w.sensorId}) · </span> : null}
-                  {warningFigures(w)}
+                  {warningFigures(w, ladders)}
                 </p>
               </div>
             </li>

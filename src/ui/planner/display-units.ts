@@ -3,9 +3,10 @@
  * value is shown in the largest unit that keeps its number at or above 1 ("100 µs", "9.97 mm").
  * Temperatures, lengths, times, pressures and heat fluxes are shown instead in the unit chosen in
  * the header (src/ui/units), as in every view: {@link chosenLadders} swaps their ladders for that
- * one unit. Uncertainties (a timing or distance sd) and temperature differences keep the ladder, as
- * they are orders of magnitude smaller than the values, and so do messages and valid ranges
- * ("10 ns–10 s" reads better than "0.00001–10000 ms").
+ * one unit. Uncertainties (a timing or distance sd), instrument time constants (rise time, sensor
+ * lag) and temperature differences keep the ladder, as they are orders of magnitude smaller than
+ * the values they go with, and so do messages and valid ranges ("10 ns–10 s" reads better than
+ * "0.00001–10000 ms").
  * Conversion uses src/io/quantity.ts, so what is shown can be typed back unchanged.
  */
 import { type Dimension, fromBaseUnit, type Unit } from '../../io/quantity';
@@ -58,6 +59,8 @@ export const KINDS = {
   /** An uncertainty of a length: shown on the ladder, not in the chosen unit. */
   lengthSd: { dimension: 'length', ladder: LADDERS.length, zero: LADDERS.length[1], example: '0.1 mm' },
   time: { dimension: 'time', ladder: LADDERS.time, zero: LADDERS.time[2], example: '100 us', follows: 'time' },
+  /** An instrument's time constant (rise time, sensor lag): on the ladder, like an uncertainty. */
+  timeConstant: { dimension: 'time', ladder: LADDERS.time, zero: LADDERS.time[2], example: '1 us' },
   area: { dimension: 'area', ladder: LADDERS.area, zero: LADDERS.area[2], example: '1 cm2 or 2 mm2' },
   frequency: { dimension: 'frequency', ladder: LADDERS.frequency, example: '5 Hz' },
   sampleRate: { dimension: 'frequency', ladder: LADDERS.sampleRate, example: '10 MS/s' },

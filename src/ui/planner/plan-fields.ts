@@ -170,7 +170,7 @@ export const HEATER_FIELDS = {
   power: heaterField('power_W', 'power', 'Peak power', KINDS.power, PLAN_LIMITS.power_W),
   flux: heaterField('flux_W_m2', 'flux', 'Peak heat flux', KINDS.heatFlux, FLUX_RANGE_W_M2),
   width: heaterField('width_s', 'width', 'Pulse width', KINDS.time, PULSE_WIDTH_RANGE_S),
-  riseTime: heaterField('riseTime_s', 'riseTime', 'Rise time', KINDS.time, (p) => {
+  riseTime: heaterField('riseTime_s', 'riseTime', 'Rise time', KINDS.timeConstant, (p) => {
     const width = p.heater.width_s ?? PULSE_WIDTH_RANGE_S[1];
     return [width * 1e-6, width];
   }, { rangeNote: 'a millionth of the pulse width up to the width' }),
@@ -250,7 +250,7 @@ export function sensorFields(index: number, rowKey: string) {
     area: field('area_m2', 'area', 'area', KINDS.area, PLAN_LIMITS.sensorArea_m2),
     responsivity: field('responsivity_V_K', 'responsivity', 'responsivity', KINDS.responsivity, PLAN_LIMITS.responsivity_V_K),
     noise: field('noise_V', 'noise', 'noise', KINDS.voltage, PLAN_LIMITS.noise_V),
-    lag: field('lag_s', 'lag', 'lag', KINDS.time, PLAN_LIMITS.lag_s),
+    lag: field('lag_s', 'lag', 'lag', KINDS.timeConstant, PLAN_LIMITS.lag_s),
   } satisfies Record<string, NumberField>;
 }
 

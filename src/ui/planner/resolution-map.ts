@@ -13,7 +13,7 @@
 import { SECOND_SOUND_EXTREMA, secondSound, secondSoundSlope, T_LAMBDA_K, temperatureSpread } from '../../physics';
 import { axis, baseLayout, CHART_COLOURS } from '../charts/chart-theme';
 import type { PlotAnnotation, PlotLayout, PlotShape, PlotTrace } from '../plot/plotly-types';
-import { LADDERS, messageText, readText } from './display-units';
+import { type DisplayUnit, inUnit, LADDERS, messageText, plainNumber, readText, temperatureText } from './display-units';
 import { bandColours, PLANNER_COLOURS } from './planner-colours';
 
 /** Temperatures shown, K: from where second sound is a measured wave well into He II, up to just below Tλ. */
@@ -143,27 +143,48 @@ export interface MapMarks {
   target_K: number;
 }
 
-const MM = 1e3;
+/** The units the map is drawn in: the header's chosen temperature and length units. */
+export interface MapUnits {
+  temperature: DisplayUnit;
+  length: DisplayUnit;
+}
+
+const KELVIN_MM: MapUnits = { temperature: { shown: 'K', unit: 'K' }, length: { shown: 'mm', unit: 'mm' } };
 
 function levelText(L: number): string {
   return messageText(L, LADDERS.temperatureDifference);
 }
 
-/** Distance ticks, mm: 1–2–5 steps, labelled plainly (a log axis would label every minor step). */
-const DISTANCE_TICKS_MM = [0.1, 0.2, 0.5, 1, 2, 5, 10, 20, 50, 100, 200, 500, 1000, 2000, 5000];
+/** Distance ticks, m: 1–2–5 steps, labelled plainly (a log axis would label every minor step). */
+const DISTANCE_TICKS_M = [1e-4, 2e-4, 5e-4, 1e-3, 2e-3, 5e-3, 0.01, 0.02, 0.05, 0.1, 0.2, 0.5, 1, 2, 5];
 
-/** The map as a Plotly figure: filled bands, the target iso-line, insensitive spots, the planned point. */
-export function mapFigure(grid: MapGrid, marks: MapMarks): { data: PlotTrace[]; layout: PlotLayout; levels: number[] } {
+/** Scales for the axes: temperature (x) and distance (y) in the shown units. */
+interface MapScale {
+  toX: (T_K: number) => number;
+  toY: (d_m: number) => number;
+}
+
+/**
+ * The map as a Plotly figure: filled bands, the target iso-line, insensitive spots, the planned
+ * point; temperatures and distances in `units` (K and mm unless the header chose others).
+ */
+export function mapFigure(grid: MapGrid, marks: MapMarks, units: MapUnits = KELVIN_MM): { data: PlotTrace[]; layout: PlotLayout; levels: number[] } {
   const levels = mapLevels(grid);
   const colours = bandColours(levels.length + 1);
-  const T = grid.temperature_K;
+  const scale: MapScale = { toX: (t) => inUnit(t, units.temperature), toY: (d) => inUnit(d, units.length) };
+  const { toX, toY } = scale;
+  const tu = units.temperature.shown;
+  const lu = units.length.shown;
+  // Hover temperatures to 1 mK.
+  const xHover = units.temperature.unit === 'K' ? '%{x:.3f}' : '%{x:.0f}';
+  const T = grid.temperature_K.map(toX);
   const dMin = grid.distance_m[0] as number;
   const dMax = grid.distance_m[grid.distance_m.length - 1] as number;
   const edge = (name: string, d: number): PlotTrace => ({
     type: 'scatter',
     name,
     x: [T[0] as number, T[T.length - 1] as number],
-    y: [d * MM, d * MM],
+    y: [toY(d), toY(d)],
     mode: 'lines',
     line: { width: 0, color: 'rgba(0,0,0,0)' },
     hoverinfo: 'skip',
@@ -175,37 +196,37 @@ export function mapFigure(grid: MapGrid, marks: MapMarks): { data: PlotTrace[]; 
       type: 'scatter',
       name: `σT = ${levelText(L)}`,
       x: T,
-      y: grid.sd_K.map((column) => isoDistance(column, grid.distance_m, L) * MM),
+      y: grid.sd_K.map((column) => toY(isoDistance(column, grid.distance_m, L))),
       mode: 'lines',
       line: { color: 'rgba(16, 34, 58, 0.28)', width: 0.6 },
       fill: 'tonexty',
       fillcolor: colours[k] as string,
-      hovertemplate: `σT = ${levelText(L)} at %{x:.3f} K from %{y:.3g} mm<extra></extra>`,
+      hovertemplate: `σT = ${levelText(L)} at ${xHover} ${tu} from %{y:.3g} ${lu}<extra></extra>`,
       showlegend: false,
     });
   });
   data.push({ ...edge('bottom edge', dMin), fill: 'tonexty', fillcolor: colours[levels.length] as string });
-  data.push(colourBarTrace(levels, colours));
-  data.push(...insensitiveTraces(grid));
+  data.push(colourBarTrace(levels, colours, scale));
+  data.push(...insensitiveTraces(grid, scale));
   data.push({
     type: 'scatter',
     name: `Target σT = ${levelText(marks.target_K)}`,
     x: T,
-    y: grid.sd_K.map((column) => isoDistance(column, grid.distance_m, marks.target_K) * MM),
+    y: grid.sd_K.map((column) => toY(isoDistance(column, grid.distance_m, marks.target_K))),
     mode: 'lines',
     line: { color: PLANNER_COLOURS.target, width: 2.4, dash: 'dash' },
-    hovertemplate: `target σT = ${levelText(marks.target_K)} reached from %{y:.3g} mm at %{x:.3f} K<extra></extra>`,
+    hovertemplate: `target σT = ${levelText(marks.target_K)} reached from %{y:.3g} ${lu} at ${xHover} ${tu}<extra></extra>`,
   });
   if (marks.planned) {
     const p = marks.planned;
     data.push({
       type: 'scatter',
       name: 'Planned',
-      x: [p.temperature_K],
-      y: [p.distance_m * MM],
+      x: [toX(p.temperature_K)],
+      y: [toY(p.distance_m)],
       mode: 'markers',
       marker: { color: PLANNER_COLOURS.planned, size: 13, symbol: 'diamond', line: { color: '#ffffff', width: 1.5 } },
-      text: [`${p.label}: ${p.temperature_K.toFixed(4)} K, ${Number((p.distance_m * MM).toPrecision(4))} mm, σT ≈ ${p.sd_K === null ? '—' : readText(p.sd_K, LADDERS.temperatureDifference, 2)}`],
+      text: [`${p.label}: ${temperatureText(p.temperature_K, [units.temperature])}, ${Number(toY(p.distance_m).toPrecision(4))} ${lu}, σT ≈ ${p.sd_K === null ? '—' : readText(p.sd_K, LADDERS.temperatureDifference, 2)}`],
       hovertemplate: '%{text}<extra></extra>',
       cliponaxis: false,
     });
@@ -216,22 +237,22 @@ export function mapFigure(grid: MapGrid, marks: MapMarks): { data: PlotTrace[]; 
     dragmode: false,
     showlegend: true,
     legend: { orientation: 'h', x: 0, y: 1.01, xanchor: 'left', yanchor: 'bottom', font: { size: 12 } },
-    xaxis: axis('Bath temperature T (K)', { range: MAP_TEMPERATURE_RANGE_K, fixedrange: true }),
-    yaxis: axis('Heater–sensor distance (mm)', {
+    xaxis: axis(`Bath temperature T (${tu})`, { range: [toX(MAP_TEMPERATURE_RANGE_K[0]), toX(MAP_TEMPERATURE_RANGE_K[1])], fixedrange: true }),
+    yaxis: axis(`Heater–sensor distance (${lu})`, {
       type: 'log',
-      range: [Math.log10(dMin * MM), Math.log10(dMax * MM)],
+      range: [Math.log10(toY(dMin)), Math.log10(toY(dMax))],
       fixedrange: true,
-      tickvals: DISTANCE_TICKS_MM,
-      ticktext: DISTANCE_TICKS_MM.map(String),
+      tickvals: DISTANCE_TICKS_M.map(toY),
+      ticktext: DISTANCE_TICKS_M.map((d) => plainNumber(toY(d))),
     }),
-    shapes: plannedLines(marks),
-    annotations: extremumLabels(),
+    shapes: plannedLines(marks, scale),
+    annotations: extremumLabels(units.temperature),
   };
   return { data, layout, levels };
 }
 
 /** A hidden trace that carries the colour bar: one colour per band, labels at the band edges. */
-function colourBarTrace(levels: readonly number[], colours: readonly string[]): PlotTrace {
+function colourBarTrace(levels: readonly number[], colours: readonly string[], { toX, toY }: MapScale): PlotTrace {
   const n = colours.length;
   const scale: [number, string][] = colours.flatMap((c, k): [number, string][] => [
     [k / n, c],
@@ -240,8 +261,8 @@ function colourBarTrace(levels: readonly number[], colours: readonly string[]): 
   return {
     type: 'scatter',
     name: 'colour bar',
-    x: [MAP_TEMPERATURE_RANGE_K[0]],
-    y: [MAP_DISTANCE_RANGE_M[0] * MM],
+    x: [toX(MAP_TEMPERATURE_RANGE_K[0])],
+    y: [toY(MAP_DISTANCE_RANGE_M[0])],
     mode: 'markers',
     marker: {
       color: [0],
@@ -270,7 +291,7 @@ function colourBarTrace(levels: readonly number[], colours: readonly string[]): 
  * Where the kernel calls a reading insensitive (near the extremes of u2, the curvature bound
  * governs): for each temperature, the distances below which that holds, as shaded regions.
  */
-function insensitiveTraces(grid: MapGrid): PlotTrace[] {
+function insensitiveTraces(grid: MapGrid, { toX, toY }: MapScale): PlotTrace[] {
   const runs: { T: number[]; d: number[] }[] = [];
   let run: { T: number[]; d: number[] } | null = null;
   grid.insensitiveUpTo_m.forEach((upTo, i) => {
@@ -282,7 +303,7 @@ function insensitiveTraces(grid: MapGrid): PlotTrace[] {
       run = { T: [], d: [] };
       runs.push(run);
     }
-    run.T.push(grid.temperature_K[i] as number);
+    run.T.push(toX(grid.temperature_K[i] as number));
     run.d.push(upTo);
   });
   const dMin = grid.distance_m[0] as number;
@@ -292,7 +313,7 @@ function insensitiveTraces(grid: MapGrid): PlotTrace[] {
     legendgroup: 'insensitive',
     showlegend: k === 0,
     x: [...r.T, ...[...r.T].reverse()],
-    y: [...r.d.map((d) => d * MM), ...r.T.map(() => dMin * MM)],
+    y: [...r.d.map(toY), ...r.T.map(() => toY(dMin))],
     mode: 'lines',
     fill: 'toself',
     fillcolor: PLANNER_COLOURS.insensitiveFill,
@@ -301,27 +322,28 @@ function insensitiveTraces(grid: MapGrid): PlotTrace[] {
   }));
 }
 
-function plannedLines(marks: MapMarks): PlotShape[] {
+function plannedLines(marks: MapMarks, { toX, toY }: MapScale): PlotShape[] {
   if (!marks.planned) return [];
-  const { temperature_K, distance_m } = marks.planned;
+  const temperature = toX(marks.planned.temperature_K);
+  const distance = toY(marks.planned.distance_m);
   const line = { color: PLANNER_COLOURS.planned, width: 1, dash: 'dot' as const };
   return [
-    { name: 'planned-temperature', type: 'line', xref: 'x', yref: 'paper', x0: temperature_K, x1: temperature_K, y0: 0, y1: 1, line, layer: 'above' },
-    { name: 'planned-distance', type: 'line', xref: 'paper', yref: 'y', x0: 0, x1: 1, y0: distance_m * MM, y1: distance_m * MM, line, layer: 'above' },
+    { name: 'planned-temperature', type: 'line', xref: 'x', yref: 'paper', x0: temperature, x1: temperature, y0: 0, y1: 1, line, layer: 'above' },
+    { name: 'planned-distance', type: 'line', xref: 'paper', yref: 'y', x0: 0, x1: 1, y0: distance, y1: distance, line, layer: 'above' },
   ];
 }
 
-function extremumLabels(): PlotAnnotation[] {
+function extremumLabels(unit: DisplayUnit): PlotAnnotation[] {
   const { minimum, maximum } = SECOND_SOUND_EXTREMA;
   return [
     { kind: 'min', at: minimum.temperature_K },
     { kind: 'max', at: maximum.temperature_K },
   ].map(({ kind, at }) => ({
     name: `u2-${kind}`,
-    text: `u₂ ${kind} ${at.toFixed(2)} K`,
+    text: `u₂ ${kind} ${temperatureText(at, [unit], 0.01)}`,
     xref: 'x',
     yref: 'paper',
-    x: at,
+    x: inUnit(at, unit),
     y: 0.02,
     xanchor: 'center',
     yanchor: 'bottom',

@@ -11,7 +11,8 @@ import { decimateSegments } from './decimate';
 import { type DisplayUnit, inUnit, LADDERS, unitForColumn } from './display-units';
 import { PLANNER_COLOURS, sensorColour } from './planner-colours';
 
-const MS = 1e3;
+/** The time axis before a unit is chosen. */
+const MILLISECONDS: DisplayUnit = { shown: 'ms', unit: 'ms' };
 /** Fraction of the plot height given to the sensors (bottom) and the heater (top). */
 const SENSOR_DOMAIN: [number, number] = [0, 0.76];
 const HEATER_DOMAIN: [number, number] = [0.84, 1];
@@ -115,10 +116,13 @@ function peakOf(sensor: SensorPlanResult): { min: number; max: number } {
 
 /**
  * The figure for a plan result. `columns` is the plot's width in pixels: each waveform is cut to
- * at most about two points per pixel column before Plotly sees it.
+ * at most about two points per pixel column before Plotly sees it. Times are shown in `timeUnit`
+ * (the header's chosen unit).
  */
-export function timelineFigure(result: PlanResult, view: TimelineView, columns: number): TimelineFigure {
+export function timelineFigure(result: PlanResult, view: TimelineView, columns: number, timeUnit: DisplayUnit = MILLISECONDS): TimelineFigure {
   const [from, to] = timelineRange(result, view);
+  const inTime = (t_s: number) => inUnit(t_s, timeUnit);
+  const tu = timeUnit.shown;
   const peaks = result.sensors.map(peakOf);
   const amplitudeUnit = unitForColumn(
     peaks.flatMap((p) => [p.min, p.max]),
@@ -139,18 +143,18 @@ export function timelineFigure(result: PlanResult, view: TimelineView, columns: 
     {
       type: 'scatter',
       name: 'Heater flux',
-      x: heaterLine.t.map((t) => t * MS),
+      x: heaterLine.t.map(inTime),
       y: heaterLine.v,
       mode: 'lines',
       yaxis: 'y2',
       fill: 'tozeroy',
       fillcolor: PLANNER_COLOURS.heaterFill,
       line: { color: PLANNER_COLOURS.heater, width: 1.4 },
-      hovertemplate: 't = %{x:.4g} ms<br>heater at %{y:.0%} of peak<extra></extra>',
+      hovertemplate: `t = %{x:.4g} ${tu}<br>heater at %{y:.0%} of peak<extra></extra>`,
     },
   ];
-  const shapes: PlotShape[] = [recordWindow(result)];
-  const marks: { t_ms: number; colour: string; symbol: string; text: string }[] = [];
+  const shapes: PlotShape[] = [recordWindow(result, inTime)];
+  const marks: { t: number; colour: string; symbol: string; text: string }[] = [];
   const lines: Record<ArrivalKind, number[]> = { 'first sound': [], 'second sound': [], echo: [] };
   result.sensors.forEach((sensor, i) => {
     const colour = sensorColour(i);
@@ -160,16 +164,16 @@ export function timelineFigure(result: PlanResult, view: TimelineView, columns: 
       type: 'scatter',
       name,
       legendgroup: sensor.id,
-      x: line.t.map((t) => t * MS),
+      x: line.t.map(inTime),
       y: line.v.map(scale),
       mode: 'lines',
       line: { color: colour, width: 1.6 },
-      hovertemplate: `${escapeHover(sensor.id)}: t = %{x:.4g} ms, δT = %{y:.3g} ${amplitudeUnit.shown}<extra></extra>`,
+      hovertemplate: `${escapeHover(sensor.id)}: t = %{x:.4g} ${tu}, δT = %{y:.3g} ${amplitudeUnit.shown}<extra></extra>`,
     });
     const arrivals = arrivalsOf(sensor).filter((a) => a.t_s >= from && a.t_s <= to);
     for (const a of arrivals) {
-      marks.push({ t_ms: a.t_s * MS, colour, symbol: MARKER_STYLE[a.kind].symbol, text: `${escapeHover(sensor.id)} · ${a.detail}: ${formatMs(a.t_s)}` });
-      lines[a.kind].push(a.t_s * MS);
+      marks.push({ t: inTime(a.t_s), colour, symbol: MARKER_STYLE[a.kind].symbol, text: `${escapeHover(sensor.id)} · ${a.detail}: ${formatTime(a.t_s, timeUnit)}` });
+      lines[a.kind].push(inTime(a.t_s));
     }
   });
 
@@ -196,7 +200,7 @@ export function timelineFigure(result: PlanResult, view: TimelineView, columns: 
     type: 'scatter',
     name: 'Arrivals',
     showlegend: false,
-    x: marks.map((m) => m.t_ms),
+    x: marks.map((m) => m.t),
     y: marks.map(() => markerY),
     mode: 'markers',
     marker: { color: marks.map((m) => m.colour), size: 9, symbol: marks.map((m) => m.symbol), line: { color: marks.map((m) => m.colour), width: 1.2 } },
@@ -211,11 +215,11 @@ export function timelineFigure(result: PlanResult, view: TimelineView, columns: 
     dragmode: 'zoom',
     // The key is drawn in HTML beside the chart (TimelineKey): cheaper to redraw while typing.
     showlegend: false,
-    xaxis: axis('Time after the heater pulse starts (ms)', { range: [from * MS, to * MS], fixedrange: true, anchor: 'y', zeroline: true }),
+    xaxis: axis(`Time after the heater pulse starts (${tu})`, { range: [inTime(from), inTime(to)], fixedrange: true, anchor: 'y', zeroline: true }),
     yaxis: axis(`δT at sensor (${amplitudeUnit.shown})`, { domain: SENSOR_DOMAIN, range: yRange, anchor: 'x' }),
     yaxis2: axis('Heater', { domain: HEATER_DOMAIN, range: [0, 1.15], anchor: 'x', showticklabels: false, fixedrange: true, ticks: '' }),
     shapes,
-    annotations: recordLabels(result, from, to),
+    annotations: recordLabels(result, from, to, inTime),
   };
   const key: TimelineKeyEntry[] = [
     { label: 'Heater flux', colour: PLANNER_COLOURS.heater, kind: 'fill' },
@@ -225,14 +229,14 @@ export function timelineFigure(result: PlanResult, view: TimelineView, columns: 
   return { data, key, layout, range_s: [from, to], amplitudeUnit };
 }
 
-function recordWindow(result: PlanResult): PlotShape {
+function recordWindow(result: PlanResult, inTime: (t_s: number) => number): PlotShape {
   return {
     name: 'record-window',
     type: 'rect',
     xref: 'x',
     yref: 'paper',
-    x0: result.record.start_s * MS,
-    x1: result.record.end_s * MS,
+    x0: inTime(result.record.start_s),
+    x1: inTime(result.record.end_s),
     y0: 0,
     y1: 1,
     fillcolor: PLANNER_COLOURS.recordFill,
@@ -242,14 +246,14 @@ function recordWindow(result: PlanResult): PlotShape {
 }
 
 /** "record starts" / "record ends" labels where the window's edges are in view. */
-function recordLabels(result: PlanResult, from: number, to: number): PlotAnnotation[] {
+function recordLabels(result: PlanResult, from: number, to: number, inTime: (t_s: number) => number): PlotAnnotation[] {
   const labels: PlotAnnotation[] = [];
   const edge = (name: string, t: number, text: string, xanchor: 'left' | 'right', y: number): PlotAnnotation => ({
     name,
     text,
     xref: 'x',
     yref: 'paper',
-    x: t * MS,
+    x: inTime(t),
     y,
     xanchor,
     yanchor: 'top',
@@ -262,9 +266,10 @@ function recordLabels(result: PlanResult, from: number, to: number): PlotAnnotat
   return labels;
 }
 
-/** A time in ms or µs for hover text. */
-export function formatMs(t_s: number): string {
-  return Math.abs(t_s) >= 1e-3 ? `${Number((t_s * 1e3).toPrecision(4))} ms` : `${Number((t_s * 1e6).toPrecision(4))} µs`;
+/** A time for hover text and summaries, four digits, in `unit` (default: ms, or µs below 1 ms). */
+export function formatTime(t_s: number, unit?: DisplayUnit): string {
+  const shown = unit ?? (Math.abs(t_s) >= 1e-3 ? MILLISECONDS : { shown: 'µs', unit: 'µs' });
+  return `${Number(inUnit(t_s, shown).toPrecision(4))} ${shown.shown}`;
 }
 
 /** Plotly hover text treats < and > as markup; user labels must not. */

@@ -4,7 +4,8 @@ import type { PlanFile } from '../../io/plan-file';
 import type { PlanResult, SensorPlanResult } from '../../physics';
 import { formatSignificant } from '../format/format-number';
 import { derivePlan } from '../planner/derive-plan';
-import { type Ladder, LADDERS, readText } from '../planner/display-units';
+import { type Ladder, LADDERS, readText, type ShownLadders, temperatureText } from '../planner/display-units';
+import { useShownLadders } from '../planner/use-shown-ladders';
 import { useSekundoStore } from '../store';
 import { useWorkspaceStore } from './workspace-store';
 
@@ -132,17 +133,18 @@ export function SetupSheet({ plan, headingRef }: { plan: PlanFile; headingRef?: 
 }
 
 function PlanSummary({ plan, result, vapour_Pa }: { plan: PlanFile; result: PlanResult; vapour_Pa: number | null }) {
+  const L = useShownLadders();
   const h = plan.heater;
   const shape = typeof h.shape === 'string' ? h.shape : `custom (${h.shape.custom.length} points)`;
   const rows: [string, string][] = [
-    ['Bath temperature (T90)', `${result.temperature_K.toFixed(4)} K${vapour_Pa !== null ? ` (from a vapour pressure of ${formatSignificant(vapour_Pa, 5)} Pa)` : ''}`],
-    ['Liquid above the setup', `${q(plan.bath.liquidDepth_m, LADDERS.length)} (head ${formatSignificant(result.headPressure_Pa, 3)} Pa)`],
-    ['Heater', `${h.geometry}, ${h.geometry === 'disk' ? `radius ${q(h.radius_m, LADDERS.length)}` : `area ${q(h.area_m2, LADDERS.area)}`}`],
-    ['Pulse', `${shape}${h.width_s !== undefined ? `, width ${q(h.width_s, LADDERS.time)}` : ''}, peak ${q(result.heater.power_W, LADDERS.power)} (${q(result.heater.flux_W_m2, LADDERS.heatFlux)})`],
+    ['Bath temperature (T90)', `${temperatureText(result.temperature_K, L.temperature)}${vapour_Pa !== null ? ` (from a vapour pressure of ${readText(vapour_Pa, L.pressure, 5)})` : ''}`],
+    ['Liquid above the setup', `${q(plan.bath.liquidDepth_m, L.length)} (head ${q(result.headPressure_Pa, L.pressure, 3)})`],
+    ['Heater', `${h.geometry}, ${h.geometry === 'disk' ? `radius ${q(h.radius_m, L.length)}` : `area ${q(h.area_m2, LADDERS.area)}`}`],
+    ['Pulse', `${shape}${h.width_s !== undefined ? `, width ${q(h.width_s, L.time)}` : ''}, peak ${q(result.heater.power_W, LADDERS.power)} (${q(result.heater.flux_W_m2, L.heatFlux)})`],
     ['Repetition and averaging', `${n(h.repetitionRate_Hz, 4)} Hz, ${h.averages} pulses averaged; ${energy(result.heater.energyPerPulse_J)} per pulse, mean power ${q(result.heater.averagePower_W, LADDERS.power)}`],
-    ['Digitiser', `${q(plan.digitiser.sampleRate_Hz, LADDERS.sampleRate)}, record ${q(plan.digitiser.recordLength_s, LADDERS.time)}, pre-trigger ${q(plan.digitiser.preTrigger_s, LADDERS.time)}`],
+    ['Digitiser', `${q(plan.digitiser.sampleRate_Hz, LADDERS.sampleRate)}, record ${q(plan.digitiser.recordLength_s, L.time)}, pre-trigger ${q(plan.digitiser.preTrigger_s, L.time)}`],
     ['Spacer', `${plan.spacer.materialId}; distances measured ${plan.spacer.measuredWarm ? 'warm (contraction applied)' : 'cold'}`],
-    ['Reflecting planes', plan.reflectors.length === 0 ? 'none' : plan.reflectors.map((r) => `${r.label} (${r.axis} = ${r.position_m === 0 ? '0 mm' : q(r.position_m, LADDERS.length)}, r = ${n(r.reflection)})`).join('; ')],
+    ['Reflecting planes', plan.reflectors.length === 0 ? 'none' : plan.reflectors.map((r) => `${r.label} (${r.axis} = ${q(r.position_m, L.length)}, r = ${n(r.reflection)})`).join('; ')],
     ['Targets', `SNR ${n(plan.targets.snr)}, temperature sd ${q(plan.targets.temperatureSd_K, LADDERS.temperatureDifference)}`],
   ];
   return (
@@ -162,12 +164,13 @@ function PlanSummary({ plan, result, vapour_Pa }: { plan: PlanFile; result: Plan
   );
 }
 
-function firstEcho(s: SensorPlanResult): string {
+function firstEcho(s: SensorPlanResult, L: ShownLadders): string {
   const e = s.echoes[0];
-  return e ? `${q(e.arrival_s, LADDERS.time)} (${s.echoes.length})` : '—';
+  return e ? `${q(e.arrival_s, L.time)} (${s.echoes.length})` : '—';
 }
 
 function Arrivals({ result }: { result: PlanResult }) {
+  const L = useShownLadders();
   return (
     <section className="sheet-section">
       <h3>Expected arrivals and amplitudes</h3>
@@ -191,11 +194,11 @@ function Arrivals({ result }: { result: PlanResult }) {
                 {s.label} <span className="sheet-id">({s.id})</span>
               </th>
               <td>
-                {q(s.pathLength_m, LADDERS.length)} ± {q(s.pathLengthSd_m, LADDERS.length, 2)}
+                {q(s.pathLength_m, L.length)} ± {q(s.pathLengthSd_m, L.length, 2)}
               </td>
-              <td>{q(s.firstSoundArrival_s, LADDERS.time)}</td>
-              <td>{q(s.secondSoundArrival_s, LADDERS.time)}</td>
-              <td>{firstEcho(s)}</td>
+              <td>{q(s.firstSoundArrival_s, L.time)}</td>
+              <td>{q(s.secondSoundArrival_s, L.time)}</td>
+              <td>{firstEcho(s, L)}</td>
               <td>{q(s.amplitude_K, LADDERS.temperatureDifference, 3)}</td>
               <td>{q(s.signal_V, LADDERS.voltage, 3)}</td>
               <td>{n(s.snrAveraged)}</td>
@@ -204,7 +207,7 @@ function Arrivals({ result }: { result: PlanResult }) {
         </tbody>
       </table>
       <p className="sheet-small">
-        Times after the heater pulse starts; second sound includes each sensor's lag. Record: {q(result.record.start_s, LADDERS.time)} to {q(result.record.end_s, LADDERS.time)}.
+        Times after the heater pulse starts; second sound includes each sensor's lag. Record: {q(result.record.start_s, L.time)} to {q(result.record.end_s, L.time)}.
       </p>
     </section>
   );
@@ -273,6 +276,7 @@ function Tick({ children }: { children: React.ReactNode }) {
 }
 
 function Checklist({ plan, result }: { plan: PlanFile; result: PlanResult }) {
+  const L = useShownLadders();
   const power = result.heater.power_W;
   const volts = (ohm: number) => `${formatSignificant(Math.sqrt(power * ohm), 3)} V`;
   const lastArrival = Math.max(...result.sensors.map((s) => s.secondSoundArrival_s ?? s.firstSoundArrival_s));
@@ -300,11 +304,11 @@ function Checklist({ plan, result }: { plan: PlanFile; result: PlanResult }) {
         </Tick>
         <Tick>
           <strong>Trigger:</strong> the pulse generator triggers the digitiser at {n(plan.heater.repetitionRate_Hz, 4)} Hz, {plan.heater.averages} averages, pre-trigger{' '}
-          {q(plan.digitiser.preTrigger_s, LADDERS.time)}; trigger edge and level checked on a scope.
+          {q(plan.digitiser.preTrigger_s, L.time)}; trigger edge and level checked on a scope.
         </Tick>
         <Tick>
-          <strong>Record length:</strong> {q(plan.digitiser.recordLength_s, LADDERS.time)} at {q(plan.digitiser.sampleRate_Hz, LADDERS.sampleRate)}; the last direct arrival is expected at{' '}
-          {q(lastArrival, LADDERS.time)}.
+          <strong>Record length:</strong> {q(plan.digitiser.recordLength_s, L.time)} at {q(plan.digitiser.sampleRate_Hz, LADDERS.sampleRate)}; the last direct arrival is expected at{' '}
+          {q(lastArrival, L.time)}.
         </Tick>
         <Tick>
           <strong>Distances:</strong> measured {plan.spacer.measuredWarm ? 'warm' : 'cold'} on the {plan.spacer.materialId} spacer; values written on this sheet match the insert.

@@ -87,6 +87,13 @@ test.describe('workspace habits', () => {
     await expect(page.getByLabel('x of U0 (cm)')).toHaveValue('15');
     await expect(page.getByLabel('Arrival at U0 (µs)')).toHaveValue('11563');
     expect(await drawnLayout(page, 'locate-projection-1', 'xaxisTitle')).toBe('x (cm)');
+
+    await openTab(page, 'Plan a measurement');
+    await waitForCharts(page);
+    await expect(page.getByRole('textbox', { name: 'Pulse width' })).toHaveValue('100 µs');
+    await expect(page.getByRole('textbox', { name: 'Sensor 4 distance', exact: true })).toHaveValue('5 cm');
+    await expect(page.getByRole('table', { name: /predicted arrivals/i }).getByRole('columnheader', { name: /Second sound \(µs\)/ })).toBeVisible();
+    await expect.poll(() => drawnLayout(page, 'planner-timeline', 'xaxisTitle')).toBe('Time after the heater pulse starts (µs)');
   });
 
   test('a chart exports as SVG and PNG, tables as CSV (under the page’s CSP)', async ({ page }) => {

@@ -9,6 +9,7 @@ import { LocateQualityMap } from './LocateQualityMap';
 import { LocateResiduals } from './LocateResiduals';
 import { LocateSensors } from './LocateSensors';
 import { LocateSummary } from './LocateSummary';
+import { LocateTraces } from './LocateTraces';
 
 /** Where is the heat source? Sensors and arrival times → the source, its regions, residuals; and how good a layout is. */
 export function LocateView() {
@@ -47,6 +48,9 @@ export function LocateView() {
           <LocateResiduals />
         </PanelErrorBoundary>
       </div>
+      <PanelErrorBoundary panel="arrival times from traces">
+        <LocateTraces />
+      </PanelErrorBoundary>
       <PanelErrorBoundary panel="layout-quality map">
         <LocateQualityMap />
       </PanelErrorBoundary>

@@ -5,6 +5,8 @@
  */
 import { LOCATE_ARRIVAL_RANGE_S, LOCATE_ARRIVAL_SD_RANGE_S, LOCATE_LABEL_MAX, LOCATE_MAX_SENSORS, LOCATE_POSITION_RANGE_M } from '../../io/locate-csv';
 import { MODEL_MIN_K, T_LAMBDA_K } from '../../physics';
+import { FIELD_SPECS } from '../converter/converter-fields';
+import { TRACE_FILE_LIMIT_BYTES } from '../converter/trace/trace-protocol';
 import type { HelpTopic } from '../help/FieldHelp';
 import { LOCATE_DEFAULT_ARRIVAL_SD_S, LOCATE_DEFAULT_TEMPERATURE_K } from './locate-inputs';
 
@@ -89,4 +91,40 @@ export const LOCATE_HELP = {
   rows: {
     what: `Sensors with their positions, arrival times and timing sds; at most ${LOCATE_MAX_SENSORS}. Four readings fix a source with a known speed, fewer on a surface.`,
   },
+  traceFile: {
+    what: 'One digitiser CSV recorded on one clock: a time column and one channel per sensor. Its t = 0 is taken as the common clock of every sensor, so the arrivals written are times on it (the trigger, as a rule). The samples before t = 0 give each channel its baseline and noise.',
+    units: 'time in s, or as the column name says (“Time (ms)”, “t_us”); channels in any unit',
+    range: `at least 8 samples before t = 0; up to ${TRACE_FILE_LIMIT_BYTES / 1048576} MiB`,
+    origin: 'none; “Load the demo traces” opens public/demo-locate-traces.csv, invented traces of the demo cavity',
+  },
+  traceChannel: {
+    what: 'The sensor whose arrival this channel gives. A channel named like a sensor label (any case) is matched to it; choose another sensor, or “not used” for a trigger or a spare channel. Sensors without a channel keep what they have.',
+    origin: 'the sensor whose label is the channel’s name, else not used',
+  },
+  tracePicker: {
+    what: 'How the arrival is found in each channel: threshold (first crossing of the baseline + k noise sd), fraction of the peak (crossing of a fraction of the pulse height on its leading edge), peak (top of a parabola through the pulse), or cross-correlation (best match to a rectangle as wide as the pulse at half height). Each gives its own sd: the noise over the slope at the pick for the edges, the fit’s for the peak.',
+    origin: 'fraction of the peak at 0.5: the same point of the pulse on near and far sensors, whatever their heights',
+  },
+  tracePolarity: {
+    what: 'Whether the pulses go up or down from the baseline; automatic follows the larger excursion in the search window.',
+    origin: 'automatic',
+  },
+  traceThreshold: {
+    what: 'The threshold picker’s level, in noise sd above the baseline: higher is safer from noise, lower is closer to the foot of the pulse.',
+    units: 'noise sd (a plain number)',
+    range: `typically 3–10; valid ${FIELD_SPECS.threshold.range[0]}–${FIELD_SPECS.threshold.range[1]}`,
+    origin: `${FIELD_SPECS.threshold.initial}, as in the converter`,
+  },
+  traceFraction: {
+    what: 'The fraction picker’s level, as a fraction of the pulse height above the baseline.',
+    units: 'a plain number',
+    range: `typically 0.2–0.5; valid ${FIELD_SPECS.fraction.range[0]}–${FIELD_SPECS.fraction.range[1]}`,
+    origin: `${FIELD_SPECS.fraction.initial}, half height`,
+  },
+  traceSearch: (unit: string): HelpTopic => ({
+    what: 'Where on the file’s clock the picker looks for the pulse, in every channel alike: start past a pickup at the trigger, stop before an echo.',
+    units: typed(unit, '1.5 ms, 1500 us'),
+    range: 'within ±10 000 s; the end after the start; blank: from t = 0 to the end of the record',
+    origin: 'blank',
+  }),
 } as const satisfies Record<string, HelpTopic | ((unit: string) => HelpTopic)>;

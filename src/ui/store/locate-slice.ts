@@ -9,6 +9,10 @@ import {
   type LocateOptionsInput,
   type LocateRowInput,
 } from '../locate/locate-inputs';
+import type { TraceInfo } from '../converter/trace/trace-protocol';
+import { type ArrivalUpdate, type ChannelChoice, DEFAULT_TRACE_PICKER, type TracePickerSettings, withArrivals } from '../locate/trace-arrivals';
+import type { TimeUnit } from '../locate/locate-fields';
+import { editTraceSetting, type TraceSettingKey, traceSettingKey } from '../locate/trace-fields';
 import type { SekundoState } from './state';
 
 /** Where the sensors on screen came from. */
@@ -18,6 +22,24 @@ export interface LocateOrigin {
   name: string;
   /** What to tell the user about it (e.g. why the demo did not load); null for nothing. */
   note: string | null;
+}
+
+/** The trace file read for the "from traces" panel (its numbers stay in the trace worker). */
+export interface LocateTraceFile {
+  /** The worker's id of the file. */
+  id: string;
+  name: string;
+  size: number;
+  info: TraceInfo;
+}
+
+/** A trace file being read: its progress. */
+export interface LocateTraceReading {
+  id: string;
+  name: string;
+  bytes: number;
+  totalBytes: number;
+  rows: number;
 }
 
 /** A change made from a field's text: the inputs it gives, or why it is refused. */
@@ -56,6 +78,29 @@ export interface LocateSlice {
   refuseLocate: (key: string, message: string) => void;
   clearLocateMessage: (key: string) => void;
   setLocateDisplay: (change: Partial<LocateDisplay>) => void;
+
+  /** The trace file whose channels give arrivals ("from traces" panel); null before one is read. */
+  locateTraceFile: LocateTraceFile | null;
+  /** The file being read, or null. */
+  locateTraceReading: LocateTraceReading | null;
+  /** Channel → sensor choices that differ from matching by name. */
+  locateTraceChoice: ChannelChoice;
+  locateTracePicker: TracePickerSettings;
+  /** Progress of a file being read (a new reading replaces the one shown). */
+  setLocateTraceReading: (reading: LocateTraceReading | null) => void;
+  /** A file read: it replaces the one before, channels match by name again, file messages go. */
+  setLocateTraceFile: (file: LocateTraceFile) => void;
+  /** A channel's sensor (a row key), or null for "not used". */
+  chooseLocateTraceSensor: (channel: string, key: string | null) => void;
+  /** A change from a picker control (select). */
+  setLocateTracePicker: (change: Partial<TracePickerSettings>) => void;
+  /** Text typed into a picker setting: kept as the draft; applied when good, otherwise refused with a message. */
+  typeLocateTraceSetting: (key: TraceSettingKey, text: string, unit?: TimeUnit) => void;
+  /**
+   * Writes arrival times and timing sds into the given sensors, in one change; every other sensor
+   * and field stays as it was. Drafts and messages of the written fields go.
+   */
+  setLocateArrivals: (updates: readonly ArrivalUpdate[]) => void;
 }
 
 /** Store key of messages about adding and removing rows. */
@@ -157,5 +202,27 @@ export const createLocateSlice: StateCreator<SekundoState, [], [], LocateSlice> 
     refuseLocate: refuse,
     clearLocateMessage: (key) => set({ locateErrors: without(get().locateErrors, key) }),
     setLocateDisplay: (change) => set({ locateDisplay: { ...get().locateDisplay, ...change } }),
+
+    locateTraceFile: null,
+    locateTraceReading: null,
+    locateTraceChoice: {},
+    locateTracePicker: DEFAULT_TRACE_PICKER,
+    setLocateTraceReading: (reading) => set({ locateTraceReading: reading }),
+    setLocateTraceFile: (file) => set({ locateTraceFile: file, locateTraceReading: null, locateTraceChoice: {}, locateErrors: withoutPrefix(get().locateErrors, 'traces.') }),
+    chooseLocateTraceSensor: (channel, key) => set({ locateTraceChoice: { ...get().locateTraceChoice, [channel]: key } }),
+    setLocateTracePicker: (change) => set({ locateTracePicker: { ...get().locateTracePicker, ...change } }),
+    typeLocateTraceSetting: (key, text, unit) => {
+      const field = traceSettingKey(key);
+      set({ locateDrafts: { ...get().locateDrafts, [field]: text } });
+      const result = editTraceSetting(get().locateTracePicker, key, text, unit);
+      if (result.ok) set({ locateTracePicker: result.settings, locateErrors: without(get().locateErrors, field) });
+      else refuse(field, result.message);
+    },
+    setLocateArrivals: (updates) => {
+      const { locateRows, locateDrafts, locateErrors } = get();
+      const fields = new Set(updates.flatMap((u) => [`row.${u.key}.arrival`, `row.${u.key}.sd`]));
+      const keep = (record: Readonly<Record<string, string>>) => Object.fromEntries(Object.entries(record).filter(([key]) => !fields.has(key)));
+      set({ locateRows: withArrivals(locateRows, updates), locateDrafts: keep(locateDrafts), locateErrors: keep(locateErrors) });
+    },
   };
 };

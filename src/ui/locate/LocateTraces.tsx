@@ -1,0 +1,426 @@
+import { type KeyboardEvent, useId, useMemo, useState } from 'react';
+import { PICKER_KINDS, type PickerKind } from '../../physics';
+import type { Polarity } from '../converter/converter-slice';
+import { DropZone } from '../converter/DropZone';
+import { PICKER_LABELS } from '../converter/trace/TraceMode';
+import type { PickState } from '../converter/trace/trace-picks';
+import { useTraceSamples } from '../converter/trace/trace-picks';
+import { formatSignificant } from '../format/format-number';
+import { type HelpTopic, describedBy as joinIds, useFieldHelp } from '../help/FieldHelp';
+import { PanelErrorBoundary } from '../layout/PanelErrorBoundary';
+import { useElementWidth } from '../layout/use-element-width';
+import { PlotlyChart } from '../plot/PlotlyChart';
+import { useSekundoStore } from '../store';
+import type { LocateTraceFile } from '../store/locate-slice';
+import { useDisplayUnit } from '../units/use-display-unit';
+import { fieldText } from './locate-fields';
+import { LOCATE_HELP } from './locate-help';
+import { BAND_PX, FRAME_PX, locateTraceFigure, spanAroundPicks } from './locate-trace-figure';
+import { cancelLocateTrace, openLocateDemoTraces, openLocateTrace, TRACE_FILE_KEY } from './locate-trace-loader';
+import { arrivalsFromPicks, type ChannelMatch, matchChannels, matchConflicts } from './trace-arrivals';
+import { type TraceSettingKey, traceSettingKey, traceSettingSpec, traceSettingValue } from './trace-fields';
+import { useChannelPicks } from './use-channel-picks';
+
+/** Store key of the message after "Use these arrivals". */
+export const TRACE_APPLY_KEY = 'traces.apply';
+/** Chart id of the traces (tests read the figure there). */
+export const TRACES_CHART_ID = 'locate-traces';
+
+function size(bytes: number): string {
+  return bytes >= 1048576 ? `${formatSignificant(bytes / 1048576, 3)} MiB` : `${formatSignificant(bytes / 1024, 3)} KiB`;
+}
+
+/** Arrival times picked from a digitiser file with one channel per sensor, written into the sensor rows on request. */
+export function LocateTraces() {
+  const file = useSekundoStore((s) => s.locateTraceFile);
+  const fileError = useSekundoStore((s) => s.locateErrors[TRACE_FILE_KEY]);
+  const fileHelp = useFieldHelp('trace file', LOCATE_HELP.traceFile);
+  return (
+    <section className="card locate-card locate-traces" aria-labelledby="locate-traces-title">
+      <div className="card-head">
+        <h2 id="locate-traces-title" className="card-title">
+          Arrival times from traces
+        </h2>
+        {fileHelp.button}
+      </div>
+      <p className="muted locate-lead">
+        Open one digitiser CSV with a time column and one channel per sensor. The file’s t = 0 is the common clock: the arrivals are times on it, and the
+        samples before it give each channel’s baseline and noise. Pick, check each pick on its trace, then write the arrivals into the sensor table.
+      </p>
+      <div className="help-panels">{fileHelp.panel}</div>
+      <DropZone buttonLabel="Open a trace file" onFiles={(files) => files[0] && void openLocateTrace(files[0])}>
+        <div className="drop-zone__extra">
+          <button type="button" className="button button--small" onClick={() => void openLocateDemoTraces()}>
+            Load the demo traces
+          </button>
+        </div>
+      </DropZone>
+      <ReadingProgress />
+      {fileError ? (
+        <p className="field-error" role="alert">
+          {fileError}
+        </p>
+      ) : null}
+      {file ? <TracePicks file={file} /> : null}
+    </section>
+  );
+}
+
+function ReadingProgress() {
+  const reading = useSekundoStore((s) => s.locateTraceReading);
+  const labelId = useId();
+  if (!reading) return null;
+  const percent = reading.totalBytes > 0 ? Math.min(100, (100 * reading.bytes) / reading.totalBytes) : 0;
+  return (
+    <div className="read-progress">
+      <div className="read-progress__head">
+        <span id={labelId}>Reading {reading.name}</span>
+        <span className="read-progress__numbers">
+          {size(reading.bytes)} of {size(reading.totalBytes)} · {reading.rows.toLocaleString('en')} rows
+        </span>
+      </div>
+      <div className="read-progress__row">
+        <div
+          className="read-progress__track"
+          role="progressbar"
+          aria-labelledby={labelId}
+          aria-valuemin={0}
+          aria-valuemax={100}
+          aria-valuenow={Math.round(percent)}
+          aria-valuetext={`${Math.round(percent)} %`}
+        >
+          <div className="read-progress__bar" style={{ width: `${percent}%` }} />
+        </div>
+        <button type="button" className="button button--small" onClick={cancelLocateTrace}>
+          Cancel reading
+        </button>
+      </div>
+    </div>
+  );
+}
+
+/** The file read: picker settings, channel → sensor table with the picks, the traces, and the button that writes the arrivals. */
+function TracePicks({ file }: { file: LocateTraceFile }) {
+  const rows = useSekundoStore((s) => s.locateRows);
+  const choice = useSekundoStore((s) => s.locateTraceChoice);
+  const settings = useSekundoStore((s) => s.locateTracePicker);
+  const channels = file.info.channels;
+  const matches = useMemo(() => matchChannels(channels, rows, choice), [channels, rows, choice]);
+  const picks = useChannelPicks(file.id, channels, settings);
+  const t = file.info;
+  return (
+    <>
+      <p className="locate-traces__file">
+        <span className="file-name">{file.name}</span>
+        <span className="muted">
+          {' '}
+          · {size(file.size)} · {t.rows.toLocaleString('en')} rows, {channels.length} channel{channels.length === 1 ? '' : 's'}, {formatSignificant(t.firstTime_s * 1e3, 4)} to{' '}
+          {formatSignificant(t.lastTime_s * 1e3, 4)} ms
+        </span>
+      </p>
+      <div className="locate-traces__body">
+        <PanelErrorBoundary panel="picker settings">
+          <PickerSettings />
+        </PanelErrorBoundary>
+        <PanelErrorBoundary panel="channels and picks">
+          <ChannelTable matches={matches} picks={picks} />
+        </PanelErrorBoundary>
+      </div>
+      <UseArrivals matches={matches} picks={picks} />
+      <PanelErrorBoundary panel="traces chart">
+        <TracesChart file={file} matches={matches} picks={picks} />
+      </PanelErrorBoundary>
+    </>
+  );
+}
+
+function PickerSettings() {
+  const settings = useSekundoStore((s) => s.locateTracePicker);
+  const set = useSekundoStore((s) => s.setLocateTracePicker);
+  const pickerId = useId();
+  const polarityId = useId();
+  const pickerHelp = useFieldHelp('picker', LOCATE_HELP.tracePicker);
+  const polarityHelp = useFieldHelp('pulse polarity', LOCATE_HELP.tracePolarity);
+  return (
+    <fieldset className="locate-group locate-traces__settings">
+      <legend className="visually-hidden">Picker settings</legend>
+      <div className="field-head">
+        <label className="locate-field__label" htmlFor={pickerId}>
+          Picker
+        </label>
+        {pickerHelp.button}
+      </div>
+      {pickerHelp.panel}
+      <select id={pickerId} className="locate-select" value={settings.picker} aria-describedby={pickerHelp.describedBy} onChange={(e) => set({ picker: e.target.value as PickerKind })}>
+        {PICKER_KINDS.map((k) => (
+          <option key={k} value={k}>
+            {k === 'xcorr' ? `${PICKER_LABELS[k]} (rectangle)` : PICKER_LABELS[k]}
+          </option>
+        ))}
+      </select>
+      {settings.picker === 'threshold' ? <SettingField setting="threshold" label="Threshold k (noise sd)" help={LOCATE_HELP.traceThreshold} /> : null}
+      {settings.picker === 'fraction' ? <SettingField setting="fraction" label="Fraction of the peak" help={LOCATE_HELP.traceFraction} /> : null}
+      <div className="field-head">
+        <label className="locate-field__label" htmlFor={polarityId}>
+          Pulse polarity
+        </label>
+        {polarityHelp.button}
+      </div>
+      {polarityHelp.panel}
+      <select id={polarityId} className="locate-select" value={settings.polarity} aria-describedby={polarityHelp.describedBy} onChange={(e) => set({ polarity: e.target.value as Polarity })}>
+        <option value="auto">Automatic (the larger excursion)</option>
+        <option value="positive">Positive-going</option>
+        <option value="negative">Negative-going</option>
+      </select>
+      <SearchWindow />
+    </fieldset>
+  );
+}
+
+function SearchWindow() {
+  const time = useDisplayUnit('time');
+  const help = LOCATE_HELP.traceSearch(time.shown);
+  return (
+    <div className="locate-traces__window">
+      <SettingField setting="from" label="Search from" placeholder="t = 0" help={help} />
+      <SettingField setting="to" label="Search to" placeholder="end" help={help} />
+    </div>
+  );
+}
+
+interface SettingFieldProps {
+  setting: TraceSettingKey;
+  label: string;
+  placeholder?: string;
+  help: HelpTopic;
+}
+
+/** A typed picker setting: a good value applies as it is typed; a bad one keeps the last good value and says why. */
+function SettingField({ setting, label, placeholder, help }: SettingFieldProps) {
+  const id = useId();
+  const key = traceSettingKey(setting);
+  const fieldHelp = useFieldHelp(label, help);
+  const value = useSekundoStore((s) => traceSettingValue(s.locateTracePicker, setting));
+  const draft = useSekundoStore((s) => s.locateDrafts[key]);
+  const error = useSekundoStore((s) => s.locateErrors[key]);
+  const type = useSekundoStore((s) => s.typeLocateTraceSetting);
+  const leave = useSekundoStore((s) => s.leaveLocateField);
+  const discard = useSekundoStore((s) => s.discardLocateDraft);
+  const time = useDisplayUnit('time');
+  const spec = traceSettingSpec(setting, time.unit);
+  const onKeyDown = (event: KeyboardEvent<HTMLInputElement>) => {
+    if (event.key === 'Escape') discard(key);
+    if (event.key === 'Enter') leave(key);
+  };
+  return (
+    <div className="locate-field">
+      <div className="field-head">
+        <label htmlFor={id} className="locate-field__label">
+          {label}
+        </label>
+        {fieldHelp.button}
+      </div>
+      {fieldHelp.panel}
+      <div className="locate-field__box">
+        <input
+          id={id}
+          className="locate-input"
+          type="text"
+          inputMode="decimal"
+          autoComplete="off"
+          spellCheck={false}
+          value={draft ?? fieldText(spec, value)}
+          placeholder={placeholder}
+          aria-invalid={error ? true : undefined}
+          aria-describedby={joinIds(error && `${id}-error`, fieldHelp.describedBy)}
+          onChange={(event) => type(setting, event.target.value, time.unit)}
+          onBlur={() => leave(key)}
+          onKeyDown={onKeyDown}
+        />
+        {spec.unit ? <span className="locate-field__unit">{time.shown}</span> : null}
+      </div>
+      {error ? (
+        <p id={`${id}-error`} className="field-error" role="alert">
+          {error}
+        </p>
+      ) : null}
+    </div>
+  );
+}
+
+function ChannelTable({ matches, picks }: { matches: readonly ChannelMatch[]; picks: ReadonlyMap<string, PickState> }) {
+  const time = useDisplayUnit('time');
+  const channelHelp = useFieldHelp('sensor of a channel', LOCATE_HELP.traceChannel);
+  const conflicts = matchConflicts(matches);
+  return (
+    <div className="locate-traces__channels">
+      <div className="help-panels">{channelHelp.panel}</div>
+      <div className="table-scroll">
+        <table className="locate-table locate-traces-table" aria-label="Channels, their sensors and picked arrivals">
+          <thead>
+            <tr>
+              <th scope="col">Channel</th>
+              <th scope="col">
+                <span className="th-help">Sensor {channelHelp.button}</span>
+              </th>
+              <th scope="col" className="num">
+                Arrival <span className="unit-as-written">({time.shown})</span>
+              </th>
+              <th scope="col" className="num">
+                ± sd <span className="unit-as-written">(µs)</span>
+              </th>
+              <th scope="col" className="num">
+                Peak/noise
+              </th>
+            </tr>
+          </thead>
+          <tbody>
+            {matches.map((m) => (
+              <ChannelRow key={m.channel} match={m} pick={picks.get(m.channel)} describedBy={channelHelp.describedBy} />
+            ))}
+          </tbody>
+        </table>
+      </div>
+      {conflicts.map((c) => (
+        <p key={c} className="field-error" role="alert">
+          {c}
+        </p>
+      ))}
+    </div>
+  );
+}
+
+function ChannelRow({ match, pick, describedBy }: { match: ChannelMatch; pick: PickState | undefined; describedBy: string }) {
+  const rows = useSekundoStore((s) => s.locateRows);
+  const choose = useSekundoStore((s) => s.chooseLocateTraceSensor);
+  const time = useDisplayUnit('time');
+  const selectId = useId();
+  return (
+    <tr className={match.row ? undefined : 'locate-traces__unused'}>
+      <th scope="row">{match.channel}</th>
+      <td>
+        <label htmlFor={selectId} className="visually-hidden">
+          Sensor of channel {match.channel}
+        </label>
+        <select id={selectId} className="locate-select" value={match.row?.key ?? ''} aria-describedby={describedBy} onChange={(e) => choose(match.channel, e.target.value === '' ? null : e.target.value)}>
+          <option value="">not used</option>
+          {rows.map((r) => (
+            <option key={r.key} value={r.key}>
+              {r.label}
+            </option>
+          ))}
+        </select>
+      </td>
+      {pick?.status === 'picked' ? (
+        <>
+          <td className="num" data-testid={`trace-arrival-${match.channel}`}>
+            {time.format(pick.pick.arrival_s, 7)}
+          </td>
+          <td className="num">{formatSignificant(pick.pick.arrivalSd_s * 1e6, 2)}</td>
+          <td className="num">{formatSignificant(pick.pick.snr, 3)}</td>
+        </>
+      ) : pick?.status === 'failed' ? (
+        <td colSpan={3} className="locate-traces__failed">
+          no pick: {pick.message}
+        </td>
+      ) : (
+        <td colSpan={3} className="muted">
+          picking…
+        </td>
+      )}
+    </tr>
+  );
+}
+
+function UseArrivals({ matches, picks }: { matches: readonly ChannelMatch[]; picks: ReadonlyMap<string, PickState> }) {
+  const write = useSekundoStore((s) => s.setLocateArrivals);
+  const refuse = useSekundoStore((s) => s.refuseLocate);
+  const clear = useSekundoStore((s) => s.clearLocateMessage);
+  const failures = useSekundoStore((s) => s.locateErrors[TRACE_APPLY_KEY]);
+  const [done, setDone] = useState<string | null>(null);
+  const matched = matches.filter((m) => m.row !== null);
+  const picking = matched.some((m) => picks.get(m.channel)?.status !== 'picked' && picks.get(m.channel)?.status !== 'failed');
+  const conflicts = matchConflicts(matches).length > 0;
+  const apply = () => {
+    const { updates, failures } = arrivalsFromPicks(matches, picks);
+    write(updates);
+    const labels = matched.filter((m) => updates.some((u) => u.key === m.row?.key)).map((m) => m.row?.label);
+    setDone(updates.length === 0 ? 'No arrival was written.' : `Arrivals and timing sds written for ${updates.length} sensor${updates.length === 1 ? '' : 's'}: ${labels.join(', ')}.`);
+    if (failures.length > 0) refuse(TRACE_APPLY_KEY, `${failures.join(' ')} ${failures.length === 1 ? 'That sensor keeps what it had.' : 'Those sensors keep what they had.'}`);
+    else clear(TRACE_APPLY_KEY);
+  };
+  const unmatched = matches.length - matched.length;
+  return (
+    <div className="locate-traces__apply">
+      <button type="button" className="button button--primary" disabled={matched.length === 0 || picking || conflicts} onClick={apply}>
+        Use these arrivals
+      </button>
+      <span className="muted">
+        {matched.length === 0
+          ? 'No channel is matched to a sensor.'
+          : `${matched.length} channel${matched.length === 1 ? '' : 's'} to ${matched.length === 1 ? 'its sensor' : 'their sensors'}${unmatched > 0 ? `; ${unmatched} not used` : ''}. Sensors without a channel keep their arrivals.`}
+      </span>
+      {done ? (
+        <p className="locate-traces__done" role="status">
+          {done}
+        </p>
+      ) : null}
+      {failures ? (
+        <p className="field-error" role="alert">
+          {failures}
+        </p>
+      ) : null}
+    </div>
+  );
+}
+
+function TracesChart({ file, matches, picks }: { file: LocateTraceFile; matches: readonly ChannelMatch[]; picks: ReadonlyMap<string, PickState> }) {
+  const samples = useTraceSamples(file.id);
+  const settings = useSekundoStore((s) => s.locateTracePicker);
+  const [view, setView] = useState<'record' | 'picks'>('picks');
+  const [plotRef, width] = useElementWidth<HTMLDivElement>(900);
+  const time = useDisplayUnit('time');
+  const figure = useMemo(() => {
+    if (samples.status !== 'ready') return null;
+    const rows = matches.map((m) => {
+      const p = picks.get(m.channel);
+      return { channel: m.channel, sensor: m.row?.label ?? null, pick: p?.status === 'picked' ? p.pick : null };
+    });
+    const span = view === 'picks' ? spanAroundPicks(samples.samples, rows.map((r) => r.pick)) : null;
+    return locateTraceFigure({ samples: samples.samples, rows, span, search: { from_s: settings.from_s, to_s: settings.to_s }, columns: Math.max(200, width - 100), time: { scale: time.fromSi(1), shown: time.shown } });
+  }, [samples, matches, picks, view, settings.from_s, settings.to_s, width, time]);
+  const picked = [...picks.values()].filter((p) => p.status === 'picked').length;
+  return (
+    <div className="locate-traces__chart">
+      <fieldset className="locate-segmented">
+        <legend className="visually-hidden">Time span of the traces</legend>
+        {(['picks', 'record'] as const).map((v) => (
+          <label key={v} className="locate-segmented__option">
+            <input type="radio" name="locate-traces-view" checked={view === v} onChange={() => setView(v)} />
+            {v === 'picks' ? 'Around the picks' : 'Whole record'}
+          </label>
+        ))}
+      </fieldset>
+      <div ref={plotRef} className="locate-traces__plot" style={{ ['--traces-height' as string]: `${FRAME_PX + BAND_PX * matches.length}px` }}>
+        {samples.status === 'failed' ? (
+          <p className="field-error" role="alert">
+            {samples.message}
+          </p>
+        ) : figure ? (
+          <PlotlyChart
+            chartId={TRACES_CHART_ID}
+            label={`Traces of ${matches.length} channels in ${file.name}, each scaled to its own height, with ${picked} picked arrival${picked === 1 ? '' : 's'} marked.`}
+            data={figure.data}
+            layout={figure.layout}
+          />
+        ) : (
+          <p className="plot-loading">Fetching the samples…</p>
+        )}
+      </div>
+      <p className="chart-caption">
+        Each channel scaled to its own largest excursion; grey: not used. Orange line and band: the pick and its ± sd; dashed: t = 0 of the file
+        {settings.from_s !== null || settings.to_s !== null ? '; tinted: the search window' : ''}.
+      </p>
+    </div>
+  );
+}

@@ -5,6 +5,7 @@ import { guardEveryPage } from './page-guard';
 const ARTIFACTS = 'test-results/artifacts';
 const PROJECTIONS = ['locate-projection-1', 'locate-projection-2'] as const;
 const MAP = 'locate-quality-map';
+const TRACES = 'locate-traces';
 
 interface DrawnTrace {
   name?: string;
@@ -27,6 +28,14 @@ function drawnSourceX(page: Page, chartId: string): Promise<number | null> {
     const source = plot?.data?.find((t) => t.name === 'located source');
     return source?.x?.[0] ?? null;
   }, chartId);
+}
+
+/** The located source as the summary shows it: each coordinate and its 1σ (the row under it), mm. */
+async function shownSource(page: Page): Promise<{ value: number; sd: number | null }[]> {
+  const number = (text: string | null) => Number((text ?? '').replace(/\u2212/g, '-').replace(/[^-\d.]/g, '') || Number.NaN);
+  const values = await Promise.all(['x', 'y', 'z'].map((k) => page.getByTestId(`locate-source-${k}`).textContent()));
+  const sds = await page.getByRole('row', { name: /^1σ/ }).getByRole('cell').allTextContents();
+  return values.map((text, k) => ({ value: number(text), sd: sds[k]?.includes('±') ? number(sds[k] ?? null) : null }));
 }
 
 async function waitForCharts(page: Page) {
@@ -101,5 +110,35 @@ test.describe('source location', () => {
     mkdirSync(ARTIFACTS, { recursive: true });
     await page.screenshot({ path: `${ARTIFACTS}/locate-1600x1000.png` });
     await page.screenshot({ path: `${ARTIFACTS}/locate-1600x1000-full-page.png`, fullPage: true });
+  });
+
+  test('arrival times picked from the demo traces locate the source the typed demo gives, within its uncertainty', async ({ page }) => {
+    await openLocate(page);
+    const typed = await shownSource(page);
+    expect(typed.every((c) => c.sd !== null)).toBe(true);
+    await page.getByRole('button', { name: 'Load the demo traces' }).click();
+    await expect(page.locator(`[data-chart="${TRACES}"]`)).toHaveAttribute('data-drawn', 'true');
+    await expect(page.getByRole('table', { name: 'Channels, their sensors and picked arrivals' }).getByRole('row')).toHaveCount(9);
+    const apply = page.getByRole('button', { name: 'Use these arrivals' });
+    await expect(apply).toBeEnabled();
+    await apply.click();
+    await expect(page.getByText('Arrivals and timing sds written for 8 sensors: U0, U90, U180, U270, L45, L135, L225, L315.')).toBeVisible();
+    // The sensor rows now carry the picks' own sds (a few µs) instead of the demo's 50 µs.
+    await expect(page.getByLabel('Timing sd of U0 (µs)')).not.toHaveValue('50');
+    await expect.poll(async () => (await shownSource(page)).map((c) => c.value)).not.toEqual(typed.map((c) => c.value));
+    const picked = await shownSource(page);
+    picked.forEach((c, k) => {
+      expect(Math.abs(c.value - (typed[k]?.value ?? Number.NaN))).toBeLessThan(typed[k]?.sd ?? 0);
+    });
+    // Every pick is marked on its trace.
+    const marks = await page.locator(`[data-chart="${TRACES}"]`).evaluate((el) => (el as HTMLElement & { data?: DrawnTrace[] }).data?.find((t) => t.name === 'picked arrivals')?.x?.length ?? 0);
+    expect(marks).toBe(8);
+
+    await page.mouse.move(0, 0);
+    mkdirSync(ARTIFACTS, { recursive: true });
+    const card = page.locator('section.locate-traces');
+    await card.scrollIntoViewIfNeeded();
+    await card.screenshot({ path: `${ARTIFACTS}/locate-traces.png` });
+    await page.screenshot({ path: `${ARTIFACTS}/locate-traces-view.png` });
   });
 });

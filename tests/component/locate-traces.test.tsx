@@ -200,6 +200,22 @@ describe('locate view: arrival times from traces', { timeout: 30_000 }, () => {
     expect(store().locateRows).toBe(rows);
   });
 
+  it('shows the reading’s progress and stops it on cancel, changing nothing', async () => {
+    const { user } = await openLocate();
+    const rows = store().locateRows;
+    // About 24 MiB: read in 1 MiB slices with a pause between them, so the cancel arrives mid-file.
+    const cells = ',0.0001'.repeat(15);
+    const lines = Array.from({ length: 24 * 11000 }, (_, i) => `${i}${cells}`);
+    const big = csvFile(`time_us,${Array.from({ length: 15 }, (_, i) => `c${i}`).join(',')}\n${lines.join('\n')}\n`, 'long-record.csv');
+    await user.upload(screen.getByLabelText('Open a trace file'), big);
+    expect(screen.getByRole('progressbar', { name: 'Reading long-record.csv' })).toBeInTheDocument();
+    await user.click(screen.getByRole('button', { name: 'Cancel reading' }));
+    expect(await screen.findByText('Reading long-record.csv was cancelled; nothing was changed.', {}, { timeout: 10_000 })).toHaveAttribute('role', 'alert');
+    expect(screen.queryByRole('progressbar')).toBeNull();
+    expect(store().locateTraceFile).toBeNull();
+    expect(store().locateRows).toBe(rows);
+  });
+
   it('refuses a file over the size limit before reading it', async () => {
     const { user } = await openLocate();
     const big = csvFile('time_s,U0\n', 'huge.csv');

@@ -68,9 +68,9 @@ const PLANE_POSITION_RANGE_M = [-100, 100] as const;
 const SENSOR_COORDINATE_RANGE_M = [-PATH_LENGTH_RANGE_M[1], PATH_LENGTH_RANGE_M[1]] as const;
 /** Lowest rise time of a rectangle, as a fraction of its width (the kernel's bound). */
 const MIN_RISE_FRACTION = 1e-6;
-const MAX_ID_CHARS = 64;
-const MAX_LABEL_CHARS = 120;
-const MAX_NAME_CHARS = 200;
+export const MAX_ID_CHARS = 64;
+export const MAX_LABEL_CHARS = 120;
+export const MAX_NAME_CHARS = 200;
 const MAX_NOTES_CHARS = 20_000;
 /** Keys refused anywhere in a file: they mean something to JavaScript objects. */
 const FORBIDDEN_KEYS: ReadonlySet<string> = new Set(['__proto__', 'constructor', 'prototype']);

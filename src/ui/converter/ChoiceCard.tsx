@@ -1,6 +1,8 @@
 import { useId } from 'react';
+import { type HelpTopic, useFieldHelp } from '../help/FieldHelp';
 import { useSekundoStore } from '../store';
 import type { ChoiceKind } from './converter-checks';
+import { CONVERTER_CHOICE_HELP, converterFieldHelp } from './converter-help';
 import { ConverterField } from './ConverterField';
 
 const OPTIONS: readonly { kind: ChoiceKind; label: string; hint: string }[] = [
@@ -16,6 +18,21 @@ export function ChoiceCard({ series = false }: { series?: boolean }) {
   const name = useId();
   const choice = useSekundoStore((s) => s.converterChoice);
   const setChoice = useSekundoStore((s) => s.setConverterChoice);
+  const pressureUnit = useSekundoStore((s) => s.converterFields.pressure.unit);
+  const expectedUnit = useSekundoStore((s) => s.converterFields.expected.unit);
+  // One help per way of choosing; a field without a visible label is described by its choice's.
+  const topics: Record<ChoiceKind, HelpTopic> = {
+    none: CONVERTER_CHOICE_HELP.none,
+    pressure: converterFieldHelp('pressure', pressureUnit),
+    expected: converterFieldHelp('expected', expectedUnit),
+    range: CONVERTER_CHOICE_HELP.range,
+  };
+  const help = {
+    none: useFieldHelp('show all, choose none', topics.none),
+    pressure: useFieldHelp('vapour-pressure reading', topics.pressure),
+    expected: useFieldHelp('expected temperature', topics.expected),
+    range: useFieldHelp('temperature range', topics.range),
+  };
   return (
     <section className="card converter-card" aria-labelledby={headingId}>
       <h2 id={headingId} className="card-title">
@@ -30,13 +47,42 @@ export function ChoiceCard({ series = false }: { series?: boolean }) {
         <legend className="visually-hidden">Way of choosing</legend>
         {OPTIONS.map((o) => (
           <div key={o.kind} className={`choice-option${choice === o.kind ? ' is-active' : ''}`}>
-            <label className="choice-option__label">
-              <input type="radio" name={name} value={o.kind} checked={choice === o.kind} onChange={() => setChoice(o.kind)} />
-              <span>{o.label}</span>
-            </label>
+            <div className="field-head">
+              <label className="choice-option__label">
+                <input
+                  type="radio"
+                  name={name}
+                  value={o.kind}
+                  checked={choice === o.kind}
+                  aria-describedby={help[o.kind].describedBy}
+                  onChange={() => setChoice(o.kind)}
+                />
+                <span>{o.label}</span>
+              </label>
+              {help[o.kind].button}
+            </div>
+            {help[o.kind].panel}
             {choice === o.kind ? <p className="field-hint">{o.hint}</p> : null}
-            {o.kind === 'pressure' ? <ConverterField fieldKey="pressure" label="Vapour pressure" labelHidden className="choice-option__field" onApplied={() => setChoice('pressure')} /> : null}
-            {o.kind === 'expected' ? <ConverterField fieldKey="expected" label="Expected temperature" labelHidden className="choice-option__field" onApplied={() => setChoice('expected')} /> : null}
+            {o.kind === 'pressure' ? (
+              <ConverterField
+                fieldKey="pressure"
+                label="Vapour pressure"
+                labelHidden
+                describedBy={help.pressure.describedBy}
+                className="choice-option__field"
+                onApplied={() => setChoice('pressure')}
+              />
+            ) : null}
+            {o.kind === 'expected' ? (
+              <ConverterField
+                fieldKey="expected"
+                label="Expected temperature"
+                labelHidden
+                describedBy={help.expected.describedBy}
+                className="choice-option__field"
+                onApplied={() => setChoice('expected')}
+              />
+            ) : null}
             {o.kind === 'range' ? (
               <div className="choice-option__pair choice-option__pair--range">
                 <ConverterField fieldKey="rangeMin" label="From" className="choice-option__field" onApplied={() => setChoice('range')} />

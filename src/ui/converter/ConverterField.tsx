@@ -1,7 +1,9 @@
 import { type FocusEvent, type KeyboardEvent, useId } from 'react';
 import type { Unit } from '../../io/quantity';
+import { describedBy as joinIds, type HelpTopic, useFieldHelp } from '../help/FieldHelp';
 import { useSekundoStore } from '../store';
 import { type ConverterFieldKey, FIELD_SPECS, rangeText } from './converter-fields';
+import { converterFieldHelp } from './converter-help';
 
 /** Id of the element showing a field's message. */
 export function fieldMessageId(key: ConverterFieldKey): string {
@@ -17,6 +19,10 @@ interface ConverterFieldProps {
   className?: string;
   /** Called after a new good value was applied (e.g. to choose the rule this field belongs to). */
   onApplied?: () => void;
+  /** Replaces the field's own help (converter-help.ts), shown by a "?" beside a visible label. */
+  help?: HelpTopic;
+  /** Ids of text elsewhere that describes the field (the help of the choice a hidden-label field belongs to). */
+  describedBy?: string;
 }
 
 /**
@@ -25,7 +31,7 @@ interface ConverterFieldProps {
  * stays in effect. Escape brings the good value back. A number typed with a unit ("2.5 ms") uses
  * that unit.
  */
-export function ConverterField({ fieldKey, label, labelHidden = false, className, onApplied }: ConverterFieldProps) {
+export function ConverterField({ fieldKey, label, labelHidden = false, className, onApplied, help, describedBy }: ConverterFieldProps) {
   const id = useId();
   const spec = FIELD_SPECS[fieldKey];
   const field = useSekundoStore((s) => s.converterFields[fieldKey]);
@@ -36,6 +42,10 @@ export function ConverterField({ fieldKey, label, labelHidden = false, className
   const discard = useSekundoStore((s) => s.discardConverterDraft);
   const shownLabel = label ?? spec.label;
   const valid = `Valid: ${rangeText(spec, field.unit)}${spec.optional ? `; empty for ${spec.emptyMeaning}` : ''}.`;
+  const fieldHelp = useFieldHelp(spec.label, help ?? converterFieldHelp(fieldKey, field.unit));
+  // A hidden label has no room for a "?": the caller's help describes the field instead.
+  const ownHelp = !labelHidden;
+  const helpIds = joinIds(ownHelp && fieldHelp.describedBy, describedBy);
 
   const apply = () => {
     const before = useSekundoStore.getState().converterFields[fieldKey].value;
@@ -59,9 +69,19 @@ export function ConverterField({ fieldKey, label, labelHidden = false, className
 
   return (
     <div className={`converter-field${className ? ` ${className}` : ''}`}>
-      <label htmlFor={id} className={labelHidden ? 'visually-hidden' : 'field-label'}>
-        {labelHidden ? spec.label : shownLabel}
-      </label>
+      {ownHelp ? (
+        <div className="field-head">
+          <label htmlFor={id} className="field-label">
+            {shownLabel}
+          </label>
+          {fieldHelp.button}
+        </div>
+      ) : (
+        <label htmlFor={id} className="visually-hidden">
+          {spec.label}
+        </label>
+      )}
+      {ownHelp ? fieldHelp.panel : null}
       <div className="converter-field__row">
         <input
           id={id}
@@ -75,7 +95,7 @@ export function ConverterField({ fieldKey, label, labelHidden = false, className
           placeholder={spec.optional ? spec.emptyMeaning : undefined}
           title={`${spec.label}. ${valid}`}
           aria-invalid={error ? true : undefined}
-          aria-describedby={error ? fieldMessageId(fieldKey) : `${id}-valid`}
+          aria-describedby={joinIds(error ? fieldMessageId(fieldKey) : !helpIds && `${id}-valid`, helpIds)}
           onChange={(event) => edit(fieldKey, event.target.value)}
           onBlur={onBlur}
           onKeyDown={onKeyDown}
@@ -84,6 +104,7 @@ export function ConverterField({ fieldKey, label, labelHidden = false, className
           <select
             className="unit-select"
             aria-label={`${spec.label} unit`}
+            aria-describedby={helpIds}
             data-unit-for={id}
             value={field.unit}
             onChange={(event) => setUnit(fieldKey, event.target.value as Unit)}

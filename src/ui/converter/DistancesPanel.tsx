@@ -7,6 +7,8 @@ import { sentence } from './converter-checks';
 import type { DistanceColumn } from './converter-slice';
 import { ConversionResult } from './ConversionResult';
 import { tableCsv, tableTsv } from './export-text';
+import { distanceColumnHelp } from './converter-help';
+import { useFieldHelp } from '../help/FieldHelp';
 import { chooseFor, distanceFit, distanceFitTable } from './reading-results';
 import { readDistanceRows, splitPasted } from './table-input';
 import { useFieldValues } from './use-converter';
@@ -49,6 +51,12 @@ export function DistancesInput() {
   const removeRow = useSekundoStore((s) => s.removeConverterDistanceRow);
   const setRows = useSekundoStore((s) => s.setConverterDistanceRows);
   const setUnit = useSekundoStore((s) => s.setConverterDistanceUnit);
+  const topics = distanceColumnHelp(units);
+  const help = {
+    distance: useFieldHelp('distance column', topics.distance),
+    delay: useFieldHelp('delay column', topics.delay),
+    sd: useFieldHelp('delay sd column', topics.sd),
+  };
 
   const onBlur = (event: FocusEvent<HTMLTableElement>) => {
     if (event.relatedTarget instanceof Node && event.currentTarget.contains(event.relatedTarget)) return;
@@ -78,6 +86,11 @@ export function DistancesInput() {
         Sensors at different distances in one bath: t = t₀ + d/u₂. A straight-line fit gives u₂ and the common offset t₀. The delay sd is optional: give
         it on every row or on none (then the scatter sets the uncertainties). Paste rows from a spreadsheet into any cell.
       </p>
+      <div className="help-panels">
+        {help.distance.panel}
+        {help.delay.panel}
+        {help.sd.panel}
+      </div>
       <div className="table-scroll">
         <table id={tableId} className="distance-table" onBlur={onBlur}>
           <thead>
@@ -92,6 +105,7 @@ export function DistancesInput() {
                     <select
                       className="unit-select"
                       aria-label={`${COLUMN_NAMES[column]} unit`}
+                      aria-describedby={help[column].describedBy}
                       value={units[column]}
                       onChange={(event) => {
                         setUnit(column, event.target.value as Unit);
@@ -104,6 +118,7 @@ export function DistancesInput() {
                         </option>
                       ))}
                     </select>
+                    {help[column].button}
                   </span>
                 </th>
               ))}
@@ -125,6 +140,7 @@ export function DistancesInput() {
                       autoComplete="off"
                       spellCheck={false}
                       aria-label={`Row ${i + 1} ${COLUMN_NAMES[column].toLowerCase()}`}
+                      aria-describedby={help[column].describedBy}
                       value={row[column]}
                       onChange={(event) => editCell(row.key, column, event.target.value)}
                       onKeyDown={onKeyDown}

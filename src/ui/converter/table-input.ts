@@ -10,16 +10,22 @@ import type { DistancePoints } from './converter-slice';
 
 export type TableRead<T> = { ok: true; value: T } | { ok: false; message: string };
 
-interface CellSpec {
+export interface CellSpec {
   name: string;
   dimension: Dimension;
   range: readonly [number, number];
 }
 
-const DISTANCE_CELL: CellSpec = { name: 'distance', dimension: 'length', range: DELAY_LIMITS.distance_m };
-const DELAY_CELL: CellSpec = { name: 'delay', dimension: 'time', range: [-DELAY_LIMITS.delay_s[1], DELAY_LIMITS.delay_s[1]] };
-const SD_CELL: CellSpec = { name: 'delay sd', dimension: 'time', range: [1e-15, DELAY_LIMITS.delaySd_s[1]] };
-const SWEEP_DELAY_CELL: CellSpec = { name: 'delay', dimension: 'time', range: DELAY_LIMITS.delay_s };
+export const DISTANCE_CELL: CellSpec = { name: 'distance', dimension: 'length', range: DELAY_LIMITS.distance_m };
+export const DELAY_CELL: CellSpec = { name: 'delay', dimension: 'time', range: [-DELAY_LIMITS.delay_s[1], DELAY_LIMITS.delay_s[1]] };
+export const SD_CELL: CellSpec = { name: 'delay sd', dimension: 'time', range: [1e-15, DELAY_LIMITS.delaySd_s[1]] };
+export const SWEEP_DELAY_CELL: CellSpec = { name: 'delay', dimension: 'time', range: DELAY_LIMITS.delay_s };
+
+/** A column's valid range in its unit, as the cells' messages give it: "0.001 mm – 100000 mm". */
+export function cellRangeText(spec: CellSpec, unit: Unit): string {
+  const show = (x: number) => `${plain(fromBaseUnit(x, unit))} ${unit}`;
+  return `${show(spec.range[0])} – ${show(spec.range[1])}`;
+}
 const NUMBER = /^[+-]?(?:\d+\.?\d*|\.\d+)(?:[eE][+-]?\d+)?$/;
 
 /** One cell in SI, or the message naming `where` (e.g. "Row 2"), the column and the valid range. */
@@ -35,7 +41,7 @@ function readCell(where: string, spec: CellSpec, text: string, unit: Unit): Tabl
   const [min, max] = spec.range;
   if (value < min || value > max) {
     const show = (x: number) => `${plain(fromBaseUnit(x, unit))} ${unit}`;
-    return { ok: false, message: `${where}, ${spec.name} ${show(value)} is outside the valid range ${show(min)} – ${show(max)}.` };
+    return { ok: false, message: `${where}, ${spec.name} ${show(value)} is outside the valid range ${cellRangeText(spec, unit)}.` };
   }
   return { ok: true, value };
 }

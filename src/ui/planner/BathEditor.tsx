@@ -7,6 +7,7 @@ import { ChoiceGroup, EditorCard } from './EditorCard';
 import { PlanFieldMessage, PlanNumberField } from './PlanField';
 import { type BathMode, bathMode, setBathMode } from './plan-edits';
 import { BATH_FIELDS } from './plan-fields';
+import { PLAN_OTHER_HELP } from './planner-help';
 
 const MODES = [
   { value: 'temperature', label: 'Temperature' },
@@ -27,6 +28,7 @@ export function BathEditor() {
           value={mode}
           options={MODES}
           onChange={(m) => edit('bath.mode', (p) => setBathMode(p, m))}
+          help={PLAN_OTHER_HELP['bath.mode']}
         />
         <PlanFieldMessage fieldKey="bath.mode" />
         {mode === 'temperature' ? (

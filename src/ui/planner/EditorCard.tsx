@@ -1,4 +1,5 @@
 import type { ReactNode } from 'react';
+import { type FieldHelpParts, type HelpTopic, useFieldHelp } from '../help/FieldHelp';
 import { PanelErrorBoundary } from '../layout/PanelErrorBoundary';
 
 /** A titled group of plan inputs in its own error boundary. */
@@ -17,27 +18,60 @@ export function EditorCard({ id, title, children, aside }: { id: string; title: 
   );
 }
 
-/** Two or three choices as a row of radio buttons (a labelled group). */
+/** A select's or text area's visible label with its "?" beside it, and the help folding out below. */
+export function FieldHead({ htmlFor, label, help }: { htmlFor: string; label: string; help: FieldHelpParts }) {
+  return (
+    <>
+      <div className="field-head">
+        <label className="plan-field__label" htmlFor={htmlFor}>
+          {label}
+        </label>
+        {help.button}
+      </div>
+      {help.panel}
+    </>
+  );
+}
+
+/** Two or three choices as a row of radio buttons (a labelled group), with the group's help. */
 export function ChoiceGroup<T extends string>({
   legend,
   name,
   value,
   options,
   onChange,
+  help,
 }: {
   legend: string;
   name: string;
   value: T;
   options: readonly { value: T; label: string }[];
   onChange: (value: T) => void;
+  help: HelpTopic;
 }) {
+  const groupHelp = useFieldHelp(legend.toLowerCase(), help);
   return (
     <fieldset className="plan-choices">
-      <legend className="plan-field__label">{legend}</legend>
+      <legend className="visually-hidden">{legend}</legend>
+      {/* The visible legend, beside its "?" (a button inside the legend would join the group's name). */}
+      <div className="field-head">
+        <span className="plan-field__label" aria-hidden="true">
+          {legend}
+        </span>
+        {groupHelp.button}
+      </div>
+      {groupHelp.panel}
       <div className="plan-choices__row">
         {options.map((option) => (
           <label key={option.value} className="plan-choice">
-            <input type="radio" name={name} value={option.value} checked={value === option.value} onChange={() => onChange(option.value)} />
+            <input
+              type="radio"
+              name={name}
+              value={option.value}
+              checked={value === option.value}
+              aria-describedby={groupHelp.describedBy}
+              onChange={() => onChange(option.value)}
+            />
             {option.label}
           </label>
         ))}

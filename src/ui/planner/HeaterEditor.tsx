@@ -1,9 +1,11 @@
+import { describedBy, useFieldHelp } from '../help/FieldHelp';
 import { useSekundoStore } from '../store';
-import { ChoiceGroup, EditorCard } from './EditorCard';
+import { ChoiceGroup, EditorCard, FieldHead } from './EditorCard';
 import { PlanFieldMessage, PlanNumberField } from './PlanField';
 import { PulseShapeEditor } from './PulseShapeEditor';
 import { type DriveMode, driveMode, type Geometry, setDriveMode, setGeometry } from './plan-edits';
 import { HEATER_FIELDS } from './plan-fields';
+import { PLAN_OTHER_HELP } from './planner-help';
 
 const GEOMETRIES = [
   { value: 'planar', label: 'Planar film' },
@@ -27,17 +29,17 @@ export function HeaterEditor() {
   const geometry = useSekundoStore((s) => s.plannerPlan.heater.geometry);
   const drive = useSekundoStore((s) => driveMode(s.plannerPlan));
   const edit = useSekundoStore((s) => s.editPlanner);
+  const geometryHelp = useFieldHelp('heater geometry', PLAN_OTHER_HELP['heater.geometry']);
   return (
     <EditorCard id="planner-heater" title="Heater">
       <div className="plan-grid">
         <div className="plan-field">
-          <label className="plan-field__label" htmlFor="planner-geometry">
-            Heater geometry
-          </label>
+          <FieldHead htmlFor="planner-geometry" label="Heater geometry" help={geometryHelp} />
           <select
             id="planner-geometry"
             className="plan-select"
             value={geometry}
+            aria-describedby={describedBy('planner-geometry-note', geometryHelp.describedBy)}
             onChange={(event) => edit('heater.geometry', (p) => setGeometry(p, event.target.value as Geometry))}
           >
             {GEOMETRIES.map((g) => (
@@ -46,7 +48,9 @@ export function HeaterEditor() {
               </option>
             ))}
           </select>
-          <p className="field-hint plan-field__hint">{GEOMETRY_NOTE[geometry]}</p>
+          <p id="planner-geometry-note" className="field-hint plan-field__hint">
+            {GEOMETRY_NOTE[geometry]}
+          </p>
           <PlanFieldMessage fieldKey="heater.geometry" />
         </div>
         {geometry === 'disk' ? (
@@ -54,7 +58,9 @@ export function HeaterEditor() {
         ) : (
           <PlanNumberField field={HEATER_FIELDS.area} label={geometry === 'point' ? 'Nominal area (for the flux)' : 'Heater area'} />
         )}
-        <ChoiceGroup<DriveMode> legend="Drive given as" name="planner-drive" value={drive} options={DRIVES} onChange={(m) => edit('heater.drive', (p) => setDriveMode(p, m))} />
+        <ChoiceGroup<DriveMode> legend="Drive given as" name="planner-drive" value={drive} options={DRIVES} onChange={(m) => edit('heater.drive', (p) => setDriveMode(p, m))}
+          help={PLAN_OTHER_HELP['heater.drive']}
+        />
         {drive === 'flux' ? (
           <PlanNumberField field={HEATER_FIELDS.flux} label="Peak heat flux" hint="e.g. 0.1 W/cm2" />
         ) : (

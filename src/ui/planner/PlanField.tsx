@@ -1,7 +1,9 @@
 import { type ReactNode, useId } from 'react';
 import type { PlanFile } from '../../io/plan-file';
+import { describedBy as joinIds, type HelpTopic, useFieldHelp } from '../help/FieldHelp';
 import { useSekundoStore } from '../store';
 import { editField, fieldRangeText, fieldText, type NumberField, type PlanEdit } from './plan-fields';
+import { PLAN_OTHER_HELP, planHelpKey, planNumberHelp } from './planner-help';
 
 /** Id of the element that shows a field's message, so inputs elsewhere can point to it. */
 export function messageId(key: string): string {
@@ -17,6 +19,13 @@ interface FieldProps {
   /** Where the message goes: under the field, or in an element the caller renders (see PlanFieldMessage). */
   message?: 'below' | 'elsewhere';
   className?: string;
+  /**
+   * What the field is, its units, range and default, shown by a "?" beside a visible label. Number
+   * fields and the plan's text fields find their own (planner-help.ts); this replaces it.
+   */
+  help?: HelpTopic;
+  /** Ids of text elsewhere that describes the field (a table column's help, for hidden labels). */
+  describedBy?: string;
 }
 
 interface NumberFieldProps extends FieldProps {
@@ -28,10 +37,11 @@ interface NumberFieldProps extends FieldProps {
  * otherwise the text stays with a message naming the field and its range, and the plan keeps its
  * last good value. Escape brings back the plan's value.
  */
-export function PlanNumberField({ field, ...props }: NumberFieldProps) {
+export function PlanNumberField({ field, help, ...props }: NumberFieldProps) {
+  const range = useSekundoStore((s) => fieldRangeText(field, s.plannerPlan));
   const value = useSekundoStore((s) => fieldText(field, s.plannerPlan, s.displayUnits));
   const edit = (plan: PlanFile, text: string) => editField(field, plan, text);
-  return <PlanTextInput {...props} fieldKey={field.key} value={value} edit={edit} rangeHint={(plan) => fieldRangeText(field, plan)} />;
+  return <PlanTextInput {...props} help={help ?? planNumberHelp(field, range)} fieldKey={field.key} value={value} edit={edit} rangeHint={(plan) => fieldRangeText(field, plan)} />;
 }
 
 interface TextFieldProps extends FieldProps {
@@ -42,9 +52,10 @@ interface TextFieldProps extends FieldProps {
 }
 
 /** A text field of the plan (name, sensor id and label) with the same draft-and-message rules. */
-export function PlanTextField({ select, ...props }: TextFieldProps) {
+export function PlanTextField({ select, help, ...props }: TextFieldProps) {
   const value = useSekundoStore((s) => select(s.plannerPlan));
-  return <PlanTextInput {...props} value={value} />;
+  const key = planHelpKey(props.fieldKey);
+  return <PlanTextInput {...props} help={help ?? (key in PLAN_OTHER_HELP ? PLAN_OTHER_HELP[key as keyof typeof PLAN_OTHER_HELP] : undefined)} value={value} />;
 }
 
 interface InputProps extends FieldProps {
@@ -54,8 +65,12 @@ interface InputProps extends FieldProps {
   rangeHint?: (plan: PlanFile) => string;
 }
 
-function PlanTextInput({ fieldKey, value, edit, label, labelHidden = false, hint, message = 'below', className, rangeHint }: InputProps) {
+function PlanTextInput({ fieldKey, value, edit, label, labelHidden = false, hint, message = 'below', className, rangeHint, help, describedBy: elsewhere }: InputProps) {
   const id = useId();
+  const fieldHelp = useFieldHelp(label, help ?? { what: '' });
+  const hasHelp = help !== undefined && !labelHidden;
+  // The help (own or a column's) names the valid range; without any, a hidden line says it.
+  const helped = hasHelp || elsewhere !== undefined;
   const draft = useSekundoStore((s) => s.plannerDrafts[fieldKey]);
   const error = useSekundoStore((s) => s.plannerErrors[fieldKey]);
   const type = useSekundoStore((s) => s.typePlannerField);
@@ -63,12 +78,23 @@ function PlanTextInput({ fieldKey, value, edit, label, labelHidden = false, hint
   const discard = useSekundoStore((s) => s.discardPlannerDraft);
   const range = useSekundoStore((s) => (rangeHint ? rangeHint(s.plannerPlan) : null));
   const hintId = `${id}-hint`;
-  const describedBy = error ? messageId(fieldKey) : hint || range ? hintId : undefined;
+  const shownHint = error ? null : hint ? 'hint' : range && !helped ? 'range' : null;
+  const describedBy = joinIds(error && messageId(fieldKey), shownHint && hintId, hasHelp && fieldHelp.describedBy, elsewhere);
   return (
     <div className={`plan-field${className ? ` ${className}` : ''}`}>
-      <label htmlFor={id} className={labelHidden ? 'visually-hidden' : 'plan-field__label'}>
-        {label}
-      </label>
+      {hasHelp ? (
+        <div className="field-head">
+          <label htmlFor={id} className="plan-field__label">
+            {label}
+          </label>
+          {fieldHelp.button}
+        </div>
+      ) : (
+        <label htmlFor={id} className={labelHidden ? 'visually-hidden' : 'plan-field__label'}>
+          {label}
+        </label>
+      )}
+      {hasHelp ? fieldHelp.panel : null}
       <input
         id={id}
         className="text-input plan-input"
@@ -90,13 +116,13 @@ function PlanTextInput({ fieldKey, value, edit, label, labelHidden = false, hint
           {error}
         </p>
       ) : null}
-      {!error && hint ? (
+      {shownHint === 'hint' ? (
         <p id={hintId} className="field-hint plan-field__hint">
           {hint}
-          {range ? <span className="visually-hidden"> Valid: {range}.</span> : null}
+          {range && !helped ? <span className="visually-hidden"> Valid: {range}.</span> : null}
         </p>
       ) : null}
-      {!error && !hint && range ? (
+      {shownHint === 'range' ? (
         <span id={hintId} className="visually-hidden">
           Valid: {range}.
         </span>

@@ -1,9 +1,12 @@
 import { useId, useState } from 'react';
 import { CUSTOM_PULSE_MAX_POINTS } from '../../physics';
+import { describedBy, useFieldHelp } from '../help/FieldHelp';
 import { useSekundoStore } from '../store';
+import { FieldHead } from './EditorCard';
 import { PlanFieldMessage, PlanNumberField } from './PlanField';
 import { addPulsePoint, customPoints, parsePastedPoints, removePulsePoint, setPulsePoints, setShape, type ShapeKind, shapeKind } from './plan-edits';
-import { HEATER_FIELDS, pulsePointField } from './plan-fields';
+import { fieldRangeText, HEATER_FIELDS, pulsePointField } from './plan-fields';
+import { PLAN_OTHER_HELP, planNumberHelp } from './planner-help';
 import { inputText, KINDS } from './display-units';
 import { RemoveIcon } from './RowIcons';
 
@@ -17,13 +20,12 @@ const SHAPES = [
 export function PulseShapeEditor() {
   const kind = useSekundoStore((s) => shapeKind(s.plannerPlan));
   const edit = useSekundoStore((s) => s.editPlanner);
+  const shapeHelp = useFieldHelp('pulse shape', PLAN_OTHER_HELP['heater.shape']);
   return (
     <div className="plan-grid plan-grid--pulse">
       <div className="plan-field">
-        <label className="plan-field__label" htmlFor="planner-shape">
-          Pulse shape
-        </label>
-        <select id="planner-shape" className="plan-select" value={kind} onChange={(event) => edit('heater.shape', (p) => setShape(p, event.target.value as ShapeKind), 'pulse.')}>
+        <FieldHead htmlFor="planner-shape" label="Pulse shape" help={shapeHelp} />
+        <select id="planner-shape" className="plan-select" value={kind} aria-describedby={shapeHelp.describedBy} onChange={(event) => edit('heater.shape', (p) => setShape(p, event.target.value as ShapeKind), 'pulse.')}>
           {SHAPES.map((s) => (
             <option key={s.value} value={s.value}>
               {s.label}
@@ -43,15 +45,27 @@ function CustomPoints() {
   const points = useSekundoStore((s) => customPoints(s.plannerPlan));
   const edit = useSekundoStore((s) => s.editPlanner);
   const count = points.length;
+  const timeRange = useSekundoStore((s) => fieldRangeText(pulsePointField(0, 0), s.plannerPlan));
+  const amplitudeRange = useSekundoStore((s) => fieldRangeText(pulsePointField(0, 1), s.plannerPlan));
+  const timeHelp = useFieldHelp('time from onset', planNumberHelp(pulsePointField(0, 0), timeRange));
+  const amplitudeHelp = useFieldHelp('relative amplitude', planNumberHelp(pulsePointField(0, 1), amplitudeRange));
   return (
     <div className="pulse-points">
+      <div className="help-panels">
+        {timeHelp.panel}
+        {amplitudeHelp.panel}
+      </div>
       <table className="plan-table pulse-points__table">
         <caption className="visually-hidden">Custom pulse points</caption>
         <thead>
           <tr>
             <th scope="col">#</th>
-            <th scope="col">Time from onset</th>
-            <th scope="col">Relative amplitude</th>
+            <th scope="col">
+              <span className="th-help">Time from onset {timeHelp.button}</span>
+            </th>
+            <th scope="col">
+              <span className="th-help">Relative amplitude {amplitudeHelp.button}</span>
+            </th>
             <th scope="col">
               <span className="visually-hidden">Actions</span>
             </th>
@@ -64,10 +78,10 @@ function CustomPoints() {
             <tr key={i}>
               <td className="num">{i + 1}</td>
               <td>
-                <PlanNumberField field={pulsePointField(i, 0)} label={`Point ${i + 1} time`} labelHidden message="elsewhere" />
+                <PlanNumberField field={pulsePointField(i, 0)} label={`Point ${i + 1} time`} labelHidden message="elsewhere" describedBy={timeHelp.describedBy} />
               </td>
               <td>
-                <PlanNumberField field={pulsePointField(i, 1)} label={`Point ${i + 1} amplitude`} labelHidden message="elsewhere" />
+                <PlanNumberField field={pulsePointField(i, 1)} label={`Point ${i + 1} amplitude`} labelHidden message="elsewhere" describedBy={amplitudeHelp.describedBy} />
               </td>
               <td>
                 <button
@@ -105,6 +119,7 @@ function PastePoints() {
   const [problem, setProblem] = useState<string | null>(null);
   const edit = useSekundoStore((s) => s.editPlanner);
   const error = useSekundoStore((s) => s.plannerErrors['pulse.paste']);
+  const pasteHelp = useFieldHelp('pasted pulse points', PLAN_OTHER_HELP['pulse.paste']);
   const apply = () => {
     const parsed = parsePastedPoints(text);
     if (!parsed.ok) {
@@ -118,9 +133,7 @@ function PastePoints() {
   return (
     <details className="pulse-paste">
       <summary>Paste points as “time, amplitude” lines</summary>
-      <label htmlFor={id} className="plan-field__label">
-        Pulse points, one “time, amplitude” per line
-      </label>
+      <FieldHead htmlFor={id} label="Pulse points, one “time, amplitude” per line" help={pasteHelp} />
       <textarea
         id={id}
         className="text-input pulse-paste__text"
@@ -129,6 +142,7 @@ function PastePoints() {
         placeholder={'0 us, 0\n2 us, 1\n98 us, 1\n100 us, 0'}
         spellCheck={false}
         aria-invalid={message ? true : undefined}
+        aria-describedby={describedBy(message && `${id}-message`, pasteHelp.describedBy)}
         onChange={(event) => setText(event.target.value)}
       />
       <div className="pulse-points__actions">
@@ -138,7 +152,7 @@ function PastePoints() {
         <span className="field-hint">A bare time is in seconds; # starts a comment.</span>
       </div>
       {message ? (
-        <p className="field-error" role="alert">
+        <p id={`${id}-message`} className="field-error" role="alert">
           {message}
         </p>
       ) : null}

@@ -1,20 +1,58 @@
 import type { PlanFileSensor } from '../../io/plan-file';
+import { type FieldHelpParts, useFieldHelp } from '../help/FieldHelp';
 import { useSekundoStore } from '../store';
 import { PLANNER_STRUCTURE_KEY } from '../store/planner-slice';
 import { EditorCard } from './EditorCard';
 import { messageId, PlanFieldMessage, PlanNumberField, PlanTextField } from './PlanField';
 import { MAX_SENSORS, type PositionMode, positionMode, setPositionMode, setSensorText } from './plan-edits';
-import { sensorFields } from './plan-fields';
+import { fieldRangeText, type NumberField, sensorFields } from './plan-fields';
+import { PLAN_OTHER_HELP, planNumberHelp, planUnitsText, sensorPositionHelp } from './planner-help';
 import { themedColour } from '../plot/plot-theme';
 import { useResolvedTheme } from '../theme/use-theme';
 import { sensorColour } from './planner-colours';
 import { CopyIcon, RemoveIcon } from './RowIcons';
+
+/** The help of each column of the sensors table; the cells point to it. */
+interface SensorColumnHelp {
+  id: FieldHelpParts;
+  label: FieldHelpParts;
+  position: FieldHelpParts;
+  distanceSd: FieldHelpParts;
+  area: FieldHelpParts;
+  responsivity: FieldHelpParts;
+  noise: FieldHelpParts;
+  lag: FieldHelpParts;
+}
+
+/** A table column's help for one number field of the sensors, its range read against the plan in use. */
+function useColumnHelp(name: string, field: NumberField): FieldHelpParts {
+  const range = useSekundoStore((s) => fieldRangeText(field, s.plannerPlan));
+  return useFieldHelp(name, planNumberHelp(field, range));
+}
+
+function useSensorColumnHelp(): SensorColumnHelp {
+  const fields = sensorFields(0, '');
+  const distance = useSekundoStore((s) => fieldRangeText(fields.distance, s.plannerPlan));
+  const x = useSekundoStore((s) => fieldRangeText(fields.x, s.plannerPlan));
+  const z = useSekundoStore((s) => fieldRangeText(fields.z, s.plannerPlan));
+  return {
+    id: useFieldHelp('sensor id', PLAN_OTHER_HELP['sensor.id']),
+    label: useFieldHelp('sensor label', PLAN_OTHER_HELP['sensor.label']),
+    position: useFieldHelp('sensor position', sensorPositionHelp({ distance, x, z }, planUnitsText(fields.distance))),
+    distanceSd: useColumnHelp('distance sd', fields.distanceSd),
+    area: useColumnHelp('sensor area', fields.area),
+    responsivity: useColumnHelp('responsivity', fields.responsivity),
+    noise: useColumnHelp('noise (rms)', fields.noise),
+    lag: useColumnHelp('lag τ', fields.lag),
+  };
+}
 
 /** The sensors as a table: one row each, with add, duplicate and remove. */
 export function SensorsEditor() {
   const count = useSekundoStore((s) => s.plannerPlan.sensors.length);
   const keys = useSekundoStore((s) => s.plannerSensorKeys);
   const add = useSekundoStore((s) => s.addPlannerSensor);
+  const help = useSensorColumnHelp();
   return (
     <EditorCard
       id="planner-sensors"
@@ -27,29 +65,55 @@ export function SensorsEditor() {
     >
       <p className="field-hint plan-card__lead">
         Positions are from the heater centre; the heater faces +z. Distances as measured (warm or cold, see Spacer). Units
-        may be typed: 25 mm, 20 um, 1 mm2, 2 V/K, 1 uV, 20 us.
+        may be typed: 25 mm, 20 um, 1 mm2, 2 V/K, 1 uV, 20 us. The “?” in a column’s heading says more.
       </p>
+      <div className="help-panels">
+        {help.id.panel}
+        {help.label.panel}
+        {help.position.panel}
+        {help.distanceSd.panel}
+        {help.area.panel}
+        {help.responsivity.panel}
+        {help.noise.panel}
+        {help.lag.panel}
+      </div>
       <div className="table-scroll">
         <table className="plan-table sensors-table">
           <caption className="visually-hidden">Sensors: position, uncertainty, size and electrical properties</caption>
           <thead>
             <tr>
               <th scope="col">#</th>
-              <th scope="col">Id</th>
-              <th scope="col">Label</th>
-              <th scope="col">Position</th>
-              <th scope="col">Distance sd</th>
-              <th scope="col">Area</th>
-              <th scope="col">Responsivity</th>
-              <th scope="col">Noise (rms)</th>
-              <th scope="col">Lag τ</th>
+              <th scope="col">
+                <span className="th-help">Id {help.id.button}</span>
+              </th>
+              <th scope="col">
+                <span className="th-help">Label {help.label.button}</span>
+              </th>
+              <th scope="col">
+                <span className="th-help">Position {help.position.button}</span>
+              </th>
+              <th scope="col">
+                <span className="th-help">Distance sd {help.distanceSd.button}</span>
+              </th>
+              <th scope="col">
+                <span className="th-help">Area {help.area.button}</span>
+              </th>
+              <th scope="col">
+                <span className="th-help">Responsivity {help.responsivity.button}</span>
+              </th>
+              <th scope="col">
+                <span className="th-help">Noise (rms) {help.noise.button}</span>
+              </th>
+              <th scope="col">
+                <span className="th-help">Lag τ {help.lag.button}</span>
+              </th>
               <th scope="col">
                 <span className="visually-hidden">Actions</span>
               </th>
             </tr>
           </thead>
           {keys.map((key, i) => (
-            <SensorRow key={key} index={i} rowKey={key} count={count} />
+            <SensorRow key={key} index={i} rowKey={key} count={count} help={help} />
           ))}
         </table>
       </div>
@@ -58,7 +122,7 @@ export function SensorsEditor() {
   );
 }
 
-function SensorRow({ index, rowKey, count }: { index: number; rowKey: string; count: number }) {
+function SensorRow({ index, rowKey, count, help }: { index: number; rowKey: string; count: number; help: SensorColumnHelp }) {
   const sensor = useSekundoStore((s) => s.plannerPlan.sensors[index]);
   const duplicate = useSekundoStore((s) => s.duplicatePlannerSensor);
   const theme = useResolvedTheme();
@@ -81,6 +145,7 @@ function SensorRow({ index, rowKey, count }: { index: number; rowKey: string; co
             label={`Sensor ${n} id`}
             labelHidden
             message="elsewhere"
+            describedBy={help.id.describedBy}
             fieldKey={textKeys[0] as string}
             select={(p) => p.sensors[index]?.id ?? ''}
             edit={(p, text) => ({ ok: true, plan: setSensorText(p, index, 'id', text) })}
@@ -92,28 +157,29 @@ function SensorRow({ index, rowKey, count }: { index: number; rowKey: string; co
             label={`Sensor ${n} label`}
             labelHidden
             message="elsewhere"
+            describedBy={help.label.describedBy}
             fieldKey={textKeys[1] as string}
             select={(p) => p.sensors[index]?.label ?? ''}
             edit={(p, text) => ({ ok: true, plan: setSensorText(p, index, 'label', text) })}
           />
         </td>
         <td>
-          <PositionCell index={index} sensor={sensor} fields={fields} modeKey={textKeys[2] as string} />
+          <PositionCell index={index} sensor={sensor} fields={fields} modeKey={textKeys[2] as string} help={help.position.describedBy} />
         </td>
         <td>
-          <PlanNumberField field={fields.distanceSd} label={`Sensor ${n} distance sd`} labelHidden message="elsewhere" />
+          <PlanNumberField field={fields.distanceSd} label={`Sensor ${n} distance sd`} labelHidden message="elsewhere" describedBy={help.distanceSd.describedBy} />
         </td>
         <td>
-          <PlanNumberField field={fields.area} label={`Sensor ${n} area`} labelHidden message="elsewhere" />
+          <PlanNumberField field={fields.area} label={`Sensor ${n} area`} labelHidden message="elsewhere" describedBy={help.area.describedBy} />
         </td>
         <td>
-          <PlanNumberField field={fields.responsivity} label={`Sensor ${n} responsivity`} labelHidden message="elsewhere" />
+          <PlanNumberField field={fields.responsivity} label={`Sensor ${n} responsivity`} labelHidden message="elsewhere" describedBy={help.responsivity.describedBy} />
         </td>
         <td>
-          <PlanNumberField field={fields.noise} label={`Sensor ${n} noise`} labelHidden message="elsewhere" />
+          <PlanNumberField field={fields.noise} label={`Sensor ${n} noise`} labelHidden message="elsewhere" describedBy={help.noise.describedBy} />
         </td>
         <td>
-          <PlanNumberField field={fields.lag} label={`Sensor ${n} lag`} labelHidden message="elsewhere" />
+          <PlanNumberField field={fields.lag} label={`Sensor ${n} lag`} labelHidden message="elsewhere" describedBy={help.lag.describedBy} />
         </td>
         <td className="row-actions">
           <button type="button" className="icon-button" aria-label={`Duplicate sensor ${n} (${sensor.id})`} title="Duplicate" disabled={count >= MAX_SENSORS} onClick={() => duplicate(index)}>
@@ -129,7 +195,7 @@ function SensorRow({ index, rowKey, count }: { index: number; rowKey: string; co
   );
 }
 
-function PositionCell({ index, sensor, fields, modeKey }: { index: number; sensor: PlanFileSensor; fields: ReturnType<typeof sensorFields>; modeKey: string }) {
+function PositionCell({ index, sensor, fields, modeKey, help }: { index: number; sensor: PlanFileSensor; fields: ReturnType<typeof sensorFields>; modeKey: string; help: string }) {
   const edit = useSekundoStore((s) => s.editPlanner);
   const mode = positionMode(sensor);
   const n = index + 1;
@@ -138,6 +204,7 @@ function PositionCell({ index, sensor, fields, modeKey }: { index: number; senso
       <select
         className="plan-select plan-select--small"
         aria-label={`Sensor ${n} position given as`}
+        aria-describedby={help}
         value={mode}
         onChange={(event) => edit(modeKey, (p) => setPositionMode(p, index, event.target.value as PositionMode))}
       >
@@ -145,12 +212,12 @@ function PositionCell({ index, sensor, fields, modeKey }: { index: number; senso
         <option value="xyz">x y z</option>
       </select>
       {mode === 'axis' ? (
-        <PlanNumberField field={fields.distance} label={`Sensor ${n} distance`} labelHidden message="elsewhere" />
+        <PlanNumberField field={fields.distance} label={`Sensor ${n} distance`} labelHidden message="elsewhere" describedBy={help} />
       ) : (
         <>
-          <PlanNumberField field={fields.x} label={`Sensor ${n} x`} labelHidden message="elsewhere" />
-          <PlanNumberField field={fields.y} label={`Sensor ${n} y`} labelHidden message="elsewhere" />
-          <PlanNumberField field={fields.z} label={`Sensor ${n} z`} labelHidden message="elsewhere" />
+          <PlanNumberField field={fields.x} label={`Sensor ${n} x`} labelHidden message="elsewhere" describedBy={help} />
+          <PlanNumberField field={fields.y} label={`Sensor ${n} y`} labelHidden message="elsewhere" describedBy={help} />
+          <PlanNumberField field={fields.z} label={`Sensor ${n} z`} labelHidden message="elsewhere" describedBy={help} />
         </>
       )}
     </div>

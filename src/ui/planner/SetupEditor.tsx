@@ -1,9 +1,11 @@
 import { SPACER_MATERIALS } from '../../physics';
+import { describedBy, type FieldHelpParts, useFieldHelp } from '../help/FieldHelp';
 import { useSekundoStore } from '../store';
-import { EditorCard } from './EditorCard';
+import { EditorCard, FieldHead } from './EditorCard';
 import { PlanFieldMessage, PlanNumberField, PlanTextField } from './PlanField';
 import { MAX_REFLECTORS, setReflector, setSpacer } from './plan-edits';
-import { ECHO_ORDER_FIELD, reflectorFields } from './plan-fields';
+import { ECHO_ORDER_FIELD, fieldRangeText, reflectorFields } from './plan-fields';
+import { PLAN_OTHER_HELP, planNumberHelp } from './planner-help';
 import { RemoveIcon } from './RowIcons';
 import { RowMessages } from './SensorsEditor';
 
@@ -12,28 +14,43 @@ export function SetupEditor() {
   const spacer = useSekundoStore((s) => s.plannerPlan.spacer);
   const edit = useSekundoStore((s) => s.editPlanner);
   const material = SPACER_MATERIALS.find((m) => m.id === spacer.materialId);
+  const spacerHelp = useFieldHelp('spacer material', PLAN_OTHER_HELP['spacer.materialId']);
+  const warmHelp = useFieldHelp('distances measured warm', PLAN_OTHER_HELP['spacer.measuredWarm']);
   return (
     <EditorCard id="planner-setup" title="Spacer and reflections">
       <div className="plan-grid">
         <div className="plan-field plan-field--wide">
-          <label className="plan-field__label" htmlFor="planner-spacer">
-            Spacer material
-          </label>
-          <select id="planner-spacer" className="plan-select" value={spacer.materialId} onChange={(event) => edit('spacer.materialId', (p) => setSpacer(p, { materialId: event.target.value }))}>
+          <FieldHead htmlFor="planner-spacer" label="Spacer material" help={spacerHelp} />
+          <select
+            id="planner-spacer"
+            className="plan-select"
+            value={spacer.materialId}
+            aria-describedby={describedBy('planner-spacer-note', spacerHelp.describedBy)}
+            onChange={(event) => edit('spacer.materialId', (p) => setSpacer(p, { materialId: event.target.value }))}>
             {SPACER_MATERIALS.map((m) => (
               <option key={m.id} value={m.id}>
                 {m.name} ({(m.contraction * 100).toFixed(2)} %)
               </option>
             ))}
           </select>
-          <p className="field-hint plan-field__hint">Contraction 293 K → 4 K{material ? `: ${(material.contraction * 100).toFixed(2)} ± ${(material.contractionSd * 100).toFixed(2)} %` : ''} ({material?.source ?? 'handbook'}).</p>
+          <p id="planner-spacer-note" className="field-hint plan-field__hint">
+            Contraction 293 K → 4 K{material ? `: ${(material.contraction * 100).toFixed(2)} ± ${(material.contractionSd * 100).toFixed(2)} %` : ''} ({material?.source ?? 'handbook'}).</p>
           <PlanFieldMessage fieldKey="spacer.materialId" />
         </div>
         <div className="plan-field plan-field--check">
-          <label className="toggle">
-            <input type="checkbox" checked={spacer.measuredWarm} onChange={(event) => edit('spacer.measuredWarm', (p) => setSpacer(p, { measuredWarm: event.target.checked }))} />
-            Distances were measured warm (shrink them by the contraction)
-          </label>
+          <div className="field-head">
+            <label className="toggle">
+              <input
+                type="checkbox"
+                checked={spacer.measuredWarm}
+                aria-describedby={warmHelp.describedBy}
+                onChange={(event) => edit('spacer.measuredWarm', (p) => setSpacer(p, { measuredWarm: event.target.checked }))}
+              />
+              Distances were measured warm (shrink them by the contraction)
+            </label>
+            {warmHelp.button}
+          </div>
+          {warmHelp.panel}
         </div>
       </div>
       <Reflectors />
@@ -48,6 +65,14 @@ function Reflectors() {
   const count = useSekundoStore((s) => s.plannerPlan.reflectors.length);
   const keys = useSekundoStore((s) => s.plannerReflectorKeys);
   const add = useSekundoStore((s) => s.addPlannerReflector);
+  const positionRange = useSekundoStore((s) => fieldRangeText(reflectorFields(0, '').position, s.plannerPlan));
+  const reflectionRange = useSekundoStore((s) => fieldRangeText(reflectorFields(0, '').reflection, s.plannerPlan));
+  const help: PlaneColumnHelp = {
+    label: useFieldHelp('plane label', PLAN_OTHER_HELP['plane.label']),
+    axis: useFieldHelp('plane axis', PLAN_OTHER_HELP['plane.axis']),
+    position: useFieldHelp('plane position', planNumberHelp(reflectorFields(0, '').position, positionRange)),
+    reflection: useFieldHelp('reflection coefficient R', planNumberHelp(reflectorFields(0, '').reflection, reflectionRange)),
+  };
   return (
     <div className="reflectors">
       <div className="card-head reflectors__head">
@@ -59,29 +84,53 @@ function Reflectors() {
       {count === 0 ? (
         <p className="field-hint">No reflecting planes: only direct arrivals.</p>
       ) : (
-        <table className="plan-table reflectors-table">
-          <caption className="field-hint reflectors__caption">Each plane is “axis = position” (z = across the heater axis, x or y = a side wall); R is the amplitude reflection coefficient.</caption>
-          <thead>
-            <tr>
-              <th scope="col">Label</th>
-              <th scope="col">Plane</th>
-              <th scope="col">Position</th>
-              <th scope="col">R</th>
-              <th scope="col">
-                <span className="visually-hidden">Actions</span>
-              </th>
-            </tr>
-          </thead>
-          {keys.map((key, i) => (
-            <ReflectorRow key={key} index={i} rowKey={key} />
-          ))}
-        </table>
+        <>
+          <div className="help-panels">
+            {help.label.panel}
+            {help.axis.panel}
+            {help.position.panel}
+            {help.reflection.panel}
+          </div>
+          <table className="plan-table reflectors-table">
+            <caption className="field-hint reflectors__caption">Each plane is “axis = position” (z = across the heater axis, x or y = a side wall); R is the amplitude reflection coefficient.</caption>
+            <thead>
+              <tr>
+                <th scope="col">
+                  <span className="th-help">Label {help.label.button}</span>
+                </th>
+                <th scope="col">
+                  <span className="th-help">Plane {help.axis.button}</span>
+                </th>
+                <th scope="col">
+                  <span className="th-help">Position {help.position.button}</span>
+                </th>
+                <th scope="col">
+                  <span className="th-help">R {help.reflection.button}</span>
+                </th>
+                <th scope="col">
+                  <span className="visually-hidden">Actions</span>
+                </th>
+              </tr>
+            </thead>
+            {keys.map((key, i) => (
+              <ReflectorRow key={key} index={i} rowKey={key} help={help} />
+            ))}
+          </table>
+        </>
       )}
     </div>
   );
 }
 
-function ReflectorRow({ index, rowKey }: { index: number; rowKey: string }) {
+/** The help of each column of the planes table; the cells point to it. */
+interface PlaneColumnHelp {
+  label: FieldHelpParts;
+  axis: FieldHelpParts;
+  position: FieldHelpParts;
+  reflection: FieldHelpParts;
+}
+
+function ReflectorRow({ index, rowKey, help }: { index: number; rowKey: string; help: PlaneColumnHelp }) {
   const plane = useSekundoStore((s) => s.plannerPlan.reflectors[index]);
   const edit = useSekundoStore((s) => s.editPlanner);
   const remove = useSekundoStore((s) => s.removePlannerReflector);
@@ -98,6 +147,7 @@ function ReflectorRow({ index, rowKey }: { index: number; rowKey: string }) {
             label={`Plane ${n} label`}
             labelHidden
             message="elsewhere"
+            describedBy={help.label.describedBy}
             fieldKey={labelKey}
             select={(p) => p.reflectors[index]?.label ?? ''}
             edit={(p, text) => ({ ok: true, plan: setReflector(p, index, { label: text }) })}
@@ -107,6 +157,7 @@ function ReflectorRow({ index, rowKey }: { index: number; rowKey: string }) {
           <select
             className="plan-select plan-select--small"
             aria-label={`Plane ${n} axis`}
+            aria-describedby={help.axis.describedBy}
             value={plane.axis}
             onChange={(event) => edit(axisKey, (p) => setReflector(p, index, { axis: event.target.value as 'x' | 'y' | 'z' }))}
           >
@@ -116,10 +167,10 @@ function ReflectorRow({ index, rowKey }: { index: number; rowKey: string }) {
           </select>
         </td>
         <td>
-          <PlanNumberField field={fields.position} label={`Plane ${n} position`} labelHidden message="elsewhere" />
+          <PlanNumberField field={fields.position} label={`Plane ${n} position`} labelHidden message="elsewhere" describedBy={help.position.describedBy} />
         </td>
         <td>
-          <PlanNumberField field={fields.reflection} label={`Plane ${n} reflection R`} labelHidden message="elsewhere" />
+          <PlanNumberField field={fields.reflection} label={`Plane ${n} reflection R`} labelHidden message="elsewhere" describedBy={help.reflection.describedBy} />
         </td>
         <td className="row-actions">
           <button type="button" className="icon-button" aria-label={`Remove plane ${n} (${plane.label})`} title="Remove" onClick={() => remove(index)}>

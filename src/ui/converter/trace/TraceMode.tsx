@@ -2,11 +2,13 @@ import { useId, useMemo } from 'react';
 import type { TracePickOptions } from '../../../io/trace-pick';
 import { PICKER_KINDS, type PickerKind } from '../../../physics';
 import { formatSignificant } from '../../format/format-number';
+import { type FieldHelpParts, useFieldHelp } from '../../help/FieldHelp';
 import { PanelErrorBoundary } from '../../layout/PanelErrorBoundary';
 import { useSekundoStore } from '../../store';
 import { ChoiceCard } from '../ChoiceCard';
 import { ConverterField } from '../ConverterField';
 import type { Polarity, TraceFileEntry } from '../converter-slice';
+import { CONVERTER_CHOICE_HELP } from '../converter-help';
 import { DropZone } from '../DropZone';
 import { SetupCard } from '../SetupCard';
 import { useFieldValues } from '../use-converter';
@@ -188,16 +190,20 @@ function PickerCard() {
   const sensorId = useId();
   const pickerId = useId();
   const polarityId = useId();
+  const help = {
+    heater: useFieldHelp('heater / trigger channel', CONVERTER_CHOICE_HELP.heater),
+    sensor: useFieldHelp('sensor channel', CONVERTER_CHOICE_HELP.sensor),
+    picker: useFieldHelp('picker', CONVERTER_CHOICE_HELP.picker),
+    polarity: useFieldHelp('pulse polarity', CONVERTER_CHOICE_HELP.polarity),
+  };
   return (
     <section className="card converter-card" aria-labelledby={headingId}>
       <h2 id={headingId} className="card-title">
         Channels and picker
       </h2>
       <div className="picker-grid">
-        <label className="field-label" htmlFor={heaterId}>
-          Heater / trigger channel
-        </label>
-        <select id={heaterId} className="select" value={heater ?? ''} onChange={(e) => setChannels({ heater: e.target.value === '' ? null : e.target.value })}>
+        <PickerLabel htmlFor={heaterId} label="Heater / trigger channel" help={help.heater} />
+        <select id={heaterId} className="select" value={heater ?? ''} aria-describedby={help.heater.describedBy} onChange={(e) => setChannels({ heater: e.target.value === '' ? null : e.target.value })}>
           <option value="">None: time zero is the file’s t = 0</option>
           {channels.map((c) => (
             <option key={c} value={c}>
@@ -205,10 +211,9 @@ function PickerCard() {
             </option>
           ))}
         </select>
-        <label className="field-label" htmlFor={sensorId}>
-          Sensor channel
-        </label>
-        <select id={sensorId} className="select" value={sensor ?? ''} onChange={(e) => setChannels({ sensor: e.target.value === '' ? null : e.target.value })}>
+        {help.heater.panel}
+        <PickerLabel htmlFor={sensorId} label="Sensor channel" help={help.sensor} />
+        <select id={sensorId} className="select" value={sensor ?? ''} aria-describedby={help.sensor.describedBy} onChange={(e) => setChannels({ sensor: e.target.value === '' ? null : e.target.value })}>
           <option value="">First channel that is not the heater</option>
           {channels.map((c) => (
             <option key={c} value={c}>
@@ -216,24 +221,23 @@ function PickerCard() {
             </option>
           ))}
         </select>
-        <label className="field-label" htmlFor={pickerId}>
-          Picker
-        </label>
-        <select id={pickerId} className="select" value={picker} onChange={(e) => setPicker(e.target.value as PickerKind)}>
+        {help.sensor.panel}
+        <PickerLabel htmlFor={pickerId} label="Picker" help={help.picker} />
+        <select id={pickerId} className="select" value={picker} aria-describedby={help.picker.describedBy} onChange={(e) => setPicker(e.target.value as PickerKind)}>
           {PICKER_KINDS.map((k) => (
             <option key={k} value={k}>
               {k === 'xcorr' ? `${PICKER_LABELS[k]} (${heater ? 'heater drive' : 'rectangle'})` : PICKER_LABELS[k]}
             </option>
           ))}
         </select>
-        <label className="field-label" htmlFor={polarityId}>
-          Pulse polarity
-        </label>
-        <select id={polarityId} className="select" value={polarity} onChange={(e) => setPolarity(e.target.value as Polarity)}>
+        {help.picker.panel}
+        <PickerLabel htmlFor={polarityId} label="Pulse polarity" help={help.polarity} />
+        <select id={polarityId} className="select" value={polarity} aria-describedby={help.polarity.describedBy} onChange={(e) => setPolarity(e.target.value as Polarity)}>
           <option value="auto">Automatic (the larger excursion)</option>
           <option value="positive">Positive-going</option>
           <option value="negative">Negative-going</option>
         </select>
+        {help.polarity.panel}
       </div>
       <div className="picker-fields">
         {picker === 'threshold' ? <ConverterField fieldKey="threshold" label="Threshold k (noise sd)" className="picker-fields__wide" /> : null}
@@ -246,5 +250,17 @@ function PickerCard() {
         pickup keeps the picker off it.
       </p>
     </section>
+  );
+}
+
+/** A label in the picker grid with its "?"; the help folds out in a row of its own below. */
+function PickerLabel({ htmlFor, label, help }: { htmlFor: string; label: string; help: FieldHelpParts }) {
+  return (
+    <div className="field-head">
+      <label className="field-label" htmlFor={htmlFor}>
+        {label}
+      </label>
+      {help.button}
+    </div>
   );
 }

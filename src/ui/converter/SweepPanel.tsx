@@ -11,6 +11,8 @@ import { sentence } from './converter-checks';
 import { valuesOf } from './converter-slice';
 import { writeCsv } from '../../io/csv-common';
 import { tableTsv } from './export-text';
+import { sweepHelp } from './converter-help';
+import { describedBy, useFieldHelp } from '../help/FieldHelp';
 import { sweepCalibration } from './reading-results';
 import { ResultActions } from './ResultActions';
 import { readSweepText } from './table-input';
@@ -63,6 +65,9 @@ export function SweepInput() {
   const error = useSekundoStore((s) => s.converterSweepError);
   const edit = useSekundoStore((s) => s.editConverterSweep);
   const setUnit = useSekundoStore((s) => s.setConverterSweepUnit);
+  const topics = sweepHelp(unit);
+  const textHelp = useFieldHelp('sweep readings', topics.text);
+  const unitHelp = useFieldHelp('delay unit of the sweep', topics.unit);
   return (
     <section className="card converter-card" aria-labelledby={headingId}>
       <h2 id={headingId} className="card-title">
@@ -73,9 +78,13 @@ export function SweepInput() {
         {SECOND_SOUND_EXTREMA.maximum.temperature_K.toFixed(2)} K) while you log delays. The shortest delay belongs to the maximum, so L = u₂,max · (t_min − t₀)
         without a thermometer. x is the time of each reading or its number; the offset t₀ (below) is subtracted.
       </p>
-      <label className="field-label" htmlFor={areaId}>
-        Sweep readings (x, delay), one per line
-      </label>
+      <div className="field-head">
+        <label className="field-label" htmlFor={areaId}>
+          Sweep readings (x, delay), one per line
+        </label>
+        {textHelp.button}
+      </div>
+      {textHelp.panel}
       <textarea
         id={areaId}
         className="text-input sweep-text"
@@ -84,6 +93,7 @@ export function SweepInput() {
         value={text}
         placeholder={'0, 2.3912\n1, 2.3871\n…'}
         aria-invalid={error ? true : undefined}
+        aria-describedby={describedBy(error && `${areaId}-error`, textHelp.describedBy)}
         onChange={(event) => edit(event.target.value)}
         onBlur={commitSweep}
       />
@@ -93,6 +103,7 @@ export function SweepInput() {
           <select
             className="unit-select"
             value={unit}
+            aria-describedby={unitHelp.describedBy}
             onChange={(event) => {
               setUnit(event.target.value as Unit);
               commitSweep();
@@ -105,6 +116,7 @@ export function SweepInput() {
             ))}
           </select>
         </label>
+        {unitHelp.button}
         <button type="button" className="button button--primary" onClick={commitSweep}>
           Calibrate
         </button>
@@ -120,8 +132,9 @@ export function SweepInput() {
           Load an invented example
         </button>
       </div>
+      {unitHelp.panel}
       {error ? (
-        <p className="field-error" role="alert">
+        <p id={`${areaId}-error`} className="field-error" role="alert">
           {error} The last good calibration stays in effect.
         </p>
       ) : null}

@@ -120,6 +120,11 @@ function canonicalPressure(key: string): string {
   return key === 'pa' ? 'Pa' : key === 'kpa' ? 'kPa' : key;
 }
 
+/** A column name ending in its unit, in plain ASCII ("µs" → "us", which {@link unitOfColumn} reads back): ("T", "mK") → "T_mK". */
+export function columnWithUnit(base: string, unit: string): string {
+  return `${base}_${unit.replace(/[µμ]/g, 'u')}`;
+}
+
 /** The name without its unit suffix, lower case: "Time (ms)" → "time", "delay_s" → "delay", "t" → "t". */
 export function baseOfColumn(name: string): string {
   let text = name.trim().replace(/\s*[([][^)\]]*[)\]]\s*$/, '');

@@ -29,6 +29,8 @@
  *   "extremum", "insensitive", "Landau-model", "critical-scaling"; empty for a plain root);
  *   candidates coldest first, empty cells where a row has fewer. [..] columns appear only when
  *   the input has them. Numbers in full (shortest round-trip) precision.
+ *   With {@link ResultUnits} (the page's display units) the columns of a kind are in that unit
+ *   and named for it (T_mK, distance_mm, pressure_mbar, and delay_us in place of the echoed delay).
  */
 import {
   type Branch,
@@ -40,7 +42,8 @@ import {
   PROPERTIES_RANGE_K,
   type TemperatureCandidate,
 } from '../physics';
-import { type CsvCell, CsvInputError, writeCsv } from './csv-common';
+import { type CsvCell, CsvInputError, columnWithUnit, writeCsv } from './csv-common';
+import { fromBaseUnit, type Unit } from './quantity';
 import { type CsvTable, columnByBase, columnList, columnNamed, numberAt, readCsvTable, type TableColumn } from './small-csv';
 
 /** The delay column's default name. */
@@ -300,35 +303,53 @@ function noteOf(extremum: boolean, insensitive: boolean, region: number): string
   return words.join(' ');
 }
 
+/**
+ * Units of the output columns by kind; a kind not given stays as described above (kelvin, metres,
+ * pascals, the delay echoed as written).
+ */
+export interface ResultUnits {
+  temperature?: Unit;
+  length?: Unit;
+  pressure?: Unit;
+  time?: Unit;
+}
+
+/** An SI value in `unit` (as it is without one); null and undefined stay. */
+function inUnit(value: number | null | undefined, unit: Unit | undefined): number | null | undefined {
+  return value == null || unit === undefined ? value : fromBaseUnit(value, unit);
+}
+
 /** The output header for a batch (see the module comment). */
-export function delayResultHeader(batch: Pick<DelayBatch, 'delayColumn' | 'hasTimestamp' | 'hasPressure'>): string[] {
+export function delayResultHeader(batch: Pick<DelayBatch, 'delayColumn' | 'hasTimestamp' | 'hasPressure'>, units: ResultUnits = {}): string[] {
+  const T = units.temperature ?? 'K';
   const header = ['line'];
   if (batch.hasTimestamp) header.push('timestamp');
-  header.push(batch.delayColumn, 'distance_m');
-  if (batch.hasPressure) header.push('pressure_Pa');
-  header.push('speed_m_s', 'speedSd_m_s', 'candidates', 'chosen', 'chosen_by', 'T_K', 'T_sd_K');
-  for (let i = 1; i <= MAX_CANDIDATES; i++) header.push(`T${i}_K`, `T${i}_sd_K`, `T${i}_branch`, `T${i}_note`);
+  header.push(units.time ? columnWithUnit('delay', units.time) : batch.delayColumn, columnWithUnit('distance', units.length ?? 'm'));
+  if (batch.hasPressure) header.push(columnWithUnit('pressure', units.pressure ?? 'Pa'));
+  header.push('speed_m_s', 'speedSd_m_s', 'candidates', 'chosen', 'chosen_by', columnWithUnit('T', T), columnWithUnit('T_sd', T));
+  for (let i = 1; i <= MAX_CANDIDATES; i++) header.push(columnWithUnit(`T${i}`, T), columnWithUnit(`T${i}_sd`, T), `T${i}_branch`, `T${i}_note`);
   return header;
 }
 
 /** Row `i`'s cells, in the order of {@link delayResultHeader}. */
-export function delayResultCells(r: DelayBatchResults, i: number): CsvCell[] {
+export function delayResultCells(r: DelayBatchResults, i: number, units: ResultUnits = {}): CsvCell[] {
   const row = r.batch.rows[i] as DelayRow;
+  const T = units.temperature;
   const cells: CsvCell[] = [row.line];
   if (r.batch.hasTimestamp) cells.push(row.timestamp ?? '');
-  cells.push(row.delayAsWritten, r.distance_m[i]);
-  if (r.batch.hasPressure) cells.push(row.pressure_Pa ?? null);
+  cells.push(units.time ? fromBaseUnit(row.delay_s, units.time) : row.delayAsWritten, inUnit(r.distance_m[i], units.length));
+  if (r.batch.hasPressure) cells.push(inUnit(row.pressure_Pa ?? null, units.pressure));
   const chosen = r.chosen[i] as number;
   const c = i * MAX_CANDIDATES + chosen;
   const by = r.chosenBy[i] as number;
   cells.push(r.speed_m_s[i], r.speedSd_m_s[i], r.candidateCount[i], chosen < 0 ? null : chosen + 1, CHOSEN_BY_CODES[by] ?? '');
-  cells.push(chosen < 0 ? null : r.temperature_K[c], chosen < 0 ? null : r.sd_K[c]);
+  cells.push(chosen < 0 ? null : inUnit(r.temperature_K[c], T), chosen < 0 ? null : inUnit(r.sd_K[c], T));
   for (let k = 0; k < MAX_CANDIDATES; k++) {
     const j = i * MAX_CANDIDATES + k;
     const present = k < (r.candidateCount[i] as number);
     cells.push(
-      present ? r.temperature_K[j] : null,
-      present ? r.sd_K[j] : null,
+      present ? inUnit(r.temperature_K[j], T) : null,
+      present ? inUnit(r.sd_K[j], T) : null,
       present ? BRANCH_CODES[r.branch[j] as number] : null,
       present ? noteOf(r.kind[j] === 1, r.insensitive[j] === 1, r.region[j] as number) : null,
     );
@@ -336,10 +357,10 @@ export function delayResultCells(r: DelayBatchResults, i: number): CsvCell[] {
   return cells;
 }
 
-/** The results as CSV text (RFC 4180 quoting, LF line ends, a header row first). */
-export function delayResultsToCsv(results: DelayBatchResults): string {
+/** The results as CSV text (RFC 4180 quoting, LF line ends, a header row first), columns in `units` where given. */
+export function delayResultsToCsv(results: DelayBatchResults, units: ResultUnits = {}): string {
   return writeCsv(
-    delayResultHeader(results.batch),
-    Array.from({ length: results.count }, (_, i) => delayResultCells(results, i)),
+    delayResultHeader(results.batch, units),
+    Array.from({ length: results.count }, (_, i) => delayResultCells(results, i, units)),
   );
 }

@@ -21,6 +21,7 @@ export interface Choice {
   reason: string;
 }
 
+/** A temperature in a reason: kelvin to 0.1 mK ("1.8000 K"). */
 function fmtK(T: number): string {
   return `${T.toFixed(4)} K`;
 }
@@ -41,28 +42,30 @@ function nearest(candidates: readonly TemperatureCandidate[], T: number): number
 /**
  * Picks the candidate a rule favours. Pressure: the candidate nearest the ITS-90 vapour-pressure
  * temperature; near: the candidate nearest the given temperature; range: the single candidate
- * inside [min, max] (none or several: no choice). Throws typed errors for bad rule values.
+ * inside [min, max] (none or several: no choice). `fmt` writes the temperatures in the
+ * reason (default: kelvin to 0.1 mK, "1.8000 K"; a page may pass its display unit). Throws typed
+ * errors for bad rule values.
  */
-export function chooseCandidate(candidates: readonly TemperatureCandidate[], rule: ChoiceRule): Choice {
+export function chooseCandidate(candidates: readonly TemperatureCandidate[], rule: ChoiceRule, fmt: (T_K: number) => string = fmtK): Choice {
   if (candidates.length === 0) return { index: null, reason: 'no candidate temperature' };
   switch (rule.kind) {
     case 'pressure': {
       requireInRange('vapour pressure', rule.pressure_Pa, VAPOUR_PRESSURE_RANGE_PA[0], VAPOUR_PRESSURE_RANGE_PA[1], 'Pa');
       const vp = temperatureFromVapourPressure(rule.pressure_Pa);
       const i = nearest(candidates, vp.temperature_K);
-      return { index: i, reason: `nearest to ${fmtK(vp.temperature_K)} from the vapour pressure (${vp.scale})` };
+      return { index: i, reason: `nearest to ${fmt(vp.temperature_K)} from the vapour pressure (${vp.scale})` };
     }
     case 'near': {
       requireInRange('expected temperature', rule.temperature_K, PROPERTIES_RANGE_K[0], PROPERTIES_RANGE_K[1], 'K');
       const i = nearest(candidates, rule.temperature_K);
-      return { index: i, reason: `nearest to the expected ${fmtK(rule.temperature_K)}` };
+      return { index: i, reason: `nearest to the expected ${fmt(rule.temperature_K)}` };
     }
     case 'range': {
       requireInRange('range minimum', rule.min_K, 0, PROPERTIES_RANGE_K[1], 'K');
       requireInRange('range maximum', rule.max_K, rule.min_K, PROPERTIES_RANGE_K[1], 'K', 'at least the minimum');
       const inside = candidates.flatMap((c, i) => (c.temperature_K >= rule.min_K && c.temperature_K <= rule.max_K ? [i] : []));
-      if (inside.length === 1) return { index: inside[0] as number, reason: `the only one in ${fmtK(rule.min_K)}–${fmtK(rule.max_K)}` };
-      return { index: null, reason: inside.length === 0 ? `none in ${fmtK(rule.min_K)}–${fmtK(rule.max_K)}` : `${inside.length} lie in ${fmtK(rule.min_K)}–${fmtK(rule.max_K)}` };
+      if (inside.length === 1) return { index: inside[0] as number, reason: `the only one in ${fmt(rule.min_K)}–${fmt(rule.max_K)}` };
+      return { index: null, reason: inside.length === 0 ? `none in ${fmt(rule.min_K)}–${fmt(rule.max_K)}` : `${inside.length} lie in ${fmt(rule.min_K)}–${fmt(rule.max_K)}` };
     }
   }
 }

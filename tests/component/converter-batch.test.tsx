@@ -42,11 +42,15 @@ describe('converter: batch file', () => {
     expect(await screen.findByText(/4 readings; 4 with a chosen temperature/)).toBeInTheDocument();
     const rows = resultRows();
     expect(rows).toHaveLength(4);
-    // Lines 2–5 of the file; the temperature column gives back the model to 0.1 mK or better.
+    // Lines 2–5 of the file; the temperature and its sd are rounded together (the same decimals),
+    // and the temperature gives back the model to within that rounding.
     rows.forEach((row, i) => {
       const cells = within(row).getAllByRole('cell');
       expect(within(row).getByRole('rowheader')).toHaveTextContent(String(i + 2));
-      expect(cells[4]?.textContent).toBe(MODEL_K[i]?.toFixed(4));
+      const [value = '', sd = ''] = [cells[4]?.textContent, cells[5]?.textContent];
+      const decimals = value.split('.')[1]?.length ?? 0;
+      expect(sd.split('.')[1]?.length ?? 0).toBe(decimals);
+      expect(Math.abs(Number(value) - (MODEL_K[i] as number))).toBeLessThanOrEqual(0.5 * 10 ** -decimals + 1e-12);
       expect(cells[6]?.textContent).toBe(i === 0 ? 'pressure' : 'continuity');
     });
     expect(rows[0]).toHaveTextContent('14:00:00');
@@ -59,7 +63,7 @@ describe('converter: batch file', () => {
     expect(chosen?.x).toEqual([0, 1, 2, 3]);
   });
 
-  it('exports the results as CSV: one line per reading, the model temperatures in full precision', async () => {
+  it('exports the results as CSV in the display units: one line per reading, the model temperatures in full precision', async () => {
     const user = await openBatch();
     await user.upload(screen.getByLabelText('Choose a CSV file'), new File([modelCsv()], 'cooldown log.csv', { type: 'text/csv' }));
     await screen.findByText(/4 readings/);
@@ -79,13 +83,14 @@ describe('converter: batch file', () => {
     expect(blobs[0]?.type).toBe('text/csv;charset=utf-8');
     const lines = ((await blobs[0]?.text()) ?? '').trimEnd().split('\n');
     expect(lines[0]).toBe(
-      'line,timestamp,delay_ms,distance_m,pressure_Pa,speed_m_s,speedSd_m_s,candidates,chosen,chosen_by,T_K,T_sd_K,T1_K,T1_sd_K,T1_branch,T1_note,T2_K,T2_sd_K,T2_branch,T2_note,T3_K,T3_sd_K,T3_branch,T3_note',
+      'line,timestamp,delay_ms,distance_mm,pressure_Pa,speed_m_s,speedSd_m_s,candidates,chosen,chosen_by,T_K,T_sd_K,T1_K,T1_sd_K,T1_branch,T1_note,T2_K,T2_sd_K,T2_branch,T2_note,T3_K,T3_sd_K,T3_branch,T3_note',
     );
     expect(lines).toHaveLength(5);
     lines.slice(1).forEach((line, i) => {
       const cells = line.split(',');
       expect(cells[0]).toBe(String(i + 2));
       expect(cells[1]).toBe(`2026-11-03T14:0${i}:00Z`);
+      expect(cells[3]).toBe('50');
       expect(Number(cells[5])).toBeCloseTo(secondSound(MODEL_K[i] as number), 9);
       expect(cells[7]).toBe('3');
       expect(cells[8]).toBe('3');

@@ -2,6 +2,7 @@ import { render, screen, waitFor, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import { App } from '../../app/App';
 import { convertDelay, secondSound } from '../../src/physics';
+import { formatMeasured } from '../../src/ui/format/format-measured';
 import { SPEED_BAND_SHAPE } from '../../src/ui/converter/speed-figure';
 import { useSekundoStore } from '../../src/ui/store';
 import { lastDraw, lastShape } from './fake-plotly';
@@ -51,11 +52,16 @@ describe('converter: one reading', () => {
     expect(screen.getByTestId('speed')).toHaveTextContent('20.00');
     const rows = candidateRows();
     expect(rows).toHaveLength(3);
-    // The kernel's own roots, coldest first; the table shows each to 0.1 mK.
+    // The kernel's own roots, coldest first; the table shows each with its sd, rounded together
+    // (0.946 ± 0.006 K, 1.492 ± 0.016 K, 1.785 ± 0.011 K).
     const expected = convertDelay({ distance_m: 0.05, delay_s: 2.5e-3, distanceSd_m: 1e-4, delaySd_s: 2e-6, offset_s: 0, offsetSd_s: 0 }).candidates;
     rows.forEach((row, i) => {
-      expect(row).toHaveTextContent(`${expected[i]?.temperature_K.toFixed(4)}`);
+      const c = expected[i];
+      const shown = formatMeasured(c?.temperature_K ?? Number.NaN, c?.sd_K ?? null);
+      expect(within(row).getAllByRole('cell')[0]).toHaveTextContent(`${shown.value} K`);
+      expect(within(row).getAllByRole('cell')[1]).toHaveTextContent(`± ${shown.sd} K`);
     });
+    expect(rows.map((r) => within(r).getAllByRole('cell')[0]?.textContent)).toEqual(['0.946 K', '1.492 K', '1.785 K']);
     expect(rows.map((r) => within(r).getAllByRole('cell')[3]?.textContent)).toEqual(['low, falling', 'middle, rising', 'high, falling']);
     // Each candidate is a root of u₂(T) = 20 m/s.
     for (const c of expected) expect(secondSound(c.temperature_K)).toBeCloseTo(20, 9);
@@ -76,12 +82,14 @@ describe('converter: one reading', () => {
     expect(rows).toHaveLength(3);
     const chosen = rows.filter((r) => r.getAttribute('aria-current') === 'true');
     expect(chosen).toHaveLength(1);
-    // ITS-90: 1638.2 Pa is the vapour pressure at 1.8000 K; the high-branch root is 1.7851 K.
-    expect(chosen[0]).toHaveTextContent('1.7851');
+    // ITS-90: 1638.2 Pa is the vapour pressure at 1.8000 K; the high-branch root is 1.7851 K, shown
+    // to the digit its sd (11 mK) supports.
+    expect(chosen[0]).toHaveTextContent('1.785 K');
     expect(chosen[0]).toHaveTextContent(/nearest to 1\.8000 K from the vapour pressure \(ITS-90\)/);
-    expect(screen.getByTestId('chosen-temperature')).toHaveTextContent('1.7851');
-    expect(rows[0]).toHaveTextContent(/−853\.5 mK from the vapour-pressure temperature 1\.8000 K/);
-    expect(rows[1]).toHaveTextContent(/−308\.1 mK from the vapour-pressure temperature/);
+    expect(screen.getByTestId('chosen-temperature')).toHaveTextContent(/^1\.785$/);
+    expect(screen.getByTestId('chosen-temperature').nextElementSibling).toHaveTextContent('± 0.011 K');
+    expect(rows[0]).toHaveTextContent(/−0\.8535 K from the vapour-pressure temperature 1\.8000 K/);
+    expect(rows[1]).toHaveTextContent(/−0\.3081 K from the vapour-pressure temperature/);
     await waitFor(() => expect(lastDraw('converter-speed')?.data.find((t) => t.name === 'Chosen')?.x[0]).toBeCloseTo(1.7851, 4));
   });
 
@@ -107,7 +115,7 @@ describe('converter: one reading', () => {
     expect(screen.queryByRole('alert')).toBeNull();
   });
 
-  it('exports the reading as CSV, one row per candidate', async () => {
+  it('exports the reading as CSV, one row per candidate, in the display units (mm, ms, K by default)', async () => {
     const user = await openConverter();
     await typeField(user, 'Vapour pressure', '1638.2');
     const downloads = captureDownloads();
@@ -117,12 +125,12 @@ describe('converter: one reading', () => {
     const text = await downloads.blobs[0]?.text();
     const lines = text?.trimEnd().split('\n') ?? [];
     expect(lines[0]).toBe(
-      'distance_m,distance_sd_m,delay_s,delay_sd_s,offset_s,offset_sd_s,speed_m_s,speed_sd_m_s,rule,candidate,T_K,T_sd_K,slope_m_s_K,branch,region,kind,insensitive,chosen,choice',
+      'distance_mm,distance_sd_mm,delay_ms,delay_sd_ms,offset_ms,offset_sd_ms,speed_m_s,speed_sd_m_s,rule,candidate,T_K,T_sd_K,slope_m_s_K,branch,region,kind,insensitive,chosen,choice',
     );
     expect(lines).toHaveLength(4);
     const c = convertDelay({ distance_m: 0.05, delay_s: 2.5e-3, distanceSd_m: 1e-4, delaySd_s: 2e-6, offset_s: 0, offsetSd_s: 0 }).candidates[2];
     expect(lines[3]).toBe(
-      `0.05,0.0001,0.0025,0.000002,0,0,20,${20 * Math.hypot(1e-4 / 0.05, 2e-6 / 2.5e-3)},vapour pressure 1638.2 Pa,3,${c?.temperature_K},${c?.sd_K},${c?.slope_m_s_K},high,measured,root,false,true,nearest to 1.8000 K from the vapour pressure (ITS-90)`,
+      `50,0.1,2.5,0.002,0,0,20,${20 * Math.hypot(1e-4 / 0.05, 2e-6 / 2.5e-3)},vapour pressure 1638.2 Pa,3,${c?.temperature_K},${c?.sd_K},${c?.slope_m_s_K},high,measured,root,false,true,nearest to 1.8000 K from the vapour pressure (ITS-90)`,
     );
     expect(screen.getByText('Saved sekundo-reading.csv.')).toBeInTheDocument();
   });
@@ -140,7 +148,9 @@ describe('converter: one reading', () => {
     await user.click(screen.getByRole('tab', { name: 'Several distances' }));
     // The invented example in the table: 1.90 K (u₂ = 18.83 m/s), t₀ = 12 µs.
     expect(screen.getByTestId('speed')).toHaveTextContent('18.8');
-    expect(screen.getByText(/Offset t₀/).closest('div')).toHaveTextContent(/12\.\d+ ± \d/);
+    // The offset in the header's time unit (ms by default), rounded with its sd; the example's t₀ is 12 µs.
+    const offset = /Offset t₀([\d.]+) ± ([\d.]+) ms/.exec(screen.getByText(/Offset t₀/).closest('div')?.textContent ?? '');
+    expect(Math.abs(Number(offset?.[1]) - 0.012)).toBeLessThan(2 * Number(offset?.[2]));
     const cell = screen.getByRole('textbox', { name: 'Row 2 delay' });
     await user.clear(cell);
     await user.type(cell, 'abc{Enter}');
@@ -154,7 +164,7 @@ describe('converter: one reading', () => {
     await user.click(screen.getByRole('button', { name: 'Load an invented example' }));
     // The example sweep runs over a 48.60 mm path.
     const figure = screen.getByText('Path length L').closest('div')?.textContent ?? '';
-    const [, L, sd] = /([\d.]+) mm ± ([\d.]+)/.exec(figure) ?? [];
+    const [, L, sd] = /([\d.]+) ± ([\d.]+) mm/.exec(figure) ?? [];
     expect(Math.abs(Number(L) - 48.6)).toBeLessThan(2 * Number(sd));
     await user.click(screen.getByRole('button', { name: 'Use as the distance' }));
     expect(useSekundoStore.getState().converterFields.distance.value).toBeCloseTo(0.0486, 4);

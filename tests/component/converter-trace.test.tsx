@@ -72,8 +72,9 @@ describe('converter: trace lab', () => {
     const table = screen.getByRole('table', { name: /every temperature with u₂/i });
     const rows = within(table).getAllByRole('row').slice(1);
     expect(rows).toHaveLength(3);
-    // Arriving 2 µs late reads slow, which on the high branch (u₂ falling with T) is about 2 mK warm.
-    expect(rows[2]).toHaveTextContent(/1\.802\d K/);
+    // Arriving 2 µs late reads slow, which on the high branch (u₂ falling with T) is about 2 mK warm;
+    // the 0.1 mm distance sd makes the sd about 9 mK, so the value is shown to 1 mK.
+    expect(rows[2]).toHaveTextContent(/1\.802 K± 0\.009 K/);
   });
 
   it('switches pickers: the threshold picker finds the first rise, earlier than the half-height point', async () => {
@@ -99,7 +100,14 @@ describe('converter: trace lab', () => {
     await user.upload(screen.getByLabelText('Choose trace files'), files);
     await user.click(screen.getByRole('radio', { name: 'Expected temperature' }));
     const table = await screen.findByRole('table', { name: /each file’s delay, speed and temperature/i }, { timeout: 5000 });
-    await waitFor(() => expect(within(table).getAllByRole('row').slice(1).map((r) => r.textContent)).toEqual([expect.stringMatching(/1\.84\d\d/), expect.stringMatching(/1\.82\d\d/), expect.stringMatching(/1\.80\d\d/)]));
+    // The T column (after file, timestamp, delay and speed), each about 2 mK warm, to the mK its sd supports.
+    await waitFor(() =>
+      expect(within(table).getAllByRole('row').slice(1).map((r) => within(r).getAllByRole('cell')[4]?.textContent)).toEqual([
+        expect.stringMatching(/^1\.84\d$/),
+        expect.stringMatching(/^1\.82\d$/),
+        expect.stringMatching(/^1\.80\d$/),
+      ]),
+    );
     const names = within(table).getAllByRole('button').map((b) => b.textContent);
     expect(names).toEqual(['c-late.csv', 'a-early.csv', 'b-middle.csv'].sort());
     expect(screen.getByText(/3 files, ordered by the timestamp in their headers; 3 with a chosen temperature/)).toBeInTheDocument();
@@ -114,7 +122,8 @@ describe('converter: trace lab', () => {
     await user.click(screen.getByRole('button', { name: 'Export the series as CSV' }));
     click.mockRestore();
     const lines = ((await blobs[0]?.text()) ?? '').trimEnd().split('\n');
-    expect(lines[0]?.startsWith('order,file,timestamp,pressure_Pa,sensor,heater,picker,delay_s,delay_sd_s,snr,speed_m_s,speed_sd_m_s,candidates,chosen,chosen_by,T_K,T_sd_K')).toBe(true);
+    // Columns in the display units (Pa, ms, K by default).
+    expect(lines[0]?.startsWith('order,file,timestamp,pressure_Pa,sensor,heater,picker,delay_ms,delay_sd_ms,snr,speed_m_s,speed_sd_m_s,candidates,chosen,chosen_by,T_K,T_sd_K')).toBe(true);
     expect(lines.slice(1).map((l) => l.split(',').slice(0, 3).join(','))).toEqual(['1,a-early.csv,2026-11-03T15:00:00Z', '2,b-middle.csv,2026-11-03T15:02:00Z', '3,c-late.csv,2026-11-03T15:04:00Z']);
     const T = lines.slice(1).map((l) => Number(l.split(',')[15]));
     // Each file's half-height pick is 2 µs late, which makes it read about 2 mK warm.

@@ -1,4 +1,5 @@
 import { useId, useMemo, useState } from 'react';
+import type { TemperatureCandidate } from '../../physics';
 import { delayResultAt, delayResultsToCsv, delayResultCells, delayResultHeader, type DelayBatchResults } from '../../io/delay-batch';
 import { ChartFigure } from '../charts/ChartFigure';
 import { formatSignificant } from '../format/format-number';
@@ -8,7 +9,7 @@ import { useSekundoStore } from '../store';
 import { BATCH_FILE_LIMIT_BYTES, batchFigure, batchMinutes, batchResults, exampleBatchText, readBatch } from './batch-results';
 import { ChoiceCard } from './ChoiceCard';
 import { valuesOf } from './converter-slice';
-import { formatTemperature } from './CandidatesTable';
+import { type ConverterUnits, currentConverterUnits, temperatureOnY, temperatureText, useConverterUnits } from './converter-units';
 import { DropZone } from './DropZone';
 import { exportName, tableTsv } from './export-text';
 import { ResultActions } from './ResultActions';
@@ -112,9 +113,11 @@ function batchExport() {
   const outcome = batchResults(input.batch, valuesOf(state.converterFields), state.converterChoice);
   if (!outcome.ok) return null;
   const r = outcome.results;
-  const header = delayResultHeader(r.batch);
-  const rows = Array.from({ length: r.count }, (_, i) => delayResultCells(r, i));
-  return { fileName: exportName(input.fileName, 'temperatures'), csv: delayResultsToCsv(r), tsv: tableTsv({ header, rows }) };
+  const { temperature, length, time, pressure } = currentConverterUnits();
+  const units = { temperature: temperature.unit, length: length.unit, time: time.unit, pressure: pressure.unit };
+  const header = delayResultHeader(r.batch, units);
+  const rows = Array.from({ length: r.count }, (_, i) => delayResultCells(r, i, units));
+  return { fileName: exportName(input.fileName, 'temperatures'), csv: delayResultsToCsv(r, units), tsv: tableTsv({ header, rows }) };
 }
 
 function BatchResults() {
@@ -122,9 +125,11 @@ function BatchResults() {
   const input = useSekundoStore((s) => s.converterBatch);
   const kind = useSekundoStore((s) => s.converterChoice);
   const values = useFieldValues();
+  const units = useConverterUnits();
+  const unit = units.temperature.unit;
   const outcome = useMemo(() => (input ? batchResults(input.batch, values, kind) : null), [input, values, kind]);
   const minutes = useMemo(() => (input ? batchMinutes(input.batch) : null), [input]);
-  const figure = useMemo(() => (outcome?.ok ? batchFigure(outcome.results, minutes) : null), [outcome, minutes]);
+  const figure = useMemo(() => (outcome?.ok ? temperatureOnY(batchFigure(outcome.results, minutes), unit) : null), [outcome, minutes, unit]);
   if (!input || outcome === null) {
     return (
       <p className="card converter-empty" role="status">
@@ -162,10 +167,10 @@ function BatchResults() {
         </div>
         <p className="caption-values batch-summary">
           {r.count} readings; {decided} with a chosen temperature
-          {decided > 0 ? `, from ${lo.toFixed(4)} K to ${hi.toFixed(4)} K` : ''}.
+          {decided > 0 ? `, from ${temperatureText(lo, unit)} to ${temperatureText(hi, unit)}` : ''}.
           {decided < r.count ? ' Undecided rows have several candidates and nothing to choose by: set a way of choosing.' : ''}
         </p>
-        <BatchTable results={r} />
+        <BatchTable results={r} units={units} />
       </section>
       {figure ? (
         <ChartFigure
@@ -180,7 +185,9 @@ function BatchResults() {
   );
 }
 
-function BatchTable({ results }: { results: DelayBatchResults }) {
+/** Each row's delay, pressure and temperatures in the display units; value and sd rounded together. */
+function BatchTable({ results, units }: { results: DelayBatchResults; units: ConverterUnits }) {
+  const { temperature, time, pressure } = units;
   const [shown, setShown] = useState(PAGE_ROWS);
   const batch = results.batch;
   const count = Math.min(shown, results.count);
@@ -196,25 +203,25 @@ function BatchTable({ results }: { results: DelayBatchResults }) {
             <th scope="col">Line</th>
             {batch.hasTimestamp ? <th scope="col">Timestamp</th> : null}
             <th scope="col" className="num as-written">
-              {batch.delayColumn}
+              Delay ({time.shown})
             </th>
             {batch.hasPressure ? (
               <th scope="col" className="num as-written">
-                Pressure (Pa)
+                Pressure ({pressure.shown})
               </th>
             ) : null}
             <th scope="col" className="num as-written">
               Speed (m/s)
             </th>
             <th scope="col" className="num as-written">
-              T (K)
+              T ({temperature.shown})
             </th>
             <th scope="col" className="num as-written">
-              sd (mK)
+              sd ({temperature.shown})
             </th>
             <th scope="col">Chosen by</th>
             <th scope="col" className="as-written">
-              All candidates (K)
+              All candidates ({temperature.shown})
             </th>
           </tr>
         </thead>
@@ -222,6 +229,7 @@ function BatchTable({ results }: { results: DelayBatchResults }) {
           {Array.from({ length: count }, (_, i) => {
             const r = delayResultAt(results, i);
             const c = r.chosen === null ? undefined : r.candidates[r.chosen];
+            const T = c ? temperature.measured(c.temperature_K, c.sd_K) : null;
             return (
               <tr key={r.row.line}>
                 <th scope="row">{r.row.line}</th>
@@ -230,15 +238,15 @@ function BatchTable({ results }: { results: DelayBatchResults }) {
                     {shortTimestamp(r.row.timestamp ?? '')}
                   </td>
                 ) : null}
-                <td className="num">{formatSignificant(r.row.delayAsWritten, 6)}</td>
-                {batch.hasPressure ? <td className="num">{r.row.pressure_Pa === undefined ? '' : formatSignificant(r.row.pressure_Pa, 5)}</td> : null}
+                <td className="num">{formatSignificant(time.fromSi(r.row.delay_s), 6)}</td>
+                {batch.hasPressure ? <td className="num">{r.row.pressure_Pa === undefined ? '' : formatSignificant(pressure.fromSi(r.row.pressure_Pa), 5)}</td> : null}
                 <td className="num">
                   {formatSignificant(r.speed_m_s)} ± {formatSignificant(r.speedSd_m_s, 2)}
                 </td>
-                <td className="num value">{c ? formatTemperature(c.temperature_K, c.sd_K) : '—'}</td>
-                <td className="num uncertainty">{c ? formatSignificant(c.sd_K * 1e3, 2) : ''}</td>
+                <td className="num value">{T ? T.value : '—'}</td>
+                <td className="num uncertainty">{T?.sd ?? ''}</td>
                 <td>{r.chosenBy ?? 'undecided'}</td>
-                <td className="candidate-list">{r.candidates.map((x) => `${x.temperature_K.toFixed(4)}${x.kind === 'extremum' ? '*' : ''}`).join(' · ') || 'none'}</td>
+                <td className="candidate-list">{candidateList(r.candidates, units.temperature) || 'none'}</td>
               </tr>
             );
           })}
@@ -251,6 +259,11 @@ function BatchTable({ results }: { results: DelayBatchResults }) {
       ) : null}
     </div>
   );
+}
+
+/** Every candidate's temperature, each to the digit its sd supports, "*" marking an extremum: "1.232 · 1.41 · 1.785". */
+export function candidateList(candidates: readonly TemperatureCandidate[], temperature: ConverterUnits['temperature']): string {
+  return candidates.map((x) => `${temperature.measured(x.temperature_K, x.sd_K).value}${x.kind === 'extremum' ? '*' : ''}`).join(' · ');
 }
 
 /** "2026-11-03T14:00:30Z" → "14:00:30" (the full text stays in the cell's title); other text as it is. */

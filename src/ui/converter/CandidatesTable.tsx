@@ -1,6 +1,8 @@
-import type { Choice, ChoiceRule, TemperatureCandidate } from '../../physics';
+import { type Choice, type ChoiceRule, PROPERTIES_RANGE_K, type TemperatureCandidate } from '../../physics';
 import { formatSignificant } from '../format/format-number';
+import { useDisplayUnit } from '../units/use-display-unit';
 import { branchWords, type CandidateFlag, candidateFlags, choiceNote } from './candidate-notes';
+import { limitText } from './converter-units';
 
 interface CandidatesTableProps {
   candidates: readonly TemperatureCandidate[];
@@ -10,28 +12,18 @@ interface CandidatesTableProps {
   caption: string;
 }
 
-/** A temperature to the decimals its sd supports: at least 0.1 mK, at most 1 µK ("1.7851"). */
-export function formatTemperature(T_K: number, sd_K: number): string {
-  const decimals = Number.isFinite(sd_K) && sd_K > 0 ? Math.min(6, Math.max(4, Math.ceil(-Math.log10(sd_K)) + 1)) : 4;
-  return T_K.toFixed(decimals);
-}
-
-/** The sd of a temperature in mK, two significant digits. */
-export function formatSdMillikelvin(sd_K: number): string {
-  return `${formatSignificant(sd_K * 1e3, 2)} mK`;
-}
-
 /**
  * Every candidate temperature with its sd, slope, branch and flags; the chosen one highlighted,
  * the others kept with the reason they were not chosen. Flags are explained under the table.
  */
 export function CandidatesTable({ candidates, rule, choice, caption }: CandidatesTableProps) {
+  const temperature = useDisplayUnit('temperature');
   const flags = new Map<CandidateFlag['key'], CandidateFlag>();
   for (const c of candidates) for (const f of candidateFlags(c)) if (!flags.has(f.key)) flags.set(f.key, f);
   if (candidates.length === 0) {
     return (
       <p className="converter-empty" role="status">
-        No temperature between 0.3 K and Tλ has this speed.
+        No temperature between {limitText(PROPERTIES_RANGE_K[0], temperature)} and Tλ has this speed.
       </p>
     );
   }
@@ -65,13 +57,17 @@ export function CandidatesTable({ candidates, rule, choice, caption }: Candidate
         <tbody>
           {candidates.map((c, i) => {
             const chosen = choice.index === i;
+            // The value and its sd rounded together, in the display unit.
+            const T = temperature.measured(c.temperature_K, c.sd_K);
             return (
               <tr key={`${c.branch}-${c.kind}`} className={chosen ? 'candidate is-chosen' : choice.index === null ? 'candidate' : 'candidate is-other'} aria-current={chosen ? 'true' : undefined}>
                 <th scope="row" className="candidate-index">
                   {i + 1}
                 </th>
-                <td className="num value">{formatTemperature(c.temperature_K, c.sd_K)} K</td>
-                <td className="num uncertainty">± {formatSdMillikelvin(c.sd_K)}</td>
+                <td className="num value">
+                  {T.value} {temperature.shown}
+                </td>
+                <td className="num uncertainty">{T.sd === null ? '' : `± ${T.sd} ${temperature.shown}`}</td>
                 <td className="num">{formatSignificant(c.slope_m_s_K, 3)}</td>
                 <td className="nowrap">{c.kind === 'extremum' ? 'at the extremum' : branchWords(c.branch)}</td>
                 <td>
@@ -83,7 +79,7 @@ export function CandidatesTable({ candidates, rule, choice, caption }: Candidate
                   ))}
                 </td>
                 <td className="candidate-choice">
-                  {chosen ? <span className="badge badge--chosen">Chosen</span> : null} {choiceNote(candidates, i, rule, choice).replace(/^Chosen: /, '')}
+                  {chosen ? <span className="badge badge--chosen">Chosen</span> : null} {choiceNote(candidates, i, rule, choice, temperature.unit).replace(/^Chosen: /, '')}
                 </td>
               </tr>
             );

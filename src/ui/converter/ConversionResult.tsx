@@ -1,8 +1,10 @@
 import { type ReactNode, useId } from 'react';
-import type { TemperatureCandidate } from '../../physics';
+import { PROPERTIES_RANGE_K, type TemperatureCandidate } from '../../physics';
 import { formatSignificant } from '../format/format-number';
 import { PanelErrorBoundary } from '../layout/PanelErrorBoundary';
-import { CandidatesTable, formatSdMillikelvin, formatTemperature } from './CandidatesTable';
+import { useDisplayUnit } from '../units/use-display-unit';
+import { CandidatesTable } from './CandidatesTable';
+import { limitText } from './converter-units';
 import type { Chosen } from './reading-results';
 import { type ExportContent, ResultActions } from './ResultActions';
 import { SpeedChart } from './SpeedChart';
@@ -28,6 +30,9 @@ export function ConversionResult({ title, chartId, speed_m_s, speedSd_m_s, speed
   const headingId = useId();
   const { choice, rule } = chosen;
   const pick = choice.index === null ? undefined : candidates[choice.index];
+  const temperature = useDisplayUnit('temperature');
+  // The chosen temperature and its sd rounded together, in the display unit.
+  const picked = pick ? temperature.measured(pick.temperature_K, pick.sd_K) : null;
   return (
     <>
       <section className="card converter-card result-card" aria-labelledby={headingId}>
@@ -41,12 +46,12 @@ export function ConversionResult({ title, chartId, speed_m_s, speedSd_m_s, speed
           <div className="key-figure">
             <dt>{pick ? 'Temperature' : 'Candidates'}</dt>
             <dd>
-              {pick ? (
+              {pick && picked ? (
                 <>
                   <span className="key-figure__value" data-testid="chosen-temperature">
-                    {formatTemperature(pick.temperature_K, pick.sd_K)}
+                    {picked.value}
                   </span>{' '}
-                  <span className="key-figure__unit">K ± {formatSdMillikelvin(pick.sd_K)}</span>
+                  <span className="key-figure__unit">{picked.sd === null ? temperature.shown : `± ${picked.sd} ${temperature.shown}`}</span>
                   <span className="key-figure__detail">
                     candidate {(choice.index ?? 0) + 1} of {candidates.length}, {pick.branch} branch (u₂ {pick.branch === 'middle' ? 'rising' : 'falling'})
                   </span>
@@ -55,7 +60,8 @@ export function ConversionResult({ title, chartId, speed_m_s, speedSd_m_s, speed
                 <>
                   <span className="key-figure__value">{candidates.length}</span>{' '}
                   <span className="key-figure__unit">{candidates.length === 1 ? 'temperature' : 'temperatures'}</span>
-                  <span className="key-figure__detail">{candidates.map((c) => `${formatTemperature(c.temperature_K, c.sd_K)} K`).join(' · ') || 'none in 0.3 K – Tλ'}</span>
+                  <span className="key-figure__detail">{candidates.map((c) => `${temperature.measured(c.temperature_K, c.sd_K).value} ${temperature.shown}`).join(' · ') ||
+                      `none in ${limitText(PROPERTIES_RANGE_K[0], temperature)} – Tλ`}</span>
                 </>
               )}
             </dd>

@@ -9,6 +9,7 @@ import { ConversionResult } from './ConversionResult';
 import { tableCsv, tableTsv } from './export-text';
 import { distanceColumnHelp } from './converter-help';
 import { useFieldHelp } from '../help/FieldHelp';
+import { currentConverterUnits, useConverterUnits } from './converter-units';
 import { chooseFor, distanceFit, distanceFitTable } from './reading-results';
 import { readDistanceRows, splitPasted } from './table-input';
 import { useFieldValues } from './use-converter';
@@ -175,14 +176,19 @@ export function DistancesInput() {
   );
 }
 
-/** The fit of the distance table: speed, t₀, their correlation, residuals and the candidates. */
+/**
+ * The fit of the distance table: speed, t₀, their correlation, residuals and the candidates, in the
+ * header's display units. Residuals and the scatter stay in µs, like the sd fields (followedUnit in
+ * converter-fields.ts): they are orders of magnitude below the delays, and no header unit is finer.
+ */
 export function DistancesResult() {
   const points = useSekundoStore((s) => s.converterDistancePoints);
   const kind = useSekundoStore((s) => s.converterChoice);
   const values = useFieldValues();
   const applyValues = useSekundoStore((s) => s.applyConverterValues);
+  const { length, time, temperature } = useConverterUnits();
   const fit = useMemo(() => distanceFit(points), [points]);
-  const chosen = useMemo(() => (fit?.ok ? chooseFor(fit.value.candidates, kind, values) : null), [fit, kind, values]);
+  const chosen = useMemo(() => (fit?.ok ? chooseFor(fit.value.candidates, kind, values, temperature.unit) : null), [fit, kind, values, temperature.unit]);
   if (fit === null) {
     return (
       <p className="card converter-empty" role="status">
@@ -199,7 +205,7 @@ export function DistancesResult() {
   }
   const f = fit.value;
   const exportContent = () => {
-    const table = distanceFitTable(f, chosen);
+    const table = distanceFitTable(f, chosen, currentConverterUnits());
     return { fileName: 'sekundo-distance-fit.csv', csv: tableCsv(table), tsv: tableTsv(table) };
   };
   return (
@@ -218,7 +224,7 @@ export function DistancesResult() {
           <div>
             <dt>Offset t₀</dt>
             <dd>
-              {formatSignificant(f.offset_s * 1e6)} ± {formatSignificant(f.offsetSd_s * 1e6, 2)} µs{' '}
+              {time.measured(f.offset_s, f.offsetSd_s).text} {time.shown}{' '}
               <button type="button" className="button button--small" onClick={() => applyValues({ offset: f.offset_s, offsetSd: f.offsetSd_s })}>
                 Use as the offset
               </button>
@@ -261,7 +267,9 @@ export function DistancesResult() {
             {f.residuals_s.map((r, i) => (
               <tr key={points.rows[i] ?? i}>
                 <th scope="row">{points.rows[i]}</th>
-                <td className="num">{formatSignificant((points.points[i]?.distance_m ?? 0) * 1e3)} mm</td>
+                <td className="num">
+                  {length.format(points.points[i]?.distance_m ?? 0)} {length.shown}
+                </td>
                 <td className="num">{formatSignificant(r * 1e6, 3)} µs</td>
               </tr>
             ))}

@@ -3,6 +3,7 @@ import { PanelErrorBoundary } from '../layout/PanelErrorBoundary';
 import { useSekundoStore } from '../store';
 import { ChoiceCard } from './ChoiceCard';
 import { valuesOf } from './converter-slice';
+import { currentConverterUnits } from './converter-units';
 import { ConversionResult } from './ConversionResult';
 import { DistancesInput, DistancesResult } from './DistancesPanel';
 import { tableCsv, tableTsv } from './export-text';
@@ -66,15 +67,17 @@ function singleExport() {
   const values = valuesOf(state.converterFields);
   const result = singleReading(values);
   if (!result.ok) return null;
-  const table = singleReadingTable(values, result.value, chooseFor(result.value.candidates, state.converterChoice, values));
+  const units = currentConverterUnits();
+  const table = singleReadingTable(values, result.value, chooseFor(result.value.candidates, state.converterChoice, values, units.temperature.unit), units);
   return { fileName: 'sekundo-reading.csv', csv: tableCsv(table), tsv: tableTsv(table) };
 }
 
 function SingleResult() {
   const values = useFieldValues();
   const kind = useSekundoStore((s) => s.converterChoice);
+  const unit = useSekundoStore((s) => s.displayUnits.temperature);
   const result = useMemo(() => singleReading(values), [values]);
-  const chosen = useMemo(() => (result.ok ? chooseFor(result.value.candidates, kind, values) : null), [result, kind, values]);
+  const chosen = useMemo(() => (result.ok ? chooseFor(result.value.candidates, kind, values, unit) : null), [result, kind, values, unit]);
   if (!result.ok || chosen === null) {
     return (
       <p className="card field-error" role="alert">

@@ -2,8 +2,9 @@ import { useMemo } from 'react';
 import type { ChoiceRule, TemperatureCandidate } from '../../physics';
 import { ChartFigure } from '../charts/ChartFigure';
 import { formatSignificant } from '../format/format-number';
+import { inTemperatureUnit } from '../charts/temperature-axis';
 import { PlotlyChart } from '../plot/PlotlyChart';
-import { formatTemperature } from './CandidatesTable';
+import { useDisplayUnit } from '../units/use-display-unit';
 import { speedFigure } from './speed-figure';
 
 interface SpeedChartProps {
@@ -15,10 +16,14 @@ interface SpeedChartProps {
   rule: ChoiceRule | null;
 }
 
-/** u₂(T) with the measured speed as a band and the candidates where the band meets the curve. */
+/** u₂(T) with the measured speed as a band and the candidates where the band meets the curve; temperature in the display unit. */
 export function SpeedChart({ id, speed_m_s, speedSd_m_s, candidates, chosen, rule }: SpeedChartProps) {
-  const figure = useMemo(() => speedFigure({ speed_m_s, speedSd_m_s, candidates, chosen, rule }), [speed_m_s, speedSd_m_s, candidates, chosen, rule]);
-  const where = candidates.map((c) => `${formatTemperature(c.temperature_K, c.sd_K)} K`).join(', ');
+  const temperature = useDisplayUnit('temperature');
+  const figure = useMemo(
+    () => inTemperatureUnit(speedFigure({ speed_m_s, speedSd_m_s, candidates, chosen, rule }), temperature.unit),
+    [speed_m_s, speedSd_m_s, candidates, chosen, rule, temperature.unit],
+  );
+  const where = candidates.map((c) => `${temperature.measured(c.temperature_K, c.sd_K).value} ${temperature.shown}`).join(', ');
   const summary = `u = ${formatSignificant(speed_m_s)} ± ${formatSignificant(speedSd_m_s, 2)} m/s meets u₂(T) at ${candidates.length === 0 ? 'no temperature' : where}.`;
   return (
     <ChartFigure

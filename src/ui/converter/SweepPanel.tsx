@@ -1,5 +1,5 @@
 import { useId, useMemo } from 'react';
-import type { Unit } from '../../io/quantity';
+import { fromBaseUnit, type Unit } from '../../io/quantity';
 import { calibratePathFromSweep, PhysicsError, SECOND_SOUND_EXTREMA, secondSound } from '../../physics';
 import { ChartFigure } from '../charts/ChartFigure';
 import { axis, baseLayout, CHART_COLOURS } from '../charts/chart-theme';
@@ -7,8 +7,10 @@ import { formatSignificant } from '../format/format-number';
 import { PlotlyChart } from '../plot/PlotlyChart';
 import type { PlotLayout, PlotTrace } from '../plot/plotly-types';
 import { useSekundoStore } from '../store';
+import { shownUnit } from '../units/unit-choices';
 import { sentence } from './converter-checks';
 import { valuesOf } from './converter-slice';
+import { csvColumn, currentConverterUnits, TIME_DECIMALS, useConverterUnits } from './converter-units';
 import { writeCsv } from '../../io/csv-common';
 import { tableTsv } from './export-text';
 import { sweepHelp } from './converter-help';
@@ -65,17 +67,19 @@ export function SweepInput() {
   const error = useSekundoStore((s) => s.converterSweepError);
   const edit = useSekundoStore((s) => s.editConverterSweep);
   const setUnit = useSekundoStore((s) => s.setConverterSweepUnit);
+  const { temperature } = useConverterUnits();
+  const maximumAt = `${temperature.format(SECOND_SOUND_EXTREMA.maximum.temperature_K, 3)} ${temperature.shown}`;
   const topics = sweepHelp(unit);
   const textHelp = useFieldHelp('sweep readings', topics.text);
   const unitHelp = useFieldHelp('delay unit of the sweep', topics.unit);
   return (
     <section className="card converter-card" aria-labelledby={headingId}>
       <h2 id={headingId} className="card-title">
-        Path length from a sweep through 1.65 K
+        Path length from a sweep through {maximumAt}
       </h2>
       <p className="muted converter-card__lead">
         Let the bath drift through the u₂ maximum ({formatSignificant(SECOND_SOUND_EXTREMA.maximum.speed_m_s)} m/s near{' '}
-        {SECOND_SOUND_EXTREMA.maximum.temperature_K.toFixed(2)} K) while you log delays. The shortest delay belongs to the maximum, so L = u₂,max · (t_min − t₀)
+        {maximumAt}) while you log delays. The shortest delay belongs to the maximum, so L = u₂,max · (t_min − t₀)
         without a thermometer. x is the time of each reading or its number; the offset t₀ (below) is subtracted.
       </p>
       <div className="field-head">
@@ -148,8 +152,12 @@ export function SweepResult() {
   const points = useSekundoStore((s) => s.converterSweepPoints);
   const values = useFieldValues();
   const applyValues = useSekundoStore((s) => s.applyConverterValues);
+  const { length, time } = useConverterUnits();
   const result = useMemo(() => sweepCalibration(points, values), [points, values]);
-  const figure = useMemo(() => (points && result?.ok ? sweepFigure(points, result.value.atX, result.value.shortestDelay_s) : null), [points, result]);
+  const figure = useMemo(
+    () => (points && result?.ok ? sweepFigure(points, result.value.atX, result.value.shortestDelay_s, time.unit) : null),
+    [points, result, time.unit],
+  );
   if (result === null || points === null) {
     return (
       <p className="card converter-empty" role="status">
@@ -165,9 +173,23 @@ export function SweepResult() {
     );
   }
   const c = result.value;
+  const path = length.measured(c.pathLength_m, c.pathLengthSd_m);
+  const shortest = time.measured(c.shortestDelay_s, c.shortestDelaySd_s);
   const exportContent = () => {
-    const header = ['path_length_m', 'path_length_sd_m', 'shortest_delay_s', 'shortest_delay_sd_s', 'at_x', 'u2_max_m_s', 'points_used', 'offset_s', 'offset_sd_s'];
-    const row = [c.pathLength_m, c.pathLengthSd_m, c.shortestDelay_s, c.shortestDelaySd_s, c.atX, c.maximumSpeed_m_s, c.pointsUsed, values.offset, values.offsetSd];
+    const { length: l, time: t } = currentConverterUnits();
+    const header = [
+      csvColumn('path_length', l),
+      csvColumn('path_length_sd', l),
+      csvColumn('shortest_delay', t),
+      csvColumn('shortest_delay_sd', t),
+      'at_x',
+      'u2_max_m_s',
+      'points_used',
+      csvColumn('offset', t),
+      csvColumn('offset_sd', t),
+    ];
+    const inTime = (v: number | null) => (v === null ? null : t.fromSi(v));
+    const row = [l.fromSi(c.pathLength_m), l.fromSi(c.pathLengthSd_m), t.fromSi(c.shortestDelay_s), t.fromSi(c.shortestDelaySd_s), c.atX, c.maximumSpeed_m_s, c.pointsUsed, inTime(values.offset), inTime(values.offsetSd)];
     return { fileName: 'sekundo-path-calibration.csv', csv: writeCsv(header, [row]), tsv: tableTsv({ header, rows: [row] }) };
   };
   return (
@@ -183,16 +205,16 @@ export function SweepResult() {
           <div className="key-figure">
             <dt>Path length L</dt>
             <dd>
-              <span className="key-figure__value">{formatSignificant(c.pathLength_m * 1e3, 5)}</span>{' '}
-              <span className="key-figure__unit">mm ± {formatSignificant(c.pathLengthSd_m * 1e3, 2)}</span>
+              <span className="key-figure__value">{path.value}</span>{' '}
+              <span className="key-figure__unit">{path.sd === null ? length.shown : `± ${path.sd} ${length.shown}`}</span>
               <span className="key-figure__detail">L = u₂,max · (t_min − t₀)</span>
             </dd>
           </div>
           <div className="key-figure">
             <dt>Shortest delay t_min</dt>
             <dd>
-              <span className="key-figure__value">{formatSignificant(c.shortestDelay_s * 1e3, 5)}</span>{' '}
-              <span className="key-figure__unit">ms ± {formatSignificant(c.shortestDelaySd_s * 1e6, 2)} µs</span>
+              <span className="key-figure__value">{shortest.value}</span>{' '}
+              <span className="key-figure__unit">{shortest.sd === null ? time.shown : `± ${shortest.sd} ${time.shown}`}</span>
               <span className="key-figure__detail">
                 at x = {formatSignificant(c.atX, 4)}, parabola through {c.pointsUsed} readings
               </span>
@@ -211,36 +233,41 @@ export function SweepResult() {
       </section>
       {figure ? (
         <ChartFigure id="converter-sweep" title="Delays through the u₂ maximum" caption="Dots: the sweep. Amber: the shortest delay the parabola finds.">
-          <PlotlyChart chartId="converter-sweep" label={`Chart of the sweep's delays; shortest ${formatSignificant(c.shortestDelay_s * 1e3, 5)} ms.`} data={figure.data} layout={figure.layout} />
+          <PlotlyChart chartId="converter-sweep" label={`Chart of the sweep's delays; shortest ${shortest.value} ${time.shown}.`} data={figure.data} layout={figure.layout} />
         </ChartFigure>
       ) : null}
     </>
   );
 }
 
-function sweepFigure(points: readonly { x: number; delay_s: number }[], atX: number, shortest_s: number): { data: PlotTrace[]; layout: PlotLayout } {
+/** The sweep's delays against x, in the display unit of time, and the shortest delay found. */
+function sweepFigure(points: readonly { x: number; delay_s: number }[], atX: number, shortest_s: number, unit: 'ms' | 'µs' | 's'): { data: PlotTrace[]; layout: PlotLayout } {
   const sorted = [...points].sort((a, b) => a.x - b.x);
+  const scale = fromBaseUnit(1, unit);
+  const shown = shownUnit(unit);
+  // One digit finer than the 0.1 µs of the other time labels: a sweep's delays differ by microseconds.
+  const decimals = TIME_DECIMALS[unit] + 1;
   return {
     data: [
       {
         type: 'scatter',
         name: 'Readings',
         x: sorted.map((p) => p.x),
-        y: sorted.map((p) => p.delay_s * 1e3),
+        y: sorted.map((p) => p.delay_s * scale),
         mode: 'markers',
         marker: { color: CHART_COLOURS.secondSound, size: 7 },
-        hovertemplate: 'x = %{x}<br>%{y:.5f} ms<extra></extra>',
+        hovertemplate: `x = %{x}<br>%{y:.${decimals}f} ${shown}<extra></extra>`,
       },
       {
         type: 'scatter',
         name: 'Shortest delay',
         x: [atX],
-        y: [shortest_s * 1e3],
+        y: [shortest_s * scale],
         mode: 'markers',
         marker: { color: CHART_COLOURS.chosen, size: 13, symbol: 'diamond', line: { color: '#ffffff', width: 2 } },
-        hovertemplate: 'x = %{x:.3f}<br>%{y:.5f} ms<extra></extra>',
+        hovertemplate: `x = %{x:.3f}<br>%{y:.${decimals}f} ${shown}<extra></extra>`,
       },
     ],
-    layout: { ...baseLayout(), xaxis: axis('Sweep coordinate x'), yaxis: axis('Delay (ms)'), margin: { l: 64, r: 16, t: 30, b: 44 } },
+    layout: { ...baseLayout(), xaxis: axis('Sweep coordinate x'), yaxis: axis(`Delay (${shown})`), margin: { l: 64, r: 16, t: 30, b: 44 } },
   };
 }

@@ -11,8 +11,9 @@ import {
   type TemperatureCandidate,
   temperatureFromVapourPressure,
 } from '../../physics';
-import { formatFixed, formatSignificant } from '../format/format-number';
+import { formatSignificant } from '../format/format-number';
 import { sentence } from './converter-checks';
+import { temperatureText } from './converter-units';
 
 /** A flag shown on a candidate, with the sentence that explains it. */
 export interface CandidateFlag {
@@ -55,11 +56,11 @@ export function candidateFlags(c: TemperatureCandidate): CandidateFlag[] {
   return flags;
 }
 
-/** The choice the rule makes, or why it could not be applied. */
-export function applyRule(candidates: readonly TemperatureCandidate[], rule: ChoiceRule | null): Choice & { problem: string | null } {
+/** The choice the rule makes, its reason with temperatures in `unit`, or why it could not be applied. */
+export function applyRule(candidates: readonly TemperatureCandidate[], rule: ChoiceRule | null, unit: 'K' | 'mK' = 'K'): Choice & { problem: string | null } {
   if (rule === null) return { index: null, reason: 'no way of choosing is set', problem: null };
   try {
-    return { ...chooseCandidate(candidates, rule), problem: null };
+    return { ...chooseCandidate(candidates, rule, (T) => temperatureText(T, unit)), problem: null };
   } catch (error) {
     if (error instanceof PhysicsError) return { index: null, reason: 'the rule cannot be applied', problem: sentence(error.message) };
     throw error;
@@ -77,24 +78,21 @@ export function ruleTemperature(rule: ChoiceRule | null): number | null {
   }
 }
 
-/** Why candidate `i` was or was not chosen, in a few words. */
-export function choiceNote(candidates: readonly TemperatureCandidate[], i: number, rule: ChoiceRule | null, choice: Choice): string {
+/** Why candidate `i` was or was not chosen, in a few words, temperatures in `unit`. */
+export function choiceNote(candidates: readonly TemperatureCandidate[], i: number, rule: ChoiceRule | null, choice: Choice, unit: 'K' | 'mK' = 'K'): string {
+  const shown = (T: number) => temperatureText(T, unit);
   const c = candidates[i];
   if (!c) return '';
   if (choice.index === i) return `Chosen: ${choice.reason}.`;
   if (rule === null) return candidates.length === 1 ? 'The only candidate.' : 'Undecided.';
   if (rule.kind === 'range') {
     const inside = c.temperature_K >= rule.min_K && c.temperature_K <= rule.max_K;
-    return inside ? `Inside the range, but ${choice.reason}: the range does not decide.` : `Outside ${kelvin(rule.min_K)}–${kelvin(rule.max_K)}.`;
+    return inside ? `Inside the range, but ${choice.reason}: the range does not decide.` : `Outside ${shown(rule.min_K)}–${shown(rule.max_K)}.`;
   }
   const target = ruleTemperature(rule);
   if (target === null) return 'Not chosen.';
-  const dT_mK = (c.temperature_K - target) * 1e3;
+  const dT = c.temperature_K - target;
   const source = rule.kind === 'pressure' ? 'the vapour-pressure temperature' : 'the expected temperature';
-  const sigmas = c.sd_K > 0 ? ` (${formatSignificant(Math.abs(c.temperature_K - target) / c.sd_K, 2)} sd)` : '';
-  return `${dT_mK >= 0 ? '+' : '−'}${formatFixed(Math.abs(dT_mK), 1)} mK from ${source} ${kelvin(target)}${sigmas}.`;
-}
-
-function kelvin(T: number): string {
-  return `${T.toFixed(4)} K`;
+  const sigmas = c.sd_K > 0 ? ` (${formatSignificant(Math.abs(dT) / c.sd_K, 2)} sd)` : '';
+  return `${dT >= 0 ? '+' : '−'}${shown(Math.abs(dT))} from ${source} ${shown(target)}${sigmas}.`;
 }

@@ -3,8 +3,9 @@ import type { DelayBatch } from '../../io/delay-batch';
 import type { Unit } from '../../io/quantity';
 import type { PickerKind } from '../../physics';
 import type { SekundoState } from '../store/state';
+import { DEFAULT_DISPLAY_UNITS, type DisplayUnits } from '../units/unit-choices';
 import { type ChoiceKind, crossFieldProblem, type FieldValues } from './converter-checks';
-import { type ConverterFieldKey, FIELD_SPECS, fieldText, readField } from './converter-fields';
+import { type ConverterFieldKey, FIELD_SPECS, fieldText, followedUnit, readField } from './converter-fields';
 import { readDistanceRows } from './table-input';
 import type { TraceInfo } from './trace/trace-protocol';
 
@@ -22,9 +23,15 @@ export type ReadingMethod = 'single' | 'distances' | 'sweep';
 export interface FieldState {
   /** The text in the field (as typed, or the value in `unit`). */
   text: string;
+  /** The unit of the text and of the field's menu. */
   unit: Unit | '';
   /** Last good value, SI; a refused entry never replaces it. null: empty (optional fields). */
   value: number | null;
+  /**
+   * Whether the unit was picked in the field's own menu. Until then the field follows the header's
+   * display units (see followedUnit in converter-fields.ts); after that it keeps its own choice.
+   */
+  ownUnit: boolean;
 }
 
 export type DistanceColumn = 'distance' | 'delay' | 'sd';
@@ -109,8 +116,14 @@ export interface ConverterSlice {
   commitConverterField: (key: ConverterFieldKey) => void;
   /** Drops a refused or unfinished entry (Escape): the field shows its good value again. */
   discardConverterDraft: (key: ConverterFieldKey) => void;
-  /** Changes the unit of a field: the value stays, the text is shown in the new unit. */
+  /** Changes the unit of a field: the value stays, the text is shown in the new unit. The field keeps this unit from now on. */
   setConverterFieldUnit: (key: ConverterFieldKey, unit: Unit) => void;
+  /**
+   * Shows the fields that follow the header's display units in those units (called when they
+   * change): values stay as they are; a field with a draft or a refused entry keeps its text, unit
+   * and message, and follows once the draft is applied or dropped.
+   */
+  followConverterDisplayUnits: () => void;
   /** Sets field values from a result ("use this path length"); each is checked like a typed one. */
   applyConverterValues: (values: Partial<Record<ConverterFieldKey, number>>) => void;
   setConverterChoice: (choice: ChoiceKind) => void;
@@ -143,14 +156,19 @@ export interface ConverterSlice {
 
 const FIELD_KEYS = Object.keys(FIELD_SPECS) as ConverterFieldKey[];
 
-function initialFields(): Record<ConverterFieldKey, FieldState> {
+function initialFields(units: DisplayUnits): Record<ConverterFieldKey, FieldState> {
   const fields = {} as Record<ConverterFieldKey, FieldState>;
   for (const key of FIELD_KEYS) {
     const spec = FIELD_SPECS[key];
-    const unit = spec.units[0] ?? '';
-    fields[key] = { text: fieldText(spec, spec.initial, unit), unit, value: spec.initial };
+    const unit = followedUnit(spec, units);
+    fields[key] = { text: fieldText(spec, spec.initial, unit), unit, value: spec.initial, ownUnit: false };
   }
   return fields;
+}
+
+/** The unit a field shows once it has no draft: its own choice, or the header's. */
+function shownUnitOf(key: ConverterFieldKey, field: FieldState, units: DisplayUnits): Unit | '' {
+  return field.ownUnit ? field.unit : followedUnit(FIELD_SPECS[key], units);
 }
 
 /** SI values of the fields. */
@@ -191,7 +209,7 @@ export const createConverterSlice: StateCreator<SekundoState, [], [], ConverterS
   const apply = (key: ConverterFieldKey, text: string, unit: Unit | ''): void => {
     const spec = FIELD_SPECS[key];
     const read = readField(spec, text, unit);
-    const { converterFields, converterErrors, converterMode, converterMethod, converterBatch, converterChoice } = get();
+    const { converterFields, converterErrors, converterMode, converterMethod, converterBatch, converterChoice, displayUnits } = get();
     if (!read.ok) {
       set({ converterErrors: { ...converterErrors, [key]: read.message } });
       return;
@@ -206,8 +224,11 @@ export const createConverterSlice: StateCreator<SekundoState, [], [], ConverterS
       set({ converterErrors: { ...converterErrors, [key]: problem } });
       return;
     }
+    // The text was read in `unit`; the good value is shown in the unit the field shows now.
+    const field = converterFields[key];
+    const shown = field.ownUnit ? unit : followedUnit(spec, displayUnits);
     set({
-      converterFields: { ...converterFields, [key]: { text: fieldText(spec, read.value, unit), unit, value: read.value } },
+      converterFields: { ...converterFields, [key]: { ...field, text: fieldText(spec, read.value, shown), unit: shown, value: read.value } },
       converterErrors: without(converterErrors, key),
     });
   };
@@ -215,7 +236,7 @@ export const createConverterSlice: StateCreator<SekundoState, [], [], ConverterS
   return {
     converterMode: 'reading',
     converterMethod: 'single',
-    converterFields: initialFields(),
+    converterFields: initialFields(DEFAULT_DISPLAY_UNITS),
     converterErrors: {},
     converterChoice: 'none',
     converterDistanceRows: EXAMPLE_DISTANCE_ROWS.map((r) => ({ key: rowKey(), ...r })),
@@ -252,10 +273,11 @@ export const createConverterSlice: StateCreator<SekundoState, [], [], ConverterS
     },
 
     discardConverterDraft: (key) => {
-      const { converterFields, converterErrors } = get();
+      const { converterFields, converterErrors, displayUnits } = get();
       const field = converterFields[key];
+      const unit = shownUnitOf(key, field, displayUnits);
       set({
-        converterFields: { ...converterFields, [key]: { ...field, text: fieldText(FIELD_SPECS[key], field.value, field.unit) } },
+        converterFields: { ...converterFields, [key]: { ...field, unit, text: fieldText(FIELD_SPECS[key], field.value, unit) } },
         converterErrors: without(converterErrors, key),
       });
     },
@@ -266,11 +288,26 @@ export const createConverterSlice: StateCreator<SekundoState, [], [], ConverterS
       const spec = FIELD_SPECS[key];
       if (key in converterErrors) {
         // A refused text is re-read in the new unit.
-        set({ converterFields: { ...converterFields, [key]: { ...field, unit } } });
+        set({ converterFields: { ...converterFields, [key]: { ...field, unit, ownUnit: true } } });
         apply(key, field.text, unit);
         return;
       }
-      set({ converterFields: { ...converterFields, [key]: { ...field, unit, text: fieldText(spec, field.value, unit) } } });
+      set({ converterFields: { ...converterFields, [key]: { ...field, unit, ownUnit: true, text: fieldText(spec, field.value, unit) } } });
+    },
+
+    followConverterDisplayUnits: () => {
+      const { converterFields, converterErrors, displayUnits } = get();
+      let fields: Record<ConverterFieldKey, FieldState> | null = null;
+      for (const key of FIELD_KEYS) {
+        const field = converterFields[key];
+        const spec = FIELD_SPECS[key];
+        const unit = shownUnitOf(key, field, displayUnits);
+        const draft = key in converterErrors || field.text !== fieldText(spec, field.value, field.unit);
+        if (unit === field.unit || draft) continue;
+        fields ??= { ...converterFields };
+        fields[key] = { ...field, unit, text: fieldText(spec, field.value, unit) };
+      }
+      if (fields) set({ converterFields: fields });
     },
 
     applyConverterValues: (values) => {

@@ -4,9 +4,13 @@
  */
 import { type CsvCell, csvCell, writeCsv } from '../../io/csv-common';
 import type { Choice, TemperatureCandidate } from '../../physics';
+import type { DisplayUnitView } from '../units/use-display-unit';
+import { csvColumn } from './converter-units';
 
-/** Columns describing one candidate, after the context columns. */
-const CANDIDATE_COLUMNS = ['candidate', 'T_K', 'T_sd_K', 'slope_m_s_K', 'branch', 'region', 'kind', 'insensitive', 'chosen', 'choice'];
+/** Columns describing one candidate, after the context columns; temperatures in the display unit. */
+function candidateColumns(temperature: DisplayUnitView<'temperature'>): string[] {
+  return ['candidate', csvColumn('T', temperature), csvColumn('T_sd', temperature), 'slope_m_s_K', 'branch', 'region', 'kind', 'insensitive', 'chosen', 'choice'];
+}
 
 /** A table of candidates, one row each, every row led by the same context cells (the reading, the fit). */
 export interface CandidateTable {
@@ -14,14 +18,20 @@ export interface CandidateTable {
   rows: CsvCell[][];
 }
 
-export function candidateTable(context: readonly (readonly [string, CsvCell])[], candidates: readonly TemperatureCandidate[], choice: Choice | null): CandidateTable {
-  const header = [...context.map(([name]) => name), ...CANDIDATE_COLUMNS];
+export function candidateTable(
+  context: readonly (readonly [string, CsvCell])[],
+  candidates: readonly TemperatureCandidate[],
+  choice: Choice | null,
+  temperature: DisplayUnitView<'temperature'>,
+): CandidateTable {
+  const columns = candidateColumns(temperature);
+  const header = [...context.map(([name]) => name), ...columns];
   const lead = context.map(([, value]) => value);
   const rows = candidates.map((c, i): CsvCell[] => [
     ...lead,
     i + 1,
-    c.temperature_K,
-    c.sd_K,
+    temperature.fromSi(c.temperature_K),
+    temperature.fromSi(c.sd_K),
     c.slope_m_s_K,
     c.branch,
     c.region,
@@ -30,7 +40,7 @@ export function candidateTable(context: readonly (readonly [string, CsvCell])[],
     choice?.index === i,
     choice?.index === i ? choice.reason : '',
   ]);
-  if (rows.length === 0) rows.push([...lead, ...CANDIDATE_COLUMNS.map(() => null)]);
+  if (rows.length === 0) rows.push([...lead, ...columns.map(() => null)]);
   return { header, rows };
 }
 

@@ -15,7 +15,9 @@ import {
 } from '../../physics';
 import { applyRule } from './candidate-notes';
 import { type ChoiceKind, choiceRuleOf, convertReading, type FieldValues, sentence } from './converter-checks';
+import { plain } from './converter-fields';
 import type { DistancePoints } from './converter-slice';
+import { type ConverterUnits, csvColumn, inUnit, temperatureText } from './converter-units';
 import { type CandidateTable, candidateTable } from './export-text';
 
 export type Derived<T> = { ok: true; value: T } | { ok: false; message: string };
@@ -34,9 +36,10 @@ export interface Chosen {
   choice: Choice & { problem: string | null };
 }
 
-export function chooseFor(candidates: DelayConversion['candidates'], kind: ChoiceKind, values: FieldValues): Chosen {
+/** The choice the way of choosing makes, its reason with temperatures in `unit`. */
+export function chooseFor(candidates: DelayConversion['candidates'], kind: ChoiceKind, values: FieldValues, unit: 'K' | 'mK' = 'K'): Chosen {
   const rule = choiceRuleOf(kind, values);
-  return { rule, choice: applyRule(candidates, rule) };
+  return { rule, choice: applyRule(candidates, rule, unit) };
 }
 
 /** One delay → speed and candidates. */
@@ -57,48 +60,53 @@ export function sweepCalibration(points: readonly { x: number; delay_s: number }
   return attempt(() => calibratePathFromSweep(points, values.offset ?? 0, values.offsetSd ?? 0));
 }
 
-/** The export table of one delay: the reading, then one row per candidate. */
-export function singleReadingTable(values: FieldValues, conversion: DelayConversion, chosen: Chosen): CandidateTable {
+/** The export table of one delay: the reading, then one row per candidate; lengths, times and temperatures in the display units. */
+export function singleReadingTable(values: FieldValues, conversion: DelayConversion, chosen: Chosen, units: ConverterUnits): CandidateTable {
+  const { length, time } = units;
   return candidateTable(
     [
-      ['distance_m', values.distance],
-      ['distance_sd_m', values.distanceSd],
-      ['delay_s', values.delay],
-      ['delay_sd_s', values.delaySd],
-      ['offset_s', values.offset],
-      ['offset_sd_s', values.offsetSd],
+      [csvColumn('distance', length), inUnit(values.distance, length)],
+      [csvColumn('distance_sd', length), inUnit(values.distanceSd, length)],
+      [csvColumn('delay', time), inUnit(values.delay, time)],
+      [csvColumn('delay_sd', time), inUnit(values.delaySd, time)],
+      [csvColumn('offset', time), inUnit(values.offset, time)],
+      [csvColumn('offset_sd', time), inUnit(values.offsetSd, time)],
       ['speed_m_s', conversion.speed_m_s],
       ['speed_sd_m_s', conversion.speedSd_m_s],
-      ['rule', ruleWords(chosen.rule)],
+      ['rule', ruleWords(chosen.rule, units)],
     ],
     conversion.candidates,
     chosen.choice,
+    units.temperature,
   );
 }
 
-/** The export table of a distance fit. */
-export function distanceFitTable(fit: DistanceFit, chosen: Chosen): CandidateTable {
+/** The export table of a distance fit; the offset and temperatures in the display units. */
+export function distanceFitTable(fit: DistanceFit, chosen: Chosen, units: ConverterUnits): CandidateTable {
+  const { time } = units;
   return candidateTable(
     [
       ['speed_m_s', fit.speed_m_s],
       ['speed_sd_m_s', fit.speedSd_m_s],
-      ['offset_s', fit.offset_s],
-      ['offset_sd_s', fit.offsetSd_s],
+      [csvColumn('offset', time), time.fromSi(fit.offset_s)],
+      [csvColumn('offset_sd', time), time.fromSi(fit.offsetSd_s)],
       ['correlation', fit.correlation],
       ['chi_square', fit.chiSquare],
       ['dof', fit.degreesOfFreedom],
       ['weighted', fit.weighted],
-      ['rule', ruleWords(chosen.rule)],
+      ['rule', ruleWords(chosen.rule, units)],
     ],
     fit.candidates,
     chosen.choice,
+    units.temperature,
   );
 }
 
-/** The rule in words for an export cell: "vapour pressure 1638.2 Pa", "near 1.8 K", "range 1.7–2.1 K", "". */
-export function ruleWords(rule: ChoiceRule | null): string {
+/** The rule in words for an export cell, in the display units: "vapour pressure 1638.2 Pa", "near 1.8000 K", "range 1700.0–2100.0 mK", "". */
+export function ruleWords(rule: ChoiceRule | null, units: Pick<ConverterUnits, 'temperature' | 'pressure'>): string {
   if (rule === null) return '';
-  if (rule.kind === 'pressure') return `vapour pressure ${rule.pressure_Pa} Pa`;
-  if (rule.kind === 'near') return `near ${rule.temperature_K} K`;
-  return `range ${rule.min_K}–${rule.max_K} K`;
+  const t = (T_K: number) => temperatureText(T_K, units.temperature.unit);
+  if (rule.kind === 'pressure') return `vapour pressure ${plain(units.pressure.fromSi(rule.pressure_Pa))} ${units.pressure.shown}`;
+  if (rule.kind === 'near') return `near ${t(rule.temperature_K)}`;
+  return `range ${t(rule.min_K)}–${t(rule.max_K)}`;
 }

@@ -19,6 +19,7 @@ import {
 } from '../../physics';
 import { candidateFlags } from './candidate-notes';
 import { sentence } from './converter-checks';
+import { type ConverterUnits, csvColumn, inUnit } from './converter-units';
 
 /** Header keys read as a timestamp (compared in lower case, without spaces, "_" or "-"). */
 const TIMESTAMP_KEYS: ReadonlySet<string> = new Set(['timestamp', 'time', 'date', 'datetime', 'acquired', 'acquisitiontime', 'triggertime', 'starttime', 'recorded']);
@@ -186,28 +187,29 @@ export function noteWords(c: TemperatureCandidate): string {
 
 const MAX_CANDIDATES = 3;
 
-/** The series as a table: one row per file in series order; numbers in full precision, SI units. */
-export function seriesTable(rows: readonly SeriesRow[]): { header: string[]; rows: CsvCell[][] } {
+/** The series as a table: one row per file in series order; numbers in full precision, in the display units. */
+export function seriesTable(rows: readonly SeriesRow[], units: ConverterUnits): { header: string[]; rows: CsvCell[][] } {
+  const { temperature, time, pressure } = units;
   const header = [
     'order',
     'file',
     'timestamp',
-    'pressure_Pa',
+    csvColumn('pressure', pressure),
     'sensor',
     'heater',
     'picker',
-    'delay_s',
-    'delay_sd_s',
+    csvColumn('delay', time),
+    csvColumn('delay_sd', time),
     'snr',
     'speed_m_s',
     'speed_sd_m_s',
     'candidates',
     'chosen',
     'chosen_by',
-    'T_K',
-    'T_sd_K',
+    csvColumn('T', temperature),
+    csvColumn('T_sd', temperature),
   ];
-  for (let i = 1; i <= MAX_CANDIDATES; i++) header.push(`T${i}_K`, `T${i}_sd_K`, `T${i}_branch`, `T${i}_note`);
+  for (let i = 1; i <= MAX_CANDIDATES; i++) header.push(csvColumn(`T${i}`, temperature), csvColumn(`T${i}_sd`, temperature), `T${i}_branch`, `T${i}_note`);
   header.push('problem');
   const body = rows.map((r, k): CsvCell[] => {
     const c = chosenOf(r);
@@ -215,24 +217,24 @@ export function seriesTable(rows: readonly SeriesRow[]): { header: string[]; row
       k + 1,
       r.file.name,
       r.timestamp?.text ?? '',
-      r.pressure_Pa,
+      inUnit(r.pressure_Pa, pressure),
       r.pick?.sensor ?? '',
       r.pick?.heater ?? '',
       r.pick?.picker ?? '',
-      r.pick?.delay_s,
-      r.pick?.delaySd_s,
+      inUnit(r.pick?.delay_s, time),
+      inUnit(r.pick?.delaySd_s, time),
       r.pick?.snr,
       r.conversion?.speed_m_s,
       r.conversion?.speedSd_m_s,
       r.conversion ? r.conversion.candidates.length : null,
       r.chosen === null ? null : r.chosen + 1,
       r.chosenBy ?? '',
-      c?.temperature_K,
-      c?.sd_K,
+      inUnit(c?.temperature_K, temperature),
+      inUnit(c?.sd_K, temperature),
     ];
     for (let i = 0; i < MAX_CANDIDATES; i++) {
       const x = r.conversion?.candidates[i];
-      cells.push(x?.temperature_K, x?.sd_K, x?.branch, x ? noteWords(x) : undefined);
+      cells.push(inUnit(x?.temperature_K, temperature), inUnit(x?.sd_K, temperature), x?.branch, x ? noteWords(x) : undefined);
     }
     cells.push(r.problem ?? '');
     return cells;
@@ -241,7 +243,7 @@ export function seriesTable(rows: readonly SeriesRow[]): { header: string[]; row
 }
 
 /** The series as CSV (RFC 4180, LF), see {@link seriesTable}. */
-export function seriesCsv(rows: readonly SeriesRow[]): string {
-  const table = seriesTable(rows);
+export function seriesCsv(rows: readonly SeriesRow[], units: ConverterUnits): string {
+  const table = seriesTable(rows, units);
   return writeCsv(table.header, table.rows);
 }

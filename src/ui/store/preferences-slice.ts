@@ -60,6 +60,7 @@ export const createPreferencesSlice: StateCreator<SekundoState, [], [], Preferen
     const before = get();
     const displayUnits = { ...before.displayUnits, [kind]: unit };
     set({ displayUnits, ...temperatureDraftIn(before, displayUnits.temperature) });
+    get().followConverterDisplayUnits();
   },
   tourOpen: false,
   tourSeen: false,
@@ -82,6 +83,7 @@ export const createPreferencesSlice: StateCreator<SekundoState, [], [], Preferen
       tourSeen: seen,
       tourOpen: !seen,
     });
+    get().followConverterDisplayUnits();
   },
 });
 

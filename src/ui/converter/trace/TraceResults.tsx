@@ -9,11 +9,11 @@ import { useElementWidth } from '../../layout/use-element-width';
 import { PlotlyChart } from '../../plot/PlotlyChart';
 import type { PlotLayout, PlotTrace } from '../../plot/plotly-types';
 import { useSekundoStore } from '../../store';
-import { shortTimestamp } from '../BatchMode';
+import { candidateList, shortTimestamp } from '../BatchMode';
 import { applyRule } from '../candidate-notes';
-import { formatTemperature } from '../CandidatesTable';
 import { choiceRuleOf, type FieldValues } from '../converter-checks';
 import type { TraceFileEntry } from '../converter-slice';
+import { type ConverterUnits, csvColumn, currentConverterUnits, inUnit, temperatureOnY, temperatureText, useConverterUnits } from '../converter-units';
 import { ConversionResult } from '../ConversionResult';
 import { candidateTable, tableCsv, tableTsv } from '../export-text';
 import type { Chosen } from '../reading-results';
@@ -83,12 +83,12 @@ export function TraceResults() {
   );
 }
 
-/** The choice for one row of the series, in the words of the result card. */
-function rowChosen(row: SeriesRow): Chosen {
+/** The choice for one row of the series, in the words of the result card, temperatures in `unit`. */
+function rowChosen(row: SeriesRow, unit: 'K' | 'mK'): Chosen {
   const candidates = row.conversion?.candidates ?? [];
-  const choice = applyRule(candidates, row.rule);
+  const choice = applyRule(candidates, row.rule, unit);
   if (row.chosenBy === 'continuity' && row.rule?.kind === 'near') {
-    return { rule: row.rule, choice: { ...choice, reason: `nearest to the file before (${row.rule.temperature_K.toFixed(4)} K)` } };
+    return { rule: row.rule, choice: { ...choice, reason: `nearest to the file before (${temperatureText(row.rule.temperature_K, unit)})` } };
   }
   if (row.chosenBy === 'vapour pressure in the file') return { rule: row.rule, choice: { ...choice, reason: `${choice.reason}, from the file’s own header` } };
   return { rule: row.rule, choice };
@@ -101,6 +101,8 @@ function SelectedTrace({ file, pick, row }: { file: TraceFileEntry; pick: PickSt
   const options = useTracePickOptions();
   const values = useFieldValues();
   const samples = useTraceSamples(file.id);
+  const units = useConverterUnits();
+  const timeUnit = units.time.unit;
   const [plotRef, width] = useElementWidth<HTMLDivElement>(900);
   const picked = pick?.status === 'picked' ? pick.pick : null;
   const sensor = picked?.sensor ?? options.sensor ?? file.info?.channels.find((c) => c !== options.heater) ?? '';
@@ -117,12 +119,15 @@ function SelectedTrace({ file, pick, row }: { file: TraceFileEntry; pick: PickSt
       search: { from_s: values.searchFrom, to_s: values.searchTo },
       view,
       columns: Math.max(200, width - 120),
+      timeUnit,
     });
-  }, [samples, sensor, picked, options, values.searchFrom, values.searchTo, view, width]);
-  const chosen = row?.conversion ? rowChosen(row) : null;
+  }, [samples, sensor, picked, options, values.searchFrom, values.searchTo, view, width, timeUnit]);
+  const chosen = row?.conversion ? rowChosen(row, units.temperature.unit) : null;
   const exportContent = () => {
-    if (!row?.conversion || !row.pick || !chosen) return null;
+    if (!row?.conversion || !row.pick) return null;
     const p = row.pick;
+    const now = currentConverterUnits();
+    const { length, time } = now;
     const table = candidateTable(
       [
         ['file', file.name],
@@ -130,18 +135,19 @@ function SelectedTrace({ file, pick, row }: { file: TraceFileEntry; pick: PickSt
         ['heater', p.heater ?? ''],
         ['picker', p.picker],
         ['time_zero', p.timeZero],
-        ['delay_s', p.delay_s],
-        ['delay_sd_s', p.delaySd_s],
+        [csvColumn('delay', time), time.fromSi(p.delay_s)],
+        [csvColumn('delay_sd', time), time.fromSi(p.delaySd_s)],
         ['snr', p.snr],
-        ['distance_m', values.distance],
-        ['distance_sd_m', values.distanceSd],
-        ['offset_s', values.offset],
-        ['offset_sd_s', values.offsetSd],
+        [csvColumn('distance', length), inUnit(values.distance, length)],
+        [csvColumn('distance_sd', length), inUnit(values.distanceSd, length)],
+        [csvColumn('offset', time), inUnit(values.offset, time)],
+        [csvColumn('offset_sd', time), inUnit(values.offsetSd, time)],
         ['speed_m_s', row.conversion.speed_m_s],
         ['speed_sd_m_s', row.conversion.speedSd_m_s],
       ],
       row.conversion.candidates,
-      chosen.choice,
+      rowChosen(row, now.temperature.unit).choice,
+      now.temperature,
     );
     return { fileName: `${file.name.replace(/\.[^.]*$/, '') || 'trace'}-reading.csv`, csv: tableCsv(table), tsv: tableTsv(table) };
   };
@@ -172,13 +178,18 @@ function SelectedTrace({ file, pick, row }: { file: TraceFileEntry; pick: PickSt
             </p>
           ) : figure ? (
             <PanelErrorBoundary panel="trace chart">
-              <PlotlyChart chartId="converter-trace" label={`Trace of ${sensor} in ${file.name}${picked ? ` with the arrival at ${(picked.delay_s * 1e3).toFixed(4)} ms` : ''}.`} data={figure.data} layout={figure.layout} />
+              <PlotlyChart
+                chartId="converter-trace"
+                label={`Trace of ${sensor} in ${file.name}${picked ? ` with the arrival at ${units.time.measured(picked.delay_s, picked.delaySd_s).value} ${units.time.shown}` : ''}.`}
+                data={figure.data}
+                layout={figure.layout}
+              />
             </PanelErrorBoundary>
           ) : (
             <p className="plot-loading">Fetching the samples…</p>
           )}
         </div>
-        <PickSummary pick={pick} />
+        <PickSummary pick={pick} time={units.time} />
       </section>
       {row?.conversion && chosen ? (
         <ConversionResult
@@ -200,7 +211,8 @@ function SelectedTrace({ file, pick, row }: { file: TraceFileEntry; pick: PickSt
   );
 }
 
-function PickSummary({ pick }: { pick: PickState | undefined }) {
+/** The pick: delay and time zero in the display unit of time, each rounded with its sd. */
+function PickSummary({ pick, time }: { pick: PickState | undefined; time: ConverterUnits['time'] }) {
   if (!pick || pick.status === 'picking') {
     return (
       <p className="pick-summary muted" role="status">
@@ -216,19 +228,24 @@ function PickSummary({ pick }: { pick: PickState | undefined }) {
     );
   }
   const p = pick.pick;
+  const delay = time.measured(p.delay_s, p.delaySd_s);
+  const zero = time.measured(p.timeZero_s, p.timeZeroSd_s);
   return (
     <dl className="pick-summary state-list" aria-label="Picked arrival">
       <div>
         <dt>Delay (arrival − time zero)</dt>
         <dd>
-          <strong data-testid="picked-delay">{formatSignificant(p.delay_s * 1e3, 6)} ms</strong> ± {formatSignificant(p.delaySd_s * 1e6, 2)} µs
+          <strong data-testid="picked-delay">
+            {delay.value} {time.shown}
+          </strong>
+          {delay.sd === null ? null : ` ± ${delay.sd} ${time.shown}`}
         </dd>
       </div>
       <div>
         <dt>Time zero</dt>
         <dd>
           {p.timeZero === 'heater onset'
-            ? `heater onset (50 % of the drive’s rise) at ${formatSignificant(p.timeZero_s * 1e6, 4)} ± ${formatSignificant(p.timeZeroSd_s * 1e6, 2)} µs on the file’s axis`
+            ? `heater onset (50 % of the drive’s rise) at ${zero.text} ${time.shown} on the file’s axis`
             : 'the file’s t = 0 (no heater channel)'}
         </dd>
       </div>
@@ -252,13 +269,18 @@ function PickSummary({ pick }: { pick: PickState | undefined }) {
 }
 
 function seriesExport(rows: readonly SeriesRow[]) {
-  return () => ({ fileName: 'sekundo-trace-series.csv', csv: seriesCsv(rows), tsv: tableTsv(seriesTable(rows)) });
+  return () => {
+    const units = currentConverterUnits();
+    return { fileName: 'sekundo-trace-series.csv', csv: seriesCsv(rows, units), tsv: tableTsv(seriesTable(rows, units)) };
+  };
 }
 
 function SeriesCard({ rows, by }: { rows: readonly SeriesRow[]; by: 'timestamp' | 'name' }) {
   const headingId = useId();
   const select = useSekundoStore((s) => s.selectConverterTrace);
-  const figure = useMemo(() => seriesFigure(rows, by), [rows, by]);
+  const units = useConverterUnits();
+  const { temperature, time } = units;
+  const figure = useMemo(() => temperatureOnY(seriesFigure(rows, by), temperature.unit), [rows, by, temperature.unit]);
   const decided = rows.filter((r) => chosenOf(r) !== undefined).length;
   return (
     <>
@@ -281,26 +303,27 @@ function SeriesCard({ rows, by }: { rows: readonly SeriesRow[]; by: 'timestamp' 
                 <th scope="col">File</th>
                 {by === 'timestamp' ? <th scope="col">Timestamp</th> : null}
                 <th scope="col" className="num as-written">
-                  Delay (ms)
+                  Delay ({time.shown})
                 </th>
                 <th scope="col" className="num as-written">
                   Speed (m/s)
                 </th>
                 <th scope="col" className="num as-written">
-                  T (K)
+                  T ({temperature.shown})
                 </th>
                 <th scope="col" className="num as-written">
-                  sd (mK)
+                  sd ({temperature.shown})
                 </th>
                 <th scope="col">Chosen by</th>
                 <th scope="col" className="as-written">
-                  All candidates (K)
+                  All candidates ({temperature.shown})
                 </th>
               </tr>
             </thead>
             <tbody>
               {rows.map((r, i) => {
                 const c = chosenOf(r);
+                const T = c ? temperature.measured(c.temperature_K, c.sd_K) : null;
                 return (
                   <tr key={r.file.id}>
                     <th scope="row">{i + 1}</th>
@@ -314,12 +337,12 @@ function SeriesCard({ rows, by }: { rows: readonly SeriesRow[]; by: 'timestamp' 
                         {shortTimestamp(r.timestamp?.text ?? '')}
                       </td>
                     ) : null}
-                    <td className="num">{r.pick ? formatSignificant(r.pick.delay_s * 1e3, 6) : '—'}</td>
+                    <td className="num">{r.pick ? time.measured(r.pick.delay_s, r.pick.delaySd_s).value : '—'}</td>
                     <td className="num">{r.conversion ? `${formatSignificant(r.conversion.speed_m_s)} ± ${formatSignificant(r.conversion.speedSd_m_s, 2)}` : '—'}</td>
-                    <td className="num value">{c ? formatTemperature(c.temperature_K, c.sd_K) : '—'}</td>
-                    <td className="num uncertainty">{c ? formatSignificant(c.sd_K * 1e3, 2) : ''}</td>
+                    <td className="num value">{T ? T.value : '—'}</td>
+                    <td className="num uncertainty">{T?.sd ?? ''}</td>
                     <td>{r.problem && !r.conversion ? <span className="field-error-inline">{r.problem}</span> : (r.chosenBy ?? 'undecided')}</td>
-                    <td className="candidate-list">{r.conversion?.candidates.map((x) => x.temperature_K.toFixed(4)).join(' · ') ?? ''}</td>
+                    <td className="candidate-list">{r.conversion ? candidateList(r.conversion.candidates, temperature) : ''}</td>
                   </tr>
                 );
               })}

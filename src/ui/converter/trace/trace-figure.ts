@@ -1,11 +1,14 @@
 /**
  * The figure of one trace: the sensor channel (and the heater drive on its own scale) decimated to
- * min/max per pixel column, time in ms from time zero (the heater onset, or the file's t = 0), the
+ * min/max per pixel column, time in the display unit (ms by default) from time zero (the heater onset, or the file's t = 0), the
  * picked arrival with its ± sd, the level the picker crossed, and the search window.
  */
 import type { TracePick } from '../../../io/trace-pick';
 import { axis, baseLayout, CHART_COLOURS } from '../../charts/chart-theme';
+import { fromBaseUnit } from '../../../io/quantity';
 import type { PlotLayout, PlotShape, PlotTrace } from '../../plot/plotly-types';
+import { shownUnit } from '../../units/unit-choices';
+import { TIME_DECIMALS } from '../converter-units';
 import { decimateMinMax } from '../decimate';
 import type { TraceSamples } from './trace-protocol';
 
@@ -25,6 +28,8 @@ export interface TraceFigureInput {
   view: 'record' | 'arrival';
   /** Pixel columns of the plot area. */
   columns: number;
+  /** Display unit of time on the x axis. */
+  timeUnit: 'ms' | 'µs' | 's';
 }
 
 /** The time span shown, on the file's axis, s. */
@@ -38,33 +43,37 @@ export function viewSpan(samples: TraceSamples, pick: TracePick | null, view: 'r
   return [Math.max(first, pick.arrival_s - half), Math.min(last, pick.arrival_s + half)];
 }
 
-export function traceFigure({ samples, sensor, heater, pick, level, search, view, columns }: TraceFigureInput): { data: PlotTrace[]; layout: PlotLayout } {
+export function traceFigure({ samples, sensor, heater, pick, level, search, view, columns, timeUnit }: TraceFigureInput): { data: PlotTrace[]; layout: PlotLayout } {
   const zero = pick?.timeZero_s ?? 0;
   const [from, to] = viewSpan(samples, pick, view);
-  const ms = (t: number) => (t - zero) * 1e3;
+  const scale = fromBaseUnit(1, timeUnit);
+  const unit = shownUnit(timeUnit);
+  const decimals = TIME_DECIMALS[timeUnit];
+  /** A time on the file's axis, from time zero in the display unit. */
+  const shown = (t: number) => (t - zero) * scale;
   const data: PlotTrace[] = [];
   const sensorValues = samples.channels.find((c) => c.name === sensor)?.values;
   // Around the arrival the drive is long over: its trace would only add a flat line and an axis.
   const heaterValues = heater === null || (view === 'arrival' && pick) ? undefined : samples.channels.find((c) => c.name === heater)?.values;
   if (heaterValues) {
-    const line = decimateMinMax(samples.time_s, heaterValues, from, to, columns, 1e3, zero);
+    const line = decimateMinMax(samples.time_s, heaterValues, from, to, columns, scale, zero);
     data.push({ type: 'scatter', name: `${heater} (heater)`, x: line.x, y: line.y, yaxis: 'y2', mode: 'lines', line: { color: CHART_COLOURS.inkMuted, width: 1 }, opacity: 0.7, hoverinfo: 'skip' });
   }
   if (sensorValues) {
-    const line = decimateMinMax(samples.time_s, sensorValues, from, to, columns, 1e3, zero);
-    data.push({ type: 'scatter', name: `${sensor} (sensor)`, x: line.x, y: line.y, mode: 'lines', line: { color: CHART_COLOURS.secondSound, width: 1.2 }, hovertemplate: '%{x:.4f} ms<br>%{y:.4g}<extra></extra>' });
+    const line = decimateMinMax(samples.time_s, sensorValues, from, to, columns, scale, zero);
+    data.push({ type: 'scatter', name: `${sensor} (sensor)`, x: line.x, y: line.y, mode: 'lines', line: { color: CHART_COLOURS.secondSound, width: 1.2 }, hovertemplate: `%{x:.${decimals}f} ${unit}<br>%{y:.4g}<extra></extra>` });
   }
   const shapes: PlotShape[] = [
     { name: TIME_ZERO_SHAPE, type: 'line', xref: 'x', yref: 'paper', x0: 0, x1: 0, y0: 0, y1: 1, line: { color: CHART_COLOURS.lambda, width: 1, dash: 'dash' }, layer: 'below' },
   ];
   if (search.from_s !== null || search.to_s !== null) {
-    const lo = search.from_s === null ? 0 : search.from_s * 1e3;
-    const hi = search.to_s === null ? ms(samples.time_s[samples.time_s.length - 1] ?? 0) : search.to_s * 1e3;
+    const lo = search.from_s === null ? 0 : search.from_s * scale;
+    const hi = search.to_s === null ? shown(samples.time_s[samples.time_s.length - 1] ?? 0) : search.to_s * scale;
     shapes.push({ name: 'search-window', type: 'rect', xref: 'x', yref: 'paper', x0: lo, x1: hi, y0: 0, y1: 1, fillcolor: 'rgba(11, 122, 118, 0.06)', line: { width: 0 }, layer: 'below' });
   }
   if (pick) {
-    const t = pick.delay_s * 1e3;
-    const sd = pick.delaySd_s * 1e3;
+    const t = pick.delay_s * scale;
+    const sd = pick.delaySd_s * scale;
     shapes.push(
       { name: ARRIVAL_SD_SHAPE, type: 'rect', xref: 'x', yref: 'paper', x0: t - sd, x1: t + sd, y0: 0, y1: 1, fillcolor: 'rgba(217, 119, 43, 0.25)', line: { width: 0 }, layer: 'below' },
       { name: ARRIVAL_SHAPE, type: 'line', xref: 'x', yref: 'paper', x0: t, x1: t, y0: 0, y1: 1, line: { color: CHART_COLOURS.chosen, width: 2 }, layer: 'above' },
@@ -86,7 +95,7 @@ export function traceFigure({ samples, sensor, heater, pick, level, search, view
       ...baseLayout(),
       margin: { l: 64, r: heaterValues ? 56 : 16, t: 30, b: 46 },
       legend: { orientation: 'h', x: 1, y: 1.01, xanchor: 'right', yanchor: 'bottom' },
-      xaxis: axis(pick?.timeZero === 'heater onset' ? 'Time from the heater onset (ms)' : 'Time (ms)', { range: [ms(from), ms(to)] }),
+      xaxis: axis(pick?.timeZero === 'heater onset' ? `Time from the heater onset (${unit})` : `Time (${unit})`, { range: [shown(from), shown(to)] }),
       yaxis: axis(`${sensor}`),
       ...(heaterValues ? { yaxis2: axis(`${heater}`, { overlaying: 'y', side: 'right', showline: true, zeroline: false, gridcolor: 'rgba(0,0,0,0)' }) } : {}),
       shapes,
@@ -94,10 +103,10 @@ export function traceFigure({ samples, sensor, heater, pick, level, search, view
         ? [
             {
               name: 'arrival-label',
-              text: `arrival ${(pick.delay_s * 1e3).toFixed(4)} ms`,
+              text: `arrival ${(pick.delay_s * scale).toFixed(decimals)} ${unit}`,
               xref: 'x',
               yref: 'paper',
-              x: pick.delay_s * 1e3,
+              x: pick.delay_s * scale,
               y: 1,
               xanchor: 'left',
               yanchor: 'top',
@@ -107,7 +116,7 @@ export function traceFigure({ samples, sensor, heater, pick, level, search, view
             },
           ]
         : [],
-      uirevision: `${view}|${sensor}|${heater ?? ''}`,
+      uirevision: `${view}|${sensor}|${heater ?? ''}|${timeUnit}`,
     },
   };
 }

@@ -1,0 +1,227 @@
+import { act, render, screen, waitFor, within } from '@testing-library/react';
+import userEvent from '@testing-library/user-event';
+import { App } from '../../app/App';
+import { convertDelay, secondSound, vapourPressure } from '../../src/physics';
+import { FIELD_SPECS, followedUnit, unitKindOf } from '../../src/ui/converter/converter-fields';
+import { valuesOf } from '../../src/ui/converter/converter-slice';
+import { useSekundoStore } from '../../src/ui/store';
+import { DEFAULT_DISPLAY_UNITS, type DisplayUnitOf, UNIT_KINDS, type UnitKind } from '../../src/ui/units/unit-choices';
+import { lastDraw } from './fake-plotly';
+
+/*
+ * The converter follows the header's display units: results and exports are shown in them, value
+ * fields follow them until someone picks a unit in the field's own menu, and the values (SI in the
+ * store) never change with the units.
+ *
+ * The reading on screen is the converter's starting one (invented): 50 mm ± 0.1 mm in
+ * 2.5 ms ± 2 µs, so u = 20.00 m/s, between the extrema of u₂: three candidates, the warmest
+ * 1.7851 K (the kernel's root; ITS-90 puts 1638.2 Pa at 1.8000 K, nearest that one).
+ */
+
+type User = ReturnType<typeof userEvent.setup>;
+const store = () => useSekundoStore.getState();
+const START = { distance_m: 0.05, delay_s: 2.5e-3, distanceSd_m: 1e-4, delaySd_s: 2e-6, offset_s: 0, offsetSd_s: 0 };
+
+async function openConverter(): Promise<User> {
+  const user = userEvent.setup();
+  render(<App />);
+  await user.click(screen.getByRole('tab', { name: 'Read the temperature' }));
+  return user;
+}
+
+function choose<K extends UnitKind>(kind: K, unit: DisplayUnitOf<K>) {
+  act(() => store().setDisplayUnit(kind, unit));
+}
+
+const field = (name: string) => screen.getByRole('textbox', { name });
+const unitOf = (name: string) => screen.getByRole('combobox', { name: `${name} unit` });
+
+function candidateRows() {
+  return within(screen.getByRole('table', { name: /every temperature with u₂/i })).getAllByRole('row').slice(1);
+}
+
+/** Catches what an export downloads: the Blobs behind the object URLs. */
+function captureDownloads() {
+  const blobs: Blob[] = [];
+  URL.createObjectURL = vi.fn((blob: Blob) => {
+    blobs.push(blob);
+    return `blob:test/${blobs.length}`;
+  }) as typeof URL.createObjectURL;
+  URL.revokeObjectURL = vi.fn();
+  const click = vi.spyOn(HTMLAnchorElement.prototype, 'click').mockImplementation(() => undefined);
+  return { blobs, restore: () => click.mockRestore() };
+}
+
+describe('converter fields and the header units', () => {
+  it('offers every header unit in the menu of every field of its kind', () => {
+    for (const spec of Object.values(FIELD_SPECS)) {
+      const kind = unitKindOf(spec);
+      if (kind === null) continue;
+      for (const { unit } of UNIT_KINDS[kind].choices) expect(spec.units, `${spec.label} menu`).toContain(unit);
+    }
+  });
+
+  it('a value field takes the header unit; an sd field keeps its finer default unless the header unit is finer', () => {
+    const units = { ...DEFAULT_DISPLAY_UNITS, length: 'm', time: 's' } as const;
+    expect(followedUnit(FIELD_SPECS.delay, units)).toBe('s');
+    expect(followedUnit(FIELD_SPECS.distance, units)).toBe('m');
+    expect(followedUnit(FIELD_SPECS.delaySd, units)).toBe('µs');
+    expect(followedUnit(FIELD_SPECS.distanceSd, units)).toBe('mm');
+    expect(followedUnit(FIELD_SPECS.delaySd, { ...units, time: 'µs' })).toBe('µs');
+    expect(followedUnit(FIELD_SPECS.fraction, units)).toBe('');
+  });
+
+  it('switching the header units re-shows the following fields; no value changes', async () => {
+    await openConverter();
+    const before = valuesOf(store().converterFields);
+    expect(field('Delay')).toHaveValue('2.5');
+    expect(unitOf('Delay')).toHaveValue('ms');
+    choose('time', 'µs');
+    choose('length', 'cm');
+    choose('temperature', 'mK');
+    expect(field('Delay')).toHaveValue('2500');
+    expect(unitOf('Delay')).toHaveValue('µs');
+    expect(field('Distance')).toHaveValue('5');
+    expect(unitOf('Distance')).toHaveValue('cm');
+    expect(field('Offset t₀')).toHaveValue('0');
+    expect(unitOf('Offset t₀')).toHaveValue('µs');
+    // The sds keep their own finer units (µs, mm) whatever the header says.
+    expect(field('Delay sd')).toHaveValue('2');
+    expect(unitOf('Delay sd')).toHaveValue('µs');
+    expect(field('Distance sd')).toHaveValue('0.1');
+    expect(unitOf('Distance sd')).toHaveValue('mm');
+    expect(field('Expected temperature')).toHaveValue('1800');
+    expect(unitOf('Expected temperature')).toHaveValue('mK');
+    choose('time', 's');
+    expect(field('Delay')).toHaveValue('0.0025');
+    expect(field('Delay sd')).toHaveValue('2');
+    expect(valuesOf(store().converterFields)).toEqual(before);
+  });
+
+  it('a unit picked in a field’s own menu stays when the header changes', async () => {
+    const user = await openConverter();
+    await user.selectOptions(unitOf('Delay'), 's');
+    expect(field('Delay')).toHaveValue('0.0025');
+    choose('time', 'µs');
+    expect(field('Delay')).toHaveValue('0.0025');
+    expect(unitOf('Delay')).toHaveValue('s');
+    // Its neighbour still follows.
+    expect(unitOf('Offset t₀')).toHaveValue('µs');
+  });
+
+  it('keeps a draft being typed, and a refused entry with its message, until it is applied or dropped', async () => {
+    const user = await openConverter();
+    await user.clear(field('Delay'));
+    await user.type(field('Delay'), '2.7');
+    choose('time', 'µs');
+    // The draft keeps its text and the unit it was typed against.
+    expect(field('Delay')).toHaveValue('2.7');
+    expect(unitOf('Delay')).toHaveValue('ms');
+    expect(store().converterFields.delay.value).toBe(2.5e-3);
+    await user.type(field('Delay'), '{Enter}');
+    expect(store().converterFields.delay.value).toBeCloseTo(2.7e-3, 15);
+    // Applied, the field follows the header again.
+    expect(field('Delay')).toHaveValue('2700');
+    expect(unitOf('Delay')).toHaveValue('µs');
+
+    await user.clear(field('Distance'));
+    await user.type(field('Distance'), '-3{Enter}');
+    const message = screen.getByRole('alert').textContent;
+    expect(message).toMatch(/^Distance −3 mm is outside the valid range/);
+    choose('length', 'm');
+    expect(field('Distance')).toHaveValue('-3');
+    expect(screen.getByRole('alert').textContent).toBe(message);
+    expect(store().converterFields.distance.value).toBe(0.05);
+    // Escape drops the refused entry: the good value, in the header's unit.
+    await user.type(field('Distance'), '{Escape}');
+    expect(field('Distance')).toHaveValue('0.05');
+    expect(unitOf('Distance')).toHaveValue('m');
+  });
+
+  it('follows the units kept from the last visit', async () => {
+    await openConverter();
+    act(() => store().applyPreferences({ 'unit.time': 'µs', 'unit.pressure': 'mbar' }));
+    expect(field('Delay')).toHaveValue('2500');
+    expect(unitOf('Vapour pressure')).toHaveValue('mbar');
+  });
+});
+
+describe('converter results in the header units', () => {
+  it('shows the candidates, the chosen temperature and the u₂ chart in mK, each value rounded with its sd', async () => {
+    const user = await openConverter();
+    await user.type(field('Vapour pressure'), '1638.2{Enter}');
+    const values = valuesOf(store().converterFields);
+    choose('temperature', 'mK');
+    const candidates = convertDelay(START).candidates;
+    // sds 5.7, 15.8 and 10.9 mK from the kernel (the 0.1 mm distance sd dominates): whole mK.
+    expect(candidateRows().map((r) => within(r).getAllByRole('cell')[0]?.textContent)).toEqual(['946 mK', '1492 mK', '1785 mK']);
+    expect(candidateRows().map((r) => within(r).getAllByRole('cell')[1]?.textContent)).toEqual(['± 6 mK', '± 16 mK', '± 11 mK']);
+    expect(screen.getByTestId('chosen-temperature')).toHaveTextContent(/^1785$/);
+    expect(screen.getByTestId('chosen-temperature').nextElementSibling).toHaveTextContent('± 11 mK');
+    // The reasons name temperatures in mK too: ITS-90 puts 1638.2 Pa at 1800.0 mK.
+    expect(screen.getByText(/Nearest to 1800\.0 mK from the vapour pressure \(ITS-90\)/)).toBeInTheDocument();
+    expect(candidateRows()[0]).toHaveTextContent(/−853\.5 mK from the vapour-pressure temperature 1800\.0 mK/);
+    await waitFor(() => expect(lastDraw('converter-speed')?.layout.xaxis?.title?.text).toBe('Temperature T (mK)'));
+    const chosen = lastDraw('converter-speed')?.data.find((t) => t.name === 'Chosen');
+    expect(chosen?.x[0]).toBeCloseTo((candidates[2]?.temperature_K ?? Number.NaN) * 1e3, 9);
+    // The speed is no temperature: still m/s.
+    expect(screen.getByTestId('speed')).toHaveTextContent('20.00');
+    expect(valuesOf(store().converterFields)).toEqual(values);
+  });
+
+  it('exports the reading with its columns named and valued in the display units', async () => {
+    const user = await openConverter();
+    await user.type(field('Vapour pressure'), '1638.2{Enter}');
+    choose('temperature', 'mK');
+    choose('time', 'µs');
+    choose('length', 'm');
+    choose('pressure', 'mbar');
+    const downloads = captureDownloads();
+    await user.click(screen.getByRole('button', { name: 'Export the result as CSV' }));
+    downloads.restore();
+    const lines = ((await downloads.blobs[0]?.text()) ?? '').trimEnd().split('\n');
+    expect(lines[0]).toBe(
+      'distance_m,distance_sd_m,delay_us,delay_sd_us,offset_us,offset_sd_us,speed_m_s,speed_sd_m_s,rule,candidate,T_mK,T_sd_mK,slope_m_s_K,branch,region,kind,insensitive,chosen,choice',
+    );
+    const c = convertDelay(START).candidates[2];
+    const cells = lines[3]?.split(',') ?? [];
+    expect(cells.slice(0, 6).map(Number)).toEqual([0.05, 0.0001, 2500, 2, 0, 0]);
+    // 1638.2 Pa = 16.382 mbar (1 mbar = 100 Pa, SI).
+    expect(cells[8]).toBe('vapour pressure 16.382 mbar');
+    expect(Number(cells[10])).toBeCloseTo((c?.temperature_K ?? Number.NaN) * 1e3, 9);
+    expect(Number(cells[11])).toBeCloseTo((c?.sd_K ?? Number.NaN) * 1e3, 12);
+    expect(cells[18]).toBe('nearest to 1800.0 mK from the vapour pressure (ITS-90)');
+  });
+
+  it('shows and exports a batch in the display units', async () => {
+    const user = await openConverter();
+    await user.click(screen.getByRole('tab', { name: 'Batch file' }));
+    // Invented: 50 mm in 50 mm / u₂(T) at 1.90 and 1.86 K, the first row with its ITS-90 vapour pressure.
+    const rows = [1.9, 1.86].map((T, i) => `${((0.05 / secondSound(T)) * 1e3).toPrecision(12)},${i === 0 ? vapourPressure(T).pressure_Pa.toPrecision(12) : ''}`);
+    await user.upload(screen.getByLabelText('Choose a CSV file'), new File([`delay_ms,pressure_Pa\n${rows.join('\n')}\n`], 'two.csv', { type: 'text/csv' }));
+    await screen.findByText(/2 readings; 2 with a chosen temperature/);
+    choose('temperature', 'mK');
+    choose('time', 'µs');
+    choose('pressure', 'mbar');
+    const table = screen.getByRole('table', { name: /each reading’s speed and temperature/i });
+    const headers = within(table).getAllByRole('columnheader').map((h) => h.textContent);
+    expect(headers).toEqual(['Line', 'Delay (µs)', 'Pressure (mbar)', 'Speed (m/s)', 'T (mK)', 'sd (mK)', 'Chosen by', 'All candidates (mK)']);
+    const first = within(table).getAllByRole('row')[1];
+    const cells = first ? within(first).getAllByRole('cell') : [];
+    expect(Number(cells[0]?.textContent)).toBeCloseTo((0.05 / secondSound(1.9)) * 1e6, 2);
+    // Rounded to its sd (a few mK): the model's 1900 mK to within the rounding.
+    expect(Math.abs(Number(cells[3]?.textContent) - 1900)).toBeLessThanOrEqual(0.5);
+    await waitFor(() => expect(lastDraw('converter-batch')?.layout.yaxis?.title?.text).toBe('Temperature T (mK)'));
+    expect(lastDraw('converter-batch')?.data.find((t) => t.name === 'Chosen temperature')?.y[0]).toBeCloseTo(1900, 6);
+
+    const downloads = captureDownloads();
+    await user.click(screen.getByRole('button', { name: 'Export the batch results as CSV' }));
+    downloads.restore();
+    const lines = ((await downloads.blobs[0]?.text()) ?? '').trimEnd().split('\n');
+    expect(lines[0]?.split(',').slice(0, 12)).toEqual(['line', 'delay_us', 'distance_mm', 'pressure_mbar', 'speed_m_s', 'speedSd_m_s', 'candidates', 'chosen', 'chosen_by', 'T_mK', 'T_sd_mK', 'T1_mK']);
+    const out = lines[1]?.split(',') ?? [];
+    expect(Number(out[1])).toBeCloseTo((0.05 / secondSound(1.9)) * 1e6, 6);
+    expect(Number(out[3])).toBeCloseTo(vapourPressure(1.9).pressure_Pa / 100, 6);
+    expect(Number(out[9])).toBeCloseTo(1900, 6);
+  });
+});

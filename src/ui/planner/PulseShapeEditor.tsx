@@ -7,7 +7,7 @@ import { PlanFieldMessage, PlanNumberField } from './PlanField';
 import { addPulsePoint, customPoints, parsePastedPoints, removePulsePoint, setPulsePoints, setShape, type ShapeKind, shapeKind } from './plan-edits';
 import { fieldRangeText, HEATER_FIELDS, pulsePointField } from './plan-fields';
 import { PLAN_OTHER_HELP, planNumberHelp } from './planner-help';
-import { inputText, KINDS } from './display-units';
+import { inputText, KINDS, shownLadder } from './display-units';
 import { RemoveIcon } from './RowIcons';
 
 const SHAPES = [
@@ -43,6 +43,8 @@ export function PulseShapeEditor() {
 
 function CustomPoints() {
   const points = useSekundoStore((s) => customPoints(s.plannerPlan));
+  const units = useSekundoStore((s) => s.displayUnits);
+  const time = shownLadder(KINDS.time, units);
   const edit = useSekundoStore((s) => s.editPlanner);
   const count = points.length;
   const timeRange = useSekundoStore((s) => fieldRangeText(pulsePointField(0, 0), s.plannerPlan));
@@ -104,7 +106,7 @@ function CustomPoints() {
           Add point
         </button>
         <span className="field-hint">
-          Amplitudes are scaled so the largest is 1; the pulse lasts until the last point ({inputText(points[count - 1]?.[0] ?? 0, KINDS.time.ladder)}).
+          Amplitudes are scaled so the largest is 1; the pulse lasts until the last point ({inputText(points[count - 1]?.[0] ?? 0, time.ladder, time.zero)}).
         </span>
       </div>
       <PastePoints />

@@ -2,7 +2,10 @@ import { useEffect, useId, useMemo, useState } from 'react';
 import { SPACER_MATERIALS } from '../../physics';
 import { ChartFigure } from '../charts/ChartFigure';
 import { PlotlyChart } from '../plot/PlotlyChart';
+import { useFieldHelp } from '../help/FieldHelp';
 import { useSekundoStore } from '../store';
+import { FieldHead } from './EditorCard';
+import { PLAN_OTHER_HELP } from './planner-help';
 import { type DisplayUnit, LADDERS, readText, temperatureText } from './display-units';
 import { MAP_DISTANCE_RANGE_M, type MapSensor, mapFigure, mapGrid, onMap, spreadAt } from './resolution-map';
 import { markMapStart, reportDrawn } from './recompute-timer';
@@ -24,6 +27,7 @@ export function ResolutionMap() {
   const chosenKey = useSekundoStore((s) => s.plannerMapSensorKey);
   const choose = useSekundoStore((s) => s.setPlannerMapSensor);
   const selectId = useId();
+  const sensorHelp = useFieldHelp('sensor of the map', PLAN_OTHER_HELP['map.sensor']);
   const ladders = useShownLadders();
   const units = useMemo(() => ({ temperature: ladders.temperature[0] as DisplayUnit, length: ladders.length[0] as DisplayUnit }), [ladders]);
   const index = Math.max(0, chosenKey === null ? 0 : sensorKeys.indexOf(chosenKey));
@@ -58,10 +62,14 @@ export function ResolutionMap() {
   if (!result || !sensor) return null;
   const choice = (
     <div className="plan-field map-sensor">
-      <label htmlFor={selectId} className="plan-field__label">
-        Timing and distance sd of
-      </label>
-      <select id={selectId} className="plan-select" value={sensorKeys[index] ?? ''} onChange={(event) => choose(event.target.value)}>
+      <FieldHead htmlFor={selectId} label="Timing and distance sd of" help={sensorHelp} />
+      <select
+        id={selectId}
+        className="plan-select"
+        value={sensorKeys[index] ?? ''}
+        aria-describedby={sensorHelp.describedBy}
+        onChange={(event) => choose(event.target.value)}
+      >
         {result.sensors.map((s, i) => (
           <option key={sensorKeys[i] ?? s.id} value={sensorKeys[i] ?? s.id}>
             {s.label} ({s.id})

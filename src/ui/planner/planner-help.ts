@@ -249,6 +249,10 @@ export const PLAN_OTHER_HELP = {
     what: 'Tick when the distances were measured at room temperature: they are shrunk by the spacer’s contraction and its uncertainty is added. Leave it off for distances already cold.',
     origin: fromPlan('The demo’s distances were measured warm'),
   },
+  'map.sensor': {
+    what: 'Whose timing sd and distance sd the resolution map uses: it shows how finely one reading with that sensor would pin the bath temperature, at every temperature and distance on the map (not only the planned ones).',
+    origin: 'the first sensor of the plan',
+  },
 } as const satisfies Record<string, HelpTopic>;
 
 export type PlanOtherHelpKey = keyof typeof PLAN_OTHER_HELP;

@@ -314,7 +314,8 @@ function ChannelRow({ match, pick, describedBy }: { match: ChannelMatch; pick: P
       {pick?.status === 'picked' ? (
         <>
           <td className="num" data-testid={`trace-arrival-${match.channel}`}>
-            {time.format(pick.pick.arrival_s, 7)}
+            {/* As many digits as the pick's sd supports. */}
+            {time.measured(pick.pick.arrival_s, pick.pick.arrivalSd_s, 7).value}
           </td>
           <td className="num">{formatSignificant(pick.pick.arrivalSd_s * 1e6, 2)}</td>
           <td className="num">{formatSignificant(pick.pick.snr, 3)}</td>

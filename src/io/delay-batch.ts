@@ -14,12 +14,12 @@
  *  Other columns are ignored.
  *
  * Choice of temperature per row: a row with a pressure takes the candidate nearest its ITS-90
- * vapour-pressure temperature; the rows after it follow by continuity (the rule of the kernel's
- * chooseAlongSeries: nearest to the previous choice) until the next row with a pressure. Before
+ * vapour-pressure temperature; the rows after it follow by continuity (the kernel's
+ * seriesChooser: nearest to the previous choice) until the next row with a pressure. Before
  * the first decided row, a start rule decides (e.g. "near 1.8 K"); without one, the first row with
  * a single candidate starts the series. Rows nothing decides stay undecided (empty `chosen`).
- * The choice is made row by row as results are stored in typed arrays, so the series is never
- * held as objects (chooseAlongSeries would need every row's candidates at once).
+ * The choice is made row by row (the kernel's seriesChooser) as results are stored in typed
+ * arrays, so the series is never held as objects.
  *
  * Output columns (one row per input row, in order; header always the same for the same input):
  *   line, [timestamp], <delay column as in the input, in its own unit>, distance_m, [pressure_Pa],
@@ -35,11 +35,12 @@
 import {
   type Branch,
   type ChoiceRule,
-  chooseCandidate,
   convertDelay,
   type DelayConversion,
   PhysicsError,
   PROPERTIES_RANGE_K,
+  type SeriesChoiceBy,
+  seriesChooser,
   type TemperatureCandidate,
 } from '../physics';
 import { type CsvCell, CsvInputError, columnWithUnit, writeCsv } from './csv-common';
@@ -167,9 +168,8 @@ const ONLY_CANDIDATE: ChoiceRule = { kind: 'range', min_K: 0, max_K: PROPERTIES_
 
 /**
  * Converts every row (kernel convertDelay) and chooses temperatures as described above, row by
- * row: a row with a pressure by its pressure; after a decided row, by continuity (the rule of the
- * kernel's chooseAlongSeries, nearest to the previous choice, applied as each row comes); before
- * any, by the start rule. Throws {@link CsvInputError} naming the line for a row the kernel refuses
+ * row, with the kernel's seriesChooser: a row with a pressure by its pressure; after a decided row,
+ * by continuity (nearest to the previous choice); before any, by the start rule. Throws {@link CsvInputError} naming the line for a row the kernel refuses
  * (its message says which quantity and range) or a row without any distance.
  */
 export function convertDelayBatch(batch: DelayBatch, settings: DelayBatchSettings): DelayBatchResults {
@@ -192,8 +192,12 @@ export function convertDelayBatch(batch: DelayBatch, settings: DelayBatchSetting
     chosen: new Int8Array(n).fill(-1),
     chosenBy: new Uint8Array(n).fill(NO_CODE),
   };
-  const start = settings.start ?? ONLY_CANDIDATE;
-  const startBy = CHOSEN_BY_CODES.indexOf(settings.start ? settings.start.kind : 'only candidate');
+  const choose = seriesChooser(settings.start ?? ONLY_CANDIDATE);
+  const byCode: Readonly<Record<SeriesChoiceBy, number>> = {
+    own: CHOSEN_BY_CODES.indexOf('pressure'),
+    start: CHOSEN_BY_CODES.indexOf(settings.start ? settings.start.kind : 'only candidate'),
+    continuity: CHOSEN_BY_CODES.indexOf('continuity'),
+  };
   const reading = {
     distance_m: 0,
     delay_s: 0,
@@ -202,33 +206,21 @@ export function convertDelayBatch(batch: DelayBatch, settings: DelayBatchSetting
     offset_s: settings.offset_s ?? 0,
     offsetSd_s: settings.offsetSd_s ?? 0,
   };
-  let previous: number | null = null;
   for (let i = 0; i < n; i++) {
     const row = batch.rows[i] as DelayRow;
     const distance_m = row.distance_m ?? settings.distance_m;
     if (distance_m === undefined) throw new CsvInputError('missing-column', 'no distance: give a default distance or a distance_m cell', row.line);
     reading.distance_m = distance_m;
     reading.delay_s = row.delay_s;
-    let rule: ChoiceRule;
-    let by: number;
-    if (row.pressure_Pa !== undefined) {
-      rule = { kind: 'pressure', pressure_Pa: row.pressure_Pa };
-      by = 0;
-    } else if (previous !== null) {
-      rule = { kind: 'near', temperature_K: previous };
-      by = 4;
-    } else {
-      rule = start;
-      by = startBy;
-    }
     let candidates: TemperatureCandidate[];
     let index: number | null;
+    let by: SeriesChoiceBy;
     try {
       const conversion = convertDelay(reading);
       candidates = conversion.candidates;
       out.speed_m_s[i] = conversion.speed_m_s;
       out.speedSd_m_s[i] = conversion.speedSd_m_s;
-      index = chooseCandidate(candidates, rule).index;
+      ({ index, by } = choose(candidates, row.pressure_Pa === undefined ? null : { kind: 'pressure', pressure_Pa: row.pressure_Pa }));
     } catch (error) {
       if (error instanceof PhysicsError) throw new CsvInputError('out-of-range', error.message, row.line);
       throw error;
@@ -249,8 +241,7 @@ export function convertDelayBatch(batch: DelayBatch, settings: DelayBatchSetting
     }
     if (index !== null && index < count) {
       out.chosen[i] = index;
-      out.chosenBy[i] = by;
-      previous = (candidates[index] as TemperatureCandidate).temperature_K;
+      out.chosenBy[i] = byCode[by];
     }
   }
   return out;

@@ -70,23 +70,55 @@ export function chooseCandidate(candidates: readonly TemperatureCandidate[], rul
   }
 }
 
+/** What decided a reading of a series: its own rule, the series' start rule, or continuity. */
+export type SeriesChoiceBy = 'own' | 'start' | 'continuity';
+
+/** The choice for one reading of a series, with the rule that made it (continuity: "near" the last decided temperature). */
+export interface SeriesChoice extends Choice {
+  rule: ChoiceRule;
+  by: SeriesChoiceBy;
+}
+
+/** Chooses for the next reading of a series; `own` is the reading's own rule (e.g. its vapour pressure), or null. */
+export type SeriesChooser = (candidates: readonly TemperatureCandidate[], own?: ChoiceRule | null) => SeriesChoice;
+
 /**
- * Continuity along a time series: the first reading is decided by `start`, each later one by the
- * candidate nearest the previous choice (the bath changes slowly between readings). A reading
- * with no candidates, or an undecided start, passes the last decided temperature on.
+ * Continuity along a time series, one reading at a time (so a long series never has to be held):
+ * a reading with its own rule is decided by that rule alone; after the first decided reading, each
+ * one by the candidate nearest the last decided temperature (the bath changes slowly between
+ * readings); before it, by `start`. A reading with no candidates, or one nothing decides, passes
+ * the last decided temperature on. `fmt` writes temperatures in the reasons (as chooseCandidate).
+ * The returned function throws, like chooseCandidate, for a rule with bad values; the series can go on.
+ */
+export function seriesChooser(start: ChoiceRule, fmt: (T_K: number) => string = fmtK): SeriesChooser {
+  let previous: number | null = null;
+  let row = 0;
+  return (candidates, own = null) => {
+    const k = row;
+    row += 1;
+    let choice: SeriesChoice;
+    if (own !== null) choice = { ...chooseCandidate(candidates, own, fmt), rule: own, by: 'own' };
+    else if (previous === null) choice = { ...chooseCandidate(candidates, start, fmt), rule: start, by: 'start' };
+    else {
+      const rule: ChoiceRule = { kind: 'near', temperature_K: previous };
+      choice =
+        candidates.length === 0
+          ? { index: null, reason: 'no candidate temperature', rule, by: 'continuity' }
+          : { index: nearest(candidates, previous), reason: `nearest to the previous reading (${fmt(previous)}, row ${k})`, rule, by: 'continuity' };
+    }
+    if (choice.index !== null) previous = (candidates[choice.index] as TemperatureCandidate).temperature_K;
+    return choice;
+  };
+}
+
+/**
+ * Continuity along a whole time series (see {@link seriesChooser}): the first reading is decided by
+ * `start`, each later one by the candidate nearest the previous choice.
  */
 export function chooseAlongSeries(series: readonly (readonly TemperatureCandidate[])[], start: ChoiceRule): Choice[] {
-  let previous: number | null = null;
-  return series.map((candidates, k) => {
-    if (candidates.length === 0) return { index: null, reason: 'no candidate temperature' };
-    if (previous === null) {
-      const first = chooseCandidate(candidates, start);
-      if (first.index !== null) previous = (candidates[first.index] as TemperatureCandidate).temperature_K;
-      return first;
-    }
-    const i = nearest(candidates, previous);
-    const reason = `nearest to the previous reading (${fmtK(previous)}, row ${k})`;
-    previous = (candidates[i] as TemperatureCandidate).temperature_K;
-    return { index: i, reason };
+  const next = seriesChooser(start);
+  return series.map((candidates) => {
+    const { index, reason } = next(candidates);
+    return { index, reason };
   });
 }

@@ -77,7 +77,16 @@ export {
   temperatureSpread,
 } from './temperature-resolution';
 export { calibratePathFromSweep, type PathCalibration, type SweepPoint } from './calibrate-path';
-export { type Choice, type ChoiceRule, chooseAlongSeries, chooseCandidate } from './choose-candidate';
+export {
+  type Choice,
+  type ChoiceRule,
+  chooseAlongSeries,
+  chooseCandidate,
+  type SeriesChoice,
+  type SeriesChoiceBy,
+  type SeriesChooser,
+  seriesChooser,
+} from './choose-candidate';
 export { type DistanceDelay, type DistanceFit, fitDistances } from './fit-distances';
 export {
   type Branch,

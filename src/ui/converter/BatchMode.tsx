@@ -1,6 +1,5 @@
 import { useId, useMemo, useState } from 'react';
-import type { TemperatureCandidate } from '../../physics';
-import { delayResultAt, delayResultsToCsv, delayResultCells, delayResultHeader, type DelayBatchResults } from '../../io/delay-batch';
+import { delayResultAt, delayResultCells, delayResultHeader, type DelayBatchResults } from '../../io/delay-batch';
 import { ChartFigure } from '../charts/ChartFigure';
 import { formatSignificant } from '../format/format-number';
 import { PanelErrorBoundary } from '../layout/PanelErrorBoundary';
@@ -11,8 +10,9 @@ import { ChoiceCard } from './ChoiceCard';
 import { valuesOf } from './converter-slice';
 import { type ConverterUnits, currentConverterUnits, temperatureOnY, temperatureText, useConverterUnits } from './converter-units';
 import { DropZone } from './DropZone';
-import { exportName, tableTsv } from './export-text';
+import { exportName, tableExport } from './export-text';
 import { ResultActions } from './ResultActions';
+import { SeriesCells, SeriesHeads } from './SeriesColumns';
 import { SetupCard } from './SetupCard';
 import { useFieldValues } from './use-converter';
 
@@ -117,7 +117,7 @@ function batchExport() {
   const units = { temperature: temperature.unit, length: length.unit, time: time.unit, pressure: pressure.unit };
   const header = delayResultHeader(r.batch, units);
   const rows = Array.from({ length: r.count }, (_, i) => delayResultCells(r, i, units));
-  return { fileName: exportName(input.fileName, 'temperatures'), csv: delayResultsToCsv(r, units), tsv: tableTsv({ header, rows }) };
+  return tableExport(exportName(input.fileName, 'temperatures'), { header, rows });
 }
 
 function BatchResults() {
@@ -210,26 +210,12 @@ function BatchTable({ results, units }: { results: DelayBatchResults; units: Con
                 Pressure ({pressure.shown})
               </th>
             ) : null}
-            <th scope="col" className="num as-written">
-              Speed (m/s)
-            </th>
-            <th scope="col" className="num as-written">
-              T ({temperature.shown})
-            </th>
-            <th scope="col" className="num as-written">
-              sd ({temperature.shown})
-            </th>
-            <th scope="col">Chosen by</th>
-            <th scope="col" className="as-written">
-              All candidates ({temperature.shown})
-            </th>
+            <SeriesHeads temperature={temperature} />
           </tr>
         </thead>
         <tbody>
           {Array.from({ length: count }, (_, i) => {
             const r = delayResultAt(results, i);
-            const c = r.chosen === null ? undefined : r.candidates[r.chosen];
-            const T = c ? temperature.measured(c.temperature_K, c.sd_K) : null;
             return (
               <tr key={r.row.line}>
                 <th scope="row">{r.row.line}</th>
@@ -240,13 +226,13 @@ function BatchTable({ results, units }: { results: DelayBatchResults; units: Con
                 ) : null}
                 <td className="num">{formatSignificant(time.fromSi(r.row.delay_s), 6)}</td>
                 {batch.hasPressure ? <td className="num">{r.row.pressure_Pa === undefined ? '' : formatSignificant(pressure.fromSi(r.row.pressure_Pa), 5)}</td> : null}
-                <td className="num">
-                  {formatSignificant(r.speed_m_s)} ± {formatSignificant(r.speedSd_m_s, 2)}
-                </td>
-                <td className="num value">{T ? T.value : '—'}</td>
-                <td className="num uncertainty">{T?.sd ?? ''}</td>
-                <td>{r.chosenBy ?? 'undecided'}</td>
-                <td className="candidate-list">{candidateList(r.candidates, units.temperature) || 'none'}</td>
+                <SeriesCells
+                  speed={{ value_m_s: r.speed_m_s, sd_m_s: r.speedSd_m_s }}
+                  candidates={r.candidates}
+                  chosen={r.chosen}
+                  chosenBy={r.chosenBy ?? 'undecided'}
+                  temperature={temperature}
+                />
               </tr>
             );
           })}
@@ -259,11 +245,6 @@ function BatchTable({ results, units }: { results: DelayBatchResults; units: Con
       ) : null}
     </div>
   );
-}
-
-/** Every candidate's temperature, each to the digit its sd supports, "*" marking an extremum: "1.232 · 1.41 · 1.785". */
-export function candidateList(candidates: readonly TemperatureCandidate[], temperature: ConverterUnits['temperature']): string {
-  return candidates.map((x) => `${temperature.measured(x.temperature_K, x.sd_K).value}${x.kind === 'extremum' ? '*' : ''}`).join(' · ');
 }
 
 /** "2026-11-03T14:00:30Z" → "14:00:30" (the full text stays in the cell's title); other text as it is. */

@@ -6,7 +6,7 @@ import { useSekundoStore } from '../store';
 import { sentence } from './converter-checks';
 import type { DistanceColumn } from './converter-slice';
 import { ConversionResult } from './ConversionResult';
-import { tableCsv, tableTsv } from './export-text';
+import { tableExport } from './export-text';
 import { distanceColumnHelp } from './converter-help';
 import { useFieldHelp } from '../help/FieldHelp';
 import { currentConverterUnits, useConverterUnits } from './converter-units';
@@ -205,8 +205,7 @@ export function DistancesResult() {
   }
   const f = fit.value;
   const exportContent = () => {
-    const table = distanceFitTable(f, chosen, currentConverterUnits());
-    return { fileName: 'sekundo-distance-fit.csv', csv: tableCsv(table), tsv: tableTsv(table) };
+    return tableExport('sekundo-distance-fit.csv', distanceFitTable(f, chosen, currentConverterUnits()));
   };
   return (
     <ConversionResult

@@ -6,7 +6,7 @@ import { valuesOf } from './converter-slice';
 import { currentConverterUnits } from './converter-units';
 import { ConversionResult } from './ConversionResult';
 import { DistancesInput, DistancesResult } from './DistancesPanel';
-import { tableCsv, tableTsv } from './export-text';
+import { tableExport } from './export-text';
 import { chooseFor, singleReading, singleReadingTable } from './reading-results';
 import type { ReadingMethod } from './converter-slice';
 import { Segmented } from './Segmented';
@@ -69,7 +69,7 @@ function singleExport() {
   if (!result.ok) return null;
   const units = currentConverterUnits();
   const table = singleReadingTable(values, result.value, chooseFor(result.value.candidates, state.converterChoice, values, units.temperature.unit), units);
-  return { fileName: 'sekundo-reading.csv', csv: tableCsv(table), tsv: tableTsv(table) };
+  return tableExport('sekundo-reading.csv', table);
 }
 
 function SingleResult() {

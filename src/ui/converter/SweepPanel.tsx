@@ -11,8 +11,7 @@ import { shownUnit } from '../units/unit-choices';
 import { sentence } from './converter-checks';
 import { valuesOf } from './converter-slice';
 import { csvColumn, currentConverterUnits, TIME_DECIMALS, useConverterUnits } from './converter-units';
-import { writeCsv } from '../../io/csv-common';
-import { tableTsv } from './export-text';
+import { tableExport } from './export-text';
 import { sweepHelp } from './converter-help';
 import { describedBy, useFieldHelp } from '../help/FieldHelp';
 import { sweepCalibration } from './reading-results';
@@ -190,7 +189,7 @@ export function SweepResult() {
     ];
     const inTime = (v: number | null) => (v === null ? null : t.fromSi(v));
     const row = [l.fromSi(c.pathLength_m), l.fromSi(c.pathLengthSd_m), t.fromSi(c.shortestDelay_s), t.fromSi(c.shortestDelaySd_s), c.atX, c.maximumSpeed_m_s, c.pointsUsed, inTime(values.offset), inTime(values.offsetSd)];
-    return { fileName: 'sekundo-path-calibration.csv', csv: writeCsv(header, [row]), tsv: tableTsv({ header, rows: [row] }) };
+    return tableExport('sekundo-path-calibration.csv', { header, rows: [row] });
   };
   return (
     <>

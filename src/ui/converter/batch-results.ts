@@ -105,15 +105,17 @@ export function batchFigure(results: DelayBatchResults, minutes: Float64Array | 
     const line = decimateMinMax(chosenX, chosenT, from, to, CHART_COLUMNS);
     data.push({ type: 'scatter', name: 'Chosen temperature', x: line.x, y: line.y, mode: 'lines', line: { color: CHART_COLOURS.chosen, width: 1.2 }, hovertemplate: '%{y:.4f} K<extra>chosen</extra>' });
   }
+  return { data, layout: temperatureSeriesLayout(minutes ? 'Minutes since the first reading' : 'Reading') };
+}
+
+/** Layout of a temperature series (a batch, trace files): temperature in K against `xTitle`, the key above. */
+export function temperatureSeriesLayout(xTitle: string): PlotLayout {
   return {
-    data,
-    layout: {
-      ...baseLayout(),
-      margin: { l: 64, r: 16, t: 30, b: 46 },
-      legend: { orientation: 'h', x: 1, y: 1.01, xanchor: 'right', yanchor: 'bottom' },
-      xaxis: axis(minutes ? 'Minutes since the first reading' : 'Reading'),
-      yaxis: axis('Temperature T (K)'),
-    },
+    ...baseLayout(),
+    margin: { l: 64, r: 16, t: 30, b: 46 },
+    legend: { orientation: 'h', x: 1, y: 1.01, xanchor: 'right', yanchor: 'bottom' },
+    xaxis: axis(xTitle),
+    yaxis: axis('Temperature T (K)'),
   };
 }
 

@@ -5,6 +5,7 @@
 import { type CsvCell, csvCell, writeCsv } from '../../io/csv-common';
 import type { Choice, TemperatureCandidate } from '../../physics';
 import type { DisplayUnitView } from '../units/use-display-unit';
+import type { ExportContent } from './ResultActions';
 import { csvColumn } from './converter-units';
 
 /** Columns describing one candidate, after the context columns; temperatures in the display unit. */
@@ -44,9 +45,9 @@ export function candidateTable(
   return { header, rows };
 }
 
-/** The table as CSV (RFC 4180, LF). */
-export function tableCsv(table: CandidateTable): string {
-  return writeCsv(table.header, table.rows);
+/** A table as Copy and Export take it: a CSV file (RFC 4180, LF) named `fileName`, and tab-separated text. */
+export function tableExport(fileName: string, table: { header: readonly string[]; rows: readonly (readonly CsvCell[])[] }): ExportContent {
+  return { fileName, csv: writeCsv(table.header, table.rows), tsv: tableTsv(table) };
 }
 
 /** The table as tab-separated text (pastes into a spreadsheet). */

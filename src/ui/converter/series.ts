@@ -5,16 +5,17 @@
  * the start rule for the first file, then by continuity (the candidate nearest the one before).
  * Pure functions; the CSV is plain text, never HTML.
  */
-import { type CsvCell, writeCsv } from '../../io/csv-common';
+import type { CsvCell } from '../../io/csv-common';
 import { parseQuantity } from '../../io/quantity';
 import type { TracePick } from '../../io/trace-pick';
 import {
   type ChoiceRule,
-  chooseAlongSeries,
   convertDelay,
   type DelayConversion,
   PhysicsError,
   PROPERTIES_RANGE_K,
+  type SeriesChoiceBy,
+  seriesChooser,
   type TemperatureCandidate,
 } from '../../physics';
 import { candidateFlags } from './candidate-notes';
@@ -103,8 +104,9 @@ const ONLY_CANDIDATE: ChoiceRule = { kind: 'range', min_K: 0, max_K: PROPERTIES_
 
 /**
  * Converts each file's pick (null: not picked, with `problems[id]` saying why) and chooses a
- * candidate per file along the series. `start` decides the first file of the series (and of each
- * run after a file with its own vapour pressure resets it); null decides only single candidates.
+ * candidate per file along the series with the kernel's seriesChooser: a file with its own vapour
+ * pressure by it, else by continuity once a file is decided, else by `start` (null decides only
+ * single candidates). A file whose own pressure cannot be used says why and is left undecided.
  */
 export function buildSeries(
   files: readonly SeriesFile[],
@@ -135,42 +137,25 @@ export function buildSeries(
     }
     return row;
   });
-  let runStart = 0;
-  for (let i = 1; i <= rows.length; i++) {
-    if (i === rows.length || rows[i]?.pressure_Pa != null) {
-      chooseRun(rows.slice(runStart, i), start);
-      runStart = i;
+  const choose = seriesChooser(start ?? ONLY_CANDIDATE);
+  const label: Readonly<Record<SeriesChoiceBy, ChosenBy>> = {
+    own: 'vapour pressure in the file',
+    start: start === null ? 'only candidate' : start.kind === 'near' ? 'expected' : start.kind,
+    continuity: 'continuity',
+  };
+  for (const row of rows) {
+    try {
+      const choice = choose(row.conversion?.candidates ?? [], row.pressure_Pa === null ? null : { kind: 'pressure', pressure_Pa: row.pressure_Pa });
+      row.chosen = choice.index;
+      row.chosenBy = choice.index === null ? null : label[choice.by];
+      // Without a start rule the only-candidate rule is no rule the person set.
+      row.rule = choice.by === 'start' && start === null ? null : choice.rule;
+    } catch (error) {
+      if (!(error instanceof PhysicsError)) throw error;
+      row.problem = sentence(error.message);
     }
   }
   return rows;
-}
-
-function chooseRun(run: SeriesRow[], start: ChoiceRule | null): void {
-  const head = run[0];
-  if (!head) return;
-  const own = head.pressure_Pa;
-  const rule: ChoiceRule = own != null ? { kind: 'pressure', pressure_Pa: own } : (start ?? ONLY_CANDIDATE);
-  const label: ChosenBy = own != null ? 'vapour pressure in the file' : start === null ? 'only candidate' : start.kind === 'near' ? 'expected' : start.kind;
-  let choices: { index: number | null }[];
-  try {
-    choices = chooseAlongSeries(
-      run.map((r) => r.conversion?.candidates ?? []),
-      rule,
-    );
-  } catch (error) {
-    if (!(error instanceof PhysicsError)) throw error;
-    head.problem = sentence(error.message);
-    return;
-  }
-  let previous: number | null = null;
-  run.forEach((row, k) => {
-    const index = choices[k]?.index ?? null;
-    row.rule = previous === null ? (own != null || start !== null ? rule : null) : { kind: 'near', temperature_K: previous };
-    row.chosen = index;
-    row.chosenBy = index === null ? null : previous !== null ? 'continuity' : label;
-    const c = index === null ? undefined : row.conversion?.candidates[index];
-    if (c) previous = c.temperature_K;
-  });
 }
 
 /** The chosen candidate of a row, or undefined. */
@@ -240,10 +225,4 @@ export function seriesTable(rows: readonly SeriesRow[], units: ConverterUnits): 
     return cells;
   });
   return { header, rows: body };
-}
-
-/** The series as CSV (RFC 4180, LF), see {@link seriesTable}. */
-export function seriesCsv(rows: readonly SeriesRow[], units: ConverterUnits): string {
-  const table = seriesTable(rows, units);
-  return writeCsv(table.header, table.rows);
 }

@@ -2,24 +2,26 @@ import { useId, useMemo } from 'react';
 import type { TracePick } from '../../../io/trace-pick';
 import type { ChoiceRule } from '../../../physics';
 import { ChartFigure } from '../../charts/ChartFigure';
-import { axis, baseLayout, CHART_COLOURS } from '../../charts/chart-theme';
+import { CHART_COLOURS } from '../../charts/chart-theme';
 import { formatSignificant } from '../../format/format-number';
 import { PanelErrorBoundary } from '../../layout/PanelErrorBoundary';
 import { useElementWidth } from '../../layout/use-element-width';
 import { PlotlyChart } from '../../plot/PlotlyChart';
 import type { PlotLayout, PlotTrace } from '../../plot/plotly-types';
 import { useSekundoStore } from '../../store';
-import { candidateList, shortTimestamp } from '../BatchMode';
+import { shortTimestamp } from '../BatchMode';
+import { temperatureSeriesLayout } from '../batch-results';
 import { applyRule } from '../candidate-notes';
 import { choiceRuleOf, type FieldValues } from '../converter-checks';
 import type { TraceFileEntry } from '../converter-slice';
 import { type ConverterUnits, csvColumn, currentConverterUnits, inUnit, temperatureOnY, temperatureText, useConverterUnits } from '../converter-units';
 import { ConversionResult } from '../ConversionResult';
-import { candidateTable, tableCsv, tableTsv } from '../export-text';
+import { candidateTable, tableExport } from '../export-text';
 import type { Chosen } from '../reading-results';
 import { ResultActions } from '../ResultActions';
-import { buildSeries, chosenOf, orderFiles, type SeriesRow, seriesCsv, seriesTable } from '../series';
+import { buildSeries, chosenOf, orderFiles, type SeriesRow, seriesTable } from '../series';
 import { Segmented } from '../Segmented';
+import { SeriesCells, SeriesHeads } from '../SeriesColumns';
 import { useFieldValues } from '../use-converter';
 import { traceFigure } from './trace-figure';
 import { type PickState, usePicks, useTraceSamples } from './trace-picks';
@@ -149,7 +151,7 @@ function SelectedTrace({ file, pick, row }: { file: TraceFileEntry; pick: PickSt
       rowChosen(row, now.temperature.unit).choice,
       now.temperature,
     );
-    return { fileName: `${file.name.replace(/\.[^.]*$/, '') || 'trace'}-reading.csv`, csv: tableCsv(table), tsv: tableTsv(table) };
+    return tableExport(`${file.name.replace(/\.[^.]*$/, '') || 'trace'}-reading.csv`, table);
   };
   return (
     <>
@@ -269,10 +271,7 @@ function PickSummary({ pick, time }: { pick: PickState | undefined; time: Conver
 }
 
 function seriesExport(rows: readonly SeriesRow[]) {
-  return () => {
-    const units = currentConverterUnits();
-    return { fileName: 'sekundo-trace-series.csv', csv: seriesCsv(rows, units), tsv: tableTsv(seriesTable(rows, units)) };
-  };
+  return () => tableExport('sekundo-trace-series.csv', seriesTable(rows, currentConverterUnits()));
 }
 
 function SeriesCard({ rows, by }: { rows: readonly SeriesRow[]; by: 'timestamp' | 'name' }) {
@@ -305,25 +304,11 @@ function SeriesCard({ rows, by }: { rows: readonly SeriesRow[]; by: 'timestamp' 
                 <th scope="col" className="num as-written">
                   Delay ({time.shown})
                 </th>
-                <th scope="col" className="num as-written">
-                  Speed (m/s)
-                </th>
-                <th scope="col" className="num as-written">
-                  T ({temperature.shown})
-                </th>
-                <th scope="col" className="num as-written">
-                  sd ({temperature.shown})
-                </th>
-                <th scope="col">Chosen by</th>
-                <th scope="col" className="as-written">
-                  All candidates ({temperature.shown})
-                </th>
+                <SeriesHeads temperature={temperature} />
               </tr>
             </thead>
             <tbody>
               {rows.map((r, i) => {
-                const c = chosenOf(r);
-                const T = c ? temperature.measured(c.temperature_K, c.sd_K) : null;
                 return (
                   <tr key={r.file.id}>
                     <th scope="row">{i + 1}</th>
@@ -338,11 +323,13 @@ function SeriesCard({ rows, by }: { rows: readonly SeriesRow[]; by: 'timestamp' 
                       </td>
                     ) : null}
                     <td className="num">{r.pick ? time.measured(r.pick.delay_s, r.pick.delaySd_s).value : '—'}</td>
-                    <td className="num">{r.conversion ? `${formatSignificant(r.conversion.speed_m_s)} ± ${formatSignificant(r.conversion.speedSd_m_s, 2)}` : '—'}</td>
-                    <td className="num value">{T ? T.value : '—'}</td>
-                    <td className="num uncertainty">{T?.sd ?? ''}</td>
-                    <td>{r.problem && !r.conversion ? <span className="field-error-inline">{r.problem}</span> : (r.chosenBy ?? 'undecided')}</td>
-                    <td className="candidate-list">{r.conversion ? candidateList(r.conversion.candidates, temperature) : ''}</td>
+                    <SeriesCells
+                      speed={r.conversion ? { value_m_s: r.conversion.speed_m_s, sd_m_s: r.conversion.speedSd_m_s } : null}
+                      candidates={r.conversion?.candidates ?? null}
+                      chosen={r.chosen}
+                      chosenBy={r.problem && !r.conversion ? <span className="field-error-inline">{r.problem}</span> : (r.chosenBy ?? 'undecided')}
+                      temperature={temperature}
+                    />
                   </tr>
                 );
               })}
@@ -384,14 +371,5 @@ function seriesFigure(rows: readonly SeriesRow[], by: 'timestamp' | 'name'): { d
       hovertemplate: '%{text}<br>%{y:.4f} K<extra></extra>',
     },
   ];
-  return {
-    data,
-    layout: {
-      ...baseLayout(),
-      margin: { l: 64, r: 16, t: 30, b: 46 },
-      legend: { orientation: 'h', x: 1, y: 1.01, xanchor: 'right', yanchor: 'bottom' },
-      xaxis: axis(by === 'timestamp' ? 'Minutes since the first file' : 'File (in name order)'),
-      yaxis: axis('Temperature T (K)'),
-    },
-  };
+  return { data, layout: temperatureSeriesLayout(by === 'timestamp' ? 'Minutes since the first file' : 'File (in name order)') };
 }

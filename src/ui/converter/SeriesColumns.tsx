@@ -1,0 +1,58 @@
+import type { ReactNode } from 'react';
+import type { TemperatureCandidate } from '../../physics';
+import { formatSignificant } from '../format/format-number';
+import type { ConverterUnits } from './converter-units';
+
+type TemperatureView = ConverterUnits['temperature'];
+
+/** Every candidate's temperature, each to the digit its sd supports, "*" marking an extremum: "1.232 · 1.41 · 1.785". */
+export function candidateList(candidates: readonly TemperatureCandidate[], temperature: TemperatureView): string {
+  return candidates.map((x) => `${temperature.measured(x.temperature_K, x.sd_K).value}${x.kind === 'extremum' ? '*' : ''}`).join(' · ');
+}
+
+/** The column heads a batch and a trace series share: speed, the chosen temperature and its sd, how it was chosen, every candidate. */
+export function SeriesHeads({ temperature }: { temperature: TemperatureView }) {
+  return (
+    <>
+      <th scope="col" className="num as-written">
+        Speed (m/s)
+      </th>
+      <th scope="col" className="num as-written">
+        T ({temperature.shown})
+      </th>
+      <th scope="col" className="num as-written">
+        sd ({temperature.shown})
+      </th>
+      <th scope="col">Chosen by</th>
+      <th scope="col" className="as-written">
+        All candidates ({temperature.shown})
+      </th>
+    </>
+  );
+}
+
+interface SeriesCellsProps {
+  /** The reading's speed and its sd, m/s; null when it has none. */
+  speed: { value_m_s: number; sd_m_s: number } | null;
+  /** The reading's candidates (null: no conversion) and the index of the chosen one. */
+  candidates: readonly TemperatureCandidate[] | null;
+  chosen: number | null;
+  /** What the "Chosen by" cell says. */
+  chosenBy: ReactNode;
+  temperature: TemperatureView;
+}
+
+/** A reading's cells under {@link SeriesHeads}: the chosen temperature and its sd rounded together, in the display unit. */
+export function SeriesCells({ speed, candidates, chosen, chosenBy, temperature }: SeriesCellsProps) {
+  const c = chosen === null ? undefined : candidates?.[chosen];
+  const T = c ? temperature.measured(c.temperature_K, c.sd_K) : null;
+  return (
+    <>
+      <td className="num">{speed ? `${formatSignificant(speed.value_m_s)} ± ${formatSignificant(speed.sd_m_s, 2)}` : '—'}</td>
+      <td className="num value">{T ? T.value : '—'}</td>
+      <td className="num uncertainty">{T?.sd ?? ''}</td>
+      <td>{chosenBy}</td>
+      <td className="candidate-list">{candidates === null ? '' : candidateList(candidates, temperature) || 'none'}</td>
+    </>
+  );
+}

@@ -117,7 +117,7 @@ test.describe('converter', () => {
     const pressure = page.getByRole('textbox', { name: 'Vapour pressure' });
     await pressure.fill('1638.2');
     await pressure.press('Enter');
-    await expect(page.getByTestId('chosen-temperature')).toHaveText('1.7851');
+    await expect(page.getByTestId('chosen-temperature')).toHaveText('1.785');
     await expect(table.locator('tr[aria-current="true"]')).toContainText('nearest to 1.8000 K from the vapour pressure (ITS-90)');
     await expect(page.locator('[data-chart="converter-speed"]')).toHaveAttribute('data-drawn', 'true');
 
@@ -125,23 +125,49 @@ test.describe('converter', () => {
     await delay.fill('-3');
     await delay.press('Enter');
     await expect(page.getByRole('alert')).toContainText('Delay −3 ms is outside the valid range 1 ns – 10000 s');
-    await expect(page.getByTestId('chosen-temperature')).toHaveText('1.7851');
+    await expect(page.getByTestId('chosen-temperature')).toHaveText('1.785');
     await delay.press('Escape');
 
     const [download] = await Promise.all([page.waitForEvent('download'), page.getByRole('button', { name: 'Export the result as CSV' }).click()]);
     expect(download.suggestedFilename()).toBe('sekundo-reading.csv');
     const lines = (await downloadText(download)).trimEnd().split('\n');
     expect(lines).toHaveLength(4);
-    expect(lines[0]).toMatch(/^distance_m,distance_sd_m,delay_s,delay_sd_s,offset_s,offset_sd_s,speed_m_s,speed_sd_m_s,rule,candidate,T_K,/);
+    // Columns in the display units (mm, ms, K until someone chooses others).
+    expect(lines[0]).toMatch(/^distance_mm,distance_sd_mm,delay_ms,delay_sd_ms,offset_ms,offset_sd_ms,speed_m_s,speed_sd_m_s,rule,candidate,T_K,/);
     const chosen = lines.slice(1).filter((l) => l.includes(',true,nearest'));
     expect(chosen).toHaveLength(1);
-    expect(chosen[0]).toMatch(/^0\.05,0\.0001,0\.0025,0\.000002,0,0,20,[\d.]+,vapour pressure 1638\.2 Pa,3,1\.7851\d*,/);
+    expect(chosen[0]).toMatch(/^50,0\.1,2\.5,0\.002,0,0,20,[\d.]+,vapour pressure 1638\.2 Pa,3,1\.7851\d*,/);
 
     await page.mouse.move(0, 0);
     await page.screenshot({ path: `${ARTIFACTS}/converter-reading.png` });
     await page.setViewportSize({ width: 1600, height: 1000 });
     await expect(page.locator('[data-chart="converter-speed"]')).toHaveAttribute('data-drawn', 'true');
     await page.screenshot({ path: `${ARTIFACTS}/converter-reading-1600x1000.png` });
+  });
+
+  test('follows the header units: mK and µs in the fields, the results and the chart', async ({ page }) => {
+    await page.setViewportSize({ width: 1600, height: 1000 });
+    await openConverter(page, 'One reading');
+    const pressure = page.getByRole('textbox', { name: 'Vapour pressure' });
+    await pressure.fill('1638.2');
+    await pressure.press('Enter');
+    await expect(page.getByTestId('chosen-temperature')).toHaveText('1.785');
+    await page.getByRole('button', { name: /^Units/ }).click();
+    await page.getByRole('combobox', { name: 'Temperature', exact: true }).selectOption('mK');
+    await page.getByRole('combobox', { name: 'Time', exact: true }).selectOption('µs');
+    await page.getByRole('button', { name: 'Done' }).click();
+    // The starting reading, 50 mm in 2.5 ms: the delay field now reads 2500 µs; its sd keeps µs.
+    await expect(page.getByRole('textbox', { name: 'Delay', exact: true })).toHaveValue('2500');
+    await expect(page.getByRole('combobox', { name: 'Delay unit', exact: true })).toHaveValue('µs');
+    await expect(page.getByRole('textbox', { name: 'Expected temperature' })).toHaveValue('1800');
+    // 1.7851 K ± 11 mK (the kernel's root and sd): whole mK.
+    await expect(page.getByTestId('chosen-temperature')).toHaveText('1785');
+    const table = page.getByRole('table', { name: /every temperature with u₂/i });
+    await expect(table.locator('tr[aria-current="true"]')).toContainText('nearest to 1800.0 mK from the vapour pressure (ITS-90)');
+    await expect(page.locator('[data-chart="converter-speed"]')).toHaveAttribute('data-drawn', 'true');
+    await expect(page.locator('[data-chart="converter-speed"]')).toContainText('Temperature T (mK)');
+    await page.mouse.move(0, 0);
+    await page.screenshot({ path: `${ARTIFACTS}/converter-reading-mK-us-1600x1000.png` });
   });
 
   test('reads an invented batch and shows every row', async ({ page }) => {
@@ -191,7 +217,7 @@ test.describe('converter', () => {
     rows.forEach((r, i) => {
       // The half-height pick is 2 µs late: about 2 mK warm on the high branch.
       expect(Math.abs(Number(r[col('T_K')]) - (model[i] as number))).toBeLessThan(4e-3);
-      expect(Number(r[col('delay_s')])).toBeCloseTo(DISTANCE_M / secondSound(model[i] as number) + 2e-6, 6);
+      expect(Number(r[col('delay_ms')])).toBeCloseTo((DISTANCE_M / secondSound(model[i] as number) + 2e-6) * 1e3, 3);
     });
 
     await page.getByRole('tab', { name: 'Around the arrival' }).click();

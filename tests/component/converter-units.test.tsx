@@ -4,6 +4,10 @@ import { App } from '../../app/App';
 import { convertDelay, secondSound, vapourPressure } from '../../src/physics';
 import { FIELD_SPECS, followedUnit, unitKindOf } from '../../src/ui/converter/converter-fields';
 import { valuesOf } from '../../src/ui/converter/converter-slice';
+import { converterUnitsOf } from '../../src/ui/converter/converter-units';
+import { buildSeries, seriesTable } from '../../src/ui/converter/series';
+import { ARRIVAL_SHAPE, traceFigure } from '../../src/ui/converter/trace/trace-figure';
+import type { TracePick } from '../../src/io/trace-pick';
 import { useSekundoStore } from '../../src/ui/store';
 import { DEFAULT_DISPLAY_UNITS, type DisplayUnitOf, UNIT_KINDS, type UnitKind } from '../../src/ui/units/unit-choices';
 import { lastDraw } from './fake-plotly';
@@ -223,5 +227,59 @@ describe('converter results in the header units', () => {
     expect(Number(out[1])).toBeCloseTo((0.05 / secondSound(1.9)) * 1e6, 6);
     expect(Number(out[3])).toBeCloseTo(vapourPressure(1.9).pressure_Pa / 100, 6);
     expect(Number(out[9])).toBeCloseTo(1900, 6);
+  });
+});
+
+/** A pick at the exact transit time of 50 mm at `T` (invented), sd 1 µs. */
+function exactPick(T: number): TracePick {
+  const delay_s = 0.05 / secondSound(T);
+  return { arrival_s: delay_s, arrivalSd_s: 1e-6, delay_s, delaySd_s: 1e-6, timeZero_s: 0, timeZeroSd_s: 0, timeZero: 'file t = 0', picker: 'fraction', sensor: 's', heater: null, template: null, baseline: { level: 0, noise: 1, samples: 10 }, peak: 10, snr: 10 };
+}
+
+describe('trace series and trace chart in the header units', () => {
+  const mK_us = converterUnitsOf({ temperature: 'mK', length: 'mm', time: 'µs', pressure: 'mbar' });
+
+  it('names and fills the series table’s columns in the display units', () => {
+    const model = [1.86, 1.84];
+    const files = model.map((T, i) => ({ id: `f${i}`, name: `f${i}.csv`, fields: (i === 0 ? { pressure_Pa: String(vapourPressure(T).pressure_Pa) } : {}) as Record<string, string> }));
+    const picks = new Map(model.map((T, i) => [`f${i}`, exactPick(T)]));
+    const rows = buildSeries(files, picks, new Map(), { distance_m: 0.05, distanceSd_m: 0, offset_s: 0, offsetSd_s: 0 }, null);
+    const table = seriesTable(rows, mK_us);
+    const col = (name: string) => table.header.indexOf(name);
+    for (const name of ['pressure_mbar', 'delay_us', 'delay_sd_us', 'T_mK', 'T_sd_mK', 'T1_mK', 'T3_sd_mK']) expect(table.header).toContain(name);
+    table.rows.forEach((row, i) => {
+      const T = model[i] as number;
+      expect(row[col('delay_us')] as number).toBeCloseTo((0.05 / secondSound(T)) * 1e6, 6);
+      expect(row[col('delay_sd_us')]).toBeCloseTo(1, 12);
+      expect(row[col('T_mK')] as number).toBeCloseTo(T * 1e3, 6);
+    });
+    // 1 mbar = 100 Pa (SI).
+    expect(table.rows[0]?.[col('pressure_mbar')] as number).toBeCloseTo(vapourPressure(1.86).pressure_Pa / 100, 9);
+  });
+
+  it('a file whose own pressure cannot be used says why; the files after it go on by continuity', () => {
+    const model = [1.86, 1.85, 1.84];
+    const files = model.map((_, i) => ({ id: `f${i}`, name: `f${i}.csv`, fields: (i === 1 ? { pressure_Pa: '1e9' } : {}) as Record<string, string> }));
+    const picks = new Map(model.map((T, i) => [`f${i}`, exactPick(T)]));
+    const rows = buildSeries(files, picks, new Map(), { distance_m: 0.05, distanceSd_m: 0, offset_s: 0, offsetSd_s: 0 }, { kind: 'near', temperature_K: 1.86 });
+    expect(rows.map((r) => r.chosenBy)).toEqual(['expected', null, 'continuity']);
+    expect(rows[1]?.problem).toMatch(/vapour pressure .* outside the valid range/i);
+    const last = rows[2];
+    expect(last?.conversion?.candidates[last.chosen as number]?.temperature_K).toBeCloseTo(1.84, 9);
+  });
+
+  it('draws a trace against time in µs: samples, picked arrival and axis title', () => {
+    const time_s = Float64Array.from({ length: 4001 }, (_, i) => i * 1e-6);
+    const sensor = Float32Array.from(time_s, (t) => (t > 2.5e-3 ? 1 : 0));
+    const pick = { ...exactPick(1.8), delay_s: 2.5e-3, arrival_s: 2.5e-3 };
+    const figure = traceFigure({ samples: { time_s, channels: [{ name: 's', values: sensor }] }, sensor: 's', heater: null, pick, level: null, search: { from_s: null, to_s: null }, view: 'record', columns: 400, timeUnit: 'µs' });
+    expect(figure.layout.xaxis?.title?.text).toBe('Time (µs)');
+    expect(figure.layout.shapes?.find((s) => s.name === ARRIVAL_SHAPE)?.x0).toBeCloseTo(2500, 9);
+    // The whole record, 0–4 ms, is 0–4000 µs; every sample drawn lies inside it.
+    expect(figure.layout.xaxis?.range).toEqual([0, expect.closeTo(4000, 9)]);
+    const x = figure.data.find((t) => t.name === 's (sensor)')?.x ?? [];
+    expect(Math.max(...x)).toBeGreaterThan(3900);
+    expect(Math.max(...x)).toBeLessThanOrEqual(4000 + 1e-9);
+    expect(figure.layout.annotations?.[0]?.text).toBe('arrival 2500.0 µs');
   });
 });

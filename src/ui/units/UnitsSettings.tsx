@@ -51,7 +51,8 @@ export function UnitsSettings() {
         </h2>
         <p className="muted units-panel__lead">
           How values are shown in every view (explorer, planner, converter, source location), kept for your next visit. Fields still take
-          any unit you type (1800 mK, 0.12 m). Uncertainties and instrument time constants keep a unit that suits their size.
+          any unit you type (1800 mK, 0.12 m). A converter field follows these units until you pick another in its own menu; uncertainties
+          and instrument time constants keep a unit that suits their size.
         </p>
         <div className="units-panel__fields">
           {UNIT_KIND_LIST.map((kind) => (

@@ -98,6 +98,17 @@ export function useFieldHelp(name: string, topic: HelpTopic): FieldHelpParts {
   };
 }
 
+/** A table column's heading with its "?": the column's cells point to the help's panel through describedBy. */
+export function HelpColumnHead({ help, children }: { help: FieldHelpParts; children: ReactNode }) {
+  return (
+    <th scope="col">
+      <span className="th-help">
+        {children} {help.button}
+      </span>
+    </th>
+  );
+}
+
 /** Joins ids for aria-describedby, leaving out the absent ones; undefined when none is left. */
 export function describedBy(...ids: (string | null | undefined | false)[]): string | undefined {
   const present = ids.filter((id): id is string => typeof id === 'string' && id.length > 0);

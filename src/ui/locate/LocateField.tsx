@@ -10,7 +10,10 @@ interface LocateFieldProps {
   spec: QuantityFieldSpec;
   /** The value in effect, SI (null: blank). */
   value: number | null;
-  edit: LocateTextEdit;
+  /** How typed text changes the inputs (through typeLocateField); or give `onType` instead. */
+  edit?: LocateTextEdit;
+  /** Takes the typed text itself, for fields whose store action is not typeLocateField. */
+  onType?: (text: string) => void;
   /** Visible label; when `hideLabel`, only for assistive technology (table cells). */
   label: string;
   hideLabel?: boolean;
@@ -26,7 +29,7 @@ interface LocateFieldProps {
 }
 
 /** A typed quantity: a good value applies as it is typed; a bad one keeps the last good value and says why. */
-export function LocateField({ fieldKey, spec, value, edit, label, hideLabel = false, unit, inlineMessage = true, placeholder, help, describedBy }: LocateFieldProps) {
+export function LocateField({ fieldKey, spec, value, edit, onType, label, hideLabel = false, unit, inlineMessage = true, placeholder, help, describedBy }: LocateFieldProps) {
   const id = useId();
   const fieldHelp = useFieldHelp(label, help ?? { what: '' });
   const hasHelp = help !== undefined && !hideLabel;
@@ -66,7 +69,7 @@ export function LocateField({ fieldKey, spec, value, edit, label, hideLabel = fa
           placeholder={placeholder}
           aria-invalid={error ? true : undefined}
           aria-describedby={joinIds(error && `${id}-error`, hasHelp && fieldHelp.describedBy, describedBy)}
-          onChange={(event) => type(fieldKey, event.target.value, edit)}
+          onChange={(event) => (onType ? onType(event.target.value) : edit && type(fieldKey, event.target.value, edit))}
           onBlur={() => leave(fieldKey)}
           onKeyDown={onKeyDown}
         />

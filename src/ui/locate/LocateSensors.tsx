@@ -1,5 +1,5 @@
 import { Fragment, useId } from 'react';
-import { useFieldHelp } from '../help/FieldHelp';
+import { HelpColumnHead, useFieldHelp } from '../help/FieldHelp';
 import { useSekundoStore } from '../store';
 import { LOCATE_ROWS_KEY } from '../store/locate-slice';
 import { useDisplayUnit } from '../units/use-display-unit';
@@ -57,30 +57,16 @@ export function LocateSensors() {
         <table className="locate-table locate-sensors-table" aria-label="Sensor positions and readings">
           <thead>
             <tr>
-              <th scope="col">
-                <span className="th-help">Label {labelHelp.button}</span>
-              </th>
-              <th scope="col">
-                <span className="th-help">
-                  x <span className="unit-as-written">({length.shown})</span> {positionHelp.button}
-                </span>
-              </th>
+              <HelpColumnHead help={labelHelp}>Label</HelpColumnHead>
+              <HelpColumnHead help={positionHelp}>x <span className="unit-as-written">({length.shown})</span></HelpColumnHead>
               <th scope="col">
                 y <span className="unit-as-written">({length.shown})</span>
               </th>
               <th scope="col">
                 z <span className="unit-as-written">({length.shown})</span>
               </th>
-              <th scope="col">
-                <span className="th-help">
-                  Arrival <span className="unit-as-written">({time.shown})</span> {arrivalHelp.button}
-                </span>
-              </th>
-              <th scope="col">
-                <span className="th-help">
-                  Timing sd <span className="unit-as-written">(µs)</span> {sdHelp.button}
-                </span>
-              </th>
+              <HelpColumnHead help={arrivalHelp}>Arrival <span className="unit-as-written">({time.shown})</span></HelpColumnHead>
+              <HelpColumnHead help={sdHelp}>Timing sd <span className="unit-as-written">(µs)</span></HelpColumnHead>
               <th scope="col">
                 <span className="visually-hidden">Actions</span>
               </th>

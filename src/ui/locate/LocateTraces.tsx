@@ -1,4 +1,4 @@
-import { type KeyboardEvent, useId, useMemo, useState } from 'react';
+import { useId, useMemo, useState } from 'react';
 import { PICKER_KINDS, type PickerKind } from '../../physics';
 import type { Polarity } from '../converter/converter-slice';
 import { DropZone } from '../converter/DropZone';
@@ -6,14 +6,14 @@ import { PICKER_LABELS } from '../converter/trace/TraceMode';
 import type { PickState } from '../converter/trace/trace-picks';
 import { useTraceSamples } from '../converter/trace/trace-picks';
 import { formatSignificant } from '../format/format-number';
-import { type HelpTopic, describedBy as joinIds, useFieldHelp } from '../help/FieldHelp';
+import { HelpColumnHead, type HelpTopic, useFieldHelp } from '../help/FieldHelp';
 import { PanelErrorBoundary } from '../layout/PanelErrorBoundary';
 import { useElementWidth } from '../layout/use-element-width';
 import { PlotlyChart } from '../plot/PlotlyChart';
 import { useSekundoStore } from '../store';
 import type { LocateTraceFile } from '../store/locate-slice';
 import { useDisplayUnit } from '../units/use-display-unit';
-import { fieldText } from './locate-fields';
+import { LocateField } from './LocateField';
 import { LOCATE_HELP } from './locate-help';
 import { BAND_PX, FRAME_PX, locateTraceFigure, spanAroundPicks } from './locate-trace-figure';
 import { cancelLocateTrace, openLocateDemoTraces, openLocateTrace, TRACE_FILE_KEY } from './locate-trace-loader';
@@ -197,54 +197,21 @@ interface SettingFieldProps {
 
 /** A typed picker setting: a good value applies as it is typed; a bad one keeps the last good value and says why. */
 function SettingField({ setting, label, placeholder, help }: SettingFieldProps) {
-  const id = useId();
-  const key = traceSettingKey(setting);
-  const fieldHelp = useFieldHelp(label, help);
   const value = useSekundoStore((s) => traceSettingValue(s.locateTracePicker, setting));
-  const draft = useSekundoStore((s) => s.locateDrafts[key]);
-  const error = useSekundoStore((s) => s.locateErrors[key]);
   const type = useSekundoStore((s) => s.typeLocateTraceSetting);
-  const leave = useSekundoStore((s) => s.leaveLocateField);
-  const discard = useSekundoStore((s) => s.discardLocateDraft);
   const time = useDisplayUnit('time');
   const spec = traceSettingSpec(setting, time.unit);
-  const onKeyDown = (event: KeyboardEvent<HTMLInputElement>) => {
-    if (event.key === 'Escape') discard(key);
-    if (event.key === 'Enter') leave(key);
-  };
   return (
-    <div className="locate-field">
-      <div className="field-head">
-        <label htmlFor={id} className="locate-field__label">
-          {label}
-        </label>
-        {fieldHelp.button}
-      </div>
-      {fieldHelp.panel}
-      <div className="locate-field__box">
-        <input
-          id={id}
-          className="locate-input"
-          type="text"
-          inputMode="decimal"
-          autoComplete="off"
-          spellCheck={false}
-          value={draft ?? fieldText(spec, value)}
-          placeholder={placeholder}
-          aria-invalid={error ? true : undefined}
-          aria-describedby={joinIds(error && `${id}-error`, fieldHelp.describedBy)}
-          onChange={(event) => type(setting, event.target.value, time.unit)}
-          onBlur={() => leave(key)}
-          onKeyDown={onKeyDown}
-        />
-        {spec.unit ? <span className="locate-field__unit">{time.shown}</span> : null}
-      </div>
-      {error ? (
-        <p id={`${id}-error`} className="field-error" role="alert">
-          {error}
-        </p>
-      ) : null}
-    </div>
+    <LocateField
+      fieldKey={traceSettingKey(setting)}
+      spec={spec}
+      value={value}
+      onType={(text) => type(setting, text, time.unit)}
+      label={label}
+      unit={spec.unit ? time.shown : undefined}
+      placeholder={placeholder}
+      help={help}
+    />
   );
 }
 
@@ -260,9 +227,7 @@ function ChannelTable({ matches, picks }: { matches: readonly ChannelMatch[]; pi
           <thead>
             <tr>
               <th scope="col">Channel</th>
-              <th scope="col">
-                <span className="th-help">Sensor {channelHelp.button}</span>
-              </th>
+              <HelpColumnHead help={channelHelp}>Sensor</HelpColumnHead>
               <th scope="col" className="num">
                 Arrival <span className="unit-as-written">({time.shown})</span>
               </th>

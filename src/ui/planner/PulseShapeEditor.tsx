@@ -1,6 +1,6 @@
 import { useId, useState } from 'react';
 import { CUSTOM_PULSE_MAX_POINTS } from '../../physics';
-import { describedBy, useFieldHelp } from '../help/FieldHelp';
+import { describedBy, HelpColumnHead, useFieldHelp } from '../help/FieldHelp';
 import { useSekundoStore } from '../store';
 import { FieldHead } from './EditorCard';
 import { PlanFieldMessage, PlanNumberField } from './PlanField';
@@ -62,12 +62,8 @@ function CustomPoints() {
         <thead>
           <tr>
             <th scope="col">#</th>
-            <th scope="col">
-              <span className="th-help">Time from onset {timeHelp.button}</span>
-            </th>
-            <th scope="col">
-              <span className="th-help">Relative amplitude {amplitudeHelp.button}</span>
-            </th>
+            <HelpColumnHead help={timeHelp}>Time from onset</HelpColumnHead>
+            <HelpColumnHead help={amplitudeHelp}>Relative amplitude</HelpColumnHead>
             <th scope="col">
               <span className="visually-hidden">Actions</span>
             </th>

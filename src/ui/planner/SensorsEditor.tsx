@@ -1,5 +1,5 @@
 import type { PlanFileSensor } from '../../io/plan-file';
-import { type FieldHelpParts, useFieldHelp } from '../help/FieldHelp';
+import { type FieldHelpParts, HelpColumnHead, useFieldHelp } from '../help/FieldHelp';
 import { useSekundoStore } from '../store';
 import { PLANNER_STRUCTURE_KEY } from '../store/planner-slice';
 import { EditorCard } from './EditorCard';
@@ -83,30 +83,14 @@ export function SensorsEditor() {
           <thead>
             <tr>
               <th scope="col">#</th>
-              <th scope="col">
-                <span className="th-help">Id {help.id.button}</span>
-              </th>
-              <th scope="col">
-                <span className="th-help">Label {help.label.button}</span>
-              </th>
-              <th scope="col">
-                <span className="th-help">Position {help.position.button}</span>
-              </th>
-              <th scope="col">
-                <span className="th-help">Distance sd {help.distanceSd.button}</span>
-              </th>
-              <th scope="col">
-                <span className="th-help">Area {help.area.button}</span>
-              </th>
-              <th scope="col">
-                <span className="th-help">Responsivity {help.responsivity.button}</span>
-              </th>
-              <th scope="col">
-                <span className="th-help">Noise (rms) {help.noise.button}</span>
-              </th>
-              <th scope="col">
-                <span className="th-help">Lag τ {help.lag.button}</span>
-              </th>
+              <HelpColumnHead help={help.id}>Id</HelpColumnHead>
+              <HelpColumnHead help={help.label}>Label</HelpColumnHead>
+              <HelpColumnHead help={help.position}>Position</HelpColumnHead>
+              <HelpColumnHead help={help.distanceSd}>Distance sd</HelpColumnHead>
+              <HelpColumnHead help={help.area}>Area</HelpColumnHead>
+              <HelpColumnHead help={help.responsivity}>Responsivity</HelpColumnHead>
+              <HelpColumnHead help={help.noise}>Noise (rms)</HelpColumnHead>
+              <HelpColumnHead help={help.lag}>Lag τ</HelpColumnHead>
               <th scope="col">
                 <span className="visually-hidden">Actions</span>
               </th>

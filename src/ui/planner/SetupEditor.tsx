@@ -1,5 +1,5 @@
 import { SPACER_MATERIALS } from '../../physics';
-import { describedBy, type FieldHelpParts, useFieldHelp } from '../help/FieldHelp';
+import { describedBy, type FieldHelpParts, HelpColumnHead, useFieldHelp } from '../help/FieldHelp';
 import { useSekundoStore } from '../store';
 import { EditorCard, FieldHead } from './EditorCard';
 import { PlanFieldMessage, PlanNumberField, PlanTextField } from './PlanField';
@@ -95,18 +95,10 @@ function Reflectors() {
             <caption className="field-hint reflectors__caption">Each plane is “axis = position” (z = across the heater axis, x or y = a side wall); R is the amplitude reflection coefficient.</caption>
             <thead>
               <tr>
-                <th scope="col">
-                  <span className="th-help">Label {help.label.button}</span>
-                </th>
-                <th scope="col">
-                  <span className="th-help">Plane {help.axis.button}</span>
-                </th>
-                <th scope="col">
-                  <span className="th-help">Position {help.position.button}</span>
-                </th>
-                <th scope="col">
-                  <span className="th-help">R {help.reflection.button}</span>
-                </th>
+                <HelpColumnHead help={help.label}>Label</HelpColumnHead>
+                <HelpColumnHead help={help.axis}>Plane</HelpColumnHead>
+                <HelpColumnHead help={help.position}>Position</HelpColumnHead>
+                <HelpColumnHead help={help.reflection}>R</HelpColumnHead>
                 <th scope="col">
                   <span className="visually-hidden">Actions</span>
                 </th>

@@ -8,6 +8,7 @@ import { useTraceSamples } from '../converter/trace/trace-picks';
 import { formatSignificant } from '../format/format-number';
 import { HelpColumnHead, type HelpTopic, useFieldHelp } from '../help/FieldHelp';
 import { PanelErrorBoundary } from '../layout/PanelErrorBoundary';
+import { fileSize, ReadProgress } from '../layout/ReadProgress';
 import { useElementWidth } from '../layout/use-element-width';
 import { PlotlyChart } from '../plot/PlotlyChart';
 import { useSekundoStore } from '../store';
@@ -25,10 +26,6 @@ import { useChannelPicks } from './use-channel-picks';
 export const TRACE_APPLY_KEY = 'traces.apply';
 /** Chart id of the traces (tests read the figure there). */
 export const TRACES_CHART_ID = 'locate-traces';
-
-function size(bytes: number): string {
-  return bytes >= 1048576 ? `${formatSignificant(bytes / 1048576, 3)} MiB` : `${formatSignificant(bytes / 1024, 3)} KiB`;
-}
 
 /** Arrival times picked from a digitiser file with one channel per sensor, written into the sensor rows on request. */
 export function LocateTraces() {
@@ -68,35 +65,8 @@ export function LocateTraces() {
 
 function ReadingProgress() {
   const reading = useSekundoStore((s) => s.locateTraceReading);
-  const labelId = useId();
   if (!reading) return null;
-  const percent = reading.totalBytes > 0 ? Math.min(100, (100 * reading.bytes) / reading.totalBytes) : 0;
-  return (
-    <div className="read-progress">
-      <div className="read-progress__head">
-        <span id={labelId}>Reading {reading.name}</span>
-        <span className="read-progress__numbers">
-          {size(reading.bytes)} of {size(reading.totalBytes)} · {reading.rows.toLocaleString('en')} rows
-        </span>
-      </div>
-      <div className="read-progress__row">
-        <div
-          className="read-progress__track"
-          role="progressbar"
-          aria-labelledby={labelId}
-          aria-valuemin={0}
-          aria-valuemax={100}
-          aria-valuenow={Math.round(percent)}
-          aria-valuetext={`${Math.round(percent)} %`}
-        >
-          <div className="read-progress__bar" style={{ width: `${percent}%` }} />
-        </div>
-        <button type="button" className="button button--small" onClick={cancelLocateTrace}>
-          Cancel reading
-        </button>
-      </div>
-    </div>
-  );
+  return <ReadProgress label={`Reading ${reading.name}`} bytes={reading.bytes} totalBytes={reading.totalBytes} rows={reading.rows} onCancel={cancelLocateTrace} cancelLabel="Cancel reading" />;
 }
 
 /** The file read: picker settings, channel → sensor table with the picks, the traces, and the button that writes the arrivals. */
@@ -114,7 +84,7 @@ function TracePicks({ file }: { file: LocateTraceFile }) {
         <span className="file-name">{file.name}</span>
         <span className="muted">
           {' '}
-          · {size(file.size)} · {t.rows.toLocaleString('en')} rows, {channels.length} channel{channels.length === 1 ? '' : 's'}, {formatSignificant(t.firstTime_s * 1e3, 4)} to{' '}
+          · {fileSize(file.size)} · {t.rows.toLocaleString('en')} rows, {channels.length} channel{channels.length === 1 ? '' : 's'}, {formatSignificant(t.firstTime_s * 1e3, 4)} to{' '}
           {formatSignificant(t.lastTime_s * 1e3, 4)} ms
         </span>
       </p>

@@ -1,9 +1,9 @@
 import { useId, useMemo } from 'react';
 import type { TracePickOptions } from '../../../io/trace-pick';
 import { PICKER_KINDS, type PickerKind } from '../../../physics';
-import { formatSignificant } from '../../format/format-number';
 import { type FieldHelpParts, useFieldHelp } from '../../help/FieldHelp';
 import { PanelErrorBoundary } from '../../layout/PanelErrorBoundary';
+import { fileSize, ReadProgress } from '../../layout/ReadProgress';
 import { useSekundoStore } from '../../store';
 import { ChoiceCard } from '../ChoiceCard';
 import { ConverterField } from '../ConverterField';
@@ -63,10 +63,6 @@ export function useTracePickOptions(): TracePickOptions {
   );
 }
 
-function mib(bytes: number): string {
-  return bytes >= 1048576 ? `${formatSignificant(bytes / 1048576, 3)} MiB` : `${formatSignificant(bytes / 1024, 3)} KiB`;
-}
-
 function TraceFilesCard() {
   const headingId = useId();
   const files = useSekundoStore((s) => s.converterTraceFiles);
@@ -114,34 +110,8 @@ function TraceFilesCard() {
 function ReadingProgress() {
   const progress = useSekundoStore((s) => s.converterTraceProgress);
   if (!progress) return null;
-  const percent = progress.totalBytes > 0 ? Math.min(100, (100 * progress.bytes) / progress.totalBytes) : 0;
   const label = `Reading ${progress.name}${progress.count > 1 ? ` (file ${progress.index} of ${progress.count})` : ''}`;
-  return (
-    <div className="read-progress">
-      <div className="read-progress__head">
-        <span id="trace-progress-label">{label}</span>
-        <span className="read-progress__numbers">
-          {mib(progress.bytes)} of {mib(progress.totalBytes)} · {progress.rows.toLocaleString('en')} rows
-        </span>
-      </div>
-      <div className="read-progress__row">
-        <div
-          className="read-progress__track"
-          role="progressbar"
-          aria-labelledby="trace-progress-label"
-          aria-valuemin={0}
-          aria-valuemax={100}
-          aria-valuenow={Math.round(percent)}
-          aria-valuetext={`${Math.round(percent)} %`}
-        >
-          <div className="read-progress__bar" style={{ width: `${percent}%` }} />
-        </div>
-        <button type="button" className="button button--small" onClick={cancelTraceLoading}>
-          Cancel
-        </button>
-      </div>
-    </div>
-  );
+  return <ReadProgress label={label} bytes={progress.bytes} totalBytes={progress.totalBytes} rows={progress.rows} onCancel={cancelTraceLoading} cancelLabel="Cancel" />;
 }
 
 const STATUS_WORDS: Readonly<Record<TraceFileEntry['status'], string>> = {
@@ -162,7 +132,7 @@ function FileList({ files }: { files: readonly TraceFileEntry[] }) {
           <button type="button" className="trace-file__select" aria-pressed={f.id === selected} onClick={() => select(f.id)} disabled={f.status !== 'ready'}>
             <span className="trace-file__name">{f.name}</span>
             <span className="trace-file__meta">
-              {mib(f.size)} · {f.info ? `${f.info.rows.toLocaleString('en')} rows, ${f.info.channels.length} channel${f.info.channels.length === 1 ? '' : 's'}` : STATUS_WORDS[f.status]}
+              {fileSize(f.size)} · {f.info ? `${f.info.rows.toLocaleString('en')} rows, ${f.info.channels.length} channel${f.info.channels.length === 1 ? '' : 's'}` : STATUS_WORDS[f.status]}
             </span>
           </button>
           <button type="button" className="icon-button" aria-label={`Remove ${f.name}`} onClick={() => removeTraceFile(f.id)}>

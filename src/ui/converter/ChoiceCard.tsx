@@ -13,6 +13,9 @@ const OPTIONS: readonly { kind: ChoiceKind; label: string; hint: string }[] = [
 ];
 
 /** How to choose among the candidates: a vapour-pressure reading, an expected temperature, or a range. */
+/** The ways of choosing that take one value, and that field's name (its label is hidden: the option names it). */
+const ONE_FIELD_LABEL = { pressure: 'Vapour pressure', expected: 'Expected temperature' } as const;
+
 export function ChoiceCard({ series = false }: { series?: boolean }) {
   const headingId = useId();
   const name = useId();
@@ -63,24 +66,14 @@ export function ChoiceCard({ series = false }: { series?: boolean }) {
             </div>
             {help[o.kind].panel}
             {choice === o.kind ? <p className="field-hint">{o.hint}</p> : null}
-            {o.kind === 'pressure' ? (
+            {o.kind === 'pressure' || o.kind === 'expected' ? (
               <ConverterField
-                fieldKey="pressure"
-                label="Vapour pressure"
+                fieldKey={o.kind}
+                label={ONE_FIELD_LABEL[o.kind]}
                 labelHidden
-                describedBy={help.pressure.describedBy}
+                describedBy={help[o.kind].describedBy}
                 className="choice-option__field"
-                onApplied={() => setChoice('pressure')}
-              />
-            ) : null}
-            {o.kind === 'expected' ? (
-              <ConverterField
-                fieldKey="expected"
-                label="Expected temperature"
-                labelHidden
-                describedBy={help.expected.describedBy}
-                className="choice-option__field"
-                onApplied={() => setChoice('expected')}
+                onApplied={() => setChoice(o.kind)}
               />
             ) : null}
             {o.kind === 'range' ? (

@@ -1,6 +1,7 @@
 import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { fireEvent, screen, waitFor, within } from '@testing-library/react';
+import type { TraceInfo } from '../../src/ui/converter/trace/trace-protocol';
 import { PICKS_TRACE } from '../../src/ui/locate/locate-trace-figure';
 import { TRACES_CHART_ID } from '../../src/ui/locate/LocateTraces';
 import { lastDraw } from './fake-plotly';
@@ -222,5 +223,32 @@ describe('locate view: arrival times from traces', { timeout: 30_000 }, () => {
     Object.defineProperty(big, 'size', { value: 300 * 1024 * 1024 });
     await user.upload(screen.getByLabelText('Open a trace file'), big);
     expect(await screen.findByRole('alert')).toHaveTextContent('huge.csv is 300 MiB, over the 256 MiB limit for a trace file; nothing was changed.');
+  });
+});
+
+describe('locate traces: the picker settings in the store', () => {
+  const info: TraceInfo = { rows: 10, channels: ['U0'], timeColumn: 'time_s', timeUnit: 's', fields: {}, firstTime_s: 0, lastTime_s: 1, bytes: 100 };
+
+  it('keeps a refused setting with its message when a new file is read, and drops the old file message', () => {
+    store().typeLocateTraceSetting('from', '−20000 s', 'ms');
+    expect(store().locateErrors['traces.from']).toMatch(/Search from/);
+    store().refuseLocate('traces.file', 'the last file could not be read');
+    store().setLocateTraceFile({ id: 'locate-trace-9', name: 'next.csv', size: 100, info });
+    expect(store().locateDrafts['traces.from']).toBe('−20000 s');
+    expect(store().locateErrors['traces.from']).toMatch(/Search from/);
+    expect(store().locateErrors['traces.file']).toBeUndefined();
+  });
+
+  it('checks the other end of the search window again once it can hold', () => {
+    store().typeLocateTraceSetting('from', '5', 'ms');
+    store().typeLocateTraceSetting('to', '10', 'ms');
+    store().typeLocateTraceSetting('from', '20', 'ms');
+    expect(store().locateErrors['traces.from']).toMatch(/must end after it starts/);
+    expect(store().locateTracePicker.from_s).toBeCloseTo(5e-3, 12);
+    store().typeLocateTraceSetting('to', '30', 'ms');
+    expect(store().locateTracePicker.to_s).toBeCloseTo(30e-3, 12);
+    expect(store().locateTracePicker.from_s).toBeCloseTo(20e-3, 12);
+    expect(store().locateErrors['traces.from']).toBeUndefined();
+    expect(store().locateDrafts['traces.from']).toBeUndefined();
   });
 });

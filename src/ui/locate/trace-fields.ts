@@ -7,7 +7,8 @@ import { FIELD_SPECS } from '../converter/converter-fields';
 import { type FieldRead, fieldText, type QuantityFieldSpec, readField, type TimeUnit } from './locate-fields';
 import type { TracePickerSettings } from './trace-arrivals';
 
-export type TraceSettingKey = 'threshold' | 'fraction' | 'from' | 'to';
+export const TRACE_SETTING_KEYS = ['threshold', 'fraction', 'from', 'to'] as const;
+export type TraceSettingKey = (typeof TRACE_SETTING_KEYS)[number];
 
 /** Store key of a setting's draft and message. */
 export const traceSettingKey = (key: TraceSettingKey) => `traces.${key}`;

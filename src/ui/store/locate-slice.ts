@@ -12,8 +12,11 @@ import {
 import type { TraceInfo } from '../converter/trace/trace-protocol';
 import { type ArrivalUpdate, type ChannelChoice, DEFAULT_TRACE_PICKER, type TracePickerSettings, withArrivals } from '../locate/trace-arrivals';
 import type { TimeUnit } from '../locate/locate-fields';
-import { editTraceSetting, type TraceSettingKey, traceSettingKey } from '../locate/trace-fields';
+import { editTraceSetting, TRACE_SETTING_KEYS, type TraceSettingKey, traceSettingKey } from '../locate/trace-fields';
 import type { SekundoState } from './state';
+
+/** Store keys of the trace picker's typed settings. */
+const SETTING_FIELDS: ReadonlySet<string> = new Set(TRACE_SETTING_KEYS.map(traceSettingKey));
 
 /** Where the sensors on screen came from. */
 export interface LocateOrigin {
@@ -208,15 +211,33 @@ export const createLocateSlice: StateCreator<SekundoState, [], [], LocateSlice> 
     locateTraceChoice: {},
     locateTracePicker: DEFAULT_TRACE_PICKER,
     setLocateTraceReading: (reading) => set({ locateTraceReading: reading }),
-    setLocateTraceFile: (file) => set({ locateTraceFile: file, locateTraceReading: null, locateTraceChoice: {}, locateErrors: withoutPrefix(get().locateErrors, 'traces.') }),
+    // A new file: its messages (file, apply) go; the picker settings and any refused text typed into them stay with their messages.
+    setLocateTraceFile: (file) =>
+      set({
+        locateTraceFile: file,
+        locateTraceReading: null,
+        locateTraceChoice: {},
+        locateErrors: Object.fromEntries(Object.entries(get().locateErrors).filter(([key]) => !key.startsWith('traces.') || SETTING_FIELDS.has(key))),
+      }),
     chooseLocateTraceSensor: (channel, key) => set({ locateTraceChoice: { ...get().locateTraceChoice, [channel]: key } }),
     setLocateTracePicker: (change) => set({ locateTracePicker: { ...get().locateTracePicker, ...change } }),
     typeLocateTraceSetting: (key, text, unit) => {
       const field = traceSettingKey(key);
       set({ locateDrafts: { ...get().locateDrafts, [field]: text } });
       const result = editTraceSetting(get().locateTracePicker, key, text, unit);
-      if (result.ok) set({ locateTracePicker: result.settings, locateErrors: without(get().locateErrors, field) });
-      else refuse(field, result.message);
+      if (!result.ok) {
+        refuse(field, result.message);
+        return;
+      }
+      set({ locateTracePicker: result.settings, locateErrors: without(get().locateErrors, field) });
+      // The window's other end may have been refused only because of this one: try its text again.
+      const other = key === 'from' ? 'to' : key === 'to' ? 'from' : null;
+      const otherField = other && traceSettingKey(other);
+      const otherText = otherField && get().locateErrors[otherField] !== undefined ? get().locateDrafts[otherField] : undefined;
+      if (other && otherField && otherText !== undefined) {
+        const again = editTraceSetting(get().locateTracePicker, other, otherText, unit);
+        if (again.ok) set({ locateTracePicker: again.settings, locateErrors: without(get().locateErrors, otherField), locateDrafts: without(get().locateDrafts, otherField) });
+      }
     },
     setLocateArrivals: (updates) => {
       const { locateRows, locateDrafts, locateErrors } = get();

@@ -148,9 +148,10 @@ describe('converter: one reading', () => {
     await user.click(screen.getByRole('tab', { name: 'Several distances' }));
     // The invented example in the table: 1.90 K (u₂ = 18.83 m/s), t₀ = 12 µs.
     expect(screen.getByTestId('speed')).toHaveTextContent('18.8');
-    // The offset in the header's time unit (ms by default), rounded with its sd; the example's t₀ is 12 µs.
-    const offset = /Offset t₀([\d.]+) ± ([\d.]+) ms/.exec(screen.getByText(/Offset t₀/).closest('div')?.textContent ?? '');
-    expect(Math.abs(Number(offset?.[1]) - 0.012)).toBeLessThan(2 * Number(offset?.[2]));
+    // The offset in its field's own unit (µs), rounded with its sd; the example's t₀ is 12 µs.
+    const offset = /Offset t₀([\d.]+) ± ([\d.]+) µs/.exec(screen.getByText(/Offset t₀/).closest('div')?.textContent ?? '');
+    expect(offset).not.toBeNull();
+    expect(Math.abs(Number(offset?.[1]) - 12)).toBeLessThan(2 * Number(offset?.[2]));
     const cell = screen.getByRole('textbox', { name: 'Row 2 delay' });
     await user.clear(cell);
     await user.type(cell, 'abc{Enter}');

@@ -65,13 +65,17 @@ describe('converter fields and the header units', () => {
     }
   });
 
-  it('a value field takes the header unit; an sd field keeps its finer default unless the header unit is finer', () => {
+  it('a value field takes the header unit; an sd or offset field keeps its finer default unless the header unit is finer', () => {
     const units = { ...DEFAULT_DISPLAY_UNITS, length: 'm', time: 's' } as const;
     expect(followedUnit(FIELD_SPECS.delay, units)).toBe('s');
     expect(followedUnit(FIELD_SPECS.distance, units)).toBe('m');
     expect(followedUnit(FIELD_SPECS.delaySd, units)).toBe('µs');
     expect(followedUnit(FIELD_SPECS.distanceSd, units)).toBe('mm');
     expect(followedUnit(FIELD_SPECS.delaySd, { ...units, time: 'µs' })).toBe('µs');
+    // The instrument offset t₀ is a few µs: it keeps µs, so a bare "20" keeps meaning 20 µs.
+    expect(followedUnit(FIELD_SPECS.offset, units)).toBe('µs');
+    expect(followedUnit(FIELD_SPECS.offset, { ...units, time: 'ms' })).toBe('µs');
+    expect(followedUnit(FIELD_SPECS.offsetSd, units)).toBe('µs');
     expect(followedUnit(FIELD_SPECS.fraction, units)).toBe('');
   });
 

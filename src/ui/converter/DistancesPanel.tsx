@@ -3,6 +3,9 @@ import type { Unit } from '../../io/quantity';
 import { fitDistances, PhysicsError } from '../../physics';
 import { formatSignificant } from '../format/format-number';
 import { useSekundoStore } from '../store';
+import type { DisplayUnitOf } from '../units/unit-choices';
+import { displayUnitView } from '../units/use-display-unit';
+import { FIELD_SPECS, followedUnit } from './converter-fields';
 import { sentence } from './converter-checks';
 import type { DistanceColumn } from './converter-slice';
 import { ConversionResult } from './ConversionResult';
@@ -186,7 +189,10 @@ export function DistancesResult() {
   const kind = useSekundoStore((s) => s.converterChoice);
   const values = useFieldValues();
   const applyValues = useSekundoStore((s) => s.applyConverterValues);
-  const { length, time, temperature } = useConverterUnits();
+  const { length, temperature } = useConverterUnits();
+  const displayUnits = useSekundoStore((s) => s.displayUnits);
+  // t₀ in the offset field's own (finer) unit, as it would be typed there.
+  const offsetUnit = displayUnitView(followedUnit(FIELD_SPECS.offset, displayUnits) as DisplayUnitOf<'time'>);
   const fit = useMemo(() => distanceFit(points), [points]);
   const chosen = useMemo(() => (fit?.ok ? chooseFor(fit.value.candidates, kind, values, temperature.unit) : null), [fit, kind, values, temperature.unit]);
   if (fit === null) {
@@ -223,7 +229,7 @@ export function DistancesResult() {
           <div>
             <dt>Offset t₀</dt>
             <dd>
-              {time.measured(f.offset_s, f.offsetSd_s).text} {time.shown}{' '}
+              {offsetUnit.measured(f.offset_s, f.offsetSd_s).text} {offsetUnit.shown}{' '}
               <button type="button" className="button button--small" onClick={() => applyValues({ offset: f.offset_s, offsetSd: f.offsetSd_s })}>
                 Use as the offset
               </button>

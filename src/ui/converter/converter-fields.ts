@@ -41,8 +41,11 @@ export interface FieldSpec {
   optional?: boolean;
   /** What the empty field means, e.g. "from time zero". */
   emptyMeaning?: string;
-  /** An uncertainty: its unit follows the header's only where that is finer (see {@link followedUnit}). */
-  sd?: boolean;
+  /**
+   * Usually orders of magnitude smaller than the values of its kind (an uncertainty, the
+   * instrument offset t₀): its unit follows the header's only where that is finer (see {@link followedUnit}).
+   */
+  fine?: boolean;
 }
 
 const TIME_UNITS: readonly Unit[] = ['ms', 'µs', 's', 'ns'];
@@ -51,11 +54,11 @@ const SEARCH_LIMIT_S = 1e4;
 /** Every field, by key. Ranges are the kernel's own where it has them. */
 export const FIELD_SPECS: Readonly<Record<ConverterFieldKey, FieldSpec>> = {
   distance: { key: 'distance', label: 'Distance', dimension: 'length', units: ['mm', 'cm', 'm', 'µm'], range: DELAY_LIMITS.distance_m, initial: 0.05 },
-  distanceSd: { key: 'distanceSd', label: 'Distance sd', dimension: 'length', units: ['mm', 'µm', 'cm', 'm'], range: DELAY_LIMITS.distanceSd_m, initial: 1e-4, sd: true },
+  distanceSd: { key: 'distanceSd', label: 'Distance sd', dimension: 'length', units: ['mm', 'µm', 'cm', 'm'], range: DELAY_LIMITS.distanceSd_m, initial: 1e-4, fine: true },
   delay: { key: 'delay', label: 'Delay', dimension: 'time', units: TIME_UNITS, range: DELAY_LIMITS.delay_s, initial: 2.5e-3 },
-  delaySd: { key: 'delaySd', label: 'Delay sd', dimension: 'time', units: ['µs', 'ms', 'ns', 's'], range: DELAY_LIMITS.delaySd_s, initial: 2e-6, sd: true },
-  offset: { key: 'offset', label: 'Offset t₀', dimension: 'time', units: ['µs', 'ms', 'ns', 's'], range: DELAY_LIMITS.offset_s, initial: 0 },
-  offsetSd: { key: 'offsetSd', label: 'Offset sd', dimension: 'time', units: ['µs', 'ms', 'ns', 's'], range: DELAY_LIMITS.offsetSd_s, initial: 0, sd: true },
+  delaySd: { key: 'delaySd', label: 'Delay sd', dimension: 'time', units: ['µs', 'ms', 'ns', 's'], range: DELAY_LIMITS.delaySd_s, initial: 2e-6, fine: true },
+  offset: { key: 'offset', label: 'Offset t₀', dimension: 'time', units: ['µs', 'ms', 'ns', 's'], range: DELAY_LIMITS.offset_s, initial: 0, fine: true },
+  offsetSd: { key: 'offsetSd', label: 'Offset sd', dimension: 'time', units: ['µs', 'ms', 'ns', 's'], range: DELAY_LIMITS.offsetSd_s, initial: 0, fine: true },
   pressure: { key: 'pressure', label: 'Vapour pressure', dimension: 'pressure', units: ['Pa', 'kPa', 'mbar', 'torr'], range: VAPOUR_PRESSURE_RANGE_PA, initial: null, optional: true, emptyMeaning: 'no reading' },
   expected: { key: 'expected', label: 'Expected temperature', dimension: 'temperature', units: ['K', 'mK'], range: PROPERTIES_RANGE_K, initial: 1.8 },
   rangeMin: { key: 'rangeMin', label: 'Range from', dimension: 'temperature', units: ['K', 'mK'], range: [0, PROPERTIES_RANGE_K[1]], initial: 1.7 },
@@ -81,9 +84,11 @@ export function unitKindOf(spec: FieldSpec): UnitKind | null {
 
 /**
  * The unit a field shows while it follows the header's display units (until someone picks a unit
- * in the field's own menu). A value field takes the header's unit of its kind. An sd is usually
- * orders of magnitude smaller than its value, so an sd field keeps its own finer default (µs for a
- * delay sd, mm for a distance sd) and takes the header's unit only where that is finer still.
+ * in the field's own menu). A value field takes the header's unit of its kind. An sd, or the
+ * instrument offset t₀, is usually orders of magnitude smaller than the values of its kind, so such
+ * a field keeps its own finer default (µs for a delay sd or the offset, mm for a distance sd) and
+ * takes the header's unit only where that is finer still; a bare number typed into it keeps meaning
+ * that unit whatever the header says.
  * A plain number has no unit ('').
  */
 export function followedUnit(spec: FieldSpec, units: DisplayUnits): Unit | '' {
@@ -91,7 +96,7 @@ export function followedUnit(spec: FieldSpec, units: DisplayUnits): Unit | '' {
   const own = spec.units[0] ?? '';
   if (kind === null || own === '') return own;
   const header: Unit = units[kind];
-  if (!spec.sd) return header;
+  if (!spec.fine) return header;
   return toBaseUnit(1, header) < toBaseUnit(1, own) ? header : own;
 }
 

@@ -168,7 +168,7 @@ describe('converter results in the header units', () => {
     expect(screen.getByTestId('chosen-temperature').nextElementSibling).toHaveTextContent('± 11 mK');
     // The reasons name temperatures in mK too: ITS-90 puts 1638.2 Pa at 1800.0 mK.
     expect(screen.getByText(/Nearest to 1800\.0 mK from the vapour pressure \(ITS-90\)/)).toBeInTheDocument();
-    expect(candidateRows()[0]).toHaveTextContent(/−853\.5 mK from the vapour-pressure temperature 1800\.0 mK/);
+    expect(candidateRows()[0]).toHaveTextContent(/−854 mK from the vapour-pressure temperature 1800\.0 mK/);
     await waitFor(() => expect(lastDraw('converter-speed')?.layout.xaxis?.title?.text).toBe('Temperature T (mK)'));
     const chosen = lastDraw('converter-speed')?.data.find((t) => t.name === 'Chosen');
     expect(chosen?.x[0]).toBeCloseTo((candidates[2]?.temperature_K ?? Number.NaN) * 1e3, 9);

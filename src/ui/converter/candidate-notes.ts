@@ -14,6 +14,7 @@ import {
 import { formatSignificant } from '../format/format-number';
 import { sentence } from './converter-checks';
 import { temperatureText } from './converter-units';
+import { LADDERS, readText } from '../planner/display-units';
 
 /** A flag shown on a candidate, with the sentence that explains it. */
 export interface CandidateFlag {
@@ -94,5 +95,6 @@ export function choiceNote(candidates: readonly TemperatureCandidate[], i: numbe
   const dT = c.temperature_K - target;
   const source = rule.kind === 'pressure' ? 'the vapour-pressure temperature' : 'the expected temperature';
   const sigmas = c.sd_K > 0 ? ` (${formatSignificant(Math.abs(dT) / c.sd_K, 2)} sd)` : '';
-  return `${dT >= 0 ? '+' : '−'}${shown(Math.abs(dT))} from ${source} ${shown(target)}${sigmas}.`;
+  // A difference: in the unit that suits its size (µK, mK, K), as the planner shows differences.
+  return `${dT >= 0 ? '+' : '−'}${readText(Math.abs(dT), LADDERS.temperatureDifference, 3)} from ${source} ${shown(target)}${sigmas}.`;
 }

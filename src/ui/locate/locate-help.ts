@@ -4,14 +4,23 @@
  * out with each field (src/ui/help/FieldHelp.tsx).
  */
 import { LOCATE_ARRIVAL_RANGE_S, LOCATE_ARRIVAL_SD_RANGE_S, LOCATE_LABEL_MAX, LOCATE_MAX_SENSORS, LOCATE_POSITION_RANGE_M } from '../../io/locate-csv';
-import { MODEL_MIN_K, T_LAMBDA_K } from '../../physics';
+import { MIN_BASELINE_SAMPLES, MODEL_MIN_K, SECOND_SOUND_EXTREMA, secondSound, T_LAMBDA_K } from '../../physics';
+import { plain } from '../converter/converter-fields';
 import { FIELD_SPECS } from '../converter/converter-fields';
 import { TRACE_FILE_LIMIT_BYTES } from '../converter/trace/trace-protocol';
 import type { HelpTopic } from '../help/FieldHelp';
+import { SPEED_SPEC } from './locate-fields';
 import { LOCATE_DEFAULT_ARRIVAL_SD_S, LOCATE_DEFAULT_TEMPERATURE_K } from './locate-inputs';
 
 const DEMO = 'the demo file public/demo-locate.csv (an invented cavity test), or a sensor CSV you open';
 const DEFAULT_SD_US = LOCATE_DEFAULT_ARRIVAL_SD_S * 1e6;
+
+/** u₂ between 1.2 K and 2.1 K from the kernel: up to its maximum near 1.65 K, then down towards Tλ. */
+const U2_SPAN = (() => {
+  const at = (T: number) => secondSound(T).toFixed(1);
+  const { maximum } = SECOND_SOUND_EXTREMA;
+  return `${at(1.2)} m/s at 1.2 K, ${maximum.speed_m_s.toFixed(1)} m/s at its maximum near ${maximum.temperature_K.toFixed(2)} K, ${at(2.1)} m/s at 2.1 K, and zero at Tλ`;
+})();
 
 /** Typed quantities: a bare number is in the shown unit; any unit of the kind may be typed. */
 const typed = (unit: string, examples: string) => `${unit} (a bare number); or type a unit: ${examples}`;
@@ -53,7 +62,7 @@ export const LOCATE_HELP = {
   speed: {
     what: 'The speed of the front, used instead of u₂ (strong pulses can travel faster than small-signal second sound).',
     units: typed('m/s', '20 m/s, 2000 cm/s'),
-    range: 'second sound is 15–21 m/s from 1.2 K to 2.1 K; valid 0.001–10 000 m/s',
+    range: `small-signal u₂ is ${U2_SPAN}; valid ${SPEED_SPEC.rangeText}`,
     origin: '20 m/s, about u₂ in the usual working range',
   },
   fitSpeed: {
@@ -94,7 +103,7 @@ export const LOCATE_HELP = {
   traceFile: {
     what: 'One digitiser CSV recorded on one clock: a time column and one channel per sensor. Its t = 0 is taken as the common clock of every sensor, so the arrivals written are times on it (the trigger, as a rule). The samples before t = 0 give each channel its baseline and noise.',
     units: 'time in s, or as the column name says (“Time (ms)”, “t_us”); channels in any unit',
-    range: `at least 8 samples before t = 0; up to ${TRACE_FILE_LIMIT_BYTES / 1048576} MiB`,
+    range: `at least ${MIN_BASELINE_SAMPLES} samples before t = 0; up to ${TRACE_FILE_LIMIT_BYTES / 1048576} MiB`,
     origin: 'none; “Load the demo traces” opens public/demo-locate-traces.csv, invented traces of the demo cavity',
   },
   traceChannel: {
@@ -124,7 +133,7 @@ export const LOCATE_HELP = {
   traceSearch: (unit: string): HelpTopic => ({
     what: 'Where on the file’s clock the picker looks for the pulse, in every channel alike: start past a pickup at the trigger, stop before an echo.',
     units: typed(unit, '1.5 ms, 1500 us'),
-    range: 'within ±10 000 s; the end after the start; blank: from t = 0 to the end of the record',
+    range: `${plain(FIELD_SPECS.searchFrom.range[0])} to ${plain(FIELD_SPECS.searchFrom.range[1])} s; the end after the start; blank: from t = 0 to the end of the record`,
     origin: 'blank',
   }),
 } as const satisfies Record<string, HelpTopic | ((unit: string) => HelpTopic)>;

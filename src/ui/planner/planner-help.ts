@@ -66,7 +66,7 @@ export const PLAN_NUMBER_HELP: Readonly<Record<string, NumberTopic>> = {
   },
   'heater.flux': {
     what: 'Peak heat flux on the heater face, q = P/A. The temperature step of the pulse grows with it.',
-    typical: `tens of mW/cm² to about 1 W/cm² for gentle pulses; the planner warns as flux and width approach the strong regime (about ${STRONG_FLUX_W_CM2} W/cm² for a 1 ms pulse, ${RULE}), where vortices and boiling set in`,
+    typical: `tens to a few hundred mW/cm² for gentle, linear pulses; the planner warns as flux and width approach the strong regime (about ${STRONG_FLUX_W_CM2} W/cm² for a 1 ms pulse, more for shorter ones, ${RULE}), where vortices and boiling set in`,
   },
   'heater.width': {
     what: 'Duration of the heater pulse. A shorter pulse gives a sharper arrival (better timing); a longer one carries more energy.',

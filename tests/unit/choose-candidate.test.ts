@@ -21,7 +21,11 @@ import {
 
 const candidatesAt = (T: number): TemperatureCandidate[] => temperatureCandidates(secondSound(T), 1e-4);
 
-/** A drift above the u₂ maximum (1.65 K), where every speed has three candidates more than 0.1 K apart. */
+/**
+ * A drift above the u₂ maximum (1.65 K). Up to about 1.93 K each speed there has three candidates
+ * more than 0.1 K apart (above it, where u₂ is below its minimum of 18.3 m/s, only one): the choice
+ * must follow the drift either way.
+ */
 const drift = fc
   .record({ start: fc.double({ min: 1.7, max: 2.05, noNaN: true }), steps: fc.array(fc.double({ min: -1e-3, max: 1e-3, noNaN: true }), { minLength: 1, maxLength: 40 }) })
   .map(({ start, steps }) => {
@@ -107,13 +111,16 @@ describe('seriesChooser: continuity one reading at a time', () => {
     expect(next(candidatesAt(1.8001))).toMatchObject({ index: 2, by: 'continuity' });
   });
 
-  it('chooseAlongSeries gives the same choices as the streaming chooser', () => {
+  it('chooseAlongSeries follows a slow drift on the branch the series started on', () => {
+    // 1.9 K down to 1.856 K in 4 mK steps: three candidates at each speed (the other two well
+    // below 1.6 K), so only continuity keeps the series on the true temperatures.
     const temps = Array.from({ length: 12 }, (_, i) => 1.9 - i * 0.004);
     const series = temps.map(candidatesAt);
-    const next = seriesChooser({ kind: 'near', temperature_K: 1.9 });
-    expect(chooseAlongSeries(series, { kind: 'near', temperature_K: 1.9 })).toEqual(series.map((c) => {
-      const { index, reason } = next(c);
-      return { index, reason };
-    }));
+    expect(series.every((c) => c.length === 3)).toBe(true);
+    const choices = chooseAlongSeries(series, { kind: 'near', temperature_K: 1.9 });
+    choices.forEach((choice, i) => {
+      const chosen = choice.index === null ? undefined : series[i]?.[choice.index];
+      expect(chosen?.temperature_K).toBeCloseTo(temps[i] as number, 6);
+    });
   });
 });

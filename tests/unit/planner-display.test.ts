@@ -102,8 +102,13 @@ describe('planner warnings in figures and as CSV', () => {
     expect(short?.[9]).toBe('s');
     // "record ends": the record length after the pre-trigger.
     expect(short?.[6]).toBeCloseTo(2e-3 - demo.digitiser.preTrigger_s, 12);
-    // Quoted where a message holds a comma (RFC 4180).
     expect(tableCsv(table).split('\r\n')[0]).toBe('severity,code,sensor_id,sensor_label,message,what,value,limit_what,limit,unit');
+  });
+
+  it('quotes a message or label that holds a comma or a quote (RFC 4180)', () => {
+    const labels = new Map([['b10', 'Bolometer A, 10 mm']]);
+    const lines = tableCsv(warningsCsv([{ ...shock, message: 'The front may steepen, "soon".' }], labels)).split('\r\n');
+    expect(lines[1]).toBe('caution,shock,b10,"Bolometer A, 10 mm","The front may steepen, ""soon"".",shock distance,0.0121,path,0.00997,m');
   });
 
   it('leaves the limit empty where a warning has none', () => {

@@ -90,8 +90,8 @@ describe('turning picks into arrivals', () => {
     expect(updates).toEqual([]);
     expect(failures).toEqual([
       'Channel “U0” (sensor U0): no arrival picked — threshold: the signal never rises 5 noise sd above the baseline in the search window.',
-      'Channel “u90” (sensor u90): the pick at 2000 s is outside the arrival range -1000 to 1000 s.',
-      'Channel “L45” (sensor L45): the pick’s sd 0 s is outside the timing-sd range 1e-12 to 10 s.',
+      'Channel “u90” (sensor u90): the pick at 2000 s is outside the arrival range −1000 to 1000 s.',
+      'Channel “L45” (sensor L45): the pick’s sd 0 s is outside the timing-sd range: above 0, up to 10 s.',
     ]);
   });
 

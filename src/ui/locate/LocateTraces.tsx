@@ -77,6 +77,7 @@ function TracePicks({ file }: { file: LocateTraceFile }) {
   const channels = file.info.channels;
   const matches = useMemo(() => matchChannels(channels, rows, choice), [channels, rows, choice]);
   const picks = useChannelPicks(file.id, channels, settings);
+  const time = useDisplayUnit('time');
   const t = file.info;
   return (
     <>
@@ -84,8 +85,7 @@ function TracePicks({ file }: { file: LocateTraceFile }) {
         <span className="file-name">{file.name}</span>
         <span className="muted">
           {' '}
-          · {fileSize(file.size)} · {t.rows.toLocaleString('en')} rows, {channels.length} channel{channels.length === 1 ? '' : 's'}, {formatSignificant(t.firstTime_s * 1e3, 4)} to{' '}
-          {formatSignificant(t.lastTime_s * 1e3, 4)} ms
+          · {fileSize(file.size)} · {t.rows.toLocaleString('en')} rows, {channels.length} channel{channels.length === 1 ? '' : 's'}, {time.format(t.firstTime_s, 4)} to {time.format(t.lastTime_s, 4)} {time.shown}
         </span>
       </p>
       <div className="locate-traces__body">
@@ -96,7 +96,7 @@ function TracePicks({ file }: { file: LocateTraceFile }) {
           <ChannelTable matches={matches} picks={picks} />
         </PanelErrorBoundary>
       </div>
-      <UseArrivals matches={matches} picks={picks} />
+      <UseArrivals key={file.id} matches={matches} picks={picks} />
       <PanelErrorBoundary panel="traces chart">
         <TracesChart file={file} matches={matches} picks={picks} />
       </PanelErrorBoundary>

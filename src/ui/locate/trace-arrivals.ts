@@ -8,6 +8,7 @@ import type { PickerKind } from '../../physics';
 import { FIELD_SPECS } from '../converter/converter-fields';
 import type { Polarity } from '../converter/converter-slice';
 // Types only: the store imports this file, and must not start the trace worker's module.
+import { plain } from '../converter/converter-fields';
 import type { PickState } from '../converter/trace/trace-picks';
 import type { LocateRowInput } from './locate-inputs';
 
@@ -109,11 +110,11 @@ export function arrivalsFromPicks(matches: readonly ChannelMatch[], picks: Reado
     }
     const { arrival_s, arrivalSd_s } = state.pick;
     if (!(arrival_s >= LOCATE_ARRIVAL_RANGE_S[0] && arrival_s <= LOCATE_ARRIVAL_RANGE_S[1])) {
-      failures.push(`${who}: the pick at ${arrival_s} s is outside the arrival range ${LOCATE_ARRIVAL_RANGE_S[0]} to ${LOCATE_ARRIVAL_RANGE_S[1]} s.`);
+      failures.push(`${who}: the pick at ${plain(arrival_s)} s is outside the arrival range ${plain(LOCATE_ARRIVAL_RANGE_S[0])} to ${plain(LOCATE_ARRIVAL_RANGE_S[1])} s.`);
       continue;
     }
     if (!(arrivalSd_s >= LOCATE_ARRIVAL_SD_RANGE_S[0] && arrivalSd_s <= LOCATE_ARRIVAL_SD_RANGE_S[1])) {
-      failures.push(`${who}: the pick’s sd ${arrivalSd_s} s is outside the timing-sd range ${LOCATE_ARRIVAL_SD_RANGE_S[0]} to ${LOCATE_ARRIVAL_SD_RANGE_S[1]} s.`);
+      failures.push(`${who}: the pick’s sd ${plain(arrivalSd_s)} s is outside the timing-sd range: above 0, up to ${plain(LOCATE_ARRIVAL_SD_RANGE_S[1])} s.`);
       continue;
     }
     updates.push({ key: m.row.key, arrival_s, arrivalSd_s });

@@ -23,6 +23,9 @@ const TEMPLATE_EDGE_FRACTION = 0.02;
 /** The default template spans the sensor pulse above this fraction of its peak. */
 const DEFAULT_TEMPLATE_LEVEL = 0.5;
 
+/** Ends of the search window the page and the command line accept, s from time zero (the pickers take any). */
+export const TRACE_SEARCH_RANGE_S = [-1e4, 1e4] as const;
+
 export type TemplateSource = 'heater drive' | 'half-height rectangle';
 
 export interface TracePickOptions {

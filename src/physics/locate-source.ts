@@ -356,12 +356,15 @@ function geometryNotes(sensors: readonly Vec3[], constraint: SurfaceConstraint):
   return { notes, degenerate };
 }
 
+/** Speeds of the front the location takes, m/s (wide: an effective speed may be anything sensible). */
+export const LOCATE_SPEED_RANGE_M_S = [1e-3, 1e4] as const;
+
 /**
  * Locates a source from arrival times at three or more sensors (enough to leave at least one
  * degree of freedom). Throws typed errors for bad input; reports degenerate layouts in the result.
  */
 export function locateSource(arrivals: readonly SensorArrival[], options: LocateOptions): LocateResult {
-  requireInRange('speed', options.speed_m_s, 1e-3, 1e4, 'm/s');
+  requireInRange('speed', options.speed_m_s, LOCATE_SPEED_RANGE_M_S[0], LOCATE_SPEED_RANGE_M_S[1], 'm/s');
   requireInRange('arrival sd', options.arrivalSd_s, 1e-12, 10, 's');
   arrivals.forEach((a, i) => {
     a.position_m.forEach((x, k) => {
@@ -507,7 +510,7 @@ export interface LayoutOptions {
  * Infinity where the layout cannot fix the source.
  */
 export function layoutQuality(sensors: readonly Vec3[], sources: readonly Vec3[], o: LayoutOptions): number[] {
-  requireInRange('speed', o.speed_m_s, 1e-3, 1e4, 'm/s');
+  requireInRange('speed', o.speed_m_s, LOCATE_SPEED_RANGE_M_S[0], LOCATE_SPEED_RANGE_M_S[1], 'm/s');
   requireInRange('arrival sd', o.arrivalSd_s, 1e-12, 10, 's');
   const param = parametrise(o.constraint);
   const problem: Problem = { sensors: [...sensors], times: sensors.map(() => 0), sds: sensors.map(() => o.arrivalSd_s), param, fitSpeed: o.fitSpeed, speed: o.speed_m_s };

@@ -31,6 +31,9 @@ export interface Baseline {
 export type PickerKind = 'threshold' | 'fraction' | 'peak' | 'xcorr';
 export const PICKER_KINDS: readonly PickerKind[] = ['threshold', 'fraction', 'peak', 'xcorr'];
 
+/** Settings the pickers take: threshold in noise sd, fraction of the peak. */
+export const PICKER_LIMITS = { thresholdSigma: [1, 1000], fraction: [0.05, 0.95] } as const;
+
 export interface PickOptions {
   kind: PickerKind;
   /** Threshold in noise sd (threshold picker); default 5. */
@@ -278,10 +281,10 @@ export function pickArrival(trace: Trace, options: PickOptions): Pick {
   let r: { t: number; sd: number };
   switch (options.kind) {
     case 'threshold':
-      r = pickThreshold(trace, base, w, requireInRange('threshold', options.thresholdSigma ?? 5, 1, 1000, 'noise sd'));
+      r = pickThreshold(trace, base, w, requireInRange('threshold', options.thresholdSigma ?? 5, ...PICKER_LIMITS.thresholdSigma, 'noise sd'));
       break;
     case 'fraction':
-      r = pickFraction(trace, base, w, requireInRange('fraction', options.fraction ?? 0.5, 0.05, 0.95, 'of the peak'));
+      r = pickFraction(trace, base, w, requireInRange('fraction', options.fraction ?? 0.5, ...PICKER_LIMITS.fraction, 'of the peak'));
       break;
     case 'peak':
       r = pickPeak(trace, base, w, step);

@@ -15,6 +15,7 @@ import {
 } from '../../io/locate-csv';
 import { parseQuantity, QuantityParseError } from '../../io/quantity';
 import {
+  LOCATE_SPEED_RANGE_M_S,
   type LocateResult,
   locateSource,
   MODEL_MIN_K,
@@ -37,8 +38,6 @@ import { formatKelvin, JSON_FLAG, writeJson } from './shared';
 export const LOCATE_DEFAULT_ARRIVAL_SD_S = 5e-6;
 /** Default outlier limit, in sds of the residual (the kernel's default). */
 export const LOCATE_DEFAULT_OUTLIER_SIGMA = 3;
-/** Speeds the kernel takes, m/s. */
-const SPEED_RANGE = [1e-3, 1e4] as const;
 /** Radii the kernel takes for a sphere or cylinder, m. */
 const RADIUS_RANGE = [1e-6, 100] as const;
 
@@ -62,7 +61,7 @@ const SPEED_FLAG: QuantityFlag = {
   name: 'speed',
   dimension: 'speed',
   placeholder: 'u',
-  range: SPEED_RANGE,
+  range: LOCATE_SPEED_RANGE_M_S,
   help: 'speed of the front (give this or --temperature); the start value with --fit-speed',
 };
 
@@ -265,7 +264,7 @@ function readSpeed(args: ParsedArgs): { speed_m_s: number; temperature_K: number
   const speed = args.quantity(SPEED_FLAG.name);
   if (temperature && speed) throw new UsageError('"sekundo locate" takes --temperature or --speed, not both');
   if (speed) {
-    return { speed_m_s: computeFor(speed, (v) => requireInRange('speed', v, SPEED_RANGE[0], SPEED_RANGE[1], 'm/s')), temperature_K: null };
+    return { speed_m_s: computeFor(speed, (v) => requireInRange('speed', v, LOCATE_SPEED_RANGE_M_S[0], LOCATE_SPEED_RANGE_M_S[1], 'm/s')), temperature_K: null };
   }
   if (!temperature) {
     throw new UsageError(
@@ -273,7 +272,7 @@ function readSpeed(args: ParsedArgs): { speed_m_s: number; temperature_K: number
     );
   }
   const u2 = computeFor(temperature, (T) => secondSound(T));
-  if (!(u2 >= SPEED_RANGE[0])) {
+  if (!(u2 >= LOCATE_SPEED_RANGE_M_S[0])) {
     throw new UsageError(`--temperature ${temperature.text.trim()}: u₂ is ${formatSignificant(u2, 3)} m/s there, too slow to locate a source; choose a bath temperature further below Tλ = ${T_LAMBDA_K} K`);
   }
   return { speed_m_s: u2, temperature_K: temperature.value };

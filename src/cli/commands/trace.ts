@@ -5,12 +5,13 @@
  */
 import { CsvInputError } from '../../io/csv-common';
 import { type TraceCsv, TraceCsvParser } from '../../io/trace-csv';
-import { pickTraceArrival, type TracePick } from '../../io/trace-pick';
+import { pickTraceArrival, TRACE_SEARCH_RANGE_S, type TracePick } from '../../io/trace-pick';
 import {
   convertDelay,
   DELAY_LIMITS,
   type DelayConversion,
   PICKER_KINDS,
+  PICKER_LIMITS,
   type PickerKind,
   requireInRange,
 } from '../../physics';
@@ -89,7 +90,7 @@ const FROM_FLAG: QuantityFlag = {
   name: 'from',
   dimension: 'time',
   placeholder: 't',
-  range: [-1e4, 1e4],
+  range: TRACE_SEARCH_RANGE_S,
   help: 'start of the search window after time zero, e.g. past heater pickup (default 0)',
 };
 
@@ -98,7 +99,7 @@ const TO_FLAG: QuantityFlag = {
   name: 'to',
   dimension: 'time',
   placeholder: 't',
-  range: [-1e4, 1e4],
+  range: TRACE_SEARCH_RANGE_S,
   help: 'end of the search window after time zero (default: the end of the trace)',
 };
 
@@ -106,7 +107,7 @@ const THRESHOLD_FLAG: NumberFlag = {
   kind: 'number',
   name: 'threshold',
   placeholder: 'k',
-  range: [1, 1000],
+  range: PICKER_LIMITS.thresholdSigma,
   help: 'threshold picker: level in noise sd above the baseline (default 5)',
 };
 
@@ -114,7 +115,7 @@ const FRACTION_FLAG: NumberFlag = {
   kind: 'number',
   name: 'fraction',
   placeholder: 'f',
-  range: [0.05, 0.95],
+  range: PICKER_LIMITS.fraction,
   help: 'fraction picker: fraction of the peak on the leading edge (default 0.5)',
 };
 

@@ -4,7 +4,8 @@
  * here and in src/io/quantity.ts; the store and the kernel see SI values.
  */
 import { type Dimension, fromBaseUnit, parseQuantity, QuantityParseError, toBaseUnit, type Unit } from '../../io/quantity';
-import { DELAY_LIMITS, PROPERTIES_RANGE_K, VAPOUR_PRESSURE_RANGE_PA } from '../../physics';
+import { TRACE_SEARCH_RANGE_S } from '../../io/trace-pick';
+import { DELAY_LIMITS, PICKER_LIMITS, PROPERTIES_RANGE_K, VAPOUR_PRESSURE_RANGE_PA } from '../../physics';
 import type { DisplayUnits, UnitKind } from '../units/unit-choices';
 
 export type ConverterFieldKey =
@@ -49,7 +50,6 @@ export interface FieldSpec {
 }
 
 const TIME_UNITS: readonly Unit[] = ['ms', 'µs', 's', 'ns'];
-const SEARCH_LIMIT_S = 1e4;
 
 /** Every field, by key. Ranges are the kernel's own where it has them. */
 export const FIELD_SPECS: Readonly<Record<ConverterFieldKey, FieldSpec>> = {
@@ -63,10 +63,10 @@ export const FIELD_SPECS: Readonly<Record<ConverterFieldKey, FieldSpec>> = {
   expected: { key: 'expected', label: 'Expected temperature', dimension: 'temperature', units: ['K', 'mK'], range: PROPERTIES_RANGE_K, initial: 1.8 },
   rangeMin: { key: 'rangeMin', label: 'Range from', dimension: 'temperature', units: ['K', 'mK'], range: [0, PROPERTIES_RANGE_K[1]], initial: 1.7 },
   rangeMax: { key: 'rangeMax', label: 'Range to', dimension: 'temperature', units: ['K', 'mK'], range: [0, PROPERTIES_RANGE_K[1]], initial: 2.1 },
-  threshold: { key: 'threshold', label: 'Threshold', dimension: 'number', units: [], range: [1, 1000], initial: 5 },
-  fraction: { key: 'fraction', label: 'Fraction of the peak', dimension: 'number', units: [], range: [0.05, 0.95], initial: 0.5 },
-  searchFrom: { key: 'searchFrom', label: 'Search from', dimension: 'time', units: TIME_UNITS, range: [-SEARCH_LIMIT_S, SEARCH_LIMIT_S], initial: null, optional: true, emptyMeaning: 'time zero' },
-  searchTo: { key: 'searchTo', label: 'Search to', dimension: 'time', units: TIME_UNITS, range: [-SEARCH_LIMIT_S, SEARCH_LIMIT_S], initial: null, optional: true, emptyMeaning: 'the end of the record' },
+  threshold: { key: 'threshold', label: 'Threshold', dimension: 'number', units: [], range: PICKER_LIMITS.thresholdSigma, initial: 5 },
+  fraction: { key: 'fraction', label: 'Fraction of the peak', dimension: 'number', units: [], range: PICKER_LIMITS.fraction, initial: 0.5 },
+  searchFrom: { key: 'searchFrom', label: 'Search from', dimension: 'time', units: TIME_UNITS, range: TRACE_SEARCH_RANGE_S, initial: null, optional: true, emptyMeaning: 'time zero' },
+  searchTo: { key: 'searchTo', label: 'Search to', dimension: 'time', units: TIME_UNITS, range: TRACE_SEARCH_RANGE_S, initial: null, optional: true, emptyMeaning: 'the end of the record' },
 };
 
 /** The header's kind of unit for a field's dimension; null for a plain number. */

@@ -10,7 +10,7 @@ import {
   LOCATE_POSITION_RANGE_M,
 } from '../../io/locate-csv';
 import { type Dimension, fromBaseUnit, parseQuantity, QuantityParseError, type Unit, unitsOf } from '../../io/quantity';
-import { MODEL_MIN_K, T_LAMBDA_K, type Vec3 } from '../../physics';
+import { LOCATE_SPEED_RANGE_M_S, MODEL_MIN_K, T_LAMBDA_K, type Vec3 } from '../../physics';
 import { AXIS_NAMES, type LocateEdit, type LocateInputs, type LocateOptionsInput, type LocateRowInput } from './locate-inputs';
 
 /** A quantity field: what it is called, its unit and valid range. */
@@ -120,8 +120,8 @@ export const SPEED_SPEC: QuantityFieldSpec = {
   name: 'Speed',
   dimension: 'speed',
   unit: 'm/s',
-  range: [1e-3, 1e4],
-  rangeText: '0.001–10 000 m/s',
+  range: LOCATE_SPEED_RANGE_M_S,
+  rangeText: `${LOCATE_SPEED_RANGE_M_S[0]}–${LOCATE_SPEED_RANGE_M_S[1].toLocaleString('en-GB').replace(',', ' ')} m/s`,
 };
 
 export const DEFAULT_SD_SPEC: QuantityFieldSpec = {

@@ -1,6 +1,6 @@
 import { type FocusEvent, type KeyboardEvent, useId } from 'react';
 import type { Unit } from '../../io/quantity';
-import { describedBy as joinIds, type HelpTopic, useFieldHelp } from '../help/FieldHelp';
+import { describedBy as joinIds, HelpLabel, type HelpTopic, useFieldHelp } from '../help/FieldHelp';
 import { useSekundoStore } from '../store';
 import { type ConverterFieldKey, FIELD_SPECS, rangeText } from './converter-fields';
 import { converterFieldHelp } from './converter-help';
@@ -70,18 +70,14 @@ export function ConverterField({ fieldKey, label, labelHidden = false, className
   return (
     <div className={`converter-field${className ? ` ${className}` : ''}`}>
       {ownHelp ? (
-        <div className="field-head">
-          <label htmlFor={id} className="field-label">
-            {shownLabel}
-          </label>
-          {fieldHelp.button}
-        </div>
+        <HelpLabel htmlFor={id} help={fieldHelp}>
+          {shownLabel}
+        </HelpLabel>
       ) : (
         <label htmlFor={id} className="visually-hidden">
           {spec.label}
         </label>
       )}
-      {ownHelp ? fieldHelp.panel : null}
       <div className="converter-field__row">
         <input
           id={id}

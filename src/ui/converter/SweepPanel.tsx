@@ -13,7 +13,7 @@ import { valuesOf } from './converter-slice';
 import { csvColumn, currentConverterUnits, TIME_DECIMALS, useConverterUnits } from './converter-units';
 import { tableExport } from './export-text';
 import { sweepHelp } from './converter-help';
-import { describedBy, useFieldHelp } from '../help/FieldHelp';
+import { describedBy, HelpLabel, useFieldHelp } from '../help/FieldHelp';
 import { sweepCalibration } from './reading-results';
 import { ResultActions } from './ResultActions';
 import { readSweepText } from './table-input';
@@ -81,13 +81,9 @@ export function SweepInput() {
         {maximumAt}) while you log delays. The shortest delay belongs to the maximum, so L = u₂,max · (t_min − t₀)
         without a thermometer. x is the time of each reading or its number; the offset t₀ (below) is subtracted.
       </p>
-      <div className="field-head">
-        <label className="field-label" htmlFor={areaId}>
-          Sweep readings (x, delay), one per line
-        </label>
-        {textHelp.button}
-      </div>
-      {textHelp.panel}
+      <HelpLabel htmlFor={areaId} help={textHelp}>
+Sweep readings (x, delay), one per line
+</HelpLabel>
       <textarea
         id={areaId}
         className="text-input sweep-text"

@@ -98,6 +98,21 @@ export function useFieldHelp(name: string, topic: HelpTopic): FieldHelpParts {
   };
 }
 
+/** A field's visible label with its "?" beside it, and the help folding out below. */
+export function HelpLabel({ htmlFor, help, className = 'field-label', children }: { htmlFor: string; help: FieldHelpParts; className?: string; children: ReactNode }) {
+  return (
+    <>
+      <div className="field-head">
+        <label htmlFor={htmlFor} className={className}>
+          {children}
+        </label>
+        {help.button}
+      </div>
+      {help.panel}
+    </>
+  );
+}
+
 /** A table column's heading with its "?": the column's cells point to the help's panel through describedBy. */
 export function HelpColumnHead({ help, children }: { help: FieldHelpParts; children: ReactNode }) {
   return (

@@ -1,5 +1,5 @@
 import { type KeyboardEvent, useId } from 'react';
-import { describedBy as joinIds, type HelpTopic, useFieldHelp } from '../help/FieldHelp';
+import { describedBy as joinIds, HelpLabel, type HelpTopic, useFieldHelp } from '../help/FieldHelp';
 import { useSekundoStore } from '../store';
 import type { LocateTextEdit } from '../store/locate-slice';
 import { fieldText, type QuantityFieldSpec } from './locate-fields';
@@ -45,18 +45,14 @@ export function LocateField({ fieldKey, spec, value, edit, onType, label, hideLa
   return (
     <div className="locate-field">
       {hasHelp ? (
-        <div className="field-head">
-          <label htmlFor={id} className="locate-field__label">
-            {label}
-          </label>
-          {fieldHelp.button}
-        </div>
+        <HelpLabel htmlFor={id} className="locate-field__label" help={fieldHelp}>
+          {label}
+        </HelpLabel>
       ) : (
         <label htmlFor={id} className={hideLabel ? 'visually-hidden' : 'locate-field__label'}>
           {label}
         </label>
       )}
-      {hasHelp ? fieldHelp.panel : null}
       <div className="locate-field__box">
         <input
           id={id}

@@ -1,6 +1,6 @@
 import { type ReactNode, useId } from 'react';
 import { formatSignificant } from '../format/format-number';
-import { type HelpTopic, useFieldHelp } from '../help/FieldHelp';
+import { HelpLabel, type HelpTopic, useFieldHelp } from '../help/FieldHelp';
 import { useSekundoStore } from '../store';
 import { useDisplayUnit } from '../units/use-display-unit';
 import { speedOf } from './derive-locate';
@@ -85,13 +85,9 @@ export function LocateOptions() {
         help={LOCATE_HELP.defaultSd}
       />
       <div className="locate-group">
-        <div className="field-head">
-          <label htmlFor={surfaceId} className="locate-field__label">
-            Source on a surface
-          </label>
-          {surfaceHelp.button}
-        </div>
-        {surfaceHelp.panel}
+        <HelpLabel htmlFor={surfaceId} className="locate-field__label" help={surfaceHelp}>
+Source on a surface
+</HelpLabel>
         <select
           id={surfaceId}
           className="locate-select"

@@ -6,7 +6,7 @@ import { PICKER_LABELS } from '../converter/trace/TraceMode';
 import type { PickState } from '../converter/trace/trace-picks';
 import { useTraceSamples } from '../converter/trace/trace-picks';
 import { formatSignificant } from '../format/format-number';
-import { HelpColumnHead, type HelpTopic, useFieldHelp } from '../help/FieldHelp';
+import { HelpColumnHead, HelpLabel, type HelpTopic, useFieldHelp } from '../help/FieldHelp';
 import { PanelErrorBoundary } from '../layout/PanelErrorBoundary';
 import { fileSize, ReadProgress } from '../layout/ReadProgress';
 import { useElementWidth } from '../layout/use-element-width';
@@ -114,13 +114,9 @@ function PickerSettings() {
   return (
     <fieldset className="locate-group locate-traces__settings">
       <legend className="visually-hidden">Picker settings</legend>
-      <div className="field-head">
-        <label className="locate-field__label" htmlFor={pickerId}>
-          Picker
-        </label>
-        {pickerHelp.button}
-      </div>
-      {pickerHelp.panel}
+      <HelpLabel htmlFor={pickerId} className="locate-field__label" help={pickerHelp}>
+Picker
+</HelpLabel>
       <select id={pickerId} className="locate-select" value={settings.picker} aria-describedby={pickerHelp.describedBy} onChange={(e) => set({ picker: e.target.value as PickerKind })}>
         {PICKER_KINDS.map((k) => (
           <option key={k} value={k}>
@@ -130,13 +126,9 @@ function PickerSettings() {
       </select>
       {settings.picker === 'threshold' ? <SettingField setting="threshold" label="Threshold k (noise sd)" help={LOCATE_HELP.traceThreshold} /> : null}
       {settings.picker === 'fraction' ? <SettingField setting="fraction" label="Fraction of the peak" help={LOCATE_HELP.traceFraction} /> : null}
-      <div className="field-head">
-        <label className="locate-field__label" htmlFor={polarityId}>
-          Pulse polarity
-        </label>
-        {polarityHelp.button}
-      </div>
-      {polarityHelp.panel}
+      <HelpLabel htmlFor={polarityId} className="locate-field__label" help={polarityHelp}>
+Pulse polarity
+</HelpLabel>
       <select id={polarityId} className="locate-select" value={settings.polarity} aria-describedby={polarityHelp.describedBy} onChange={(e) => set({ polarity: e.target.value as Polarity })}>
         <option value="auto">Automatic (the larger excursion)</option>
         <option value="positive">Positive-going</option>

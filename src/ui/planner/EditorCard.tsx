@@ -1,5 +1,5 @@
 import type { ReactNode } from 'react';
-import { type FieldHelpParts, type HelpTopic, useFieldHelp } from '../help/FieldHelp';
+import { type HelpTopic, useFieldHelp } from '../help/FieldHelp';
 import { PanelErrorBoundary } from '../layout/PanelErrorBoundary';
 
 /** A titled group of plan inputs in its own error boundary. */
@@ -15,21 +15,6 @@ export function EditorCard({ id, title, children, aside }: { id: string; title: 
       </div>
       <PanelErrorBoundary panel={`${title.toLowerCase()} editor`}>{children}</PanelErrorBoundary>
     </section>
-  );
-}
-
-/** A select's or text area's visible label with its "?" beside it, and the help folding out below. */
-export function FieldHead({ htmlFor, label, help }: { htmlFor: string; label: string; help: FieldHelpParts }) {
-  return (
-    <>
-      <div className="field-head">
-        <label className="plan-field__label" htmlFor={htmlFor}>
-          {label}
-        </label>
-        {help.button}
-      </div>
-      {help.panel}
-    </>
   );
 }
 

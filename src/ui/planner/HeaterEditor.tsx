@@ -1,6 +1,6 @@
-import { describedBy, useFieldHelp } from '../help/FieldHelp';
+import { describedBy, HelpLabel, useFieldHelp } from '../help/FieldHelp';
 import { useSekundoStore } from '../store';
-import { ChoiceGroup, EditorCard, FieldHead } from './EditorCard';
+import { ChoiceGroup, EditorCard } from './EditorCard';
 import { PlanFieldMessage, PlanNumberField } from './PlanField';
 import { PulseShapeEditor } from './PulseShapeEditor';
 import { type DriveMode, driveMode, type Geometry, setDriveMode, setGeometry } from './plan-edits';
@@ -34,7 +34,9 @@ export function HeaterEditor() {
     <EditorCard id="planner-heater" title="Heater">
       <div className="plan-grid">
         <div className="plan-field">
-          <FieldHead htmlFor="planner-geometry" label="Heater geometry" help={geometryHelp} />
+          <HelpLabel htmlFor="planner-geometry" className="plan-field__label" help={geometryHelp}>
+Heater geometry
+</HelpLabel>
           <select
             id="planner-geometry"
             className="plan-select"

@@ -1,6 +1,6 @@
 import { type ReactNode, useId } from 'react';
 import type { PlanFile } from '../../io/plan-file';
-import { describedBy as joinIds, type HelpTopic, useFieldHelp } from '../help/FieldHelp';
+import { describedBy as joinIds, HelpLabel, type HelpTopic, useFieldHelp } from '../help/FieldHelp';
 import { useSekundoStore } from '../store';
 import { editField, fieldRangeText, fieldText, type NumberField, type PlanEdit } from './plan-fields';
 import { PLAN_OTHER_HELP, planHelpKey, planNumberHelp } from './planner-help';
@@ -83,18 +83,14 @@ function PlanTextInput({ fieldKey, value, edit, label, labelHidden = false, hint
   return (
     <div className={`plan-field${className ? ` ${className}` : ''}`}>
       {hasHelp ? (
-        <div className="field-head">
-          <label htmlFor={id} className="plan-field__label">
-            {label}
-          </label>
-          {fieldHelp.button}
-        </div>
+        <HelpLabel htmlFor={id} className="plan-field__label" help={fieldHelp}>
+          {label}
+        </HelpLabel>
       ) : (
         <label htmlFor={id} className={labelHidden ? 'visually-hidden' : 'plan-field__label'}>
           {label}
         </label>
       )}
-      {hasHelp ? fieldHelp.panel : null}
       <input
         id={id}
         className="text-input plan-input"

@@ -1,8 +1,7 @@
 import { useId, useState } from 'react';
 import { CUSTOM_PULSE_MAX_POINTS } from '../../physics';
-import { describedBy, HelpColumnHead, useFieldHelp } from '../help/FieldHelp';
+import { describedBy, HelpColumnHead, HelpLabel, useFieldHelp } from '../help/FieldHelp';
 import { useSekundoStore } from '../store';
-import { FieldHead } from './EditorCard';
 import { PlanFieldMessage, PlanNumberField } from './PlanField';
 import { addPulsePoint, customPoints, parsePastedPoints, removePulsePoint, setPulsePoints, setShape, type ShapeKind, shapeKind } from './plan-edits';
 import { fieldRangeText, HEATER_FIELDS, pulsePointField } from './plan-fields';
@@ -24,7 +23,9 @@ export function PulseShapeEditor() {
   return (
     <div className="plan-grid plan-grid--pulse">
       <div className="plan-field">
-        <FieldHead htmlFor="planner-shape" label="Pulse shape" help={shapeHelp} />
+        <HelpLabel htmlFor="planner-shape" className="plan-field__label" help={shapeHelp}>
+Pulse shape
+</HelpLabel>
         <select id="planner-shape" className="plan-select" value={kind} aria-describedby={shapeHelp.describedBy} onChange={(event) => edit('heater.shape', (p) => setShape(p, event.target.value as ShapeKind), 'pulse.')}>
           {SHAPES.map((s) => (
             <option key={s.value} value={s.value}>
@@ -131,7 +132,9 @@ function PastePoints() {
   return (
     <details className="pulse-paste">
       <summary>Paste points as “time, amplitude” lines</summary>
-      <FieldHead htmlFor={id} label="Pulse points, one “time, amplitude” per line" help={pasteHelp} />
+      <HelpLabel htmlFor={id} className="plan-field__label" help={pasteHelp}>
+Pulse points, one “time, amplitude” per line
+</HelpLabel>
       <textarea
         id={id}
         className="text-input pulse-paste__text"

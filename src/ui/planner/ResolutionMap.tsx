@@ -2,9 +2,8 @@ import { useEffect, useId, useMemo, useState } from 'react';
 import { SPACER_MATERIALS } from '../../physics';
 import { ChartFigure } from '../charts/ChartFigure';
 import { PlotlyChart } from '../plot/PlotlyChart';
-import { useFieldHelp } from '../help/FieldHelp';
+import { HelpLabel, useFieldHelp } from '../help/FieldHelp';
 import { useSekundoStore } from '../store';
-import { FieldHead } from './EditorCard';
 import { PLAN_OTHER_HELP } from './planner-help';
 import { type DisplayUnit, LADDERS, readText, temperatureText } from './display-units';
 import { MAP_DISTANCE_RANGE_M, type MapSensor, mapFigure, mapGrid, onMap, spreadAt } from './resolution-map';
@@ -62,7 +61,9 @@ export function ResolutionMap() {
   if (!result || !sensor) return null;
   const choice = (
     <div className="plan-field map-sensor">
-      <FieldHead htmlFor={selectId} label="Timing and distance sd of" help={sensorHelp} />
+      <HelpLabel htmlFor={selectId} className="plan-field__label" help={sensorHelp}>
+Timing and distance sd of
+</HelpLabel>
       <select
         id={selectId}
         className="plan-select"

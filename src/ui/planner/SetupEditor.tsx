@@ -1,7 +1,7 @@
 import { SPACER_MATERIALS } from '../../physics';
-import { describedBy, type FieldHelpParts, HelpColumnHead, useFieldHelp } from '../help/FieldHelp';
+import { describedBy, type FieldHelpParts, HelpColumnHead, HelpLabel, useFieldHelp } from '../help/FieldHelp';
 import { useSekundoStore } from '../store';
-import { EditorCard, FieldHead } from './EditorCard';
+import { EditorCard } from './EditorCard';
 import { PlanFieldMessage, PlanNumberField, PlanTextField } from './PlanField';
 import { MAX_REFLECTORS, setReflector, setSpacer } from './plan-edits';
 import { ECHO_ORDER_FIELD, fieldRangeText, reflectorFields } from './plan-fields';
@@ -20,7 +20,9 @@ export function SetupEditor() {
     <EditorCard id="planner-setup" title="Spacer and reflections">
       <div className="plan-grid">
         <div className="plan-field plan-field--wide">
-          <FieldHead htmlFor="planner-spacer" label="Spacer material" help={spacerHelp} />
+          <HelpLabel htmlFor="planner-spacer" className="plan-field__label" help={spacerHelp}>
+Spacer material
+</HelpLabel>
           <select
             id="planner-spacer"
             className="plan-select"

@@ -1,5 +1,5 @@
 import type { FormEvent } from 'react';
-import { describedBy, useFieldHelp } from '../help/FieldHelp';
+import { describedBy, HelpLabel, useFieldHelp } from '../help/FieldHelp';
 import { useSekundoStore } from '../store';
 import { TEMPERATURE_HELP } from './temperature-help';
 import { TEMPERATURE_RANGE_TEXT } from './temperature-units';
@@ -23,13 +23,9 @@ export function TemperatureField() {
 
   return (
     <form className="temperature-form" onSubmit={submit} noValidate>
-      <div className="field-head">
-        <label className="field-label" htmlFor={INPUT_ID}>
-          Temperature (type K or mK)
-        </label>
-        {help.button}
-      </div>
-      {help.panel}
+      <HelpLabel htmlFor={INPUT_ID} help={help}>
+Temperature (type K or mK)
+</HelpLabel>
       <div className="field-row">
         <input
           id={INPUT_ID}

@@ -1,6 +1,6 @@
 import type { CSSProperties } from 'react';
 import { PROPERTIES_RANGE_K, T_LAMBDA_K } from '../../physics';
-import { type HelpTopic, useFieldHelp } from '../help/FieldHelp';
+import { HelpLabel, type HelpTopic, useFieldHelp } from '../help/FieldHelp';
 import { useSekundoStore } from '../store';
 import { useDisplayUnit } from '../units/use-display-unit';
 import { formatTemperature, otherTemperatureUnit } from './temperature-units';
@@ -21,13 +21,9 @@ export function TemperatureSlider({ help }: { help: HelpTopic }) {
   const fieldHelp = useFieldHelp('sweep the temperature', help);
   return (
     <div className="slider-block" style={TRACK_STYLE}>
-      <div className="field-head">
-        <label className="field-label" htmlFor="temperature-slider">
-          Sweep the temperature
-        </label>
-        {fieldHelp.button}
-      </div>
-      {fieldHelp.panel}
+      <HelpLabel htmlFor="temperature-slider" help={fieldHelp}>
+        Sweep the temperature
+      </HelpLabel>
       <input
         id="temperature-slider"
         className="temperature-slider"

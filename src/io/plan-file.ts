@@ -1,535 +1,39 @@
 /**
- * The plan file: Sekundo's own versioned JSON format for a measurement plan.
- *
- * It stores what the user chose (not what the kernel derives), in SI units with the unit in every
- * key, and is validated at load with a strict schema: unknown fields, wrong types, values out of
- * range and inconsistent choices all come back as field-level messages such as
- * `heater.width_s: must be 10 ns–10 s (got -1)`. {@link planFileToInput} turns a valid file into
- * the kernel's {@link PlanInput}.
- *
- * ```json
- * { "format": "sekundo-plan", "version": 1, "name": "…", "notes": "…",
- *   "bath": { "temperature_K": 1.8 } | { "vapourPressure_Pa": 1638.2 }, plus "liquidDepth_m",
- *   "heater": { "geometry": "planar" | "disk" | "point", "area_m2" (planar, point) | "radius_m" (disk),
- *               "power_W" | "flux_W_m2", "shape": "rectangle" | "half-sine" | { "custom": [[t_s, a], …] },
- *               "width_s", "riseTime_s", "repetitionRate_Hz", "averages" },
- *   "sensors": [{ "id", "label", "distance_m" | "position_m": [x, y, z], "distanceSd_m", "area_m2",
- *                 "responsivity_V_K", "noise_V", "lag_s" }],
- *   "spacer": { "materialId", "measuredWarm" },
- *   "reflectors": [{ "label", "axis": "x" | "y" | "z", "position_m", "reflection" }], "echoOrder",
- *   "digitiser": { "sampleRate_Hz", "recordLength_s", "preTrigger_s" },
- *   "targets": { "snr", "temperatureSd_K" } }
- * ```
+ * The plan file: Sekundo's own versioned JSON format for a measurement plan — reading (with
+ * migration from older versions), writing, and turning a plan into the kernel's input. The format
+ * itself (fields, limits) is in plan-file-types.ts, its schema in plan-file-schema.ts, older
+ * versions in plan-migrations.ts; this module is the one the rest of the app imports.
  */
 import { z } from 'zod';
 import {
-  CUSTOM_PULSE_MAX_POINTS,
   InvalidInputError,
-  MAX_ECHO_ORDER,
   NonFiniteInputError,
   OutOfRangeError,
-  PATH_LENGTH_RANGE_M,
   PhysicsError,
-  PLAN_LIMITS,
   type PlanInput,
-  PROPERTIES_RANGE_K,
-  PULSE_WIDTH_RANGE_S,
   type PulseShape,
-  SPACER_MATERIALS,
   temperatureFromVapourPressure,
-  VAPOUR_PRESSURE_RANGE_PA,
   type VapourPressureScale,
-  vapourPressure,
 } from '../physics';
+import { isRecord, PLAN_FILE_SCHEMA, planHeaterArea } from './plan-file-schema';
+import {
+  CURRENT_PLAN_VERSION,
+  FORBIDDEN_KEYS,
+  MAX_PLAN_FILE_CHARS,
+  MAX_PLAN_MESSAGES,
+  MAX_PLAN_NESTING,
+  PLAN_FORMAT,
+  type PlanFile,
+  type PlanFileParse,
+  type PlanFileShape,
+} from './plan-file-types';
+import { migratePlan } from './plan-migrations';
+import { show } from './plan-range-text';
 
-/** The `format` every plan file carries. */
-export const PLAN_FORMAT = 'sekundo-plan';
-/** The version this code writes and reads without migration. */
-export const CURRENT_PLAN_VERSION = 1;
-
-/** Largest plan file read, characters: a 10 000-point custom pulse takes well under 1 MB. */
-export const MAX_PLAN_FILE_CHARS = 4_000_000;
-/** Deepest nesting of arrays and objects accepted; a plan needs 5 (plan › heater › shape › custom › point). */
-export const MAX_PLAN_NESTING = 32;
-/** Most messages returned for one file; the rest are counted. */
-export const MAX_PLAN_MESSAGES = 50;
-/** Most reflecting planes in a plan (the image count is capped by the kernel anyway). */
-export const MAX_REFLECTORS = 16;
-/**
- * Heat flux accepted in a file, W/m²: up to 100 kW/cm², far past what any heater film survives;
- * only a guard against typing mistakes (the derived power is checked against PLAN_LIMITS too).
- */
-export const FLUX_RANGE_W_M2 = [1e-6, 1e9] as const;
-/** Relative amplitudes accepted in a custom pulse (they are scaled so the largest is 1). */
-const CUSTOM_AMPLITUDE_RANGE = [0, 1e9] as const;
-/** Coordinates of reflecting planes, m: the kernel's image-source range. */
-const PLANE_POSITION_RANGE_M = [-100, 100] as const;
-/** Sensor coordinates, m: the kernel's path-length range either side of the heater. */
-const SENSOR_COORDINATE_RANGE_M = [-PATH_LENGTH_RANGE_M[1], PATH_LENGTH_RANGE_M[1]] as const;
-/** Lowest rise time of a rectangle, as a fraction of its width (the kernel's bound). */
-const MIN_RISE_FRACTION = 1e-6;
-export const MAX_ID_CHARS = 64;
-export const MAX_LABEL_CHARS = 120;
-export const MAX_NAME_CHARS = 200;
-const MAX_NOTES_CHARS = 20_000;
-/** Keys refused anywhere in a file: they mean something to JavaScript objects. */
-const FORBIDDEN_KEYS: ReadonlySet<string> = new Set(['__proto__', 'constructor', 'prototype']);
-
-/** Highest vapour pressure accepted: the one at the top of the kernel's temperature range, Pa. */
-const MAX_BATH_PRESSURE_PA = vapourPressure(PROPERTIES_RANGE_K[1]).pressure_Pa;
-const BATH_PRESSURE_RANGE_PA = [VAPOUR_PRESSURE_RANGE_PA[0], MAX_BATH_PRESSURE_PA] as const;
-
-// ---------------------------------------------------------------------------------------------
-// The shape of a plan file.
-
-/** Pulse shape as stored: a name, or custom points [time from onset in s, relative amplitude ≥ 0]. */
-export type PlanFileShape = 'rectangle' | 'half-sine' | { custom: [number, number][] };
-
-export interface PlanFileBath {
-  /** Bath temperature T90, K. Give this or `vapourPressure_Pa`. */
-  temperature_K?: number;
-  /** Saturated vapour pressure read over the bath, Pa (ITS-90 from 1.25 K; reference spline below). */
-  vapourPressure_Pa?: number;
-  /** Liquid above the setup, m. */
-  liquidDepth_m: number;
-}
-
-export interface PlanFileHeater {
-  geometry: 'planar' | 'disk' | 'point';
-  /** Face area, m² (planar and point heaters). */
-  area_m2?: number;
-  /** Radius, m (disk heaters; the area is πr²). */
-  radius_m?: number;
-  /** Peak power during the pulse, W. Give this or `flux_W_m2`. */
-  power_W?: number;
-  /** Peak heat flux on the face, W/m² (power = flux × area). */
-  flux_W_m2?: number;
-  shape: PlanFileShape;
-  /** Pulse width, s (rectangle and half-sine; a custom pulse lasts until its last point). */
-  width_s?: number;
-  /** Edge time, s (rectangle; kept but unused for the other shapes). */
-  riseTime_s?: number;
-  repetitionRate_Hz: number;
-  /** Pulses averaged per reading, a whole number. */
-  averages: number;
-}
-
-export interface PlanFileSensor {
-  id: string;
-  label: string;
-  /** Distance on the heater axis, m (the sensor sits at [0, 0, d]). Give this or `position_m`. */
-  distance_m?: number;
-  /** Position from the heater centre, m; the heater faces +z, so z > 0. */
-  position_m?: [number, number, number];
-  /** One-sigma uncertainty of the distance as measured, m. */
-  distanceSd_m: number;
-  /** Sensing area facing the heater, m² (0: a point). */
-  area_m2: number;
-  responsivity_V_K: number;
-  /** Noise, V rms, single shot. */
-  noise_V: number;
-  /** First-order time constant, s. */
-  lag_s: number;
-}
-
-export interface PlanFileReflector {
-  label: string;
-  /** The plane is `axis = position_m`. */
-  axis: 'x' | 'y' | 'z';
-  position_m: number;
-  /** Amplitude reflection coefficient, −1 to 1. */
-  reflection: number;
-}
-
-/** A measurement plan as stored in a file (version {@link CURRENT_PLAN_VERSION}). */
-export interface PlanFile {
-  format: typeof PLAN_FORMAT;
-  version: typeof CURRENT_PLAN_VERSION;
-  name: string;
-  notes?: string;
-  bath: PlanFileBath;
-  heater: PlanFileHeater;
-  sensors: PlanFileSensor[];
-  /** Spacer between heater and sensors; `measuredWarm`: distances were measured at room temperature. */
-  spacer: { materialId: string; measuredWarm: boolean };
-  reflectors: PlanFileReflector[];
-  /** Most reflections reported per echo, 0–12. */
-  echoOrder: number;
-  digitiser: { sampleRate_Hz: number; recordLength_s: number; preTrigger_s: number };
-  targets: { snr: number; temperatureSd_K: number };
-}
-
-/** What {@link parsePlanFile} returns: the plan, or every problem found as `field: message`. */
-export type PlanFileParse = { ok: true; plan: PlanFile } | { ok: false; errors: string[] };
-
-// ---------------------------------------------------------------------------------------------
-// Messages.
-
-/** Units that read well with an SI prefix in messages (10 ns, 1 µm, 10 kW). */
-const PREFIXED_UNITS: ReadonlySet<string> = new Set(['s', 'm', 'Hz', 'W', 'V']);
-const PREFIXES: readonly (readonly [number, string])[] = [
-  [1e9, 'G'],
-  [1e6, 'M'],
-  [1e3, 'k'],
-  [1, ''],
-  [1e-3, 'm'],
-  [1e-6, 'µ'],
-  [1e-9, 'n'],
-  [1e-12, 'p'],
-  [1e-15, 'f'],
-];
-
-function plain(x: number): string {
-  return Number(x.toPrecision(6)).toString();
-}
-
-/** A value in SI for a message: "10 ns", "1 µm", "0.3 K", "1e-12 m²". */
-function formatValue(x: number, unit: string): string {
-  const space = unit === '' ? '' : ' ';
-  if (x !== 0 && PREFIXED_UNITS.has(unit)) {
-    const magnitude = Math.abs(x) * (1 + 1e-12);
-    const prefix = PREFIXES.find(([size]) => magnitude >= size);
-    if (prefix && magnitude < 1e12) return `${plain(x / prefix[0])} ${prefix[1]}${unit}`;
-  }
-  return `${plain(x)}${space}${unit}`;
-}
-
-/** "10 ns–10 s", "0.3–4.24 K", "from -1 to 1": a closed range for a message. */
-export function formatPlanRange(min: number, max: number, unit: string): string {
-  const a = formatValue(min, unit);
-  const b = formatValue(max, unit);
-  if (min < 0) return `from ${a} to ${b}`;
-  const unitOfA = a.slice(a.indexOf(' ') + 1);
-  const sameUnit = a.includes(' ') && b.includes(' ') && unitOfA === b.slice(b.indexOf(' ') + 1);
-  return sameUnit ? `${a.slice(0, a.indexOf(' '))}–${b}` : `${a}–${b}`;
-}
-
-/** The value found, for "(got …)". */
-function show(x: unknown): string {
-  if (x === undefined) return 'nothing';
-  if (x === null) return 'null';
-  if (Array.isArray(x)) return `a list of ${x.length}`;
-  if (typeof x === 'object') return 'an object';
-  if (typeof x === 'string') return JSON.stringify(x.length > 40 ? `${x.slice(0, 40)}…` : x);
-  return String(x);
-}
-
-// ---------------------------------------------------------------------------------------------
-// Schema building blocks.
-
-interface NumberSpec {
-  range: readonly [number, number];
-  unit: string;
-  integer?: boolean;
-}
-
-/** A finite number in a closed range, with messages that quote the range. */
-function num({ range, unit, integer = false }: NumberSpec) {
-  const [min, max] = range;
-  const what = `${integer ? 'a whole number ' : ''}${formatPlanRange(min, max, unit)}`;
-  return z
-    .number({ error: (issue) => (issue.input === undefined ? 'required' : `must be ${integer ? 'a whole number' : 'a number'}, ${formatPlanRange(min, max, unit)} (got ${show(issue.input)})`) })
-    .refine((v) => v >= min && v <= max && (!integer || Number.isInteger(v)), { error: (issue) => `must be ${what} (got ${show(issue.input)})` });
-}
-
-/** Non-empty text of at most `maxChars`. */
-function text(maxChars: number) {
-  return z
-    .string({ error: (issue) => (issue.input === undefined ? 'required' : `must be text (got ${show(issue.input)})`) })
-    .refine((s) => s.trim() !== '', { error: 'required (empty)' })
-    .refine((s) => s.length <= maxChars, { error: (issue) => `must be at most ${maxChars} characters (got ${typeof issue.input === 'string' ? issue.input.length : 0})` });
-}
-
-/** One of a few strings. */
-function oneOf<const T extends readonly [string, ...string[]]>(values: T) {
-  const list = values.map((v) => `"${v}"`).join(', ');
-  return z.enum(values, { error: (issue) => (issue.input === undefined ? 'required' : `must be one of ${list} (got ${show(issue.input)})`) });
-}
-
-function flag() {
-  return z.boolean({ error: (issue) => (issue.input === undefined ? 'required' : `must be true or false (got ${show(issue.input)})`) });
-}
-
-/** A list of `min`–`max` items of `item`. */
-function list<T extends z.ZodType>(item: T, min: number, max: number, what: string) {
-  const message = (issue: { input?: unknown }) =>
-    issue.input === undefined ? 'required' : `must be a list of ${min}–${max} ${what} (got ${show(issue.input)})`;
-  return z.array(item, { error: message }).min(min, { error: message }).max(max, { error: message });
-}
-
-function isRecord(x: unknown): x is Record<string, unknown> {
-  return typeof x === 'object' && x !== null && !Array.isArray(x);
-}
-
-function isNumber(x: unknown): x is number {
-  return typeof x === 'number' && Number.isFinite(x);
-}
-
-/** Runs a cross-field check on an object even when some of its fields failed (so all problems show). */
-const ON_ANY_OBJECT = { when: (payload: { value: unknown }) => isRecord(payload.value) };
-const ON_ANY_LIST = { when: (payload: { value: unknown }) => Array.isArray(payload.value) };
-
-function objectMessage(issue: { input?: unknown }): string {
-  return issue.input === undefined ? 'required' : `must be an object {…} (got ${show(issue.input)})`;
-}
-
-// ---------------------------------------------------------------------------------------------
-// The schema.
-
-const bathSchema = z
-  .strictObject(
-    {
-      temperature_K: num({ range: PLAN_LIMITS.temperature_K, unit: 'K' }).optional(),
-      vapourPressure_Pa: num({ range: BATH_PRESSURE_RANGE_PA, unit: 'Pa' }).optional(),
-      liquidDepth_m: num({ range: PLAN_LIMITS.liquidDepth_m, unit: 'm' }),
-    },
-    { error: objectMessage },
-  )
-  .superRefine((bath, ctx) => {
-    const hasT = bath.temperature_K !== undefined;
-    const hasP = bath.vapourPressure_Pa !== undefined;
-    if (hasT && hasP) ctx.addIssue({ code: 'custom', path: [], message: 'give temperature_K or vapourPressure_Pa, not both' });
-    if (!hasT && !hasP) {
-      ctx.addIssue({
-        code: 'custom',
-        path: [],
-        message: `give the bath temperature_K (${formatPlanRange(...PLAN_LIMITS.temperature_K, 'K')}) or a vapourPressure_Pa reading (${formatPlanRange(...BATH_PRESSURE_RANGE_PA, 'Pa')})`,
-      });
-    }
-  }, ON_ANY_OBJECT);
-
-const customPointsSchema = list(
-  z.tuple([num({ range: [0, PULSE_WIDTH_RANGE_S[1]], unit: 's' }), num({ range: CUSTOM_AMPLITUDE_RANGE, unit: '' })], {
-    error: (issue) => `must be a point [time_s, relative amplitude] (got ${show(issue.input)})`,
-  }),
-  2,
-  CUSTOM_PULSE_MAX_POINTS,
-  'points [time_s, amplitude]',
-).superRefine((points, ctx) => {
-  let previous = Number.NEGATIVE_INFINITY;
-  let peak = 0;
-  points.forEach((point, i) => {
-    if (!Array.isArray(point)) return;
-    const [t, a] = point as unknown[];
-    if (isNumber(t)) {
-      if (t <= previous) ctx.addIssue({ code: 'custom', path: [i, 0], message: `times must increase (got ${plain(t)} s after ${plain(previous)} s)` });
-      previous = t;
-    }
-    if (isNumber(a)) peak = Math.max(peak, a);
-  });
-  if (peak === 0) ctx.addIssue({ code: 'custom', path: [], message: 'at least one amplitude must be above 0' });
-  const last = points[points.length - 1];
-  const duration = Array.isArray(last) ? last[0] : undefined;
-  if (isNumber(duration) && duration < PULSE_WIDTH_RANGE_S[0]) {
-    ctx.addIssue({ code: 'custom', path: [points.length - 1, 0], message: `the pulse must last ${formatPlanRange(...PULSE_WIDTH_RANGE_S, 's')} (got ${plain(duration)} s)` });
-  }
-}, ON_ANY_LIST);
-
-const shapeMessage = (issue: { input?: unknown }): string =>
-  issue.input === undefined ? 'required' : `must be "rectangle", "half-sine" or {"custom": [[time_s, amplitude], …]} (got ${show(issue.input)})`;
-
-const shapeSchema = z.union(
-  [z.enum(['rectangle', 'half-sine'], { error: shapeMessage }), z.strictObject({ custom: customPointsSchema }, { error: objectMessage })],
-  { error: shapeMessage },
-);
-
-const heaterSchema = z
-  .strictObject(
-    {
-      geometry: oneOf(['planar', 'disk', 'point']),
-      area_m2: num({ range: PLAN_LIMITS.heaterArea_m2, unit: 'm²' }).optional(),
-      radius_m: num({ range: PLAN_LIMITS.heaterRadius_m, unit: 'm' }).optional(),
-      power_W: num({ range: PLAN_LIMITS.power_W, unit: 'W' }).optional(),
-      flux_W_m2: num({ range: FLUX_RANGE_W_M2, unit: 'W/m²' }).optional(),
-      shape: shapeSchema,
-      width_s: num({ range: PULSE_WIDTH_RANGE_S, unit: 's' }).optional(),
-      riseTime_s: num({ range: [0, PULSE_WIDTH_RANGE_S[1]], unit: 's' }).optional(),
-      repetitionRate_Hz: num({ range: PLAN_LIMITS.repetitionRate_Hz, unit: 'Hz' }),
-      averages: num({ range: PLAN_LIMITS.averages, unit: '', integer: true }),
-    },
-    { error: objectMessage },
-  )
-  .superRefine((h, ctx) => {
-    const issue = (path: string[], message: string): void => ctx.addIssue({ code: 'custom', path, message });
-    // Size: area for planar and point heaters, radius for a disk.
-    if (h.geometry === 'disk') {
-      if (h.radius_m === undefined) issue(['radius_m'], `required for a disk heater, ${formatPlanRange(...PLAN_LIMITS.heaterRadius_m, 'm')}`);
-      if (h.area_m2 !== undefined) issue(['area_m2'], 'not used for a disk heater (its area is πr²); give radius_m only');
-    } else if (h.geometry === 'planar' || h.geometry === 'point') {
-      if (h.area_m2 === undefined) issue(['area_m2'], `required for a ${h.geometry} heater, ${formatPlanRange(...PLAN_LIMITS.heaterArea_m2, 'm²')}`);
-      if (h.radius_m !== undefined) issue(['radius_m'], `only for a disk heater; a ${h.geometry} heater takes area_m2`);
-    }
-    // Drive: power or flux, and the power a flux gives must be in the kernel's range.
-    if (h.power_W !== undefined && h.flux_W_m2 !== undefined) issue([], 'give power_W or flux_W_m2, not both');
-    if (h.power_W === undefined && h.flux_W_m2 === undefined) {
-      issue([], `give the peak power_W (${formatPlanRange(...PLAN_LIMITS.power_W, 'W')}) or the heat flux_W_m2`);
-    }
-    const area = heaterArea(h);
-    if (isNumber(h.flux_W_m2) && area !== null) {
-      const power = h.flux_W_m2 * area;
-      const [min, max] = PLAN_LIMITS.power_W;
-      if (power < min || power > max) {
-        issue(['flux_W_m2'], `flux × area gives ${formatValue(power, 'W')}, outside the heater power range ${formatPlanRange(min, max, 'W')}`);
-      }
-    }
-    // Width and rise time, as the shape needs them.
-    const usesWidth = h.shape === 'rectangle' || h.shape === 'half-sine';
-    if (usesWidth && h.width_s === undefined) issue(['width_s'], `required for a ${h.shape} pulse, ${formatPlanRange(...PULSE_WIDTH_RANGE_S, 's')}`);
-    if (h.shape === 'rectangle') {
-      const widthOk = isNumber(h.width_s) && h.width_s >= PULSE_WIDTH_RANGE_S[0] && h.width_s <= PULSE_WIDTH_RANGE_S[1];
-      if (h.riseTime_s === undefined) issue(['riseTime_s'], 'required for a rectangle pulse, above 0 and at most width_s');
-      else if (widthOk && isNumber(h.width_s) && isNumber(h.riseTime_s)) {
-        const lowest = h.width_s * MIN_RISE_FRACTION;
-        if (h.riseTime_s < lowest || h.riseTime_s > h.width_s) {
-          issue(['riseTime_s'], `must be ${formatPlanRange(lowest, h.width_s, 's')} (a millionth of width_s up to width_s) (got ${plain(h.riseTime_s)})`);
-        }
-      }
-    }
-  }, ON_ANY_OBJECT);
-
-const sensorSchema = z
-  .strictObject(
-    {
-      id: text(MAX_ID_CHARS),
-      label: text(MAX_LABEL_CHARS),
-      distance_m: num({ range: PATH_LENGTH_RANGE_M, unit: 'm' }).optional(),
-      position_m: z
-        .tuple(
-          [
-            num({ range: SENSOR_COORDINATE_RANGE_M, unit: 'm' }),
-            num({ range: SENSOR_COORDINATE_RANGE_M, unit: 'm' }),
-            num({ range: SENSOR_COORDINATE_RANGE_M, unit: 'm' }),
-          ],
-          { error: (issue) => `must be [x, y, z] in metres (got ${show(issue.input)})` },
-        )
-        .optional(),
-      distanceSd_m: num({ range: PLAN_LIMITS.distanceSd_m, unit: 'm' }),
-      area_m2: num({ range: PLAN_LIMITS.sensorArea_m2, unit: 'm²' }),
-      responsivity_V_K: num({ range: PLAN_LIMITS.responsivity_V_K, unit: 'V/K' }),
-      noise_V: num({ range: PLAN_LIMITS.noise_V, unit: 'V' }),
-      lag_s: num({ range: PLAN_LIMITS.lag_s, unit: 's' }),
-    },
-    { error: objectMessage },
-  )
-  .superRefine((s, ctx) => {
-    if (s.distance_m !== undefined && s.position_m !== undefined) {
-      ctx.addIssue({ code: 'custom', path: [], message: 'give distance_m or position_m, not both' });
-    }
-    if (s.distance_m === undefined && s.position_m === undefined) {
-      ctx.addIssue({ code: 'custom', path: [], message: `give distance_m on the heater axis (${formatPlanRange(...PATH_LENGTH_RANGE_M, 'm')}) or position_m [x, y, z]` });
-    }
-    const z0 = Array.isArray(s.position_m) ? s.position_m[2] : undefined;
-    if (isNumber(z0) && !(z0 > 0)) {
-      ctx.addIssue({ code: 'custom', path: ['position_m', 2], message: `must be above 0: the sensor sits in front of the heater, which faces +z (got ${plain(z0)})` });
-    }
-  }, ON_ANY_OBJECT);
-
-const sensorsSchema = list(sensorSchema, PLAN_LIMITS.sensorCount[0], PLAN_LIMITS.sensorCount[1], 'sensors').superRefine((sensors, ctx) => {
-  const seen = new Map<string, number>();
-  sensors.forEach((sensor, i) => {
-    const id = isRecord(sensor) ? sensor.id : undefined;
-    if (typeof id !== 'string') return;
-    const first = seen.get(id);
-    if (first === undefined) seen.set(id, i);
-    else ctx.addIssue({ code: 'custom', path: [i, 'id'], message: `"${id}" is already the id of sensors[${first}]; ids must be unique` });
-  });
-}, ON_ANY_LIST);
-
-const reflectorSchema = z.strictObject(
-  {
-    label: text(MAX_LABEL_CHARS),
-    axis: oneOf(['x', 'y', 'z']),
-    position_m: num({ range: PLANE_POSITION_RANGE_M, unit: 'm' }),
-    reflection: num({ range: [-1, 1], unit: '' }),
-  },
-  { error: objectMessage },
-);
-
-const SPACER_IDS = SPACER_MATERIALS.map((m) => m.id) as [string, ...string[]];
-
-const digitiserSchema = z
-  .strictObject(
-    {
-      sampleRate_Hz: num({ range: PLAN_LIMITS.sampleRate_Hz, unit: 'Hz' }),
-      recordLength_s: num({ range: PLAN_LIMITS.recordLength_s, unit: 's' }),
-      preTrigger_s: num({ range: PLAN_LIMITS.preTrigger_s, unit: 's' }),
-    },
-    { error: objectMessage },
-  )
-  .superRefine((d, ctx) => {
-    if (isNumber(d.preTrigger_s) && isNumber(d.recordLength_s) && d.preTrigger_s > d.recordLength_s) {
-      ctx.addIssue({ code: 'custom', path: ['preTrigger_s'], message: `must be at most recordLength_s (${formatValue(d.recordLength_s, 's')}) (got ${plain(d.preTrigger_s)})` });
-    }
-  }, ON_ANY_OBJECT);
-
-/** The schema of a version-1 plan file. */
-export const PLAN_FILE_SCHEMA = z.strictObject(
-  {
-    format: z.literal(PLAN_FORMAT, { error: `must be "${PLAN_FORMAT}"` }),
-    version: z.literal(CURRENT_PLAN_VERSION, { error: `must be ${CURRENT_PLAN_VERSION}` }),
-    name: text(MAX_NAME_CHARS),
-    notes: z
-      .string({ error: (issue) => `must be text (got ${show(issue.input)})` })
-      .max(MAX_NOTES_CHARS, { error: `must be at most ${MAX_NOTES_CHARS} characters` })
-      .optional(),
-    bath: bathSchema,
-    heater: heaterSchema,
-    sensors: sensorsSchema,
-    spacer: z.strictObject({ materialId: oneOf(SPACER_IDS), measuredWarm: flag() }, { error: objectMessage }),
-    reflectors: list(reflectorSchema, 0, MAX_REFLECTORS, 'reflecting planes'),
-    echoOrder: num({ range: [0, MAX_ECHO_ORDER], unit: '', integer: true }),
-    digitiser: digitiserSchema,
-    targets: z.strictObject(
-      {
-        snr: num({ range: PLAN_LIMITS.snr, unit: '' }),
-        temperatureSd_K: num({ range: PLAN_LIMITS.temperatureSd_K, unit: 'K' }),
-      },
-      { error: objectMessage },
-    ),
-  },
-  { error: objectMessage },
-);
-
-/** The schema's output and the documented {@link PlanFile} must describe the same thing (checked by tsc). */
-type MutuallyAssignable<A, B> = [A] extends [B] ? ([B] extends [A] ? true : false) : false;
-const schemaMatchesInterface: MutuallyAssignable<z.output<typeof PLAN_FILE_SCHEMA>, PlanFile> = true;
-void schemaMatchesInterface;
-
-function heaterArea(h: { geometry?: unknown; area_m2?: unknown; radius_m?: unknown }): number | null {
-  if (h.geometry === 'disk') return isNumber(h.radius_m) ? Math.PI * h.radius_m * h.radius_m : null;
-  return isNumber(h.area_m2) ? h.area_m2 : null;
-}
-
-// ---------------------------------------------------------------------------------------------
-// Versions.
-
-/** A step that turns a plan of one version (its key in the table) into the next version. */
-export type PlanMigration = (plan: Record<string, unknown>) => Record<string, unknown>;
-
-/**
- * Steps from older versions, keyed by the version they start from. Version 1 is the first, so the
- * table is empty; when version 2 arrives, `1: (plan) => …` goes here and old files keep loading.
- */
-export const PLAN_MIGRATIONS: Readonly<Record<number, PlanMigration>> = {};
-
-/**
- * Brings a plan from `fromVersion` up to `toVersion` through the migration table, one version at a
- * time (each step's result gets the next version number). Returns the messages if a step is missing.
- */
-export function migratePlan(
-  plan: Record<string, unknown>,
-  fromVersion: number,
-  migrations: Readonly<Record<number, PlanMigration>> = PLAN_MIGRATIONS,
-  toVersion: number = CURRENT_PLAN_VERSION,
-): { ok: true; plan: Record<string, unknown> } | { ok: false; errors: string[] } {
-  let current = plan;
-  for (let version = fromVersion; version < toVersion; version++) {
-    const step = Object.hasOwn(migrations, version) ? migrations[version] : undefined;
-    if (!step) return { ok: false, errors: [`version: no way to read version ${version} files (this Sekundo reads version ${toVersion})`] };
-    current = { ...step(current), version: version + 1 };
-  }
-  return { ok: true, plan: current };
-}
+export * from './plan-file-types';
+export { PLAN_FILE_SCHEMA, planHeaterArea } from './plan-file-schema';
+export { migratePlan, PLAN_MIGRATIONS, type PlanMigration, planV1toV2 } from './plan-migrations';
+export { formatPlanRange } from './plan-range-text';
 
 // ---------------------------------------------------------------------------------------------
 // Reading.
@@ -672,7 +176,8 @@ export function parsePlanFile(text: string): PlanFileParse {
     return { ok: false, errors: [`format: must be "${PLAN_FORMAT}" (got ${show(raw.format)}); is this a Sekundo plan file?`] };
   }
   const version = raw.version;
-  const readable = CURRENT_PLAN_VERSION === 1 ? 'version 1' : `versions 1–${CURRENT_PLAN_VERSION}`;
+  const readable = `versions 1–${CURRENT_PLAN_VERSION}`;
+  // Older versions are read through plan-migrations.ts, with a note of what changed.
   if (typeof version !== 'number' || !Number.isInteger(version) || version < 1) {
     return { ok: false, errors: [`version: must be a whole number; this Sekundo reads ${readable} (got ${show(version)})`] };
   }
@@ -683,7 +188,7 @@ export function parsePlanFile(text: string): PlanFileParse {
   if (!migrated.ok) return migrated;
   const result = PLAN_FILE_SCHEMA.safeParse(migrated.plan, { reportInput: true });
   if (!result.success) return { ok: false, errors: capped(issueMessages(result.error.issues)) };
-  return { ok: true, plan: result.data as PlanFile };
+  return { ok: true, plan: result.data as PlanFile, migrated: migrated.notes };
 }
 
 // ---------------------------------------------------------------------------------------------
@@ -737,13 +242,12 @@ function pulseShape(shape: PlanFileShape): PulseShape {
 
 /**
  * The kernel's input for a plan file: the temperature from the reading, power from flux × area,
- * on-axis distances as positions [0, 0, d], area and radius of the heater filled in from each other.
- * Throws the kernel's errors only for what the schema cannot see (none are known today).
+ * on-axis distances as positions [0, 0, d], the heater's size for its geometry, planes without a
+ * typed R as solid walls. Throws the kernel's errors only for what the schema cannot see.
  */
 export function planFileToInput(plan: PlanFile): PlanInput {
   const h = plan.heater;
-  const area = h.geometry === 'disk' ? Math.PI * (h.radius_m as number) ** 2 : (h.area_m2 as number);
-  const radius = h.geometry === 'disk' ? (h.radius_m as number) : Math.sqrt(area / Math.PI);
+  const area = planHeaterArea(h) as number;
   const power = h.power_W ?? (h.flux_W_m2 as number) * area;
   const shape = pulseShape(h.shape);
   const width = shape.kind === 'custom' ? (shape.points[shape.points.length - 1]?.[0] ?? 0) : (h.width_s as number);
@@ -752,8 +256,11 @@ export function planFileToInput(plan: PlanFile): PlanInput {
     liquidDepth_m: plan.bath.liquidDepth_m,
     heater: {
       geometry: h.geometry,
+      width_m: h.width_m ?? 0,
+      height_m: h.height_m ?? 0,
+      radius_m: h.radius_m ?? 0,
+      mount: h.mount ?? 'wall',
       area_m2: area,
-      radius_m: radius,
       power_W: power,
       shape,
       width_s: width,
@@ -772,10 +279,10 @@ export function planFileToInput(plan: PlanFile): PlanInput {
       lag_s: s.lag_s,
     })),
     spacer: { materialId: plan.spacer.materialId, measuredWarm: plan.spacer.measuredWarm },
-    reflectors: plan.reflectors.map((r) => ({ label: r.label, axis: r.axis, position_m: r.position_m, reflection: r.reflection })),
+    reflectors: plan.reflectors.map((r) => ({ label: r.label, axis: r.axis, position_m: r.position_m, reflection: r.reflection ?? null })),
     echoOrder: plan.echoOrder,
     digitiser: { ...plan.digitiser },
-    targets: { ...plan.targets },
+    targets: { ...plan.targets, temperatureKind: plan.targets.temperatureKind },
   };
 }
 
@@ -788,6 +295,8 @@ const KERNEL_FIELDS: readonly (readonly [RegExp, (m: RegExpExecArray) => string]
   [/^liquid depth$/, () => 'bath.liquidDepth_m'],
   [/^heater radius$/, () => 'heater.radius_m'],
   [/^heater area$/, () => 'heater.area_m2'],
+  [/^heater width$/, () => 'heater.width_m'],
+  [/^heater height$/, () => 'heater.height_m'],
   [/^heater power$/, () => 'heater'],
   [/^pulse width$/, () => 'heater.width_s'],
   [/^rise time$/, () => 'heater.riseTime_s'],

@@ -41,31 +41,66 @@ export {
 } from './vapour-pressure';
 export { coldLength, type ColdLength, PATH_LENGTH_RANGE_M, SPACER_MATERIALS, type SpacerMaterial, spacerMaterial } from './contraction';
 export { imageSources, MAX_ECHO_ORDER, type ReflectingPlane, type SourceImage, type Vec3 } from './image-sources';
+export { computePlan } from './planner';
 export {
-  computePlan,
-  COUNTERFLOW_NOTE_M_S,
-  type EchoArrival,
-  LAMBDA_SHIFT_K_PER_PA,
-  LARGE_AMPLITUDE_K,
+  checkPlanInput,
+  heaterArea_m2,
+  heaterFace,
   PLAN_LIMITS,
   type PlanHeater,
   type PlanInput,
-  type PlanResult,
+  type PlanReflector,
   type PlanSensor,
-  type PlanWarning,
+  type TemperatureTargetKind,
+} from './plan-input';
+export type {
+  EchoArrival,
+  HeaterPlanResult,
+  PlanePlanResult,
+  PlanResult,
+  PlanWarning,
+  SensorPlanResult,
+  UnreachableReason,
+  WarningCode,
+} from './plan-result';
+export {
+  COUNTERFLOW_CAUTION_OF_U2,
+  COUNTERFLOW_NOTE_M_S,
+  COUNTERFLOW_STOP_OF_U2,
+  LAMBDA_SHIFT_K_PER_PA,
+  LARGE_AMPLITUDE_K,
   SAMPLES_PER_EDGE,
-  type SensorPlanResult,
-  STRONG_FLUX_W_M2_AT_1MS,
-  type WarningCode,
-} from './planner';
+  STRONG_FLUX_CAUTION_OF_LIMIT,
+} from './plan-warnings';
+export { MAX_TARGET_DISTANCE_M } from './sensor-plan';
+export { ON_PLANE_M } from './plan-geometry';
+export {
+  faceArea,
+  faceReach,
+  type HeaterFace,
+  nearestEdge_m,
+  planeWaveRange_m,
+  ringAngleInsideDisk,
+  ringAngleInsideRectangle,
+  ringAngleOnFace,
+} from './heater-face';
+export { addPistonPulse, type FootPoint, MAX_PHI_SAMPLES, type PistonCase } from './piston-response';
+export {
+  GORTER_MELLINK_A_M_S_KG,
+  gorterMellinkConstant,
+  heatConductivityFunctionUnchecked,
+  strongHeatingFlux,
+  timeToLambda,
+} from './gorter-mellink';
+export { KAPITZA_CONDUCTANCE_W_M2K4, kapitzaConductance, type WallReflection, wallReflection } from './wall-reflection';
 export { CUSTOM_PULSE_MAX_POINTS, PULSE_WIDTH_RANGE_S, type PulseProfile, type PulseShape, pulseProfile } from './pulse-shape';
 export {
   type HeaterGeometry,
   type Medium,
+  type PointMount,
   type PulseSource,
   type ReceivedPulse,
   receivedPulse,
-  ringAngleInsideDisk,
   type SampledSignal,
   type SensorPoint,
 } from './received-pulse';
@@ -73,6 +108,8 @@ export {
   secondSoundCurvature,
   secondSoundRelativeSd,
   shortestDistanceForResolution,
+  type ShortestDistance,
+  shortestDistanceForTarget,
   type TemperatureSpread,
   temperatureSpread,
 } from './temperature-resolution';

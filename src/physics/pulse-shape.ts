@@ -31,6 +31,12 @@ export interface PulseProfile {
   value(t: number): number;
   /** ∫₀ᵗ f dt′, s: 0 before the onset, `area_s` after the end. */
   integral(t: number): number;
+  /**
+   * The pulse as straight lines through these corners (times s, strictly increasing; relative
+   * amplitude), zero before the first and after the last, when it is exactly that (rectangle,
+   * custom); null for a curved pulse (half-sine).
+   */
+  corners: { t: Float64Array; f: Float64Array } | null;
 }
 
 /**
@@ -42,7 +48,10 @@ export function averageOverStep(profile: PulseProfile, t: number, h: number): nu
 }
 
 function trapezoid(width: number, rise: number): PulseProfile {
+  const t = rise < width ? [0, rise, width, width + rise] : [0, rise, width + rise];
+  const f = rise < width ? [0, 1, 1, 0] : [0, 1, 0];
   return {
+    corners: { t: Float64Array.from(t), f: Float64Array.from(f) },
     duration_s: width + rise,
     area_s: width,
     effectiveRise_s: rise,
@@ -67,6 +76,7 @@ function trapezoid(width: number, rise: number): PulseProfile {
 
 function halfSine(width: number): PulseProfile {
   return {
+    corners: null,
     duration_s: width,
     area_s: (2 * width) / Math.PI,
     effectiveRise_s: width / Math.PI,
@@ -127,6 +137,7 @@ function piecewiseLinear(points: readonly (readonly [number, number])[]): PulseP
     return t1 > t0 ? f0 + (((fs[i + 1] as number) - f0) * (t - t0)) / (t1 - t0) : f0;
   };
   return {
+    corners: { t: ts, f: fs },
     duration_s: ts[last] as number,
     area_s: area,
     effectiveRise_s: steepest > 0 ? 1 / steepest : (ts[last] as number),

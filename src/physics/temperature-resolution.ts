@@ -102,3 +102,40 @@ export function shortestDistanceForResolution(T: number, targetSd_K: number, tim
   const k = u / Math.abs(slope);
   return (k * Math.hypot(distanceSd_m, timingSd_s * u)) / targetSd_K;
 }
+
+/** Shortest distance for a target, or why there is none. */
+export type ShortestDistance =
+  | { ok: true; distance_m: number }
+  | { ok: false; reason: 'model-sd' | 'insensitive' | 'beyond-range'; figure: number };
+
+/**
+ * Shortest heater–sensor distance (m) at which one reading meets a temperature target at T.
+ * absolute: σ_T² = (k/d)²(σ_d² + (σ_t u2)²) + σ_model², k = u2/|du2/dT|, σ_model the u2 curve's own
+ * share, which no distance removes — not reachable when it is at or above the target. change:
+ * σ_T = k σ_t u2/d (the distance error is common to every reading). Not reachable at an extremum
+ * of u2 (du2/dT = 0), or beyond `maxDistance_m`. Inputs SI; throws on bad input.
+ */
+export function shortestDistanceForTarget(
+  T: number,
+  target: { sd_K: number; kind: 'absolute' | 'change' },
+  timingSd_s: number,
+  distanceSd_m: number,
+  maxDistance_m: number,
+): ShortestDistance {
+  requireInRange('temperature', T, MODEL_MIN_K, T_LAMBDA_K, 'K');
+  requireInRange('target temperature sd', target.sd_K, 1e-12, 10, 'K');
+  requireInRange('timing sd', timingSd_s, 0, 1e3, 's');
+  requireInRange('distance sd', distanceSd_m, 0, 100, 'm');
+  const at = secondSoundUnchecked(T);
+  if (at.slope === 0) return { ok: false, reason: 'insensitive', figure: 0 };
+  const k = at.value / Math.abs(at.slope);
+  let d: number;
+  if (target.kind === 'change') d = (k * timingSd_s * at.value) / target.sd_K;
+  else {
+    const model = k * secondSoundRelativeSdUnchecked(T, at);
+    if (model >= target.sd_K) return { ok: false, reason: 'model-sd', figure: model };
+    d = (k * Math.hypot(distanceSd_m, timingSd_s * at.value)) / Math.sqrt(target.sd_K ** 2 - model ** 2);
+  }
+  if (!(d <= maxDistance_m)) return { ok: false, reason: 'beyond-range', figure: d };
+  return { ok: true, distance_m: d };
+}

@@ -3,14 +3,15 @@ import { useSekundoStore } from '../store';
 import { ChoiceGroup, EditorCard } from './EditorCard';
 import { PlanFieldMessage, PlanNumberField } from './PlanField';
 import { PulseShapeEditor } from './PulseShapeEditor';
-import { type DriveMode, driveMode, type Geometry, setDriveMode, setGeometry } from './plan-edits';
+import { type DriveMode, driveMode, type HeaterChoice, heaterChoice, setDriveMode, setGeometry } from './plan-edits';
 import { HEATER_FIELDS } from './plan-fields';
 import { PLAN_OTHER_HELP } from './planner-help';
 
 const GEOMETRIES = [
-  { value: 'planar', label: 'Planar film' },
+  { value: 'rectangle', label: 'Rectangle (film)' },
   { value: 'disk', label: 'Disk' },
-  { value: 'point', label: 'Point' },
+  { value: 'point-wall', label: 'Point, on a wall (2π)' },
+  { value: 'point-free', label: 'Point, free in the liquid (4π)' },
 ] as const;
 
 const DRIVES = [
@@ -18,15 +19,16 @@ const DRIVES = [
   { value: 'power', label: 'Power' },
 ] as const;
 
-const GEOMETRY_NOTE: Record<Geometry, string> = {
-  planar: 'Wider than the path: a plane wave.',
-  disk: 'Flat disk in a wall: pulses turn bipolar and fall as 1/z far away.',
-  point: 'Small heater: the signal follows dP/dt.',
+const GEOMETRY_NOTE: Record<HeaterChoice, string> = {
+  rectangle: 'Computed with its size (a baffled piston): a plane wave on short paths, a shorter bipolar pulse beyond.',
+  disk: 'Flat disk in a wall, computed with its size: pulses turn bipolar and fall as 1/z far away.',
+  'point-wall': 'Small heater in a wall, radiating into a half space: the signal follows dP/dt.',
+  'point-free': 'Small heater standing in the liquid, radiating all round (4π): half the on-wall signal.',
 };
 
 /** The heater: geometry and size, drive, pulse shape and timing, repetition and averaging. */
 export function HeaterEditor() {
-  const geometry = useSekundoStore((s) => s.plannerPlan.heater.geometry);
+  const geometry = useSekundoStore((s) => heaterChoice(s.plannerPlan));
   const drive = useSekundoStore((s) => driveMode(s.plannerPlan));
   const edit = useSekundoStore((s) => s.editPlanner);
   const geometryHelp = useFieldHelp('heater geometry', PLAN_OTHER_HELP['heater.geometry']);
@@ -42,7 +44,7 @@ Heater geometry
             className="plan-select"
             value={geometry}
             aria-describedby={describedBy('planner-geometry-note', geometryHelp.describedBy)}
-            onChange={(event) => edit('heater.geometry', (p) => setGeometry(p, event.target.value as Geometry))}
+            onChange={(event) => edit('heater.geometry', (p) => setGeometry(p, event.target.value as HeaterChoice))}
           >
             {GEOMETRIES.map((g) => (
               <option key={g.value} value={g.value}>
@@ -57,8 +59,13 @@ Heater geometry
         </div>
         {geometry === 'disk' ? (
           <PlanNumberField field={HEATER_FIELDS.radius} label="Disk radius" />
+        ) : geometry === 'rectangle' ? (
+          <>
+            <PlanNumberField field={HEATER_FIELDS.sideX} label="Heater width" />
+            <PlanNumberField field={HEATER_FIELDS.sideY} label="Heater height" />
+          </>
         ) : (
-          <PlanNumberField field={HEATER_FIELDS.area} label={geometry === 'point' ? 'Nominal area (for the flux)' : 'Heater area'} />
+          <PlanNumberField field={HEATER_FIELDS.area} label="Nominal area (for the flux)" />
         )}
         <ChoiceGroup<DriveMode> legend="Drive given as" name="planner-drive" value={drive} options={DRIVES} onChange={(m) => edit('heater.drive', (p) => setDriveMode(p, m))}
           help={PLAN_OTHER_HELP['heater.drive']}

@@ -10,12 +10,13 @@ export const DEMO_PLAN_URL = './demo-plan.json';
 export const BUILT_IN_PLAN: PlanFile = {
   format: PLAN_FORMAT,
   version: CURRENT_PLAN_VERSION,
-  name: 'Built-in starting plan: film heater, two bolometers at 20 and 40 mm',
+  name: 'Built-in starting plan: 10 mm × 10 mm film heater, two bolometers at 20 and 40 mm',
   notes: 'Sekundo’s own starting point (invented numbers), used when the demo plan cannot be loaded.',
   bath: { temperature_K: 1.8, liquidDepth_m: 0.2 },
   heater: {
-    geometry: 'planar',
-    area_m2: 1e-4,
+    geometry: 'rectangle',
+    width_m: 0.01,
+    height_m: 0.01,
     flux_W_m2: 1000,
     shape: 'rectangle',
     width_s: 1e-4,
@@ -31,5 +32,5 @@ export const BUILT_IN_PLAN: PlanFile = {
   reflectors: [],
   echoOrder: 2,
   digitiser: { sampleRate_Hz: 1e7, recordLength_s: 0.01, preTrigger_s: 5e-4 },
-  targets: { snr: 100, temperatureSd_K: 1e-3 },
+  targets: { snr: 100, temperatureSd_K: 1e-4, temperatureKind: 'change' },
 };

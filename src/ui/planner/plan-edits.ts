@@ -2,7 +2,7 @@
  * Changes to a plan that are not a typed number: modes, shapes, lists of sensors and planes.
  * Each returns a new plan (plans are never mutated); the store checks it before using it.
  */
-import { MAX_REFLECTORS, type PlanFile, type PlanFileHeater, type PlanFileSensor, planBath } from '../../io/plan-file';
+import { MAX_REFLECTORS, type PlanFile, type PlanFileHeater, type PlanFileSensor, planBath, planHeaterArea } from '../../io/plan-file';
 import { parseQuantity } from '../../io/quantity';
 import { CUSTOM_PULSE_MAX_POINTS, PLAN_LIMITS, vapourPressure } from '../../physics';
 import type { PlanEdit } from './plan-fields';
@@ -12,6 +12,8 @@ export type DriveMode = 'power' | 'flux';
 export type ShapeKind = 'rectangle' | 'half-sine' | 'custom';
 export type PositionMode = 'axis' | 'xyz';
 export type Geometry = PlanFileHeater['geometry'];
+/** The heater kinds the page offers: a point source comes on a wall or free in the liquid. */
+export type HeaterChoice = 'rectangle' | 'disk' | 'point-wall' | 'point-free';
 
 export const MAX_SENSORS = PLAN_LIMITS.sensorCount[1];
 export { MAX_REFLECTORS };
@@ -48,18 +50,30 @@ export function setBathMode(plan: PlanFile, mode: BathMode): PlanEdit {
 // Heater
 
 function heaterArea(h: PlanFileHeater): number {
-  return h.geometry === 'disk' ? Math.PI * (h.radius_m ?? 0) ** 2 : (h.area_m2 ?? 0);
+  return planHeaterArea(h) ?? 0;
 }
 
-/** Changes the heater geometry; the size carries over (a disk of the same area, or the disk's area). */
-export function setGeometry(plan: PlanFile, geometry: Geometry): PlanFile {
+const SIZE_KEYS = ['width_m', 'height_m', 'radius_m', 'mount', 'area_m2'] as const;
+
+export function heaterChoice(plan: PlanFile): HeaterChoice {
   const h = plan.heater;
-  if (h.geometry === geometry) return plan;
+  return h.geometry === 'point' ? (h.mount === 'free' ? 'point-free' : 'point-wall') : h.geometry;
+}
+
+/**
+ * Changes the heater kind; the size carries over (a square or disk of the same area; a point keeps
+ * the area as its nominal one).
+ */
+export function setGeometry(plan: PlanFile, choice: HeaterChoice): PlanFile {
+  if (heaterChoice(plan) === choice) return plan;
+  const h = plan.heater;
   const area = heaterArea(h);
-  const heater: PlanFileHeater =
-    geometry === 'disk'
-      ? { ...omit(h, 'area_m2'), geometry, radius_m: Number(Math.sqrt(area / Math.PI).toPrecision(6)) }
-      : { ...omit(h, 'radius_m'), geometry, area_m2: Number(area.toPrecision(6)) };
+  const rest = omit(h, ...SIZE_KEYS);
+  const sig = (x: number) => Number(x.toPrecision(6));
+  let heater: PlanFileHeater;
+  if (choice === 'disk') heater = { ...rest, geometry: 'disk', radius_m: sig(Math.sqrt(area / Math.PI)) };
+  else if (choice === 'rectangle') heater = { ...rest, geometry: 'rectangle', width_m: sig(Math.sqrt(area)), height_m: sig(Math.sqrt(area)) };
+  else heater = { ...rest, geometry: 'point', mount: choice === 'point-free' ? 'free' : 'wall', area_m2: sig(area) };
   return { ...plan, heater };
 }
 
@@ -252,16 +266,32 @@ export function setSpacer(plan: PlanFile, spacer: Partial<PlanFile['spacer']>): 
   return { ...plan, spacer: { ...plan.spacer, ...spacer } };
 }
 
-/** A new plane across the axis beyond the farthest sensor, reflecting 0.4. */
+/** A new plane across the axis beyond the farthest sensor: a solid wall (R from the Kapitza conductance). */
 export function addReflector(plan: PlanFile): PlanFile {
   const farthest = Math.max(0, ...plan.sensors.map(sensorDistance));
   const n = plan.reflectors.length + 1;
   const position = Number((farthest + 0.01).toPrecision(6));
-  return { ...plan, reflectors: [...plan.reflectors, { label: `plane ${n}`, axis: 'z', position_m: position, reflection: 0.4 }] };
+  return { ...plan, reflectors: [...plan.reflectors, { label: `plane ${n}`, axis: 'z', position_m: position }] };
 }
 
 export function removeReflector(plan: PlanFile, index: number): PlanFile {
   return { ...plan, reflectors: plan.reflectors.filter((_, i) => i !== index) };
+}
+
+/** A solid wall (R computed) or a measured R (starting at 0.99, to be typed over). */
+export function setReflectionSource(plan: PlanFile, index: number, source: 'wall' | 'measured'): PlanFile {
+  return {
+    ...plan,
+    reflectors: plan.reflectors.map((r, i) => {
+      if (i !== index) return r;
+      if (source === 'wall') return omit(r, 'reflection');
+      return r.reflection === undefined ? { ...r, reflection: 0.99 } : r;
+    }),
+  };
+}
+
+export function setTargetKind(plan: PlanFile, kind: 'absolute' | 'change'): PlanFile {
+  return { ...plan, targets: { ...plan.targets, temperatureKind: kind } };
 }
 
 export function setReflector(plan: PlanFile, index: number, change: { label?: string; axis?: 'x' | 'y' | 'z' }): PlanFile {

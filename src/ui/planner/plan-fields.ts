@@ -150,7 +150,7 @@ export const BATH_FIELDS = {
 // ---------------------------------------------------------------------------------------------
 // Heater
 
-type HeaterKey = 'area_m2' | 'radius_m' | 'power_W' | 'flux_W_m2' | 'width_s' | 'riseTime_s' | 'repetitionRate_Hz' | 'averages';
+type HeaterKey = 'area_m2' | 'width_m' | 'height_m' | 'radius_m' | 'power_W' | 'flux_W_m2' | 'width_s' | 'riseTime_s' | 'repetitionRate_Hz' | 'averages';
 
 function heaterField(key: HeaterKey, fieldKey: string, label: string, kind: QuantityKind | null, range: NumberField['range'], extra: Partial<NumberField> = {}): NumberField {
   return {
@@ -165,7 +165,9 @@ function heaterField(key: HeaterKey, fieldKey: string, label: string, kind: Quan
 }
 
 export const HEATER_FIELDS = {
-  area: heaterField('area_m2', 'area', 'Heater area', KINDS.area, PLAN_LIMITS.heaterArea_m2),
+  area: heaterField('area_m2', 'area', 'Nominal area', KINDS.area, PLAN_LIMITS.heaterArea_m2),
+  sideX: heaterField('width_m', 'sideX', 'Heater width', KINDS.length, PLAN_LIMITS.heaterSide_m),
+  sideY: heaterField('height_m', 'sideY', 'Heater height', KINDS.length, PLAN_LIMITS.heaterSide_m),
   radius: heaterField('radius_m', 'radius', 'Heater radius', KINDS.length, PLAN_LIMITS.heaterRadius_m),
   power: heaterField('power_W', 'power', 'Peak power', KINDS.power, PLAN_LIMITS.power_W),
   flux: heaterField('flux_W_m2', 'flux', 'Peak heat flux', KINDS.heatFlux, FLUX_RANGE_W_M2),

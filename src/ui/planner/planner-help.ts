@@ -13,7 +13,7 @@ import {
   CUSTOM_PULSE_MAX_POINTS,
   SAMPLES_PER_EDGE,
   SPACER_MATERIALS,
-  STRONG_FLUX_W_M2_AT_1MS,
+  strongHeatingFlux,
   T_LAMBDA_K,
   vapourPressure,
 } from '../../physics';
@@ -36,7 +36,8 @@ interface NumberTopic {
 
 /** Saturated vapour pressure at a temperature, kPa, for typical-value text (from the kernel's ITS-90 curve). */
 const kPaAt = (T_K: number) => (vapourPressure(T_K).pressure_Pa / 1000).toPrecision(2);
-const STRONG_FLUX_W_CM2 = STRONG_FLUX_W_M2_AT_1MS / 1e4;
+/** The strong-heating flux for a 1 ms pulse at 1.8 K, W/cm² (the kernel's Gorter–Mellink estimate). */
+const STRONG_FLUX_W_CM2 = Number((strongHeatingFlux(1.8, 1e-3) / 1e4).toPrecision(2));
 
 /** Number fields by help key: the field key without its row (sensor.distance, plane.position, pulse.time). */
 export const PLAN_NUMBER_HELP: Readonly<Record<string, NumberTopic>> = {
@@ -53,11 +54,19 @@ export const PLAN_NUMBER_HELP: Readonly<Record<string, NumberTopic>> = {
     typical: 'a few cm to about 1 m in a bath cryostat',
   },
   'heater.area': {
-    what: 'Area of the heater’s face. With the heat flux it fixes the power (P = q·A). For a point heater it is a nominal area, used only to turn power into flux.',
-    typical: 'a few mm² to a few cm² for a film heater',
+    what: 'Nominal area of a small (point) heater, used only to turn power into flux; its pulse follows dP/dt and does not depend on it.',
+    typical: 'a few mm² or less',
+  },
+  'heater.sideX': {
+    what: 'Width of a film heater (along x). Every sized heater is computed as a baffled piston: the plane-wave value q/(ρ cₚ u₂) holds only up to about a²/(2u₂τ), a half the shorter side; beyond, the pulse turns short and bipolar.',
+    typical: 'a few mm to a few cm for a film heater',
+  },
+  'heater.sideY': {
+    what: 'Height of a film heater (along y). With the width it fixes the area and so the power (P = q·A).',
+    typical: 'a few mm to a few cm for a film heater',
   },
   'heater.radius': {
-    what: 'Radius of a disk heater set flush in a wall. Far from a small disk the pulse falls as 1/z and turns bipolar.',
+    what: 'Radius of a disk heater set flush in a wall, computed as a baffled piston. Far from a small disk the pulse falls as 1/z and turns bipolar.',
     typical: 'a few mm',
   },
   'heater.power': {
@@ -66,7 +75,7 @@ export const PLAN_NUMBER_HELP: Readonly<Record<string, NumberTopic>> = {
   },
   'heater.flux': {
     what: 'Peak heat flux on the heater face, q = P/A. The temperature step of the pulse grows with it.',
-    typical: `tens to a few hundred mW/cm² for gentle, linear pulses; the planner warns as flux and width approach the strong regime (about ${STRONG_FLUX_W_CM2} W/cm² for a 1 ms pulse, more for shorter ones, ${RULE}), where vortices and boiling set in`,
+    typical: `tens to a few hundred mW/cm² for gentle, linear pulses; the planner cautions from half the strong-heating flux and stops at it (about ${STRONG_FLUX_W_CM2} W/cm² for a 1 ms pulse at 1.8 K, rising as τ^(−1/4) for shorter ones and changing with the bath; a one-dimensional Gorter–Mellink estimate), where the liquid at the heater reaches Tλ`,
   },
   'heater.width': {
     what: 'Duration of the heater pulse. A shorter pulse gives a sharper arrival (better timing); a longer one carries more energy.',
@@ -133,8 +142,8 @@ export const PLAN_NUMBER_HELP: Readonly<Record<string, NumberTopic>> = {
     typical: 'a wall or lid of the cell, tens of mm away',
   },
   'plane.reflection': {
-    what: 'Amplitude reflection coefficient R of a second-sound pulse at the plane: 1 sends the whole temperature pulse back, 0 absorbs it, a negative R inverts it. Real walls lie between, as part of the heat crosses into them.',
-    typical: 'between 0 and 1 for a solid wall, lower the more heat crosses into it',
+    what: 'A measured amplitude reflection coefficient R of the plane, used instead of the solid-wall value. A solid wall reflects R = (Z − h)/(Z + h), Z = ρ cₚ u₂ (about 8.5 MW/(m²·K) at 1.8 K) far above the Kapitza conductance h (order kW/(m²·K)), so R ≈ 1; type R only when you have measured a wall that absorbs more (a porous or heated surface).',
+    typical: 'leave as “solid wall” unless measured; 1 sends the whole temperature pulse back, 0 absorbs it',
   },
   echoOrder: {
     what: 'Most reflections followed along one echo path (0: direct arrivals only). Higher orders show later, weaker echoes on the timeline.',
@@ -157,7 +166,7 @@ export const PLAN_NUMBER_HELP: Readonly<Record<string, NumberTopic>> = {
     typical: `30–1000 (${RULE})`,
   },
   'targets.temperatureSd': {
-    what: 'One-sigma uncertainty of the bath temperature the time of flight should give; the planner finds the shortest path that reaches it at each sensor.',
+    what: 'One-sigma uncertainty the time of flight should give: of one absolute reading (judged with the sd that includes the u₂ curve’s own uncertainty) or of a change between readings (timing only), as chosen beside it; the planner says whether each sensor meets it and the shortest path that would.',
     typical: '0.1–1 mK',
   },
 };
@@ -204,8 +213,16 @@ export const PLAN_OTHER_HELP = {
     origin: fromPlan('The demo gives a vapour-pressure reading'),
   },
   'heater.geometry': {
-    what: 'How the heater’s pulse spreads. Planar film: wider than the paths, so the pulse travels as a plane wave. Disk: a flat disk flush in a wall; far away its pulse falls off as 1/z and turns bipolar. Point: a heater small against the paths; the signal follows the rate of change of its power.',
+    what: 'How the heater’s pulse spreads. Rectangle (a film, width × height) and disk: computed with their size as a baffled piston (Stepanishen 1971): on short paths the plane wave q/(ρ cₚ u₂), beyond about a²/(2u₂τ) a shorter, bipolar pulse falling as 1/z. Point on a wall: a small heater radiating into a half space (2π); point in the liquid: standing free, radiating into 4π — half the signal. A point’s signal follows dP/dt.',
     origin: fromPlan(),
+  },
+  'targets.kind': {
+    what: 'What the temperature sd target is for. An absolute reading: its sd includes the u₂ curve’s own uncertainty, which no distance removes. A change between readings: the distance error and the curve’s error are common to every reading, so only timing counts.',
+    origin: fromPlan('Files from version 1 read it as absolute'),
+  },
+  'plane.source': {
+    what: 'Where the plane’s R comes from: a solid wall, R = (Z − h)/(Z + h) from the second-sound impedance Z = ρ cₚ u₂ and an order-of-magnitude Kapitza conductance h ≈ 500·T³ W/(m²·K) (Pollack, Rev. Mod. Phys. 41, 48 (1969)), or a value you measured.',
+    origin: fromPlan('New planes are solid walls'),
   },
   'heater.drive': {
     what: 'Give the drive as peak heat flux on the face (q) or as peak power (P); the other follows from the area, P = q·A.',

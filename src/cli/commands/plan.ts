@@ -5,10 +5,12 @@
  */
 import { readFileSync, statSync } from 'node:fs';
 import {
+  CURRENT_PLAN_VERSION,
   explainPlanError,
   MAX_PLAN_FILE_CHARS,
   type PlanBath,
   type PlanFile,
+  type PlanMigrationNote,
   PLAN_FORMAT,
   parsePlanFile,
   planBath,
@@ -70,19 +72,34 @@ export const planCommand: Command = {
     const json = args.flag(JSON_FLAG.name);
     const withWaveforms = args.flag(WAVEFORM_FLAG.name);
     if (withWaveforms && !json) throw new UsageError('--waveform needs --json: the waveforms are only printed as JSON');
-    const plan = loadPlan(path);
+    const { plan, migrated } = loadPlanWithNotes(path);
     const { bath, result } = runPlan(path, plan);
-    if (json) writeJson(io, planJson(path, plan, bath, result, withWaveforms));
-    else io.stdout(`${renderPlanReport(path, plan, bath, result).join('\n')}\n`);
+    if (json) writeJson(io, { ...planJson(path, plan, bath, result, withWaveforms), migrated });
+    else io.stdout(`${[...migrationLines(migrated), ...renderPlanReport(path, plan, bath, result)].join('\n')}\n`);
     return EXIT_OK;
   },
 };
 
 /** Reads and validates a plan file; every problem becomes one UsageError line. */
 export function loadPlan(path: string): PlanFile {
+  return loadPlanWithNotes(path).plan;
+}
+
+/** What reading an older plan file changed, as lines before the report. */
+function migrationLines(notes: readonly PlanMigrationNote[]): string[] {
+  if (notes.length === 0) return [];
+  return [
+    `Note: this file is plan format version ${notes[0]?.fromVersion}; it was read as version ${CURRENT_PLAN_VERSION}:`,
+    ...notes.flatMap((n) => n.changes).map((c) => `  - ${c}`),
+    '',
+  ];
+}
+
+/** {@link loadPlan} with the notes of any migration from an older version. */
+export function loadPlanWithNotes(path: string): { plan: PlanFile; migrated: PlanMigrationNote[] } {
   const text = readPlanText(path);
   const parsed = parsePlanFile(text);
-  if (parsed.ok) return parsed.plan;
+  if (parsed.ok) return { plan: parsed.plan, migrated: parsed.migrated };
   const shown = parsed.errors.slice(0, MESSAGES_SHOWN);
   const more = parsed.errors.length - shown.length;
   throw new UsageError(`plan file "${path}" is not valid: ${shown.join('; ')}${more > 0 ? `; and ${more} more` : ''}`);
@@ -135,7 +152,19 @@ export function planJson(path: string, plan: PlanFile, bath: PlanBath, result: P
     bath: { ...bath, liquidDepth_m: plan.bath.liquidDepth_m, headPressure_Pa: result.headPressure_Pa },
     temperature_K: result.temperature_K,
     properties: result.properties,
-    heater: { geometry: plan.heater.geometry, shape: shapeName(plan), repetitionRate_Hz: plan.heater.repetitionRate_Hz, averages: plan.heater.averages, ...result.heater },
+    heater: {
+      geometry: plan.heater.geometry,
+      width_m: plan.heater.width_m ?? null,
+      height_m: plan.heater.height_m ?? null,
+      radius_m: plan.heater.radius_m ?? null,
+      mount: plan.heater.mount ?? null,
+      shape: shapeName(plan),
+      repetitionRate_Hz: plan.heater.repetitionRate_Hz,
+      averages: plan.heater.averages,
+      ...result.heater,
+    },
+    planes: result.planes,
+    targets: plan.targets,
     record: result.record,
     sensors: result.sensors.map(({ waveform, ...sensor }) => ({
       ...sensor,
@@ -144,6 +173,20 @@ export function planJson(path: string, plan: PlanFile, bath: PlanBath, result: P
     warnings: result.warnings.map((w) => ({ code: w.code, severity: w.severity, message: w.message, sensorId: w.sensorId, value: w.value, limit: w.limit })),
     ...(withWaveforms ? { heaterPulse: signalJson(result.heaterPulse) } : {}),
   };
+}
+
+function heaterSize(plan: PlanFile): string {
+  const h = plan.heater;
+  if (h.geometry === 'rectangle') return `rectangle ${sig((h.width_m ?? 0) * 1e3)} mm × ${sig((h.height_m ?? 0) * 1e3)} mm`;
+  if (h.geometry === 'disk') return `disk, radius ${sig((h.radius_m ?? 0) * 1e3)} mm`;
+  return `point source ${h.mount === 'free' ? 'free in the liquid (4π)' : 'on a wall (2π)'}`;
+}
+
+function planeWaveText(plan: PlanFile, result: PlanResult): string {
+  const h = result.heater;
+  if (h.planeWaveRange_m === null || h.planeWaveEdge_m === null) return 'a point source: its signal follows dP/dt at every distance';
+  const which = plan.heater.geometry === 'disk' ? 'the radius' : 'half the shorter side';
+  return `computed with its size (baffled piston); the plane-wave value holds for the whole pulse up to about ${sig(h.planeWaveRange_m * 1e3)} mm on the axis (a²/(2u₂τ), a = ${sig(h.planeWaveEdge_m * 1e3)} mm, ${which})`;
 }
 
 function shapeName(plan: PlanFile): 'rectangle' | 'half-sine' | 'custom' {
@@ -162,15 +205,20 @@ export function renderPlanReport(path: string, plan: PlanFile, bath: PlanBath, r
   const summary = alignTable(
     [
       ['Bath', `${formatKelvin(result.temperature_K)} K (${formatMillikelvin(result.temperature_K)} mK) ${source}; liquid depth ${formatPlain(plan.bath.liquidDepth_m)} m, head ${sig(result.headPressure_Pa)} Pa`],
-      ['Heater', `${plan.heater.geometry}, ${sig(fromBaseUnit(h.flux_W_m2, 'W/cm2'))} W/cm² = ${sig(h.power_W)} W peak; ${shape}, ${sig(h.duration_s * 1e6)} µs long, edges ${sig(h.effectiveRise_s * 1e6)} µs`],
+      ['Heater', `${heaterSize(plan)}, ${sig(fromBaseUnit(h.flux_W_m2, 'W/cm2'))} W/cm² = ${sig(h.power_W)} W peak; ${shape}, ${sig(h.duration_s * 1e6)} µs long, edges ${sig(h.effectiveRise_s * 1e6)} µs`],
+      ['', planeWaveText(plan, result)],
       ['', `${sig(h.energyPerPulse_J * 1e6)} µJ per pulse; ${formatPlain(plan.heater.repetitionRate_Hz)} Hz → ${sig(h.averagePower_W * 1e3)} mW on average; ${plan.heater.averages} pulses averaged`],
-      ['', `δT at the face q/(ρ c_p u₂) ${inUnit(h.faceDeltaT_K, 1e3)} mK; counterflow ${inUnit(h.counterflowVelocity_m_s, 1e2)} cm/s; shock after ${inUnit(h.shockDistance_m, 1e3)} mm`],
+      ['', `δT at the face q/(ρ c_p u₂) ${inUnit(h.faceDeltaT_K, 1e3)} mK; counterflow ${inUnit(h.counterflowVelocity_m_s, 1e2)} cm/s; shock after ${inUnit(h.shockDistance_m, 1e3)} mm${h.shockEdge ? ` (${h.shockEdge} edge steepens)` : ''}`],
+      ['', `strong heating from ${inUnit(h.strongHeatingFlux_W_m2, 1e-4, 3)} W/cm² for this pulse (the face reaches Tλ; 1-D Gorter–Mellink, an estimate good to about a factor 2)`],
+      ['Planes', result.planes.length === 0 ? 'none' : result.planes.map((p) => `${p.label} ${p.axis} = ${sig(p.position_m * 1e3)} mm cold, R = ${p.reflection.toFixed(4)} (${p.source === 'measured' ? 'measured' : 'solid wall'})`).join('; ')],
+      ...[...new Set(result.planes.map((p) => p.note))].map((note) => ['', note]),
+      ['Target', `SNR ${sig(plan.targets.snr)}; temperature sd ${sig(plan.targets.temperatureSd_K * 1e3)} mK for ${plan.targets.temperatureKind === 'absolute' ? 'an absolute reading (judged with the u₂ curve’s own sd)' : 'a change between readings (judged with the sd of changes)'}`],
       ['Record', `${formatPlain(result.record.start_s * 1e3)} to ${formatPlain(result.record.end_s * 1e3)} ms around the pulse, a sample every ${formatPlain(result.record.sampleInterval_s * 1e6)} µs`],
     ],
     ['left', 'left'],
   );
   const rows: string[][] = [
-    ['Sensor', 'Label', 'Path (mm)', 'u₁ at (ms)', 'u₂ at (ms)', 'δT (mK)', 'SNR avg', 'σT (mK)', 'Echoes'],
+    ['Sensor', 'Label', 'Path (mm)', 'u₁ at (ms)', 'u₂ at (ms)', 'δT (mK)', 'SNR avg', 'σT (mK)', 'σT judged (mK)', 'Meets', 'Shortest (mm)', 'Echoes'],
     ...result.sensors.map((s) => [
       s.id,
       s.label,
@@ -180,10 +228,17 @@ export function renderPlanReport(path: string, plan: PlanFile, bath: PlanBath, r
       inUnit(s.amplitude_K, 1e3),
       sig(s.snrAveraged, 3),
       inUnit(s.temperatureSd_K, 1e3, 3),
+      inUnit(s.targetKind === 'absolute' ? s.temperatureSdWithModel_K : s.temperatureChangeSd_K, 1e3, 3),
+      s.meetsTarget === null ? ABSENT : s.meetsTarget ? 'yes' : 'no',
+      s.shortestDistanceForTarget_m === null ? 'not reachable' : sig(s.shortestDistanceForTarget_m * 1e3, 3),
       String(s.echoes.length),
     ]),
   ];
-  const lines = [`Plan: ${plan.name}`, `File: ${path}`, '', ...summary, '', ...alignTable(rows, ['left', 'left', 'right', 'right', 'right', 'right', 'right', 'right', 'right'])];
+  const lines = [`Plan: ${plan.name}`, `File: ${path}`, '', ...summary, '', ...alignTable(rows, ['left', 'left', 'right', 'right', 'right', 'right', 'right', 'right', 'right', 'left', 'right', 'right'])];
+  const unreachable = result.sensors.filter((s) => s.shortestDistanceNote !== '');
+  if (unreachable.length > 0) lines.push('', ...unreachable.map((s) => `${s.id}: ${s.shortestDistanceNote}`));
+  const onWall = result.sensors.filter((s) => s.onPlane !== null);
+  if (onWall.length > 0) lines.push(...onWall.map((s) => `${s.id}: on the plane "${s.onPlane}", so it sees the incident wave plus its reflection, (1 + R) times.`));
   const echoRows = result.sensors.flatMap((s) =>
     s.echoes.map((e) => [s.id, `${e.order} (${e.path.join(' → ')})`, `${sig(e.arrival_s * 1e3)} ms`, `${sig(e.amplitude_K * 1e3)} mK`]),
   );

@@ -1,9 +1,19 @@
-import { EditorCard } from './EditorCard';
+import { useSekundoStore } from '../store';
+import { setTargetKind } from './plan-edits';
+import { PLAN_OTHER_HELP } from './planner-help';
+import { ChoiceGroup, EditorCard } from './EditorCard';
 import { PlanNumberField } from './PlanField';
 import { DIGITISER_FIELDS, TARGET_FIELDS } from './plan-fields';
 
+const TARGET_KINDS = [
+  { value: 'absolute', label: 'an absolute reading' },
+  { value: 'change', label: 'a change between readings' },
+] as const;
+
 /** How the signal is recorded, and what the measurement must reach. */
 export function DigitiserEditor() {
+  const kind = useSekundoStore((s) => s.plannerPlan.targets.temperatureKind);
+  const edit = useSekundoStore((s) => s.editPlanner);
   return (
     <EditorCard id="planner-digitiser" title="Digitiser and targets">
       <div className="plan-grid">
@@ -12,6 +22,14 @@ export function DigitiserEditor() {
         <PlanNumberField field={DIGITISER_FIELDS.preTrigger} label="Pre-trigger" hint="Recorded before the heater pulse starts." />
         <PlanNumberField field={TARGET_FIELDS.snr} label="Target SNR" hint="Peak signal over rms noise, averaged." />
         <PlanNumberField field={TARGET_FIELDS.temperatureSd} label="Target temperature sd" hint="One sigma, e.g. 1 mK or 50 uK." />
+        <ChoiceGroup<'absolute' | 'change'>
+          legend="Target is for"
+          name="planner-target-kind"
+          value={kind}
+          options={TARGET_KINDS}
+          onChange={(k) => edit('targets.kind', (p) => setTargetKind(p, k))}
+          help={PLAN_OTHER_HELP['targets.kind']}
+        />
       </div>
     </EditorCard>
   );

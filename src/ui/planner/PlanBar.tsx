@@ -4,7 +4,7 @@ import { describePlanMessage } from './plan-paths';
 import { loadDemoPlan } from './load-demo';
 import { PlanTextField } from './PlanField';
 import { setPlanName } from './plan-edits';
-import { downloadPlanFile, readPlanFile } from './plan-file-actions';
+import { downloadPlanFile, migrationText, readPlanFile } from './plan-file-actions';
 import { useRecomputeTimes } from './recompute-timer';
 import { WarningCounts } from './WarningsList';
 
@@ -17,7 +17,7 @@ const SOURCE_LABEL = {
   link: 'From a shared link',
 } as const;
 
-/** The plan's name and origin, opening and saving plan files, and the last recompute time. */
+/** The plan's name and origin, opening and saving plan files. */
 export function PlanBar() {
   const source = useSekundoStore((s) => s.plannerSource);
   const plan = useSekundoStore((s) => s.plannerPlan);
@@ -29,7 +29,8 @@ export function PlanBar() {
     const read = await readPlanFile(file);
     if (read.ok) {
       setFileProblem(null);
-      load(read.plan, { kind: 'file', note: `Opened “${file.name}”.` });
+      const migrated = migrationText(read.migrated);
+      load(read.plan, { kind: 'file', note: `Opened “${file.name}”.${migrated ? ` ${migrated}` : ''}` });
     } else {
       setFileProblem({ name: file.name, errors: read.errors });
     }
@@ -107,20 +108,20 @@ export function PlanBar() {
   );
 }
 
-/** "Recomputed in 6.2 ms": edit → results and timeline redrawn, measured in this browser. */
+/**
+ * The edit → redrawn results and timeline time, measured in this browser, kept as data attributes
+ * for the browser tests and benchmarks only: it is not shown to users.
+ */
 function RecomputeTime() {
   const times = useRecomputeTimes();
-  if (times.timeline_ms === null) return <span className="recompute-time" data-recompute-ms="" />;
-  const map = times.map_ms === null ? '' : `; map ${times.map_ms.toFixed(1)} ms`;
+  if (times.timeline_ms === null) return <span className="recompute-time" data-recompute-ms="" hidden />;
   return (
     <span
       className="recompute-time"
+      hidden
       data-recompute-ms={times.timeline_ms.toFixed(2)}
       data-map-ms={times.map_ms?.toFixed(2) ?? ''}
       data-edits={times.edits}
-      title="From the edit to the redrawn results and timeline, measured in this browser"
-    >
-      Recomputed in {times.timeline_ms.toFixed(1)} ms{map}
-    </span>
+    />
   );
 }

@@ -40,7 +40,6 @@ const COLUMNS: readonly Column[] = [
   { key: 'timing', header: 'Timing sd', about: 'One-sigma arrival time of one averaged reading', ladder: 'time', uncertainty: true, value: (s) => s.timingSd_s, digits: 2 },
   { key: 'tsd', header: 'T sd', about: 'One-sigma temperature from one reading (timing and distance)', ladder: 'temperatureDifference', value: (s) => s.temperatureSd_K, digits: 2 },
   { key: 'tchange', header: 'T sd, changes', about: 'One-sigma of a temperature change between readings (timing only)', ladder: 'temperatureDifference', value: (s) => s.temperatureChangeSd_K, digits: 2 },
-  { key: 'shortest', header: 'Shortest distance for target', about: 'Shortest path that reaches the target temperature sd with this timing', ladder: 'length', value: (s) => s.shortestDistanceForTarget_m, digits: 3 },
 ];
 
 /** Every sensor's arrivals, signal, noise and temperature resolution, one row per sensor. */
@@ -72,6 +71,12 @@ export function ResultsTable() {
                   {units[i] ? <span className="results-unit"> ({(units[i] as DisplayUnit).shown})</span> : null}
                 </th>
               ))}
+              <th scope="col" title="Whether the sd the target is for (absolute reading with the u₂ curve's own sd, or change between readings) reaches it">
+                Meets target?
+              </th>
+              <th scope="col" title="Shortest path that reaches the target with this sensor's timing, or why none does">
+                Shortest distance for target
+              </th>
               <th scope="col" title="Near an extremum of u2 the delay hardly changes with temperature">
                 Sensitivity
               </th>
@@ -89,6 +94,8 @@ export function ResultsTable() {
                     {cellText(c.value(s), c, units[i] ?? null)}
                   </td>
                 ))}
+                <td data-column="meets">{meetsText(s)}</td>
+                <td data-column="shortest">{s.shortestDistanceForTarget_m === null ? <span title={s.shortestDistanceNote}>not reachable: {s.shortestDistanceNote.replace(/^Not reachable( for [^:]*)?: /, '')}</span> : formatLength(s.shortestDistanceForTarget_m, ladders)}</td>
                 <td>{sensitivity(s)}</td>
               </tr>
             ))}
@@ -103,6 +110,19 @@ function cellText(value: number | null, column: Column, unit: DisplayUnit | null
   if (value === null || !Number.isFinite(value)) return '—';
   if (column.count) return value.toLocaleString('en-GB');
   return formatSignificant(unit ? inUnit(value, unit) : value, column.digits ?? 4);
+}
+
+function formatLength(x: number, ladders: ShownLadders): string {
+  const unit = unitForColumn([x], ladders.length);
+  return `${formatSignificant(inUnit(x, unit), 3)} ${unit.shown}`;
+}
+
+/** "yes (change sd 0.09 mK)": the verdict and which sd it used. */
+function meetsText(s: SensorPlanResult): string {
+  if (s.meetsTarget === null) return '—';
+  const sd = s.targetKind === 'absolute' ? s.temperatureSdWithModel_K : s.temperatureChangeSd_K;
+  const which = s.targetKind === 'absolute' ? 'absolute sd with the u₂ curve' : 'sd of changes';
+  return `${s.meetsTarget ? 'yes' : 'no'} (${which}, ${sd === null ? '—' : `${formatSignificant(sd * 1e3, 2)} mK`})`;
 }
 
 function sensitivity(s: SensorPlanResult): ReactNode {

@@ -3,7 +3,8 @@ import { describedBy, type FieldHelpParts, HelpColumnHead, HelpLabel, useFieldHe
 import { useSekundoStore } from '../store';
 import { EditorCard } from './EditorCard';
 import { PlanFieldMessage, PlanNumberField, PlanTextField } from './PlanField';
-import { MAX_REFLECTORS, setReflector, setSpacer } from './plan-edits';
+import { MAX_REFLECTORS, setReflectionSource, setReflector, setSpacer } from './plan-edits';
+import { usePlanOutcome } from './use-plan';
 import { ECHO_ORDER_FIELD, fieldRangeText, reflectorFields } from './plan-fields';
 import { PLAN_OTHER_HELP, planNumberHelp } from './planner-help';
 import { RemoveIcon } from './RowIcons';
@@ -74,7 +75,10 @@ function Reflectors() {
     axis: useFieldHelp('plane axis', PLAN_OTHER_HELP['plane.axis']),
     position: useFieldHelp('plane position', planNumberHelp(reflectorFields(0, '').position, positionRange)),
     reflection: useFieldHelp('reflection coefficient R', planNumberHelp(reflectorFields(0, '').reflection, reflectionRange)),
+    source: useFieldHelp('where R comes from', PLAN_OTHER_HELP['plane.source']),
   };
+  const outcome = usePlanOutcome();
+  const heaterPlate = outcome.ok ? outcome.result.planes.find((p) => p.source === 'heater-plate') : undefined;
   return (
     <div className="reflectors">
       <div className="card-head reflectors__head">
@@ -91,15 +95,19 @@ function Reflectors() {
             {help.label.panel}
             {help.axis.panel}
             {help.position.panel}
+            {help.source.panel}
             {help.reflection.panel}
           </div>
           <table className="plan-table reflectors-table">
-            <caption className="field-hint reflectors__caption">Each plane is “axis = position” (z = across the heater axis, x or y = a side wall); R is the amplitude reflection coefficient.</caption>
+            <caption className="field-hint reflectors__caption">
+              Each plane is “axis = position” (z = across the heater axis, x or y = a side wall), measured like the sensors (warm planes shrink with the spacer). A solid wall reflects R = (Z − h)/(Z + h) ≈ 1; give a measured R only for a wall you have measured.
+            </caption>
             <thead>
               <tr>
                 <HelpColumnHead help={help.label}>Label</HelpColumnHead>
                 <HelpColumnHead help={help.axis}>Plane</HelpColumnHead>
                 <HelpColumnHead help={help.position}>Position</HelpColumnHead>
+                <HelpColumnHead help={help.source}>R from</HelpColumnHead>
                 <HelpColumnHead help={help.reflection}>R</HelpColumnHead>
                 <th scope="col">
                   <span className="visually-hidden">Actions</span>
@@ -112,6 +120,7 @@ function Reflectors() {
           </table>
         </>
       )}
+      {heaterPlate ? <p className="field-hint reflectors__plate">{heaterPlate.note}</p> : null}
     </div>
   );
 }
@@ -122,13 +131,18 @@ interface PlaneColumnHelp {
   axis: FieldHelpParts;
   position: FieldHelpParts;
   reflection: FieldHelpParts;
+  source: FieldHelpParts;
 }
 
 function ReflectorRow({ index, rowKey, help }: { index: number; rowKey: string; help: PlaneColumnHelp }) {
   const plane = useSekundoStore((s) => s.plannerPlan.reflectors[index]);
   const edit = useSekundoStore((s) => s.editPlanner);
   const remove = useSekundoStore((s) => s.removePlannerReflector);
+  const outcome = usePlanOutcome();
   if (!plane) return null;
+  const used = outcome.ok ? outcome.result.planes.filter((p) => p.source !== 'heater-plate')[index] : undefined;
+  const measured = plane.reflection !== undefined;
+  const sourceKey = `plane.${rowKey}.source`;
   const n = index + 1;
   const fields = reflectorFields(index, rowKey);
   const labelKey = `plane.${rowKey}.label`;
@@ -164,7 +178,25 @@ function ReflectorRow({ index, rowKey, help }: { index: number; rowKey: string; 
           <PlanNumberField field={fields.position} label={`Plane ${n} position`} labelHidden message="elsewhere" describedBy={help.position.describedBy} />
         </td>
         <td>
-          <PlanNumberField field={fields.reflection} label={`Plane ${n} reflection R`} labelHidden message="elsewhere" describedBy={help.reflection.describedBy} />
+          <select
+            className="plan-select plan-select--small"
+            aria-label={`Plane ${n} R from`}
+            aria-describedby={help.source.describedBy}
+            value={measured ? 'measured' : 'wall'}
+            onChange={(event) => edit(sourceKey, (p) => setReflectionSource(p, index, event.target.value as 'wall' | 'measured'))}
+          >
+            <option value="wall">solid wall</option>
+            <option value="measured">measured</option>
+          </select>
+        </td>
+        <td>
+          {measured ? (
+            <PlanNumberField field={fields.reflection} label={`Plane ${n} reflection R`} labelHidden message="elsewhere" describedBy={help.reflection.describedBy} />
+          ) : (
+            <span className="plane-r" title={used?.note}>
+              {used ? used.reflection.toFixed(4) : '—'}
+            </span>
+          )}
         </td>
         <td className="row-actions">
           <button type="button" className="icon-button" aria-label={`Remove plane ${n} (${plane.label})`} title="Remove" onClick={() => remove(index)}>
@@ -172,7 +204,14 @@ function ReflectorRow({ index, rowKey, help }: { index: number; rowKey: string; 
           </button>
         </td>
       </tr>
-      <RowMessages keys={[labelKey, axisKey, fields.position.key, fields.reflection.key]} colSpan={5} />
+      {used ? (
+        <tr className="plane-note">
+          <td colSpan={6} className="field-hint">
+            {used.note}
+          </td>
+        </tr>
+      ) : null}
+      <RowMessages keys={[labelKey, axisKey, sourceKey, fields.position.key, fields.reflection.key]} colSpan={6} />
     </tbody>
   );
 }

@@ -1,12 +1,20 @@
-import { type PlanFile, parsePlanFile, serializePlanFile } from '../../io/plan-file';
+import { type PlanFile, type PlanFileParse, type PlanMigrationNote, parsePlanFile, serializePlanFile } from '../../io/plan-file';
 
-/** Reads a plan file chosen by the user: the plan, or every problem found (the current plan is kept). */
-export async function readPlanFile(file: File): Promise<{ ok: true; plan: PlanFile } | { ok: false; errors: string[] }> {
+/** Reads a plan file chosen by the user: the plan (with what reading an older version changed), or every problem found (the current plan is kept). */
+export async function readPlanFile(file: File): Promise<PlanFileParse> {
   try {
     return parsePlanFile(await file.text());
   } catch (error) {
     return { ok: false, errors: [`plan: the file could not be read (${error instanceof Error ? error.message : String(error)})`] };
   }
+}
+
+/** "Read as version 2 from a version 1 file: heater: …; targets: …" — or '' when nothing was migrated. */
+export function migrationText(notes: readonly PlanMigrationNote[]): string {
+  const changes = notes.flatMap((n) => n.changes);
+  if (notes.length === 0) return '';
+  const from = notes[0]?.fromVersion ?? 0;
+  return `Written by an older Sekundo (plan format version ${from}) and brought up to date${changes.length > 0 ? `: ${changes.join('; ')}.` : '.'} Save the plan to keep it in the new format.`;
 }
 
 /** A file name for a plan: its name in lower case, words joined by hyphens. */

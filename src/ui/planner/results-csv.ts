@@ -23,7 +23,10 @@ export function resultsCsv(result: PlanResult): CsvTableData {
       'temperatureSd_K',
       'temperatureChangeSd_K',
       'temperatureSdWithModel_K',
+      'targetKind',
+      'meetsTarget',
       'shortestDistanceForTarget_m',
+      'shortestDistanceNote',
       'insensitive',
     ],
     rows: result.sensors.map((s) => [
@@ -42,7 +45,10 @@ export function resultsCsv(result: PlanResult): CsvTableData {
       s.temperatureSd_K,
       s.temperatureChangeSd_K,
       s.temperatureSdWithModel_K,
+      s.targetKind,
+      s.meetsTarget,
       s.shortestDistanceForTarget_m,
+      s.shortestDistanceNote,
       s.secondSoundArrival_s === null ? null : s.insensitive,
     ]),
   };

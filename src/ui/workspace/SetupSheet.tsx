@@ -139,13 +139,18 @@ function PlanSummary({ plan, result, vapour_Pa }: { plan: PlanFile; result: Plan
   const rows: [string, string][] = [
     ['Bath temperature (T90)', `${temperatureText(result.temperature_K, L.temperature)}${vapour_Pa !== null ? ` (from a vapour pressure of ${readText(vapour_Pa, L.pressure, 5)})` : ''}`],
     ['Liquid above the setup', `${q(plan.bath.liquidDepth_m, L.length)} (head ${q(result.headPressure_Pa, L.pressure, 3)})`],
-    ['Heater', `${h.geometry}, ${h.geometry === 'disk' ? `radius ${q(h.radius_m, L.length)}` : `area ${q(h.area_m2, LADDERS.area)}`}`],
+    ['Heater', heaterText(plan, result, L)],
+    ['Heater limits', `strong heating from ${q(result.heater.strongHeatingFlux_W_m2, L.heatFlux, 2)} for this pulse (face reaches Tλ; 1-D Gorter–Mellink estimate, about ×2); counterflow ${result.heater.counterflowVelocity_m_s === null ? '—' : `${formatSignificant(result.heater.counterflowVelocity_m_s * 100, 3)} cm/s`}; shock after ${q(result.heater.shockDistance_m, L.length, 3)}${result.heater.shockEdge ? ` (${result.heater.shockEdge} edge)` : ''}`],
     ['Pulse', `${shape}${h.width_s !== undefined ? `, width ${q(h.width_s, L.time)}` : ''}, peak ${q(result.heater.power_W, LADDERS.power)} (${q(result.heater.flux_W_m2, L.heatFlux)})`],
     ['Repetition and averaging', `${n(h.repetitionRate_Hz, 4)} Hz, ${h.averages} pulses averaged; ${energy(result.heater.energyPerPulse_J)} per pulse, mean power ${q(result.heater.averagePower_W, LADDERS.power)}`],
     ['Digitiser', `${q(plan.digitiser.sampleRate_Hz, LADDERS.sampleRate)}, record ${q(plan.digitiser.recordLength_s, L.time)}, pre-trigger ${q(plan.digitiser.preTrigger_s, L.time)}`],
     ['Spacer', `${plan.spacer.materialId}; distances measured ${plan.spacer.measuredWarm ? 'warm (contraction applied)' : 'cold'}`],
-    ['Reflecting planes', plan.reflectors.length === 0 ? 'none' : plan.reflectors.map((r) => `${r.label} (${r.axis} = ${q(r.position_m, L.length)}, r = ${n(r.reflection)})`).join('; ')],
-    ['Targets', `SNR ${n(plan.targets.snr)}, temperature sd ${q(plan.targets.temperatureSd_K, LADDERS.temperatureDifference)}`],
+    [
+      'Reflecting planes (cold)',
+      result.planes.length === 0 ? 'none' : result.planes.map((r) => `${r.label} (${r.axis} = ${q(r.position_m, L.length)}, R = ${r.reflection.toFixed(4)}, ${r.source === 'measured' ? 'measured' : 'solid wall'})`).join('; '),
+    ],
+    ['Why these R', result.planes.length === 0 ? '—' : [...new Set(result.planes.map((r) => r.note))].join(' ')],
+    ['Targets', `SNR ${n(plan.targets.snr)}, temperature sd ${q(plan.targets.temperatureSd_K, LADDERS.temperatureDifference)} for ${plan.targets.temperatureKind === 'absolute' ? 'an absolute reading (u₂ curve included)' : 'a change between readings'}`],
   ];
   return (
     <section className="sheet-section">
@@ -162,6 +167,23 @@ function PlanSummary({ plan, result, vapour_Pa }: { plan: PlanFile; result: Plan
       </table>
     </section>
   );
+}
+
+function heaterText(plan: PlanFile, result: PlanResult, L: ShownLadders): string {
+  const h = plan.heater;
+  const size =
+    h.geometry === 'rectangle'
+      ? `rectangle ${q(h.width_m, L.length)} × ${q(h.height_m, L.length)}`
+      : h.geometry === 'disk'
+        ? `disk, radius ${q(h.radius_m, L.length)}`
+        : `point source ${h.mount === 'free' ? 'free in the liquid (4π)' : 'on a wall (2π)'}, nominal area ${q(h.area_m2, LADDERS.area)}`;
+  const range = result.heater.planeWaveRange_m;
+  const which = h.geometry === 'disk' ? 'the radius' : 'half the shorter side';
+  const plane =
+    range === null || result.heater.planeWaveEdge_m === null
+      ? ''
+      : `; computed with its size (baffled piston): the plane-wave value ${q(result.heater.faceDeltaT_K, LADDERS.temperatureDifference, 3)} holds up to about ${q(range, L.length, 3)} on the axis (a²/(2u₂τ), a = ${q(result.heater.planeWaveEdge_m, L.length, 3)}, ${which})`;
+  return `${size}${plane}`;
 }
 
 function firstEcho(s: SensorPlanResult, L: ShownLadders): string {
@@ -207,7 +229,7 @@ function Arrivals({ result }: { result: PlanResult }) {
         </tbody>
       </table>
       <p className="sheet-small">
-        Times after the heater pulse starts; second sound includes each sensor's lag. Record: {q(result.record.start_s, L.time)} to {q(result.record.end_s, L.time)}.
+        Times after the heater pulse starts; first and second sound both include each sensor's lag. Record: {q(result.record.start_s, L.time)} to {q(result.record.end_s, L.time)}.
       </p>
     </section>
   );
@@ -246,7 +268,10 @@ function Resolution({ plan, result }: { plan: PlanFile; result: PlanResult }) {
             <th scope="col">T sd</th>
             <th scope="col">T sd with u2 table</th>
             <th scope="col">T sd of changes</th>
-            <th scope="col">Meets target ({q(plan.targets.temperatureSd_K, LADDERS.temperatureDifference, 3)})?</th>
+            <th scope="col">
+              Meets target ({q(plan.targets.temperatureSd_K, LADDERS.temperatureDifference, 3)}, {plan.targets.temperatureKind === 'absolute' ? 'absolute, by the sd with the u2 table' : 'change, by the sd of changes'})?
+            </th>
+            <th scope="col">Shortest distance for target</th>
           </tr>
         </thead>
         <tbody>
@@ -257,7 +282,11 @@ function Resolution({ plan, result }: { plan: PlanFile; result: PlanResult }) {
               <td>{q(s.temperatureSd_K, LADDERS.temperatureDifference, 2)}</td>
               <td>{q(s.temperatureSdWithModel_K, LADDERS.temperatureDifference, 2)}</td>
               <td>{q(s.temperatureChangeSd_K, LADDERS.temperatureDifference, 2)}</td>
-              <td>{s.temperatureSd_K === null ? '—' : s.temperatureSd_K <= plan.targets.temperatureSd_K ? 'yes' : 'no'}{s.insensitive ? ' (insensitive here)' : ''}</td>
+              <td>
+                {s.meetsTarget === null ? '—' : s.meetsTarget ? 'yes' : 'no'}
+                {s.insensitive ? ' (insensitive here)' : ''}
+              </td>
+              <td>{s.shortestDistanceForTarget_m === null ? s.shortestDistanceNote || '—' : q(s.shortestDistanceForTarget_m, LADDERS.length, 3)}</td>
             </tr>
           ))}
         </tbody>

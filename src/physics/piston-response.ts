@@ -22,9 +22,9 @@ import { averageOverStep, type PulseProfile } from './pulse-shape';
  */
 
 /** Most Φ samples per arrival: Φ is smooth between its few kinks, so more buy no accuracy worth the time. */
-export const MAX_PHI_SAMPLES = 256;
+export const MAX_PHI_SAMPLES = 1024;
 /** Fewest Φ samples, even for a far (nearly point-like) view of the face. */
-const MIN_PHI_SAMPLES = 4;
+const MIN_PHI_SAMPLES = 16;
 
 export interface PistonCase {
   face: HeaterFace;
@@ -71,13 +71,15 @@ function phiTable(c: PistonCase, points: readonly FootPoint[], span: { first_s: 
   const dtau = spread / n;
   const phi = new Float64Array(n + 1);
   for (let i = 0; i <= n; i++) {
-    const R = (span.first_s + i * dtau) * c.u;
+    // The last node takes Φ just inside the farthest point: on a disk's axis Φ drops from 2π to 0
+    // there at once, and the straight line to the next (zero) node must not smear that drop.
+    const tau = i === n ? span.last_s - 1e-6 * dtau : span.first_s + i * dtau;
+    const R = tau * c.u;
     const s = Math.sqrt(Math.max(0, R * R - c.z * c.z));
     let sum = 0;
     for (const p of points) sum += p.w * ringAngleOnFace(c.face, s, p.px, p.py);
     phi[i] = sum;
   }
-  phi[n] = 0; // the ring has left the face at the farthest point
   const psi = new Float64Array(n + 1);
   const psi2 = new Float64Array(n + 1);
   for (let i = 0; i < n; i++) {

@@ -1,17 +1,21 @@
 import type { PlanInput } from '../../src/physics';
 
 /**
- * A plain planning case for tests: planar film heater, one sensor on the axis, no reflectors,
- * no lag, a fast digitiser with a long record. Numbers are test settings, not data.
+ * A plain planning case for tests: an unbounded film (the plane-wave limit, so the plane-wave
+ * formulas the tests check hold exactly), one sensor on the axis, no reflectors, no lag, a fast
+ * digitiser with a long record. Numbers are test settings, not data.
  */
 export function basePlan(overrides: Partial<PlanInput> = {}): PlanInput {
   return {
     temperature_K: 1.8,
     liquidDepth_m: 0,
     heater: {
-      geometry: 'planar',
+      geometry: 'plane-wave',
       area_m2: 1e-4,
+      width_m: 0,
+      height_m: 0,
       radius_m: 0,
+      mount: 'wall',
       power_W: 0.1,
       shape: { kind: 'rectangle' },
       width_s: 100e-6,
@@ -26,7 +30,7 @@ export function basePlan(overrides: Partial<PlanInput> = {}): PlanInput {
     reflectors: [],
     echoOrder: 0,
     digitiser: { sampleRate_Hz: 1e8, recordLength_s: 0.1, preTrigger_s: 0.001 },
-    targets: { snr: 10, temperatureSd_K: 1e-3 },
+    targets: { snr: 10, temperatureSd_K: 1e-3, temperatureKind: 'absolute' },
     ...overrides,
   };
 }

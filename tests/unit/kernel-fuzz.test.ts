@@ -224,7 +224,7 @@ describe('planner entry points', () => {
     reflectors: [{ label: 'lid', axis: 'z', position_m: 0.05, reflection: 0.4 }],
     echoOrder: 2,
     digitiser: { sampleRate_Hz: 1e7, recordLength_s: 0.01, preTrigger_s: 1e-3 },
-    targets: { snr: 10, temperatureSd_K: 1e-3 },
+    targets: { snr: 10, temperatureSd_K: 1e-3, temperatureKind: 'absolute' },
   });
 
   it('computePlan with any numbers in a well-formed plan', () => {

@@ -99,7 +99,7 @@ describe('the demo plan', () => {
     );
     const text = serializePlanFile(custom);
     expect(text).toContain('[0.00001, 1]');
-    expect(text).toContain('"position_m": [0.004, 0, 0.025]');
+    expect(text).toContain('"position_m": [0.006, 0, 0.035]');
     expect(text).toContain('[1,2]');
     expect(loaded(text)).toEqual(custom);
   });
@@ -121,7 +121,7 @@ describe('malformed plans give field-level messages', () => {
     ['text for a boolean', (p) => (at(p).spacer.measuredWarm = 'yes'), ['spacer.measuredWarm: must be true or false (got "yes")']],
     ['list for an object', (p) => (at(p).digitiser = [1, 2]), ['digitiser: must be an object {…} (got a list of 2)']],
     ['null for an object', (p) => (at(p).targets = null), ['targets: must be an object {…} (got null)']],
-    ['unknown geometry', (p) => (at(p).heater.geometry = 'square'), ['heater.geometry: must be one of "planar", "disk", "point" (got "square")']],
+    ['unknown geometry', (p) => (at(p).heater.geometry = 'square'), ['heater.geometry: must be one of "rectangle", "disk", "point" (got "square")']],
     ['unknown shape', (p) => (at(p).heater.shape = 'triangle'), ['heater.shape: must be "rectangle", "half-sine" or {"custom"']],
     ['unknown axis', (p) => (at(p).reflectors[1].axis = 'w'), ['reflectors[1].axis: must be one of "x", "y", "z" (got "w")']],
     ['unknown material', (p) => (at(p).spacer.materialId = 'steel'), ['spacer.materialId: must be one of "stainless-304"', '(got "steel")']],
@@ -136,7 +136,7 @@ describe('malformed plans give field-level messages', () => {
     ['missing rise of a rectangle', (p) => delete at(p).heater.riseTime_s, ['heater.riseTime_s: required for a rectangle pulse']],
     // Extra fields.
     ['extra top-level field', (p) => (p.colour = 'red'), ['colour: unknown field; known fields: format, version, name']],
-    ['extra heater field', (p) => (at(p).heater.width_ms = 0.1), ['heater.width_ms: unknown field; known fields: geometry, area_m2', 'width_s']],
+    ['extra heater field', (p) => (at(p).heater.width_ms = 0.1), ['heater.width_ms: unknown field; known fields: geometry, width_m, height_m', 'width_s']],
     ['extra sensor field', (p) => (at(p).sensors[1].gain = 2), ['sensors[1].gain: unknown field']],
     ['extra field in a custom shape', (p) => (at(p).heater.shape = { custom: [[0, 0], [1e-5, 1]], kind: 'x' }), ['heater.shape.kind: unknown field; known fields: custom']],
     // Negative, zero and huge numbers.
@@ -161,14 +161,22 @@ describe('malformed plans give field-level messages', () => {
     [
       'disk heater given an area',
       (p) => (at(p).heater.geometry = 'disk'),
-      ['heater.radius_m: required for a disk heater, 1 µm–500 mm', 'heater.area_m2: not used for a disk heater (its area is πr²); give radius_m only'],
+      [
+        'heater.radius_m: required for a disk heater, 1 µm–500 mm',
+        'heater.width_m: not used for a disk heater; give radius_m',
+        'heater.height_m: not used for a disk heater; give radius_m',
+      ],
     ],
-    ['planar heater given a radius', (p) => (at(p).heater.radius_m = 0.005), ['heater.radius_m: only for a disk heater; a planar heater takes area_m2']],
+    ['rectangle heater given a radius', (p) => (at(p).heater.radius_m = 0.005), ['heater.radius_m: not used for a rectangle heater; give width_m and height_m']],
+    ['rectangle heater without its height', (p) => delete at(p).heater.height_m, ['heater.height_m: required for a rectangle heater, 1 µm–1 m']],
+    ['point heater without its mount', (p) => Object.assign(at(p).heater, { geometry: 'point', width_m: undefined, height_m: undefined, area_m2: 1e-6 }), ['heater.mount: required for a point heater: "wall" (radiates into 2π) or "free" (in the liquid, 4π)']],
+    ['mount neither wall nor free', (p) => Object.assign(at(p).heater, { geometry: 'point', width_m: undefined, height_m: undefined, area_m2: 1e-6, mount: 'ceiling' }), ['heater.mount: must be one of "wall", "free" (got "ceiling")']],
+    ['target kind missing', (p) => delete at(p).targets.temperatureKind, ['targets.temperatureKind: required']],
     ['power and flux both', (p) => (at(p).heater.power_W = 0.1), ['heater: give power_W or flux_W_m2, not both']],
     ['neither power nor flux', (p) => delete at(p).heater.flux_W_m2, ['heater: give the peak power_W (1 nW–10 kW) or the heat flux_W_m2']],
     [
       'flux × area above the power range',
-      (p) => Object.assign(at(p).heater, { flux_W_m2: 1e9, area_m2: 1 }),
+      (p) => Object.assign(at(p).heater, { flux_W_m2: 1e9, width_m: 1, height_m: 1 }),
       ['heater.flux_W_m2: flux × area gives 1 GW, outside the heater power range 1 nW–10 kW'],
     ],
     ['rise longer than the width', (p) => (at(p).heater.riseTime_s = 1e-3), ['heater.riseTime_s: must be 100 ps–100 µs (a millionth of width_s up to width_s) (got 0.001)']],
@@ -192,11 +200,11 @@ describe('malformed plans give field-level messages', () => {
     // Format and version.
     ['wrong format', (p) => (p.format = 'other-plan'), ['format: must be "sekundo-plan" (got "other-plan"); is this a Sekundo plan file?']],
     ['missing format', (p) => delete p.format, ['format: must be "sekundo-plan" (got nothing)']],
-    ['future version', (p) => (p.version = 2), ['version: this file is version 2, written by a newer Sekundo; this one reads version 1']],
-    ['version 0', (p) => (p.version = 0), ['version: must be a whole number; this Sekundo reads version 1 (got 0)']],
-    ['fractional version', (p) => (p.version = 1.5), ['version: must be a whole number; this Sekundo reads version 1 (got 1.5)']],
-    ['version as text', (p) => (p.version = '1'), ['version: must be a whole number; this Sekundo reads version 1 (got "1")']],
-    ['missing version', (p) => delete p.version, ['version: must be a whole number; this Sekundo reads version 1 (got nothing)']],
+    ['future version', (p) => (p.version = 3), ['version: this file is version 3, written by a newer Sekundo; this one reads versions 1–2']],
+    ['version 0', (p) => (p.version = 0), ['version: must be a whole number; this Sekundo reads versions 1–2 (got 0)']],
+    ['fractional version', (p) => (p.version = 1.5), ['version: must be a whole number; this Sekundo reads versions 1–2 (got 1.5)']],
+    ['version as text', (p) => (p.version = '1'), ['version: must be a whole number; this Sekundo reads versions 1–2 (got "1")']],
+    ['missing version', (p) => delete p.version, ['version: must be a whole number; this Sekundo reads versions 1–2 (got nothing)']],
   ];
 
   it.each(cases)('%s', (_name, mutate, expected) => {
@@ -341,9 +349,9 @@ describe('keys that mean something to JavaScript', () => {
 });
 
 describe('versions and migrations', () => {
-  it('version 1 is the first: the migration table is empty', () => {
-    expect(CURRENT_PLAN_VERSION).toBe(1);
-    expect(Object.keys(PLAN_MIGRATIONS)).toEqual([]);
+  it('version 2 is current and version 1 files are read through one step', () => {
+    expect(CURRENT_PLAN_VERSION).toBe(2);
+    expect(Object.keys(PLAN_MIGRATIONS)).toEqual(['1']);
   });
 
   it('migratePlan applies the steps in order and numbers each result', () => {
@@ -352,7 +360,7 @@ describe('versions and migrations', () => {
       2: (p: Record<string, unknown>) => ({ ...p, added: true }),
     };
     const result = migratePlan({ version: 1, old: 'x' }, 1, steps, 3);
-    expect(result).toEqual({ ok: true, plan: { version: 3, renamed: 'x', old: undefined, added: true } });
+    expect(result).toEqual({ ok: true, plan: { version: 3, renamed: 'x', old: undefined, added: true }, notes: [{ fromVersion: 1, changes: [] }, { fromVersion: 2, changes: [] }] });
   });
 
   it('migratePlan names a missing step', () => {
@@ -361,12 +369,12 @@ describe('versions and migrations', () => {
 
   it('a current file passes through migratePlan untouched', () => {
     const raw = demoJson();
-    expect(migratePlan(raw, CURRENT_PLAN_VERSION)).toEqual({ ok: true, plan: raw });
+    expect(migratePlan(raw, CURRENT_PLAN_VERSION)).toEqual({ ok: true, plan: raw, notes: [] });
   });
 
   it('a file from a future version is refused with a clear message', () => {
     expect(errorsAfter((p) => (p.version = CURRENT_PLAN_VERSION + 5))).toEqual([
-      `version: this file is version ${CURRENT_PLAN_VERSION + 5}, written by a newer Sekundo; this one reads version 1`,
+      `version: this file is version ${CURRENT_PLAN_VERSION + 5}, written by a newer Sekundo; this one reads versions 1–2`,
     ]);
   });
 });
@@ -394,15 +402,17 @@ describe('planFileToInput: what the user chose, as the kernel wants it', () => {
     expect(planBath(plan)).toEqual({ temperature_K: 1.65, vapourPressure_Pa: null, scale: null });
   });
 
-  it(`turns flux into power: 0.1 W/cm² on 1 cm² is 0.1 W (${SI_AREA})`, () => {
+  it(`turns flux into power: 0.1 W/cm² on 10 mm × 10 mm is 0.1 W (${SI_AREA})`, () => {
     const input = planFileToInput(loaded(DEMO_TEXT));
-    expect(input.heater.area_m2).toBe(1e-4);
+    expect(input.heater.area_m2).toBeCloseTo(1e-4, 18);
+    expect(input.heater.geometry).toBe('rectangle');
+    expect([input.heater.width_m, input.heater.height_m]).toEqual([0.01, 0.01]);
     expect(input.heater.power_W).toBeCloseTo(0.1, 15);
     expect(computePlan(input).heater.flux_W_m2).toBeCloseTo(1000, 9);
   });
 
   it('for a disk, flux × πr² is the power and πr² the area', () => {
-    const heater = { ...at(demoJson()).heater, geometry: 'disk', radius_m: 0.005, area_m2: undefined };
+    const heater = { ...at(demoJson()).heater, geometry: 'disk', radius_m: 0.005, width_m: undefined, height_m: undefined };
     const input = planFileToInput(loaded(JSON.stringify({ ...demoJson(), heater })));
     const area = Math.PI * 0.005 ** 2;
     expect(input.heater.radius_m).toBe(0.005);
@@ -420,7 +430,7 @@ describe('planFileToInput: what the user chose, as the kernel wants it', () => {
     expect(input.sensors.map((s) => s.position_m)).toEqual([
       [0, 0, 0.01],
       [0, 0, 0.025],
-      [0.004, 0, 0.025],
+      [0.006, 0, 0.035],
       [0, 0, 0.05],
     ]);
   });
@@ -440,7 +450,10 @@ describe('planFileToInput: what the user chose, as the kernel wants it', () => {
     const ROUNDING_M = 1e-15;
     expect(SPACER_MATERIALS.find((m) => m.id === 'stainless-304')?.contraction).toBe(0.003);
     const result = computePlan(planFileToInput(loaded(DEMO_TEXT)));
-    const expected = [0.01, 0.025, 0.025, 0.05].map((d) => d * (1 - 0.003));
+    // On the axis the shortest path is z; the off-axis sensor at x = 6 mm is 1 mm beyond the face's
+    // 5 mm half-width (the face itself is not shrunk), so its path runs from the face's edge.
+    const s = 1 - 0.003;
+    const expected = [0.01 * s, 0.025 * s, Math.hypot(0.035 * s, 0.006 * s - 0.005), 0.05 * s];
     result.sensors.forEach((sensor, i) => {
       expect(Math.abs(sensor.pathLength_m - (expected[i] as number))).toBeLessThanOrEqual(ROUNDING_M);
     });
@@ -448,7 +461,8 @@ describe('planFileToInput: what the user chose, as the kernel wants it', () => {
 
   it('leaves distances measured cold as they are', () => {
     const plan = loaded(JSON.stringify({ ...demoJson(), spacer: { materialId: 'stainless-304', measuredWarm: false } }));
-    expect(computePlan(planFileToInput(plan)).sensors.map((s) => s.pathLength_m)).toEqual([0.01, 0.025, 0.025, 0.05]);
+    const paths = computePlan(planFileToInput(plan)).sensors.map((s) => s.pathLength_m);
+    expect(paths).toEqual([0.01, 0.025, Math.hypot(0.035, 0.006 - 0.005), 0.05]);
   });
 });
 

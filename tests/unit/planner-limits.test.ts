@@ -13,7 +13,10 @@ import {
   type PlanInput,
   SAMPLES_PER_EDGE,
   STANDARD_GRAVITY_M_S2,
-  STRONG_FLUX_W_M2_AT_1MS,
+  COUNTERFLOW_CAUTION_OF_U2,
+  COUNTERFLOW_STOP_OF_U2,
+  STRONG_FLUX_CAUTION_OF_LIMIT,
+  strongHeatingFlux,
   T_LAMBDA_K,
   type WarningCode,
 } from '../../src/physics';
@@ -53,21 +56,38 @@ describe('planner warnings at their thresholds', () => {
     expect(w?.message).toMatch(/biased by about/);
   });
 
-  it('strong-flux: 1 W/cm² for a 1 ms pulse, scaling as τ^(−1/2)', () => {
+  it('strong-flux: caution from half the Gorter–Mellink limit q*(T, τ), stop at it (estimate, gorter-mellink.ts)', () => {
     const plan = withHeater(basePlan(), { width_s: 1e-3 - 1e-6, riseTime_s: 1e-6 });
-    const limit = STRONG_FLUX_W_M2_AT_1MS; // duration = width + rise = 1 ms
-    expect(codes(atFlux(plan, limit * ABOVE))).toContain('strong-flux');
-    expect(codes(atFlux(plan, limit * BELOW))).not.toContain('strong-flux');
-    const shortPlan = withHeater(basePlan(), { width_s: 10e-6 - 1e-7, riseTime_s: 1e-7 });
-    expect(codes(atFlux(shortPlan, 10 * limit * BELOW))).not.toContain('strong-flux');
-    expect(codes(atFlux(shortPlan, 10 * limit * ABOVE))).toContain('strong-flux');
+    const limit = strongHeatingFlux(1.8, 1e-3); // duration = width + rise = 1 ms
+    const severity = (flux: number) => computePlan(atFlux(plan, flux)).warnings.find((w) => w.code === 'strong-flux')?.severity ?? null;
+    expect(severity(limit * STRONG_FLUX_CAUTION_OF_LIMIT * BELOW)).toBe(null);
+    expect(severity(limit * STRONG_FLUX_CAUTION_OF_LIMIT * ABOVE)).toBe('caution');
+    expect(severity(limit * BELOW)).toBe('caution');
+    expect(severity(limit * ABOVE)).toBe('stop');
+    // Shorter pulses take more flux: q* ∝ τ^(−1/4).
+    expect(strongHeatingFlux(1.8, 1e-5) / limit).toBeCloseTo(100 ** 0.25, 6);
   });
 
-  it('counterflow: v_ns = q/(ρs·s·T) above 1 cm/s', () => {
+  it('counterflow: info above 1 cm/s, caution from 10 % of u₂, stop from 50 % of u₂ (w/u₂ the small-signal parameter; cut points common practice)', () => {
     const rhoS = p18.superfluidFraction * p18.density_kg_m3;
-    const flux = COUNTERFLOW_NOTE_M_S * rhoS * p18.entropy_J_kgK * 1.8;
-    expect(codes(atFlux(basePlan(), flux * ABOVE))).toContain('counterflow');
-    expect(codes(atFlux(basePlan(), flux * BELOW))).not.toContain('counterflow');
+    const perVelocity = rhoS * p18.entropy_J_kgK * 1.8; // q = w·ρs·s·T
+    const severity = (w: number) => computePlan(atFlux(basePlan(), w * perVelocity)).warnings.find((x) => x.code === 'counterflow')?.severity ?? null;
+    expect(severity(COUNTERFLOW_NOTE_M_S * BELOW)).toBe(null);
+    expect(severity(COUNTERFLOW_NOTE_M_S * ABOVE)).toBe('info');
+    expect(severity(COUNTERFLOW_CAUTION_OF_U2 * u2 * BELOW)).toBe('info');
+    expect(severity(COUNTERFLOW_CAUTION_OF_U2 * u2 * ABOVE)).toBe('caution');
+    expect(severity(COUNTERFLOW_STOP_OF_U2 * u2 * BELOW)).toBe('caution');
+    expect(severity(COUNTERFLOW_STOP_OF_U2 * u2 * ABOVE)).toBe('stop');
+  });
+
+  it('the issue’s cases: at 1.0 K, 1 W/cm² (422 cm/s) is a caution and 5 W/cm² (2110 cm/s, faster than u₂) a stop', () => {
+    const at1K = (flux: number) => computePlan(withHeater(basePlan({ temperature_K: 1.0 }), { power_W: flux * AREA, area_m2: AREA })).warnings.find((w) => w.code === 'counterflow');
+    const one = at1K(1e4);
+    expect(one?.severity).toBe('caution');
+    expect((one?.value ?? 0) * 100).toBeCloseTo(422, -1);
+    const five = at1K(5e4);
+    expect(five?.severity).toBe('stop');
+    expect(five?.value ?? 0).toBeGreaterThan(heliumProperties(1.0).secondSound_m_s as number);
   });
 
   it('echo-overlap: the first echo arrives before the direct pulse has passed', () => {
@@ -115,7 +135,7 @@ describe('planner warnings at their thresholds', () => {
 
   it('low-snr: averaged SNR under the target', () => {
     const dT = computePlan(basePlan()).sensors[0]?.amplitude_K as number;
-    const at = (noise: number) => withSensor(basePlan({ targets: { snr: 10, temperatureSd_K: 1e-3 } }), { noise_V: noise });
+    const at = (noise: number) => withSensor(basePlan({ targets: { snr: 10, temperatureSd_K: 1e-3, temperatureKind: 'absolute' } }), { noise_V: noise });
     expect(codes(at((dT / 10) * ABOVE))).toContain('low-snr');
     expect(codes(at((dT / 10) * BELOW))).not.toContain('low-snr');
   });
@@ -172,14 +192,31 @@ describe('temperature resolution (PHYSICS notes §6)', () => {
     expect(Math.abs((s?.temperatureChangeSd_K as number) / ((k * (s?.timingSd_s as number)) / t) - 1)).toBeLessThan(1e-5);
   });
 
-  it('the shortest distance for the target gives exactly the target sd', () => {
-    const plan = withSensor(basePlan({ targets: { snr: 10, temperatureSd_K: 2e-4 } }), { distanceSd_m: 10e-6 });
+  it('the shortest distance for a change target gives exactly the target sd from timing alone (σ_T = k σ_t u₂/d, PHYSICS notes §6)', () => {
+    const plan = withSensor(basePlan({ targets: { snr: 10, temperatureSd_K: 2e-5, temperatureKind: 'change' } }), { distanceSd_m: 10e-6 });
     const s = computePlan(plan).sensors[0];
     const d = s?.shortestDistanceForTarget_m as number;
-    expect(d).toBeGreaterThan(0.05);
+    expect(d).toBeGreaterThan(0);
     const k = u2 / Math.abs(p18.secondSoundSlope_m_s_K as number);
     const timing = s?.timingSd_s as number;
-    expect(k * Math.hypot(10e-6 / d, timing / (d / u2))).toBeCloseTo(2e-4, 12);
+    expect(k * (timing / (d / u2))).toBeCloseTo(2e-5, 12);
+    expect(s?.targetKind).toBe('change');
+    expect(s?.meetsTarget).toBe((s?.temperatureChangeSd_K as number) <= 2e-5);
+  });
+
+  it('an absolute target adds the u₂ curve’s own sd: reachable above it with exactly the target, "not reachable" below it with the reason', () => {
+    const modelSd = (u2 / Math.abs(p18.secondSoundSlope_m_s_K as number)) * ((p18.secondSoundSd_m_s as number) / u2);
+    const target = modelSd * 1.5;
+    const reach = computePlan(withSensor(basePlan({ targets: { snr: 10, temperatureSd_K: target, temperatureKind: 'absolute' } }), { distanceSd_m: 10e-6 })).sensors[0];
+    const d = reach?.shortestDistanceForTarget_m as number;
+    const k = u2 / Math.abs(p18.secondSoundSlope_m_s_K as number);
+    const timing = reach?.timingSd_s as number;
+    expect(Math.hypot(k * Math.hypot(10e-6 / d, timing / (d / u2)), modelSd)).toBeCloseTo(target, 12);
+    const none = computePlan(withSensor(basePlan({ targets: { snr: 10, temperatureSd_K: modelSd * 0.9, temperatureKind: 'absolute' } }), { distanceSd_m: 10e-6 })).sensors[0];
+    expect(none?.shortestDistanceForTarget_m).toBe(null);
+    expect(none?.shortestDistanceUnreachable).toBe('model-sd');
+    expect(none?.shortestDistanceNote).toMatch(/Not reachable .*u₂ curve's own uncertainty/);
+    expect(none?.meetsTarget).toBe(false);
   });
 });
 

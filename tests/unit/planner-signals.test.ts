@@ -103,7 +103,7 @@ describe('amplitude of a planar pulse, δT = q/(ρ c_p u2) (PHYSICS notes §4)',
   });
 
   it('pulses needed for a target SNR: N = ⌈(target/SNR₁)²⌉', () => {
-    const plan = withSensor(basePlan({ targets: { snr: 100, temperatureSd_K: 1e-3 } }), { noise_V: 1e-4 });
+    const plan = withSensor(basePlan({ targets: { snr: 100, temperatureSd_K: 1e-3, temperatureKind: 'absolute' } }), { noise_V: 1e-4 });
     const s = computePlan(plan).sensors[0];
     const snr1 = s?.snrSingle as number;
     expect(s?.pulsesForTargetSnr).toBe(Math.ceil((100 / snr1) ** 2));
@@ -141,7 +141,7 @@ describe('flat disk heater (Rayleigh integral of a baffled piston, PHYSICS notes
     return sum / (2 * Math.PI * rhoC * U2 * U2);
   }
 
-  const source = { geometry: 'disk' as const, peakFlux_W_m2: q0, peakPower_W: 0, radius_m: a, profile, centre: [0, 0, 0] as const, amplitudeFactor: 1 };
+  const source = { geometry: 'disk' as const, peakFlux_W_m2: q0, peakPower_W: 0, face: { kind: 'disk' as const, radius_m: a }, mount: 'wall' as const, profile, centre: [0, 0, 0] as const, amplitudeFactor: 1 };
 
   it('on the axis: the plane-wave pulse minus a copy delayed by (√(z²+a²) − z)/u2', () => {
     const z = 0.01;
@@ -176,8 +176,8 @@ describe('flat disk heater (Rayleigh integral of a baffled piston, PHYSICS notes
   });
 
   it('far away, a small disk looks like a point heater of the same power (δT = Ṗ/(2πρ c_p u2² r))', () => {
-    const small = { ...source, radius_m: 0.5e-3 };
-    const point = { ...source, geometry: 'point' as const, peakPower_W: q0 * Math.PI * small.radius_m ** 2 };
+    const small = { ...source, face: { kind: 'disk' as const, radius_m: 0.5e-3 } };
+    const point = { ...source, geometry: 'point' as const, face: null, peakPower_W: q0 * Math.PI * small.face.radius_m ** 2 };
     const z = 0.05;
     const disk = receivedPulse(small, { position: [0, 0, z], radius_m: 0, lag_s: 0 }, medium, step).signal;
     const far = receivedPulse(point, { position: [0, 0, z], radius_m: 0, lag_s: 0 }, medium, step).signal;
@@ -217,7 +217,7 @@ describe('flat disk heater (Rayleigh integral of a baffled piston, PHYSICS notes
 describe('sensor lag (first-order response)', () => {
   it('keeps the pulse area and delays its centroid by the time constant', () => {
     const tau = 10e-6;
-    const src = { geometry: 'planar' as const, peakFlux_W_m2: 1e3, peakPower_W: 0, radius_m: 0, profile: pulseProfile({ kind: 'rectangle' }, 50e-6, 1e-6), centre: [0, 0, 0] as const, amplitudeFactor: 1 };
+    const src = { geometry: 'plane-wave' as const, peakFlux_W_m2: 1e3, peakPower_W: 0, face: null, mount: 'wall' as const, profile: pulseProfile({ kind: 'rectangle' }, 50e-6, 1e-6), centre: [0, 0, 0] as const, amplitudeFactor: 1 };
     const step = 0.1e-6;
     const plain = receivedPulse(src, { position: [0, 0, 0.01], radius_m: 0, lag_s: 0 }, medium, step).signal;
     const lagged = receivedPulse(src, { position: [0, 0, 0.01], radius_m: 0, lag_s: tau }, medium, step).signal;
@@ -294,7 +294,7 @@ describe('coarse time steps keep the pulse (each sample is the signal averaged o
 
   it('a 10 ns custom pulse on a much coarser step keeps its area', () => {
     const profile = pulseProfile({ kind: 'custom', points: [[0, 0], [5e-9, 1], [10e-9, 0]] }, 0, 0);
-    const source = { geometry: 'planar' as const, peakFlux_W_m2: 1e6, peakPower_W: 0, radius_m: 0, profile, centre: [0, 0, 0] as const, amplitudeFactor: 1 };
+    const source = { geometry: 'plane-wave' as const, peakFlux_W_m2: 1e6, peakPower_W: 0, face: null, mount: 'wall' as const, profile, centre: [0, 0, 0] as const, amplitudeFactor: 1 };
     const step = 1e-6;
     const r = receivedPulse(source, { position: [0, 0, 0.01], radius_m: 0, lag_s: 0 }, medium, step);
     const area = r.signal.values.reduce((a, v) => a + v, 0) * step;

@@ -55,6 +55,7 @@ export function demoSensors(root = process.cwd()): LocateSensor[] {
 /** A profile moved later by `delay_s` (the kernel takes time zero as the onset). */
 function delayed(profile: PulseProfile, delay_s: number): PulseProfile {
   return {
+    corners: null,
     duration_s: profile.duration_s + delay_s,
     area_s: profile.area_s,
     effectiveRise_s: profile.effectiveRise_s,
@@ -88,7 +89,7 @@ export function locateDemoTracesCsv(sensors: readonly LocateSensor[]): string {
     const normal = gaussian(seededRandom(seed));
     const values = Float64Array.from({ length: rows }, () => NOISE_MV * normal());
     const received = receivedPulse(
-      { geometry: 'point', peakFlux_W_m2: 0, peakPower_W: QUENCH_POWER_W, radius_m: 0, profile: delayed(profile, onset_s - quench_s - distance(s.position_m) / u2), centre: source, amplitudeFactor: 1 },
+      { geometry: 'point', peakFlux_W_m2: 0, peakPower_W: QUENCH_POWER_W, face: null, mount: 'wall', profile: delayed(profile, onset_s - quench_s - distance(s.position_m) / u2), centre: source, amplitudeFactor: 1 },
       { position: s.position_m, radius_m: 0, lag_s: SENSOR_LAG_S },
       medium,
       STEP_S,

@@ -112,8 +112,10 @@ describe('sekundo arrivals: warnings', () => {
   const codes = (json: Json): string[] => json.warnings.map((w: Json) => w.code);
 
   it('warns of a large amplitude at 2 W/cm² and not at 0.5 W/cm² (1 mK kept for thermometry, common practice)', async () => {
+    // On its solid plate the sensor sees (1 + R) ≈ 2 times the incident 1.17 mK per W/cm².
     expect(codes(await runJson(...ARRIVALS_1_8K_50MM, '--flux', '2W/cm2'))).toContain('large-amplitude');
-    expect(codes(await runJson(...ARRIVALS_1_8K_50MM, '--flux', '0.5W/cm2'))).not.toContain('large-amplitude');
+    expect(codes(await runJson(...ARRIVALS_1_8K_50MM, '--flux', '0.5W/cm2'))).toContain('large-amplitude');
+    expect(codes(await runJson(...ARRIVALS_1_8K_50MM, '--flux', '0.4W/cm2'))).not.toContain('large-amplitude');
     expect(codes(await runJson(...ARRIVALS_1_8K_50MM, '--flux', '0.5W/cm2', '--reflection', '0'))).not.toContain('large-amplitude');
   });
 
@@ -148,7 +150,10 @@ describe('sekundo arrivals: input and output', () => {
     const json = await runJson(...ARRIVALS_1_8K_50MM);
     for (const key of ['secondSoundArrival_s', 'firstSoundArrival_s', 'amplitude_K', 'echoes', 'warnings']) expect(json).toHaveProperty(key);
     for (const echo of json.echoes) expect(Object.keys(echo).sort()).toEqual(['amplitude_K', 'arrival_s', 'order']);
-    expect(json).toMatchObject({ temperature_K: 1.8, distance_m: 0.05, pulseWidth_s: 1e-4, riseTime_s: 1e-6, lag_s: 0, reflection: 0.4 });
+    expect(json).toMatchObject({ temperature_K: 1.8, distance_m: 0.05, pulseWidth_s: 1e-4, riseTime_s: 1e-6, lag_s: 0, reflectionSource: 'solid-wall' });
+    expect(json.reflection).toBeGreaterThan(0.999);
+    expect(json.heater).toEqual({ geometry: 'plane-wave', width_m: null, height_m: null, diameter_m: null });
+    expect(json.model).toMatch(/^Plane-wave limit: no heater size given/);
   });
 
   it('reads the same case in every unit alike', async () => {
@@ -173,11 +178,68 @@ describe('sekundo arrivals: input and output', () => {
     expect(status).toBe(0);
     expect(stderr).toBe('');
     expect(stdout).toMatch(/first sound\s+0\.21618\s+—/); // DB1998 first sound, this kernel
-    expect(stdout).toMatch(/second sound\s+2\.5122\s+3\.2804/); // this kernel, regression: (1 + 0.4) × 2.3431 mK
+    expect(stdout).toMatch(/second sound\s+2\.5122\s+4\.6847/); // this kernel, regression: (1 + R) × 2.3431 mK, R = 0.99932
+    expect(stdout).toContain('Plane-wave limit: no heater size given');
+    expect(stdout).toContain('Plates: solid wall, R = (Z − h)/(Z + h) = 0.9993');
     expect(stdout).toMatch(/echo, 2 reflections\s+7\.5366/); // 3 × 2.5122 ms
     expect(stdout).toContain('1800.00 mK');
     expect(stdout).toContain('Warnings:');
     expect(stdout).toContain('caution (large-amplitude)');
+  });
+});
+
+describe('sekundo arrivals: heater size', () => {
+  const ISSUE = ['arrivals', '--temperature', '1.95K', '--flux', '1W/cm2', '--pulse', '200us'];
+  const FILM = ['--heater-width', '10mm', '--heater-height', '10mm'];
+
+  it('with a size, the finite heater: the model line says up to where the plane-wave value holds (a²/(2u₂τ), Stepanishen 1971)', async () => {
+    const json = await runJson(...ISSUE, '--distance', '25mm', ...FILM);
+    expect(json.heater).toEqual({ geometry: 'rectangle', width_m: 0.01, height_m: 0.01, diameter_m: null });
+    const u2 = json.secondSound_m_s;
+    const tau = 201e-6; // 200 µs + 1 µs of edges
+    expect(json.planeWaveRange_m).toBeCloseTo((0.005 ** 2 - (u2 * tau) ** 2) / (2 * u2 * tau), 12);
+    expect(json.model).toMatch(/^Finite heater: a 10 mm × 10 mm rectangle/);
+    expect(json.model).toMatch(/half the shorter side/);
+  });
+
+  it('far beyond the plane-wave range a slow sensor sees far less than the plane wave; without a size it would not', async () => {
+    const finite = await runJson(...ISSUE, '--distance', '140mm', ...FILM, '--lag', '20us', '--reflection', '0');
+    const plane = await runJson(...ISSUE, '--distance', '140mm', '--lag', '20us', '--reflection', '0');
+    expect(finite.amplitude_K).toBeLessThan(0.5 * plane.amplitude_K);
+    expect(plane.amplitude_K / plane.faceDeltaT_K).toBeGreaterThan(0.99);
+  });
+
+  it('a disk by its diameter', async () => {
+    const json = await runJson(...ISSUE, '--distance', '25mm', '--heater-diameter', '8mm');
+    expect(json.heater).toEqual({ geometry: 'disk', width_m: null, height_m: null, diameter_m: 0.008 });
+    expect(json.model).toMatch(/8 mm disk.*the radius/);
+  });
+
+  it('refuses half a rectangle, or a rectangle and a diameter together, with one line naming the flags', async () => {
+    const base = ['arrivals', '--temperature', '1.8K', '--distance', '25mm'];
+    expect(expectUsageError(await run(...base, '--heater-width', '10mm'))).toContain('--heater-height is missing');
+    expect(expectUsageError(await run(...base, '--heater-diameter', '5mm', '--heater-width', '1mm', '--heater-height', '1mm'))).toContain('not both');
+    const tooWide = expectUsageError(await run(...base, '--heater-width', '2m', '--heater-height', '1mm'));
+    expect(tooWide).toContain('--heater-width');
+    expect(tooWide).toContain('is outside the valid range');
+  });
+});
+
+describe('sekundo plan: files of an older version', () => {
+  const V1_PATH = join(REPO_ROOT, 'tests/fixtures/plan-version-1.json');
+
+  it('opens a version-1 file and says, before the report, what was changed', async () => {
+    const { status, stdout } = await run('plan', V1_PATH);
+    expect(status).toBe(0);
+    expect(stdout).toMatch(/^Note: this file is plan format version 1; it was read as version 2:/);
+    expect(stdout).toContain('planar film of 1 cm² is now a 10 mm × 10 mm rectangle');
+    expect(stdout).toContain('"glass lid" keeps its typed R = 0.9 as a measured value');
+  });
+
+  it('with --json, the same notes under "migrated"', async () => {
+    const json = await runJson('plan', V1_PATH);
+    expect(json.migrated[0].fromVersion).toBe(1);
+    expect(json.migrated[0].changes).toHaveLength(4);
   });
 });
 
@@ -202,7 +264,7 @@ describe('sekundo plan', () => {
   it('prints, for every sensor, the arrivals, δT, echoes, SNR and σT with the promised names', async () => {
     const json = await runJson('plan', DEMO_PATH);
     expect(json.name).toContain('Orrin-2');
-    expect(json.sensors.map((s: Json) => s.id)).toEqual(['b10', 'b25', 'b25x', 'b50']);
+    expect(json.sensors.map((s: Json) => s.id)).toEqual(['b10', 'b25', 'b35x', 'b50']);
     for (const sensor of json.sensors) {
       for (const key of ['secondSoundArrival_s', 'firstSoundArrival_s', 'amplitude_K', 'echoes', 'temperatureSd_K', 'pathLength_m', 'snrAveraged']) {
         expect(sensor).toHaveProperty(key);
@@ -213,8 +275,14 @@ describe('sekundo plan', () => {
     }
     for (const w of json.warnings) for (const key of ['code', 'severity', 'message', 'sensorId']) expect(w).toHaveProperty(key);
     expect(json.warnings.filter((w: Json) => w.severity === 'stop')).toEqual([]);
-    expect(json.heater).toMatchObject({ geometry: 'planar', shape: 'rectangle', flux_W_m2: 1000 });
-    expect(json.heater.power_W).toBeCloseTo(0.1, 15); // 0.1 W/cm² × 1 cm²
+    expect(json.heater).toMatchObject({ geometry: 'rectangle', width_m: 0.01, height_m: 0.01, shape: 'rectangle' });
+    expect(json.heater.flux_W_m2).toBeCloseTo(1000, 9);
+    expect(json.heater.power_W).toBeCloseTo(0.1, 15); // 0.1 W/cm² × 10 mm × 10 mm
+    expect(json.planes.map((p: Json) => [p.label, p.source])).toEqual([
+      ['bottom plate', 'solid-wall'],
+      ['lid', 'solid-wall'],
+    ]);
+    expect(json.migrated).toEqual([]);
     expect(json).not.toHaveProperty('heaterPulse');
   });
 
@@ -251,7 +319,7 @@ describe('sekundo plan', () => {
     expect(stdout).toContain('from a vapour pressure of 1638.2 Pa (ITS-90)');
     expect(stdout).toMatch(/b50\s+Bolometer D, 50 mm\s+49\.850 ± 0\.021/); // 50 mm × 0.997
     expect(stdout).toContain('Echoes (reflections, path):');
-    expect(stdout).toContain('glass lid → bottom plate');
+    expect(stdout).toContain('lid → bottom plate');
     expect(stdout).toContain('info (bath-heating)');
   });
 
@@ -316,7 +384,7 @@ describe('bad command lines: one line on stderr, status 2', () => {
     ['bad flux unit', [...ARRIVALS_1_8K_50MM, '--flux', '1W/cm3'], ['--flux', 'unknown unit "W/cm3"', 'W/m2, W/cm2, mW/cm2, W/mm2', 'valid range']],
     ['flux as a power', [...ARRIVALS_1_8K_50MM, '--flux', '1W'], ['--flux', 'unknown unit "W"']],
     ['flux NaN', [...ARRIVALS_1_8K_50MM, '--flux', 'NaN'], ['--flux must be a finite number']],
-    ['flux too high', [...ARRIVALS_1_8K_50MM, '--flux', '2e9W/cm2'], ['--flux 2e9W/cm2', 'is outside the valid range', '1 nW–10 kW on the 1 cm² heater']],
+    ['flux too high', [...ARRIVALS_1_8K_50MM, '--flux', '2e9W/cm2'], ['--flux 2e9W/cm2', 'is outside the valid range', 'the power (flux × heater area) 1 nW–10 kW']],
     ['flux negative', [...ARRIVALS_1_8K_50MM, '--flux', '-1W/cm2'], ['--flux -1W/cm2', 'is outside the valid range']],
     ['temperature above range', ['arrivals', '--temperature', '5K', '--distance', '50mm'], ['--temperature 5 K is outside the valid range 0.3–4.24 K']],
     ['distance 0', ['arrivals', '--temperature', '1.8K', '--distance', '0'], ['--distance 0 m is outside the valid range 0.000001–100 m']],

@@ -218,17 +218,20 @@ describe('planner entry points', () => {
   const base = (): K.PlanInput => ({
     temperature_K: 1.8,
     liquidDepth_m: 0.1,
-    heater: { geometry: 'planar', area_m2: 1e-4, radius_m: 5e-3, power_W: 0.1, shape: { kind: 'rectangle' }, width_s: 1e-4, riseTime_s: 1e-6, repetitionRate_Hz: 5, averages: 4 },
+    heater: { geometry: 'rectangle', area_m2: 1e-4, width_m: 1e-2, height_m: 5e-3, radius_m: 5e-3, mount: 'wall', power_W: 0.1, shape: { kind: 'rectangle' }, width_s: 1e-4, riseTime_s: 1e-6, repetitionRate_Hz: 5, averages: 4 },
     sensors: [{ id: 'a', label: 'A', position_m: [0, 0, 0.02], distanceSd_m: 2e-5, area_m2: 1e-6, responsivity_V_K: 1, noise_V: 1e-6, lag_s: 1e-5 }],
     spacer: { materialId: 'copper', measuredWarm: true },
-    reflectors: [{ label: 'lid', axis: 'z', position_m: 0.05, reflection: 0.4 }],
+    reflectors: [
+      { label: 'lid', axis: 'z', position_m: 0.05, reflection: null },
+      { label: 'side', axis: 'x', position_m: 0.03, reflection: 0.4 },
+    ],
     echoOrder: 2,
     digitiser: { sampleRate_Hz: 1e7, recordLength_s: 0.01, preTrigger_s: 1e-3 },
     targets: { snr: 10, temperatureSd_K: 1e-3, temperatureKind: 'absolute' },
   });
 
   it('computePlan with any numbers in a well-formed plan', () => {
-    const geometry = fc.constantFrom<K.PlanInput['heater']['geometry']>('planar', 'disk', 'point');
+    const geometry = fc.constantFrom<K.PlanInput['heater']['geometry']>('rectangle', 'disk', 'point', 'plane-wave');
     fc.assert(
       fc.property(
         geometry,
@@ -268,7 +271,7 @@ describe('planner entry points', () => {
         if (p.ok) {
           const r = outcome(() =>
             K.receivedPulse(
-              { geometry: 'disk', peakFlux_W_m2: 1e3, peakPower_W: 0, radius_m: 5e-3, profile: p.value, centre: [0, 0, 0], amplitudeFactor: 1 },
+              { geometry: 'rectangle', peakFlux_W_m2: 1e3, peakPower_W: 0, face: { kind: 'rectangle', width_m: 5e-3, height_m: 2e-3 }, mount: 'wall', profile: p.value, centre: [0, 0, 0], amplitudeFactor: 1 },
               { position: [pos, 0, 0.01], radius_m: 1e-4, lag_s: rise },
               { density_kg_m3: 145, specificHeat_J_kgK: 2950, secondSound_m_s: 19.9 },
               Math.max(p.value.duration_s / 200, 1e-9),

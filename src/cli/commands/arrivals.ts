@@ -361,7 +361,7 @@ function arrivalsFromPlan(plan: PlanResult, c: ArrivalsChoice): ArrivalsResult {
 
 function modelLine(c: ArrivalsChoice, plan: PlanResult): string {
   const range = plan.heater.planeWaveRange_m;
-  const mm = (x: number) => formatSignificant(fromBaseUnit(x, 'mm'));
+  const mm = (x: number) => formatPlain(Number(fromBaseUnit(x, 'mm').toPrecision(3)));
   if (c.heater.geometry === 'plane-wave') {
     return 'Plane-wave limit: no heater size given, so the heater is taken as unbounded and δT = q/(ρ c_p u₂) at every distance. A real heater gives this only on short paths; give --heater-width and --heater-height (or --heater-diameter) for its own pulse.';
   }

@@ -48,5 +48,5 @@ export function decodeShareFragment(hash: string): ShareDecode {
   if (!text) return { ok: false, errors: ['link: the plan data is damaged or cut short (was the link copied whole?)'] };
   const parsed = parsePlanFile(text);
   if (!parsed.ok) return { ok: false, errors: parsed.errors.map((e) => `link: ${e}`) };
-  return parsed;
+  return { ok: true, plan: parsed.plan };
 }

@@ -115,7 +115,7 @@ export interface HeaterPlanResult {
   shockEdge: 'leading' | 'trailing' | null;
   effectiveRise_s: number;
   duration_s: number;
-  /** Distance along the axis up to which the plane-wave value holds for the whole pulse, m; null for a point source, Infinity for the plane wave. */
+  /** Distance along the axis up to which the plane-wave value holds for the whole pulse, m; null without a face (a point source, or the plane-wave limit itself). */
   planeWaveRange_m: number | null;
   /** The edge that sets it, m (disk radius, or half the rectangle's shorter side). */
   planeWaveEdge_m: number | null;

@@ -85,7 +85,7 @@ export function computePlan(plan: PlanInput): PlanResult {
       counterflowVelocity_m_s: counterflow,
       shockDistance_m: alpha !== 0 ? (u2 * profile.effectiveRise_s) / (Math.abs(alpha) * faceDeltaT) : Number.POSITIVE_INFINITY,
       shockEdge: alpha > 0 ? 'leading' : 'trailing',
-      planeWaveRange_m: h.geometry === 'plane-wave' ? Number.POSITIVE_INFINITY : face ? planeWaveRange_m(face, u2, profile.duration_s) : null,
+      planeWaveRange_m: face ? planeWaveRange_m(face, u2, profile.duration_s) : null,
       strongHeatingFlux_W_m2: strongLimit,
       wallImpedance_W_m2K: Z,
       kapitzaConductance_W_m2K: r.conductance_W_m2K,

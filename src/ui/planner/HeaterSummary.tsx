@@ -66,7 +66,6 @@ export function HeaterSummary() {
 
 function planeWave(h: HeaterPlanResult, length: (x: number) => string): string {
   if (h.planeWaveRange_m === null) return h.faceDeltaT_K === null ? '—' : 'no range (a point source)';
-  if (!Number.isFinite(h.planeWaveRange_m)) return 'every distance (plane-wave limit)';
   return h.planeWaveRange_m === 0 ? 'nowhere for this pulse' : length(h.planeWaveRange_m);
 }
 

@@ -92,9 +92,20 @@ describe('planner editors', { timeout: 20_000 }, () => {
     expect(heater().radius_m).toBeCloseTo(Math.sqrt(1e-4 / Math.PI), 8);
     expect(field('Disk radius')).toHaveValue('5.64190 mm'.replace('5.64190', String(Number((Math.sqrt(1e-4 / Math.PI) * 1e3).toPrecision(6)))));
     expect(screen.getByText(/pulses turn bipolar/)).toBeInTheDocument();
-    await user.selectOptions(screen.getByRole('combobox', { name: 'Heater geometry' }), 'planar');
-    expect(heater().area_m2).toBeCloseTo(1e-4, 12);
-    expect(field('Heater area')).toHaveValue('1 cm²');
+    await user.selectOptions(screen.getByRole('combobox', { name: 'Heater geometry' }), 'rectangle');
+    expect(heater().geometry).toBe('rectangle');
+    expect((heater().width_m as number) * (heater().height_m as number)).toBeCloseTo(1e-4, 12);
+    expect(field('Heater width')).toHaveValue('10 mm');
+    expect(field('Heater height')).toHaveValue('10 mm');
+  });
+
+  it('offers a small source on a wall (2π) or free in the liquid (4π)', async () => {
+    const { user } = await openPlanner();
+    await user.selectOptions(screen.getByRole('combobox', { name: 'Heater geometry' }), 'point-free');
+    expect(heater()).toMatchObject({ geometry: 'point', mount: 'free' });
+    expect(screen.getByText(/radiating all round \(4π\)/)).toBeInTheDocument();
+    await user.selectOptions(screen.getByRole('combobox', { name: 'Heater geometry' }), 'point-wall');
+    expect(heater()).toMatchObject({ geometry: 'point', mount: 'wall' });
   });
 
   it('gives the drive as power or flux', async () => {

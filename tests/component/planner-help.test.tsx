@@ -60,7 +60,7 @@ describe('planner help', { timeout: 30_000 }, () => {
   });
 
   it('gives table cells the help of their column', async () => {
-    await openPlanner();
+    const { user } = await openPlanner();
     const responsivity = screen.getByRole('textbox', { name: 'Sensor 2 responsivity' });
     expect(responsivity).toHaveAccessibleDescription(expect.stringContaining(PLAN_NUMBER_HELP['sensor.responsivity']?.what ?? '?'));
     // The cells' own labels are hidden: the one "?" sits in the column heading.
@@ -77,7 +77,9 @@ describe('planner help', { timeout: 30_000 }, () => {
       'Noise (rms)',
       'Lag τ',
     ]);
-    // A plane's reflection coefficient, from the planes table.
+    // A plane's R: a solid wall by default, with where R comes from; a measured R is typed, with its range.
+    expect(screen.getByRole('combobox', { name: 'Plane 1 R from' })).toHaveAccessibleDescription(expect.stringContaining('Kapitza conductance'));
+    await user.selectOptions(screen.getByRole('combobox', { name: 'Plane 1 R from' }), 'measured');
     expect(screen.getByRole('textbox', { name: 'Plane 1 reflection R' })).toHaveAccessibleDescription(expect.stringContaining('valid from −1 to 1'));
   });
 

@@ -21,7 +21,7 @@ describe('planner sensors', { timeout: 20_000 }, () => {
   it('duplicates a sensor with a new id right after it', async () => {
     const { user } = await openPlanner();
     await user.click(screen.getByRole('button', { name: 'Duplicate sensor 2 (b25)' }));
-    expect(sensors().map((s) => s.id)).toEqual(['b10', 'b25', 'b25-copy', 'b25x', 'b50']);
+    expect(sensors().map((s) => s.id)).toEqual(['b10', 'b25', 'b25-copy', 'b35x', 'b50']);
     expect(sensors()[2]).toMatchObject({ label: 'Bolometer B, 25 mm (copy)', distance_m: 0.025 });
     // The copy is its own sensor: editing it leaves the original alone.
     await retype(user, 'Sensor 3 distance', '30 mm');
@@ -31,7 +31,7 @@ describe('planner sensors', { timeout: 20_000 }, () => {
 
   it('removes a sensor, but never the last one', async () => {
     const { user } = await openPlanner();
-    await user.click(screen.getByRole('button', { name: 'Remove sensor 3 (b25x)' }));
+    await user.click(screen.getByRole('button', { name: 'Remove sensor 3 (b35x)' }));
     expect(sensors().map((s) => s.id)).toEqual(['b10', 'b25', 'b50']);
     expect(resultRows()).toHaveLength(3);
     await user.click(screen.getByRole('button', { name: 'Remove sensor 1 (b10)' }));

@@ -2,7 +2,8 @@
  * The resolution map: how finely one time-of-flight reading pins the bath temperature, over
  * temperature × heater–sensor distance, for one sensor's timing and distance uncertainties.
  *
- * At distance d the transit is t = d/u2 + lag, and σ_u/u = √((σ_d(d)/d)² + (σ_t/t)²), with
+ * At distance d the travel time is t = d/u2 (the sensor lag delays the reading but is no part of the
+ * path, so the timing's relative share uses t alone), and σ_u/u = √((σ_d(d)/d)² + (σ_t/t)²), with
  * σ_d(d) = √(σ_meas² + (d·σ_ε)²) when the distance was measured warm (σ_ε: the spacer's
  * contraction sd) — the same sum the planner uses for each sensor. The kernel's temperatureSpread
  * turns that into σ_T, including the curvature bound near the extremes of u2, and flags the
@@ -34,7 +35,7 @@ export interface MapSensor {
   distanceSd_m: number;
   /** Relative sd of the spacer contraction when measured warm (0 otherwise). */
   contractionSd: number;
-  /** Sensor lag added to the transit, s. */
+  /** Sensor lag, s: kept with the sensor, not added to the travel time (it is no part of the path). */
   lag_s: number;
 }
 
@@ -56,7 +57,7 @@ const EDGE_BISECTIONS = 12;
 
 /** σ_T (K) and the insensitive flag at one temperature and distance, from the kernel. */
 export function spreadAt(T: number, d: number, sensor: MapSensor, at = { value: secondSound(T), slope: secondSoundSlope(T) }) {
-  const transit = d / at.value + sensor.lag_s;
+  const transit = d / at.value;
   const distanceSd = Math.hypot(sensor.distanceSd_m, d * sensor.contractionSd);
   const relative = Math.min(1, Math.hypot(distanceSd / d, sensor.timingSd_s / transit));
   return temperatureSpread(T, relative, at);

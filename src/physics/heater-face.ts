@@ -50,19 +50,30 @@ export function ringAngleInsideRectangle(s: number, px: number, py: number, hx: 
   const fy = ay + hy;
   if (fx * fx + fy * fy <= s * s) return 0;
   let n = 0;
-  for (const c of [-hx - ax, hx - ax]) {
-    if (Math.abs(c) < s) {
-      const a = Math.acos(c / s);
-      crossings[n++] = a;
-      crossings[n++] = TWO_PI - a;
-    }
+  // Crossings with x = ±hx (cos θ = c/s) and y = ±hy (sin θ = c/s), written out: no arrays per call.
+  let c = -hx - ax;
+  if (Math.abs(c) < s) {
+    const a = Math.acos(c / s);
+    crossings[n++] = a;
+    crossings[n++] = TWO_PI - a;
   }
-  for (const c of [-hy - ay, hy - ay]) {
-    if (Math.abs(c) < s) {
-      const a = Math.asin(c / s);
-      crossings[n++] = a < 0 ? a + TWO_PI : a;
-      crossings[n++] = Math.PI - a;
-    }
+  c = hx - ax;
+  if (Math.abs(c) < s) {
+    const a = Math.acos(c / s);
+    crossings[n++] = a;
+    crossings[n++] = TWO_PI - a;
+  }
+  c = -hy - ay;
+  if (Math.abs(c) < s) {
+    const a = Math.asin(c / s);
+    crossings[n++] = a < 0 ? a + TWO_PI : a;
+    crossings[n++] = Math.PI - a;
+  }
+  c = hy - ay;
+  if (Math.abs(c) < s) {
+    const a = Math.asin(c / s);
+    crossings[n++] = a < 0 ? a + TWO_PI : a;
+    crossings[n++] = Math.PI - a;
   }
   if (n === 0) return inside(ax + s, ay, hx, hy) ? TWO_PI : 0;
   // Insertion sort of at most 8 angles.

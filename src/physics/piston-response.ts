@@ -12,7 +12,8 @@ import { averageOverStep, type PulseProfile } from './pulse-shape';
  * this is the plane wave q0 f(t − z/u2)/(ρ c_p u2); far away Φ is non-zero only briefly and it is
  * the small source Area·q0 f′/(2π ρ c_p u2² R). Both limits come out of the same sum.
  *
- * Φ is tabulated on [τ_min, τ_max] (at most MAX_PHI_SAMPLES points, straight lines between), with
+ * Φ is tabulated on [τ_min, τ_max] every max(step, detail) — detail a quarter of the pulse’s rise or the
+ * sensor's lag, the finest the result can show — (at most MAX_PHI_SAMPLES points, straight lines between), with
  * its first and second integrals Ψ, Ψ₂ exact for those lines. A pulse made of straight lines
  * (rectangle, custom) then costs one Ψ₂ difference per corner per output sample:
  *   f′ = Σ_k (J_k δ(t − t_k) + Δm_k H(t − t_k))  ⇒  δT averaged over a step h is
@@ -22,7 +23,7 @@ import { averageOverStep, type PulseProfile } from './pulse-shape';
  */
 
 /** Most Φ samples per arrival: Φ is smooth between its few kinks, so more buy no accuracy worth the time. */
-export const MAX_PHI_SAMPLES = 1024;
+export const MAX_PHI_SAMPLES = 512;
 /** Fewest Φ samples, even for a far (nearly point-like) view of the face. */
 const MIN_PHI_SAMPLES = 16;
 
@@ -35,6 +36,12 @@ export interface PistonCase {
   u: number;
   rhoC: number;
   profile: PulseProfile;
+  /**
+   * Finest time detail the result can show, s: a quarter of the larger of the pulse’s effective rise and
+   * the sensor's lag (a first-order lag smooths anything shorter). Φ is tabulated on this scale
+   * (or the output step, if coarser), not finer.
+   */
+  detail_s: number;
 }
 
 /** A sensor point: its foot point (px, py) from the face centre, m, and its weight (weights add to 1). */
@@ -67,7 +74,7 @@ export function delaySpan(c: PistonCase, points: readonly FootPoint[]): { first_
 
 function phiTable(c: PistonCase, points: readonly FootPoint[], span: { first_s: number; last_s: number }, step: number): PhiTable {
   const spread = span.last_s - span.first_s;
-  const n = Math.min(MAX_PHI_SAMPLES, Math.max(MIN_PHI_SAMPLES, Math.ceil((2 * spread) / step)));
+  const n = Math.min(MAX_PHI_SAMPLES, Math.max(MIN_PHI_SAMPLES, Math.ceil(spread / Math.max(step, c.detail_s))));
   const dtau = spread / n;
   const phi = new Float64Array(n + 1);
   for (let i = 0; i <= n; i++) {

@@ -1,5 +1,5 @@
 import { InvalidInputError, requireInRange } from './errors';
-import type { HeaterFace } from './heater-face';
+import { faceReach, type HeaterFace } from './heater-face';
 import type { Vec3 } from './image-sources';
 import { addPistonPulse, delaySpan, type FootPoint } from './piston-response';
 import { averageOverStep, type PulseProfile } from './pulse-shape';
@@ -185,8 +185,9 @@ export function receivedPulse(source: PulseSource, sensor: SensorPoint, medium: 
 
   // A sized face: the transient piston.
   const face = source.face as HeaterFace;
-  const points = footPoints(dx, dy, sensor.radius_m);
-  const piston = { face, q0: source.amplitudeFactor * source.peakFlux_W_m2, z, u, rhoC, profile: f };
+  const detail = Math.max(f.effectiveRise_s, sensor.lag_s) / 4;
+  const piston = { face, q0: source.amplitudeFactor * source.peakFlux_W_m2, z, u, rhoC, profile: f, detail_s: detail };
+  const points = footPoints(dx, dy, sensor.radius_m, sensorSpread(piston, dx, dy, sensor.radius_m) < Math.max(step_s, detail) / 4);
   const span = delaySpan(piston, points);
   const out = grid(span.first_s, span.last_s + tail, step_s);
   addPistonPulse(out.values, out.start_s, step_s, piston, points);
@@ -194,7 +195,18 @@ export function receivedPulse(source: PulseSource, sensor: SensorPoint, medium: 
   return { arrival_s: span.first_s, path_m: span.first_s * u, signal: out };
 }
 
-function footPoints(dx: number, dy: number, radius: number): FootPoint[] {
-  if (radius === 0) return [{ px: dx, py: dy, w: 1 }];
+/**
+ * How much the delay to the face's farthest point changes across the sensor's face, s: when it is
+ * well below the finest detail the result can show, the sensor's centre stands for its face (the
+ * face average differs from the centre value only at second order in the sensor's size).
+ */
+function sensorSpread(c: { face: HeaterFace; z: number; u: number }, dx: number, dy: number, radius: number): number {
+  if (radius === 0) return 0;
+  const far = faceReach(c.face, dx, dy).farthest_m;
+  return (Math.hypot(c.z, far + radius) - Math.hypot(c.z, Math.max(0, far - radius))) / c.u;
+}
+
+function footPoints(dx: number, dy: number, radius: number, centreOnly: boolean): FootPoint[] {
+  if (radius === 0 || centreOnly) return [{ px: dx, py: dy, w: 1 }];
   return DISK_RULE.map((p) => ({ px: dx + radius * p.r * Math.cos(p.phi), py: dy + radius * p.r * Math.sin(p.phi), w: p.w }));
 }

@@ -69,10 +69,19 @@ test.describe('measurement planner', () => {
     const table = page.getByRole('table', { name: /predicted arrivals/i });
     await expect(table.getByRole('row')).toHaveCount(5);
     await expect(page.locator('[data-code="echo-overlap"]')).toHaveCount(0);
+    // Every demo sensor can be told apart on the timeline: four waveforms, four different peaks.
+    const peaks = await Promise.all(['b10', 'b25', 'b35x', 'b50'].map((id) => peakTime(page, id)));
+    expect(new Set(peaks.map((t) => (t ?? Number.NaN).toFixed(1))).size).toBe(4);
+    // The heater is computed with its size, and the summary says how far the plane wave holds.
+    await expect(page.getByText('Plane-wave value holds up to')).toBeVisible();
+    await expect(page.getByText(/Recomputed in/)).toHaveCount(0);
 
     const peakBefore = (await peakTime(page, 'b50')) ?? Number.NaN;
     const arrivalBefore = (await arrivalX(page, 'b50', 'second sound')) ?? Number.NaN;
-    expect(peakBefore).toBeGreaterThan(arrivalBefore);
+    // The marker is the arrival with the sensor's 20 µs lag; the finite heater's short pulse peaks
+    // after the wave reaches the sensor but, filtered by that lag, within it.
+    expect(peakBefore).toBeGreaterThan(arrivalBefore - 0.02);
+    expect(peakBefore).toBeLessThan(arrivalBefore + 0.1);
     expect(arrivalBefore).toBeCloseTo(2.5247, 3);
 
     // The sensor goes from 50 mm to 59.9 mm, right under the glass lid at 60 mm.
@@ -152,7 +161,9 @@ test.describe('measurement planner', () => {
     const report = `8-sensor plan, ${figures.length} edits: edit → results + timeline redrawn median ${median.toFixed(1)} ms, best ${best.toFixed(1)} ms, worst ${worst.toFixed(1)} ms (budget 50 ms; all: ${all}); resolution map, once typing pauses, ${mapFigure.toFixed(1)} ms; ${machine}`;
     console.log(report);
     test.info().annotations.push({ type: 'recompute', description: report });
-    await expect(page.locator('.recompute-time')).toContainText(/Recomputed in \d+(\.\d)? ms/);
+    // The figures are for tests and benchmarks only: nothing of them is shown to the user.
+    await expect(page.locator('.recompute-time')).toBeHidden();
+    await expect(page.getByText(/Recomputed in/)).toHaveCount(0);
     expect(figures.every((f) => Number.isFinite(f) && f > 0)).toBe(true);
   });
 });

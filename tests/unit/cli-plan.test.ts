@@ -225,6 +225,29 @@ describe('sekundo arrivals: heater size', () => {
   });
 });
 
+describe('sekundo plan: the film heater and three bolometers at 1.95 K (tests/fixtures/issue-setup-plan.json)', () => {
+  const PATH = join(REPO_ROOT, 'tests/fixtures/issue-setup-plan.json');
+
+  it('reports the heater by its size, the plane-wave range, the heater plate as a solid wall, and the absolute target as not reachable with why', async () => {
+    const { status, stdout } = await run('plan', PATH);
+    expect(status).toBe(0);
+    expect(stdout).toContain('rectangle 10 mm × 10 mm');
+    expect(stdout).toMatch(/plane-wave value holds for the whole pulse up to about 1\.66 mm/);
+    expect(stdout).toContain('heater plate z = 0 mm cold, R = 0.9994 (solid wall)');
+    expect(stdout).toMatch(/b140: Not reachable for an absolute reading .*2\.2 mK at 1\.95 K/);
+  });
+
+  it('amplitudes fall with distance beyond the plane-wave range (20 µs bolometers), warnings as the page gives them', async () => {
+    const json = await runJson('plan', PATH);
+    const amplitudes = json.sensors.map((s: Json) => s.amplitude_K);
+    expect(amplitudes[0]).toBeGreaterThan(amplitudes[1]);
+    expect(amplitudes[1]).toBeGreaterThan(amplitudes[2]);
+    expect(amplitudes[0]).toBeLessThan(json.heater.faceDeltaT_K);
+    expect(json.warnings.map((w: Json) => `${w.severity} ${w.code}`)).toEqual(['info bath-heating', 'info counterflow', 'caution shock', 'caution shock', 'caution shock']);
+    expect(json.heater.shockEdge).toBe('trailing');
+  });
+});
+
 describe('sekundo plan: files of an older version', () => {
   const V1_PATH = join(REPO_ROOT, 'tests/fixtures/plan-version-1.json');
 

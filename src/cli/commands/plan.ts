@@ -177,8 +177,9 @@ export function planJson(path: string, plan: PlanFile, bath: PlanBath, result: P
 
 function heaterSize(plan: PlanFile): string {
   const h = plan.heater;
-  if (h.geometry === 'rectangle') return `rectangle ${sig((h.width_m ?? 0) * 1e3)} mm × ${sig((h.height_m ?? 0) * 1e3)} mm`;
-  if (h.geometry === 'disk') return `disk, radius ${sig((h.radius_m ?? 0) * 1e3)} mm`;
+  const mm = (x: number | undefined) => formatPlain(Number(((x ?? 0) * 1e3).toPrecision(4)));
+  if (h.geometry === 'rectangle') return `rectangle ${mm(h.width_m)} mm × ${mm(h.height_m)} mm`;
+  if (h.geometry === 'disk') return `disk, radius ${mm(h.radius_m)} mm`;
   return `point source ${h.mount === 'free' ? 'free in the liquid (4π)' : 'on a wall (2π)'}`;
 }
 
@@ -186,7 +187,7 @@ function planeWaveText(plan: PlanFile, result: PlanResult): string {
   const h = result.heater;
   if (h.planeWaveRange_m === null || h.planeWaveEdge_m === null) return 'a point source: its signal follows dP/dt at every distance';
   const which = plan.heater.geometry === 'disk' ? 'the radius' : 'half the shorter side';
-  return `computed with its size (baffled piston); the plane-wave value holds for the whole pulse up to about ${sig(h.planeWaveRange_m * 1e3)} mm on the axis (a²/(2u₂τ), a = ${sig(h.planeWaveEdge_m * 1e3)} mm, ${which})`;
+  return `computed with its size (baffled piston); the plane-wave value holds for the whole pulse up to about ${sig(h.planeWaveRange_m * 1e3, 3)} mm on the axis (a²/(2u₂τ), a = ${formatPlain(h.planeWaveEdge_m * 1e3)} mm, ${which})`;
 }
 
 function shapeName(plan: PlanFile): 'rectangle' | 'half-sine' | 'custom' {

@@ -79,6 +79,11 @@ function Reflectors() {
   };
   const outcome = usePlanOutcome();
   const heaterPlate = outcome.ok ? outcome.result.planes.find((p) => p.source === 'heater-plate') : undefined;
+  const wall = outcome.ok ? outcome.result.heater : null;
+  const wallNote =
+    wall && wall.wallReflection !== null && wall.wallImpedance_W_m2K !== null && wall.kapitzaConductance_W_m2K !== null
+      ? `a solid wall reflects R = (Z − h)/(Z + h) = ${wall.wallReflection.toFixed(4)}, with Z = ρ cₚ u₂ = ${(wall.wallImpedance_W_m2K / 1e6).toPrecision(3)} MW/(m²·K) far above the Kapitza conductance h ≈ ${(wall.kapitzaConductance_W_m2K / 1e3).toPrecision(2)} kW/(m²·K) (order of magnitude, ∝ T³; Pollack 1969)`
+      : null;
   return (
     <div className="reflectors">
       <div className="card-head reflectors__head">
@@ -98,10 +103,9 @@ function Reflectors() {
             {help.source.panel}
             {help.reflection.panel}
           </div>
+          <div className="table-scroll">
           <table className="plan-table reflectors-table">
-            <caption className="field-hint reflectors__caption">
-              Each plane is “axis = position” (z = across the heater axis, x or y = a side wall), measured like the sensors (warm planes shrink with the spacer). A solid wall reflects R = (Z − h)/(Z + h) ≈ 1; give a measured R only for a wall you have measured.
-            </caption>
+            <caption className="visually-hidden">Reflecting planes: label, axis, position, where R comes from, R</caption>
             <thead>
               <tr>
                 <HelpColumnHead help={help.label}>Label</HelpColumnHead>
@@ -118,9 +122,14 @@ function Reflectors() {
               <ReflectorRow key={key} index={i} rowKey={key} help={help} />
             ))}
           </table>
+          </div>
+          <p className="field-hint reflectors__caption">
+            Each plane is “axis = position” (z = across the heater axis, x or y = a side wall), measured like the sensors (warm planes shrink with the spacer). Give a measured R only for a wall you have measured.
+          </p>
         </>
       )}
-      {heaterPlate ? <p className="field-hint reflectors__plate">{heaterPlate.note}</p> : null}
+      {wallNote ? <p className="field-hint reflectors__plate">Walls: {wallNote}.</p> : null}
+      {heaterPlate ? <p className="field-hint reflectors__plate">The heater’s own wall at z = 0 is not listed, so it is added with the same R.</p> : null}
     </div>
   );
 }
@@ -185,7 +194,7 @@ function ReflectorRow({ index, rowKey, help }: { index: number; rowKey: string; 
             value={measured ? 'measured' : 'wall'}
             onChange={(event) => edit(sourceKey, (p) => setReflectionSource(p, index, event.target.value as 'wall' | 'measured'))}
           >
-            <option value="wall">solid wall</option>
+            <option value="wall">wall</option>
             <option value="measured">measured</option>
           </select>
         </td>
@@ -204,7 +213,7 @@ function ReflectorRow({ index, rowKey, help }: { index: number; rowKey: string; 
           </button>
         </td>
       </tr>
-      {used ? (
+      {used && measured ? (
         <tr className="plane-note">
           <td colSpan={6} className="field-hint">
             {used.note}

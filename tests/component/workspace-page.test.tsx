@@ -155,6 +155,14 @@ describe('on the page', () => {
     for (const sensor of demoPlan().sensors) expect(within(sheet).getAllByText(new RegExp(sensor.label)).length).toBeGreaterThan(0);
     expect(sheet).toHaveTextContent(/Heater resistance at room temperature/);
     expect(sheet).toHaveTextContent(/peak of 100\.0 mW/); // 1000 W/m² × 1 cm²: the demo's peak power
+    // What the planner page shows, the sheet shows too: the heater by its size and its plane-wave
+    // range, the walls' R with its reason, and the target with the sd it is judged by.
+    expect(sheet).toHaveTextContent(/rectangle 10\.00 mm × 10\.00 mm; computed with its size \(baffled piston\)/);
+    expect(sheet).toHaveTextContent(/holds up to about 5\.21 mm on the axis/);
+    expect(sheet).toHaveTextContent(/lid \(z = 59\.82 mm, R = 0\.9993, solid wall\)/);
+    expect(sheet).toHaveTextContent(/R = \(Z − h\)\/\(Z \+ h\) = 0\.9993/);
+    expect(sheet).toHaveTextContent(/strong heating from 31 W\/cm²/);
+    expect(sheet).toHaveTextContent(/change, by the sd of changes/);
     expect(sheet).toHaveTextContent(/Asphyxiation/);
     expect(sheet).toHaveTextContent(/local codes/);
     await user.click(screen.getByRole('button', { name: 'Back to the planner' }));

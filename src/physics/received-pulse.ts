@@ -187,7 +187,7 @@ export function receivedPulse(source: PulseSource, sensor: SensorPoint, medium: 
   const face = source.face as HeaterFace;
   const detail = Math.max(f.effectiveRise_s, sensor.lag_s) / 4;
   const piston = { face, q0: source.amplitudeFactor * source.peakFlux_W_m2, z, u, rhoC, profile: f, detail_s: detail };
-  const points = footPoints(dx, dy, sensor.radius_m, sensorSpread(piston, dx, dy, sensor.radius_m) < Math.max(step_s, detail) / 4);
+  const points = footPoints(dx, dy, sensor.radius_m, sensorSpread(piston, dx, dy, sensor.radius_m) < Math.max(step_s, detail) / 2);
   const span = delaySpan(piston, points);
   const out = grid(span.first_s, span.last_s + tail, step_s);
   addPistonPulse(out.values, out.start_s, step_s, piston, points);

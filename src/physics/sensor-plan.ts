@@ -17,6 +17,11 @@ import { secondSoundRelativeSd, shortestDistanceForTarget, temperatureSpread } f
 
 /** Time steps per effective rise time in the predicted waveforms. */
 const STEPS_PER_RISE = 10;
+/**
+ * Time steps per sensor time constant: a first-order lag smooths anything shorter, and at this
+ * many the peak of a short pulse seen through the lag is right to about 1 % (error ≈ step/(2τ)).
+ */
+const STEPS_PER_LAG = 50;
 /** Most samples in one predicted arrival; the step grows instead. */
 const MAX_SAMPLES_PER_ARRIVAL = 1500;
 /**
@@ -133,7 +138,7 @@ export function sensorResult(c: SensorContext): SensorPlanResult {
     spread = (Math.hypot(position[2], reach.farthest_m + sensorRadius) - directLength) / u2;
   }
   const window = profile.duration_s + spread + 6 * sensor.lag_s;
-  const step = Math.max(profile.effectiveRise_s / STEPS_PER_RISE, window / MAX_SAMPLES_PER_ARRIVAL);
+  const step = Math.max(profile.effectiveRise_s / STEPS_PER_RISE, sensor.lag_s / STEPS_PER_LAG, window / MAX_SAMPLES_PER_ARRIVAL);
 
   const arrivals: { image: SourceImage; pulse: ReceivedPulse }[] = c.images.map((image) => ({
     image,

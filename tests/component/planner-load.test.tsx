@@ -1,3 +1,4 @@
+import { readFileSync } from 'node:fs';
 import { screen, waitFor, within } from '@testing-library/react';
 import { serializePlanFile } from '../../src/io/plan-file';
 import { BUILT_IN_PLAN } from '../../src/ui/planner/default-plan';
@@ -35,6 +36,17 @@ describe('loading plans', { timeout: 20_000 }, () => {
     expect(within(alert).getByText(/^Pulse width: must be 10 ns–10 s \(got -1\)/)).toBeInTheDocument();
     expect(within(alert).getByText(/^Sensor 2 lag: must be a number/)).toBeInTheDocument();
     expect(store().plannerPlan).toBe(before);
+  });
+
+  it('opens a version-1 plan file, brought up to date, and says in the plan bar what changed', async () => {
+    const { user } = await openPlanner('missing');
+    const v1 = readFileSync('tests/fixtures/plan-version-1.json', 'utf8');
+    await user.upload(screen.getByLabelText('Plan file to open'), new File([v1], 'old-orrin.json', { type: 'application/json' }));
+    await waitFor(() => expect(store().plannerPlan.version).toBe(2));
+    expect(store().plannerPlan.heater).toMatchObject({ geometry: 'rectangle', width_m: 0.01, height_m: 0.01 });
+    const note = screen.getByText(/Opened “old-orrin\.json”\. Written by an older Sekundo \(plan format version 1\)/);
+    expect(note).toHaveTextContent(/planar film of 1 cm² is now a 10 mm × 10 mm rectangle/);
+    expect(note).toHaveTextContent(/Save the plan to keep it in the new format/);
   });
 
   it('loads the demo only once, whatever the tabs do', async () => {

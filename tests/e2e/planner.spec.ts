@@ -84,7 +84,7 @@ test.describe('measurement planner', () => {
     expect(peakBefore).toBeLessThan(arrivalBefore + 0.1);
     expect(arrivalBefore).toBeCloseTo(2.5247, 3);
 
-    // The sensor goes from 50 mm to 59.9 mm, right under the glass lid at 60 mm.
+    // The sensor goes from 50 mm to 59.9 mm, right under the lid at 60 mm.
     await page.getByRole('textbox', { name: 'Sensor 4 distance', exact: true }).fill('59.9 mm');
     await expect.poll(() => arrivalX(page, 'b50', 'second sound')).toBeGreaterThan(arrivalBefore + 0.4);
     const arrivalAfter = (await arrivalX(page, 'b50', 'second sound')) ?? Number.NaN;

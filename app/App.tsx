@@ -1,4 +1,4 @@
-import { type KeyboardEvent, useRef } from 'react';
+import { type KeyboardEvent, useEffect, useRef } from 'react';
 import { AppHeader } from '../src/ui/layout/AppHeader';
 import { PanelErrorBoundary } from '../src/ui/layout/PanelErrorBoundary';
 import { PreferencesNotice } from '../src/ui/layout/PreferencesNotice';
@@ -72,6 +72,17 @@ function ViewTabs() {
     setActiveView(next.id);
     refs.current[VIEWS.indexOf(next)]?.focus();
   };
+  // On a narrow screen the strip scrolls: keep the chosen tab in sight without moving the page.
+  useEffect(() => {
+    const tab = refs.current[VIEWS.findIndex((v) => v.id === activeView)];
+    const strip = tab?.parentElement;
+    if (!tab || !strip) return;
+    const margin = 12;
+    const t = tab.getBoundingClientRect();
+    const s = strip.getBoundingClientRect();
+    if (t.left < s.left) strip.scrollLeft -= s.left - t.left + margin;
+    else if (t.right > s.right) strip.scrollLeft += t.right - s.right + margin;
+  }, [activeView]);
   return (
     <nav className="view-tabs" aria-label="Views">
       <div role="tablist" aria-label="Sekundo views" className="view-tabs__list" onKeyDown={onKeyDown}>

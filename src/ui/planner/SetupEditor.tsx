@@ -93,23 +93,25 @@ function Reflectors() {
             {help.position.panel}
             {help.reflection.panel}
           </div>
-          <table className="plan-table reflectors-table">
-            <caption className="field-hint reflectors__caption">Each plane is “axis = position” (z = across the heater axis, x or y = a side wall); R is the amplitude reflection coefficient.</caption>
-            <thead>
-              <tr>
-                <HelpColumnHead help={help.label}>Label</HelpColumnHead>
-                <HelpColumnHead help={help.axis}>Plane</HelpColumnHead>
-                <HelpColumnHead help={help.position}>Position</HelpColumnHead>
-                <HelpColumnHead help={help.reflection}>R</HelpColumnHead>
-                <th scope="col">
-                  <span className="visually-hidden">Actions</span>
-                </th>
-              </tr>
-            </thead>
-            {keys.map((key, i) => (
-              <ReflectorRow key={key} index={i} rowKey={key} help={help} />
-            ))}
-          </table>
+          <div className="table-scroll">
+            <table className="plan-table reflectors-table">
+              <caption className="field-hint reflectors__caption">Each plane is “axis = position” (z = across the heater axis, x or y = a side wall); R is the amplitude reflection coefficient.</caption>
+              <thead>
+                <tr>
+                  <HelpColumnHead help={help.label}>Label</HelpColumnHead>
+                  <HelpColumnHead help={help.axis}>Plane</HelpColumnHead>
+                  <HelpColumnHead help={help.position}>Position</HelpColumnHead>
+                  <HelpColumnHead help={help.reflection}>R</HelpColumnHead>
+                  <th scope="col">
+                    <span className="visually-hidden">Actions</span>
+                  </th>
+                </tr>
+              </thead>
+              {keys.map((key, i) => (
+                <ReflectorRow key={key} index={i} rowKey={key} help={help} />
+              ))}
+            </table>
+          </div>
         </>
       )}
     </div>

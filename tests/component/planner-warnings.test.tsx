@@ -60,8 +60,10 @@ describe('planner warnings', { timeout: 20_000 }, () => {
     expect(within(stop as HTMLElement).getByText('Stop')).toBeInTheDocument();
     expect((stop as HTMLElement).querySelector('svg.severity-mark--stop')).not.toBeNull();
     // The tally in the warnings card and the one in the plan bar read the same.
-    const tallies = screen.getAllByLabelText(/^Warnings: 1 stop · \d+ cautions? · \d+ notes?$/);
+    const tallies = [...document.querySelectorAll('.severity-tally')];
     expect(tallies).toHaveLength(2);
+    for (const tally of tallies) expect(tally.textContent).toMatch(/^1 stop · \d+ cautions? · \d+ notes?$/);
+    expect(screen.getByRole('link', { name: /^Warnings: 1 stop · \d+ cautions? · \d+ notes?$/ })).toHaveAttribute('href', '#planner-warnings-title');
     expect(tallies[0]?.querySelector('.severity-tally__part--stop')).toHaveAttribute('data-empty', 'false');
     // Results show no second sound; the timeline still draws first sound.
     const table = screen.getByRole('table', { name: /predicted arrivals/i });

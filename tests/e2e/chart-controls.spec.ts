@@ -38,7 +38,7 @@ test.describe('chart controls of our own', () => {
   test('on a touch screen a drag on a chart scrolls the page instead of zooming', async ({ browser }) => {
     const context = await browser.newContext({ hasTouch: true, isMobile: true, viewport: { width: 390, height: 844 } });
     const page = await context.newPage();
-    await page.addInitScript(() => localStorage.setItem('sekundo.prefs', '{"tour":"done"}'));
+    await page.addInitScript(() => localStorage.setItem('sekundo.prefs', '{"guides":"explorer,planner,converter,locate"}'));
     await page.goto('/');
     const chart = page.locator('[data-chart="speeds"]');
     await expect(chart).toHaveAttribute('data-drawn', 'true');

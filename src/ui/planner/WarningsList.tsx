@@ -36,10 +36,11 @@ function countWords(severity: PlanWarning['severity'], n: number): string {
 function TallyParts({ warnings }: { warnings: readonly PlanWarning[] }) {
   return (
     <>
-      {SEVERITIES.map((sev) => {
+      {SEVERITIES.map((sev, i) => {
         const n = warnings.filter((w) => w.severity === sev).length;
         return (
           <span key={sev} className={`severity-tally__part severity-tally__part--${sev}`} data-empty={n === 0}>
+            {i > 0 ? <span className="visually-hidden"> · </span> : null}
             <SeverityMark severity={sev} />
             {countWords(sev, n)}
           </span>
@@ -62,7 +63,7 @@ export function WarningsList() {
         <h3 id="planner-warnings-title" className="card-title">
           Warnings
         </h3>
-        <p className="severity-tally" aria-label={`Warnings: ${tallyWords(warnings)}`}>
+        <p className="severity-tally">
           <TallyParts warnings={warnings} />
         </p>
         <CsvExportButton

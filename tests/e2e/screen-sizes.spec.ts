@@ -85,6 +85,15 @@ test.describe('every screen size', () => {
         await expect(viewTab).toBeInViewport({ ratio: 0.9 });
         if (viewport.width === 390) await page.screenshot({ path: `${ARTIFACTS}/${stop.id}-390x844.png` });
       }
+      // The display-units panel opens inside the window.
+      await page.getByRole('button', { name: /^Units/ }).click();
+      const panel = page.getByRole('region', { name: 'Display units' });
+      await expect(panel).toBeVisible();
+      const box = await panel.boundingBox();
+      expect(box?.x ?? -1).toBeGreaterThanOrEqual(0);
+      expect((box?.x ?? 0) + (box?.width ?? Number.POSITIVE_INFINITY)).toBeLessThanOrEqual(viewport.width);
+      expect((await sidewaysOverflow(page)).overflow).toBeLessThanOrEqual(0);
+      await page.getByRole('button', { name: 'Done' }).click();
     });
   }
 

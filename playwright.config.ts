@@ -19,9 +19,12 @@ export default defineConfig({
   expect: { timeout: 10_000 },
   use: {
     baseURL: BASE_URL,
-    // The first-visit tour is a modal dialog: every test starts with it already seen, as a returning
-    // visitor; tests of the tour start from empty storage (tests/e2e/workspace-habits.spec.ts).
-    storageState: { cookies: [], origins: [{ origin: BASE_URL, localStorage: [{ name: 'sekundo.prefs', value: '{"tour":"done"}' }] }] },
+    // Every test starts as a returning visitor, with the first-visit guides put away; tests of the
+    // guides start from empty storage (tests/e2e/workspace-habits.spec.ts).
+    storageState: {
+      cookies: [],
+      origins: [{ origin: BASE_URL, localStorage: [{ name: 'sekundo.prefs', value: '{"guides":"explorer,planner,converter,locate"}' }] }],
+    },
     viewport: { width: 1280, height: 720 },
     trace: 'retain-on-failure',
     screenshot: 'only-on-failure',

@@ -1,22 +1,19 @@
-import { type KeyboardEvent, useRef } from 'react';
+import { type KeyboardEvent, useEffect, useRef } from 'react';
 import { AppHeader } from '../src/ui/layout/AppHeader';
 import { PanelErrorBoundary } from '../src/ui/layout/PanelErrorBoundary';
 import { PreferencesNotice } from '../src/ui/layout/PreferencesNotice';
 import { useSekundoStore } from '../src/ui/store';
 import { useDocumentTheme } from '../src/ui/theme/use-theme';
-import { GuidedTour } from '../src/ui/tour/GuidedTour';
+import { ViewGuide } from '../src/ui/guide/ViewGuide';
 import { useWorkspaceModal, WorkspaceNotices, WorkspaceOverlays } from '../src/ui/workspace/WorkspaceLayer';
 import { VIEWS } from './views';
 
-/** The page: header, the view tabs, the active view, and the footer; the tour over them on a first visit. */
+/** The page: header, the view tabs, the active view with its first-visit guide, and the footer. */
 export function App() {
   const activeView = useSekundoStore((s) => s.activeView);
-  // While the tour (a modal dialog) is open, the page behind it takes no focus or clicks.
-  const tourOpen = useSekundoStore((s) => s.tourOpen);
-  const openTour = useSekundoStore((s) => s.openTour);
-  // So is it while a workspace dialog (a shared plan to confirm, the setup sheet) is open.
-  const workspaceModal = useWorkspaceModal();
-  const blocked = tourOpen || workspaceModal;
+  const showGuidesAgain = useSekundoStore((s) => s.showGuidesAgain);
+  // While a workspace dialog (a shared plan to confirm, the setup sheet) is open, the page behind it takes no focus or clicks.
+  const blocked = useWorkspaceModal();
   useDocumentTheme();
   const active = VIEWS.find((v) => v.id === activeView) ?? VIEWS[0];
   if (!active) return null;
@@ -34,6 +31,7 @@ export function App() {
       </div>
       <main id="view" className="page" role="tabpanel" aria-labelledby={`tab-${active.id}`} tabIndex={-1} inert={blocked}>
         <p className="view-purpose">{active.purpose}</p>
+        <ViewGuide view={active.id} />
         <PanelErrorBoundary panel={`${active.label} view`}>
           <View />
         </PanelErrorBoundary>
@@ -41,14 +39,11 @@ export function App() {
       <footer className="app-footer" inert={blocked}>
         <p>
           Sekundo computes everything in your browser; it sends nothing anywhere. A planning aid, not a safety system.{' '}
-          <button type="button" className="inline-link-button" onClick={openTour}>
-            Show the tour again
+          <button type="button" className="inline-link-button" onClick={showGuidesAgain}>
+            Show the first-visit guides again
           </button>
         </p>
       </footer>
-      <PanelErrorBoundary panel="tour">
-        <GuidedTour />
-      </PanelErrorBoundary>
       <PanelErrorBoundary panel="workspace">
         <WorkspaceOverlays />
       </PanelErrorBoundary>
@@ -72,6 +67,17 @@ function ViewTabs() {
     setActiveView(next.id);
     refs.current[VIEWS.indexOf(next)]?.focus();
   };
+  // On a narrow screen the strip scrolls: keep the chosen tab in sight without moving the page.
+  useEffect(() => {
+    const tab = refs.current[VIEWS.findIndex((v) => v.id === activeView)];
+    const strip = tab?.parentElement;
+    if (!tab || !strip) return;
+    const margin = 12;
+    const t = tab.getBoundingClientRect();
+    const s = strip.getBoundingClientRect();
+    if (t.left < s.left) strip.scrollLeft -= s.left - t.left + margin;
+    else if (t.right > s.right) strip.scrollLeft += t.right - s.right + margin;
+  }, [activeView]);
   return (
     <nav className="view-tabs" aria-label="Views">
       <div role="tablist" aria-label="Sekundo views" className="view-tabs__list" onKeyDown={onKeyDown}>

@@ -5,6 +5,7 @@ import { startPreferences } from '../src/ui/preferences/persist-preferences';
 import { registerOfflineCache } from './offline/register';
 import './styles.css';
 import '../src/ui/workspace/workspace.css';
+import './small-screens.css';
 import { startWorkspace } from '../src/ui/workspace/persist-workspace';
 
 // Theme, display units and the tour's state as the browser kept them, before the first paint.

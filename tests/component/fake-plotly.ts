@@ -13,6 +13,12 @@ export interface DrawCall {
   config: PlotConfig;
 }
 
+/** A change of a drawn chart's layout (the chart's own zoom buttons). */
+export interface RelayoutCall {
+  chartId: string | null;
+  update: Readonly<Record<string, unknown>>;
+}
+
 /** A request for a chart's image (export). */
 export interface ImageCall {
   chartId: string | null;
@@ -23,12 +29,14 @@ export const fakePlotly = {
   draws: [] as DrawCall[],
   purged: [] as HTMLElement[],
   images: [] as ImageCall[],
+  relayouts: [] as RelayoutCall[],
   /** Chart id whose drawing fails, to exercise the error boundaries. */
   failFor: null as string | null,
   reset(): void {
     this.draws = [];
     this.purged = [];
     this.images = [];
+    this.relayouts = [];
     this.failFor = null;
   },
 };
@@ -46,6 +54,10 @@ export const fakePlotlyApi: PlotlyApi = {
     fakePlotly.purged.push(element);
   },
   Plots: { resize: () => undefined },
+  relayout(element, update) {
+    fakePlotly.relayouts.push({ chartId: element.getAttribute('data-chart'), update });
+    return Promise.resolve(element);
+  },
   toImage(element, options) {
     fakePlotly.images.push({ chartId: element.getAttribute('data-chart'), options });
     // A tiny stand-in image: SVG text, or base64 for PNG ("PNG" in ASCII).

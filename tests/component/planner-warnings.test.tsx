@@ -52,14 +52,19 @@ describe('planner warnings', { timeout: 20_000 }, () => {
     await waitFor(() => expect(lastShape('planner-timeline', 'record-window')?.x1).toBeCloseTo(1, 9));
   });
 
-  it('warns, as a stop with its own icon and word, when the bath is He I', async () => {
+  it('warns, as a stop with its own mark and word, when the bath is He I', async () => {
     const { user } = await openPlanner();
     await user.click(screen.getByRole('radio', { name: 'Temperature' }));
     await replaceText(user, 'Bath temperature', '2.5 K');
     const [stop] = warningItems('no-second-sound');
     expect(within(stop as HTMLElement).getByText('Stop')).toBeInTheDocument();
-    expect((stop as HTMLElement).querySelector('svg.severity-icon--stop')).not.toBeNull();
-    expect(document.querySelector('.warning-count--stop')).toHaveTextContent('1 stop');
+    expect((stop as HTMLElement).querySelector('svg.severity-mark--stop')).not.toBeNull();
+    // The tally in the warnings card and the one in the plan bar read the same.
+    const tallies = [...document.querySelectorAll('.severity-tally')];
+    expect(tallies).toHaveLength(2);
+    for (const tally of tallies) expect(tally.textContent).toMatch(/^1 stop · \d+ cautions? · \d+ notes?$/);
+    expect(screen.getByRole('link', { name: /^Warnings: 1 stop · \d+ cautions? · \d+ notes?$/ })).toHaveAttribute('href', '#planner-warnings-title');
+    expect(tallies[0]?.querySelector('.severity-tally__part--stop')).toHaveAttribute('data-empty', 'false');
     // Results show no second sound; the timeline still draws first sound.
     const table = screen.getByRole('table', { name: /predicted arrivals/i });
     expect(within(table).getAllByText('—').length).toBeGreaterThan(0);

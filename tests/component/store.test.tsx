@@ -53,6 +53,7 @@ describe('Sekundo store', () => {
       'converterTraceSensor',
       'converterTraceView',
       'displayUnits',
+      'guidesDismissed',
       'locateDisplay',
       'locateDrafts',
       'locateErrors',
@@ -79,8 +80,6 @@ describe('Sekundo store', () => {
       'temperatureError',
       'temperature_K',
       'themeChoice',
-      'tourOpen',
-      'tourSeen',
     ]);
   });
 

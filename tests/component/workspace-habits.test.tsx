@@ -49,8 +49,10 @@ afterEach(() => {
   vi.unstubAllGlobals();
 });
 
-/** A browser store that already holds preferences (the tour seen, unless `prefs` says otherwise). */
-function storeWith(prefs: Record<string, string> = { tour: 'done' }): KeyValueStore {
+const ALL_GUIDES = 'explorer,planner,converter,locate';
+
+/** A browser store that already holds preferences (every guide put away, unless `prefs` says otherwise). */
+function storeWith(prefs: Record<string, string> = { guides: ALL_GUIDES }): KeyValueStore {
   const kept = memoryStore();
   kept.setItem(PREFS_KEY, JSON.stringify(prefs));
   return kept;
@@ -87,12 +89,12 @@ function propertyRow(name: string): HTMLElement {
 
 describe('theme', () => {
   it('the header toggle sets data-theme on <html> and is kept for the next visit', async () => {
-    const browser = storeWith({ tour: 'done', other: 'kept' });
+    const browser = storeWith({ guides: ALL_GUIDES, other: 'kept' });
     const { user } = await openPage(browser);
     expect(screen.getByRole('radio', { name: 'System' })).toBeChecked();
     await user.click(screen.getByRole('radio', { name: 'Dark' }));
     expect(document.documentElement.dataset.theme).toBe('dark');
-    expect(kept(browser)).toMatchObject({ theme: 'dark', tour: 'done', other: 'kept' });
+    expect(kept(browser)).toMatchObject({ theme: 'dark', guides: ALL_GUIDES, other: 'kept' });
 
     await reload(browser);
     expect(document.documentElement.dataset.theme).toBe('dark');
@@ -164,7 +166,7 @@ describe('display units', () => {
   });
 
   it('ignores a unit the page does not offer (a stale or edited preference)', async () => {
-    await openPage(storeWith({ tour: 'done', 'unit.length': 'furlong', 'unit.time': 'µs', theme: 'sepia' }));
+    await openPage(storeWith({ guides: ALL_GUIDES, 'unit.length': 'furlong', 'unit.time': 'µs', theme: 'sepia' }));
     expect(store().displayUnits.length).toBe('mm');
     expect(store().displayUnits.time).toBe('µs');
     expect(store().themeChoice).toBe('system');
@@ -173,7 +175,7 @@ describe('display units', () => {
 
 describe('exports', () => {
   it('the property table as CSV: every property with its value, sd, unit and source, RFC 4180 quoting', async () => {
-    const { user } = await openPage(storeWith({ tour: 'done', 'unit.pressure': 'torr' }));
+    const { user } = await openPage(storeWith({ guides: ALL_GUIDES, 'unit.pressure': 'torr' }));
     await user.click(screen.getByRole('button', { name: 'Download the property table as CSV' }));
     expect(downloads).toHaveLength(1);
     const [download] = downloads;
@@ -227,7 +229,7 @@ describe('exports', () => {
 
 describe('locate view', () => {
   async function openLocate(prefs: Record<string, string>) {
-    stopPreferences = startPreferences(storeWith({ tour: 'done', ...prefs }));
+    stopPreferences = startPreferences(storeWith({ guides: ALL_GUIDES, ...prefs }));
     store().loadLocateSensors(DEMO_SENSORS, { kind: 'demo', name: 'demo', note: null });
     const user = userEvent.setup();
     render(<LocateView />);
@@ -300,50 +302,47 @@ describe('explorer help', () => {
   });
 });
 
-describe('first-visit tour', () => {
-  it('opens on a first visit, closes for good, and the footer opens it again', async () => {
+describe('first-visit guides', () => {
+  it('show inline above each view on a first visit, cover nothing, and stay away once put away', async () => {
     const browser = memoryStore();
     const { user } = await openPage(browser);
-    const dialog = screen.getByRole('dialog', { name: 'Welcome to Sekundo' });
-    expect(dialog).toHaveAttribute('aria-modal', 'true');
-    expect(within(dialog).getByRole('heading', { name: 'Welcome to Sekundo' })).toHaveFocus();
-    // The page behind is inert while the tour is open.
-    expect(document.querySelector('main')).toHaveAttribute('inert');
-
-    await user.click(within(dialog).getByRole('button', { name: 'Next' }));
-    expect(within(dialog).getByRole('heading', { name: 'Helium properties' })).toBeInTheDocument();
-    expect(within(dialog).getByText(/About and cautions/)).toBeInTheDocument();
-    await user.click(within(dialog).getByRole('button', { name: 'Close the tour' }));
     expect(screen.queryByRole('dialog')).toBeNull();
     expect(document.querySelector('main')).not.toHaveAttribute('inert');
-    expect(kept(browser)).toMatchObject({ tour: 'done' });
+    const guide = screen.getByRole('complementary', { name: /^First time here\? Start with the bath temperature/ });
+    expect(within(guide).getByText(/About and cautions/)).toBeInTheDocument();
+    // The view under the guide works as usual.
+    expect(screen.getByRole('table', { name: /liquid helium-4 at 1\.8000 K/i })).toBeInTheDocument();
+
+    await user.click(within(guide).getByRole('button', { name: 'Got it' }));
+    expect(screen.queryByRole('complementary', { name: /^First time here/ })).toBeNull();
+    expect(kept(browser)).toMatchObject({ guides: 'explorer' });
+    // Another view keeps its own guide until it too is put away.
+    await user.click(screen.getByRole('tab', { name: 'Plan a measurement' }));
+    expect(screen.getByRole('complementary', { name: /^First time here\? Edit the demo plan/ })).toBeInTheDocument();
+    await user.click(screen.getByRole('button', { name: 'Hide all guides' }));
+    expect(kept(browser)).toMatchObject({ guides: 'explorer,planner,converter,locate' });
 
     const again = await reload(browser);
-    expect(screen.queryByRole('dialog')).toBeNull();
-    await again.user.click(screen.getByRole('button', { name: 'Show the tour again' }));
-    expect(screen.getByRole('dialog', { name: 'Welcome to Sekundo' })).toBeInTheDocument();
-    await again.user.keyboard('{Escape}');
-    expect(screen.queryByRole('dialog')).toBeNull();
-    expect(screen.getByRole('button', { name: 'Show the tour again' })).toHaveFocus();
+    expect(screen.queryByRole('complementary', { name: /^First time here/ })).toBeNull();
+    await again.user.click(screen.getByRole('button', { name: 'Show the first-visit guides again' }));
+    expect(screen.getByRole('complementary', { name: /^First time here\? Start with the bath temperature/ })).toBeInTheDocument();
+    expect(kept(browser)).toMatchObject({ guides: '' });
   });
 
-  it('keeps Tab inside the dialog', async () => {
-    const { user } = await openPage(memoryStore());
-    const dialog = screen.getByRole('dialog');
-    for (let i = 0; i < 6; i++) {
-      await user.tab();
-      expect(dialog.contains(document.activeElement)).toBe(true);
-    }
-    await user.tab({ shift: true });
-    expect(dialog.contains(document.activeElement)).toBe(true);
+  it('an earlier version’s closed tour counts as every guide put away', async () => {
+    await openPage(storeWith({ tour: 'done' }));
+    expect(screen.queryByRole('complementary', { name: /^First time here/ })).toBeNull();
   });
 });
 
 describe('storage faults', () => {
   it('storage turned off: the page says so once, unobtrusively, and works on', async () => {
     const { user } = await openPage(null);
-    // Nothing kept: a first visit every time, so the tour opens.
-    await user.click(screen.getByRole('button', { name: 'Close the tour' }));
+    // Nothing kept: a first visit every time, so the guide shows; it covers nothing.
+    expect(screen.getByRole('complementary', { name: /^First time here/ })).toBeInTheDocument();
+    // The first change that cannot be kept says so.
+    await user.click(screen.getByRole('radio', { name: 'Dark' }));
+    expect(document.documentElement.dataset.theme).toBe('dark');
     const notice = screen.getByRole('status', { name: '' });
     expect(screen.getByText(PREFERENCES_NOT_KEPT)).toBeInTheDocument();
     expect(notice).toBeInTheDocument();
@@ -351,8 +350,8 @@ describe('storage faults', () => {
     expect(screen.queryByText(PREFERENCES_NOT_KEPT)).toBeNull();
 
     // Later changes work and do not bring the message back.
-    await user.click(screen.getByRole('radio', { name: 'Dark' }));
-    expect(document.documentElement.dataset.theme).toBe('dark');
+    await user.click(screen.getByRole('radio', { name: 'Light' }));
+    expect(document.documentElement.dataset.theme).toBe('light');
     expect(screen.queryByText(PREFERENCES_NOT_KEPT)).toBeNull();
     expect(screen.getByRole('table', { name: /liquid helium-4 at 1\.8000 K/i })).toBeInTheDocument();
   });

@@ -22,7 +22,7 @@ let stop: (() => void) | null = null;
 
 beforeEach(() => {
   resetWorkspaceStore();
-  useSekundoStore.setState({ tourSeen: true, tourOpen: false });
+  useSekundoStore.setState({ guidesDismissed: ['explorer', 'planner', 'converter', 'locate'] });
   stop = startWorkspace(memoryStore(), { delayMs: 5, hash: '' });
 });
 

@@ -79,12 +79,12 @@ test.describe('converter', () => {
   test.beforeEach(async ({ page }) => {
     requests.length = 0;
     problems.length = 0;
-    // The first-visit tour is remembered as seen, so it does not cover the page.
+    // The first-visit guides are put away, so the view shows as a returning visitor sees it.
     await page.addInitScript(() => {
       try {
-        if (!localStorage.getItem('sekundo.prefs')) localStorage.setItem('sekundo.prefs', JSON.stringify({ tour: 'done' }));
+        if (!localStorage.getItem('sekundo.prefs')) localStorage.setItem('sekundo.prefs', JSON.stringify({ guides: 'explorer,planner,converter,locate' }));
       } catch {
-        // Storage off: nothing to remember the tour in.
+        // Storage off: nothing to remember the guides in.
       }
     });
     page.on('request', (request) => requests.push(request.url()));

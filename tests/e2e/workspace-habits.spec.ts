@@ -189,14 +189,19 @@ test.describe('workspace habits', () => {
         await expect(page.getByRole('tab', { name: view.tab })).toHaveAttribute('aria-selected', 'true');
         await waitForCharts(page);
       }
-      for (let n = 0; n < 30; n++) {
+      // Up to 30 stops into the view, or until the footer's button, the page's last stop.
+      let pressed = 0;
+      while (pressed < 30) {
         await page.keyboard.press('Tab');
+        pressed += 1;
         const f = await focused();
-        expect(f.inMain || f.name.includes('Show the tour again'), `Tab ${n + 1} in ${view.id} left the view: ${f.name}`).toBe(true);
+        const footer = f.name.includes('Show the first-visit guides again');
+        expect(f.inMain || footer, `Tab ${pressed} in ${view.id} left the view: ${f.name}`).toBe(true);
         if (!f.ring) missing.push(`${view.id}: ${f.name}`);
         if (!f.inView) missing.push(`${view.id}: ${f.name} (off screen)`);
+        if (footer) break;
       }
-      for (let n = 0; n < 30; n++) await page.keyboard.press('Shift+Tab');
+      for (let n = 0; n < pressed; n++) await page.keyboard.press('Shift+Tab');
       await expect(page.getByRole('tab', { name: view.tab })).toBeFocused();
     }
     expect(missing, 'every focused control shows a focus ring and is scrolled into view').toEqual([]);
@@ -265,8 +270,8 @@ test.describe('workspace habits', () => {
       };
     });
     await page.goto('/');
-    // Nothing could be kept, so this is a first visit: the tour opens.
-    await page.getByRole('dialog').getByRole('button', { name: 'Close the tour' }).click();
+    // Nothing could be kept, so this is a first visit: the guide shows, covering nothing.
+    await expect(page.getByRole('complementary', { name: /^First time here/ })).toBeVisible();
     await themeOption(page, 'Dark').click();
     await expect(page.locator('html')).toHaveAttribute('data-theme', 'dark');
     await expect(page.getByRole('status').filter({ hasText: /cannot be saved in this browser|does not let Sekundo keep data/ })).toHaveCount(1);
@@ -278,50 +283,44 @@ test.describe('workspace habits', () => {
 test.describe('first visit', () => {
   test.use({ storageState: { cookies: [], origins: [] } });
 
-  test('the tour opens once, walks the tabs by keyboard, closes for good and comes back from the footer', async ({ page }) => {
+  test('each view shows its guide inline, nothing covers the page, and a guide put away stays away', async ({ page }) => {
     const outside: string[] = [];
     page.on('request', (r) => {
       const { protocol, hostname } = new URL(r.url());
       if (!(protocol === 'data:' || protocol === 'blob:' || hostname === '127.0.0.1')) outside.push(r.url());
     });
     await page.goto('/');
-    const dialog = page.getByRole('dialog', { name: 'Welcome to Sekundo' });
-    await expect(dialog).toBeVisible();
-    await expect(dialog.getByRole('heading', { name: 'Welcome to Sekundo' })).toBeFocused();
-    mkdirSync(ARTIFACTS, { recursive: true });
-    await page.screenshot({ path: `${ARTIFACTS}/theme-light-tour.png` });
-
-    // Tab stays in the dialog; Enter on Next walks the steps, each opening its view behind.
-    await page.keyboard.press('Tab');
-    await page.keyboard.press('Tab');
-    await expect(dialog.getByRole('button', { name: 'Next' })).toBeFocused();
-    const steps = ['Helium properties', 'Plan a measurement', 'Read the temperature', 'Locate a source'];
-    for (const step of steps) {
-      await page.keyboard.press('Enter');
-      await expect(page.getByRole('dialog').getByRole('heading', { name: step })).toBeVisible();
-      await expect(page.getByRole('tab', { name: step })).toHaveAttribute('aria-selected', 'true');
-      await expect(page.getByRole('dialog').getByText(/Cautions:/)).toBeVisible();
-    }
-    await page.keyboard.press('Tab');
-    await page.keyboard.press('Tab');
-    await page.keyboard.press('Tab');
-    expect(await page.evaluate(() => Boolean(document.activeElement?.closest('[role="dialog"]')))).toBe(true);
-    await page.getByRole('dialog').getByRole('button', { name: 'Finish' }).focus();
-    await page.keyboard.press('Enter');
     await expect(page.getByRole('dialog')).toHaveCount(0);
-    // Back where the visit began.
-    await expect(page.getByRole('tab', { name: 'Helium properties' })).toHaveAttribute('aria-selected', 'true');
+    const guide = page.getByRole('complementary', { name: /^First time here\? Start with the bath temperature/ });
+    await expect(guide).toBeVisible();
+    // The view is usable under its guide: the temperature field takes a value at once.
+    const field = page.getByRole('textbox', { name: /temperature/i });
+    await field.fill('1.5');
+    await field.press('Enter');
+    await expect(page.getByRole('status', { name: 'Temperature in effect' })).toContainText('1.5000 K');
+    mkdirSync(ARTIFACTS, { recursive: true });
+    await page.screenshot({ path: `${ARTIFACTS}/first-visit-guide.png` });
+
+    // Each view has its own guide; the keyboard reaches its buttons in the page's order.
+    const leads = ['Start with the bath temperature', 'Edit the demo plan', 'Type the distance and the delay', 'Type or load the sensors'];
+    const tabs = ['Helium properties', 'Plan a measurement', 'Read the temperature', 'Locate a source'];
+    for (const [i, tab] of tabs.entries()) {
+      await page.getByRole('tab', { name: tab }).click();
+      await expect(page.getByRole('complementary', { name: new RegExp(`^First time here\\? ${leads[i]}`) })).toBeVisible();
+    }
+    await page.getByRole('complementary', { name: /^First time here/ }).getByRole('button', { name: 'Got it' }).focus();
+    await page.keyboard.press('Enter');
+    await expect(page.getByRole('complementary', { name: /^First time here/ })).toHaveCount(0);
+    await page.getByRole('tab', { name: 'Helium properties' }).click();
+    await page.getByRole('button', { name: 'Hide all guides' }).click();
+    await expect(page.getByRole('complementary', { name: /^First time here/ })).toHaveCount(0);
 
     await page.reload();
     await expect(page.getByRole('heading', { level: 1, name: 'Sekundo' })).toBeVisible();
     await waitForCharts(page);
-    await expect(page.getByRole('dialog')).toHaveCount(0);
-
-    await page.getByRole('button', { name: 'Show the tour again' }).click();
-    await expect(page.getByRole('dialog', { name: 'Welcome to Sekundo' })).toBeVisible();
-    await page.keyboard.press('Escape');
-    await expect(page.getByRole('dialog')).toHaveCount(0);
-    await expect(page.getByRole('button', { name: 'Show the tour again' })).toBeFocused();
+    await expect(page.getByRole('complementary', { name: /^First time here/ })).toHaveCount(0);
+    await page.getByRole('button', { name: 'Show the first-visit guides again' }).click();
+    await expect(guide).toBeVisible();
     expect(outside).toEqual([]);
   });
 });

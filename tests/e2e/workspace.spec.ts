@@ -11,13 +11,13 @@ const TIMELINE = '[data-chart="planner-timeline"]';
 const DEMO_NAME = 'Orrin-2 insert: three-depth time-of-flight check at 1.80 K';
 const PAYLOAD = '<img src=x onerror=alert(1)>';
 
-/** The first-visit tour is remembered as seen, so it does not cover the page. */
-async function skipTour(target: Page | BrowserContext) {
+/** The first-visit guides are put away, so the views show as a returning visitor sees them. */
+async function putGuidesAway(target: Page | BrowserContext) {
   await target.addInitScript(() => {
     try {
-      if (!localStorage.getItem('sekundo.prefs')) localStorage.setItem('sekundo.prefs', JSON.stringify({ tour: 'done' }));
+      if (!localStorage.getItem('sekundo.prefs')) localStorage.setItem('sekundo.prefs', JSON.stringify({ guides: 'explorer,planner,converter,locate' }));
     } catch {
-      // Storage off: the test closes the tour itself.
+      // Storage off: the guides show, covering nothing.
     }
   });
 }
@@ -63,7 +63,7 @@ test.describe('workspace', () => {
   });
 
   test('(a) plan from the demo and print the setup sheet', async ({ page }) => {
-    await skipTour(page);
+    await putGuidesAway(page);
     await page.addInitScript(() => {
       (window as unknown as { printCalls: number }).printCalls = 0;
       window.print = () => {
@@ -97,7 +97,7 @@ test.describe('workspace', () => {
   });
 
   test('(d) reload mid-edit: the plan and the saved plans are back', async ({ page }) => {
-    await skipTour(page);
+    await putGuidesAway(page);
     await openPlanner(page);
     await page.getByRole('button', { name: /Saved plans/ }).click();
     await page.getByRole('textbox', { name: 'Save the open plan as' }).fill('Before the reload');
@@ -126,7 +126,7 @@ test.describe('workspace', () => {
   });
 
   test('(e) a broken plan file is refused with its messages; the plan is intact', async ({ page }) => {
-    await skipTour(page);
+    await putGuidesAway(page);
     await openPlanner(page);
     await page.getByLabel('Plan file to open').setInputFiles({
       name: 'negative-width.json',
@@ -142,7 +142,7 @@ test.describe('workspace', () => {
   });
 
   test('(e) share link round trip into a fresh browser, and a broken link', async ({ page, browser }) => {
-    await skipTour(page);
+    await putGuidesAway(page);
     await openPlanner(page);
     const name = page.getByRole('textbox', { name: 'Plan name' });
     await name.fill('Shared from bench 3');
@@ -152,7 +152,7 @@ test.describe('workspace', () => {
     expect(url).toMatch(/^http:\/\/127\.0\.0\.1:\d+\/#plan=1\./);
 
     const other = await browser.newContext({ viewport: { width: 1280, height: 720 } });
-    await skipTour(other);
+    await putGuidesAway(other);
     const colleague = await other.newPage();
     watch(colleague);
     await colleague.goto(url);
@@ -184,7 +184,6 @@ test.describe('workspace', () => {
       });
     });
     await page.goto('/');
-    await page.getByRole('dialog').getByRole('button', { name: 'Close the tour' }).click();
     await expect(page.getByText(/does not let Sekundo keep data/)).toBeVisible();
     await page.getByRole('tab', { name: 'Plan a measurement' }).click();
     await expect(page.locator(TIMELINE)).toHaveAttribute('data-drawn', 'true');
@@ -198,7 +197,7 @@ test.describe('workspace', () => {
   });
 
   test('names and labels with HTML stay text: no element, no dialog', async ({ page }) => {
-    await skipTour(page);
+    await putGuidesAway(page);
     await openPlanner(page);
     const plan = JSON.parse(readFileSync('public/demo-plan.json', 'utf8')) as {
       name: string;

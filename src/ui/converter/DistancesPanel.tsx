@@ -255,31 +255,33 @@ export function DistancesResult() {
             </dd>
           </div>
         </dl>
-        <table className="properties-table residuals-table">
-          <caption>Residuals of the fit</caption>
-          <thead>
-            <tr>
-              <th scope="col">Row</th>
-              <th scope="col" className="num">
-                Distance
-              </th>
-              <th scope="col" className="num">
-                Residual
-              </th>
-            </tr>
-          </thead>
-          <tbody>
-            {f.residuals_s.map((r, i) => (
-              <tr key={points.rows[i] ?? i}>
-                <th scope="row">{points.rows[i]}</th>
-                <td className="num">
-                  {length.format(points.points[i]?.distance_m ?? 0)} {length.shown}
-                </td>
-                <td className="num">{formatSignificant(r * 1e6, 3)} µs</td>
+        <div className="table-scroll">
+          <table className="properties-table residuals-table">
+            <caption>Residuals of the fit</caption>
+            <thead>
+              <tr>
+                <th scope="col">Row</th>
+                <th scope="col" className="num">
+                  Distance
+                </th>
+                <th scope="col" className="num">
+                  Residual
+                </th>
               </tr>
-            ))}
-          </tbody>
-        </table>
+            </thead>
+            <tbody>
+              {f.residuals_s.map((r, i) => (
+                <tr key={points.rows[i] ?? i}>
+                  <th scope="row">{points.rows[i]}</th>
+                  <td className="num">
+                    {length.format(points.points[i]?.distance_m ?? 0)} {length.shown}
+                  </td>
+                  <td className="num">{formatSignificant(r * 1e6, 3)} µs</td>
+                </tr>
+              ))}
+            </tbody>
+          </table>
+        </div>
       </div>
     </ConversionResult>
   );

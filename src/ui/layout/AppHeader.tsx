@@ -20,13 +20,17 @@ export function AppHeader() {
   );
 }
 
-/** A heat pulse crossing a cell: the mark beside the name. Decorative. */
+/**
+ * Sekundo's mark: a square heater pulse and, later along the baseline, its second-sound copy,
+ * smaller and rounded by the journey through the liquid. Decorative; public/favicon.svg and the
+ * app icons draw the same shape.
+ */
 function SekundoMark() {
   return (
     <svg className="app-mark" viewBox="0 0 40 40" width="40" height="40" aria-hidden="true" focusable="false">
       <rect x="1" y="1" width="38" height="38" rx="9" className="app-mark__tile" />
-      <path d="M6 26 H13 L16 12 L19 30 L22 18 L24 26 H34" className="app-mark__pulse" />
-      <circle cx="34" cy="26" r="2.4" className="app-mark__dot" />
+      <path d="M4.5 28H8.5V12H13.5V28H16" className="app-mark__heater" />
+      <path d="M16 28H20C23.2 28 23.6 18.5 27.25 18.5S31.3 28 34.5 28H35.5" className="app-mark__arrival" />
     </svg>
   );
 }

@@ -71,40 +71,42 @@ export function LocateSummary() {
           <p>Move or add a sensor off the line (the map below shows where one helps most), or hold the source on a surface.</p>
         </div>
       ) : null}
-      <table className="locate-position" aria-label={r.degenerate ? 'Where the fit stopped (not determined)' : 'Source position'}>
-        <thead>
-          <tr>
-            <th scope="col" className="locate-position__axis" />
-            {AXIS_NAMES.map((n) => (
-              <th key={n} scope="col" className="locate-position__axis">
-                {n} <span className="unit-as-written">({length.shown})</span>
+      <div className="table-scroll">
+        <table className="locate-position" aria-label={r.degenerate ? 'Where the fit stopped (not determined)' : 'Source position'}>
+          <thead>
+            <tr>
+              <th scope="col" className="locate-position__axis" />
+              {AXIS_NAMES.map((n) => (
+                <th key={n} scope="col" className="locate-position__axis">
+                  {n} <span className="unit-as-written">({length.shown})</span>
+                </th>
+              ))}
+            </tr>
+          </thead>
+          <tbody>
+            <tr>
+              <th scope="row" className="locate-position__row">
+                {r.degenerate ? 'fit stopped at' : 'source'}
               </th>
-            ))}
-          </tr>
-        </thead>
-        <tbody>
-          <tr>
-            <th scope="row" className="locate-position__row">
-              {r.degenerate ? 'fit stopped at' : 'source'}
-            </th>
-            {r.source_m.map((_, k) => (
-              <td key={AXIS_NAMES[k]} className="locate-position__value" data-testid={`locate-source-${AXIS_NAMES[k]}`}>
-                {position[k]?.value}
-              </td>
-            ))}
-          </tr>
-          <tr>
-            <th scope="row" className="locate-position__row">
-              1σ
-            </th>
-            {[0, 1, 2].map((k) => (
-              <td key={AXIS_NAMES[k]} className="num">
-                {position[k]?.sd ? `± ${position[k]?.sd}` : '—'}
-              </td>
-            ))}
-          </tr>
-        </tbody>
-      </table>
+              {r.source_m.map((_, k) => (
+                <td key={AXIS_NAMES[k]} className="locate-position__value" data-testid={`locate-source-${AXIS_NAMES[k]}`}>
+                  {position[k]?.value}
+                </td>
+              ))}
+            </tr>
+            <tr>
+              <th scope="row" className="locate-position__row">
+                1σ
+              </th>
+              {[0, 1, 2].map((k) => (
+                <td key={AXIS_NAMES[k]} className="num">
+                  {position[k]?.sd ? `± ${position[k]?.sd}` : '—'}
+                </td>
+              ))}
+            </tr>
+          </tbody>
+        </table>
+      </div>
       <dl className="locate-facts">
         <div>
           <dt>Emission time t0</dt>

@@ -58,45 +58,47 @@ function CustomPoints() {
         {timeHelp.panel}
         {amplitudeHelp.panel}
       </div>
-      <table className="plan-table pulse-points__table">
-        <caption className="visually-hidden">Custom pulse points</caption>
-        <thead>
-          <tr>
-            <th scope="col">#</th>
-            <HelpColumnHead help={timeHelp}>Time from onset</HelpColumnHead>
-            <HelpColumnHead help={amplitudeHelp}>Relative amplitude</HelpColumnHead>
-            <th scope="col">
-              <span className="visually-hidden">Actions</span>
-            </th>
-          </tr>
-        </thead>
-        <tbody>
-          {points.map((_, i) => (
-            // Points have no identity beyond their place; drafts are cleared when the list changes.
-            // biome-ignore lint/suspicious/noArrayIndexKey: a point is its position in the list
-            <tr key={i}>
-              <td className="num">{i + 1}</td>
-              <td>
-                <PlanNumberField field={pulsePointField(i, 0)} label={`Point ${i + 1} time`} labelHidden message="elsewhere" describedBy={timeHelp.describedBy} />
-              </td>
-              <td>
-                <PlanNumberField field={pulsePointField(i, 1)} label={`Point ${i + 1} amplitude`} labelHidden message="elsewhere" describedBy={amplitudeHelp.describedBy} />
-              </td>
-              <td>
-                <button
-                  type="button"
-                  className="icon-button"
-                  disabled={count <= 2}
-                  aria-label={`Remove point ${i + 1}`}
-                  onClick={() => edit('pulse.points', (p) => removePulsePoint(p, i), 'pulse.')}
-                >
-                  <RemoveIcon />
-                </button>
-              </td>
+      <div className="table-scroll">
+        <table className="plan-table pulse-points__table">
+          <caption className="visually-hidden">Custom pulse points</caption>
+          <thead>
+            <tr>
+              <th scope="col">#</th>
+              <HelpColumnHead help={timeHelp}>Time from onset</HelpColumnHead>
+              <HelpColumnHead help={amplitudeHelp}>Relative amplitude</HelpColumnHead>
+              <th scope="col">
+                <span className="visually-hidden">Actions</span>
+              </th>
             </tr>
-          ))}
-        </tbody>
-      </table>
+          </thead>
+          <tbody>
+            {points.map((_, i) => (
+              // Points have no identity beyond their place; drafts are cleared when the list changes.
+              // biome-ignore lint/suspicious/noArrayIndexKey: a point is its position in the list
+              <tr key={i}>
+                <td className="num">{i + 1}</td>
+                <td>
+                  <PlanNumberField field={pulsePointField(i, 0)} label={`Point ${i + 1} time`} labelHidden message="elsewhere" describedBy={timeHelp.describedBy} />
+                </td>
+                <td>
+                  <PlanNumberField field={pulsePointField(i, 1)} label={`Point ${i + 1} amplitude`} labelHidden message="elsewhere" describedBy={amplitudeHelp.describedBy} />
+                </td>
+                <td>
+                  <button
+                    type="button"
+                    className="icon-button"
+                    disabled={count <= 2}
+                    aria-label={`Remove point ${i + 1}`}
+                    onClick={() => edit('pulse.points', (p) => removePulsePoint(p, i), 'pulse.')}
+                  >
+                    <RemoveIcon />
+                  </button>
+                </td>
+              </tr>
+            ))}
+          </tbody>
+        </table>
+      </div>
       <PointMessages count={count} />
       <div className="pulse-points__actions">
         <button type="button" className="button button--small" disabled={count >= CUSTOM_PULSE_MAX_POINTS} onClick={() => edit('pulse.points', addPulsePoint, 'pulse.')}>

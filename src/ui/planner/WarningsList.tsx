@@ -7,23 +7,46 @@ import { warningFigures, warningsCsv } from './warning-figures';
 const SEVERITY_ORDER: Record<PlanWarning['severity'], number> = { stop: 0, caution: 1, info: 2 };
 const SEVERITY_TEXT: Record<PlanWarning['severity'], string> = { stop: 'Stop', caution: 'Caution', info: 'Note' };
 
-/** Counts of the plan's warnings by severity, as icon and words, linking to the list (for the plan bar). */
+/** Counts of the plan's warnings by severity as one tally strip, linking to the list (for the plan bar). */
 export function WarningCounts() {
   const outcome = usePlanOutcome();
   if (!outcome.ok) return null;
-  const warnings = outcome.result.warnings;
   return (
-    <a className="plan-warnings__counts plan-warnings__counts--link" href="#planner-warnings-title">
-      {(['stop', 'caution', 'info'] as const).map((sev) => {
+    <a className="severity-tally severity-tally--link" href="#planner-warnings-title" aria-label={`Warnings: ${tallyWords(outcome.result.warnings)}`}>
+      <TallyParts warnings={outcome.result.warnings} />
+    </a>
+  );
+}
+
+const SEVERITIES = ['stop', 'caution', 'info'] as const;
+
+/** "1 stop · 2 cautions · 0 notes": the tally read as words. */
+function tallyWords(warnings: readonly PlanWarning[]): string {
+  return SEVERITIES.map((sev) => countWords(sev, warnings.filter((w) => w.severity === sev).length)).join(' · ');
+}
+
+function countWords(severity: PlanWarning['severity'], n: number): string {
+  return `${n} ${SEVERITY_TEXT[severity].toLowerCase()}${n === 1 ? '' : 's'}`;
+}
+
+/**
+ * Sekundo's warning tally: one strip of three parts, stop · caution · note, each with its mark and
+ * count; a part with nothing in it is drawn faint, so the eye goes to what is there.
+ */
+function TallyParts({ warnings }: { warnings: readonly PlanWarning[] }) {
+  return (
+    <>
+      {SEVERITIES.map((sev, i) => {
         const n = warnings.filter((w) => w.severity === sev).length;
         return (
-          <span key={sev} className={`warning-count warning-count--${sev}`}>
-            <SeverityIcon severity={sev} /> {n} {SEVERITY_TEXT[sev].toLowerCase()}
-            {n === 1 ? '' : 's'}
+          <span key={sev} className={`severity-tally__part severity-tally__part--${sev}`} data-empty={n === 0}>
+            {i > 0 ? <span className="visually-hidden"> · </span> : null}
+            <SeverityMark severity={sev} />
+            {countWords(sev, n)}
           </span>
         );
       })}
-    </a>
+    </>
   );
 }
 
@@ -34,20 +57,14 @@ export function WarningsList() {
   if (!outcome.ok) return null;
   const labels = new Map(outcome.result.sensors.map((s) => [s.id, s.label]));
   const warnings = [...outcome.result.warnings].sort((a, b) => SEVERITY_ORDER[a.severity] - SEVERITY_ORDER[b.severity]);
-  const counts = (['stop', 'caution', 'info'] as const).map((sev) => ({ sev, n: warnings.filter((w) => w.severity === sev).length }));
   return (
     <section className="card plan-warnings" aria-labelledby="planner-warnings-title">
       <div className="card-head">
         <h3 id="planner-warnings-title" className="card-title">
           Warnings
         </h3>
-        <p className="plan-warnings__counts">
-          {counts.map(({ sev, n }) => (
-            <span key={sev} className={`warning-count warning-count--${sev}`}>
-              <SeverityIcon severity={sev} /> {n} {SEVERITY_TEXT[sev].toLowerCase()}
-              {n === 1 ? '' : 's'}
-            </span>
-          ))}
+        <p className="severity-tally">
+          <TallyParts warnings={warnings} />
         </p>
         <CsvExportButton
           table={() => warningsCsv(warnings, labels)}
@@ -65,7 +82,7 @@ export function WarningsList() {
             // biome-ignore lint/suspicious/noArrayIndexKey: order is stable for one result
             <li key={`${w.code}-${w.sensorId ?? 'plan'}-${i}`} className={`warning warning--${w.severity}`} data-code={w.code}>
               <span className="warning__severity">
-                <SeverityIcon severity={w.severity} />
+                <SeverityMark severity={w.severity} />
                 <span>{SEVERITY_TEXT[w.severity]}</span>
               </span>
               <div className="warning__body">
@@ -83,26 +100,16 @@ export function WarningsList() {
   );
 }
 
-/** A shape per severity (octagon, triangle, circle), so it does not rest on colour alone. */
-export function SeverityIcon({ severity }: { severity: PlanWarning['severity'] }) {
+/**
+ * Sekundo's severity mark, drawn from the heater pulse that starts every measurement: a full square
+ * for a stop, a square filled to half for a caution, an empty one for a note — three shapes, so it
+ * never rests on colour alone.
+ */
+export function SeverityMark({ severity }: { severity: PlanWarning['severity'] }) {
   return (
-    <svg className={`severity-icon severity-icon--${severity}`} viewBox="0 0 16 16" width="16" height="16" aria-hidden="true" focusable="false">
-      {severity === 'stop' ? (
-        <>
-          <path d="M5 1h6l4 4v6l-4 4H5l-4-4V5z" />
-          <path d="M5.5 5.5l5 5M10.5 5.5l-5 5" className="severity-icon__mark" />
-        </>
-      ) : severity === 'caution' ? (
-        <>
-          <path d="M8 1.2l7 13.3H1z" />
-          <path d="M8 6v4.2M8 12.2v.1" className="severity-icon__mark" />
-        </>
-      ) : (
-        <>
-          <circle cx="8" cy="8" r="7" />
-          <path d="M8 7v4.5M8 4.6v.1" className="severity-icon__mark" />
-        </>
-      )}
+    <svg className={`severity-mark severity-mark--${severity}`} viewBox="0 0 12 12" width="12" height="12" aria-hidden="true" focusable="false">
+      <rect x="1" y="1" width="10" height="10" rx="1.5" className="severity-mark__frame" />
+      {severity === 'info' ? null : <rect x="1" y={severity === 'stop' ? 1 : 6} width="10" height={severity === 'stop' ? 10 : 5} rx="1.5" className="severity-mark__fill" />}
     </svg>
   );
 }

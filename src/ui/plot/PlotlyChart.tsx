@@ -4,15 +4,17 @@ import { base64Bytes, downloadBlob, fileSlug } from '../export/download';
 import { useResolvedTheme } from '../theme/use-theme';
 import { loadPlotly } from './load-plotly';
 import { themeFigure } from './plot-theme';
-import type { PlotConfig, PlotLayout, PlotlyApi, PlotTrace } from './plotly-types';
+import type { DrawnPlotElement, PlotConfig, PlotLayout, PlotlyApi, PlotTrace } from './plotly-types';
 
-/** One config for every chart: no logo, no cloud, no math typesetting, resizes with its box. */
+/**
+ * One config for every chart: no library toolbar (zoom, reset and the PNG/SVG export are the
+ * chart's own buttons under it, reachable by keyboard), no logo, no cloud, no math typesetting,
+ * resizes with its box. Dragging a box still zooms with a mouse; a double click resets.
+ */
 export const PLOT_CONFIG: PlotConfig = {
   responsive: true,
   displaylogo: false,
-  displayModeBar: 'hover',
-  // Images come from the export buttons under each chart (keyboard-reachable, PNG and SVG).
-  modeBarButtonsToRemove: ['select2d', 'lasso2d', 'autoScale2d', 'toImage'],
+  displayModeBar: false,
   typesetMath: false,
   showSendToCloud: false,
   showEditInChartStudio: false,
@@ -45,7 +47,13 @@ export function PlotlyChart({ chartId, label, data, layout, onDrawn }: PlotlyCha
   const [drawn, setDrawn] = useState(false);
   const [failure, setFailure] = useState<Error | null>(null);
   const theme = useResolvedTheme();
-  const figure = useMemo(() => themeFigure(data, layout, theme), [data, layout, theme]);
+  const touch = useCoarsePointer();
+  const figure = useMemo(() => {
+    const themed = themeFigure(data, layout, theme);
+    // On a touch screen a drag scrolls the page; the zoom buttons zoom.
+    return touch && themed.layout.dragmode !== false ? { ...themed, layout: { ...themed.layout, dragmode: false as const } } : themed;
+  }, [data, layout, theme, touch]);
+  const zoomable = layout.dragmode !== false;
   // Read at draw time, so a new callback alone does not redraw the chart.
   const drawnCallback = useRef(onDrawn);
   drawnCallback.current = onDrawn;
@@ -54,7 +62,9 @@ export function PlotlyChart({ chartId, label, data, layout, onDrawn }: PlotlyCha
     const element = surface.current;
     if (!plotly || !element) return;
     let live = true;
-    plotly.react(element, figure.data, figure.layout, PLOT_CONFIG).then(
+    // Plotly keeps the layout it is given and changes it in place on every zoom: give it a copy, so
+    // the figure stays what it was ("Whole chart" goes back to it).
+    plotly.react(element, figure.data, structuredClone(figure.layout), PLOT_CONFIG).then(
       () => {
         if (!live) return;
         setDrawn(true);
@@ -83,7 +93,10 @@ export function PlotlyChart({ chartId, label, data, layout, onDrawn }: PlotlyCha
         <div ref={surface} className="plot-surface" role="img" aria-label={label} data-chart={chartId} data-drawn={drawn} />
         {drawn ? null : <p className="plot-loading">Drawing chart…</p>}
       </div>
-      <ChartExport chartId={chartId} label={label} plotly={drawn ? plotly : null} surface={surface} />
+      <div className="plot-tools">
+        {zoomable ? <ChartZoom plotly={drawn ? plotly : null} surface={surface} layout={figure.layout} what={shortLabel(label)} /> : null}
+        <ChartExport chartId={chartId} label={label} plotly={drawn ? plotly : null} surface={surface} />
+      </div>
     </div>
   );
 }
@@ -117,7 +130,7 @@ function ChartExport({ chartId, label, plotly, surface }: { chartId: string; lab
     }
   };
   return (
-    <div className="plot-tools">
+    <>
       {status ? (
         <p className="plot-tools__status" role="alert">
           {status}
@@ -136,8 +149,115 @@ function ChartExport({ chartId, label, plotly, surface }: { chartId: string; lab
           <DownloadIcon /> {format.toUpperCase()}
         </button>
       ))}
-    </div>
+    </>
   );
+}
+
+/** How much one press of "zoom in" narrows each axis (and "zoom out" widens it). */
+const ZOOM_STEP = 2;
+
+/**
+ * The chart's own zoom: in and out about the middle of what is shown, and back to the figure's own
+ * view. "Back" is offered only once the view differs from the figure (after a button, a dragged box
+ * or a double click, which Plotly reports as a relayout).
+ */
+function ChartZoom({ plotly, surface, layout, what }: { plotly: PlotlyApi | null; surface: RefObject<HTMLDivElement | null>; layout: PlotLayout; what: string }) {
+  const [zoomed, setZoomed] = useState(false);
+  // A new figure is drawn at its own view.
+  const [figureLayout, setFigureLayout] = useState(layout);
+  if (figureLayout !== layout) {
+    setFigureLayout(layout);
+    setZoomed(false);
+  }
+  useEffect(() => {
+    const element = surface.current as DrawnPlotElement | null;
+    if (!plotly || !element?.on) return;
+    element.on('plotly_relayout', (update) => {
+      const keys = Object.keys(update);
+      if (keys.some((k) => /^[xy]axis\d*\.range/.test(k))) setZoomed(true);
+      else if (keys.some((k) => /^[xy]axis\d*\.autorange$/.test(k))) setZoomed(false);
+    });
+    return () => element.removeAllListeners?.('plotly_relayout');
+  }, [plotly, surface]);
+  const zoom = (factor: number) => {
+    const element = surface.current as DrawnPlotElement | null;
+    if (!plotly || !element) return;
+    const update = zoomedRanges(element._fullLayout, factor);
+    if (Object.keys(update).length > 0) void plotly.relayout(element, update);
+  };
+  const reset = () => {
+    const element = surface.current;
+    if (!plotly || !element) return;
+    void plotly.relayout(element, figureRanges(layout, (surface.current as DrawnPlotElement)._fullLayout)).then(() => setZoomed(false));
+  };
+  return (
+    <span className="plot-zoom">
+      <button type="button" className="export-button plot-zoom__button" disabled={!plotly} aria-label={`Zoom in on ${what}`} title="Zoom in (or drag a box on the chart)" onClick={() => zoom(1 / ZOOM_STEP)}>
+        <ZoomIcon sign="in" />
+      </button>
+      <button type="button" className="export-button plot-zoom__button" disabled={!plotly} aria-label={`Zoom out of ${what}`} title="Zoom out" onClick={() => zoom(ZOOM_STEP)}>
+        <ZoomIcon sign="out" />
+      </button>
+      {zoomed ? (
+        <button type="button" className="export-button" aria-label={`Back to the whole of ${what}`} title="Back to the chart's own view (or double-click the chart)" onClick={reset}>
+          Whole chart
+        </button>
+      ) : null}
+    </span>
+  );
+}
+
+/** Axis names of a drawn layout: xaxis, xaxis2, yaxis … */
+function axisNames(fullLayout: Readonly<Record<string, unknown>> | undefined): string[] {
+  return Object.keys(fullLayout ?? {}).filter((k) => /^[xy]axis\d*$/.test(k));
+}
+
+/** New ranges for every numeric, zoomable axis: each scaled by `factor` about its middle. */
+export function zoomedRanges(fullLayout: Readonly<Record<string, unknown>> | undefined, factor: number): Record<string, [number, number]> {
+  const update: Record<string, [number, number]> = {};
+  for (const name of axisNames(fullLayout)) {
+    const axis = fullLayout?.[name] as { range?: unknown[]; fixedrange?: boolean } | undefined;
+    const [a, b] = (axis?.range ?? []).map(Number);
+    if (axis?.fixedrange || a === undefined || b === undefined || !Number.isFinite(a) || !Number.isFinite(b)) continue;
+    const middle = (a + b) / 2;
+    const half = ((b - a) / 2) * factor;
+    update[`${name}.range`] = [middle - half, middle + half];
+  }
+  return update;
+}
+
+/** The figure's own view of every drawn axis: its stated range, or automatic where it states none. */
+export function figureRanges(layout: PlotLayout, fullLayout: Readonly<Record<string, unknown>> | undefined): Record<string, unknown> {
+  const update: Record<string, unknown> = {};
+  for (const name of axisNames(fullLayout)) {
+    const stated = (layout as Record<string, { range?: unknown } | undefined>)[name]?.range;
+    if (Array.isArray(stated)) update[`${name}.range`] = [...stated];
+    else update[`${name}.autorange`] = true;
+  }
+  return update;
+}
+
+function ZoomIcon({ sign }: { sign: 'in' | 'out' }) {
+  return (
+    <svg className="export-button__icon" viewBox="0 0 14 14" width="12" height="12" aria-hidden="true" focusable="false">
+      <circle cx="6" cy="6" r="4.3" fill="none" stroke="currentColor" strokeWidth="1.6" />
+      <path d={sign === 'in' ? 'M4 6h4M6 4v4' : 'M4 6h4'} stroke="currentColor" strokeWidth="1.6" strokeLinecap="round" />
+      <path d="M9.2 9.2l3.3 3.3" stroke="currentColor" strokeWidth="1.8" strokeLinecap="round" />
+    </svg>
+  );
+}
+
+/** True on a touch screen without a fine pointer (a phone or tablet), where a drag should scroll. */
+function useCoarsePointer(): boolean {
+  const [coarse, setCoarse] = useState(() => typeof matchMedia === 'function' && matchMedia('(pointer: coarse)').matches);
+  useEffect(() => {
+    if (typeof matchMedia !== 'function') return;
+    const query = matchMedia('(pointer: coarse)');
+    const follow = () => setCoarse(query.matches);
+    query.addEventListener('change', follow);
+    return () => query.removeEventListener('change', follow);
+  }, []);
+  return coarse;
 }
 
 /** The chart named from its label up to the first full stop: "the chart of u₂ and u₁ against temperature". */

@@ -170,7 +170,6 @@ export interface PlotConfig {
   responsive: boolean;
   displaylogo: boolean;
   displayModeBar?: boolean | 'hover';
-  modeBarButtonsToRemove?: string[];
   typesetMath?: boolean;
   showSendToCloud?: boolean;
   showEditInChartStudio?: boolean;
@@ -189,6 +188,15 @@ export interface PlotlyApi {
    * "data:" prefix and SVG as the SVG text itself.
    */
   toImage(element: HTMLElement, options: PlotImageOptions): Promise<string>;
+  /** Changes the drawn layout in place (axis ranges, for the chart's own zoom controls). */
+  relayout(element: HTMLElement, update: Readonly<Record<string, unknown>>): Promise<unknown>;
+}
+
+/** A drawn chart element as Plotly leaves it: its events and the layout it settled on. */
+export interface DrawnPlotElement extends HTMLElement {
+  on?(event: 'plotly_relayout', handler: (update: Readonly<Record<string, unknown>>) => void): void;
+  removeAllListeners?(event: 'plotly_relayout'): void;
+  _fullLayout?: Readonly<Record<string, unknown>>;
 }
 
 /** What {@link PlotlyApi.toImage} makes. */

@@ -1,6 +1,6 @@
 /**
  * Keeping a person's habits between visits: at start the store takes what the browser kept
- * (theme, display units, whether the tour was seen); from then on every change is written back.
+ * (theme, display units, which first-visit guides were put away); from then on every change is written back.
  * Other keys in the same record (other views' preferences) are left as they are. Storage that is
  * full or disabled costs only the keeping: the page works on, and says so once.
  */

@@ -2,6 +2,7 @@ import type { StateCreator } from 'zustand';
 import type { Preferences } from '../../io/workspace-storage';
 import { asDisplayUnit, DEFAULT_DISPLAY_UNITS, type DisplayUnitOf, type DisplayUnits, UNIT_KIND_LIST, type UnitKind } from '../units/unit-choices';
 import type { SekundoState } from './state';
+import { VIEW_IDS, type ViewId } from './view-slice';
 import { draftFor } from './temperature-slice';
 
 /** The colour theme a person chose; "system" follows the operating system's light or dark setting. */
@@ -12,13 +13,15 @@ export const THEME_CHOICES: readonly ThemeChoice[] = ['light', 'dark', 'system']
 /** Keys of the preferences record (src/io/workspace-storage.ts) that this slice reads and writes. */
 export const PREFERENCE_KEYS = {
   theme: 'theme',
+  guides: 'guides',
+  /** Kept by earlier versions: 'done' once the first-visit tour was closed (read as every guide put away). */
   tour: 'tour',
   unit: (kind: UnitKind) => `unit.${kind}`,
 } as const;
 
 /**
- * How the page fits a person's habits, app-wide: theme, display units, whether the first-visit
- * tour is open, and a note when preferences cannot be kept. Inputs only; src/ui/preferences
+ * How the page fits a person's habits, app-wide: theme, display units, which views' first-visit
+ * guides were put away, and a note when preferences cannot be kept. Inputs only; src/ui/preferences
  * loads them from the browser at start and saves them when they change.
  */
 export interface PreferencesSlice {
@@ -26,17 +29,16 @@ export interface PreferencesSlice {
   setThemeChoice: (choice: ThemeChoice) => void;
   displayUnits: DisplayUnits;
   setDisplayUnit: <K extends UnitKind>(kind: K, unit: DisplayUnitOf<K>) => void;
-  /** Whether the guided tour is on screen. */
-  tourOpen: boolean;
-  /** Whether the tour has been closed once (then it does not open by itself again). */
-  tourSeen: boolean;
-  openTour: () => void;
-  /** Closes the tour for good (remembered). */
-  closeTour: () => void;
+  /** Views whose first-visit guide the visitor put away (remembered). */
+  guidesDismissed: readonly ViewId[];
+  dismissGuide: (view: ViewId) => void;
+  dismissAllGuides: () => void;
+  /** Brings every view's guide back. */
+  showGuidesAgain: () => void;
   /** Why preferences could not be kept (shown once, unobtrusively); null when all is well. */
   preferencesNotice: string | null;
   setPreferencesNotice: (notice: string | null) => void;
-  /** Takes what the browser kept; anything unknown or malformed is ignored. Opens the tour on a first visit. */
+  /** Takes what the browser kept; anything unknown or malformed is ignored. */
   applyPreferences: (prefs: Preferences) => void;
 }
 
@@ -45,11 +47,19 @@ function isThemeChoice(text: string | undefined): text is ThemeChoice {
 }
 
 /** The preferences record of a state: only this slice's keys. */
-export function preferencesOf(state: Pick<PreferencesSlice, 'themeChoice' | 'displayUnits' | 'tourSeen'>): Preferences {
+export function preferencesOf(state: Pick<PreferencesSlice, 'themeChoice' | 'displayUnits' | 'guidesDismissed'>): Preferences {
   const prefs: Preferences = { [PREFERENCE_KEYS.theme]: state.themeChoice };
   for (const kind of UNIT_KIND_LIST) prefs[PREFERENCE_KEYS.unit(kind)] = state.displayUnits[kind];
-  if (state.tourSeen) prefs[PREFERENCE_KEYS.tour] = 'done';
+  prefs[PREFERENCE_KEYS.guides] = VIEW_IDS.filter((v) => state.guidesDismissed.includes(v)).join(',');
   return prefs;
+}
+
+/** The views whose guide was put away, from the kept record (an earlier version's closed tour counts as all). */
+function dismissedGuides(prefs: Preferences): ViewId[] {
+  const kept = prefs[PREFERENCE_KEYS.guides];
+  if (kept === undefined) return prefs[PREFERENCE_KEYS.tour] === 'done' ? [...VIEW_IDS] : [];
+  const named = new Set(kept.split(','));
+  return VIEW_IDS.filter((v) => named.has(v));
 }
 
 export const createPreferencesSlice: StateCreator<SekundoState, [], [], PreferencesSlice> = (set, get) => ({
@@ -62,10 +72,10 @@ export const createPreferencesSlice: StateCreator<SekundoState, [], [], Preferen
     set({ displayUnits, ...temperatureDraftIn(before, displayUnits.temperature) });
     get().followConverterDisplayUnits();
   },
-  tourOpen: false,
-  tourSeen: false,
-  openTour: () => set({ tourOpen: true }),
-  closeTour: () => set({ tourOpen: false, tourSeen: true }),
+  guidesDismissed: [],
+  dismissGuide: (view) => set((s) => (s.guidesDismissed.includes(view) ? s : { guidesDismissed: [...s.guidesDismissed, view] })),
+  dismissAllGuides: () => set({ guidesDismissed: [...VIEW_IDS] }),
+  showGuidesAgain: () => set({ guidesDismissed: [] }),
   preferencesNotice: null,
   setPreferencesNotice: (notice) => set({ preferencesNotice: notice }),
   applyPreferences: (prefs) => {
@@ -75,13 +85,11 @@ export const createPreferencesSlice: StateCreator<SekundoState, [], [], Preferen
       const unit = asDisplayUnit(kind, prefs[PREFERENCE_KEYS.unit(kind)]);
       if (unit !== null) units[kind] = unit;
     }
-    const seen = prefs[PREFERENCE_KEYS.tour] === 'done';
     set({
       themeChoice: isThemeChoice(theme) ? theme : get().themeChoice,
       displayUnits: units as DisplayUnits,
       ...temperatureDraftIn(get(), (units as DisplayUnits).temperature),
-      tourSeen: seen,
-      tourOpen: !seen,
+      guidesDismissed: dismissedGuides(prefs),
     });
     get().followConverterDisplayUnits();
   },

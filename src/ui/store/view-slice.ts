@@ -1,8 +1,9 @@
 import type { StateCreator } from 'zustand';
 import type { SekundoState } from './state';
 
-/** The page's views (tabs). */
-export type ViewId = 'explorer' | 'planner' | 'converter' | 'locate';
+/** The page's views (tabs), in tab order. */
+export const VIEW_IDS = ['explorer', 'planner', 'converter', 'locate'] as const;
+export type ViewId = (typeof VIEW_IDS)[number];
 
 /** How the page is shown (no physics here). */
 export interface ViewSlice {

@@ -83,13 +83,12 @@ function Toasts() {
 
 function SharePromptDialog() {
   const prompt = useWorkspaceStore((s) => s.sharePrompt);
-  const tourOpen = useSekundoStore((s) => s.tourOpen);
   const keep = useRef<HTMLButtonElement>(null);
   const open = useRef<HTMLButtonElement>(null);
   useEffect(() => {
-    if (prompt && !tourOpen) open.current?.focus();
-  }, [prompt, tourOpen]);
-  if (!prompt || tourOpen) return null;
+    if (prompt) open.current?.focus();
+  }, [prompt]);
+  if (!prompt) return null;
   const current = useSekundoStore.getState();
   const replacing = current.plannerStatus === 'ready' ? current.plannerPlan.name : null;
   return (

@@ -119,7 +119,7 @@ export function startWorkspace(store: KeyValueStore | null = browserStore(), opt
       if (event.target instanceof Element && event.target.closest('.saved-plans, .workspace-bar__link')) return;
       const main = useSekundoStore.getState();
       const ws = useWorkspaceStore.getState();
-      if (main.activeView !== 'planner' || main.tourOpen || ws.sharePrompt !== null || ws.sheetOpen) return;
+      if (main.activeView !== 'planner' || ws.sharePrompt !== null || ws.sheetOpen) return;
       event.preventDefault();
       if (wish === 'undo') undoPlan();
       else redoPlan();

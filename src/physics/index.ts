@@ -82,6 +82,9 @@ export {
   type ChoiceRule,
   chooseAlongSeries,
   chooseCandidate,
+  distanceInSd,
+  EVIDENCE_SD_LIMITS,
+  type SeriesAmbiguity,
   type SeriesChoice,
   type SeriesChoiceBy,
   type SeriesChooser,
@@ -113,6 +116,15 @@ export {
   uniformStep,
 } from './pickers';
 export { SECOND_SOUND_EXTREMA, type SpeedExtremum } from './second-sound-extrema';
+export { INTERVAL_K, type IntervalReach, speedBandTemperatures, type TemperatureInterval } from './temperature-interval';
+export {
+  candidateWarnings,
+  EVIDENCE_LIMIT_SD,
+  evidenceWarning,
+  type ReadingWarning,
+  type ReadingWarningCode,
+  speedSigmasFromTurn,
+} from './reading-warnings';
 export {
   bestAddedSensor,
   type ConfidenceRegion,

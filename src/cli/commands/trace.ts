@@ -25,13 +25,16 @@ import {
   chooseFor,
   DISTANCE_SD_FLAG,
   fromFile,
+  INTERVAL_LEGEND,
   NEAR_FLAG,
   OFFSET_FLAG,
   OFFSET_SD_FLAG,
   PRESSURE_FLAG,
+  PRESSURE_SD_FLAG,
   readChoiceRule,
   readUncertainties,
   renderCandidates,
+  renderWarnings,
   streamFile,
 } from './convert-shared';
 import { JSON_FLAG, writeJson } from './shared';
@@ -127,7 +130,6 @@ export interface TraceJson extends TracePick, ChoiceResult {
   distance_m: number | null;
   speed_m_s: number | null;
   speedSd_m_s: number | null;
-  candidates: DelayConversion['candidates'];
 }
 
 /** The `trace` command. */
@@ -163,6 +165,7 @@ export const traceCommand: Command = {
     OFFSET_FLAG,
     OFFSET_SD_FLAG,
     PRESSURE_FLAG,
+    PRESSURE_SD_FLAG,
     NEAR_FLAG,
     JSON_FLAG,
   ],
@@ -208,7 +211,6 @@ export const traceCommand: Command = {
         return convertDelay({ distance_m, delay_s: pick.delay_s, distanceSd_m: sds.distanceSd_m, delaySd_s: pick.delaySd_s, offset_s: sds.offset_s, offsetSd_s: sds.offsetSd_s });
       });
     }
-    const candidates = conversion?.candidates ?? [];
     const result: TraceJson = {
       file: path,
       rows: trace.metadata.rows,
@@ -217,8 +219,7 @@ export const traceCommand: Command = {
       distance_m,
       speed_m_s: conversion?.speed_m_s ?? null,
       speedSd_m_s: conversion?.speedSd_m_s ?? null,
-      candidates,
-      ...(conversion ? chooseFor(candidates, choice) : { chosen: null, choice: 'no --distance: no speed or temperature' }),
+      ...(conversion ? chooseFor(conversion.candidates, choice, conversion) : { chosen: null, choice: 'no --distance: no speed or temperature', candidates: [], warnings: [] }),
     };
     if (args.flag(JSON_FLAG.name)) writeJson(io, result);
     else io.stdout(`${renderTrace(result).join('\n')}\n`);
@@ -275,6 +276,9 @@ export function renderTrace(r: TraceJson): string[] {
     `Temperatures with this speed (${r.candidates.length}):`,
     ...renderCandidates(r.candidates, r.chosen).map((l) => `  ${l}`),
     '',
+    `  ${INTERVAL_LEGEND}`,
+    '',
     chosen ? `Chosen: ${(r.chosen ?? 0) + 1}, ${chosen.temperature_K.toFixed(5)} K: ${r.choice}` : `Not chosen: ${r.choice}`,
+    ...renderWarnings(r.warnings),
   ];
 }

@@ -105,3 +105,23 @@ export function branchEnd(b: BranchTable, which: 'slowest' | 'fastest'): number 
   const warmIsSlow = b.branch !== 'middle';
   return which === 'slowest' === warmIsSlow ? b.hi : b.lo;
 }
+
+/**
+ * The table's inverse on branch `b` alone (binary search and linear interpolation, no Newton
+ * step): within about 1e-8 K of the root, enough for an interval bound. u within the branch's speeds.
+ */
+export function interpolateOnBranch(b: BranchTable, u: number): number {
+  const s = b.speeds;
+  let i = 0;
+  let j = s.length - 1;
+  while (j - i > 1) {
+    const mid = (i + j) >> 1;
+    if (u >= (s[mid] as number)) i = mid;
+    else j = mid;
+  }
+  const s0 = s[i] as number;
+  const s1 = s[j] as number;
+  const t0 = b.temps[i] as number;
+  const t1 = b.temps[j] as number;
+  return s1 > s0 ? t0 + ((u - s0) * (t1 - t0)) / (s1 - s0) : t0;
+}

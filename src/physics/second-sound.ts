@@ -137,9 +137,10 @@ export function secondSoundSlope(T: number): number {
  *  - elsewhere up to Tλ: 0.25 %, the scatter of the published representation about its data;
  *  - near Tλ, add |du2/dT| × 0.2 mK × w: the end of the curve is uncertain by about 0.2 mK
  *    (the reference's own caution), and u2 changes fastest there. w = 1 within 1 mK of Tλ and
- *    falls as (1 mK/(Tλ − T))² beyond, so the sd is continuous (no step where the term starts:
- *    it used to switch on at Tλ − 1 mK, a 33-fold step) and the term fades where the curve is
- *    pinned by data at absolute temperatures (at 2.17 K it adds 1 % to the sd). The term is not
+ *    falls about as (1 mK/(Tλ − T))² beyond, to 0 at 30 mK, so the sd is continuous (no step
+ *    where the term starts: it used to switch on at Tλ − 1 mK, a 33-fold step) and the term fades
+ *    where the curve is pinned by data at absolute temperatures (common practice, no source for
+ *    the shape of the fade; at 2.17 K it adds under 1 % to the sd). The term is not
  *    capped: within 67 µK of Tλ it exceeds u2 itself, and a temperature read there is uncertain
  *    by the full 0.2 mK, never less;
  *  - model region (below 0.5517 K): 3 % — the Landau sums differ from the measured curve by 2.1 %
@@ -154,16 +155,37 @@ const REL_SD_MODEL = 0.03;
 const NEAR_LAMBDA_K = 1e-3;
 const LAMBDA_END_SD_K = 2e-4;
 
+/** Temperatures where the relative sd of u2 changes from one data set to the next, K. */
+export const SECOND_SOUND_SD_EDGES_K: readonly number[] = [SECOND_SOUND_MEASURED_MIN_K, PESHKOV_MAX_K, WANG_RANGE_K[0], WANG_RANGE_K[1]];
+
+/** Beyond this distance below Tλ the end term is zero (its weight falls to 0 there, continuously), K. */
+export const LAMBDA_END_REACH_K = 30 * NEAR_LAMBDA_K;
+
+/** The relative sd of u2 from the data behind the curve at T (without the end term near Tλ). */
+export function secondSoundBaseRelativeSd(T: number): number {
+  if (T < SECOND_SOUND_MEASURED_MIN_K) return REL_SD_MODEL;
+  if (T < PESHKOV_MAX_K) return REL_SD_PESHKOV;
+  if (T >= WANG_RANGE_K[0] && T <= WANG_RANGE_K[1]) return REL_SD_WANG;
+  return REL_SD_REPRESENTATION;
+}
+
+/**
+ * Weight of the end term at x = (Tλ − T)/1 mK: 1 up to x = 1, then (1/x² − 1/X²)/(1 − 1/X²) down
+ * to 0 at X = 30 (continuous at both ends; 1/x² is how |du2/dT| × 0.2 mK would be diluted by a
+ * curve pinned at absolute temperatures further out).
+ */
+function endWeight(x: number): number {
+  const X = LAMBDA_END_REACH_K / NEAR_LAMBDA_K;
+  if (x <= 1) return 1;
+  if (x >= X) return 0;
+  return (1 / (x * x) - 1 / (X * X)) / (1 - 1 / (X * X));
+}
+
 /** One-sigma uncertainty of u2 at T (m/s), no range check. */
 export function secondSoundSdUnchecked(T: number, u2: number, slope: number): number {
-  let rel: number;
-  if (T < SECOND_SOUND_MEASURED_MIN_K) rel = REL_SD_MODEL;
-  else if (T < PESHKOV_MAX_K) rel = REL_SD_PESHKOV;
-  else if (T >= WANG_RANGE_K[0] && T <= WANG_RANGE_K[1]) rel = REL_SD_WANG;
-  else rel = REL_SD_REPRESENTATION;
-  const base = rel * u2;
-  const x = (T_LAMBDA_K - T) / NEAR_LAMBDA_K;
-  const weight = x <= 1 ? 1 : 1 / (x * x);
+  const base = secondSoundBaseRelativeSd(T) * u2;
+  const weight = endWeight((T_LAMBDA_K - T) / NEAR_LAMBDA_K);
+  if (weight === 0) return base;
   const end = Number.isFinite(slope) ? Math.abs(slope) * LAMBDA_END_SD_K * weight : u2;
   return Math.hypot(base, end);
 }

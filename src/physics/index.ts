@@ -104,7 +104,9 @@ export {
 export {
   type Baseline,
   baselineOf,
+  heaterCentre,
   heaterOnset,
+  heaterStart,
   MIN_BASELINE_SAMPLES,
   type Pick,
   PICKER_KINDS,
@@ -112,6 +114,8 @@ export {
   type PickerKind,
   type PickOptions,
   pickArrival,
+  requireInsideWindow,
+  timeText,
   type Trace,
   uniformStep,
 } from './pickers';

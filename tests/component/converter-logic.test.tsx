@@ -198,7 +198,7 @@ describe('series of trace files', () => {
     const picks = new Map(
       model.map((T, i) => [
         `f${i}`,
-        { arrival_s: 0.05 / secondSound(T), arrivalSd_s: 1e-6, delay_s: 0.05 / secondSound(T), delaySd_s: 1e-6, timeZero_s: 0, timeZeroSd_s: 0, timeZero: 'file t = 0' as const, picker: 'fraction' as const, sensor: 's', heater: null, template: null, baseline: { level: 0, noise: 1, samples: 10 }, peak: 10, snr: 10 },
+        { arrival_s: 0.05 / secondSound(T), arrivalSd_s: 1e-6, delay_s: 0.05 / secondSound(T), delaySd_s: 1e-6, timeZero_s: 0, timeZeroSd_s: 0, timeZero: 'file t = 0' as const, reference: "from the file's t = 0" as const, referenceTime_s: 0, picker: 'fraction' as const, sensor: 's', heater: null, template: null, baseline: { level: 0, noise: 1, samples: 10 }, peak: 10, snr: 10 },
       ]),
     );
     const rows = buildSeries(files, picks, new Map(), { distance_m: 0.05, distanceSd_m: 0, offset_s: 0, offsetSd_s: 0 }, { kind: 'near', temperature_K: 1.9 });

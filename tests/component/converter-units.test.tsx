@@ -237,7 +237,7 @@ describe('converter results in the header units', () => {
 /** A pick at the exact transit time of 50 mm at `T` (invented), sd 1 µs. */
 function exactPick(T: number): TracePick {
   const delay_s = 0.05 / secondSound(T);
-  return { arrival_s: delay_s, arrivalSd_s: 1e-6, delay_s, delaySd_s: 1e-6, timeZero_s: 0, timeZeroSd_s: 0, timeZero: 'file t = 0', picker: 'fraction', sensor: 's', heater: null, template: null, baseline: { level: 0, noise: 1, samples: 10 }, peak: 10, snr: 10 };
+  return { arrival_s: delay_s, arrivalSd_s: 1e-6, delay_s, delaySd_s: 1e-6, timeZero_s: 0, timeZeroSd_s: 0, timeZero: 'file t = 0', reference: "from the file's t = 0", referenceTime_s: 0, picker: 'fraction', sensor: 's', heater: null, template: null, baseline: { level: 0, noise: 1, samples: 10 }, peak: 10, snr: 10 };
 }
 
 describe('trace series and trace chart in the header units', () => {

@@ -148,9 +148,14 @@ export const traceCommand: Command = {
     'Pickers: threshold (first crossing of --threshold noise sd), fraction (leading edge at --fraction of ' +
     'the peak), peak (parabola through the top), xcorr (cross-correlation; its template is the heater ' +
     'drive when --heater-column is given, else a rectangle as wide as the pulse at half height, whose ' +
-    'arrival is the leading half-height point). With --json, prints {arrival_s, arrivalSd_s, delay_s, ' +
-    'delaySd_s, picker, timeZero, timeZero_s, sensor, heater, template, snr, speed_m_s, speedSd_m_s, ' +
-    'candidates, chosen, choice, …}; arrival_s is on the file\'s time axis, delay_s from time zero.',
+    'arrival is the leading half-height point). With a heater column the delay runs like with like: onset to ' +
+    'onset for threshold, fraction and xcorr, peak to peak for the peak picker (from the drive\'s centre at half ' +
+    'height); "reference" says which. Baseline and noise come only from samples before time zero, the file\'s ' +
+    't = 0 and the drive\'s first rise. A pick always lies inside its search window, or the command says why not. ' +
+    'With --json, prints {arrival_s, arrivalSd_s, delay_s, ' +
+    'delaySd_s, reference, referenceTime_s, picker, timeZero, timeZero_s, sensor, heater, template, snr, speed_m_s, speedSd_m_s, ' +
+    'candidates, chosen, choice, warnings, …}; arrival_s is on the file\'s time axis, delay_s from the heater\'s ' +
+    'matching feature (referenceTime_s on the file\'s axis).',
   flags: [
     DISTANCE_FLAG,
     HEATER_FLAG,
@@ -263,7 +268,8 @@ export function renderTrace(r: TraceJson): string[] {
     ['Time zero', r.heater ? `heater onset, ${us(r.timeZero_s)} ± ${formatSignificant(r.timeZeroSd_s * 1e6, 2)} µs on the file's axis` : "the file's t = 0"],
     ['Picker', `${r.picker}${r.template ? ` (template: ${r.template})` : ''}, SNR ${formatSignificant(r.snr, 3)}`],
     ['Arrival', `${us(r.arrival_s)} ± ${formatSignificant(r.arrivalSd_s * 1e6, 2)} µs on the file's axis`],
-    ['Delay', `${us(r.delay_s)} ± ${formatSignificant(r.delaySd_s * 1e6, 2)} µs after time zero`],
+    ['Delay', `${us(r.delay_s)} ± ${formatSignificant(r.delaySd_s * 1e6, 2)} µs, ${r.reference}${r.reference === 'peak to peak' ? " (from the drive's centre at half height)" : ''}`],
+    ['Noise', `${formatSignificant(r.baseline.noise, 3)} (file units) from ${r.baseline.samples} samples before time zero and the drive`],
   ];
   if (r.speed_m_s !== null && r.speedSd_m_s !== null) rows.push(['Speed', `${formatSignificant(r.speed_m_s)} ± ${formatSignificant(r.speedSd_m_s, 2)} m/s`]);
   const lines = alignTable(rows, ['left', 'left']);

@@ -259,10 +259,17 @@ function PickSummary({ pick, time }: { pick: PickState | undefined; time: Conver
         </dd>
       </div>
       <div>
+        <dt>Delay measured</dt>
+        <dd data-testid="delay-reference">
+          {p.reference}
+          {p.reference === 'peak to peak' ? ': from the centre of the drive pulse at half height to the sensor’s peak' : p.reference === 'onset to onset' ? ': from the drive’s 50 % onset to the same feature of the pulse' : ': give a heater channel to measure from the drive itself'}
+        </dd>
+      </div>
+      <div>
         <dt>Signal</dt>
         <dd>
           peak {formatSignificant(p.peak, 3)} over noise {formatSignificant(p.baseline.noise, 2)} (SNR {formatSignificant(p.snr, 3)}), baseline from{' '}
-          {p.baseline.samples.toLocaleString('en')} samples
+          {p.baseline.samples.toLocaleString('en')} samples before time zero and the drive’s first rise
           {p.snr < 5 ? <span className="badge badge--model"> low SNR: check the pick</span> : null}
         </dd>
       </div>

@@ -204,7 +204,7 @@ export function seriesChooser(start: ChoiceRule, fmt: (T_K: number) => string = 
     const k = row;
     row += 1;
     let choice: SeriesChoice;
-    let settles: SeriesChoice['settles'] = [];
+    const settles: SeriesChoice['settles'] = [];
     if (own !== null) {
       choice = { ...chooseCandidate(candidates, own, fmt), rule: own, by: 'own', ambiguous: null, settles };
       const chosen = choice.index === null ? undefined : candidates[choice.index];

@@ -129,16 +129,7 @@ export {
   type ReadingWarningCode,
   speedSigmasFromTurn,
 } from './reading-warnings';
-export {
-  bestAddedSensor,
-  type ConfidenceRegion,
-  type LayoutOptions,
-  type LayoutScore,
-  type LocateOptions,
-  type LocateResult,
-  LOCATE_SPEED_RANGE_M_S,
-  layoutQuality,
-  locateSource,
-  type SensorArrival,
-  type SurfaceConstraint,
-} from './locate-source';
+export { type ConfidenceRegion, type LocateOptions, type LocateResult, LOCATE_SPEED_RANGE_M_S, locateSource, type SensorArrival, speedPriorAt } from './locate-source';
+export type { SpeedPrior } from './arrival-fit';
+export { bestAddedSensor, type LayoutOptions, type LayoutScore, layoutQuality, type SensorPlacement, sensorPlaceAllowed } from './layout-quality';
+export { insideBody, type SurfaceConstraint } from './surface-constraint';

@@ -168,7 +168,7 @@ function pickThreshold(trace: Trace, base: Baseline, w: Window, k: number): { t:
   if (w.sign * ((trace.values[w.i0] as number) - base.level) >= level) {
     throw new InvalidInputError(
       'threshold',
-      `the signal is already ${k} noise sd above the baseline at the start of the search window (${timeText(trace.time_s[w.i0] as number)}), so its crossing lies before the window; start the window earlier, before the pulse, or raise the threshold`,
+      `the signal is already ${k} noise sd above the baseline at the start of the search window, ${timeText(trace.time_s[w.i0] as number)}, so its crossing lies before the window; start the window earlier, before the pulse, or raise the threshold`,
     );
   }
   for (let i = w.i0; i <= w.i1; i++) {

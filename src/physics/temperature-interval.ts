@@ -1,6 +1,6 @@
 import { MODEL_MIN_K, T_LAMBDA_K } from './constants';
 import { LAMBDA_END_REACH_K, SECOND_SOUND_SD_EDGES_K, secondSoundBaseRelativeSd, secondSoundSdUnchecked, secondSoundUnchecked } from './second-sound';
-import { BRANCHES, type BranchTable, branchEnd, interpolateOnBranch, solveOnBranch } from './second-sound-branches';
+import { BRANCHES, type BranchTable, branchEnd, interpolateOnBranch } from './second-sound-branches';
 import { SECOND_SOUND_EXTREMA } from './second-sound-extrema';
 
 /*

@@ -185,7 +185,8 @@ function rootOn(candidates: readonly TemperatureCandidate[], branch: Branch): nu
  * one by the candidate nearest the last decided temperature (the bath changes slowly between
  * readings); before it, by `start`. A reading with no candidates, or one nothing decides, passes
  * the last decided temperature on.
- * Turns: once a decided candidate's 95 % interval reaches an extremum of u2, continuity cannot tell
+ * Turns: once a candidate decided by continuity has a 95 % interval reaching an extremum of u2
+ * (a reading decided by its own evidence says which branch it is on), continuity cannot tell
  * the two branches meeting there apart: the series may have passed the turn or come back from it.
  * Every later reading with a root on both branches is left undecided, with both continuations and
  * a guess (the trend carries on through the turn), until a reading with its own evidence chooses a
@@ -266,7 +267,9 @@ export function seriesChooser(start: ChoiceRule, fmt: (T_K: number) => string = 
     if (choice.index !== null) {
       const chosen = candidates[choice.index] as TemperatureCandidate;
       previous = chosen.temperature_K;
-      const reached = turnReached(chosen);
+      // Only continuity runs into a turn: a reading decided by its own evidence (or the start rule)
+      // says which branch it is on, whatever its interval reaches.
+      const reached = choice.by === 'continuity' ? turnReached(chosen) : null;
       if (reached && (!turn || turn.extremum !== reached)) {
         const [a, b] = BRANCHES_AT[reached];
         // The branch the series came along: the chosen root's, else the one decided before it.

@@ -62,7 +62,7 @@ describe('converter: one reading', () => {
       expect(within(row).getAllByRole('cell')[1]).toHaveTextContent(`± ${shown.sd} K`);
     });
     expect(rows.map((r) => within(r).getAllByRole('cell')[0]?.textContent)).toEqual(['0.946 K', '1.492 K', '1.785 K']);
-    expect(rows.map((r) => within(r).getAllByRole('cell')[3]?.textContent)).toEqual(['low, falling', 'middle, rising', 'high, falling']);
+    expect(rows.map((r) => within(r).getAllByRole('cell')[6]?.textContent)).toEqual(['low, falling', 'middle, rising', 'high, falling']);
     // Each candidate is a root of u₂(T) = 20 m/s.
     for (const c of expected) expect(secondSound(c.temperature_K)).toBeCloseTo(20, 9);
     // The band is the speed ± its sd: σu/u = √((0.1 mm / 50 mm)² + (2 µs / 2.5 ms)²).

@@ -213,7 +213,7 @@ describe('converter results in the header units', () => {
     choose('pressure', 'mbar');
     const table = screen.getByRole('table', { name: /each reading’s speed and temperature/i });
     const headers = within(table).getAllByRole('columnheader').map((h) => h.textContent);
-    expect(headers).toEqual(['Line', 'Delay (µs)', 'Pressure (mbar)', 'Speed (m/s)', 'T (mK)', 'sd (mK)', 'Chosen by', 'All candidates (mK)']);
+    expect(headers).toEqual(['Line', 'Delay (µs)', 'Pressure (mbar)', 'Speed (m/s)', 'T (mK)', 'sd (mK)', '95 % interval (mK)', 'Chosen by', 'All candidates (mK)']);
     const first = within(table).getAllByRole('row')[1];
     const cells = first ? within(first).getAllByRole('cell') : [];
     expect(Number(cells[0]?.textContent)).toBeCloseTo((0.05 / secondSound(1.9)) * 1e6, 2);
@@ -226,7 +226,7 @@ describe('converter results in the header units', () => {
     await user.click(screen.getByRole('button', { name: 'Export the batch results as CSV' }));
     downloads.restore();
     const lines = ((await downloads.blobs[0]?.text()) ?? '').trimEnd().split('\n');
-    expect(lines[0]?.split(',').slice(0, 12)).toEqual(['line', 'delay_us', 'distance_mm', 'pressure_mbar', 'speed_m_s', 'speedSd_m_s', 'candidates', 'chosen', 'chosen_by', 'T_mK', 'T_sd_mK', 'T1_mK']);
+    expect(lines[0]?.split(',').slice(0, 13)).toEqual(['line', 'delay_us', 'distance_mm', 'pressure_mbar', 'speed_m_s', 'speedSd_m_s', 'candidates', 'chosen', 'chosen_by', 'T_mK', 'T_sd_mK', 'T_sd_meas_mK', 'T_sd_curve_mK']);
     const out = lines[1]?.split(',') ?? [];
     expect(Number(out[1])).toBeCloseTo((0.05 / secondSound(1.9)) * 1e6, 6);
     expect(Number(out[3])).toBeCloseTo(vapourPressure(1.9).pressure_Pa / 100, 6);

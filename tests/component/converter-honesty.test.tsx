@@ -47,8 +47,7 @@ describe('one reading', () => {
 describe('a batch through the u₂ maximum', () => {
   it('rows past the turn are undecided with both continuations in the table and on the chart; a later pressure settles them', async () => {
     const temps = Array.from({ length: 41 }, (_, i) => 2.0 - i * 0.015);
-    const lines = ['delay_ms,pressure_Pa'];
-    temps.forEach((T, i) => lines.push(`${((0.05 / secondSound(T)) * 1e3).toPrecision(12)},${i === 0 ? vapourPressure(T).pressure_Pa.toPrecision(8) : ''}`));
+    const lines = ['delay_ms,pressure_Pa', ...temps.map((T, i) => `${((0.05 / secondSound(T)) * 1e3).toPrecision(12)},${i === 0 ? vapourPressure(T).pressure_Pa.toPrecision(8) : ''}`)];
     const user = userEvent.setup();
     render(<App />);
     await user.click(screen.getByRole('tab', { name: 'Read the temperature' }));

@@ -365,7 +365,7 @@ function seriesFigure(rows: readonly SeriesRow[], by: 'timestamp' | 'name'): { d
     }
     r.conversion?.candidates.forEach((c, k) => {
       if (k === r.chosen) chosen.push({ x: xOf(r, i), T: c.temperature_K, lo: c.interval95_K[0], hi: c.interval95_K[1], name: r.file.name });
-      else if (!a || !a.alternatives.includes(k)) others.push({ x: xOf(r, i), T: c.temperature_K });
+      else if (!a?.alternatives.includes(k)) others.push({ x: xOf(r, i), T: c.temperature_K });
     });
   });
   const data: PlotTrace[] = [

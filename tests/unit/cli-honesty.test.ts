@@ -91,7 +91,7 @@ describe('trace and fit', () => {
 
 describe('locate', () => {
   const u = secondSound(1.8);
-  const src = [0.01, -0.02, 0.05];
+  const src = [0.01, -0.02, 0.05] as const;
   const csv = (speed: number, late = -1) =>
     [
       'label,x_m,y_m,z_m,arrival_s',

@@ -37,7 +37,7 @@ describe('one reading', () => {
     const chosen = within(table)
       .getAllByRole('row')
       .find((r) => r.getAttribute('aria-current') === 'true');
-    expect(chosen).toHaveTextContent(/\d+ sd ⚠/);
+    expect(chosen).toHaveTextContent(/\d+ sd \(far\)/);
     // The chosen one's 95 % interval under the key figure, and the sd's two parts in the table.
     expect(screen.getByTestId('chosen-interval')).toHaveTextContent(/95 %: 1\.7\d+ – 1\.8\d+ K/);
     expect(within(table).getByRole('columnheader', { name: /measurement \/ u₂ curve/ })).toBeInTheDocument();

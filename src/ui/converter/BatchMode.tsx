@@ -1,5 +1,5 @@
 import { useId, useMemo, useState } from 'react';
-import { delayResultAt, delayResultCells, delayResultHeader, type DelayBatchResults } from '../../io/delay-batch';
+import { delayResultAt, delayResultCells, delayResultHeader, type DelayBatchResults, WARNING_CODES } from '../../io/delay-batch';
 import { ChartFigure } from '../charts/ChartFigure';
 import { formatSignificant } from '../format/format-number';
 import { PanelErrorBoundary } from '../layout/PanelErrorBoundary';
@@ -149,9 +149,12 @@ function BatchResults() {
   let lo = Number.POSITIVE_INFINITY;
   let hi = Number.NEGATIVE_INFINITY;
   let ambiguous = 0;
+  const disagreeing: number[] = [];
+  const disagreeBit = 1 << WARNING_CODES.indexOf('evidence-disagrees');
   for (let i = 0; i < r.count; i++) {
     const c = r.chosen[i] as number;
     if (c < 0 && (r.along[i] as number) >= 0) ambiguous++;
+    if ((r.warnings[i] as number) & disagreeBit) disagreeing.push(r.batch.rows[i]?.line ?? i + 2);
     if (c < 0) continue;
     decided++;
     const T = r.temperature_K[i * 3 + c] as number;
@@ -172,6 +175,14 @@ function BatchResults() {
           {decided > 0 ? `, from ${temperatureText(lo, unit)} to ${temperatureText(hi, unit)}` : ''}.
           {decided + ambiguous < r.count ? ' Undecided rows have several candidates and nothing to choose by: set a way of choosing.' : ''}
         </p>
+        {disagreeing.length > 0 ? (
+          <p className="converter-warning" role="note" data-testid="batch-disagree">
+            Delay and evidence disagree on {disagreeing.length} row{disagreeing.length === 1 ? '' : 's'} (line{disagreeing.length === 1 ? '' : 's'}{' '}
+            {disagreeing.slice(0, 5).join(', ')}
+            {disagreeing.length > 5 ? ', …' : ''}): the chosen temperature lies more than 3 sd from the row’s vapour-pressure temperature (see evidence_sd in
+            the export). Check the distance, the offset t₀, the gauge and the head pressure.
+          </p>
+        ) : null}
         {ambiguous > 0 ? (
           <p className="converter-warning" role="note" data-testid="batch-ambiguous">
             {ambiguous} reading{ambiguous === 1 ? '' : 's'} past a turn of u₂ (its minimum or maximum): both branches meeting there are continuous, so

@@ -8,7 +8,7 @@ import { LADDERS, readText } from '../planner/display-units';
 /** A distance from the evidence in sd: "12 sd" (flagged past 3), or a dash without evidence. */
 function evidenceText(d: number | null | undefined): string {
   if (d === null || d === undefined) return '—';
-  return `${formatSignificant(d, 2)} sd${d > 3 ? ' ⚠' : ''}`;
+  return `${formatSignificant(d, 2)} sd${d > 3 ? ' (far)' : ''}`;
 }
 
 interface CandidatesTableProps {
@@ -94,9 +94,13 @@ export function CandidatesTable({ candidates, rule, choice, caption }: Candidate
                   {sdText(c.sdMeasurement_K)} / {sdText(c.sdCurve_K)}
                 </td>
                 <td className="num interval-cell">
-                  <span>{intervalWords(c.interval68_K, c.reaches68, c.sd_K)}</span>
+                  <span>
+                    <span className="muted">68 %</span> {intervalWords(c.interval68_K, c.reaches68, c.sd_K)}
+                  </span>
                   <br />
-                  <span>{intervalWords(c.interval95_K, c.reaches95, c.sd_K)}</span>
+                  <span>
+                    <span className="muted">95 %</span> {intervalWords(c.interval95_K, c.reaches95, c.sd_K)}
+                  </span>
                 </td>
                 <td className="num">{evidenceText(choice.evidenceSd[i])}</td>
                 <td className="num">{formatSignificant(c.slope_m_s_K, 3)}</td>

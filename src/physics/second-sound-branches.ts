@@ -26,6 +26,9 @@ export interface BranchTable {
   /** Slowest and fastest speed on the branch, m/s. */
   slowest: number;
   fastest: number;
+  /** u2 at the cold and the warm end, m/s. */
+  speedAtLo: number;
+  speedAtHi: number;
 }
 
 // With 4097 nodes the interpolated first guess is within about 1e-8 K of the root, so one Newton
@@ -41,7 +44,20 @@ function buildBranch(branch: Branch, lo: number, hi: number): BranchTable {
   }
   const pairs = temps.map((T) => [secondSoundValueUnchecked(T), T] as const).sort((a, b) => a[0] - b[0]);
   const speeds = Float64Array.from(pairs, (p) => p[0]);
-  return { branch, lo, hi, speeds, temps: Float64Array.from(pairs, (p) => p[1]), slowest: speeds[0] as number, fastest: speeds[speeds.length - 1] as number };
+  const slowest = speeds[0] as number;
+  const fastest = speeds[speeds.length - 1] as number;
+  const risingWithT = branch === 'middle';
+  return {
+    branch,
+    lo,
+    hi,
+    speeds,
+    temps: Float64Array.from(pairs, (p) => p[1]),
+    slowest,
+    fastest,
+    speedAtLo: risingWithT ? slowest : fastest,
+    speedAtHi: risingWithT ? fastest : slowest,
+  };
 }
 
 /** The branches, coldest first. */

@@ -102,6 +102,9 @@ const FAST_LIMIT_K = T_LAMBDA_K - LAMBDA_END_REACH_K;
 const EDGES_K = Float64Array.from(SECOND_SOUND_SD_EDGES_K).sort();
 const EDGE_SPEEDS = EDGES_K.map((T) => secondSoundUnchecked(T).value);
 const EDGE_NUDGE_K = 1e-9;
+/** The curve's relative sd just below and just above each edge. */
+const EDGE_R_BELOW = EDGES_K.map((T) => secondSoundBaseRelativeSd(T - EDGE_NUDGE_K));
+const EDGE_R_ABOVE = EDGES_K.map((T) => secondSoundBaseRelativeSd(T + EDGE_NUDGE_K));
 
 /** |v − u| − k·√(σm² + (r v)²): the band's excess at a point where u2 = v and the curve's relative sd is r. */
 function excessAt(v: number, r: number, u: number, k: number, sdMeasurement: number): number {
@@ -135,7 +138,7 @@ function fastBound(b: BranchTable, u: number, k: number, sdMeasurement: number, 
     const T = fastBoundWithin(b, u, k, sdMeasurement, seed, end);
     return T < FAST_LIMIT_K ? T : null;
   }
-  const endSpeed = secondSoundValueAtBranchEnd(b, end);
+  const endSpeed = end === b.lo ? b.speedAtLo : b.speedAtHi;
   if (excessAt(endSpeed, secondSoundBaseRelativeSd(end - dir * EDGE_NUDGE_K), u, k, sdMeasurement) <= 0) return end;
   return fastBoundWithin(b, u, k, sdMeasurement, seed, end);
 }
@@ -145,22 +148,24 @@ function fastBoundWithin(b: BranchTable, u: number, k: number, sdMeasurement: nu
   const dir = end > seed ? 1 : -1;
   // Region edges between seed and end, farthest first; `outer` is the far limit of each region.
   let outer = end;
+  let vOuter = end === b.lo ? b.speedAtLo : end === b.hi ? b.speedAtHi : secondSoundUnchecked(end).value;
   const n = EDGES_K.length;
   for (let j = 0; j < n; j++) {
     const i = dir > 0 ? n - 1 - j : j;
     const T = EDGES_K[i] as number;
     if (!((T - seed) * dir > 0 && (end - T) * dir > 0)) continue;
-    const r = secondSoundBaseRelativeSd(T + dir * EDGE_NUDGE_K);
-    if (excessAt(EDGE_SPEEDS[i] as number, r, u, k, sdMeasurement) <= 0) return boundInRegion(b, u, k, sdMeasurement, r, T, outer);
+    const r = (dir > 0 ? EDGE_R_ABOVE[i] : EDGE_R_BELOW[i]) as number;
+    const v = EDGE_SPEEDS[i] as number;
+    if (excessAt(v, r, u, k, sdMeasurement) <= 0) return boundInRegion(b, u, k, sdMeasurement, r, T, outer, vOuter);
     outer = T;
+    vOuter = v;
   }
-  return boundInRegion(b, u, k, sdMeasurement, secondSoundBaseRelativeSd(seed), seed, outer);
+  return boundInRegion(b, u, k, sdMeasurement, secondSoundBaseRelativeSd(seed), seed, outer, vOuter);
 }
 
-/** The band's bound between `from` (inside the set) and `to`, where the curve's relative sd is r throughout. */
-function boundInRegion(b: BranchTable, u: number, k: number, sdMeasurement: number, r: number, from: number, to: number): number {
+/** The band's bound between `from` (inside the set) and `to` (where u2 = vTo), the curve's relative sd r throughout. */
+function boundInRegion(b: BranchTable, u: number, k: number, sdMeasurement: number, r: number, from: number, to: number, vTo: number): number {
   // Walking towards `to`, u2 moves away from u on one side: which side follows from u2 at `to`.
-  const vTo = secondSoundValueAtBranchEnd(b, to);
   const side: 1 | -1 = vTo > u ? 1 : -1;
   const v = bandSpeed(u, side, k, sdMeasurement, r);
   if ((v - vTo) * side >= 0) return to;
@@ -168,14 +173,6 @@ function boundInRegion(b: BranchTable, u: number, k: number, sdMeasurement: numb
   const lo = Math.min(from, to);
   const hi = Math.max(from, to);
   return Math.min(hi, Math.max(lo, T));
-}
-
-/** u2 at a temperature that is a branch end or a region edge (exact where tabulated). */
-function secondSoundValueAtBranchEnd(b: BranchTable, T: number): number {
-  if (T === branchEnd(b, 'slowest')) return b.slowest;
-  if (T === branchEnd(b, 'fastest')) return b.fastest;
-  const i = EDGES_K.indexOf(T);
-  return i >= 0 ? (EDGE_SPEEDS[i] as number) : secondSoundUnchecked(T).value;
 }
 
 /** Seeds per branch for one speed: a temperature in the band (the root, or a branch end), or NaN where the band misses the branch. */

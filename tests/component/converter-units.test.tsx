@@ -189,7 +189,7 @@ describe('converter results in the header units', () => {
     downloads.restore();
     const lines = ((await downloads.blobs[0]?.text()) ?? '').trimEnd().split('\n');
     expect(lines[0]).toBe(
-      'distance_m,distance_sd_m,delay_us,delay_sd_us,offset_us,offset_sd_us,speed_m_s,speed_sd_m_s,rule,candidate,T_mK,T_sd_mK,slope_m_s_K,branch,region,kind,insensitive,chosen,choice',
+      'distance_m,distance_sd_m,delay_us,delay_sd_us,offset_us,offset_sd_us,speed_m_s,speed_sd_m_s,rule,candidate,T_mK,T_sd_mK,T_sd_meas_mK,T_sd_curve_mK,T_lo68_mK,T_hi68_mK,T_lo95_mK,T_hi95_mK,reaches95,evidence_sd,slope_m_s_K,branch,region,kind,insensitive,chosen,choice',
     );
     const c = convertDelay(START).candidates[2];
     const cells = lines[3]?.split(',') ?? [];
@@ -198,7 +198,9 @@ describe('converter results in the header units', () => {
     expect(cells[8]).toBe('vapour pressure 16.382 mbar');
     expect(Number(cells[10])).toBeCloseTo((c?.temperature_K ?? Number.NaN) * 1e3, 9);
     expect(Number(cells[11])).toBeCloseTo((c?.sd_K ?? Number.NaN) * 1e3, 12);
-    expect(cells[18]).toBe('nearest to 1800.0 mK from the vapour pressure (ITS-90)');
+    expect(Number(cells[12])).toBeCloseTo((c?.sdMeasurement_K ?? Number.NaN) * 1e3, 12);
+    expect(Number(cells[16])).toBeCloseTo((c?.interval95_K[0] ?? Number.NaN) * 1e3, 9);
+    expect(cells[26]).toBe('nearest to 1800.0 mK from the vapour pressure (ITS-90)');
   });
 
   it('shows and exports a batch in the display units', async () => {

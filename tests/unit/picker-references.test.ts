@@ -126,3 +126,13 @@ describe('picks stay inside the search window or are refused, in µs', () => {
     }
   });
 });
+
+describe('trace chart axes carry units', () => {
+  it('a channel named with its unit keeps it; one without says the file’s units', async () => {
+    const { channelAxisTitle } = await import('../../src/ui/converter/trace/trace-figure');
+    expect(channelAxisTitle('sensor_V')).toBe('sensor (V)');
+    expect(channelAxisTitle('bolometer_uV')).toBe('bolometer (µV)');
+    expect(channelAxisTitle('CH2 (mV)')).toBe('CH2 (mV)');
+    expect(channelAxisTitle('CH2')).toBe('CH2 (file units)');
+  });
+});

@@ -43,10 +43,15 @@ export function viewSpan(samples: TraceSamples, pick: TracePick | null, view: 'r
   return [Math.max(first, pick.arrival_s - half), Math.min(last, pick.arrival_s + half)];
 }
 
-/** A channel's name with its unit for an axis title: as written when it names one ("sensor (V)"), else marked as the file's units. */
+/**
+ * A channel's name with its unit for an axis title: "sensor (V)" as written; "sensor_V" → "sensor (V)";
+ * a name without a unit is marked as the file's units.
+ */
 export function channelAxisTitle(name: string): string {
-  const namesUnit = /[([][^)\]]+[)\]]\s*$/.test(name) || /[_\s](?:[uµμmnk]?V|[uµμmk]?A|[mk]?Ω|ohm|[um]?K)$/i.test(name);
-  return namesUnit ? name : `${name} (file units)`;
+  if (/[([][^)\]]+[)\]]\s*$/.test(name)) return name;
+  const suffix = /^(.*?)[_\s]([uµμmnk]?V|[uµμmk]?A|[mk]?Ω|ohm|[um]?K)$/i.exec(name);
+  if (suffix?.[1]) return `${suffix[1]} (${(suffix[2] ?? '').replace(/^u/, 'µ')})`;
+  return `${name} (file units)`;
 }
 
 /** Round, short tick labels with SI prefixes on a signal axis (20µ, 0.5m, 1.2): the unit is in the title. */
@@ -107,7 +112,7 @@ export function traceFigure({ samples, sensor, heater, pick, level, search, view
       legend: { orientation: 'h', x: 1, y: 1.01, xanchor: 'right', yanchor: 'bottom' },
       xaxis: axis(pick?.timeZero === 'heater onset' ? `Time from the heater onset (${unit})` : `Time (${unit})`, { range: [shown(from), shown(to)] }),
       yaxis: axis(channelAxisTitle(sensor), SIGNAL_TICKS),
-      ...(heaterValues ? { yaxis2: axis(channelAxisTitle(heater as string), { ...SIGNAL_TICKS, overlaying: 'y', side: 'right', showline: true, zeroline: false, gridcolor: 'rgba(0,0,0,0)' }) } : {}),
+      ...(heaterValues ? { yaxis2: axis(channelAxisTitle(heater as string), { ...SIGNAL_TICKS, tickmode: 'auto', showgrid: false, overlaying: 'y', side: 'right', showline: true, zeroline: false, gridcolor: 'rgba(0,0,0,0)' }) } : {}),
       shapes,
       annotations: pick
         ? [

@@ -15,7 +15,10 @@
  *
  * Choice of temperature per row: a row with a pressure takes the candidate nearest its ITS-90
  * vapour-pressure temperature; the rows after it follow by continuity (the kernel's
- * seriesChooser: nearest to the previous choice) until the next row with a pressure. Before
+ * seriesChooser: nearest to the previous choice) until the next row with a pressure. Past a turn
+ * of u2 (a chosen 95 % interval reaching its minimum or maximum) continuity cannot choose: those
+ * rows are "ambiguous" (no chosen candidate, both continuations kept, a labelled trend guess)
+ * until a row with its own pressure settles the branch; they are then "settled" back to the turn. Before
  * the first decided row, a start rule decides (e.g. "near 1.8 K"); without one, the first row with
  * a single candidate starts the series. Rows nothing decides stay undecided (empty `chosen`).
  * The choice is made row by row (the kernel's seriesChooser) as results are stored in typed
@@ -24,7 +27,13 @@
  * Output columns (one row per input row, in order; header always the same for the same input):
  *   line, [timestamp], <delay column as in the input, in its own unit>, distance_m, [pressure_Pa],
  *   speed_m_s, speedSd_m_s, candidates (count 0–3), chosen (1–3 or empty), chosen_by
- *   (pressure | near | range | only candidate | continuity | empty), T_K, T_sd_K (the chosen one),
+ *   (pressure | near | range | only candidate | continuity | settled | ambiguous | empty), T_K,
+ *   T_sd_K (the chosen one, total sd), T_sd_meas_K and T_sd_curve_K (its two parts: measurement,
+ *   and the u2 curve's own), T_lo68_K, T_hi68_K, T_lo95_K, T_hi95_K (its 68 % and 95 % intervals),
+ *   evidence_sd (its distance from the row's own evidence, in sd; empty without evidence),
+ *   alternatives and guess (for an ambiguous row past a turn of u2: the two continuations'
+ *   candidate numbers, "2 3", and the trend guess's number), warnings (space-separated codes:
+ *   evidence-disagrees, interval-reaches-extremum, series-ambiguous, near-lambda, model-region),
  *   then for i = 1…3: Ti_K, Ti_sd_K, Ti_branch (low | middle | high), Ti_note (space-separated:
  *   "extremum", "insensitive", "Landau-model", "critical-scaling"; empty for a plain root);
  *   candidates coldest first, empty cells where a row has fewer. [..] columns appear only when
@@ -35,12 +44,18 @@
 import {
   type Branch,
   type ChoiceRule,
+  candidateWarnings,
   convertDelay,
   type DelayConversion,
+  EVIDENCE_LIMIT_SD,
+  type IntervalReach,
   PhysicsError,
   PROPERTIES_RANGE_K,
+  type ReadingWarning,
+  type ReadingWarningCode,
   type SeriesChoiceBy,
   seriesChooser,
+  speedSigmasFromTurn,
   type TemperatureCandidate,
 } from '../physics';
 import { type CsvCell, CsvInputError, columnWithUnit, writeCsv } from './csv-common';
@@ -114,13 +129,17 @@ export interface DelayBatchSettings {
   start?: ChoiceRule;
 }
 
-export type ChosenBy = 'pressure' | 'near' | 'range' | 'only candidate' | 'continuity';
+export type ChosenBy = 'pressure' | 'near' | 'range' | 'only candidate' | 'continuity' | 'settled' | 'ambiguous';
 
 /** Codes of the typed-array columns of {@link DelayBatchResults}. */
 export const BRANCH_CODES: readonly Branch[] = ['low', 'middle', 'high'];
 export const REGION_CODES: readonly TemperatureCandidate['region'][] = ['measured', 'Landau model', 'critical scaling'];
 export const KIND_CODES: readonly TemperatureCandidate['kind'][] = ['root', 'extremum'];
-export const CHOSEN_BY_CODES: readonly ChosenBy[] = ['pressure', 'near', 'range', 'only candidate', 'continuity'];
+export const CHOSEN_BY_CODES: readonly ChosenBy[] = ['pressure', 'near', 'range', 'only candidate', 'continuity', 'settled', 'ambiguous'];
+/** Bits of the {@link DelayBatchResults.reaches68} / reaches95 columns. */
+export const REACH_CODES: readonly IntervalReach[] = ['minimum', 'maximum', 'Tλ', 'model limit'];
+/** Bits of the {@link DelayBatchResults.warnings} column. */
+export const WARNING_CODES: readonly ReadingWarningCode[] = ['evidence-disagrees', 'interval-reaches-extremum', 'series-ambiguous', 'near-lambda', 'model-region'];
 /** Code of "none" in the Uint8Array code columns. */
 export const NO_CODE = 255;
 
@@ -148,10 +167,28 @@ export interface DelayBatchResults {
   kind: Uint8Array;
   /** 1 where the candidate is insensitive (near an extremum of u2). */
   insensitive: Uint8Array;
+  /** The two parts of sd_K: measurement, and the u2 curve's own. */
+  sdMeasurement_K: Float64Array;
+  sdCurve_K: Float64Array;
+  /** 68 % and 95 % interval bounds. */
+  low68_K: Float64Array;
+  high68_K: Float64Array;
+  low95_K: Float64Array;
+  high95_K: Float64Array;
+  /** Bit masks over {@link REACH_CODES}. */
+  reaches68: Uint8Array;
+  reaches95: Uint8Array;
+  /** Distance from the row's own evidence in sd; NaN without evidence. */
+  evidenceSd: Float64Array;
   /** Index of the chosen candidate, or −1. */
   chosen: Int8Array;
   /** Index into {@link CHOSEN_BY_CODES}, or {@link NO_CODE}. */
   chosenBy: Uint8Array;
+  /** Ambiguous rows past a turn: the continuation along the branch the series came, the one across the turn (−1 elsewhere). */
+  along: Int8Array;
+  across: Int8Array;
+  /** Bit mask over {@link WARNING_CODES}, per row. */
+  warnings: Uint8Array;
 }
 
 /** One row of a batch as objects. */
@@ -161,6 +198,11 @@ export interface DelayResult extends DelayConversion {
   /** Index into `candidates`, or null. */
   chosen: number | null;
   chosenBy: ChosenBy | null;
+  /** Past a turn of u2: the two continuations and the labelled trend guess (indices into `candidates`). */
+  ambiguous: { alternatives: [number, number]; guess: number } | null;
+  /** Per candidate: distance from the row's own evidence in sd, or null. */
+  evidenceSd: (number | null)[];
+  warnings: ReadingWarning[];
 }
 
 /** The start rule used when none is given: decides only a reading with a single candidate. */
@@ -189,8 +231,20 @@ export function convertDelayBatch(batch: DelayBatch, settings: DelayBatchSetting
     region: new Uint8Array(m).fill(NO_CODE),
     kind: new Uint8Array(m).fill(NO_CODE),
     insensitive: new Uint8Array(m),
+    sdMeasurement_K: new Float64Array(m).fill(Number.NaN),
+    sdCurve_K: new Float64Array(m).fill(Number.NaN),
+    low68_K: new Float64Array(m).fill(Number.NaN),
+    high68_K: new Float64Array(m).fill(Number.NaN),
+    low95_K: new Float64Array(m).fill(Number.NaN),
+    high95_K: new Float64Array(m).fill(Number.NaN),
+    reaches68: new Uint8Array(m),
+    reaches95: new Uint8Array(m),
+    evidenceSd: new Float64Array(m).fill(Number.NaN),
     chosen: new Int8Array(n).fill(-1),
     chosenBy: new Uint8Array(n).fill(NO_CODE),
+    along: new Int8Array(n).fill(-1),
+    across: new Int8Array(n).fill(-1),
+    warnings: new Uint8Array(n),
   };
   const choose = seriesChooser(settings.start ?? ONLY_CANDIDATE);
   const byCode: Readonly<Record<SeriesChoiceBy, number>> = {
@@ -213,14 +267,13 @@ export function convertDelayBatch(batch: DelayBatch, settings: DelayBatchSetting
     reading.distance_m = distance_m;
     reading.delay_s = row.delay_s;
     let candidates: TemperatureCandidate[];
-    let index: number | null;
-    let by: SeriesChoiceBy;
+    let choice: ReturnType<typeof choose>;
     try {
       const conversion = convertDelay(reading);
       candidates = conversion.candidates;
       out.speed_m_s[i] = conversion.speed_m_s;
       out.speedSd_m_s[i] = conversion.speedSd_m_s;
-      ({ index, by } = choose(candidates, row.pressure_Pa === undefined ? null : { kind: 'pressure', pressure_Pa: row.pressure_Pa }));
+      choice = choose(candidates, row.pressure_Pa === undefined ? null : { kind: 'pressure', pressure_Pa: row.pressure_Pa });
     } catch (error) {
       if (error instanceof PhysicsError) throw new CsvInputError('out-of-range', error.message, row.line);
       throw error;
@@ -238,13 +291,52 @@ export function convertDelayBatch(batch: DelayBatch, settings: DelayBatchSetting
       out.region[j] = REGION_CODES.indexOf(c.region);
       out.kind[j] = KIND_CODES.indexOf(c.kind);
       out.insensitive[j] = c.insensitive ? 1 : 0;
+      out.sdMeasurement_K[j] = c.sdMeasurement_K;
+      out.sdCurve_K[j] = c.sdCurve_K;
+      out.low68_K[j] = c.interval68_K[0];
+      out.high68_K[j] = c.interval68_K[1];
+      out.low95_K[j] = c.interval95_K[0];
+      out.high95_K[j] = c.interval95_K[1];
+      out.reaches68[j] = reachBits(c.reaches68);
+      out.reaches95[j] = reachBits(c.reaches95);
+      const e = choice.evidenceSd[k];
+      if (e !== null && e !== undefined) out.evidenceSd[j] = e;
     }
+    const { index, by } = choice;
+    let warnings = warningBits(choice.warnings);
     if (index !== null && index < count) {
       out.chosen[i] = index;
       out.chosenBy[i] = byCode[by];
+      warnings |= warningBits(candidateWarnings(candidates[index] as TemperatureCandidate, 0));
     }
+    if (choice.ambiguous) {
+      out.along[i] = choice.ambiguous.alternatives[0];
+      out.across[i] = choice.ambiguous.alternatives[1];
+      out.chosenBy[i] = CHOSEN_BY_CODES.indexOf('ambiguous');
+    }
+    out.warnings[i] = warnings;
+    for (const settled of choice.settles) settleRow(out, settled.row, settled.index);
   }
   return out;
+}
+
+function reachBits(reaches: readonly IntervalReach[]): number {
+  return reaches.reduce((bits, r) => bits | (1 << REACH_CODES.indexOf(r)), 0);
+}
+
+function warningBits(warnings: readonly ReadingWarning[]): number {
+  return warnings.reduce((bits, w) => (WARNING_CODES.includes(w.code) ? bits | (1 << WARNING_CODES.indexOf(w.code)) : bits), 0);
+}
+
+/** A row past a turn that a later row's evidence settled: the continuation on the chosen branch. */
+function settleRow(out: DelayBatchResults, row: number, index: number): void {
+  out.chosen[row] = index;
+  out.chosenBy[row] = CHOSEN_BY_CODES.indexOf('settled');
+  const ambiguousBit = 1 << WARNING_CODES.indexOf('series-ambiguous');
+  const j = row * MAX_CANDIDATES + index;
+  const reachBit = 1 << WARNING_CODES.indexOf('interval-reaches-extremum');
+  const turns = (1 << REACH_CODES.indexOf('minimum')) | (1 << REACH_CODES.indexOf('maximum'));
+  out.warnings[row] = ((out.warnings[row] as number) & ~ambiguousBit) | ((out.reaches95[j] as number) & turns ? reachBit : 0);
 }
 
 /** The candidates of row `i` as the kernel's objects, coldest first. */
@@ -260,6 +352,57 @@ export function candidatesAt(results: DelayBatchResults, i: number): Temperature
       insensitive: results.insensitive[j] === 1,
       region: REGION_CODES[results.region[j] as number] as TemperatureCandidate['region'],
       kind: KIND_CODES[results.kind[j] as number] as TemperatureCandidate['kind'],
+      sdMeasurement_K: results.sdMeasurement_K[j] as number,
+      sdCurve_K: results.sdCurve_K[j] as number,
+      interval68_K: [results.low68_K[j] as number, results.high68_K[j] as number],
+      interval95_K: [results.low95_K[j] as number, results.high95_K[j] as number],
+      reaches68: reachesOf(results.reaches68[j] as number),
+      reaches95: reachesOf(results.reaches95[j] as number),
+    });
+  }
+  return out;
+}
+
+function reachesOf(bits: number): IntervalReach[] {
+  return REACH_CODES.filter((_, b) => (bits & (1 << b)) !== 0);
+}
+
+/** The warning codes of row `i`. */
+export function warningCodesAt(results: DelayBatchResults, i: number): ReadingWarningCode[] {
+  const bits = results.warnings[i] as number;
+  return WARNING_CODES.filter((_, b) => (bits & (1 << b)) !== 0);
+}
+
+/**
+ * Row `i`'s warnings with their messages, made again from the stored columns (the batch keeps
+ * only their codes): the chosen candidate's own, its distance from the row's pressure, and the
+ * ambiguity past a turn.
+ */
+export function warningsAt(results: DelayBatchResults, i: number): ReadingWarning[] {
+  const codes = warningCodesAt(results, i);
+  const candidates = candidatesAt(results, i);
+  const chosen = results.chosen[i] as number;
+  const out: ReadingWarning[] = [];
+  const c = chosen >= 0 ? candidates[chosen] : undefined;
+  if (c && codes.includes('evidence-disagrees')) {
+    const e = results.evidenceSd[i * MAX_CANDIDATES + chosen] as number;
+    const row = results.batch.rows[i] as DelayRow;
+    out.push({
+      code: 'evidence-disagrees',
+      severity: 'caution',
+      message: `Delay and evidence disagree: the chosen ${c.temperature_K.toFixed(4)} K lies ${e.toFixed(1)} sd from the temperature of this row's vapour pressure (${row.pressure_Pa ?? ''} Pa). Check the distance, the offset t0, the gauge and the head pressure.`,
+      value: e,
+      limit: EVIDENCE_LIMIT_SD,
+    });
+  }
+  if (c) out.push(...candidateWarnings(c, speedSigmasFromTurn(c, results.speed_m_s[i] as number, results.speedSd_m_s[i] as number)));
+  if (codes.includes('series-ambiguous')) {
+    out.push({
+      code: 'series-ambiguous',
+      severity: 'caution',
+      message: 'Past a turn of u₂ both continuations fit this reading; neither is reported as chosen until a row with its own pressure settles the branch.',
+      value: 1,
+      limit: 0,
     });
   }
   return out;
@@ -268,6 +411,9 @@ export function candidatesAt(results: DelayBatchResults, i: number): Temperature
 /** Row `i` of the results as objects. */
 export function delayResultAt(results: DelayBatchResults, i: number): DelayResult {
   const chosen = results.chosen[i] as number;
+  const along = results.along[i] as number;
+  const across = results.across[i] as number;
+  const count = results.candidateCount[i] as number;
   return {
     row: results.batch.rows[i] as DelayRow,
     distance_m: results.distance_m[i] as number,
@@ -276,6 +422,12 @@ export function delayResultAt(results: DelayBatchResults, i: number): DelayResul
     candidates: candidatesAt(results, i),
     chosen: chosen < 0 ? null : chosen,
     chosenBy: CHOSEN_BY_CODES[results.chosenBy[i] as number] ?? null,
+    ambiguous: chosen < 0 && along >= 0 && across >= 0 ? { alternatives: [along, across], guess: across } : null,
+    evidenceSd: Array.from({ length: count }, (_, k) => {
+      const e = results.evidenceSd[i * MAX_CANDIDATES + k] as number;
+      return Number.isNaN(e) ? null : e;
+    }),
+    warnings: warningsAt(results, i),
   };
 }
 
@@ -318,6 +470,7 @@ export function delayResultHeader(batch: Pick<DelayBatch, 'delayColumn' | 'hasTi
   header.push(units.time ? columnWithUnit('delay', units.time) : batch.delayColumn, columnWithUnit('distance', units.length ?? 'm'));
   if (batch.hasPressure) header.push(columnWithUnit('pressure', units.pressure ?? 'Pa'));
   header.push('speed_m_s', 'speedSd_m_s', 'candidates', 'chosen', 'chosen_by', columnWithUnit('T', T), columnWithUnit('T_sd', T));
+  header.push(...['T_sd_meas', 'T_sd_curve', 'T_lo68', 'T_hi68', 'T_lo95', 'T_hi95'].map((name) => columnWithUnit(name, T)), 'evidence_sd', 'alternatives', 'guess', 'warnings');
   for (let i = 1; i <= MAX_CANDIDATES; i++) header.push(columnWithUnit(`T${i}`, T), columnWithUnit(`T${i}_sd`, T), `T${i}_branch`, `T${i}_note`);
   return header;
 }
@@ -335,6 +488,11 @@ export function delayResultCells(r: DelayBatchResults, i: number, units: ResultU
   const by = r.chosenBy[i] as number;
   cells.push(r.speed_m_s[i], r.speedSd_m_s[i], r.candidateCount[i], chosen < 0 ? null : chosen + 1, CHOSEN_BY_CODES[by] ?? '');
   cells.push(chosen < 0 ? null : inUnit(r.temperature_K[c], T), chosen < 0 ? null : inUnit(r.sd_K[c], T));
+  for (const column of [r.sdMeasurement_K, r.sdCurve_K, r.low68_K, r.high68_K, r.low95_K, r.high95_K]) cells.push(chosen < 0 ? null : inUnit(column[c], T));
+  const evidence = chosen < 0 ? Number.NaN : (r.evidenceSd[c] as number);
+  const along = r.along[i] as number;
+  const ambiguous = chosen < 0 && along >= 0;
+  cells.push(Number.isNaN(evidence) ? null : evidence, ambiguous ? `${along + 1} ${(r.across[i] as number) + 1}` : '', ambiguous ? (r.across[i] as number) + 1 : null, warningCodesAt(r, i).join(' '));
   for (let k = 0; k < MAX_CANDIDATES; k++) {
     const j = i * MAX_CANDIDATES + k;
     const present = k < (r.candidateCount[i] as number);

@@ -13,8 +13,28 @@
  *    The arrival is the leading half-height point of the best-matching window (its centre less
  *    half the measured width): the feature the fraction picker finds at 0.5, found with the noise
  *    averaging of a correlation.
+ *
+ * Like with like: with a heater channel the delay is measured between the same features of the
+ * drive and of the received pulse. The edge pickers and the correlation measure onset to onset
+ * (from the drive's 50 % onset); the peak picker measures peak to peak (from the drive's centre at
+ * half height — for a flat-topped pulse, where its peak lies), so a 100 µs pulse is not read as
+ * 50 µs slower. Without a heater channel the delay counts from the file's t = 0 and `reference`
+ * says so. The baseline and noise use only samples before time zero, before the file's t = 0 and
+ * before the drive starts to rise (so no heater pickup at the switching instant enters the noise).
  */
-import { baselineOf, InvalidInputError, MIN_BASELINE_SAMPLES, type Pick, type PickerKind, pickArrival, type Trace, uniformStep } from '../physics';
+import {
+  baselineOf,
+  heaterCentre,
+  heaterStart,
+  InvalidInputError,
+  MIN_BASELINE_SAMPLES,
+  type Pick,
+  type PickerKind,
+  pickArrival,
+  requireInsideWindow,
+  type Trace,
+  uniformStep,
+} from '../physics';
 import { CsvInputError } from './csv-common';
 import { alignToHeaterOnset, channelByName, type TraceCsv } from './trace-csv';
 
@@ -27,6 +47,9 @@ const DEFAULT_TEMPLATE_LEVEL = 0.5;
 export const TRACE_SEARCH_RANGE_S = [-1e4, 1e4] as const;
 
 export type TemplateSource = 'heater drive' | 'half-height rectangle';
+
+/** Which features the delay runs between. */
+export type DelayReference = 'onset to onset' | 'peak to peak' | "from the file's t = 0";
 
 export interface TracePickOptions {
   picker: PickerKind;
@@ -50,8 +73,12 @@ export interface TracePick {
   /** Arrival on the file's own time axis, s. */
   arrival_s: number;
   arrivalSd_s: number;
-  /** Arrival − time zero, s: the delay a conversion to speed uses. */
+  /** Arrival − the heater's matching feature (its onset, or its centre for the peak picker), s: the delay a conversion to speed uses. */
   delay_s: number;
+  /** What the delay runs between: onset to onset, peak to peak, or from the file's t = 0. */
+  reference: DelayReference;
+  /** The heater feature the delay counts from, on the file's axis, s (the onset, the centre, or 0). */
+  referenceTime_s: number;
   /** √(arrival sd² + time-zero sd²), s. */
   delaySd_s: number;
   /** The heater onset on the file's axis, or 0. */
@@ -79,6 +106,9 @@ export function pickTraceArrival(trace: TraceCsv, options: TracePickOptions): Tr
   const aligned = heaterName === null ? null : alignToHeaterOnset(trace, heaterName);
   const time_s = aligned ? aligned.time_s : trace.time_s;
   const sensor: Trace = { time_s, values: channelByName(trace, sensorName).values };
+  const drive: Trace | null = aligned && heaterName !== null ? { time_s, values: channelByName(trace, heaterName).values } : null;
+  // Noise only from samples before time zero, the file's t = 0 and the start of the drive.
+  const baselineEnd_s = aligned && drive ? Math.min(0, -aligned.onset_s, heaterStart(drive)) : 0;
   let pick: Pick;
   let delay_s: number;
   let template: TemplateSource | null = null;
@@ -86,13 +116,14 @@ export function pickTraceArrival(trace: TraceCsv, options: TracePickOptions): Tr
     const made = aligned && heaterName !== null ? heaterTemplate(time_s, channelByName(trace, heaterName).values) : null;
     if (made) {
       template = 'heater drive';
-      pick = pickArrival(sensor, { kind: 'xcorr', template: made.template, from_s: (options.from_s ?? 0) - made.lead_s, to_s: options.to_s, polarity: options.polarity });
+      pick = pickArrival(sensor, { kind: 'xcorr', template: made.template, from_s: (options.from_s ?? 0) - made.lead_s, to_s: options.to_s, polarity: options.polarity, baselineEnd_s });
       delay_s = pick.arrival_s + made.lead_s;
     } else {
       template = 'half-height rectangle';
-      const rect = rectangleTemplate(sensor, options.from_s ?? 0, options.to_s, options.polarity);
-      pick = pickArrival(sensor, { kind: 'xcorr', template: rect.template, from_s: options.from_s, to_s: options.to_s, polarity: options.polarity });
+      const rect = rectangleTemplate(sensor, options.from_s ?? 0, options.to_s, options.polarity, baselineEnd_s);
+      pick = pickArrival(sensor, { kind: 'xcorr', template: rect.template, from_s: options.from_s, to_s: options.to_s, polarity: options.polarity, baselineEnd_s });
       delay_s = pick.arrival_s + ((rect.template.length - 1) * rect.step_s) / 2 - rect.width_s / 2;
+      requireInsideWindow(delay_s, { from_s: options.from_s ?? 0, to_s: options.to_s ?? (time_s[time_s.length - 1] as number) }, 'xcorr');
     }
   } else {
     pick = pickArrival(sensor, {
@@ -102,16 +133,31 @@ export function pickTraceArrival(trace: TraceCsv, options: TracePickOptions): Tr
       from_s: options.from_s,
       to_s: options.to_s,
       polarity: options.polarity,
+      baselineEnd_s,
     });
     delay_s = pick.arrival_s;
   }
   const timeZero_s = aligned ? aligned.onset_s : 0;
   const timeZeroSd_s = aligned ? aligned.onsetSd_s : 0;
+  // Peak to peak: from the drive's centre, not its onset.
+  let referenceTime_s = timeZero_s;
+  let referenceSd_s = timeZeroSd_s;
+  let reference: DelayReference = aligned ? 'onset to onset' : "from the file's t = 0";
+  const arrival_s = delay_s + timeZero_s;
+  if (options.picker === 'peak' && drive) {
+    const centre = heaterCentre(drive);
+    referenceTime_s = timeZero_s + centre.centre_s;
+    referenceSd_s = Math.hypot(timeZeroSd_s, centre.centreSd_s);
+    reference = 'peak to peak';
+    delay_s = arrival_s - referenceTime_s;
+  }
   return {
-    arrival_s: delay_s + timeZero_s,
+    arrival_s,
     arrivalSd_s: pick.arrivalSd_s,
     delay_s,
-    delaySd_s: Math.hypot(pick.arrivalSd_s, timeZeroSd_s),
+    reference,
+    referenceTime_s,
+    delaySd_s: Math.hypot(pick.arrivalSd_s, referenceSd_s),
     timeZero_s,
     timeZeroSd_s,
     timeZero: aligned ? 'heater onset' : 'file t = 0',
@@ -174,9 +220,10 @@ export function rectangleTemplate(
   from_s: number,
   to_s: number | undefined,
   polarity: TracePickOptions['polarity'],
+  baselineEnd_s = 0,
 ): { template: Float64Array; width_s: number; step_s: number } {
   const step_s = uniformStep(sensor);
-  const base = baselineOf(sensor, 0);
+  const base = baselineOf(sensor, baselineEnd_s);
   const t = sensor.time_s;
   const v = sensor.values;
   let i0 = 0;

@@ -119,6 +119,9 @@ export {
   type ChoiceRule,
   chooseAlongSeries,
   chooseCandidate,
+  distanceInSd,
+  EVIDENCE_SD_LIMITS,
+  type SeriesAmbiguity,
   type SeriesChoice,
   type SeriesChoiceBy,
   type SeriesChooser,
@@ -138,7 +141,9 @@ export {
 export {
   type Baseline,
   baselineOf,
+  heaterCentre,
   heaterOnset,
+  heaterStart,
   MIN_BASELINE_SAMPLES,
   type Pick,
   PICKER_KINDS,
@@ -146,20 +151,22 @@ export {
   type PickerKind,
   type PickOptions,
   pickArrival,
+  requireInsideWindow,
+  timeText,
   type Trace,
   uniformStep,
 } from './pickers';
 export { SECOND_SOUND_EXTREMA, type SpeedExtremum } from './second-sound-extrema';
+export { INTERVAL_K, type IntervalReach, speedBandTemperatures, type TemperatureInterval } from './temperature-interval';
 export {
-  bestAddedSensor,
-  type ConfidenceRegion,
-  type LayoutOptions,
-  type LayoutScore,
-  type LocateOptions,
-  type LocateResult,
-  LOCATE_SPEED_RANGE_M_S,
-  layoutQuality,
-  locateSource,
-  type SensorArrival,
-  type SurfaceConstraint,
-} from './locate-source';
+  candidateWarnings,
+  EVIDENCE_LIMIT_SD,
+  evidenceWarning,
+  type ReadingWarning,
+  type ReadingWarningCode,
+  speedSigmasFromTurn,
+} from './reading-warnings';
+export { type ConfidenceRegion, type LocateOptions, type LocateResult, LOCATE_SPEED_RANGE_M_S, locateSource, type SensorArrival, speedPriorAt } from './locate-source';
+export type { SpeedPrior } from './arrival-fit';
+export { bestAddedSensor, type LayoutOptions, type LayoutScore, layoutQuality, type SensorPlacement, sensorPlaceAllowed } from './layout-quality';
+export { insideBody, type SurfaceConstraint } from './surface-constraint';

@@ -1,107 +1,24 @@
-import { MODEL_MIN_K, T_LAMBDA_K } from './constants';
+import { MODEL_MIN_K } from './constants';
 import { requireInRange } from './errors';
 import { secondSoundRegion, secondSoundUnchecked, secondSoundValueUnchecked } from './second-sound';
+import { BRANCHES, type Branch, type Root, solveOnBranch } from './second-sound-branches';
 import { SECOND_SOUND_EXTREMA } from './second-sound-extrema';
+import { INTERVAL_K, type IntervalReach, intervalHolding, speedBandTemperatures } from './temperature-interval';
 import { secondSoundRelativeSd, secondSoundRelativeSdUnchecked, temperatureSpreadUnchecked } from './temperature-resolution';
 
 /*
- * Speed → every temperature with u2(T) = u (PHYSICS notes §6). u2 is not monotonic: it falls from
- * 136 m/s at 0.3 K to a minimum of 18.34 m/s near 1.12 K, rises to a maximum of 20.37 m/s near
- * 1.65 K, and falls to 0 at Tλ. So the curve splits into three monotonic branches:
- *   low    0.3 K – T_min   (falling),
- *   middle T_min – T_max   (rising),
- *   high   T_max – Tλ      (falling).
- * A speed between the extremes has three roots; above the maximum one (low branch, below 0.93 K);
- * below the minimum one (high branch, above 1.92 K). Each root is found by Newton's method from a
- * tabulated inverse of its branch, safeguarded by the branch's bracket.
+ * Speed → every temperature with u2(T) = u (PHYSICS notes §6). u2 is not monotonic, so the curve
+ * splits into three monotonic branches (second-sound-branches.ts): a speed between the extremes
+ * has three roots; above the maximum one (low branch, below 0.93 K); below the minimum one (high
+ * branch, above 1.92 K).
  * Near an extremum du2/dT → 0: the sd uses the second-order bound there and the candidate says it
  * is insensitive; a speed just beyond an extremum (within two sd) yields the extremum itself.
+ * Each candidate carries its sd in two parts — the measurement's (distance, timing, offset: what
+ * limits a change between readings) and the u2 curve's own (common to every reading) — with the
+ * total, and its 68 % and 95 % intervals mapped through the curve (temperature-interval.ts).
  */
 
-export type Branch = 'low' | 'middle' | 'high';
-
-const T_MIN = SECOND_SOUND_EXTREMA.minimum.temperature_K;
-const T_MAX = SECOND_SOUND_EXTREMA.maximum.temperature_K;
-
-interface BranchTable {
-  branch: Branch;
-  lo: number;
-  hi: number;
-  /** Speeds at the table nodes, increasing. */
-  speeds: Float64Array;
-  temps: Float64Array;
-}
-
-// With 4097 nodes the interpolated first guess is within about 1e-8 K of the root, so one Newton
-// step lands far below 1e-12 K and the evaluation made for it also serves the candidate's sd.
-const TABLE_NODES = 4097;
-
-function buildBranch(branch: Branch, lo: number, hi: number): BranchTable {
-  // Nodes denser near the ends, where the curve turns (extrema) or plunges (Tλ).
-  const temps: number[] = [];
-  for (let i = 0; i < TABLE_NODES; i++) {
-    const x = i / (TABLE_NODES - 1);
-    temps.push(lo + (hi - lo) * (0.5 - 0.5 * Math.cos(Math.PI * x)));
-  }
-  const pairs = temps.map((T) => [secondSoundValueUnchecked(T), T] as const).sort((a, b) => a[0] - b[0]);
-  return {
-    branch,
-    lo,
-    hi,
-    speeds: Float64Array.from(pairs, (p) => p[0]),
-    temps: Float64Array.from(pairs, (p) => p[1]),
-  };
-}
-
-const BRANCHES: readonly BranchTable[] = [
-  buildBranch('low', MODEL_MIN_K, T_MIN),
-  buildBranch('middle', T_MIN, T_MAX),
-  buildBranch('high', T_MAX, T_LAMBDA_K),
-];
-
-/** A Newton step this small leaves an error far below 1e-12 K (quadratic convergence). */
-const NEWTON_ACCEPT_STEP_K = 1e-7;
-const NEWTON_MAX_ITERATIONS = 60;
-
-interface Root {
-  T: number;
-  at: { value: number; slope: number };
-}
-
-function solveOnBranch(b: BranchTable, u: number): Root {
-  const s = b.speeds;
-  const n = s.length;
-  let i = 0;
-  let j = n - 1;
-  while (j - i > 1) {
-    const mid = (i + j) >> 1;
-    if (u >= (s[mid] as number)) i = mid;
-    else j = mid;
-  }
-  const s0 = s[i] as number;
-  const s1 = s[j] as number;
-  const t0 = b.temps[i] as number;
-  const t1 = b.temps[j] as number;
-  // Bracket in temperature, and a linear first guess.
-  let lo = Math.min(t0, t1);
-  let hi = Math.max(t0, t1);
-  let T = s1 > s0 ? t0 + ((u - s0) * (t1 - t0)) / (s1 - s0) : t0;
-  const rising = b.branch === 'middle';
-  let at = secondSoundUnchecked(T);
-  for (let k = 0; k < NEWTON_MAX_ITERATIONS; k++) {
-    const f = at.value - u;
-    // Keep the bracket: on a rising branch f > 0 means T is too high.
-    if (f > 0 === rising) hi = Math.min(hi, T);
-    else lo = Math.max(lo, T);
-    let next = at.slope !== 0 && Number.isFinite(at.slope) ? T - f / at.slope : (lo + hi) / 2;
-    if (!(next > lo && next < hi)) next = (lo + hi) / 2;
-    // Value and slope at T stand for those at the root, a step below 1e-7 K away.
-    if (Math.abs(next - T) < NEWTON_ACCEPT_STEP_K) return { T: next, at };
-    T = next;
-    at = secondSoundUnchecked(T);
-  }
-  return { T, at };
-}
+export type { Branch } from './second-sound-branches';
 
 export interface SpeedUncertainty {
   /** Relative uncertainty of the measured speed from distance and timing, σ_u/u. */
@@ -110,8 +27,22 @@ export interface SpeedUncertainty {
 
 export interface TemperatureCandidate {
   temperature_K: number;
-  /** One-sigma temperature from distance, timing, offset and the u2 table, K. */
+  /** One-sigma temperature from distance, timing, offset and the u2 table, K (the total). */
   sd_K: number;
+  /** The measurement's part of sd_K (distance, timing, offset), K: what limits a change between readings. */
+  sdMeasurement_K: number;
+  /** The u2 curve's own part of sd_K, K: the same for every reading at this temperature. */
+  sdCurve_K: number;
+  /**
+   * 68.27 % and 95 % intervals, K, [low, high]: every T with |u2(T) − u| ≤ k·σ_u on the stretch of
+   * the curve holding the candidate (k = 1, 1.96). Asymmetric near an extremum, where they may run
+   * across it into the next branch (see `reaches68`, `reaches95`).
+   */
+  interval68_K: [number, number];
+  interval95_K: [number, number];
+  /** What each interval runs into: an extremum of u2 ("minimum", "maximum"), "Tλ", or "model limit". */
+  reaches68: IntervalReach[];
+  reaches95: IntervalReach[];
   /** du2/dT at the candidate, m/s/K. */
   slope_m_s_K: number;
   branch: Branch;
@@ -136,10 +67,31 @@ const EXTREMA_TABLE_REL_SD = {
   maximum: secondSoundRelativeSd(SECOND_SOUND_EXTREMA.maximum.temperature_K),
 };
 
-function candidateAt({ T, at }: Root, branch: Branch, relSd: number, kind: TemperatureCandidate['kind'] = 'root'): TemperatureCandidate {
+interface Bands {
+  p68: ReturnType<typeof speedBandTemperatures>;
+  p95: ReturnType<typeof speedBandTemperatures>;
+}
+
+function candidateAt({ T, at }: Root, branch: Branch, relSd: number, bands: Bands, kind: TemperatureCandidate['kind'] = 'root'): TemperatureCandidate {
   const table = secondSoundRelativeSdUnchecked(T, at);
   const spread = temperatureSpreadUnchecked(T, Math.sqrt(relSd * relSd + table * table), at);
-  return { temperature_K: T, sd_K: spread.sd_K, slope_m_s_K: at.slope, branch, insensitive: spread.insensitive, region: secondSoundRegion(T), kind };
+  const i68 = intervalHolding(bands.p68, T);
+  const i95 = intervalHolding(bands.p95, T);
+  return {
+    temperature_K: T,
+    sd_K: spread.sd_K,
+    sdMeasurement_K: temperatureSpreadUnchecked(T, relSd, at).sd_K,
+    sdCurve_K: temperatureSpreadUnchecked(T, table, at).sd_K,
+    interval68_K: [i68.low_K, i68.high_K],
+    interval95_K: [i95.low_K, i95.high_K],
+    reaches68: i68.reaches,
+    reaches95: i95.reaches,
+    slope_m_s_K: at.slope,
+    branch,
+    insensitive: spread.insensitive,
+    region: secondSoundRegion(T),
+    kind,
+  };
 }
 
 function extremumRoot(T: number): Root {
@@ -159,18 +111,18 @@ export function temperatureCandidates(speed_m_s: number, relativeSpeedSd: number
   requireInRange('relative speed uncertainty', relativeSpeedSd, 0, 1, '');
   const out: TemperatureCandidate[] = [];
   const { minimum, maximum } = SECOND_SOUND_EXTREMA;
+  const sdMeasurement = relativeSpeedSd * speed_m_s;
+  const bands: Bands = { p68: speedBandTemperatures(speed_m_s, sdMeasurement, INTERVAL_K.p68), p95: speedBandTemperatures(speed_m_s, sdMeasurement, INTERVAL_K.p95) };
   for (const b of BRANCHES) {
-    const first = b.speeds[0] as number;
-    const last = b.speeds[b.speeds.length - 1] as number;
-    if (speed_m_s >= first && speed_m_s <= last) out.push(candidateAt(solveOnBranch(b, speed_m_s), b.branch, relativeSpeedSd));
+    if (speed_m_s >= b.slowest && speed_m_s <= b.fastest) out.push(candidateAt(solveOnBranch(b, speed_m_s), b.branch, relativeSpeedSd, bands));
   }
   const sigmaU = (u: number, tableRelSd: number) => u * Math.sqrt(relativeSpeedSd * relativeSpeedSd + tableRelSd * tableRelSd);
   // Just below the minimum: the low and middle branches have no root, but the minimum is within reach.
   if (speed_m_s < minimum.speed_m_s && minimum.speed_m_s - speed_m_s <= EXTREMUM_REACH_SD * sigmaU(speed_m_s, EXTREMA_TABLE_REL_SD.minimum)) {
-    out.push(candidateAt(extremumRoot(minimum.temperature_K), 'middle', relativeSpeedSd, 'extremum'));
+    out.push(candidateAt(extremumRoot(minimum.temperature_K), 'middle', relativeSpeedSd, bands, 'extremum'));
   }
   if (speed_m_s > maximum.speed_m_s && speed_m_s - maximum.speed_m_s <= EXTREMUM_REACH_SD * sigmaU(speed_m_s, EXTREMA_TABLE_REL_SD.maximum)) {
-    out.push(candidateAt(extremumRoot(maximum.temperature_K), 'middle', relativeSpeedSd, 'extremum'));
+    out.push(candidateAt(extremumRoot(maximum.temperature_K), 'middle', relativeSpeedSd, bands, 'extremum'));
   }
   return out.sort((a, b) => a.temperature_K - b.temperature_K);
 }

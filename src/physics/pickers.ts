@@ -14,6 +14,8 @@ import { fitParabola, parabolaVertex } from './parabola';
  *  - xcorr:     the lag that best matches a template, refined by a parabola through the
  *               correlation peak (sub-sample).
  * Signals may be positive- or negative-going; 'auto' follows the larger excursion.
+ * A pick always lies inside its search window, or the picker refuses with a message saying why
+ * (times in µs or ms, as a person reads them, never raw seconds).
  */
 
 export interface Trace {
@@ -65,6 +67,14 @@ export interface Pick {
 export const MIN_BASELINE_SAMPLES = 8;
 const UNIFORM_TOLERANCE = 1e-3;
 
+/** A time as a person reads it: µs below 1 ms, ms below 1 s, else s; 3 significant digits; a true minus. */
+export function timeText(t_s: number): string {
+  const a = Math.abs(t_s);
+  const [scale, unit] = a < 1e-3 ? [1e6, 'µs'] : a < 1 ? [1e3, 'ms'] : [1, 's'];
+  const text = Number((t_s * scale).toPrecision(3)).toString();
+  return `${text.replace(/^-/, '−')} ${unit}`;
+}
+
 function indexAtOrAfter(time: Float64Array, t: number): number {
   let lo = 0;
   let hi = time.length;
@@ -80,7 +90,7 @@ function indexAtOrAfter(time: Float64Array, t: number): number {
 export function baselineOf(trace: Trace, end_s = 0): Baseline {
   const n = indexAtOrAfter(trace.time_s, end_s);
   if (n < MIN_BASELINE_SAMPLES) {
-    throw new InvalidInputError('pre-trigger', `needs at least ${MIN_BASELINE_SAMPLES} samples before t = ${end_s} s to measure the baseline, found ${n}`);
+    throw new InvalidInputError('pre-trigger', `needs at least ${MIN_BASELINE_SAMPLES} samples before t = ${timeText(end_s)} to measure the baseline, found ${n}`);
   }
   let sum = 0;
   for (let i = 0; i < n; i++) sum += trace.values[i] as number;
@@ -113,6 +123,9 @@ export function uniformStep(trace: Trace): number {
 interface Window {
   i0: number;
   i1: number;
+  /** The window's ends in time, s. */
+  from_s: number;
+  to_s: number;
   sign: number;
   /** Index of the extreme excursion (in sign) inside the search range. */
   iPeak: number;
@@ -133,7 +146,7 @@ function searchWindow(trace: Trace, base: Baseline, o: PickOptions): Window {
   const down = base.level - (trace.values[iMin] as number);
   const polarity = o.polarity ?? 'auto';
   const sign = polarity === 'positive' ? 1 : polarity === 'negative' ? -1 : up >= down ? 1 : -1;
-  return { i0, i1, sign, iPeak: sign > 0 ? iMax : iMin };
+  return { i0, i1, from_s: o.from_s ?? 0, to_s: Math.min(o.to_s ?? Number.POSITIVE_INFINITY, t[t.length - 1] as number), sign, iPeak: sign > 0 ? iMax : iMin };
 }
 
 /** Linear crossing of `level` (in signed units) going up between i−1 and i; with its sd from the local slope. */
@@ -152,6 +165,12 @@ function crossing(trace: Trace, sign: number, base: Baseline, level: number, i: 
 
 function pickThreshold(trace: Trace, base: Baseline, w: Window, k: number): { t: number; sd: number } {
   const level = k * base.noise;
+  if (w.sign * ((trace.values[w.i0] as number) - base.level) >= level) {
+    throw new InvalidInputError(
+      'threshold',
+      `the signal is already ${k} noise sd above the baseline at the start of the search window, ${timeText(trace.time_s[w.i0] as number)}, so its crossing lies before the window; start the window earlier, before the pulse, or raise the threshold`,
+    );
+  }
   for (let i = w.i0; i <= w.i1; i++) {
     if (w.sign * ((trace.values[i] as number) - base.level) >= level) return crossing(trace, w.sign, base, level, i);
   }
@@ -185,8 +204,8 @@ function pickPeak(trace: Trace, base: Baseline, w: Window, step: number): { t: n
   // The contiguous run of samples above half the peak around the extreme sample (at least ±1).
   let lo = w.iPeak;
   let hi = w.iPeak;
-  while (lo > 0 && hi - lo < PEAK_MAX_POINTS && y(lo - 1) >= PEAK_FIT_LEVEL * top) lo--;
-  while (hi < trace.values.length - 1 && hi - lo < PEAK_MAX_POINTS && y(hi + 1) >= PEAK_FIT_LEVEL * top) hi++;
+  while (lo > w.i0 && hi - lo < PEAK_MAX_POINTS && y(lo - 1) >= PEAK_FIT_LEVEL * top) lo--;
+  while (hi < w.i1 && hi - lo < PEAK_MAX_POINTS && y(hi + 1) >= PEAK_FIT_LEVEL * top) hi++;
   lo = Math.max(0, Math.min(lo, w.iPeak - 1));
   hi = Math.min(trace.values.length - 1, Math.max(hi, w.iPeak + 1));
   const centre = trace.time_s[w.iPeak] as number;
@@ -294,8 +313,49 @@ export function pickArrival(trace: Trace, options: PickOptions): Pick {
       r = pickXcorr(trace, base, w, step, options.template);
       break;
   }
+  requireInsideWindow(r.t, w, options.kind);
   const peak = (trace.values[w.iPeak] as number) - base.level;
   return { arrival_s: r.t, arrivalSd_s: r.sd, picker: options.kind, baseline: base, peak, snr: Math.abs(peak) / base.noise };
+}
+
+/**
+ * Refuses a pick outside its search window (an interpolation or refinement that ran past an end):
+ * the message gives the pick and the window in µs or ms.
+ */
+export function requireInsideWindow(t_s: number, w: { from_s: number; to_s: number }, picker: string): void {
+  // Half a nanosecond of slack for the rounding of interpolated times.
+  const slack = 5e-10;
+  if (t_s >= w.from_s - slack && t_s <= w.to_s + slack) return;
+  throw new InvalidInputError(
+    'pick',
+    `the ${picker} pick ${timeText(t_s)} falls ${t_s < w.from_s ? 'before' : 'after'} its search window ${timeText(w.from_s)} – ${timeText(w.to_s)}; ` +
+      `${t_s < w.from_s ? 'start the window earlier, before the pulse' : 'end the window later, after the pulse'}`,
+  );
+}
+
+/**
+ * Centre of the heater pulse, s: the midpoint of the 50 % crossings of its rise and its fall (for
+ * a flat-topped or symmetric drive, where its peak lies; the feature a peak pick on the sensor is
+ * to be measured from, peak to peak). Throws when the drive does not fall back below half height.
+ */
+export function heaterCentre(trace: Trace): { centre_s: number; centreSd_s: number } {
+  checkTrace(trace);
+  const t = trace.time_s;
+  const base = baselineOf(trace, t[MIN_BASELINE_SAMPLES] as number);
+  const b = { ...base, noise: Math.max(base.noise, 1e-300) };
+  const w = searchWindow(trace, b, { kind: 'fraction', from_s: t[MIN_BASELINE_SAMPLES] as number });
+  const rise = pickFraction(trace, b, w, 0.5);
+  const peak = w.sign * ((trace.values[w.iPeak] as number) - b.level);
+  let i = w.iPeak;
+  while (i < trace.values.length - 1 && w.sign * ((trace.values[i + 1] as number) - b.level) >= 0.5 * peak) i++;
+  if (i >= trace.values.length - 1) throw new InvalidInputError('heater', 'the drive pulse does not fall back below half height before the end of the trace, so its centre is not known');
+  const v0 = w.sign * ((trace.values[i] as number) - b.level);
+  const v1 = w.sign * ((trace.values[i + 1] as number) - b.level);
+  const t0 = t[i] as number;
+  const t1 = t[i + 1] as number;
+  const fall = v0 !== v1 ? t0 + ((v0 - 0.5 * peak) * (t1 - t0)) / (v0 - v1) : t1;
+  const fallSd = Math.max(v0 > v1 ? b.noise / ((v0 - v1) / (t1 - t0)) : t1 - t0, (t1 - t0) / Math.sqrt(12));
+  return { centre_s: (rise.t + fall) / 2, centreSd_s: Math.hypot(rise.sd, fallSd) / 2 };
 }
 
 /**
@@ -311,4 +371,18 @@ export function heaterOnset(trace: Trace): { onset_s: number; onsetSd_s: number 
   const w = searchWindow(trace, base, { kind: 'fraction', from_s: t[MIN_BASELINE_SAMPLES] as number });
   const r = pickFraction(trace, { ...base, noise: Math.max(base.noise, 1e-300) }, w, 0.5);
   return { onset_s: r.t, onsetSd_s: r.sd };
+}
+
+/**
+ * Where the heater drive starts to leave its baseline, s: the first sample more than 2 % of the
+ * pulse's height from it (before that sample no heater pickup can reach a sensor channel).
+ */
+export function heaterStart(trace: Trace): number {
+  checkTrace(trace);
+  const t = trace.time_s;
+  const base = baselineOf(trace, t[MIN_BASELINE_SAMPLES] as number);
+  let peak = 0;
+  for (let i = 0; i < trace.values.length; i++) peak = Math.max(peak, Math.abs((trace.values[i] as number) - base.level));
+  for (let i = 0; i < trace.values.length; i++) if (Math.abs((trace.values[i] as number) - base.level) > 0.02 * peak) return t[i] as number;
+  return t[t.length - 1] as number;
 }

@@ -51,7 +51,7 @@ describe('converter: batch file', () => {
       const decimals = value.split('.')[1]?.length ?? 0;
       expect(sd.split('.')[1]?.length ?? 0).toBe(decimals);
       expect(Math.abs(Number(value) - (MODEL_K[i] as number))).toBeLessThanOrEqual(0.5 * 10 ** -decimals + 1e-12);
-      expect(cells[6]?.textContent).toBe(i === 0 ? 'pressure' : 'continuity');
+      expect(cells[7]?.textContent).toBe(i === 0 ? 'pressure' : 'continuity');
     });
     expect(rows[0]).toHaveTextContent('14:00:00');
     await waitFor(() => expect(lastDraw('converter-batch')?.data.find((t) => t.name === 'Chosen temperature')?.y).toHaveLength(4));
@@ -83,7 +83,7 @@ describe('converter: batch file', () => {
     expect(blobs[0]?.type).toBe('text/csv;charset=utf-8');
     const lines = ((await blobs[0]?.text()) ?? '').trimEnd().split('\n');
     expect(lines[0]).toBe(
-      'line,timestamp,delay_ms,distance_mm,pressure_Pa,speed_m_s,speedSd_m_s,candidates,chosen,chosen_by,T_K,T_sd_K,T1_K,T1_sd_K,T1_branch,T1_note,T2_K,T2_sd_K,T2_branch,T2_note,T3_K,T3_sd_K,T3_branch,T3_note',
+      'line,timestamp,delay_ms,distance_mm,pressure_Pa,speed_m_s,speedSd_m_s,candidates,chosen,chosen_by,T_K,T_sd_K,T_sd_meas_K,T_sd_curve_K,T_lo68_K,T_hi68_K,T_lo95_K,T_hi95_K,evidence_sd,alternatives,guess,warnings,T1_K,T1_sd_K,T1_branch,T1_note,T2_K,T2_sd_K,T2_branch,T2_note,T3_K,T3_sd_K,T3_branch,T3_note',
     );
     expect(lines).toHaveLength(5);
     lines.slice(1).forEach((line, i) => {
@@ -96,7 +96,7 @@ describe('converter: batch file', () => {
       expect(cells[8]).toBe('3');
       expect(cells[9]).toBe(i === 0 ? 'pressure' : 'continuity');
       expect(Number(cells[10])).toBeCloseTo(MODEL_K[i] as number, 9);
-      expect(cells[22]).toBe('high');
+      expect(cells[32]).toBe('high');
     });
   });
 

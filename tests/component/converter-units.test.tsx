@@ -189,7 +189,7 @@ describe('converter results in the header units', () => {
     downloads.restore();
     const lines = ((await downloads.blobs[0]?.text()) ?? '').trimEnd().split('\n');
     expect(lines[0]).toBe(
-      'distance_m,distance_sd_m,delay_us,delay_sd_us,offset_us,offset_sd_us,speed_m_s,speed_sd_m_s,rule,candidate,T_mK,T_sd_mK,slope_m_s_K,branch,region,kind,insensitive,chosen,choice',
+      'distance_m,distance_sd_m,delay_us,delay_sd_us,offset_us,offset_sd_us,speed_m_s,speed_sd_m_s,rule,candidate,T_mK,T_sd_mK,T_sd_meas_mK,T_sd_curve_mK,T_lo68_mK,T_hi68_mK,T_lo95_mK,T_hi95_mK,reaches95,evidence_sd,slope_m_s_K,branch,region,kind,insensitive,chosen,choice',
     );
     const c = convertDelay(START).candidates[2];
     const cells = lines[3]?.split(',') ?? [];
@@ -198,7 +198,9 @@ describe('converter results in the header units', () => {
     expect(cells[8]).toBe('vapour pressure 16.382 mbar');
     expect(Number(cells[10])).toBeCloseTo((c?.temperature_K ?? Number.NaN) * 1e3, 9);
     expect(Number(cells[11])).toBeCloseTo((c?.sd_K ?? Number.NaN) * 1e3, 12);
-    expect(cells[18]).toBe('nearest to 1800.0 mK from the vapour pressure (ITS-90)');
+    expect(Number(cells[12])).toBeCloseTo((c?.sdMeasurement_K ?? Number.NaN) * 1e3, 12);
+    expect(Number(cells[16])).toBeCloseTo((c?.interval95_K[0] ?? Number.NaN) * 1e3, 9);
+    expect(cells[26]).toBe('nearest to 1800.0 mK from the vapour pressure (ITS-90)');
   });
 
   it('shows and exports a batch in the display units', async () => {
@@ -213,7 +215,7 @@ describe('converter results in the header units', () => {
     choose('pressure', 'mbar');
     const table = screen.getByRole('table', { name: /each reading’s speed and temperature/i });
     const headers = within(table).getAllByRole('columnheader').map((h) => h.textContent);
-    expect(headers).toEqual(['Line', 'Delay (µs)', 'Pressure (mbar)', 'Speed (m/s)', 'T (mK)', 'sd (mK)', 'Chosen by', 'All candidates (mK)']);
+    expect(headers).toEqual(['Line', 'Delay (µs)', 'Pressure (mbar)', 'Speed (m/s)', 'T (mK)', 'sd (mK)', '95 % interval (mK)', 'Chosen by', 'All candidates (mK)']);
     const first = within(table).getAllByRole('row')[1];
     const cells = first ? within(first).getAllByRole('cell') : [];
     expect(Number(cells[0]?.textContent)).toBeCloseTo((0.05 / secondSound(1.9)) * 1e6, 2);
@@ -226,7 +228,7 @@ describe('converter results in the header units', () => {
     await user.click(screen.getByRole('button', { name: 'Export the batch results as CSV' }));
     downloads.restore();
     const lines = ((await downloads.blobs[0]?.text()) ?? '').trimEnd().split('\n');
-    expect(lines[0]?.split(',').slice(0, 12)).toEqual(['line', 'delay_us', 'distance_mm', 'pressure_mbar', 'speed_m_s', 'speedSd_m_s', 'candidates', 'chosen', 'chosen_by', 'T_mK', 'T_sd_mK', 'T1_mK']);
+    expect(lines[0]?.split(',').slice(0, 13)).toEqual(['line', 'delay_us', 'distance_mm', 'pressure_mbar', 'speed_m_s', 'speedSd_m_s', 'candidates', 'chosen', 'chosen_by', 'T_mK', 'T_sd_mK', 'T_sd_meas_mK', 'T_sd_curve_mK']);
     const out = lines[1]?.split(',') ?? [];
     expect(Number(out[1])).toBeCloseTo((0.05 / secondSound(1.9)) * 1e6, 6);
     expect(Number(out[3])).toBeCloseTo(vapourPressure(1.9).pressure_Pa / 100, 6);
@@ -237,7 +239,7 @@ describe('converter results in the header units', () => {
 /** A pick at the exact transit time of 50 mm at `T` (invented), sd 1 µs. */
 function exactPick(T: number): TracePick {
   const delay_s = 0.05 / secondSound(T);
-  return { arrival_s: delay_s, arrivalSd_s: 1e-6, delay_s, delaySd_s: 1e-6, timeZero_s: 0, timeZeroSd_s: 0, timeZero: 'file t = 0', picker: 'fraction', sensor: 's', heater: null, template: null, baseline: { level: 0, noise: 1, samples: 10 }, peak: 10, snr: 10 };
+  return { arrival_s: delay_s, arrivalSd_s: 1e-6, delay_s, delaySd_s: 1e-6, timeZero_s: 0, timeZeroSd_s: 0, timeZero: 'file t = 0', reference: "from the file's t = 0", referenceTime_s: 0, picker: 'fraction', sensor: 's', heater: null, template: null, baseline: { level: 0, noise: 1, samples: 10 }, peak: 10, snr: 10 };
 }
 
 describe('trace series and trace chart in the header units', () => {

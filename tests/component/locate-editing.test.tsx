@@ -58,10 +58,11 @@ describe('locate view: editing moves the result', { timeout: 20_000 }, () => {
 
   it('a fitted speed reports its sd; a given speed replaces u₂', async () => {
     const { user } = await openLocate();
-    expect(screen.getByText(/fixed: u₂ at 1\.800 K/)).toBeInTheDocument();
+    // By default the speed is fitted within u₂'s own uncertainty (a prior).
+    expect(screen.getByText(/fitted within u₂’s own uncertainty: prior u₂ at 1\.800 K/)).toBeInTheDocument();
     expect(screen.getByText(/u₂ = 19\.90 m\/s/)).toBeInTheDocument();
     await user.click(screen.getByLabelText(/Fit an effective speed/));
-    expect(screen.getByText(/fitted, starting from u₂ at 1\.800 K/)).toBeInTheDocument();
+    expect(screen.getByText(/fitted freely, starting from u₂ at 1\.800 K/)).toBeInTheDocument();
     await user.click(screen.getByLabelText('A speed I give'));
     const speed = screen.getByLabelText('Speed');
     fireEvent.change(speed, { target: { value: '21 m/s' } });

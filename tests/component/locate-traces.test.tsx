@@ -114,7 +114,8 @@ describe('locate view: arrival times from traces', { timeout: 30_000 }, () => {
     const fetchMock = vi.fn(async (url: string) => (url === 'demo-locate-traces.csv' ? new Response(bytes) : new Response('', { status: 404 })));
     vi.stubGlobal('fetch', fetchMock);
     try {
-      const { user } = await openLocate();
+      // The speed held at u₂ (no prior): the two fits then differ only by the arrivals and their sds.
+      const { user } = await openLocate(undefined, { speedPrior: false });
       const typed = { source: store().locateRows.map((r) => r.arrival_s), shown: shownSource() };
       await user.click(screen.getByRole('button', { name: 'Load the demo traces' }));
       await screen.findByRole('table', { name: 'Channels, their sensors and picked arrivals' }, { timeout: 10_000 });

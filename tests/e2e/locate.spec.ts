@@ -112,8 +112,22 @@ test.describe('source location', () => {
     await page.screenshot({ path: `${ARTIFACTS}/locate-1600x1000-full-page.png`, fullPage: true });
   });
 
+  test('a sensor CSV the user opened is still there after a reload', async ({ page }) => {
+    await openLocate(page);
+    const csv = ['label,x_m,y_m,z_m,arrival_s', 'Fore,0.12,0,0.01,0.0061', 'Aft,-0.12,0,-0.01,0.0065', 'Port,0,0.12,0.02,0.0058', 'Star,0,-0.12,-0.02,0.0069', 'Top,0.01,0.02,0.13,0.0060', 'Keel,-0.02,0.01,-0.13,0.0066'].join('\n');
+    await page.getByLabel('Open sensor CSV').setInputFiles({ name: 'bay3-sensors.csv', mimeType: 'text/csv', buffer: Buffer.from(`${csv}\n`) });
+    await expect(page.getByLabel('Timing sd of Keel (µs)')).toBeVisible();
+    await page.reload();
+    await page.getByRole('tab', { name: 'Locate a source' }).click();
+    await expect(page.getByText(/bay3-sensors\.csv/).first()).toBeVisible();
+    await expect(page.getByLabel('Timing sd of Keel (µs)')).toBeVisible();
+    await expect(page.getByText('Linnet-1 quench (invented demo)')).toHaveCount(0);
+  });
+
   test('arrival times picked from the demo traces locate the source the typed demo gives, within its uncertainty', async ({ page }) => {
     await openLocate(page);
+    // The speed held at u₂ (no prior): the two fits then differ only by the arrivals and their sds.
+    await page.getByRole('checkbox', { name: /Fit the speed within u₂’s own uncertainty/ }).uncheck();
     const typed = await shownSource(page);
     expect(typed.every((c) => c.sd !== null)).toBe(true);
     await page.getByRole('button', { name: 'Load the demo traces' }).click();

@@ -136,9 +136,11 @@ describe('sekundo delay --input (a CSV of delays)', () => {
  * W = 16 µs and amplitude 1 V starting at h0 = 300 µs, noise-free; its 50 % onset is then
  * exactly h0 + W/4 = 304 µs. The sensor sees the same shape, 1 mV high, starting τ = 2500.37 µs
  * after the drive, on a 20 mV baseline with white Gaussian noise of 50 µV (SNR 20), seeded.
- * Where each picker's feature sits in the noiseless model, as a delay from the heater onset:
+ * Where each picker's feature sits in the noiseless model, as a delay from the heater's matching
+ * feature (its 50 % onset; for the peak picker its centre, peak to peak):
  *   threshold (5σ = a quarter of the peak): Hann crossing of 1/4 at W/6 → τ − W/12;
- *   fraction (half height): τ;   peak: τ + W/4;   xcorr with the drive as template: τ.
+ *   fraction (half height): τ;   peak: τ (the sensor's peak at τ + W/2 from the drive's at W/2);
+ *   xcorr with the drive as template: τ.
  * Without a heater column, time zero is the file's t = 0 and the xcorr default (a half-height
  * rectangle) reports the leading half-height point: h0 + τ + W/4.
  */
@@ -162,7 +164,7 @@ function traceCsv(seed: number): string {
 const EXPECTED_DELAY: Readonly<Record<string, number>> = {
   threshold: TAU - W / 12,
   fraction: TAU,
-  peak: TAU + W / 4,
+  peak: TAU,
   xcorr: TAU,
 };
 const SEEDS = [1, 2, 3, 4, 5];
@@ -175,7 +177,9 @@ describe('sekundo trace on synthetic traces (SNR 20)', () => {
       const json = await runJson('trace', path, '--distance', '50mm', '--heater-column', 'heater', '--sensor-column', 'sensor', '--picker', picker);
       expect(json.picker).toBe(picker);
       expect(Math.abs(num(json, 'delay_s') - (EXPECTED_DELAY[picker] as number))).toBeLessThan(STEP);
-      expect(num(json, 'arrival_s')).toBeCloseTo(num(json, 'delay_s') + ONSET, 12);
+      expect(num(json, 'arrival_s')).toBeCloseTo(num(json, 'delay_s') + num(json, 'referenceTime_s'), 12);
+      expect(json.reference).toBe(picker === 'peak' ? 'peak to peak' : 'onset to onset');
+      expect(num(json, 'referenceTime_s')).toBeCloseTo(picker === 'peak' ? H0 + W / 2 : ONSET, 7);
       expect(num(json, 'arrivalSd_s')).toBeGreaterThan(0);
       expect(num(json, 'arrivalSd_s')).toBeLessThan(STEP);
       expect(json.candidates).toHaveLength(3);

@@ -96,8 +96,10 @@ describe('sekundo locate: recovers a known source from synthetic arrival times',
     const json = await runJson('locate', writeCsvFile(scenarioCsv(scenario)), '--temperature', '1.8K');
     expectWithin3Sd(json, source);
     expect(Math.abs(json.offset_s - scenario.t0_s)).toBeLessThan(3 * json.offsetSd_s);
-    expect(json.speed_m_s).toBe(U2_1_8K);
-    expect(json.speedSd_m_s).toBeNull();
+    // The speed is fitted under the prior of u2's own sd (0.25 %): it stays within a few prior sds of u2.
+    expect(json.speedPrior.speed_m_s).toBe(U2_1_8K);
+    expect(Math.abs(json.speed_m_s - U2_1_8K)).toBeLessThan(3 * json.speedPrior.sd_m_s);
+    expect(json.speedSd_m_s).toBeGreaterThan(0);
     expect(json.residuals_s).toHaveLength(8);
     expect(json.labels).toEqual(['S1', 'S2', 'S3', 'S4', 'S5', 'S6', 'S7', 'S8']);
     expect(json.lines).toEqual([2, 3, 4, 5, 6, 7, 8, 9]);
@@ -125,8 +127,9 @@ describe('sekundo locate: recovers a known source from synthetic arrival times',
     const source: Vec3 = [0.01, 0.02, 0.0];
     const scenario: Scenario = { sensors: FRAME, source, t0_s: 1e-3, speed_m_s: U2_1_8K, sd_s: 5e-6, seed: 5 };
     const path = writeCsvFile(scenarioCsv(scenario, false));
-    const small = await runJson('locate', path, '--temperature', '1.8K', '--arrival-sd', '5us');
-    const large = await runJson('locate', path, '--temperature', '1.8K', '--arrival-sd', '50us');
+    // The speed held fixed, so the sds scale with the timing sd alone.
+    const small = await runJson('locate', path, '--temperature', '1.8K', '--no-speed-prior', '--arrival-sd', '5us');
+    const large = await runJson('locate', path, '--temperature', '1.8K', '--no-speed-prior', '--arrival-sd', '50us');
     expectWithin3Sd(small, source);
     expect(small.defaultArrivalSd_s).toBeCloseTo(5e-6, 15);
     // The same data: ten times the stated sd gives ten times the sds (no Birge scaling below χ²/dof = 1).
@@ -150,8 +153,8 @@ describe('sekundo locate: recovers a known source from synthetic arrival times',
     expect(json.speedSd_m_s).toBeLessThan(0.05 * effective);
     expectWithin3Sd(json, source);
     expect(json.degreesOfFreedom).toBe(3);
-    // Without --fit-speed the speed stays u2 and has no sd.
-    const fixed = await runJson('locate', path, '--temperature', '1.8K');
+    // With --no-speed-prior the speed stays u2 and has no sd.
+    const fixed = await runJson('locate', path, '--temperature', '1.8K', '--no-speed-prior');
     expect(fixed.speed_m_s).toBe(U2_1_8K);
     expect(fixed.speedSd_m_s).toBeNull();
   });

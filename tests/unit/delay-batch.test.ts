@@ -174,7 +174,31 @@ describe('the results as CSV', () => {
 
   it('has a fixed header and one row per input row', () => {
     expect(rows[0]).toEqual(delayResultHeader(batch));
-    expect(rows[0]?.slice(0, 13)).toEqual(['line', 'timestamp', 'delay_s', 'distance_m', 'pressure_Pa', 'speed_m_s', 'speedSd_m_s', 'candidates', 'chosen', 'chosen_by', 'T_K', 'T_sd_K', 'T1_K']);
+    expect(rows[0]?.slice(0, 23)).toEqual([
+      'line',
+      'timestamp',
+      'delay_s',
+      'distance_m',
+      'pressure_Pa',
+      'speed_m_s',
+      'speedSd_m_s',
+      'candidates',
+      'chosen',
+      'chosen_by',
+      'T_K',
+      'T_sd_K',
+      'T_sd_meas_K',
+      'T_sd_curve_K',
+      'T_lo68_K',
+      'T_hi68_K',
+      'T_lo95_K',
+      'T_hi95_K',
+      'evidence_sd',
+      'alternatives',
+      'guess',
+      'warnings',
+      'T1_K',
+    ]);
     expect(rows[0]?.slice(-4)).toEqual(['T3_K', 'T3_sd_K', 'T3_branch', 'T3_note']);
     expect(rows).toHaveLength(1 + batch.rows.length);
     for (const row of rows) expect(row).toHaveLength(rows[0]?.length ?? 0);

@@ -42,9 +42,21 @@ describe('joins between representations', () => {
     expect(Math.abs(secondSoundSlope(Tj - 1e-7) / secondSoundSlope(Tj) - 1)).toBeLessThan(1e-3);
   });
 
-  it('u2 meets the critical power law 5 µK below Tλ in value', () => {
+  it('u2 meets the critical scaling 5 µK below Tλ in value and slope', () => {
     const Tj = SECOND_SOUND_CRITICAL_JOIN_K;
-    expect(Math.abs(secondSound(Tj + EPS) / secondSound(Tj) - 1)).toBeLessThan(1e-3);
+    // Value to 1e-6 across a 2 pK step (u2 changes by 7e-5 relative per nK there, so 1.5e-7 over
+    // the step); slope to 1e-3 over 2 nK (the plain t^(1/3) law met it only to 10 %, −21 600
+    // against −24 100 m/s/K).
+    expect(Math.abs(secondSound(Tj + 1e-12) / secondSound(Tj - 1e-12) - 1)).toBeLessThan(1e-6);
+    expect(Math.abs(secondSoundSlope(Tj + EPS) / secondSoundSlope(Tj - EPS) - 1)).toBeLessThan(1e-3);
+    // And u2 still falls to 0 at Tλ, monotonically, through the critical piece.
+    let previous = secondSound(Tj);
+    for (let T = Tj + 2.5e-7; T <= T_LAMBDA_K; T += 2.5e-7) {
+      const u = secondSound(Math.min(T, T_LAMBDA_K));
+      expect(u).toBeLessThan(previous);
+      previous = u;
+    }
+    expect(secondSound(T_LAMBDA_K)).toBe(0);
   });
 
   it('ρn/ρ blends smoothly from the Landau sums to ρ − ρs between 0.75 and 1.05 K', () => {
@@ -77,7 +89,30 @@ describe('second-sound uncertainty', () => {
     expect(secondSoundSd(0.4) / secondSound(0.4)).toBeGreaterThan(0.02);
     const near = T_LAMBDA_K - 5e-4;
     expect(secondSoundSd(near) / secondSound(near)).toBeGreaterThan(0.05);
-    expect(secondSoundSd(T_LAMBDA_K - 2e-3) / secondSound(T_LAMBDA_K - 2e-3)).toBeCloseTo(0.0025, 6);
+    // 30 mK below Tλ the end term has faded to nothing: the representation's 0.25 % alone.
+    expect(secondSoundSd(T_LAMBDA_K - 0.03) / secondSound(T_LAMBDA_K - 0.03)).toBeCloseTo(0.0025, 6);
+  });
+
+  it('is continuous towards Tλ: no step where the end term starts (it used to jump 33-fold at Tλ − 1 mK)', () => {
+    // Across the old boundary: 1 nK either side of Tλ − 1 mK gives the same sd to 1e-4 (was 33×).
+    expect(secondSoundSd(T_LAMBDA_K - 1e-3 + 1e-9) / secondSoundSd(T_LAMBDA_K - 1e-3 - 1e-9)).toBeCloseTo(1, 4);
+    // Steps of 1 µK from 40 mK below Tλ to 6 µK below it: neighbouring sds differ by at most what
+    // |du2/dT| ∝ (Tλ − T)^(−2/3) does over a step (11 % at 6 µK, with room for the critical piece; under 1 % beyond 0.1 mK).
+    let previous = secondSoundSd(T_LAMBDA_K - 0.04);
+    for (let d = 0.04 - 1e-6; d > 6e-6; d -= 1e-6) {
+      const sd = secondSoundSd(T_LAMBDA_K - d);
+      expect(Math.abs(sd / previous - 1)).toBeLessThan(0.002 + (2 / 3) * (1e-6 / d) * 1.5);
+      previous = sd;
+    }
+  });
+
+  it('lets no temperature near Tλ look better than the curve end’s 0.2 mK (D&B 1998 caution)', () => {
+    // sd_T = σ_u2/|du2/dT| ≥ 0.2 mK within 1 mK of Tλ, down to 6 µK from it (the old cap at u2 itself
+    // broke this within 67 µK).
+    for (const d of [1e-3, 5e-4, 1e-4, 6.7e-5, 3e-5, 1e-5, 6e-6]) {
+      const T = T_LAMBDA_K - d;
+      expect(secondSoundSd(T) / Math.abs(secondSoundSlope(T))).toBeGreaterThanOrEqual(2e-4 * (1 - 1e-9));
+    }
   });
 });
 

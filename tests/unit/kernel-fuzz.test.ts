@@ -208,6 +208,10 @@ describe('converter entry points', () => {
         if (r.ok) assertAllFinite(r.value);
         const h = outcome(() => K.heaterOnset(trace));
         if (h.ok) assertAllFinite(h.value);
+        const c = outcome(() => K.heaterCentre(trace));
+        if (c.ok) assertAllFinite(c.value);
+        const s = outcome(() => K.heaterStart(trace));
+        if (s.ok) expect(Number.isFinite(s.value)).toBe(true);
       }),
       { numRuns: RUNS },
     );
@@ -286,12 +290,27 @@ describe('planner entry points', () => {
 });
 
 describe('source location entry points', () => {
+  it('speedPriorAt with any numbers', () => {
+    fc.assert(
+      fc.property(anyNumber, anyNumber, (T, sd) => {
+        const r = outcome(() => K.speedPriorAt(T, sd));
+        if (r.ok) {
+          expect(r.value.speed_m_s).toBeGreaterThanOrEqual(0);
+          expect(r.value.sd_m_s).toBeGreaterThanOrEqual(0);
+        }
+      }),
+      { numRuns: RUNS },
+    );
+  });
+
   it('locateSource and layoutQuality with any numbers', () => {
     const sensor = fc.record({ position_m: fc.tuple(mostly(-0.2, 0.2), mostly(-0.2, 0.2), mostly(-0.2, 0.2)), arrival_s: mostly(0, 0.02) });
     fc.assert(
       fc.property(fc.array(sensor, { minLength: 0, maxLength: 9 }), mostly(1, 200), fc.boolean(), (sensors, u, fitSpeed) => {
         const r = outcome(() => K.locateSource(sensors, { speed_m_s: u, fitSpeed, arrivalSd_s: 5e-6, constraint: { kind: 'none' }, dropOutliers: false }));
         if (r.ok) assertAllFinite(r.value);
+        const withPrior = outcome(() => K.locateSource(sensors, { speed_m_s: u, fitSpeed, arrivalSd_s: 5e-6, constraint: { kind: 'none' }, dropOutliers: true, speedPrior: { speed_m_s: u, sd_m_s: 0.01 * u } }));
+        if (withPrior.ok) assertAllFinite(withPrior.value);
         const q = outcome(() => K.layoutQuality(sensors.map((s) => s.position_m), [[0, 0, 0.05]], { speed_m_s: u, arrivalSd_s: 5e-6, fitSpeed, constraint: { kind: 'none' } }));
         if (q.ok) for (const v of q.value) expect(v > 0).toBe(true);
       }),

@@ -28,6 +28,8 @@ function picked(arrival_s: number, arrivalSd_s: number): PickState {
     timeZero_s: 0,
     timeZeroSd_s: 0,
     timeZero: 'file t = 0',
+    reference: "from the file's t = 0",
+    referenceTime_s: 0,
     picker: 'fraction',
     sensor: 'x',
     heater: null,

@@ -8,9 +8,14 @@ import { CsvInputError } from '../../io/csv-common';
 import { fromBaseUnit } from '../../io/quantity';
 import {
   type ChoiceRule,
+  candidateWarnings,
   chooseCandidate,
   DELAY_LIMITS,
+  EVIDENCE_SD_LIMITS,
+  INTERVAL_K,
   PhysicsError,
+  type ReadingWarning,
+  speedSigmasFromTurn,
   PROPERTIES_RANGE_K,
   requireInRange,
   type TemperatureCandidate,
@@ -70,6 +75,15 @@ export const PRESSURE_FLAG: QuantityFlag = {
   help: 'bath vapour pressure: chooses the candidate nearest its ITS-90 temperature',
 };
 
+export const PRESSURE_SD_FLAG: QuantityFlag = {
+  kind: 'quantity',
+  name: 'pressure-sd',
+  dimension: 'pressure',
+  placeholder: 'σp',
+  range: EVIDENCE_SD_LIMITS.pressureSd_Pa,
+  help: 'one-sigma uncertainty of the --pressure reading (gauge): widens the evidence in evidenceSd (default 0)',
+};
+
 export const NEAR_FLAG: QuantityFlag = {
   kind: 'quantity',
   name: 'near',
@@ -107,9 +121,12 @@ export function readChoiceRule(command: string, args: ParsedArgs): { rule: Choic
   const pressure = args.quantity(PRESSURE_FLAG.name);
   const near = args.quantity(NEAR_FLAG.name);
   if (pressure && near) throw new UsageError(`"sekundo ${command}" takes --pressure or --near to choose a temperature, not both`);
+  const pressureSd = args.quantity(PRESSURE_SD_FLAG.name);
+  if (pressureSd && !pressure) throw new UsageError(`--${PRESSURE_SD_FLAG.name} needs --pressure: it is the gauge's sd`);
   if (pressure) {
     computeFor(pressure, (v) => requireInRange('vapour pressure', v, VAPOUR_PRESSURE_RANGE_PA[0], VAPOUR_PRESSURE_RANGE_PA[1], 'Pa'));
-    return { rule: { kind: 'pressure', pressure_Pa: pressure.value }, arg: pressure };
+    const sd = checked(pressureSd, 'vapour pressure sd', EVIDENCE_SD_LIMITS.pressureSd_Pa, 'Pa');
+    return { rule: { kind: 'pressure', pressure_Pa: pressure.value, ...(sd > 0 ? { pressureSd_Pa: sd } : {}) }, arg: pressure };
   }
   if (near) {
     computeFor(near, (v) => requireInRange('expected temperature', v, PROPERTIES_RANGE_K[0], PROPERTIES_RANGE_K[1], 'K'));
@@ -118,42 +135,99 @@ export function readChoiceRule(command: string, args: ParsedArgs): { rule: Choic
   return undefined;
 }
 
-/** Which candidate is chosen (index or null) and why, in words. */
+/** A candidate as the commands print it: the kernel's candidate and its distance from the evidence in sd. */
+export type CandidateJson = TemperatureCandidate & { evidenceSd: number | null };
+
+/**
+ * Which candidate is chosen (index into `candidates`, or null) and why, in words; every candidate
+ * with its distance from the evidence; and the warnings of the reading (the planner's shape).
+ */
 export interface ChoiceResult {
   chosen: number | null;
   choice: string;
+  candidates: CandidateJson[];
+  warnings: ReadingWarning[];
 }
 
 /**
  * Applies --pressure / --near; without either, a single candidate is chosen and several are left
- * undecided (the reason says how to decide).
+ * undecided (the reason says how to decide). `speed` (m/s, with its measurement sd) is the number
+ * behind a warning that the chosen interval runs across an extremum of u₂.
  */
-export function chooseFor(candidates: readonly TemperatureCandidate[], given: { rule: ChoiceRule; arg: QuantityArg } | undefined): ChoiceResult {
+export function chooseFor(
+  candidates: readonly TemperatureCandidate[],
+  given: { rule: ChoiceRule; arg: QuantityArg } | undefined,
+  speed: { speed_m_s: number; speedSd_m_s: number } | null = null,
+): ChoiceResult {
+  let chosen: number | null;
+  let choice: string;
+  let evidenceSd: (number | null)[] = candidates.map(() => null);
+  const warnings: ReadingWarning[] = [];
   if (given) {
     const c = computeFor(given.arg, () => chooseCandidate(candidates, given.rule));
-    return { chosen: c.index, choice: c.reason };
+    ({ index: chosen, reason: choice, evidenceSd } = c);
+    warnings.push(...c.warnings);
+  } else if (candidates.length === 1) {
+    chosen = 0;
+    choice = 'the only candidate';
+  } else if (candidates.length === 0) {
+    chosen = null;
+    choice = 'no candidate temperature';
+  } else {
+    chosen = null;
+    choice = `${candidates.length} candidates: give --pressure or --near to choose`;
+    warnings.push({
+      code: 'undecided',
+      severity: 'info',
+      message: `${candidates.length} temperatures have this speed; give --pressure (the bath vapour pressure) or --near (an expected temperature) to choose.`,
+      value: candidates.length,
+      limit: 1,
+    });
   }
-  if (candidates.length === 1) return { chosen: 0, choice: 'the only candidate' };
-  if (candidates.length === 0) return { chosen: null, choice: 'no candidate temperature' };
-  return { chosen: null, choice: `${candidates.length} candidates: give --pressure or --near to choose` };
+  const pick = chosen === null ? undefined : candidates[chosen];
+  if (pick) warnings.push(...candidateWarnings(pick, speed ? speedSigmasFromTurn(pick, speed.speed_m_s, speed.speedSd_m_s) : 0));
+  return { chosen, choice, candidates: candidates.map((c, i) => ({ ...c, evidenceSd: evidenceSd[i] ?? null })), warnings };
 }
 
-/** Candidates as a table: number (chosen marked *), T, sd, slope, branch, note. */
-export function renderCandidates(candidates: readonly TemperatureCandidate[], chosen: number | null): string[] {
+/** The warnings as lines: "Caution: …", "Note: …". */
+export function renderWarnings(warnings: readonly ReadingWarning[]): string[] {
+  return warnings.map((w) => `${w.severity === 'info' ? 'Note' : w.severity === 'stop' ? 'Stop' : 'Caution'}: ${w.message}`);
+}
+
+/** An interval as "low – high" in kelvin, with what it reaches. */
+function intervalText(interval: readonly [number, number], reaches: readonly string[]): string {
+  const text = `${formatKelvin(interval[0])}–${formatKelvin(interval[1])}`;
+  return reaches.length > 0 ? `${text} (${reaches.join(', ')})` : text;
+}
+
+/**
+ * Candidates as a table: number (chosen marked *), T, sd (total, and its measurement and u₂-curve
+ * parts), the 68 % and 95 % intervals, the distance from the evidence, slope, branch, note.
+ */
+export function renderCandidates(candidates: readonly CandidateJson[], chosen: number | null): string[] {
   if (candidates.length === 0) return ['No temperature in 0.3 K – Tλ has this speed.'];
+  const mK = (K: number) => formatSignificant(fromBaseUnit(K, 'mK'), 3);
   const rows = [
-    ['', 'T90 (K)', 'sd (mK)', 'du₂/dT (m/s/K)', 'branch', 'note'],
+    ['', 'T90 (K)', 'sd (mK)', 'meas (mK)', 'curve (mK)', `68 % (K)`, `95 % (K)`, 'evidence (sd)', 'du₂/dT (m/s/K)', 'branch', 'note'],
     ...candidates.map((c, i) => [
       `${i + 1}${i === chosen ? '*' : ''}`,
       formatKelvin(c.temperature_K),
-      formatSignificant(fromBaseUnit(c.sd_K, 'mK'), 3),
+      mK(c.sd_K),
+      mK(c.sdMeasurement_K),
+      mK(c.sdCurve_K),
+      intervalText(c.interval68_K, c.reaches68),
+      intervalText(c.interval95_K, c.reaches95),
+      c.evidenceSd === null ? '' : formatSignificant(c.evidenceSd, 2),
       formatSignificant(c.slope_m_s_K, 4),
       c.branch,
       candidateNote(c),
     ]),
   ];
-  return alignTable(rows, ['left', 'right', 'right', 'right', 'left', 'left']);
+  return alignTable(rows, ['left', 'right', 'right', 'right', 'right', 'left', 'left', 'right', 'right', 'left', 'left']);
 }
+
+/** The line under the candidates that says what the intervals are. */
+export const INTERVAL_LEGEND = `68 % and 95 %: every T with |u₂(T) − u| ≤ k·σ (k = ${INTERVAL_K.p68}, ${INTERVAL_K.p95.toFixed(2)}), σ from the measurement and the u₂ curve; "maximum"/"minimum": the interval runs across that turn of u₂ into the next branch.`;
 
 function candidateNote(c: TemperatureCandidate): string {
   const notes: string[] = [];

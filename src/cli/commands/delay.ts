@@ -16,14 +16,17 @@ import {
   DELAY_SD_FLAG,
   DISTANCE_SD_FLAG,
   fromFile,
+  INTERVAL_LEGEND,
   NEAR_FLAG,
   OFFSET_FLAG,
   OFFSET_SD_FLAG,
   PRESSURE_FLAG,
+  PRESSURE_SD_FLAG,
   readChoiceRule,
   readInputFile,
   readUncertainties,
   renderCandidates,
+  renderWarnings,
 } from './convert-shared';
 import { JSON_FLAG, writeJson } from './shared';
 
@@ -60,7 +63,7 @@ const COLUMN_FLAG: TextFlag = {
 };
 
 /** The JSON printed for one delay. */
-export interface DelayJson extends DelayConversion, ChoiceResult {
+export interface DelayJson extends Omit<DelayConversion, 'candidates'>, ChoiceResult {
   distance_m: number;
   delay_s: number;
   offset_s: number;
@@ -80,14 +83,23 @@ export const delayCommand: Command = {
     'sds and the u₂ table), the slope du₂/dT and its branch of the u₂ curve (low, middle, high: u₂ has a ' +
     'minimum near 1.12 K and a maximum near 1.65 K, so one speed can mean three temperatures). --pressure ' +
     '(the bath vapour pressure, ITS-90) or --near (an expected temperature) chooses one; "chosen" is its ' +
-    'index into "candidates", or null. With --json, prints {speed_m_s, speedSd_m_s, candidates: ' +
-    '[{temperature_K, sd_K, slope_m_s_K, branch, insensitive, region, kind}], chosen, choice, …}. ' +
+    'index into "candidates", or null. Each candidate has a 68 % and a 95 % interval, found by mapping the ' +
+    "speed's interval through u₂(T) (asymmetric near the u₂ minimum and maximum, where an interval may run " +
+    'across the turn into the next branch), and its sd in two parts: the measurement\'s and the u₂ curve\'s own. ' +
+    'With --json, prints {speed_m_s, speedSd_m_s, candidates: [{temperature_K, sd_K, sdMeasurement_K, sdCurve_K, ' +
+    'interval68_K: [low, high], interval95_K, reaches68, reaches95, evidenceSd, slope_m_s_K, branch, insensitive, ' +
+    'region, kind}], chosen, choice, warnings: [{code, severity, message, value, limit}], …}; evidenceSd is the ' +
+    "candidate's distance from --pressure or --near in sd (null without), and a chosen one beyond 3 sd draws an " +
+    '"evidence-disagrees" caution. ' +
     'With --input, reads a CSV of delays and writes a CSV on standard output: a header row, then one row ' +
     'per input row (line, [timestamp], the delay column, distance_m, [pressure_Pa], speed_m_s, speedSd_m_s, ' +
-    'candidates, chosen (1–3), chosen_by, T_K, T_sd_K, then T1_K, T1_sd_K, T1_branch, T1_note … T3_note). ' +
+    'candidates, chosen (1–3), chosen_by, T_K, T_sd_K, T_sd_meas_K, T_sd_curve_K, T_lo68_K, T_hi68_K, T_lo95_K, ' +
+    'T_hi95_K, evidence_sd, alternatives, guess, warnings, then T1_K, T1_sd_K, T1_branch, T1_note … T3_note). ' +
     'A row with pressure_Pa is chosen by its pressure, later rows by continuity; before that, by --pressure ' +
-    'or --near, else from the first row with a single candidate.',
-  flags: [DISTANCE_FLAG, DELAY_FLAG, DISTANCE_SD_FLAG, DELAY_SD_FLAG, OFFSET_FLAG, OFFSET_SD_FLAG, PRESSURE_FLAG, NEAR_FLAG, INPUT_FLAG, COLUMN_FLAG, JSON_FLAG],
+    'or --near, else from the first row with a single candidate. Past a turn of u₂ (a chosen 95 % interval ' +
+    'reaching its minimum or maximum) continuity cannot choose: such rows are "ambiguous" (alternatives: the two ' +
+    'continuations; guess: the trend carried on, a guess) until a row with its own pressure "settles" them.',
+  flags: [DISTANCE_FLAG, DELAY_FLAG, DISTANCE_SD_FLAG, DELAY_SD_FLAG, OFFSET_FLAG, OFFSET_SD_FLAG, PRESSURE_FLAG, PRESSURE_SD_FLAG, NEAR_FLAG, INPUT_FLAG, COLUMN_FLAG, JSON_FLAG],
   examples: [
     'delay --distance 50mm --delay 2.5ms',
     'delay --distance 50mm --delay 2.5ms --delay-sd 1us --distance-sd 20um --pressure 1638Pa --json',
@@ -109,7 +121,7 @@ export const delayCommand: Command = {
     if (offset) computeFor(offset, (v) => requireInRange('offset', v, DELAY_LIMITS.offset_s[0], delay_s * (1 - 1e-12), 's'));
     const choice = readChoiceRule('delay', args);
     const conversion = convertOne(distance_m, delay_s, sds, distance.text, delay.text);
-    const result: DelayJson = { distance_m, delay_s, offset_s: sds.offset_s, ...conversion, ...chooseFor(conversion.candidates, choice) };
+    const result: DelayJson = { distance_m, delay_s, offset_s: sds.offset_s, ...conversion, ...chooseFor(conversion.candidates, choice, conversion) };
     if (args.flag(JSON_FLAG.name)) writeJson(io, result);
     else io.stdout(`${renderDelay(result).join('\n')}\n`);
     return EXIT_OK;
@@ -172,6 +184,9 @@ export function renderDelay(r: DelayJson): string[] {
     `Temperatures with this speed (${r.candidates.length}):`,
     ...renderCandidates(r.candidates, r.chosen).map((l) => `  ${l}`),
     '',
+    `  ${INTERVAL_LEGEND}`,
+    '',
     chosen ? `Chosen: ${r.chosen === null ? '' : r.chosen + 1}, ${chosen.temperature_K.toFixed(5)} K: ${r.choice}` : `Not chosen: ${r.choice}`,
+    ...renderWarnings(r.warnings),
   ];
 }

@@ -9,7 +9,19 @@ import type { OperandSpec } from '../args';
 import type { Command } from '../command';
 import { EXIT_OK, UsageError } from '../errors';
 import { alignTable, formatSignificant } from '../format';
-import { type ChoiceResult, chooseFor, fromFile, NEAR_FLAG, PRESSURE_FLAG, readChoiceRule, readInputFile, renderCandidates } from './convert-shared';
+import {
+  type ChoiceResult,
+  chooseFor,
+  fromFile,
+  INTERVAL_LEGEND,
+  NEAR_FLAG,
+  PRESSURE_FLAG,
+  PRESSURE_SD_FLAG,
+  readChoiceRule,
+  readInputFile,
+  renderCandidates,
+  renderWarnings,
+} from './convert-shared';
 import { JSON_FLAG, writeJson } from './shared';
 
 const FILE_OPERAND: OperandSpec = {
@@ -19,7 +31,7 @@ const FILE_OPERAND: OperandSpec = {
 };
 
 /** The JSON printed by `fit`. */
-export interface FitJson extends DistanceFit, ChoiceResult {
+export interface FitJson extends Omit<DistanceFit, 'candidates'>, ChoiceResult {
   file: string;
   /** Line of each point in the file, in the order of residuals_s. */
   lines: number[];
@@ -37,9 +49,12 @@ export const fitCommand: Command = {
     'and delay_s (a unit in the name scales a column: distance_mm, delay_us, …), optionally delay_sd_s; ' +
     'at least 3 rows at 2 or more distances. Prints the speed, the offset t0 (lags and electronics), ' +
     'their sds and correlation, the residuals and every temperature with the fitted speed; --pressure or ' +
-    '--near chooses one. With --json, prints {speed_m_s, speedSd_m_s, offset_s, offsetSd_s, residuals_s, ' +
-    'candidates, chosen, choice, covariance, correlation, chiSquare, degreesOfFreedom, weighted, lines}.',
-  flags: [PRESSURE_FLAG, NEAR_FLAG, JSON_FLAG],
+    '--near chooses one. Each candidate has its 68 % and 95 % intervals (the fitted speed\'s interval mapped ' +
+    'through u₂(T)) and its sd in the measurement\'s and the u₂ curve\'s parts, as in "sekundo delay". With ' +
+    '--json, prints {speed_m_s, speedSd_m_s, offset_s, offsetSd_s, residuals_s, candidates (each with ' +
+    'interval68_K, interval95_K, sdMeasurement_K, sdCurve_K, evidenceSd), chosen, choice, warnings, covariance, ' +
+    'correlation, chiSquare, degreesOfFreedom, weighted, lines}.',
+  flags: [PRESSURE_FLAG, PRESSURE_SD_FLAG, NEAR_FLAG, JSON_FLAG],
   operands: [FILE_OPERAND],
   examples: ['fit distances.csv', 'fit distances.csv --pressure 1638Pa --json'],
   run(args, io) {
@@ -49,7 +64,7 @@ export const fitCommand: Command = {
     const bytes = readInputFile(path, 'fit file');
     const input = fromFile('fit file', path, () => parseFitCsv(bytes));
     const fit = fromFile('fit file', path, () => fitDistances(input.points));
-    const result: FitJson = { file: path, ...fit, lines: input.lines, ...chooseFor(fit.candidates, choice) };
+    const result: FitJson = { file: path, ...fit, lines: input.lines, ...chooseFor(fit.candidates, choice, fit) };
     if (args.flag(JSON_FLAG.name)) writeJson(io, result);
     else io.stdout(`${renderFit(result).join('\n')}\n`);
     return EXIT_OK;
@@ -83,6 +98,9 @@ export function renderFit(r: FitJson): string[] {
     `Temperatures with this speed (${r.candidates.length}):`,
     ...renderCandidates(r.candidates, r.chosen).map((l) => `  ${l}`),
     '',
+    `  ${INTERVAL_LEGEND}`,
+    '',
     chosen ? `Chosen: ${(r.chosen ?? 0) + 1}, ${chosen.temperature_K.toFixed(5)} K: ${r.choice}` : `Not chosen: ${r.choice}`,
+    ...renderWarnings(r.warnings),
   ];
 }

@@ -23,6 +23,7 @@ import {
   requireInRange,
   type SurfaceConstraint,
   secondSound,
+  speedPriorAt,
   T_LAMBDA_K,
   type Vec3,
 } from '../../physics';
@@ -63,6 +64,21 @@ const SPEED_FLAG: QuantityFlag = {
   placeholder: 'u',
   range: LOCATE_SPEED_RANGE_M_S,
   help: 'speed of the front (give this or --temperature); the start value with --fit-speed',
+};
+
+const TEMPERATURE_SD_FLAG: QuantityFlag = {
+  kind: 'quantity',
+  name: 'temperature-sd',
+  dimension: 'temperature',
+  placeholder: 'σT',
+  range: [0, 1],
+  help: 'one-sigma uncertainty of --temperature (default 0): widens the speed prior by |du₂/dT|·σT',
+};
+
+const NO_SPEED_PRIOR_FLAG: BooleanFlag = {
+  kind: 'boolean',
+  name: 'no-speed-prior',
+  help: "with --temperature: hold the speed fixed at u₂(T) instead of fitting it under a prior of u₂'s own sd (and --temperature-sd)",
 };
 
 const FIT_SPEED_FLAG: BooleanFlag = {
@@ -154,6 +170,10 @@ export interface LocateJson {
   regions: { sigma1: RegionJson; sigma2: RegionJson } | null;
   /** The bath temperature the speed came from, K; null when --speed was given. */
   temperature_K: number | null;
+  /** Its one-sigma, K (0 when not given); null with --speed. */
+  temperatureSd_K: number | null;
+  /** The prior the speed was fitted under (u₂ at the temperature, its sd), or null: a fixed or freely fitted speed. */
+  speedPrior: { speed_m_s: number; sd_m_s: number } | null;
   fitSpeed: boolean;
   defaultArrivalSd_s: number;
   outlierLimit: number;
@@ -185,12 +205,19 @@ export const locateCommand: Command = {
     'fitted. The speed is u₂ at --temperature, or --speed as given. The source may be held on a sphere, a ' +
     'cylinder or a plane (a cavity wall), written as comma-separated numbers in metres (a length unit may ' +
     'follow each, e.g. 0,0,0,103mm). Sds are scaled up by √(χ²/dof) when the residuals scatter more than ' +
-    'the stated timing sds. Sensors on a line (or a fit that cannot fix the source) are reported as ' +
+    'the stated timing sds. With --temperature the speed is fitted under a prior: u₂ there, with the u₂ ' +
+    "curve's own sd and |du₂/dT|·--temperature-sd (so the regions hold when the helium's real speed differs " +
+    'from the table by that much); --no-speed-prior holds it fixed instead, --fit-speed fits it freely. ' +
+    'Outliers are the sensors a robust refit finds beyond --outlier-limit (the worst left out while one ' +
+    'exceeds it), also when --drop-outliers is not given and the reported fit keeps them. ' +
+    'Sensors on a line (or a fit that cannot fix the source) are reported as ' +
     'degenerate, with null sds. With --json, prints {source_m, sourceSd_m, offset_s, offsetSd_s, speed_m_s, ' +
     'speedSd_m_s, residuals_s, outliers, dropped, labels, lines, chiSquare, degreesOfFreedom, degenerate, ' +
-    'notes, covariance_m2, regions, sensors, …}; outliers and dropped index residuals_s.',
+    'notes, covariance_m2, regions, sensors, temperature_K, temperatureSd_K, speedPrior, …}; outliers and dropped index residuals_s.',
   flags: [
     TEMPERATURE_FLAG,
+    TEMPERATURE_SD_FLAG,
+    NO_SPEED_PRIOR_FLAG,
     SPEED_FLAG,
     FIT_SPEED_FLAG,
     ARRIVAL_SD_FLAG,
@@ -207,6 +234,7 @@ export const locateCommand: Command = {
     'locate arrivals.csv --speed 20m/s --fit-speed --arrival-sd 5us --json',
     'locate arrivals.csv --temperature 1.9K --sphere 0,0,0,103mm --drop-outliers',
     'locate arrivals.csv --temperature 1.8K --cylinder 0,0,0,0,0,1,0.05',
+    'locate arrivals.csv --temperature 1.8K --temperature-sd 2mK',
   ],
   run(args, io) {
     const result = computeLocate(args);
@@ -223,12 +251,18 @@ export function computeLocate(args: ParsedArgs): LocateJson {
     throw new UsageError('"sekundo locate" needs a CSV file of x_m, y_m, z_m, arrival_s, e.g. sekundo locate arrivals.csv --temperature 1.8K');
   }
   const { speed_m_s, temperature_K } = readSpeed(args);
+  const temperatureSdArg = args.quantity(TEMPERATURE_SD_FLAG.name);
+  if ((temperatureSdArg || args.flag(NO_SPEED_PRIOR_FLAG.name)) && temperature_K === null) {
+    throw new UsageError(`--${temperatureSdArg ? TEMPERATURE_SD_FLAG.name : NO_SPEED_PRIOR_FLAG.name} needs --temperature: the speed prior is u₂ at the bath temperature`);
+  }
+  const temperatureSd_K = temperatureSdArg ? computeFor(temperatureSdArg, (v) => requireInRange('temperature sd', v, 0, 1, 'K')) : 0;
   const sdArg = args.quantity(ARRIVAL_SD_FLAG.name);
   const defaultArrivalSd_s = sdArg
     ? computeFor(sdArg, (v) => requireInRange('arrival sd', v, LOCATE_ARRIVAL_SD_RANGE_S[0], LOCATE_ARRIVAL_SD_RANGE_S[1], 's'))
     : LOCATE_DEFAULT_ARRIVAL_SD_S;
   const constraint = readConstraint(args);
   const fitSpeed = args.flag(FIT_SPEED_FLAG.name);
+  const speedPrior = temperature_K !== null && !fitSpeed && !args.flag(NO_SPEED_PRIOR_FLAG.name) ? speedPriorAt(temperature_K, temperatureSd_K) : null;
   const dropOutliers = args.flag(DROP_OUTLIERS_FLAG.name);
   const outlierLimit = args.number(OUTLIER_LIMIT_FLAG.name)?.value ?? LOCATE_DEFAULT_OUTLIER_SIGMA;
 
@@ -244,9 +278,18 @@ export function computeLocate(args: ParsedArgs): LocateJson {
     );
   }
   const result = fromFile('sensor file', path, () =>
-    locateSource(arrivals, { speed_m_s, fitSpeed, arrivalSd_s: defaultArrivalSd_s, constraint, dropOutliers, outlierSigma: outlierLimit }),
+    locateSource(arrivals, { speed_m_s, fitSpeed, arrivalSd_s: defaultArrivalSd_s, constraint, dropOutliers, outlierSigma: outlierLimit, speedPrior }),
   );
-  return toJson(path, input.sensors, input.lines, indices, result, { temperature_K, fitSpeed, defaultArrivalSd_s, outlierLimit, dropOutliers, constraint });
+  return toJson(path, input.sensors, input.lines, indices, result, {
+    temperature_K,
+    temperatureSd_K: temperature_K === null ? null : temperatureSd_K,
+    speedPrior,
+    fitSpeed,
+    defaultArrivalSd_s,
+    outlierLimit,
+    dropOutliers,
+    constraint,
+  });
 }
 
 function shownName(path: string): string {
@@ -342,6 +385,8 @@ function direction(flag: TextFlag, text: string, v: (number | undefined)[], what
 
 interface RunChoice {
   temperature_K: number | null;
+  temperatureSd_K: number | null;
+  speedPrior: { speed_m_s: number; sd_m_s: number } | null;
   fitSpeed: boolean;
   defaultArrivalSd_s: number;
   outlierLimit: number;
@@ -411,14 +456,20 @@ export function renderLocate(r: LocateJson): string[] {
   }
   lines.push('');
   const speedFrom = r.temperature_K === null ? 'as given' : `u₂ at ${formatKelvin(r.temperature_K)} K`;
-  const speed = r.fitSpeed
+  const speedFitted = r.fitSpeed || r.speedPrior !== null;
+  const speed = speedFitted
     ? `${formatSignificant(r.speed_m_s)} ± ${r.speedSd_m_s === null ? ABSENT : formatSignificant(r.speedSd_m_s, 2)} m/s`
     : `${formatSignificant(r.speed_m_s)} m/s`;
+  const how = r.speedPrior
+    ? `fitted under the prior ${speedFrom} = ${formatSignificant(r.speedPrior.speed_m_s)} ± ${formatSignificant(r.speedPrior.sd_m_s, 2)} m/s (u₂ curve sd${r.temperatureSd_K ? ' and temperature sd' : ''})`
+    : r.fitSpeed
+      ? `fitted freely, starting from ${speedFrom}`
+      : `fixed, ${speedFrom}`;
   const settings: string[][] = [
-    ['Speed', speed, r.fitSpeed ? `fitted, starting from ${speedFrom}` : `fixed, ${speedFrom}`],
+    ['Speed', speed, how],
     ['Timing sd', `${us(r.defaultArrivalSd_s)} µs`, 'for sensors without arrival_sd_s'],
     ['Surface', describeSurface(r.constraint), ''],
-    ['Outliers', `beyond ${formatPlain(r.outlierLimit)} sd`, r.dropOutliers ? 'robust refit: the worst is left out while beyond the limit' : 'flagged, kept in the fit'],
+    ['Outliers', `beyond ${formatPlain(r.outlierLimit)} sd`, r.dropOutliers ? 'robust refit: the worst is left out while beyond the limit' : 'found by a robust refit, flagged, kept in the fit'],
   ];
   lines.push(...alignTable(settings, ['left', 'left', 'left']));
   lines.push('');

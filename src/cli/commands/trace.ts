@@ -25,13 +25,16 @@ import {
   chooseFor,
   DISTANCE_SD_FLAG,
   fromFile,
+  INTERVAL_LEGEND,
   NEAR_FLAG,
   OFFSET_FLAG,
   OFFSET_SD_FLAG,
   PRESSURE_FLAG,
+  PRESSURE_SD_FLAG,
   readChoiceRule,
   readUncertainties,
   renderCandidates,
+  renderWarnings,
   streamFile,
 } from './convert-shared';
 import { JSON_FLAG, writeJson } from './shared';
@@ -127,7 +130,6 @@ export interface TraceJson extends TracePick, ChoiceResult {
   distance_m: number | null;
   speed_m_s: number | null;
   speedSd_m_s: number | null;
-  candidates: DelayConversion['candidates'];
 }
 
 /** The `trace` command. */
@@ -146,9 +148,14 @@ export const traceCommand: Command = {
     'Pickers: threshold (first crossing of --threshold noise sd), fraction (leading edge at --fraction of ' +
     'the peak), peak (parabola through the top), xcorr (cross-correlation; its template is the heater ' +
     'drive when --heater-column is given, else a rectangle as wide as the pulse at half height, whose ' +
-    'arrival is the leading half-height point). With --json, prints {arrival_s, arrivalSd_s, delay_s, ' +
-    'delaySd_s, picker, timeZero, timeZero_s, sensor, heater, template, snr, speed_m_s, speedSd_m_s, ' +
-    'candidates, chosen, choice, …}; arrival_s is on the file\'s time axis, delay_s from time zero.',
+    'arrival is the leading half-height point). With a heater column the delay runs like with like: onset to ' +
+    'onset for threshold, fraction and xcorr, peak to peak for the peak picker (from the drive\'s centre at half ' +
+    'height); "reference" says which. Baseline and noise come only from samples before time zero, the file\'s ' +
+    't = 0 and the drive\'s first rise. A pick always lies inside its search window, or the command says why not. ' +
+    'With --json, prints {arrival_s, arrivalSd_s, delay_s, ' +
+    'delaySd_s, reference, referenceTime_s, picker, timeZero, timeZero_s, sensor, heater, template, snr, speed_m_s, speedSd_m_s, ' +
+    'candidates, chosen, choice, warnings, …}; arrival_s is on the file\'s time axis, delay_s from the heater\'s ' +
+    'matching feature (referenceTime_s on the file\'s axis).',
   flags: [
     DISTANCE_FLAG,
     HEATER_FLAG,
@@ -163,6 +170,7 @@ export const traceCommand: Command = {
     OFFSET_FLAG,
     OFFSET_SD_FLAG,
     PRESSURE_FLAG,
+    PRESSURE_SD_FLAG,
     NEAR_FLAG,
     JSON_FLAG,
   ],
@@ -208,7 +216,6 @@ export const traceCommand: Command = {
         return convertDelay({ distance_m, delay_s: pick.delay_s, distanceSd_m: sds.distanceSd_m, delaySd_s: pick.delaySd_s, offset_s: sds.offset_s, offsetSd_s: sds.offsetSd_s });
       });
     }
-    const candidates = conversion?.candidates ?? [];
     const result: TraceJson = {
       file: path,
       rows: trace.metadata.rows,
@@ -217,8 +224,7 @@ export const traceCommand: Command = {
       distance_m,
       speed_m_s: conversion?.speed_m_s ?? null,
       speedSd_m_s: conversion?.speedSd_m_s ?? null,
-      candidates,
-      ...(conversion ? chooseFor(candidates, choice) : { chosen: null, choice: 'no --distance: no speed or temperature' }),
+      ...(conversion ? chooseFor(conversion.candidates, choice, conversion) : { chosen: null, choice: 'no --distance: no speed or temperature', candidates: [], warnings: [] }),
     };
     if (args.flag(JSON_FLAG.name)) writeJson(io, result);
     else io.stdout(`${renderTrace(result).join('\n')}\n`);
@@ -262,7 +268,8 @@ export function renderTrace(r: TraceJson): string[] {
     ['Time zero', r.heater ? `heater onset, ${us(r.timeZero_s)} ± ${formatSignificant(r.timeZeroSd_s * 1e6, 2)} µs on the file's axis` : "the file's t = 0"],
     ['Picker', `${r.picker}${r.template ? ` (template: ${r.template})` : ''}, SNR ${formatSignificant(r.snr, 3)}`],
     ['Arrival', `${us(r.arrival_s)} ± ${formatSignificant(r.arrivalSd_s * 1e6, 2)} µs on the file's axis`],
-    ['Delay', `${us(r.delay_s)} ± ${formatSignificant(r.delaySd_s * 1e6, 2)} µs after time zero`],
+    ['Delay', `${us(r.delay_s)} ± ${formatSignificant(r.delaySd_s * 1e6, 2)} µs, ${r.reference}${r.reference === 'peak to peak' ? " (from the drive's centre at half height)" : ''}`],
+    ['Noise', `${formatSignificant(r.baseline.noise, 3)} (file units) from ${r.baseline.samples} samples before time zero and the drive`],
   ];
   if (r.speed_m_s !== null && r.speedSd_m_s !== null) rows.push(['Speed', `${formatSignificant(r.speed_m_s)} ± ${formatSignificant(r.speedSd_m_s, 2)} m/s`]);
   const lines = alignTable(rows, ['left', 'left']);
@@ -275,6 +282,9 @@ export function renderTrace(r: TraceJson): string[] {
     `Temperatures with this speed (${r.candidates.length}):`,
     ...renderCandidates(r.candidates, r.chosen).map((l) => `  ${l}`),
     '',
+    `  ${INTERVAL_LEGEND}`,
+    '',
     chosen ? `Chosen: ${(r.chosen ?? 0) + 1}, ${chosen.temperature_K.toFixed(5)} K: ${r.choice}` : `Not chosen: ${r.choice}`,
+    ...renderWarnings(r.warnings),
   ];
 }

@@ -1,5 +1,5 @@
 import { useId, useMemo, useState } from 'react';
-import { delayResultAt, delayResultCells, delayResultHeader, type DelayBatchResults } from '../../io/delay-batch';
+import { delayResultAt, delayResultCells, delayResultHeader, type DelayBatchResults, WARNING_CODES } from '../../io/delay-batch';
 import { ChartFigure } from '../charts/ChartFigure';
 import { formatSignificant } from '../format/format-number';
 import { PanelErrorBoundary } from '../layout/PanelErrorBoundary';
@@ -148,8 +148,13 @@ function BatchResults() {
   let decided = 0;
   let lo = Number.POSITIVE_INFINITY;
   let hi = Number.NEGATIVE_INFINITY;
+  let ambiguous = 0;
+  const disagreeing: number[] = [];
+  const disagreeBit = 1 << WARNING_CODES.indexOf('evidence-disagrees');
   for (let i = 0; i < r.count; i++) {
     const c = r.chosen[i] as number;
+    if (c < 0 && (r.along[i] as number) >= 0) ambiguous++;
+    if ((r.warnings[i] as number) & disagreeBit) disagreeing.push(r.batch.rows[i]?.line ?? i + 2);
     if (c < 0) continue;
     decided++;
     const T = r.temperature_K[i * 3 + c] as number;
@@ -168,15 +173,30 @@ function BatchResults() {
         <p className="caption-values batch-summary">
           {r.count} readings; {decided} with a chosen temperature
           {decided > 0 ? `, from ${temperatureText(lo, unit)} to ${temperatureText(hi, unit)}` : ''}.
-          {decided < r.count ? ' Undecided rows have several candidates and nothing to choose by: set a way of choosing.' : ''}
+          {decided + ambiguous < r.count ? ' Undecided rows have several candidates and nothing to choose by: set a way of choosing.' : ''}
         </p>
+        {disagreeing.length > 0 ? (
+          <p className="converter-warning" role="note" data-testid="batch-disagree">
+            Delay and evidence disagree on {disagreeing.length} row{disagreeing.length === 1 ? '' : 's'} (line{disagreeing.length === 1 ? '' : 's'}{' '}
+            {disagreeing.slice(0, 5).join(', ')}
+            {disagreeing.length > 5 ? ', …' : ''}): the chosen temperature lies more than 3 sd from the row’s vapour-pressure temperature (see evidence_sd in
+            the export). Check the distance, the offset t₀, the gauge and the head pressure.
+          </p>
+        ) : null}
+        {ambiguous > 0 ? (
+          <p className="converter-warning" role="note" data-testid="batch-ambiguous">
+            {ambiguous} reading{ambiguous === 1 ? '' : 's'} past a turn of u₂ (its minimum or maximum): both branches meeting there are continuous, so
+            continuity cannot choose. Both continuations are shown; the “guess” carries the trend on through the turn and is only a guess. A later
+            row with its own vapour pressure settles them back to the turn.
+          </p>
+        ) : null}
         <BatchTable results={r} units={units} />
       </section>
       {figure ? (
         <ChartFigure
           id="converter-batch"
           title="Temperature along the batch"
-          caption="Amber: the chosen temperature with its ± sd band; grey: the other candidates of each reading."
+          caption="Amber: the chosen temperature with its 95 % interval as a band; dashed: the two continuations of readings past a turn of u₂ (undecided); grey: the other candidates of each reading."
         >
           <PlotlyChart chartId="converter-batch" label={`Chart of the chosen temperature of ${r.count} readings.`} data={figure.data} layout={figure.layout} />
         </ChartFigure>
@@ -230,8 +250,9 @@ function BatchTable({ results, units }: { results: DelayBatchResults; units: Con
                   speed={{ value_m_s: r.speed_m_s, sd_m_s: r.speedSd_m_s }}
                   candidates={r.candidates}
                   chosen={r.chosen}
-                  chosenBy={r.chosenBy ?? 'undecided'}
+                  chosenBy={chosenByText(r.chosenBy)}
                   temperature={temperature}
+                  ambiguous={r.ambiguous}
                 />
               </tr>
             );
@@ -245,6 +266,14 @@ function BatchTable({ results, units }: { results: DelayBatchResults; units: Con
       ) : null}
     </div>
   );
+}
+
+ /** How a batch row was decided, in words. */
+function chosenByText(by: string | null): string {
+  if (by === null) return 'undecided';
+  if (by === 'ambiguous') return 'undecided past a turn of u₂';
+  if (by === 'settled') return 'settled by a later pressure';
+  return by;
 }
 
 /** "2026-11-03T14:00:30Z" → "14:00:30" (the full text stays in the cell's title); other text as it is. */

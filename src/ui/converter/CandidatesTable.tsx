@@ -3,6 +3,13 @@ import { formatSignificant } from '../format/format-number';
 import { useDisplayUnit } from '../units/use-display-unit';
 import { branchWords, type CandidateFlag, candidateFlags, choiceNote } from './candidate-notes';
 import { limitText } from './converter-units';
+import { LADDERS, readText } from '../planner/display-units';
+
+/** A distance from the evidence in sd: "12 sd" (flagged past 3), or a dash without evidence. */
+function evidenceText(d: number | null | undefined): string {
+  if (d === null || d === undefined) return '—';
+  return `${formatSignificant(d, 2)} sd${d > 3 ? ' (far)' : ''}`;
+}
 
 interface CandidatesTableProps {
   candidates: readonly TemperatureCandidate[];
@@ -18,6 +25,12 @@ interface CandidatesTableProps {
  */
 export function CandidatesTable({ candidates, rule, choice, caption }: CandidatesTableProps) {
   const temperature = useDisplayUnit('temperature');
+  // An sd on its own: in the unit that suits its size (µK, mK, K), as the planner shows differences.
+  const sdText = (K: number) => readText(K, LADDERS.temperatureDifference, 2);
+  const intervalWords = (interval: readonly [number, number], reaches: readonly string[], sd: number) => {
+    const turn = reaches.filter((r) => r === 'minimum' || r === 'maximum' || r === 'Tλ');
+    return `${temperature.measured(interval[0], sd).value} – ${temperature.measured(interval[1], sd).value} ${temperature.shown}${turn.length > 0 ? ` (to the ${turn.join(', ')})` : ''}`;
+  };
   const flags = new Map<CandidateFlag['key'], CandidateFlag>();
   for (const c of candidates) for (const f of candidateFlags(c)) if (!flags.has(f.key)) flags.set(f.key, f);
   if (candidates.length === 0) {
@@ -39,6 +52,15 @@ export function CandidatesTable({ candidates, rule, choice, caption }: Candidate
             </th>
             <th scope="col" className="num">
               sd
+            </th>
+            <th scope="col" className="num" title="The sd in its two parts: the measurement's (distance, timing, offset — what limits a change between readings) and the u₂ curve's own (the same for every reading)">
+              measurement / u₂ curve
+            </th>
+            <th scope="col" className="num" title="Every temperature whose u₂ lies within 1 σ (68 %) or 1.96 σ (95 %) of the speed, on this candidate's stretch of the curve">
+              68 % · 95 % interval
+            </th>
+            <th scope="col" className="num" title="How far the candidate lies from the evidence (the vapour-pressure or expected temperature), in sd">
+              From evidence
             </th>
             <th scope="col" className="num as-written">
               du₂/dT (m/s/K)
@@ -68,6 +90,19 @@ export function CandidatesTable({ candidates, rule, choice, caption }: Candidate
                   {T.value} {temperature.shown}
                 </td>
                 <td className="num uncertainty">{T.sd === null ? '' : `± ${T.sd} ${temperature.shown}`}</td>
+                <td className="num uncertainty">
+                  {sdText(c.sdMeasurement_K)} / {sdText(c.sdCurve_K)}
+                </td>
+                <td className="num interval-cell">
+                  <span>
+                    <span className="muted">68 %</span> {intervalWords(c.interval68_K, c.reaches68, c.sd_K)}
+                  </span>
+                  <br />
+                  <span>
+                    <span className="muted">95 %</span> {intervalWords(c.interval95_K, c.reaches95, c.sd_K)}
+                  </span>
+                </td>
+                <td className="num">{evidenceText(choice.evidenceSd[i])}</td>
                 <td className="num">{formatSignificant(c.slope_m_s_K, 3)}</td>
                 <td className="nowrap">{c.kind === 'extremum' ? 'at the extremum' : branchWords(c.branch)}</td>
                 <td>

@@ -1,10 +1,10 @@
 import { type ReactNode, useId } from 'react';
-import { PROPERTIES_RANGE_K, type TemperatureCandidate } from '../../physics';
+import { candidateWarnings, PROPERTIES_RANGE_K, type ReadingWarning, speedSigmasFromTurn, type TemperatureCandidate } from '../../physics';
 import { formatSignificant } from '../format/format-number';
 import { PanelErrorBoundary } from '../layout/PanelErrorBoundary';
 import { useDisplayUnit } from '../units/use-display-unit';
 import { CandidatesTable } from './CandidatesTable';
-import { limitText } from './converter-units';
+import { limitText, temperatureText } from './converter-units';
 import type { Chosen } from './reading-results';
 import { type ExportContent, ResultActions } from './ResultActions';
 import { SpeedChart } from './SpeedChart';
@@ -33,6 +33,8 @@ export function ConversionResult({ title, chartId, speed_m_s, speedSd_m_s, speed
   const temperature = useDisplayUnit('temperature');
   // The chosen temperature and its sd rounded together, in the display unit.
   const picked = pick ? temperature.measured(pick.temperature_K, pick.sd_K) : null;
+  const fmt = (T: number) => temperatureText(T, temperature.unit);
+  const warnings: ReadingWarning[] = [...choice.warnings, ...(pick ? candidateWarnings(pick, speedSigmasFromTurn(pick, speed_m_s, speedSd_m_s), fmt) : [])];
   return (
     <>
       <section className="card converter-card result-card" aria-labelledby={headingId}>
@@ -54,6 +56,9 @@ export function ConversionResult({ title, chartId, speed_m_s, speedSd_m_s, speed
                   <span className="key-figure__unit">{picked.sd === null ? temperature.shown : `± ${picked.sd} ${temperature.shown}`}</span>
                   <span className="key-figure__detail">
                     candidate {(choice.index ?? 0) + 1} of {candidates.length}, {pick.branch} branch (u₂ {pick.branch === 'middle' ? 'rising' : 'falling'})
+                  </span>
+                  <span className="key-figure__detail" data-testid="chosen-interval">
+                    95 %: {temperature.measured(pick.interval95_K[0], pick.sd_K).value} – {temperature.measured(pick.interval95_K[1], pick.sd_K).value} {temperature.shown}
                   </span>
                 </>
               ) : (
@@ -81,6 +86,15 @@ export function ConversionResult({ title, chartId, speed_m_s, speedSd_m_s, speed
             <dd className="choice-reason">{choice.problem ?? (choice.index === null ? undecided(candidates.length, rule === null, choice.reason) : `${sentenceCase(choice.reason)}.`)}</dd>
           </div>
         </dl>
+        {warnings.length > 0 ? (
+          <ul className="reading-warnings" aria-label="Cautions about this reading">
+            {warnings.map((w) => (
+              <li key={w.code} className={`reading-warning reading-warning--${w.severity}`} data-code={w.code}>
+                <strong>{w.severity === 'info' ? 'Note' : 'Caution'}:</strong> {w.message}
+              </li>
+            ))}
+          </ul>
+        ) : null}
         {children}
         <CandidatesTable candidates={candidates} rule={rule} choice={choice} caption={`Every temperature with u₂ = ${formatSignificant(speed_m_s)} m/s, coldest first`} />
       </section>

@@ -66,7 +66,14 @@ export function batchMinutes(batch: DelayBatch): Float64Array | null {
 const MARKER_LIMIT = 1500;
 const CHART_COLUMNS = 1200;
 
-/** Temperature against reading (or time): the chosen T ± sd, and every candidate faintly. */
+/** Names of the two traces of readings past a turn of u₂ (tests find them). */
+export const ALONG_TRACE = 'Undecided: back along the branch';
+export const ACROSS_TRACE = 'Undecided: on across the turn (trend guess)';
+
+/**
+ * Temperature against reading (or time): the chosen T with its 95 % interval as a band, both
+ * continuations of readings past a turn of u₂ (dashed, undecided), and every candidate faintly.
+ */
 export function batchFigure(results: DelayBatchResults, minutes: Float64Array | null): { data: PlotTrace[]; layout: PlotLayout } {
   const n = results.count;
   const x = minutes ?? Float64Array.from({ length: n }, (_, i) => i + 1);
@@ -76,15 +83,27 @@ export function batchFigure(results: DelayBatchResults, minutes: Float64Array | 
   const upper: number[] = [];
   const otherX: number[] = [];
   const otherT: number[] = [];
+  const alongX: number[] = [];
+  const alongT: number[] = [];
+  const acrossT: number[] = [];
   for (let i = 0; i < n; i++) {
     const c = results.chosen[i] as number;
+    const along = c < 0 ? (results.along[i] as number) : -1;
+    const across = c < 0 ? (results.across[i] as number) : -1;
+    if (along >= 0 && across >= 0) {
+      alongX.push(x[i] as number);
+      alongT.push(results.temperature_K[i * 3 + along] as number);
+      acrossT.push(results.temperature_K[i * 3 + across] as number);
+    }
     for (let k = 0; k < (results.candidateCount[i] as number); k++) {
       const j = i * 3 + k;
       if (k === c) {
         chosenX.push(x[i] as number);
         chosenT.push(results.temperature_K[j] as number);
-        lower.push((results.temperature_K[j] as number) - (results.sd_K[j] as number));
-        upper.push((results.temperature_K[j] as number) + (results.sd_K[j] as number));
+        lower.push(results.low95_K[j] as number);
+        upper.push(results.high95_K[j] as number);
+      } else if (k === along || k === across) {
+        // Drawn as a continuation below.
       } else if (n <= MARKER_LIMIT) {
         otherX.push(x[i] as number);
         otherT.push(results.temperature_K[j] as number);
@@ -95,7 +114,7 @@ export function batchFigure(results: DelayBatchResults, minutes: Float64Array | 
   if (n <= MARKER_LIMIT) {
     data.push(
       { type: 'scatter', name: 'lower', x: chosenX, y: lower, mode: 'lines', line: { width: 0 }, hoverinfo: 'skip', showlegend: false },
-      { type: 'scatter', name: '± sd', x: chosenX, y: upper, mode: 'lines', line: { width: 0 }, fill: 'tonexty', fillcolor: 'rgba(217, 119, 43, 0.22)', hoverinfo: 'skip' },
+      { type: 'scatter', name: '95 % interval', x: chosenX, y: upper, mode: 'lines', line: { width: 0 }, fill: 'tonexty', fillcolor: 'rgba(217, 119, 43, 0.22)', hoverinfo: 'skip' },
       { type: 'scatter', name: 'Other candidates', x: otherX, y: otherT, mode: 'markers', marker: { color: CHART_COLOURS.inkMuted, size: 5, opacity: 0.55 }, hovertemplate: '%{y:.4f} K<extra>other candidate</extra>' },
       { type: 'scatter', name: 'Chosen temperature', x: chosenX, y: chosenT, mode: 'lines+markers', line: { color: CHART_COLOURS.chosen, width: 1.5 }, marker: { color: CHART_COLOURS.chosen, size: 5 }, hovertemplate: '%{y:.4f} K<extra>chosen</extra>' },
     );
@@ -104,6 +123,13 @@ export function batchFigure(results: DelayBatchResults, minutes: Float64Array | 
     const to = chosenX[chosenX.length - 1] ?? 1;
     const line = decimateMinMax(chosenX, chosenT, from, to, CHART_COLUMNS);
     data.push({ type: 'scatter', name: 'Chosen temperature', x: line.x, y: line.y, mode: 'lines', line: { color: CHART_COLOURS.chosen, width: 1.2 }, hovertemplate: '%{y:.4f} K<extra>chosen</extra>' });
+  }
+  // Both continuations of every reading past a turn, even in a long batch (they are what the reader must see).
+  if (alongX.length > 0) {
+    data.push(
+      { type: 'scatter', name: ALONG_TRACE, x: alongX, y: alongT, mode: 'lines+markers', line: { color: CHART_COLOURS.inkMuted, width: 1.2, dash: 'dash' }, marker: { color: CHART_COLOURS.inkMuted, size: 4, symbol: 'circle-open' }, hovertemplate: '%{y:.4f} K<extra>one continuation (undecided)</extra>' },
+      { type: 'scatter', name: ACROSS_TRACE, x: alongX, y: acrossT, mode: 'lines+markers', line: { color: CHART_COLOURS.chosen, width: 1.2, dash: 'dash' }, marker: { color: CHART_COLOURS.chosen, size: 4, symbol: 'circle-open' }, hovertemplate: '%{y:.4f} K<extra>other continuation; the trend guess (undecided)</extra>' },
+    );
   }
   return { data, layout: temperatureSeriesLayout(minutes ? 'Minutes since the first reading' : 'Reading') };
 }

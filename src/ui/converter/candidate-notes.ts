@@ -59,11 +59,11 @@ export function candidateFlags(c: TemperatureCandidate): CandidateFlag[] {
 
 /** The choice the rule makes, its reason with temperatures in `unit`, or why it could not be applied. */
 export function applyRule(candidates: readonly TemperatureCandidate[], rule: ChoiceRule | null, unit: 'K' | 'mK' = 'K'): Choice & { problem: string | null } {
-  if (rule === null) return { index: null, reason: 'no way of choosing is set', problem: null };
+  if (rule === null) return { index: null, reason: 'no way of choosing is set', evidenceSd: candidates.map(() => null), warnings: [], problem: null };
   try {
     return { ...chooseCandidate(candidates, rule, (T) => temperatureText(T, unit)), problem: null };
   } catch (error) {
-    if (error instanceof PhysicsError) return { index: null, reason: 'the rule cannot be applied', problem: sentence(error.message) };
+    if (error instanceof PhysicsError) return { index: null, reason: 'the rule cannot be applied', evidenceSd: candidates.map(() => null), warnings: [], problem: sentence(error.message) };
     throw error;
   }
 }

@@ -10,7 +10,21 @@ import { csvColumn } from './converter-units';
 
 /** Columns describing one candidate, after the context columns; temperatures in the display unit. */
 function candidateColumns(temperature: DisplayUnitView<'temperature'>): string[] {
-  return ['candidate', csvColumn('T', temperature), csvColumn('T_sd', temperature), 'slope_m_s_K', 'branch', 'region', 'kind', 'insensitive', 'chosen', 'choice'];
+  return [
+    'candidate',
+    csvColumn('T', temperature),
+    csvColumn('T_sd', temperature),
+    ...['T_sd_meas', 'T_sd_curve', 'T_lo68', 'T_hi68', 'T_lo95', 'T_hi95'].map((name) => csvColumn(name, temperature)),
+    'reaches95',
+    'evidence_sd',
+    'slope_m_s_K',
+    'branch',
+    'region',
+    'kind',
+    'insensitive',
+    'chosen',
+    'choice',
+  ];
 }
 
 /** A table of candidates, one row each, every row led by the same context cells (the reading, the fit). */
@@ -33,6 +47,14 @@ export function candidateTable(
     i + 1,
     temperature.fromSi(c.temperature_K),
     temperature.fromSi(c.sd_K),
+    temperature.fromSi(c.sdMeasurement_K),
+    temperature.fromSi(c.sdCurve_K),
+    temperature.fromSi(c.interval68_K[0]),
+    temperature.fromSi(c.interval68_K[1]),
+    temperature.fromSi(c.interval95_K[0]),
+    temperature.fromSi(c.interval95_K[1]),
+    c.reaches95.join(' '),
+    choice?.evidenceSd[i] ?? null,
     c.slope_m_s_K,
     c.branch,
     c.region,

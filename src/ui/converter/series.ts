@@ -3,6 +3,8 @@
  * else their names in natural order), each file's picked delay converted to speed and candidates,
  * and one candidate chosen per file: by that file's vapour pressure when its header gives one, by
  * the start rule for the first file, then by continuity (the candidate nearest the one before).
+ * Past a turn of u₂ continuity cannot choose: those files keep both continuations (and a labelled
+ * trend guess) until a later file with its own pressure settles them back to the turn.
  * Pure functions; the CSV is plain text, never HTML.
  */
 import type { CsvCell } from '../../io/csv-common';
@@ -84,7 +86,7 @@ export interface SeriesSettings {
   offsetSd_s: number;
 }
 
-export type ChosenBy = 'pressure' | 'vapour pressure in the file' | 'expected' | 'range' | 'only candidate' | 'continuity';
+export type ChosenBy = 'pressure' | 'vapour pressure in the file' | 'expected' | 'range' | 'only candidate' | 'continuity' | 'settled by a later pressure';
 
 export interface SeriesRow {
   file: SeriesFile;
@@ -98,6 +100,8 @@ export interface SeriesRow {
   rule: ChoiceRule | null;
   /** Why the file has no temperature (pick or conversion failed), or null. */
   problem: string | null;
+  /** Past a turn of u₂: the two continuations (indices into the candidates) and the labelled trend guess; null otherwise. */
+  ambiguous: { alternatives: [number, number]; guess: number } | null;
 }
 
 const ONLY_CANDIDATE: ChoiceRule = { kind: 'range', min_K: 0, max_K: PROPERTIES_RANGE_K[1] };
@@ -117,7 +121,7 @@ export function buildSeries(
 ): SeriesRow[] {
   const rows: SeriesRow[] = files.map((file) => {
     const pick = picks.get(file.id) ?? null;
-    const row: SeriesRow = { file, timestamp: timestampOf(file.fields), pressure_Pa: pressureOf(file.fields), pick, conversion: null, chosen: null, chosenBy: null, rule: null, problem: problems.get(file.id) ?? null };
+    const row: SeriesRow = { file, timestamp: timestampOf(file.fields), pressure_Pa: pressureOf(file.fields), pick, conversion: null, chosen: null, chosenBy: null, rule: null, problem: problems.get(file.id) ?? null, ambiguous: null };
     if (!pick) {
       row.problem ??= 'not picked yet';
       return row;
@@ -148,6 +152,15 @@ export function buildSeries(
       const choice = choose(row.conversion?.candidates ?? [], row.pressure_Pa === null ? null : { kind: 'pressure', pressure_Pa: row.pressure_Pa });
       row.chosen = choice.index;
       row.chosenBy = choice.index === null ? null : label[choice.by];
+      row.ambiguous = choice.ambiguous ? { alternatives: choice.ambiguous.alternatives, guess: choice.ambiguous.guess } : null;
+      // Rows past a turn that this file's own pressure settles, back to the turn.
+      for (const settled of choice.settles) {
+        const earlier = rows[settled.row];
+        if (!earlier) continue;
+        earlier.chosen = settled.index;
+        earlier.chosenBy = 'settled by a later pressure';
+        earlier.ambiguous = null;
+      }
       // Without a start rule the only-candidate rule is no rule the person set.
       row.rule = choice.by === 'start' && start === null ? null : choice.rule;
     } catch (error) {
@@ -193,6 +206,9 @@ export function seriesTable(rows: readonly SeriesRow[], units: ConverterUnits): 
     'chosen_by',
     csvColumn('T', temperature),
     csvColumn('T_sd', temperature),
+    ...['T_sd_meas', 'T_sd_curve', 'T_lo68', 'T_hi68', 'T_lo95', 'T_hi95'].map((name) => csvColumn(name, temperature)),
+    'alternatives',
+    'guess',
   ];
   for (let i = 1; i <= MAX_CANDIDATES; i++) header.push(csvColumn(`T${i}`, temperature), csvColumn(`T${i}_sd`, temperature), `T${i}_branch`, `T${i}_note`);
   header.push('problem');
@@ -216,6 +232,14 @@ export function seriesTable(rows: readonly SeriesRow[], units: ConverterUnits): 
       r.chosenBy ?? '',
       inUnit(c?.temperature_K, temperature),
       inUnit(c?.sd_K, temperature),
+      inUnit(c?.sdMeasurement_K, temperature),
+      inUnit(c?.sdCurve_K, temperature),
+      inUnit(c?.interval68_K[0], temperature),
+      inUnit(c?.interval68_K[1], temperature),
+      inUnit(c?.interval95_K[0], temperature),
+      inUnit(c?.interval95_K[1], temperature),
+      r.ambiguous ? `${r.ambiguous.alternatives[0] + 1} ${r.ambiguous.alternatives[1] + 1}` : '',
+      r.ambiguous ? r.ambiguous.guess + 1 : null,
     ];
     for (let i = 0; i < MAX_CANDIDATES; i++) {
       const x = r.conversion?.candidates[i];

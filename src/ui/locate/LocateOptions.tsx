@@ -3,10 +3,22 @@ import { formatSignificant } from '../format/format-number';
 import { HelpLabel, type HelpTopic, useFieldHelp } from '../help/FieldHelp';
 import { useSekundoStore } from '../store';
 import { useDisplayUnit } from '../units/use-display-unit';
-import { speedOf } from './derive-locate';
-import { DEFAULT_SD_SPEC, defaultSdEdit, SPEED_SPEC, speedEdit, surfaceFields, temperatureEditIn, temperatureSpec } from './locate-fields';
+import { priorOf, speedOf } from './derive-locate';
+import {
+  DEFAULT_SD_SPEC,
+  defaultSdEdit,
+  regionEdit,
+  regionSpec,
+  SPEED_SPEC,
+  speedEdit,
+  surfaceFields,
+  TEMPERATURE_SD_SPEC,
+  temperatureEditIn,
+  temperatureSdEdit,
+  temperatureSpec,
+} from './locate-fields';
 import { LOCATE_HELP } from './locate-help';
-import type { LocateOptionsInput, SurfaceKind } from './locate-inputs';
+import { AXIS_NAMES, type LocateOptionsInput, type SurfaceKind } from './locate-inputs';
 import { LocateField } from './LocateField';
 
 const SURFACE_CHOICES: readonly { kind: SurfaceKind; label: string }[] = [
@@ -27,6 +39,7 @@ export function LocateOptions() {
   const surfaceHelp = useFieldHelp('source on a surface', LOCATE_HELP.surface);
   const set = (key: string, patch: Partial<LocateOptionsInput>) => change(key, (inputs) => ({ ...inputs, options: { ...inputs.options, ...patch } }));
   const speed = speedOf(options);
+  const prior = priorOf(options);
   return (
     <section className="card locate-card locate-options" aria-labelledby="locate-options-title">
       <h2 id="locate-options-title" className="card-title">
@@ -54,7 +67,28 @@ export function LocateOptions() {
             />
             <p className="field-hint" aria-live="polite">
               {speed.ok ? `u₂ = ${formatSignificant(speed.speed_m_s, 4)} m/s (Donnelly & Barenghi 1998 curve)` : speed.message}
+              {prior ? `; prior sd ${formatSignificant(prior.sd_m_s, 2)} m/s` : ''}
             </p>
+            <CheckWithHelp
+              name="speed prior"
+              help={LOCATE_HELP.speedPrior}
+              checked={options.speedPrior && !options.fitSpeed}
+              disabled={options.fitSpeed}
+              onChange={(checked) => set('opt.speedPrior', { speedPrior: checked })}
+            >
+              Fit the speed within u₂’s own uncertainty (a prior){options.fitSpeed ? ' — off while an effective speed is fitted freely' : ''}
+            </CheckWithHelp>
+            {options.speedPrior && !options.fitSpeed ? (
+              <LocateField
+                fieldKey="opt.temperatureSd"
+                spec={TEMPERATURE_SD_SPEC}
+                value={options.temperatureSd_K}
+                edit={temperatureSdEdit}
+                label="Bath temperature sd"
+                unit="mK"
+                help={LOCATE_HELP.temperatureSd}
+              />
+            ) : null}
           </div>
         ) : null}
         <label className="locate-choice">
@@ -118,6 +152,7 @@ Source on a surface
           </div>
         ) : null}
       </div>
+      <SensorRegion options={options} set={set} />
       <CheckWithHelp
         name="robust refit"
         help={LOCATE_HELP.dropOutliers}
@@ -130,14 +165,52 @@ Source on a surface
   );
 }
 
+/** Where the quality map may suggest one more sensor: outside the body (always), inside a box (when asked). */
+function SensorRegion({ options, set }: { options: LocateOptionsInput; set: (key: string, patch: Partial<LocateOptionsInput>) => void }) {
+  const length = useDisplayUnit('length');
+  const region = options.sensorRegion;
+  const body = options.surface === 'sphere' || options.surface === 'cylinder' ? options.surface : null;
+  return (
+    <div className="locate-group">
+      <CheckWithHelp name="region for added sensors" help={LOCATE_HELP.sensorRegion} checked={region.on} onChange={(checked) => set('opt.sensorRegion', { sensorRegion: { ...region, on: checked } })}>
+        Suggest an added sensor only inside a box{body ? ` (never inside the ${body})` : ''}
+      </CheckWithHelp>
+      {region.on ? (
+        <div className="locate-surface-fields">
+          {(['min', 'max'] as const).flatMap((corner) =>
+            ([0, 1, 2] as const).map((axis) => (
+              <LocateField
+                key={`${corner}${axis}`}
+                fieldKey={`opt.region.${corner}${axis}`}
+                spec={regionSpec(corner, axis, length.unit)}
+                value={(corner === 'min' ? region.min_m : region.max_m)[axis]}
+                edit={regionEdit(corner, axis, length.unit)}
+                label={`${corner === 'min' ? 'lowest' : 'highest'} ${AXIS_NAMES[axis]}`}
+                unit={length.shown}
+              />
+            )),
+          )}
+        </div>
+      ) : null}
+    </div>
+  );
+}
+
 /** A checkbox with its label and a "?" beside it (a button cannot sit inside the label). */
-function CheckWithHelp({ name, help, checked, onChange, children }: { name: string; help: HelpTopic; checked: boolean; onChange: (checked: boolean) => void; children: ReactNode }) {
+function CheckWithHelp({
+  name,
+  help,
+  checked,
+  onChange,
+  children,
+  disabled = false,
+}: { name: string; help: HelpTopic; checked: boolean; onChange: (checked: boolean) => void; children: ReactNode; disabled?: boolean }) {
   const fieldHelp = useFieldHelp(name, help);
   return (
     <div className="locate-check">
       <div className="locate-check__row">
         <label className="locate-choice">
-          <input type="checkbox" checked={checked} aria-describedby={fieldHelp.describedBy} onChange={(event) => onChange(event.target.checked)} />
+          <input type="checkbox" checked={checked} disabled={disabled} aria-describedby={fieldHelp.describedBy} onChange={(event) => onChange(event.target.checked)} />
           {children}
         </label>
         {fieldHelp.button}

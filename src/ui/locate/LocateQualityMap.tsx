@@ -10,7 +10,7 @@ import { useDisplayUnit } from '../units/use-display-unit';
 import { lengthScale, qualityFigure } from './locate-figures';
 import { LOCATE_HELP } from './locate-help';
 import { MAP_POINTS_PER_SIDE, median, qualityMap } from './locate-geometry';
-import { AXIS_NAMES, axesOf, constraintOf, PLANE_PAIRS, type PlanePair, pairName } from './locate-inputs';
+import { AXIS_NAMES, axesOf, constraintOf, PLANE_PAIRS, type PlanePair, pairName, placementOf } from './locate-inputs';
 import { useElementWidth as useWidth } from '../layout/use-element-width';
 import { locateOutcomeFor, useSettled } from './use-locate';
 
@@ -49,13 +49,14 @@ export function LocateQualityMap() {
   const timingSd = median(rows.map((r) => r.arrivalSd_s ?? options.arrivalSd_s));
   const sdForMap = Number.isFinite(timingSd) ? timingSd : options.arrivalSd_s;
   const constraint = useMemo(() => constraintOf(options), [options]);
+  const placement = useMemo(() => placementOf(options), [options]);
   const speed_m_s = speed.ok ? speed.speed_m_s : null;
   const fitSpeed = options.fitSpeed;
   const [t0, t1, t2] = through;
   const map = useMemo(() => {
     if (speed_m_s === null || positions.length === 0) return null;
-    return qualityMap(positions, [t0, t1, t2], plane, { speed_m_s, arrivalSd_s: sdForMap, fitSpeed, constraint });
-  }, [positions, t0, t1, t2, plane, speed_m_s, sdForMap, fitSpeed, constraint]);
+    return qualityMap(positions, [t0, t1, t2], plane, { speed_m_s, arrivalSd_s: sdForMap, fitSpeed, constraint }, placement);
+  }, [positions, t0, t1, t2, plane, speed_m_s, sdForMap, fitSpeed, constraint, placement]);
   const side = Math.max(120, Math.min(width - PLOT_MARGIN_X_PX, MAP_HEIGHT_PX - PLOT_MARGIN_Y_PX));
   const cellPx = Math.max(4, side / MAP_POINTS_PER_SIDE + 1);
   const figure = useMemo(
@@ -115,7 +116,10 @@ export function LocateQualityMap() {
                   {mm(best.meanSd_m)} {length.shown}.
                 </>
               ) : (
-                <>No single added sensor on the box around the layout lowers the mean expected sd inside the layout on this map.</>
+                <>
+                  No single added sensor {placement.box ? 'in the region you gave' : 'on the box around the layout'}
+                  {placement.body ? ` (outside the ${placement.body.kind})` : ''} lowers the mean expected sd inside the layout on this map.
+                </>
               )}
             </p>
             <p className="muted">
@@ -123,8 +127,10 @@ export function LocateQualityMap() {
               {located ? 'through the located source' : 'through the sensors’ centroid'}), from the geometry and a timing sd of{' '}
               {formatSignificant(sdForMap * 1e6, 2)} µs (the median of the sensors’), with the speed {options.fitSpeed ? 'fitted' : 'known'}
               {constraint.kind === 'none' ? '' : ` and the source held on the ${constraint.kind} (each point stands for its nearest point there)`}. Grey:
-              the layout cannot fix a source there. Diamond: the best of {map?.candidates ?? 0} candidate places on the faces of the box around the sensors
-              (widened by a tenth), judged by the mean sd at points of this map within the sensors’ extent. Circles: the sensors, projected.
+              the layout cannot fix a source there. Diamond: the best of {map?.candidates ?? 0} candidate places on the faces of{' '}
+              {placement.box ? 'the region you gave for added sensors' : 'the box around the sensors (widened by a tenth)'}
+              {placement.body ? `, leaving out those inside the ${placement.body.kind} (no sensor can sit in the body or on its axis)` : ''}, judged by the mean sd at
+              points of this map within the sensors’ extent. Circles: the sensors, projected.
             </p>
           </div>
         </div>

@@ -119,7 +119,13 @@ export function LocateSummary() {
           <dt>Speed</dt>
           <dd>
             {speedText.text} m/s
-            <span className="locate-facts__detail">{fitSpeed ? `fitted, starting from ${speed.from}` : `fixed: ${speed.from}`}</span>
+            <span className="locate-facts__detail" data-testid="locate-speed-how">
+              {r.speedPrior
+                ? `fitted within u₂’s own uncertainty: prior ${speed.from} = ${formatSignificant(r.speedPrior.speed_m_s, 4)} ± ${formatSignificant(r.speedPrior.sd_m_s, 2)} m/s`
+                : fitSpeed
+                  ? `fitted freely, starting from ${speed.from}`
+                  : `fixed: ${speed.from}`}
+            </span>
           </dd>
         </div>
         <div>

@@ -3,7 +3,7 @@
  * located source (or why there is none) and each sensor's outcome. Nothing here is stored.
  */
 import { arrivalsOf, type SensorOutcome, sensorOutcomes } from '../../io/locate-csv';
-import { type LocateResult, locateSource, PhysicsError, secondSound, type SurfaceConstraint, T_LAMBDA_K } from '../../physics';
+import { type LocateResult, locateSource, PhysicsError, secondSound, type SpeedPrior, speedPriorAt, type SurfaceConstraint, T_LAMBDA_K } from '../../physics';
 import { constraintOf, type LocateOptionsInput, type LocateRowInput } from './locate-inputs';
 
 /** The speed in use and where it came from. */
@@ -23,6 +23,17 @@ export function speedOf(o: LocateOptionsInput): SpeedChoice {
     return { ok: true, speed_m_s: u2, from: `u₂ at ${o.temperature_K.toFixed(3)} K` };
   } catch (error) {
     if (error instanceof PhysicsError) return { ok: false, message: error.message };
+    throw error;
+  }
+}
+
+/** The speed prior the options ask for (u₂ at the bath temperature, its sd), or null. */
+export function priorOf(o: LocateOptionsInput): SpeedPrior | null {
+  if (o.speedMode !== 'temperature' || !o.speedPrior || o.fitSpeed) return null;
+  try {
+    return speedPriorAt(o.temperature_K, o.temperatureSd_K);
+  } catch (error) {
+    if (error instanceof PhysicsError) return null;
     throw error;
   }
 }
@@ -78,6 +89,7 @@ export function deriveLocate(rows: readonly LocateRowInput[], options: LocateOpt
       arrivalSd_s: options.arrivalSd_s,
       constraint,
       dropOutliers: options.dropOutliers,
+      speedPrior: priorOf(options),
     });
     return { ok: true, result, indices, outcomes: sensorOutcomes(rows, indices, result), speed, constraint };
   } catch (error) {

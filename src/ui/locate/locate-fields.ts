@@ -116,6 +116,24 @@ export const temperatureSpec = (unit: TemperatureUnit = 'K'): QuantityFieldSpec 
 
 export const TEMPERATURE_SPEC: QuantityFieldSpec = temperatureSpec('K');
 
+/** The bath temperature's sd: in mK, the scale it is read on (an sd standing on its own). */
+export const TEMPERATURE_SD_SPEC: QuantityFieldSpec = {
+  name: 'Bath temperature sd',
+  dimension: 'temperature',
+  unit: 'mK',
+  range: [0, 1],
+  rangeText: '0–1000 mK',
+};
+
+/** A corner of the region where added sensors may go. */
+export const regionSpec = (corner: 'min' | 'max', axis: 0 | 1 | 2, unit: LengthUnit = 'mm'): QuantityFieldSpec => ({
+  name: `Sensor region ${corner === 'min' ? 'lowest' : 'highest'} ${AXIS_NAMES[axis]}`,
+  dimension: 'length',
+  unit,
+  range: LOCATE_POSITION_RANGE_M,
+  rangeText: `${LOCATE_POSITION_RANGE_M[0]} to ${LOCATE_POSITION_RANGE_M[1]} m, lowest below highest`,
+});
+
 export const SPEED_SPEC: QuantityFieldSpec = {
   name: 'Speed',
   dimension: 'speed',
@@ -209,6 +227,21 @@ function withOptions(inputs: LocateInputs, change: (o: LocateOptionsInput) => Lo
 export const temperatureEditIn = (unit: TemperatureUnit) =>
   fieldEdit(temperatureSpec(unit), (inputs, value) => withOptions(inputs, (o) => ({ ...o, temperature_K: value ?? o.temperature_K })));
 export const temperatureEdit = temperatureEditIn('K');
+export const temperatureSdEdit = fieldEdit(TEMPERATURE_SD_SPEC, (inputs, value) => withOptions(inputs, (o) => ({ ...o, temperatureSd_K: value ?? 0 })));
+
+/** An edit of one coordinate of the sensor region's corners; refused when it would turn the box inside out. */
+export function regionEdit(corner: 'min' | 'max', axis: 0 | 1 | 2, unit: LengthUnit = 'mm') {
+  return fieldEdit(regionSpec(corner, axis, unit), (inputs, value): LocateEdit => {
+    const r = inputs.options.sensorRegion;
+    const min_m = corner === 'min' ? setAxis(r.min_m, axis, value ?? 0) : r.min_m;
+    const max_m = corner === 'max' ? setAxis(r.max_m, axis, value ?? 0) : r.max_m;
+    if (!(min_m[axis] < max_m[axis])) {
+      return { ok: false, message: `Sensor region: the lowest ${AXIS_NAMES[axis]} must lie below the highest ${AXIS_NAMES[axis]}.` };
+    }
+    return { ok: true, inputs: withOptions(inputs, (o) => ({ ...o, sensorRegion: { ...o.sensorRegion, min_m, max_m } })) };
+  });
+}
+
 export const speedEdit = fieldEdit(SPEED_SPEC, (inputs, value) => withOptions(inputs, (o) => ({ ...o, speed_m_s: value ?? o.speed_m_s })));
 export const defaultSdEdit = fieldEdit(DEFAULT_SD_SPEC, (inputs, value) => withOptions(inputs, (o) => ({ ...o, arrivalSd_s: value ?? o.arrivalSd_s })));
 

@@ -2,7 +2,7 @@
  * Geometry for the source-location charts: confidence ellipses of a projection, the grid of the
  * layout-quality map and the candidate positions for one more sensor. Pure functions, SI units.
  */
-import { bestAddedSensor, type LayoutOptions, layoutQuality, type Vec3 } from '../../physics';
+import { bestAddedSensor, type LayoutOptions, layoutQuality, type SensorPlacement, sensorPlaceAllowed, type Vec3 } from '../../physics';
 import { axesOf, type PlanePair } from './locate-inputs';
 
 /**
@@ -94,11 +94,11 @@ export function mapGrid(points: readonly Vec3[], through: Vec3, pair: PlanePair,
  * Candidate places for one more sensor: a grid on the faces of the box around the sensors,
  * widened by a tenth of its largest side (at least 10 mm), `perEdge` points along each edge.
  */
-export function boxCandidates(sensors: readonly Vec3[], perEdge: number): Vec3[] {
+export function boxCandidates(sensors: readonly Vec3[], perEdge: number, padded = true): Vec3[] {
   if (sensors.length === 0) return [];
   const lo = [0, 1, 2].map((k) => Math.min(...sensors.map((s) => s[k as 0])));
   const hi = [0, 1, 2].map((k) => Math.max(...sensors.map((s) => s[k as 0])));
-  const pad = Math.max(0.01, 0.1 * Math.max(...hi.map((h, k) => h - (lo[k] ?? 0))));
+  const pad = padded ? Math.max(0.01, 0.1 * Math.max(...hi.map((h, k) => h - (lo[k] ?? 0)))) : 0;
   const ticks = [0, 1, 2].map((k) => {
     const from = (lo[k] ?? 0) - pad;
     const to = (hi[k] ?? 0) + pad;
@@ -140,8 +140,11 @@ const MAX_BEST_SOURCES = 36;
  * and the candidate that lowers the mean expected sd most over the points inside the sensors'
  * extent in that plane (all points when the sensors have no extent there).
  */
-export function qualityMap(sensors: readonly Vec3[], through: Vec3, pair: PlanePair, o: LayoutOptions): QualityMap {
-  const candidates = boxCandidates(sensors, CANDIDATES_PER_EDGE);
+export function qualityMap(sensors: readonly Vec3[], through: Vec3, pair: PlanePair, o: LayoutOptions, placement: SensorPlacement = { body: null, box: null }): QualityMap {
+  // Candidates on a box around the sensors (or the user's region), only where a sensor can go.
+  const candidates = (placement.box ? boxCandidates([placement.box.min_m, placement.box.max_m], CANDIDATES_PER_EDGE, false) : boxCandidates(sensors, CANDIDATES_PER_EDGE)).filter((c) =>
+    sensorPlaceAllowed(c, placement),
+  );
   const grid = mapGrid([...sensors, ...candidates], through, pair, MAP_POINTS_PER_SIDE);
   const sd_m = sensors.length === 0 ? grid.points.map(() => Number.POSITIVE_INFINITY) : layoutQuality(sensors, grid.points, o);
   const { a, b } = axesOf(pair);
@@ -166,7 +169,7 @@ export function qualityMap(sensors: readonly Vec3[], through: Vec3, pair: PlaneP
     });
   let best: QualityMap['best'] = null;
   if (candidates.length > 0 && sources.length > 0) {
-    const found = bestAddedSensor(sensors, candidates, sources, o);
+    const found = bestAddedSensor(sensors, candidates, sources, o, placement);
     const position = candidates[found.index];
     const improves = found.unfixable < found.baselineUnfixable || (found.unfixable === found.baselineUnfixable && found.meanSd_m < found.baselineMeanSd_m);
     if (position && Number.isFinite(found.meanSd_m) && improves) {

@@ -65,6 +65,22 @@ export const LOCATE_HELP = {
     range: `small-signal u₂ is ${U2_SPAN}; valid ${SPEED_SPEC.rangeText}`,
     origin: '20 m/s, about u₂ in the usual working range',
   },
+  speedPrior: {
+    what: "Fit the speed too, held near u₂ at the bath temperature within u₂'s own uncertainty (0.25 % near 1.8 K, Donnelly & Barenghi 1998) and the temperature sd below. The real helium's speed differs from the table by about that much; with the speed held fixed, the stated regions would be too small. Turn it off to hold u₂ fixed.",
+    origin: 'on',
+  },
+  temperatureSd: {
+    what: 'One-sigma uncertainty of the bath temperature: it widens the speed prior by |du₂/dT| times this.',
+    units: typed('mK', '2 mK, 0.002 K'),
+    range: 'typically 0.1–5 mK; valid 0–1000 mK',
+    origin: '0 mK: the thermometer taken as exact, only the u₂ curve uncertain',
+  },
+  sensorRegion: {
+    what: 'Where the map may suggest one more sensor: never inside a sphere or cylinder body (the cavity, the beam axis), and, when this is on, only inside the box given by its lowest and highest corner.',
+    units: 'lengths in the shown unit',
+    range: 'each corner within ±100 m; lowest below highest on every axis',
+    origin: 'off: anywhere outside the body, in a box around the sensors',
+  },
   fitSpeed: {
     what: 'Fit an effective speed together with the position and emission time, starting from the speed above. Needs one more sensor with a reading than a fixed speed.',
     origin: 'off',

@@ -3,7 +3,7 @@
  * of the fit and how results are displayed. Inputs only: results are derived (derive-locate.ts).
  */
 import type { LocateSensor } from '../../io/locate-csv';
-import type { SurfaceConstraint, Vec3 } from '../../physics';
+import type { SensorPlacement, SurfaceConstraint, Vec3 } from '../../physics';
 
 /** One sensor row of the table; `key` is stable across edits (React key, field keys). */
 export interface LocateRowInput extends LocateSensor {
@@ -18,6 +18,10 @@ export interface LocateOptionsInput {
   speedMode: 'temperature' | 'speed';
   temperature_K: number;
   speed_m_s: number;
+  /** With a bath temperature: fit the speed under a prior of u₂'s own sd and the temperature sd (off: u₂ held fixed). */
+  speedPrior: boolean;
+  /** One-sigma of the bath temperature, K (widens the prior by |du₂/dT|·σT). */
+  temperatureSd_K: number;
   fitSpeed: boolean;
   /** Timing sd of sensors without their own, s. */
   arrivalSd_s: number;
@@ -27,6 +31,8 @@ export interface LocateOptionsInput {
   sphere: { centre_m: Vec3; radius_m: number };
   cylinder: { axisPoint_m: Vec3; axisDirection: Vec3; radius_m: number };
   plane: { point_m: Vec3; normal: Vec3 };
+  /** Where an added sensor may be suggested: inside this box when `on` (always outside a sphere or cylinder body). */
+  sensorRegion: { on: boolean; min_m: Vec3; max_m: Vec3 };
 }
 
 /** A pair of coordinates: a projection or the plane of the quality map. */
@@ -77,6 +83,8 @@ export const DEFAULT_LOCATE_OPTIONS: LocateOptionsInput = {
   speedMode: 'temperature',
   temperature_K: LOCATE_DEFAULT_TEMPERATURE_K,
   speed_m_s: 20,
+  speedPrior: true,
+  temperatureSd_K: 0,
   fitSpeed: false,
   arrivalSd_s: LOCATE_DEFAULT_ARRIVAL_SD_S,
   dropOutliers: false,
@@ -84,6 +92,7 @@ export const DEFAULT_LOCATE_OPTIONS: LocateOptionsInput = {
   sphere: { centre_m: [0, 0, 0], radius_m: 0.1 },
   cylinder: { axisPoint_m: [0, 0, 0], axisDirection: [0, 0, 1], radius_m: 0.1 },
   plane: { point_m: [0, 0, 0], normal: [0, 0, 1] },
+  sensorRegion: { on: false, min_m: [-0.2, -0.2, -0.2], max_m: [0.2, 0.2, 0.2] },
 };
 
 export const DEFAULT_LOCATE_DISPLAY: LocateDisplay = { projections: ['xy', 'xz'], zoom: 'layout', mapPlane: 'xy' };
@@ -100,6 +109,15 @@ export function constraintOf(o: LocateOptionsInput): SurfaceConstraint {
     case 'plane':
       return { kind: 'plane', ...o.plane };
   }
+}
+
+/** Where an added sensor may go: outside the body of a sphere or cylinder, and inside the user's box when set. */
+export function placementOf(o: LocateOptionsInput): SensorPlacement {
+  const c = constraintOf(o);
+  return {
+    body: c.kind === 'sphere' || c.kind === 'cylinder' ? c : null,
+    box: o.sensorRegion.on ? { min_m: o.sensorRegion.min_m, max_m: o.sensorRegion.max_m } : null,
+  };
 }
 
 /**

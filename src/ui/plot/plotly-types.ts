@@ -103,6 +103,9 @@ export interface PlotAxis {
   /** What gives way to keep the scale: the range or the axis domain. */
   constrain?: 'range' | 'domain';
   exponentformat?: 'none' | 'e' | 'E' | 'power' | 'SI' | 'B';
+  /** 'auto': round ticks of its own; 'sync': at the overlaid axis's grid lines (not round). */
+  tickmode?: 'auto' | 'linear' | 'array' | 'sync';
+  showgrid?: boolean;
 }
 
 export interface PlotShape {

@@ -10,7 +10,7 @@ import { PlotlyChart } from '../../plot/PlotlyChart';
 import type { PlotLayout, PlotTrace } from '../../plot/plotly-types';
 import { useSekundoStore } from '../../store';
 import { shortTimestamp } from '../BatchMode';
-import { temperatureSeriesLayout } from '../batch-results';
+import { ACROSS_TRACE, ALONG_TRACE, temperatureSeriesLayout } from '../batch-results';
 import { applyRule } from '../candidate-notes';
 import { choiceRuleOf, type FieldValues } from '../converter-checks';
 import type { TraceFileEntry } from '../converter-slice';
@@ -259,10 +259,17 @@ function PickSummary({ pick, time }: { pick: PickState | undefined; time: Conver
         </dd>
       </div>
       <div>
+        <dt>Delay measured</dt>
+        <dd data-testid="delay-reference">
+          {p.reference}
+          {p.reference === 'peak to peak' ? ': from the centre of the drive pulse at half height to the sensor’s peak' : p.reference === 'onset to onset' ? ': from the drive’s 50 % onset to the same feature of the pulse' : ': give a heater channel to measure from the drive itself'}
+        </dd>
+      </div>
+      <div>
         <dt>Signal</dt>
         <dd>
           peak {formatSignificant(p.peak, 3)} over noise {formatSignificant(p.baseline.noise, 2)} (SNR {formatSignificant(p.snr, 3)}), baseline from{' '}
-          {p.baseline.samples.toLocaleString('en')} samples
+          {p.baseline.samples.toLocaleString('en')} samples before time zero and the drive’s first rise
           {p.snr < 5 ? <span className="badge badge--model"> low SNR: check the pick</span> : null}
         </dd>
       </div>
@@ -327,8 +334,9 @@ function SeriesCard({ rows, by }: { rows: readonly SeriesRow[]; by: 'timestamp' 
                       speed={r.conversion ? { value_m_s: r.conversion.speed_m_s, sd_m_s: r.conversion.speedSd_m_s } : null}
                       candidates={r.conversion?.candidates ?? null}
                       chosen={r.chosen}
-                      chosenBy={r.problem && !r.conversion ? <span className="field-error-inline">{r.problem}</span> : (r.chosenBy ?? 'undecided')}
+                      chosenBy={r.problem && !r.conversion ? <span className="field-error-inline">{r.problem}</span> : (r.chosenBy ?? (r.ambiguous ? 'undecided past a turn of u₂' : 'undecided'))}
                       temperature={temperature}
+                      ambiguous={r.ambiguous}
                     />
                   </tr>
                 );
@@ -337,7 +345,7 @@ function SeriesCard({ rows, by }: { rows: readonly SeriesRow[]; by: 'timestamp' 
           </table>
         </div>
       </section>
-      <ChartFigure id="converter-series" title="Temperature along the series" caption="Amber: each file’s chosen temperature with its ± sd band; grey: the other candidates.">
+      <ChartFigure id="converter-series" title="Temperature along the series" caption="Amber: each file’s chosen temperature with its 95 % interval as a band; dashed: the two continuations of files past a turn of u₂ (undecided); grey: the other candidates.">
         <PlotlyChart chartId="converter-series" label={`Chart of the chosen temperature of ${rows.length} trace files.`} data={figure.data} layout={figure.layout} />
       </ChartFigure>
     </>
@@ -347,17 +355,22 @@ function SeriesCard({ rows, by }: { rows: readonly SeriesRow[]; by: 'timestamp' 
 function seriesFigure(rows: readonly SeriesRow[], by: 'timestamp' | 'name'): { data: PlotTrace[]; layout: PlotLayout } {
   const first = rows.find((r) => r.timestamp)?.timestamp?.ms ?? 0;
   const xOf = (r: SeriesRow, i: number) => (by === 'timestamp' && r.timestamp ? (r.timestamp.ms - first) / 60000 : i + 1);
-  const chosen: { x: number; T: number; sd: number; name: string }[] = [];
+  const chosen: { x: number; T: number; lo: number; hi: number; name: string }[] = [];
   const others: { x: number; T: number }[] = [];
+  const pairs: { x: number; along: number; across: number }[] = [];
   rows.forEach((r, i) => {
+    const a = r.ambiguous;
+    if (a && r.conversion) {
+      pairs.push({ x: xOf(r, i), along: r.conversion.candidates[a.alternatives[0]]?.temperature_K ?? Number.NaN, across: r.conversion.candidates[a.alternatives[1]]?.temperature_K ?? Number.NaN });
+    }
     r.conversion?.candidates.forEach((c, k) => {
-      if (k === r.chosen) chosen.push({ x: xOf(r, i), T: c.temperature_K, sd: c.sd_K, name: r.file.name });
-      else others.push({ x: xOf(r, i), T: c.temperature_K });
+      if (k === r.chosen) chosen.push({ x: xOf(r, i), T: c.temperature_K, lo: c.interval95_K[0], hi: c.interval95_K[1], name: r.file.name });
+      else if (!a?.alternatives.includes(k)) others.push({ x: xOf(r, i), T: c.temperature_K });
     });
   });
   const data: PlotTrace[] = [
-    { type: 'scatter', name: 'lower', x: chosen.map((c) => c.x), y: chosen.map((c) => c.T - c.sd), mode: 'lines', line: { width: 0 }, hoverinfo: 'skip', showlegend: false },
-    { type: 'scatter', name: '± sd', x: chosen.map((c) => c.x), y: chosen.map((c) => c.T + c.sd), mode: 'lines', line: { width: 0 }, fill: 'tonexty', fillcolor: 'rgba(217, 119, 43, 0.22)', hoverinfo: 'skip' },
+    { type: 'scatter', name: 'lower', x: chosen.map((c) => c.x), y: chosen.map((c) => c.lo), mode: 'lines', line: { width: 0 }, hoverinfo: 'skip', showlegend: false },
+    { type: 'scatter', name: '95 % interval', x: chosen.map((c) => c.x), y: chosen.map((c) => c.hi), mode: 'lines', line: { width: 0 }, fill: 'tonexty', fillcolor: 'rgba(217, 119, 43, 0.22)', hoverinfo: 'skip' },
     { type: 'scatter', name: 'Other candidates', x: others.map((c) => c.x), y: others.map((c) => c.T), mode: 'markers', marker: { color: CHART_COLOURS.inkMuted, size: 6, opacity: 0.55 }, hovertemplate: '%{y:.4f} K<extra>other candidate</extra>' },
     {
       type: 'scatter',
@@ -371,5 +384,11 @@ function seriesFigure(rows: readonly SeriesRow[], by: 'timestamp' | 'name'): { d
       hovertemplate: '%{text}<br>%{y:.4f} K<extra></extra>',
     },
   ];
+  if (pairs.length > 0) {
+    data.push(
+      { type: 'scatter', name: ALONG_TRACE, x: pairs.map((p) => p.x), y: pairs.map((p) => p.along), mode: 'lines+markers', line: { color: CHART_COLOURS.inkMuted, width: 1.2, dash: 'dash' }, marker: { color: CHART_COLOURS.inkMuted, size: 5, symbol: 'circle-open' }, hovertemplate: '%{y:.4f} K<extra>one continuation (undecided)</extra>' },
+      { type: 'scatter', name: ACROSS_TRACE, x: pairs.map((p) => p.x), y: pairs.map((p) => p.across), mode: 'lines+markers', line: { color: CHART_COLOURS.chosen, width: 1.2, dash: 'dash' }, marker: { color: CHART_COLOURS.chosen, size: 5, symbol: 'circle-open' }, hovertemplate: '%{y:.4f} K<extra>other continuation; the trend guess (undecided)</extra>' },
+    );
+  }
   return { data, layout: temperatureSeriesLayout(by === 'timestamp' ? 'Minutes since the first file' : 'File (in name order)') };
 }

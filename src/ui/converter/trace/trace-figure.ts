@@ -43,6 +43,20 @@ export function viewSpan(samples: TraceSamples, pick: TracePick | null, view: 'r
   return [Math.max(first, pick.arrival_s - half), Math.min(last, pick.arrival_s + half)];
 }
 
+/**
+ * A channel's name with its unit for an axis title: "sensor (V)" as written; "sensor_V" → "sensor (V)";
+ * a name without a unit is marked as the file's units.
+ */
+export function channelAxisTitle(name: string): string {
+  if (/[([][^)\]]+[)\]]\s*$/.test(name)) return name;
+  const suffix = /^(.*?)[_\s]([uµμmnk]?V|[uµμmk]?A|[mk]?Ω|ohm|[um]?K)$/i.exec(name);
+  if (suffix?.[1]) return `${suffix[1]} (${(suffix[2] ?? '').replace(/^u/, 'µ')})`;
+  return `${name} (file units)`;
+}
+
+/** Round, short tick labels with SI prefixes on a signal axis (20µ, 0.5m, 1.2): the unit is in the title. */
+export const SIGNAL_TICKS = { tickformat: '~s', exponentformat: 'SI' } as const;
+
 export function traceFigure({ samples, sensor, heater, pick, level, search, view, columns, timeUnit }: TraceFigureInput): { data: PlotTrace[]; layout: PlotLayout } {
   const zero = pick?.timeZero_s ?? 0;
   const [from, to] = viewSpan(samples, pick, view);
@@ -72,7 +86,8 @@ export function traceFigure({ samples, sensor, heater, pick, level, search, view
     shapes.push({ name: 'search-window', type: 'rect', xref: 'x', yref: 'paper', x0: lo, x1: hi, y0: 0, y1: 1, fillcolor: 'rgba(11, 122, 118, 0.06)', line: { width: 0 }, layer: 'below' });
   }
   if (pick) {
-    const t = pick.delay_s * scale;
+    // The arrival on the axis from time zero (for a peak-to-peak delay, not the delay itself).
+    const t = (pick.arrival_s - zero) * scale;
     const sd = pick.delaySd_s * scale;
     shapes.push(
       { name: ARRIVAL_SD_SHAPE, type: 'rect', xref: 'x', yref: 'paper', x0: t - sd, x1: t + sd, y0: 0, y1: 1, fillcolor: 'rgba(217, 119, 43, 0.25)', line: { width: 0 }, layer: 'below' },
@@ -96,17 +111,17 @@ export function traceFigure({ samples, sensor, heater, pick, level, search, view
       margin: { l: 64, r: heaterValues ? 56 : 16, t: 30, b: 46 },
       legend: { orientation: 'h', x: 1, y: 1.01, xanchor: 'right', yanchor: 'bottom' },
       xaxis: axis(pick?.timeZero === 'heater onset' ? `Time from the heater onset (${unit})` : `Time (${unit})`, { range: [shown(from), shown(to)] }),
-      yaxis: axis(`${sensor}`),
-      ...(heaterValues ? { yaxis2: axis(`${heater}`, { overlaying: 'y', side: 'right', showline: true, zeroline: false, gridcolor: 'rgba(0,0,0,0)' }) } : {}),
+      yaxis: axis(channelAxisTitle(sensor), SIGNAL_TICKS),
+      ...(heaterValues ? { yaxis2: axis(channelAxisTitle(heater as string), { ...SIGNAL_TICKS, tickmode: 'auto', showgrid: false, overlaying: 'y', side: 'right', showline: true, zeroline: false, gridcolor: 'rgba(0,0,0,0)' }) } : {}),
       shapes,
       annotations: pick
         ? [
             {
               name: 'arrival-label',
-              text: `arrival ${(pick.delay_s * scale).toFixed(decimals)} ${unit}`,
+              text: `arrival ${((pick.arrival_s - zero) * scale).toFixed(decimals)} ${unit}${pick.reference === 'peak to peak' ? ' (peak; delay peak to peak)' : ''}`,
               xref: 'x',
               yref: 'paper',
-              x: pick.delay_s * scale,
+              x: (pick.arrival_s - zero) * scale,
               y: 1,
               xanchor: 'left',
               yanchor: 'top',

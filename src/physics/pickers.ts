@@ -114,7 +114,7 @@ export function uniformStep(trace: Trace): number {
   for (let i = 1; i < n; i++) {
     const d = (t[i] as number) - (t[i - 1] as number);
     if (Math.abs(d - step) > UNIFORM_TOLERANCE * step) {
-      throw new InvalidInputError('time', `samples must be evenly spaced (row ${i + 1} breaks the ${step} s step)`);
+      throw new InvalidInputError('time', `samples must be evenly spaced (row ${i + 1} breaks the ${timeText(step)} step)`);
     }
   }
   return step;

@@ -20,6 +20,7 @@ export type CsvProblem =
   | 'line-too-long'
   | 'missing-column'
   | 'out-of-range'
+  | 'sample-numbers'
   | 'cancelled';
 
 /**

@@ -89,6 +89,11 @@ export interface TraceCsvMetadata {
   /** Blank and "#" lines skipped inside the data. */
   skippedLines: number;
   bytes: number;
+  /**
+   * The time column has no unit and counts samples (0, 1, 2, … in steps of exactly 1): sample
+   * numbers, not seconds. A pick on such a file is refused (src/io/trace-pick.ts).
+   */
+  timeCountsSamples: boolean;
 }
 
 /** A parsed trace file. */
@@ -643,11 +648,25 @@ export class TraceCsvParser {
         rows: n,
         skippedLines: this.skipped,
         bytes: this.bytes,
+        timeCountsSamples: this.timeUnit === undefined && countsSamples(time),
       },
     };
     if (this.timeUnit !== undefined) trace.timeUnit = this.timeUnit;
     return trace;
   }
+}
+
+/**
+ * Whether a time column with no unit counts samples: at least three rows, every value a whole
+ * number and every step exactly 1 (sample numbers, never seconds of a second-sound trace).
+ */
+function countsSamples(time: Float64Array): boolean {
+  if (time.length < 3) return false;
+  for (let i = 0; i < time.length; i++) {
+    const t = time[i] as number;
+    if (!Number.isInteger(t) || (i > 0 && t - (time[i - 1] as number) !== 1)) return false;
+  }
+  return true;
 }
 
 function isBlank(b: Uint8Array, start: number, end: number): boolean {

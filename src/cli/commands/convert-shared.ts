@@ -3,8 +3,9 @@
  * reading input files, turning CSV and kernel errors into one-line usage errors, and the
  * candidate table.
  */
-import { closeSync, fstatSync, openSync, readFileSync, readSync } from 'node:fs';
+import { closeSync, fstatSync, openSync, readSync } from 'node:fs';
 import { CsvInputError } from '../../io/csv-common';
+import { TABLE_CSV_SIZE_LIMIT_BYTES } from '../../io/small-csv';
 import { fromBaseUnit } from '../../io/quantity';
 import {
   type ChoiceRule,
@@ -20,6 +21,7 @@ import {
 import type { ParsedArgs, QuantityArg, QuantityFlag } from '../args';
 import { UsageError } from '../errors';
 import { alignTable, formatRange, formatSignificant } from '../format';
+import { readFileCapped } from '../io';
 import { computeFor } from '../kernel-call';
 import { formatKelvin } from './shared';
 
@@ -163,13 +165,9 @@ function candidateNote(c: TemperatureCandidate): string {
   return notes.join('; ');
 }
 
-/** Reads a whole input file ("-" for standard input) as bytes; a failure is a one-line UsageError. */
-export function readInputFile(path: string, what: string): Uint8Array {
-  try {
-    return readFileSync(path === '-' ? 0 : path);
-  } catch (error) {
-    throw new UsageError(`cannot read ${what} "${path}": ${describeFileError(error)}`);
-  }
+/** Reads a whole input file ("-" for standard input) as bytes, at most `capBytes`; a failure is a one-line UsageError. */
+export function readInputFile(path: string, what: string, capBytes = TABLE_CSV_SIZE_LIMIT_BYTES): Uint8Array {
+  return readFileCapped(path, what, capBytes);
 }
 
 /**

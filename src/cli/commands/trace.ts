@@ -4,6 +4,7 @@
  * src/io/trace-pick), its delay from the heater onset (or t = 0), and the temperature candidates.
  */
 import { CsvInputError } from '../../io/csv-common';
+import { tooSlowForSecondSound } from '../../io/speed-plausibility';
 import { type TraceCsv, TraceCsvParser } from '../../io/trace-csv';
 import { pickTraceArrival, TRACE_SEARCH_RANGE_S, type TracePick } from '../../io/trace-pick';
 import {
@@ -205,6 +206,8 @@ export const traceCommand: Command = {
       if (offset) computeFor(offset, (v) => requireInRange('offset', v, DELAY_LIMITS.offset_s[0], pick.delay_s * (1 - 1e-12), 's'));
       conversion = fromFile('trace file', path, () => {
         requireInRange('picked delay', pick.delay_s, DELAY_LIMITS.delay_s[0], DELAY_LIMITS.delay_s[1], 's', 'the arrival must come after time zero');
+        const slow = tooSlowForSecondSound(distance_m / (pick.delay_s - sds.offset_s));
+        if (slow !== null) throw new CsvInputError('out-of-range', `the picked delay of ${pick.delay_s} s with --distance ${distance_m} m: ${slow}`);
         return convertDelay({ distance_m, delay_s: pick.delay_s, distanceSd_m: sds.distanceSd_m, delaySd_s: pick.delaySd_s, offset_s: sds.offset_s, offsetSd_s: sds.offsetSd_s });
       });
     }

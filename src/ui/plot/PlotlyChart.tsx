@@ -3,6 +3,7 @@ import { DownloadIcon } from '../export/CsvExportButton';
 import { base64Bytes, downloadBlob, fileSlug } from '../export/download';
 import { useResolvedTheme } from '../theme/use-theme';
 import { loadPlotly } from './load-plotly';
+import { plainFigure } from './plain-text';
 import { themeFigure } from './plot-theme';
 import type { PlotConfig, PlotLayout, PlotlyApi, PlotTrace } from './plotly-types';
 
@@ -35,7 +36,7 @@ export interface PlotlyChartProps {
 /**
  * A thin wrapper around Plotly: draws with Plotly.react whenever data, layout or the page's theme
  * change (figures are written in the light palette; plot-theme.ts gives the dark one), purges on
- * unmount, and offers the chart as PNG and SVG. A failure to load or draw is thrown during render,
+ * unmount, and offers the chart as PNG and SVG. Every text it draws is plain text (plain-text.ts). A failure to load or draw is thrown during render,
  * for the nearest error boundary.
  */
 export function PlotlyChart({ chartId, label, data, layout, onDrawn }: PlotlyChartProps) {
@@ -45,7 +46,10 @@ export function PlotlyChart({ chartId, label, data, layout, onDrawn }: PlotlyCha
   const [drawn, setDrawn] = useState(false);
   const [failure, setFailure] = useState<Error | null>(null);
   const theme = useResolvedTheme();
-  const figure = useMemo(() => themeFigure(data, layout, theme), [data, layout, theme]);
+  const figure = useMemo(() => {
+    const plain = plainFigure(data, layout);
+    return themeFigure(plain.data, plain.layout, theme);
+  }, [data, layout, theme]);
   // Read at draw time, so a new callback alone does not redraw the chart.
   const drawnCallback = useRef(onDrawn);
   drawnCallback.current = onDrawn;

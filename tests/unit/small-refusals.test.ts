@@ -80,7 +80,7 @@ describe('plan files', () => {
   it('UTF-16 plan files with a byte-order mark open, in the page as on the command line', async () => {
     const text = planTextFromBytes(utf16(DEMO));
     expect(text.ok && parsePlanFile(text.text).ok).toBe(true);
-    const read = await readPlanFile(new Blob([utf16(DEMO)]));
+    const read = await readPlanFile(new Blob([utf16(DEMO) as Uint8Array<ArrayBuffer>]));
     expect(read.ok).toBe(true);
   });
 

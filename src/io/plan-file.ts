@@ -160,7 +160,11 @@ export interface PlanFile {
 }
 
 /** What {@link parsePlanFile} returns: the plan, or every problem found as `field: message`. */
-export type PlanFileParse = { ok: true; plan: PlanFile } | { ok: false; errors: string[] };
+/**
+ * A plan file read: the plan, or every problem found. `newerVersion` is set when the file is of a
+ * format version newer than this code reads: it is not damaged, and is to be kept untouched.
+ */
+export type PlanFileParse = { ok: true; plan: PlanFile } | { ok: false; errors: string[]; newerVersion?: number };
 
 // ---------------------------------------------------------------------------------------------
 // Messages.
@@ -691,7 +695,7 @@ export function parsePlanFile(text: string): PlanFileParse {
     return { ok: false, errors: [`version: must be a whole number; this Sekundo reads ${readable} (got ${show(version)})`] };
   }
   if (version > CURRENT_PLAN_VERSION) {
-    return { ok: false, errors: [`version: this file is version ${version}, written by a newer Sekundo; this one reads ${readable}`] };
+    return { ok: false, newerVersion: version, errors: [`version: this file is version ${version}, written by a newer Sekundo; this one reads ${readable} (reload the page to get the newer app)`] };
   }
   const migrated = migratePlan(raw, version);
   if (!migrated.ok) return migrated;

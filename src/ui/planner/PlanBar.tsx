@@ -1,5 +1,6 @@
 import { useRef, useState } from 'react';
 import { useSekundoStore } from '../store';
+import { replaceOpenPlan } from '../workspace/keep-plan';
 import { describePlanMessage } from './plan-paths';
 import { loadDemoPlan } from './load-demo';
 import { PlanTextField } from './PlanField';
@@ -21,7 +22,6 @@ const SOURCE_LABEL = {
 export function PlanBar() {
   const source = useSekundoStore((s) => s.plannerSource);
   const plan = useSekundoStore((s) => s.plannerPlan);
-  const load = useSekundoStore((s) => s.loadPlannerPlan);
   const [fileProblem, setFileProblem] = useState<{ name: string; errors: string[] } | null>(null);
   const input = useRef<HTMLInputElement>(null);
 
@@ -29,7 +29,7 @@ export function PlanBar() {
     const read = await readPlanFile(file);
     if (read.ok) {
       setFileProblem(null);
-      load(read.plan, { kind: 'file', note: `Opened “${file.name}”.` });
+      replaceOpenPlan(read.plan, { kind: 'file', note: `Opened “${file.name}”.` }, `opening “${file.name}”`);
     } else {
       setFileProblem({ name: file.name, errors: read.errors });
     }
@@ -37,7 +37,7 @@ export function PlanBar() {
   const reloadDemo = async () => {
     const demo = await loadDemoPlan();
     setFileProblem(null);
-    load(demo.plan, demo.source);
+    replaceOpenPlan(demo.plan, demo.source, 'starting again from the demo');
   };
 
   return (

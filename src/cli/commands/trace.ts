@@ -6,15 +6,19 @@
 import { CsvInputError } from '../../io/csv-common';
 import { tooSlowForSecondSound } from '../../io/speed-plausibility';
 import { type TraceCsv, TraceCsvParser } from '../../io/trace-csv';
+import { describeTraceHeader, type HeaderValue, readTraceHeader, type TraceHeaderValues } from '../../io/trace-header';
 import { pickTraceArrival, TRACE_SEARCH_RANGE_S, type TracePick } from '../../io/trace-pick';
 import {
+  chooseCandidate,
   convertDelay,
   DELAY_LIMITS,
   type DelayConversion,
   PICKER_KINDS,
   PICKER_LIMITS,
   type PickerKind,
+  PhysicsError,
   requireInRange,
+  type TemperatureCandidate,
 } from '../../physics';
 import type { NumberFlag, OperandSpec, QuantityFlag, TextFlag } from '../args';
 import type { Command } from '../command';
@@ -122,6 +126,12 @@ const FRACTION_FLAG: NumberFlag = {
 
 /** The JSON printed by `trace`. */
 export interface TraceJson extends TracePick, ChoiceResult {
+  /** Values read from the file's header under the documented keys (src/io/trace-header.ts), and the refusals. */
+  header: {
+    vapourPressure_Pa: HeaderValue<number> | null;
+    acquired: { key: string; text: string; iso: string } | null;
+    problems: string[];
+  };
   file: string;
   rows: number;
   timeColumn: string;
@@ -212,6 +222,7 @@ export const traceCommand: Command = {
       });
     }
     const candidates = conversion?.candidates ?? [];
+    const header = readTraceHeader(trace.metadata.fields);
     const result: TraceJson = {
       file: path,
       rows: trace.metadata.rows,
@@ -221,13 +232,34 @@ export const traceCommand: Command = {
       speed_m_s: conversion?.speed_m_s ?? null,
       speedSd_m_s: conversion?.speedSd_m_s ?? null,
       candidates,
-      ...(conversion ? chooseFor(candidates, choice) : { chosen: null, choice: 'no --distance: no speed or temperature' }),
+      ...(conversion ? chooseWithHeader(candidates, choice, header) : { chosen: null, choice: 'no --distance: no speed or temperature' }),
+      header: {
+        vapourPressure_Pa: header.vapourPressure_Pa,
+        acquired: header.acquired_ms ? { key: header.acquired_ms.key, text: header.acquired_ms.text, iso: new Date(header.acquired_ms.value).toISOString() } : null,
+        problems: header.problems,
+      },
     };
     if (args.flag(JSON_FLAG.name)) writeJson(io, result);
     else io.stdout(`${renderTrace(result).join('\n')}\n`);
     return EXIT_OK;
   },
 };
+
+/**
+ * --pressure or --near when given; else the bath vapour pressure in the file's header (the
+ * documented key, as the page reads it); else a single candidate or none.
+ */
+function chooseWithHeader(candidates: readonly TemperatureCandidate[], given: ReturnType<typeof readChoiceRule>, header: TraceHeaderValues): ChoiceResult {
+  const fromHeader = header.vapourPressure_Pa;
+  if (given || !fromHeader || candidates.length === 0) return chooseFor(candidates, given);
+  try {
+    const c = chooseCandidate(candidates, { kind: 'pressure', pressure_Pa: fromHeader.value });
+    return { chosen: c.index, choice: `by the vapour pressure in the file's header ("${fromHeader.key}: ${fromHeader.text}"): ${c.reason}` };
+  } catch (error) {
+    if (!(error instanceof PhysicsError)) throw error;
+    return { chosen: null, choice: `the vapour pressure in the file's header ("${fromHeader.key}: ${fromHeader.text}") cannot choose: ${error.message}` };
+  }
+}
 
 function optional<K extends string, V>(key: K, value: V | undefined): { [P in K]?: V } {
   return (value === undefined ? {} : { [key]: value }) as { [P in K]?: V };
@@ -269,6 +301,9 @@ export function renderTrace(r: TraceJson): string[] {
   ];
   if (r.speed_m_s !== null && r.speedSd_m_s !== null) rows.push(['Speed', `${formatSignificant(r.speed_m_s)} ± ${formatSignificant(r.speedSd_m_s, 2)} m/s`]);
   const lines = alignTable(rows, ['left', 'left']);
+  const used = describeTraceHeader({ vapourPressure_Pa: r.header.vapourPressure_Pa, acquired_ms: null, problems: [] });
+  if (used || r.header.acquired) lines.push(`Header    ${[used, r.header.acquired ? `recorded ${r.header.acquired.iso} (from "${r.header.acquired.key}: ${r.header.acquired.text}")` : null].filter(Boolean).join('; ')}`);
+  for (const problem of r.header.problems) lines.push(`Header    ${problem}`);
   if (r.snr < LOW_SNR) lines.push('', `Warning: SNR ${formatSignificant(r.snr, 3)} is low: the pick may be noise, not the pulse (check the channel and --from/--to).`);
   if (r.distance_m === null) return [...lines, '', 'Give --distance to convert the delay into speed and temperatures.'];
   const chosen = r.chosen === null ? null : r.candidates[r.chosen];

@@ -61,7 +61,7 @@ export const MAX_REFLECTORS = 16;
  */
 export const FLUX_RANGE_W_M2 = [1e-6, 1e9] as const;
 /** Relative amplitudes accepted in a custom pulse (they are scaled so the largest is 1). */
-const CUSTOM_AMPLITUDE_RANGE = [0, 1e9] as const;
+export const CUSTOM_AMPLITUDE_RANGE = [0, 1e9] as const;
 /** Coordinates of reflecting planes, m: the kernel's image-source range. */
 const PLANE_POSITION_RANGE_M = [-100, 100] as const;
 /** Sensor coordinates, m: the kernel's path-length range either side of the heater. */

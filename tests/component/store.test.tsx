@@ -67,6 +67,7 @@ describe('Sekundo store', () => {
       'plannerDrafts',
       'plannerErrors',
       'plannerMapSensorKey',
+      'plannerOpenedPlan',
       'plannerPlan',
       'plannerReflectorKeys',
       'plannerSensorKeys',

@@ -173,7 +173,9 @@ function useResizeWithBox(surface: RefObject<HTMLDivElement | null>, plotly: Plo
     const element = surface.current;
     if (!plotly || !element || typeof ResizeObserver === 'undefined') return;
     const observer = new ResizeObserver(() => {
-      if (element.classList.contains('js-plotly-plot')) void plotly.Plots.resize(element);
+      // A chart leaving the page (or hidden) is not resized; Plotly refuses such a div.
+      if (!element.classList.contains('js-plotly-plot') || !element.isConnected || element.offsetParent === null) return;
+      Promise.resolve(plotly.Plots.resize(element)).catch(() => undefined);
     });
     observer.observe(element);
     return () => observer.disconnect();

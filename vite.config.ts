@@ -1,5 +1,4 @@
 import react from '@vitejs/plugin-react';
-import { fileURLToPath } from 'node:url';
 import { defineConfig, type Plugin } from 'vite';
 import { offlineCache } from './app/offline/service-worker-plugin.ts';
 
@@ -36,7 +35,7 @@ export default defineConfig({
   root: 'app',
   publicDir: '../public',
   base: './',
-  plugins: [react(), contentSecurityPolicy(), offlineCache(fileURLToPath(new URL('./public', import.meta.url)))],
+  plugins: [react(), contentSecurityPolicy(), offlineCache()],
   build: {
     outDir: '../dist',
     emptyOutDir: true,

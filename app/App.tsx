@@ -2,6 +2,7 @@ import { type KeyboardEvent, useEffect, useRef } from 'react';
 import { AppHeader } from '../src/ui/layout/AppHeader';
 import { PanelErrorBoundary } from '../src/ui/layout/PanelErrorBoundary';
 import { PreferencesNotice } from '../src/ui/layout/PreferencesNotice';
+import { UpdateNotice } from './offline/UpdateNotice';
 import { useSekundoStore } from '../src/ui/store';
 import { useDocumentTheme } from '../src/ui/theme/use-theme';
 import { ViewGuide } from '../src/ui/guide/ViewGuide';
@@ -27,6 +28,7 @@ export function App() {
         <AppHeader />
         <ViewTabs />
         <PreferencesNotice />
+        <UpdateNotice />
         <WorkspaceNotices />
       </div>
       <main id="view" className="page" role="tabpanel" aria-labelledby={`tab-${active.id}`} tabIndex={-1} inert={blocked}>

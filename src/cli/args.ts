@@ -161,7 +161,8 @@ export function parseFlags(
   const seen = new Set<string>();
   for (let i = 0; i < tokens.length; i++) {
     const token = tokens[i] ?? '';
-    if (!token.startsWith('-')) {
+    // "-" alone is an operand: standard input.
+    if (!token.startsWith('-') || token === '-') {
       const operand = operandSpecs[operands.size];
       if (!operand) throw strayArgument(command, token, specs);
       operands.set(operand.name, token);

@@ -1,6 +1,11 @@
 /**
- * Where the command line writes. Injected so tests can run main() in-process and read the output.
+ * Where the command line writes, and how it reads files. Writers are injected so tests can run
+ * main() in-process and read the output. Files are read with a byte cap: a device or pipe that
+ * never ends (/dev/zero), or a file larger than it claims, stops at the cap with a one-line error.
  */
+import { closeSync, openSync, readSync } from 'node:fs';
+import { formatFileSize } from '../io/byte-size';
+import { UsageError } from './errors';
 
 /** Writers for standard output and standard error; each call receives complete text. */
 export interface CliIo {
@@ -17,3 +22,74 @@ export const processIo: CliIo = {
     process.stderr.write(text);
   },
 };
+
+/** How a path reads in a message: "-" is standard input. */
+export function shownPath(path: string): string {
+  return path === '-' ? 'standard input' : path;
+}
+
+function errorCode(error: unknown): string {
+  return typeof error === 'object' && error !== null && 'code' in error ? String(error.code) : '';
+}
+
+/** A file error in words ("no such file"), without the raw system text when a plain one exists. */
+export function describeFileError(error: unknown): string {
+  const reasons: Readonly<Record<string, string>> = {
+    ENOENT: 'no such file',
+    EISDIR: 'it is a directory',
+    EACCES: 'permission denied',
+    EPERM: 'permission denied',
+  };
+  return reasons[errorCode(error)] ?? (error instanceof Error ? error.message : String(error));
+}
+
+const sleeper = new Int32Array(new SharedArrayBuffer(4));
+
+/**
+ * Reads a whole file ("-" for standard input) as bytes, stopping as soon as more than `capBytes`
+ * arrive, whatever size the file claims: then a one-line UsageError naming the file and the cap.
+ * @param what the file's role in messages ("plan file", "sensor file").
+ */
+export function readFileCapped(path: string, what: string, capBytes: number): Uint8Array {
+  let fd: number;
+  const own = path !== '-';
+  try {
+    fd = own ? openSync(path, 'r') : 0;
+  } catch (error) {
+    throw new UsageError(`cannot read ${what} "${shownPath(path)}": ${describeFileError(error)}`);
+  }
+  const chunks: Uint8Array[] = [];
+  let total = 0;
+  try {
+    const buffer = new Uint8Array(Math.min(1024 * 1024, capBytes + 1));
+    for (;;) {
+      let n: number;
+      try {
+        n = readSync(fd, buffer, 0, Math.min(buffer.length, capBytes + 1 - total), null);
+      } catch (error) {
+        // A non-blocking standard input has nothing yet: wait a moment and read again.
+        if (errorCode(error) === 'EAGAIN') {
+          Atomics.wait(sleeper, 0, 0, 5);
+          continue;
+        }
+        if (errorCode(error) === 'EOF') break;
+        throw new UsageError(`cannot read ${what} "${shownPath(path)}": ${describeFileError(error)}`);
+      }
+      if (n === 0) break;
+      chunks.push(buffer.slice(0, n));
+      total += n;
+      if (total > capBytes) {
+        throw new UsageError(`${what} "${shownPath(path)}" is larger than the ${formatFileSize(capBytes)} a ${what} may have (stopped reading there)`);
+      }
+    }
+  } finally {
+    if (own) closeSync(fd);
+  }
+  const out = new Uint8Array(total);
+  let at = 0;
+  for (const c of chunks) {
+    out.set(c, at);
+    at += c.length;
+  }
+  return out;
+}

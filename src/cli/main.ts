@@ -1,7 +1,8 @@
 /**
  * Sekundo's command line: `sekundo <command> [flags]`. A thin layer over src/physics.
  * Contract: results on stdout; bad input is one line on stderr and exit status 2; an unexpected
- * internal error is one line on stderr and exit status 1. Never a stack trace.
+ * internal error is one line on stderr and exit status 1. Never a stack trace. The line is printable
+ * and short (src/cli/errors.ts); with --json it is one JSON object {"error", "field"} instead.
  */
 import { HELP_FLAGS, parseFlags } from './args';
 import type { Command } from './command';
@@ -13,7 +14,7 @@ import { planCommand } from './commands/plan';
 import { propsCommand } from './commands/props';
 import { traceCommand } from './commands/trace';
 import { vapourCommand } from './commands/vapour';
-import { EXIT_INTERNAL, EXIT_OK, EXIT_USAGE, UsageError } from './errors';
+import { EXIT_INTERNAL, EXIT_OK, EXIT_USAGE, fieldOf, printableLine, UsageError } from './errors';
 import { renderCommandHelp, renderGeneralHelp } from './help';
 import { type CliIo, processIo } from './io';
 import { packageVersion } from './version';
@@ -29,14 +30,17 @@ const VERSION_FLAG = '--version';
  * status: 0 success, 1 internal error, 2 bad input. Writes only through `io`; never throws.
  */
 export async function main(argv: string[], io: CliIo = processIo): Promise<number> {
+  const json = argv.includes('--json');
   try {
     return dispatch(argv, io);
   } catch (error) {
     if (error instanceof UsageError) {
-      io.stderr(`${PROGRAM}: ${oneLine(error.message)}\n`);
+      const message = printableLine(error.message);
+      io.stderr(json ? `${JSON.stringify({ error: message, field: fieldOf(error) })}\n` : `${PROGRAM}: ${message}\n`);
       return EXIT_USAGE;
     }
-    io.stderr(`${PROGRAM}: internal error: ${oneLine(describeError(error))}\n`);
+    const message = `internal error: ${printableLine(describeError(error))}`;
+    io.stderr(json ? `${JSON.stringify({ error: message, field: null })}\n` : `${PROGRAM}: ${message}\n`);
     return EXIT_INTERNAL;
   }
 }
@@ -95,9 +99,4 @@ function commandNames(): string {
 
 function describeError(error: unknown): string {
   return error instanceof Error ? `${error.name}: ${error.message}` : String(error);
-}
-
-/** Collapses any line breaks so the stderr contract (exactly one line) holds. */
-function oneLine(text: string): string {
-  return text.replace(/\s*[\r\n]+\s*/g, ' ').trim();
 }

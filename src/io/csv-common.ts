@@ -20,6 +20,7 @@ export type CsvProblem =
   | 'line-too-long'
   | 'missing-column'
   | 'out-of-range'
+  | 'sample-numbers'
   | 'cancelled';
 
 /**
@@ -191,8 +192,9 @@ export type CsvCell = string | number | boolean | null | undefined;
  * Writes rows as CSV text (RFC 4180): comma-delimited, a cell quoted only when it holds a comma,
  * a double quote (doubled inside), a line break or leading/trailing spaces. Numbers are written
  * with JavaScript's shortest round-trip form, so reading them back gives the same double; null,
- * undefined and non-finite numbers are empty cells. Lines end with "\n" unless `newline` says
- * "\r\n". Pure text: nothing here is HTML.
+ * undefined and non-finite numbers are empty cells. Text that a spreadsheet would run as a formula
+ * is neutralised ({@link neutraliseFormula}). Lines end with "\n" unless `newline` says "\r\n".
+ * Pure text: nothing here is HTML.
  */
 export function writeCsv(header: readonly string[], rows: readonly (readonly CsvCell[])[], newline: '\n' | '\r\n' = '\n'): string {
   const lines: string[] = [header.map(csvCell).join(',')];
@@ -201,12 +203,26 @@ export function writeCsv(header: readonly string[], rows: readonly (readonly Csv
 }
 
 const NEEDS_QUOTES = /[",\r\n]|^\s|\s$/;
+/** First characters a spreadsheet reads as the start of a formula (OWASP, "CSV Injection"). */
+const FORMULA_START = /^[=+\-@\t\r]/;
+const PLAIN_NUMBER_TEXT = /^[+-]?(?:\d+(?:\.\d*)?|\.\d+)(?:[eE][+-]?\d+)?$/;
 
-/** One cell as CSV text (see {@link writeCsv}). */
+/**
+ * Text that a spreadsheet would run as a formula ("=1+1", "=HYPERLINK(…)", "+…", "-…", "@…", or
+ * a leading tab or carriage return) gets a leading apostrophe, as the OWASP guidance on CSV
+ * injection recommends, so it is shown as the text it is. Numbers — JavaScript numbers and text
+ * that is a plain number such as "-1.5" — are left as they are. Every CSV and tab-separated export
+ * of the page and the command line goes through here (via {@link csvCell}).
+ */
+export function neutraliseFormula(text: string): string {
+  return FORMULA_START.test(text) && !PLAIN_NUMBER_TEXT.test(text) ? `'${text}` : text;
+}
+
+/** One cell as CSV text (see {@link writeCsv}); text that could run as a formula is neutralised. */
 export function csvCell(cell: CsvCell): string {
   if (cell === null || cell === undefined) return '';
   if (typeof cell === 'number') return Number.isFinite(cell) ? String(cell) : '';
-  const text = String(cell);
+  const text = neutraliseFormula(String(cell));
   return NEEDS_QUOTES.test(text) ? `"${text.replace(/"/g, '""')}"` : text;
 }
 

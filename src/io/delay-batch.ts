@@ -41,6 +41,7 @@
  *   With {@link ResultUnits} (the page's display units) the columns of a kind are in that unit
  *   and named for it (T_mK, distance_mm, pressure_mbar, and delay_us in place of the echoed delay).
  */
+import { tooSlowForSecondSound } from './speed-plausibility';
 import {
   type Branch,
   type ChoiceRule,
@@ -268,6 +269,8 @@ export function convertDelayBatch(batch: DelayBatch, settings: DelayBatchSetting
     reading.delay_s = row.delay_s;
     let candidates: TemperatureCandidate[];
     let choice: ReturnType<typeof choose>;
+    const slow = tooSlowForSecondSound(distance_m / (row.delay_s - reading.offset_s));
+    if (slow !== null) throw new CsvInputError('out-of-range', slow, row.line);
     try {
       const conversion = convertDelay(reading);
       candidates = conversion.candidates;

@@ -63,6 +63,11 @@ function list<T extends z.ZodType>(item: T, min: number, max: number, what: stri
   return z.array(item, { error: message }).min(min, { error: message }).max(max, { error: message });
 }
 
+/** A text as a reader sees it: compatibility forms folded (NFKC), invisible format characters dropped. */
+export function visibleForm(text: string): string {
+  return text.normalize('NFKC').replace(/\p{Cf}/gu, '');
+}
+
 export function isRecord(x: unknown): x is Record<string, unknown> {
   return typeof x === 'object' && x !== null && !Array.isArray(x);
 }
@@ -128,8 +133,14 @@ const customPointsSchema = list(
   }
 }, ON_ANY_LIST);
 
-const shapeMessage = (issue: { input?: unknown }): string =>
-  issue.input === undefined ? 'required' : `must be "rectangle", "half-sine" or {"custom": [[time_s, amplitude], …]} (got ${show(issue.input)})`;
+const shapeMessage = (issue: { input?: unknown }): string => {
+  if (issue.input === undefined) return 'required';
+  const custom = isRecord(issue.input) ? issue.input.custom : undefined;
+  if (Array.isArray(custom) && (custom.length < 2 || custom.length > CUSTOM_PULSE_MAX_POINTS)) {
+    return `custom: must be a list of 2–${CUSTOM_PULSE_MAX_POINTS} points [time_s, amplitude] (got ${show(custom)})`;
+  }
+  return `must be "rectangle", "half-sine" or {"custom": [[time_s, amplitude], …]} (got ${show(issue.input)})`;
+};
 
 const shapeSchema = z.union(
   [z.enum(['rectangle', 'half-sine'], { error: shapeMessage }), z.strictObject({ custom: customPointsSchema }, { error: objectMessage })],
@@ -251,9 +262,12 @@ const sensorsSchema = list(sensorSchema, PLAN_LIMITS.sensorCount[0], PLAN_LIMITS
   sensors.forEach((sensor, i) => {
     const id = isRecord(sensor) ? sensor.id : undefined;
     if (typeof id !== 'string') return;
-    const first = seen.get(id);
-    if (first === undefined) seen.set(id, i);
-    else ctx.addIssue({ code: 'custom', path: [i, 'id'], message: `"${id}" is already the id of sensors[${first}]; ids must be unique` });
+    // Ids that differ only by invisible characters or compatibility forms look the same to a reader.
+    const key = visibleForm(id);
+    const first = seen.get(key);
+    if (first === undefined) seen.set(key, i);
+    else if (key === id && (sensors[first] as { id?: unknown } | undefined)?.id === id) ctx.addIssue({ code: 'custom', path: [i, 'id'], message: `"${id}" is already the id of sensors[${first}]; ids must be unique` });
+    else ctx.addIssue({ code: 'custom', path: [i, 'id'], message: `${JSON.stringify(id)} looks the same as the id of sensors[${first}] (they differ only by invisible or look-alike characters); ids must differ visibly` });
   });
 }, ON_ANY_LIST);
 

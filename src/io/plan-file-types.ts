@@ -155,8 +155,9 @@ export interface PlanFile {
   targets: { snr: number; temperatureSd_K: number; temperatureKind: 'absolute' | 'change' };
 }
 
-/** What {@link parsePlanFile} returns: the plan, or every problem found as `field: message`. */
-export type PlanFileParse = { ok: true; plan: PlanFile; migrated: PlanMigrationNote[] } | { ok: false; errors: string[] };
+/** What {@link parsePlanFile} returns: the plan (with notes of any migration), or every problem found as `field: message`. */
+/** `newerVersion` is set when the file is of a format version newer than this code reads: it is not damaged, and is to be kept untouched. */
+export type PlanFileParse = { ok: true; plan: PlanFile; migrated: PlanMigrationNote[] } | { ok: false; errors: string[]; newerVersion?: number };
 
 /** What reading an older file changed: the version it came from and one line per change. */
 export interface PlanMigrationNote {

@@ -31,7 +31,7 @@ import { migratePlan } from './plan-migrations';
 import { show } from './plan-range-text';
 
 export * from './plan-file-types';
-export { PLAN_FILE_SCHEMA, planHeaterArea } from './plan-file-schema';
+export { PLAN_FILE_SCHEMA, planHeaterArea, visibleForm } from './plan-file-schema';
 export { migratePlan, PLAN_MIGRATIONS, type PlanMigration, planV1toV2 } from './plan-migrations';
 export { formatPlanRange } from './plan-range-text';
 
@@ -182,7 +182,7 @@ export function parsePlanFile(text: string): PlanFileParse {
     return { ok: false, errors: [`version: must be a whole number; this Sekundo reads ${readable} (got ${show(version)})`] };
   }
   if (version > CURRENT_PLAN_VERSION) {
-    return { ok: false, errors: [`version: this file is version ${version}, written by a newer Sekundo; this one reads ${readable}`] };
+    return { ok: false, newerVersion: version, errors: [`version: this file is version ${version}, written by a newer Sekundo; this one reads ${readable} (reload the page to get the newer app)`] };
   }
   const migrated = migratePlan(raw, version);
   if (!migrated.ok) return migrated;

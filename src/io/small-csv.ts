@@ -9,6 +9,7 @@
  *    comma. Cells may be quoted (RFC 4180). Every row must have as many cells as the header.
  *  - Decimal comma as for traces: only in semicolon- and tab-delimited files.
  */
+import { overLimitText } from './byte-size';
 import Papa from 'papaparse';
 import { baseOfColumn, type ColumnDimension, CsvInputError, type Delimiter, decodeText, delimiterName, readNumberCell, refuseBinary, toSi, unitOfColumn } from './csv-common';
 
@@ -32,7 +33,7 @@ export interface CsvTable {
 export function readCsvTable(input: string | Uint8Array, what = 'table'): CsvTable {
   const size = typeof input === 'string' ? input.length : input.byteLength;
   if (size > TABLE_CSV_SIZE_LIMIT_BYTES) {
-    throw new CsvInputError('too-large', `the ${what} file is ${Math.round(size / 1048576)} MiB, over the ${TABLE_CSV_SIZE_LIMIT_BYTES / 1048576} MiB limit`);
+    throw new CsvInputError('too-large', `the ${what} file is ${overLimitText(size, TABLE_CSV_SIZE_LIMIT_BYTES)}`);
   }
   let text = typeof input === 'string' ? input : decodeText(input).text;
   if (text.charCodeAt(0) === 0xfeff) text = text.slice(1);

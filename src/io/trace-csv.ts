@@ -33,6 +33,7 @@
  * drive a {@link TraceCsvParser} by hand with `feed(chunk)` per chunk of `file.stream()`; post the
  * result back with its Float64Array buffers in the transfer list, so nothing is copied.
  */
+import { overLimitText } from './byte-size';
 import { heaterOnset, type Trace } from '../physics';
 import {
   baseOfColumn,
@@ -48,6 +49,11 @@ import {
 
 /** Largest trace file read, bytes (512 MiB). */
 export const TRACE_CSV_SIZE_LIMIT_BYTES = 512 * 1024 * 1024;
+/**
+ * Largest size of a value read, in any column: noise and baseline sums square the samples, and
+ * 1e100² summed over 10⁸ rows still fits a double (1e308 did not: its sd came out NaN).
+ */
+export const TRACE_MAX_MAGNITUDE = 1e100;
 /** Most lines of header before the data must start. */
 export const TRACE_CSV_MAX_HEADER_LINES = 1000;
 /** Longest line, characters: a longer one means the file is not a line-per-row CSV. */
@@ -89,6 +95,11 @@ export interface TraceCsvMetadata {
   /** Blank and "#" lines skipped inside the data. */
   skippedLines: number;
   bytes: number;
+  /**
+   * The time column has no unit and counts samples (0, 1, 2, … in steps of exactly 1): sample
+   * numbers, not seconds. A pick on such a file is refused (src/io/trace-pick.ts).
+   */
+  timeCountsSamples: boolean;
 }
 
 /** A parsed trace file. */
@@ -382,6 +393,8 @@ export class TraceCsvParser {
   }
 
   private lineOf(b: Uint8Array, start: number, stop: number): void {
+    // A whole line inside one chunk is checked here; a line split across chunks, in feedBytes.
+    if (stop - start > TRACE_CSV_MAX_LINE_CHARS) this.checkLineLength(stop - start);
     const end = stop > start && b[stop - 1] === CARRIAGE_RETURN ? stop - 1 : stop;
     this.lineNo++;
     if (this.state === 'data') this.dataLine(b, start, end, this.lineNo);
@@ -538,6 +551,7 @@ export class TraceCsvParser {
       }
       let v = readDecimalBytes(b, p, cellEnd, comma);
       if (Number.isNaN(v)) v = this.slowCell(b, p, cellEnd, c, start, end, line);
+      if (v > TRACE_MAX_MAGNITUDE || v < -TRACE_MAX_MAGNITUDE) throw this.tooLargeCell(v, c, line);
       (this.columns[c] as Float64Array)[row] = v;
       p = cellEnd + 1;
     }
@@ -549,6 +563,11 @@ export class TraceCsvParser {
       this.usedDecimalComma = true;
       sawDecimalComma = false;
     }
+  }
+
+  private tooLargeCell(v: number, column: number, line: number): CsvInputError {
+    const name = this.names[column] ?? `col${column + 1}`;
+    return new CsvInputError('out-of-range', `column "${name}": ${v} is too large to compute with (at most ${TRACE_MAX_MAGNITUDE} in size); rescale the column`, line);
   }
 
   private slowCell(b: Uint8Array, from: number, to: number, column: number, lineStart: number, lineEnd: number, line: number): number {
@@ -643,11 +662,25 @@ export class TraceCsvParser {
         rows: n,
         skippedLines: this.skipped,
         bytes: this.bytes,
+        timeCountsSamples: this.timeUnit === undefined && countsSamples(time),
       },
     };
     if (this.timeUnit !== undefined) trace.timeUnit = this.timeUnit;
     return trace;
   }
+}
+
+/**
+ * Whether a time column with no unit counts samples: at least three rows, every value a whole
+ * number and every step exactly 1 (sample numbers, never seconds of a second-sound trace).
+ */
+function countsSamples(time: Float64Array): boolean {
+  if (time.length < 3) return false;
+  for (let i = 0; i < time.length; i++) {
+    const t = time[i] as number;
+    if (!Number.isInteger(t) || (i > 0 && t - (time[i - 1] as number) !== 1)) return false;
+  }
+  return true;
 }
 
 function isBlank(b: Uint8Array, start: number, end: number): boolean {
@@ -739,12 +772,7 @@ function readDecimalBytes(b: Uint8Array, start: number, end: number, comma: bool
 }
 
 function tooLarge(bytes: number, limit: number): CsvInputError {
-  return new CsvInputError('too-large', `the file is ${formatMiB(bytes)}, over the ${formatMiB(limit)} limit for trace CSV files`);
-}
-
-function formatMiB(bytes: number): string {
-  const mib = bytes / (1024 * 1024);
-  return mib >= 10 ? `${Math.round(mib)} MiB` : `${Number(mib.toPrecision(3))} MiB`;
+  return new CsvInputError('too-large', `the file is ${overLimitText(bytes, limit)} for trace CSV files`);
 }
 
 function clip(text: string): string {

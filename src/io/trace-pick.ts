@@ -137,6 +137,14 @@ export function pickTraceArrival(trace: TraceCsv, options: TracePickOptions): Tr
     });
     delay_s = pick.arrival_s;
   }
+  if (trace.metadata.timeCountsSamples) {
+    const t = trace.time_s;
+    throw new CsvInputError(
+      'sample-numbers',
+      `the time column "${trace.metadata.timeColumn}" counts whole numbers (${t[0]}, ${t[1]}, ${t[2]}, …): these look like sample numbers, not seconds; ` +
+        'write the time in the file, or name its unit in the column name, e.g. "Time (us)"',
+    );
+  }
   const timeZero_s = aligned ? aligned.onset_s : 0;
   const timeZeroSd_s = aligned ? aligned.onsetSd_s : 0;
   // Peak to peak: from the drive's centre, not its onset.

@@ -1,11 +1,12 @@
 /**
- * Keeping plans in the browser: an autosave slot for the plan being edited, named plans (list,
- * save, duplicate, rename, delete with undo) and small preferences. Storage is a plain key–value
+ * Keeping plans in the browser: an autosave slot per tab for the plan being edited, named plans
+ * (list, save, duplicate, rename, delete with undo) and small preferences. Entries written by a
+ * newer Sekundo (a newer plan format) are named as such and never overwritten. Storage is a plain key–value
  * store (localStorage in the page, an in-memory map in tests). Nothing here throws: storage that
  * is full, disabled or holds a corrupted entry gives a message, and every other plan stays.
  * Entries are our own JSON records, validated on the way in with the plan file's schema.
  */
-import { type PlanFile, parsePlanFile, serializePlanFile } from './plan-file';
+import { CURRENT_PLAN_VERSION, type PlanFile, parsePlanFile, serializePlanFile } from './plan-file';
 
 /** The few methods of Web Storage this module uses. */
 export interface KeyValueStore {
@@ -86,30 +87,166 @@ function unavailable(what: string): { ok: false; message: string } {
   return { ok: false, message: `This browser does not let the page keep data (storage is disabled or blocked): ${what} lives only in this tab. Export the plan to a file to keep it.` };
 }
 
-/** Saves the plan being edited into the autosave slot. */
-export function saveAutosave(store: KeyValueStore | null, plan: PlanFile): StoreResult {
+/**
+ * Autosave slots. Each tab writes its own slot, `sekundo.autosave.<slot>` (a record with the time
+ * of the save), so two tabs never overwrite each other's work; a new tab starts from the newest
+ * slot. The slot without a suffix (`sekundo.autosave`, the plan text alone) is where earlier
+ * versions kept the one autosave: it is still read, and written only when no slot is given.
+ */
+const AUTOSAVE_SLOT_PREFIX = `${AUTOSAVE_KEY}.`;
+const AUTOSAVE_FORMAT = 'sekundo-autosave';
+/** Autosave slots kept: the newest ones (by time of save); older slots go when a tab saves. */
+export const MAX_AUTOSAVE_SLOTS = 12;
+const SLOT_ID = /^[a-z0-9-]{1,40}$/;
+
+/** A refusal that is not damage: the entry was written by a newer Sekundo and is kept untouched. */
+export type ReadFailure = { ok: false; message: string; newerVersion?: number };
+
+function newerMessage(what: string, version: number): string {
+  return `${what} was saved by a newer Sekundo (plan format version ${version}; this page reads version ${CURRENT_PLAN_VERSION}). It is kept untouched: reload the page to get the newer app.`;
+}
+
+function autosaveKey(slot: string | undefined): string {
+  if (slot === undefined) return AUTOSAVE_KEY;
+  if (!SLOT_ID.test(slot)) throw new RangeError(`autosave slot "${slot}" is not a slot id`);
+  return AUTOSAVE_SLOT_PREFIX + slot;
+}
+
+/** A new slot id for a tab: time and randomness, lower-case letters, digits and '-'. */
+export function newAutosaveSlot(now = new Date()): string {
+  return newId(now);
+}
+
+/**
+ * Saves the plan being edited into a tab's autosave slot (`slot`), or into the one slot of earlier
+ * versions when `slot` is not given. Then drops the oldest slots past {@link MAX_AUTOSAVE_SLOTS}.
+ */
+export function saveAutosave(store: KeyValueStore | null, plan: PlanFile, slot?: string, now = new Date()): StoreResult {
   if (!store) return unavailable('the plan');
   try {
-    store.setItem(AUTOSAVE_KEY, serializePlanFile(plan));
-    return { ok: true, value: undefined };
+    if (slot === undefined) store.setItem(AUTOSAVE_KEY, serializePlanFile(plan));
+    else store.setItem(autosaveKey(slot), JSON.stringify({ format: AUTOSAVE_FORMAT, savedAt: now.toISOString(), plan: serializePlanFile(plan) }));
   } catch (error) {
     return writeFailure(error, 'the plan');
   }
+  if (slot !== undefined) pruneAutosaves(store, slot);
+  return { ok: true, value: undefined };
 }
 
-/** The autosaved plan; null value when there is none; a message when it is unreadable. */
-export function loadAutosave(store: KeyValueStore | null): StoreResult<PlanFile | null> {
-  if (!store) return { ok: true, value: null };
+interface SlotEntry {
+  key: string;
+  slot: string | null;
+  savedAt: string;
+  text: string;
+}
+
+function readSlot(store: KeyValueStore, key: string): SlotEntry | null {
   let text: string | null;
   try {
-    text = store.getItem(AUTOSAVE_KEY);
+    text = store.getItem(key);
+  } catch {
+    return null;
+  }
+  if (text === null) return null;
+  if (key === AUTOSAVE_KEY) return { key, slot: null, savedAt: '', text };
+  try {
+    const raw: unknown = JSON.parse(text);
+    if (raw && typeof raw === 'object' && !Array.isArray(raw)) {
+      const r = raw as Record<string, unknown>;
+      if (r.format === AUTOSAVE_FORMAT && typeof r.savedAt === 'string' && typeof r.plan === 'string') {
+        return { key, slot: key.slice(AUTOSAVE_SLOT_PREFIX.length), savedAt: r.savedAt, text: r.plan };
+      }
+    }
+  } catch {
+    // A damaged slot reads as damaged text below.
+  }
+  return { key, slot: key.slice(AUTOSAVE_SLOT_PREFIX.length), savedAt: '', text };
+}
+
+function autosaveKeys(store: KeyValueStore): string[] {
+  const keys: string[] = [];
+  try {
+    for (let i = 0; i < store.length; i++) {
+      const k = store.key(i);
+      if (k === AUTOSAVE_KEY || k?.startsWith(AUTOSAVE_SLOT_PREFIX)) keys.push(k);
+    }
+  } catch {
+    return [];
+  }
+  return keys;
+}
+
+function pruneAutosaves(store: KeyValueStore, keep: string): void {
+  const slots = autosaveKeys(store)
+    .filter((k) => k !== AUTOSAVE_KEY)
+    .map((k) => readSlot(store, k))
+    .filter((e): e is SlotEntry => e !== null)
+    .sort((a, b) => b.savedAt.localeCompare(a.savedAt));
+  for (const entry of slots.slice(MAX_AUTOSAVE_SLOTS)) {
+    // Never the caller's own slot, and never a slot a newer Sekundo wrote.
+    if (entry.slot === keep || isNewerText(entry.text)) continue;
+    try {
+      store.removeItem(entry.key);
+    } catch {
+      return;
+    }
+  }
+}
+
+function isNewerText(text: string): boolean {
+  const parsed = parsePlanFile(text);
+  return !parsed.ok && parsed.newerVersion !== undefined;
+}
+
+function parseSlot(entry: SlotEntry): StoreResult<PlanFile> & ({ ok: true } | ReadFailure) {
+  const parsed = parsePlanFile(entry.text);
+  if (parsed.ok) return { ok: true, value: parsed.plan };
+  if (parsed.newerVersion !== undefined) return { ok: false, newerVersion: parsed.newerVersion, message: newerMessage('The autosaved plan', parsed.newerVersion) };
+  return { ok: false, message: `The autosaved plan is damaged and was not opened (${parsed.errors[0] ?? 'unreadable'}).` };
+}
+
+/**
+ * The plan autosaved in `slot` (or in the one slot of earlier versions); null value when there is
+ * none; a message when it is unreadable, with `newerVersion` when a newer Sekundo wrote it.
+ */
+export function loadAutosave(store: KeyValueStore | null, slot?: string): StoreResult<PlanFile | null> | ReadFailure {
+  if (!store) return { ok: true, value: null };
+  let key: string;
+  try {
+    key = autosaveKey(slot);
+    store.getItem(key);
   } catch (error) {
     return { ok: false, message: `The autosaved plan could not be read (${error instanceof Error ? error.message : String(error)}).` };
   }
-  if (text === null) return { ok: true, value: null };
-  const parsed = parsePlanFile(text);
-  if (!parsed.ok) return { ok: false, message: `The autosaved plan is damaged and was not opened (${parsed.errors[0] ?? 'unreadable'}).` };
-  return { ok: true, value: parsed.plan };
+  const entry = readSlot(store, key);
+  if (entry === null) return { ok: true, value: null };
+  return parseSlot(entry);
+}
+
+/** The newest autosave of any tab, with its slot (null: the slot of earlier versions). */
+export interface LatestAutosave {
+  plan: PlanFile;
+  slot: string | null;
+  savedAt: string;
+}
+
+/**
+ * The newest readable autosave among every tab's slots (what a new tab opens), and a message for
+ * each slot that could not be opened; a slot from a newer Sekundo is named as such and left alone.
+ */
+export function latestAutosave(store: KeyValueStore | null): { latest: LatestAutosave | null; problems: ReadFailure[] } {
+  if (!store) return { latest: null, problems: [] };
+  const entries = autosaveKeys(store)
+    .map((k) => readSlot(store, k))
+    .filter((e): e is SlotEntry => e !== null)
+    .sort((a, b) => b.savedAt.localeCompare(a.savedAt));
+  const problems: ReadFailure[] = [];
+  for (const entry of entries) {
+    const read = parseSlot(entry);
+    if (read.ok) return { latest: { plan: read.value, slot: entry.slot, savedAt: entry.savedAt }, problems };
+    problems.push(read);
+  }
+  return { latest: null, problems };
 }
 
 function readRecord(store: KeyValueStore, key: string): StoreResult<SavedPlan> {
@@ -132,8 +269,26 @@ function readRecord(store: KeyValueStore, key: string): StoreResult<SavedPlan> {
     return { ok: false, message: `A saved plan (${key.slice(PLAN_PREFIX.length)}) is not a plan record this Sekundo wrote.` };
   }
   const parsed = parsePlanFile(r.plan);
+  if (!parsed.ok && parsed.newerVersion !== undefined) return { ok: false, message: newerMessage(`The saved plan "${r.name.slice(0, MAX_PLAN_NAME)}"`, parsed.newerVersion) };
   if (!parsed.ok) return { ok: false, message: `The saved plan "${r.name.slice(0, MAX_PLAN_NAME)}" is damaged (${parsed.errors[0] ?? 'unreadable'}); the other plans are fine.` };
   return { ok: true, value: { id: r.id, name: r.name.slice(0, MAX_PLAN_NAME), savedAt: r.savedAt, plan: parsed.plan } };
+}
+
+/** One named plan as it is in storage now (another tab may have changed or deleted it). */
+export function readSavedPlan(store: KeyValueStore | null, id: string): StoreResult<SavedPlan> | { ok: 'missing' } {
+  if (!store) return unavailable('the plan');
+  let present: boolean;
+  try {
+    present = store.getItem(PLAN_PREFIX + id) !== null;
+  } catch (error) {
+    return { ok: false, message: `The saved plan could not be read (${error instanceof Error ? error.message : String(error)}).` };
+  }
+  return present ? readRecord(store, PLAN_PREFIX + id) : { ok: 'missing' };
+}
+
+/** Whether a storage key holds named plans (for the page's `storage` event listener). */
+export function isSavedPlanKey(key: string | null): boolean {
+  return key === null || key.startsWith(PLAN_PREFIX);
 }
 
 /** Every named plan, newest first, with a message for each damaged entry (which stays untouched). */

@@ -176,11 +176,13 @@ describe('typed fields and pasted tables', () => {
 describe('series of trace files', () => {
   it('reads timestamps and pressures from header fields', () => {
     expect(timestampOf({ Timestamp: '2026-11-03T15:00:00Z' })?.ms).toBe(Date.UTC(2026, 10, 3, 15));
-    expect(timestampOf({ 'acquisition time': '1700000000' })?.ms).toBe(1.7e12);
+    expect(timestampOf({ timestamp_s: '1700000000' })?.ms).toBe(1.7e12);
     expect(timestampOf({ operator: 'A. N. Other' })).toBeNull();
-    expect(pressureOf({ 'bath pressure (mbar)': '16.382' })).toBeCloseTo(1638.2, 9);
-    expect(pressureOf({ pressure_Pa: '1638.2' })).toBeCloseTo(1638.2, 9);
-    expect(pressureOf({ pressure: '12 kPa' })).toBe(12000);
+    expect(pressureOf({ 'bath vapour pressure (mbar)': '16.382' })).toBeCloseTo(1638.2, 9);
+    expect(pressureOf({ bath_vapour_pressure_Pa: '1638.2' })).toBeCloseTo(1638.2, 9);
+    expect(pressureOf({ vapour_pressure: '12 kPa' })).toBe(12000);
+    // Only the documented keys: an insulation-vacuum reading is not the bath's vapour pressure.
+    expect(pressureOf({ 'insulation vacuum pressure': '2e-5 mbar' })).toBeNull();
   });
 
   it('orders by timestamp when every file has one, else by name in natural order', () => {
@@ -194,7 +196,7 @@ describe('series of trace files', () => {
   it('chooses along the series: the start rule, then continuity, and a file with its own pressure starts afresh', () => {
     // Model: 50 mm at 1.86, 1.84, 1.62 (own vapour pressure), 1.60 K; the pick is the exact transit time.
     const model = [1.86, 1.84, 1.62, 1.6];
-    const files = model.map((T, i) => ({ id: `f${i}`, name: `f${i}`, fields: (i === 2 ? { pressure_Pa: String(vapourPressure(T).pressure_Pa) } : {}) as Record<string, string> }));
+    const files = model.map((T, i) => ({ id: `f${i}`, name: `f${i}`, fields: (i === 2 ? { bath_vapour_pressure_Pa: String(vapourPressure(T).pressure_Pa) } : {}) as Record<string, string> }));
     const picks = new Map(
       model.map((T, i) => [
         `f${i}`,

@@ -247,7 +247,7 @@ describe('trace series and trace chart in the header units', () => {
 
   it('names and fills the series table’s columns in the display units', () => {
     const model = [1.86, 1.84];
-    const files = model.map((T, i) => ({ id: `f${i}`, name: `f${i}.csv`, fields: (i === 0 ? { pressure_Pa: String(vapourPressure(T).pressure_Pa) } : {}) as Record<string, string> }));
+    const files = model.map((T, i) => ({ id: `f${i}`, name: `f${i}.csv`, fields: (i === 0 ? { bath_vapour_pressure_Pa: String(vapourPressure(T).pressure_Pa) } : {}) as Record<string, string> }));
     const picks = new Map(model.map((T, i) => [`f${i}`, exactPick(T)]));
     const rows = buildSeries(files, picks, new Map(), { distance_m: 0.05, distanceSd_m: 0, offset_s: 0, offsetSd_s: 0 }, null);
     const table = seriesTable(rows, mK_us);
@@ -265,7 +265,7 @@ describe('trace series and trace chart in the header units', () => {
 
   it('a file whose own pressure cannot be used says why; the files after it go on by continuity', () => {
     const model = [1.86, 1.85, 1.84];
-    const files = model.map((_, i) => ({ id: `f${i}`, name: `f${i}.csv`, fields: (i === 1 ? { pressure_Pa: '1e9' } : {}) as Record<string, string> }));
+    const files = model.map((_, i) => ({ id: `f${i}`, name: `f${i}.csv`, fields: (i === 1 ? { bath_vapour_pressure_Pa: '1e9' } : {}) as Record<string, string> }));
     const picks = new Map(model.map((T, i) => [`f${i}`, exactPick(T)]));
     const rows = buildSeries(files, picks, new Map(), { distance_m: 0.05, distanceSd_m: 0, offset_s: 0, offsetSd_s: 0 }, { kind: 'near', temperature_K: 1.86 });
     expect(rows.map((r) => r.chosenBy)).toEqual(['expected', null, 'continuity']);

@@ -2,7 +2,7 @@ import { screen, waitFor, within } from '@testing-library/react';
 import { planFileToInput } from '../../src/io/plan-file';
 import { computePlan } from '../../src/physics';
 import { lastDraw } from './fake-plotly';
-import { field, openPlanner, retype, store } from './planner-helpers';
+import { field, openPlanner, repaste, retype, store } from './planner-helpers';
 
 const heater = () => store().plannerPlan.heater;
 
@@ -19,16 +19,17 @@ describe('planner editors', { timeout: 20_000 }, () => {
     await waitFor(() => expect(lastDraw('planner-timeline')).not.toBe(drawsBefore));
   });
 
-  it('reads a bare number in the SI unit', async () => {
+  it('reads a bare number in the unit the field shows', async () => {
     const { user } = await openPlanner();
-    await retype(user, 'Pulse width', '0.0003');
+    expect(field('Pulse width')).toHaveValue('0.1 ms');
+    await retype(user, 'Pulse width', '0.3');
     expect(heater().width_s).toBe(3e-4);
   });
 
   it('refuses an out-of-range value with a message naming the field and its range, and keeps the plan', async () => {
     const { user } = await openPlanner();
     const before = store().plannerPlan;
-    const input = await retype(user, 'Pulse width', '20 s');
+    const input = await repaste(user, 'Pulse width', '20 s');
     const alert = screen.getByRole('alert');
     expect(alert).toHaveTextContent('Pulse width must be 10 ns–10 s; “20 s” is outside.');
     expect(input).toHaveAttribute('aria-invalid', 'true');
@@ -60,10 +61,10 @@ describe('planner editors', { timeout: 20_000 }, () => {
 
   it('checks ranges that depend on other fields (rise time at most the width)', async () => {
     const { user } = await openPlanner();
-    await retype(user, 'Rise time', '150 us');
+    await repaste(user, 'Rise time', '150 us');
     expect(screen.getByRole('alert')).toHaveTextContent('Rise time must be 0.1 ns–100 µs (a millionth of the pulse width up to the width)');
     expect(heater().riseTime_s).toBe(1e-6);
-    await retype(user, 'Pre-trigger', '30 ms');
+    await repaste(user, 'Pre-trigger', '30 ms');
     expect(screen.getAllByRole('alert').map((a) => a.textContent)).toContain('Pre-trigger must be 0–20 ms (at most the record length); “30 ms” is outside.');
     expect(store().plannerPlan.digitiser.preTrigger_s).toBe(0.001);
   });

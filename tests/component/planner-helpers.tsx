@@ -56,6 +56,15 @@ export async function retype(user: ReturnType<typeof userEvent.setup>, name: str
   return input;
 }
 
+/** Clears a field and pastes `text` in one go (one change, as a paste or an autofill makes). */
+export async function repaste(user: ReturnType<typeof userEvent.setup>, name: string | RegExp, text: string) {
+  const input = field(name);
+  await user.clear(input);
+  await user.click(input);
+  await user.paste(text);
+  return input;
+}
+
 /** Times (ms) of a sensor's arrivals of one kind, as marked on the last drawn timeline. */
 export function arrivalTimes(sensorId: string, kind: 'first sound' | 'second sound' | 'echo'): number[] {
   const marks = lastDraw('planner-timeline')?.data.find((t) => t.name === 'Arrivals');

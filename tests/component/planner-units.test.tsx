@@ -3,7 +3,7 @@ import { vi } from 'vitest';
 import { computePlan } from '../../src/physics';
 import { planFileToInput } from '../../src/io/plan-file';
 import { lastDraw } from './fake-plotly';
-import { demoPlan, field, openPlanner, retype, store } from './planner-helpers';
+import { demoPlan, field, openPlanner, repaste, retype, store } from './planner-helpers';
 
 /**
  * The planner follows the header's display units: values typed and shown for temperatures,
@@ -49,7 +49,7 @@ describe('planner in the chosen display units', { timeout: 30_000 }, () => {
   it('keeps a refused draft and its message when the unit changes under it', async () => {
     const { user } = await openPlanner();
     const before = store().plannerPlan;
-    await retype(user, 'Pulse width', '20 s');
+    await repaste(user, 'Pulse width', '20 s');
     expect(screen.getByRole('alert')).toBeInTheDocument();
     choose(['time', 's']);
     expect(field('Pulse width')).toHaveValue('20 s');

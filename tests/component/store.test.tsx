@@ -68,6 +68,7 @@ describe('Sekundo store', () => {
       'plannerDrafts',
       'plannerErrors',
       'plannerMapSensorKey',
+      'plannerOpenedPlan',
       'plannerPlan',
       'plannerReflectorKeys',
       'plannerSensorKeys',

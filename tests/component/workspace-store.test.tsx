@@ -7,7 +7,7 @@ import { readFileSync } from 'node:fs';
 import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
 import { serializePlanFile } from '../../src/io/plan-file';
 import { encodeShareFragment } from '../../src/io/share-link';
-import { type KeyValueStore, listPlans, loadAutosave, memoryStore, savePlan } from '../../src/io/workspace-storage';
+import { type KeyValueStore, latestAutosave, listPlans, memoryStore, savePlan } from '../../src/io/workspace-storage';
 import { useSekundoStore } from '../../src/ui/store';
 import { HISTORY_LIMIT, historyKey, redoPlan, undoPlan } from '../../src/ui/workspace/plan-history';
 import {
@@ -115,8 +115,7 @@ describe('autosave and restore', () => {
     main().loadPlannerPlan(demoPlan(), { kind: 'demo', note: null });
     main().editPlanner('x', (p) => ({ ...p, name: 'Kept across visits' }));
     await vi.waitFor(() => {
-      const saved = loadAutosave(store);
-      expect(saved.ok && saved.value?.name).toBe('Kept across visits');
+      expect(latestAutosave(store).latest?.plan.name).toBe('Kept across visits');
     });
     stop?.();
     useSekundoStore.setState(useSekundoStore.getInitialState(), true);
@@ -183,6 +182,11 @@ describe('named plans', () => {
     openSaved(saved);
     expect(main().plannerPlan.name).toBe(demoPlan().name);
     expect(main().plannerSource.kind).toBe('saved');
+    // The edited plan it replaced is kept as a named copy, and the note says where.
+    const kept = ws().savedPlans.find((p) => p.name.startsWith('Changed since (kept '));
+    expect(kept?.plan.name).toBe('Changed since');
+    expect(main().plannerSource.note).toContain(`kept in Saved plans as “${kept?.name}”`);
+    if (kept) deleteSaved(kept);
     undoPlan();
     expect(main().plannerPlan.name).toBe('Changed since');
 
@@ -196,7 +200,7 @@ describe('named plans', () => {
     if (!renamed) throw new Error('not renamed');
     deleteSaved(renamed);
     expect(listPlans(store).plans.map((p) => p.name)).toEqual(['First cooldown (copy)']);
-    const toast = ws().toasts.find((t) => t.action?.label === 'Undo');
+    const toast = ws().toasts.findLast((t) => t.action?.label === 'Undo');
     expect(toast?.text).toBe('Deleted “Second cooldown”.');
     toast?.action?.run();
     expect(listPlans(store).plans.map((p) => p.name).sort()).toEqual(['First cooldown (copy)', 'Second cooldown']);

@@ -44,3 +44,15 @@ export function expectUsageError(result: Run): string {
   expect(result.stderr.startsWith('sekundo: ')).toBe(true);
   return lines[0] ?? '';
 }
+
+/** Bad input with --json: status 2, nothing on stdout, one JSON object {error, field} on stderr. Returns it. */
+export function expectJsonUsageError(result: Run): { error: string; field: string | null } {
+  expect(result.status).toBe(2);
+  expect(result.stdout).toBe('');
+  expect(result.stderr.endsWith('\n')).toBe(true);
+  expect(result.stderr.split('\n').slice(0, -1)).toHaveLength(1);
+  const parsed = JSON.parse(result.stderr) as { error: string; field: string | null };
+  expect(typeof parsed.error).toBe('string');
+  expect(parsed.field === null || typeof parsed.field === 'string').toBe(true);
+  return parsed;
+}

@@ -268,7 +268,6 @@ describe('bad input: one line on stderr, status 2', () => {
     ['pressure out of range', () => ['delay', '--distance', '50mm', '--delay', '2.5ms', '--pressure', '3bar'], ['--pressure 3bar', 'outside the valid range']],
     ['--column without --input', () => ['delay', '--distance', '50mm', '--delay', '2.5ms', '--column', 'x'], ['--column needs --input']],
     ['--delay with --input', () => ['delay', '--input', file('d1.csv', 'delay_s\n0.0025\n'), '--delay', '2ms'], ['--delay cannot be used with --input']],
-    ['--json with --input', () => ['delay', '--input', file('d2.csv', 'delay_s\n0.0025\n'), '--distance', '5cm', '--json'], ['--json cannot be used with --input']],
     ['missing input file', () => ['delay', '--input', join(dir, 'nope.csv'), '--distance', '5cm'], ['cannot read delay file', 'no such file']],
     ['malformed delay row', () => ['delay', '--input', file('d3.csv', 'delay_s\n0.0025\n0.0026,7\n'), '--distance', '5cm'], ['delay file', 'line 3', 'ragged row']],
     ['no distance anywhere', () => ['delay', '--input', file('d4.csv', 'delay_s\n0.0025\n')], ['line 2', 'no distance_m', 'give --distance']],

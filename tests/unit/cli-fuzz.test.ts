@@ -11,7 +11,7 @@ import { fileURLToPath } from 'node:url';
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { COMMANDS } from '../../src/cli/main';
-import { expectUsageError, run } from '../support/cli-harness';
+import { expectJsonUsageError, expectUsageError, run } from '../support/cli-harness';
 
 const RUNS = 150;
 
@@ -54,7 +54,8 @@ describe('every command, malformed input: status 0 or 2 with one line, never a s
       fc.asyncProperty(argvFor(command), async (argv) => {
         const result = await run(...argv);
         expect([0, 2], `${argv.join(' ')} → ${result.status}: ${result.stderr}`).toContain(result.status);
-        if (result.status === 2) expectUsageError(result);
+        if (result.status === 2 && argv.includes('--json')) expectJsonUsageError(result);
+        else if (result.status === 2) expectUsageError(result);
         else expect(result.stderr).not.toMatch(/\bat .*\.(ts|js|mjs):\d+/);
       }),
       { numRuns: RUNS },

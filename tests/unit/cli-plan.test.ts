@@ -394,7 +394,7 @@ describe('sekundo plan', () => {
     it('a file too large to be a plan', async () => {
       const path = join(dir, 'huge.json');
       writeFileSync(path, ' '.repeat(4_000_001));
-      expect(expectUsageError(await run('plan', path))).toContain('has 4000001 bytes, more than the 4000000');
+      expect(expectUsageError(await run('plan', path))).toContain('has 4000001 characters, more than the 4000000');
     });
   });
 });

@@ -233,7 +233,7 @@ describe('bad input: one line on stderr, status 2', () => {
     ['short unknown flag', ['props', '-t', '1.8K'], ['unknown flag -t']],
     ['missing required flag', ['props'], ['needs --temperature', '0.3–4.24 K']],
     ['missing value at the end', ['props', '--temperature'], ['--temperature needs a value', '0.3–4.24 K']],
-    ['missing value before a flag', ['props', '--temperature', '--json'], ['--temperature needs a value']],
+    ['missing value before a flag', ['props', '--temperature', '--temperature'], ['--temperature needs a value']],
     ['empty inline value', ['props', '--temperature='], ['--temperature needs a value']],
     ['unknown unit', ['props', '--temperature', '5F'], ['--temperature', 'unknown unit "F"', 'K, mK', '0.3–4.24 K']],
     ['unit of another quantity', ['props', '--temperature', '1.8Pa'], ['unknown unit "Pa"', 'K, mK']],

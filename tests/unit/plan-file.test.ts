@@ -374,7 +374,7 @@ describe('versions and migrations', () => {
 
   it('a file from a future version is refused with a clear message', () => {
     expect(errorsAfter((p) => (p.version = CURRENT_PLAN_VERSION + 5))).toEqual([
-      `version: this file is version ${CURRENT_PLAN_VERSION + 5}, written by a newer Sekundo; this one reads versions 1–2`,
+      `version: this file is version ${CURRENT_PLAN_VERSION + 5}, written by a newer Sekundo; this one reads versions 1–2 (reload the page to get the newer app)`,
     ]);
   });
 });

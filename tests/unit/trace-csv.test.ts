@@ -341,7 +341,7 @@ describe('malformed files: the message names the problem and the line', () => {
     expect(parser.feed(rows(100)).bytes).toBe(600);
     const error = errorOf(() => parser.feed(rows(200)));
     expect(error.problem).toBe('too-large');
-    expect(error.message).toContain('over the 0.000954 MiB limit');
+    expect(error.message).toContain('1200 bytes, over the 1000 bytes limit');
   });
 
   it('keeps refusing after an error', () => {

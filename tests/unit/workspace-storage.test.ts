@@ -4,13 +4,15 @@
  */
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
-import { type PlanFile, parsePlanFile } from '../../src/io/plan-file';
+import { CURRENT_PLAN_VERSION, type PlanFile, parsePlanFile, serializePlanFile } from '../../src/io/plan-file';
 import {
   deletePlan,
   duplicatePlan,
   type KeyValueStore,
+  latestAutosave,
   listPlans,
   loadAutosave,
+  MAX_AUTOSAVE_SLOTS,
   loadPreferences,
   memoryStore,
   renamePlan,
@@ -139,5 +141,59 @@ describe('preferences', () => {
     expect(({} as Record<string, unknown>).polluted).toBeUndefined();
     store.setItem('sekundo.prefs', 'garbage');
     expect(loadPreferences(store)).toEqual({});
+  });
+});
+
+describe('autosave slots: one per tab, newer formats kept untouched', () => {
+  it('two tabs autosave into their own slots; a new tab starts from the newest', () => {
+    const store = memoryStore();
+    const a = { ...demo(), name: 'Tab A' };
+    const b = { ...demo(), name: 'Tab B' };
+    saveAutosave(store, a, 'tab-a', new Date('2026-12-03T08:00:00Z'));
+    saveAutosave(store, b, 'tab-b', new Date('2026-12-03T08:00:05Z'));
+    const backA = loadAutosave(store, 'tab-a');
+    const backB = loadAutosave(store, 'tab-b');
+    expect(backA.ok && backA.value?.name).toBe('Tab A');
+    expect(backB.ok && backB.value?.name).toBe('Tab B');
+    expect(latestAutosave(store).latest).toMatchObject({ slot: 'tab-b', plan: { name: 'Tab B' } });
+  });
+
+  it('the autosave of an earlier version is still read as a slot', () => {
+    const store = memoryStore();
+    saveAutosave(store, { ...demo(), name: 'From before slots' });
+    expect(latestAutosave(store).latest?.plan.name).toBe('From before slots');
+  });
+
+  it(`keeps the ${MAX_AUTOSAVE_SLOTS} newest slots`, () => {
+    const store = memoryStore();
+    for (let i = 0; i < MAX_AUTOSAVE_SLOTS + 3; i++) saveAutosave(store, demo(), `tab-${i}`, new Date(Date.UTC(2026, 11, 3, 8, i)));
+    const left = [...Array(store.length).keys()].map((i) => store.key(i)).filter((k) => k?.startsWith('sekundo.autosave.'));
+    expect(left).toHaveLength(MAX_AUTOSAVE_SLOTS);
+    expect(left).not.toContain('sekundo.autosave.tab-0');
+  });
+
+  it('an autosave of a newer format version is named as newer (not "damaged") and left untouched', () => {
+    const store = memoryStore();
+    const newer = JSON.stringify({ ...JSON.parse(serializePlanFile(demo())), version: CURRENT_PLAN_VERSION + 1 });
+    store.setItem('sekundo.autosave', newer);
+    const r = loadAutosave(store);
+    expect(r.ok).toBe(false);
+    expect(!r.ok && r.message).toMatch(/saved by a newer Sekundo \(plan format version 2.*kept untouched: reload the page/);
+    expect(!r.ok && r.message).not.toMatch(/damaged/);
+    expect(!r.ok && 'newerVersion' in r && r.newerVersion).toBe(CURRENT_PLAN_VERSION + 1);
+    expect(latestAutosave(store).problems.map((p) => p.message).join(' ')).toMatch(/newer Sekundo/);
+    // A tab's own saves go to its slot; the newer entry stays as it was.
+    saveAutosave(store, demo(), 'tab-a');
+    expect(store.getItem('sekundo.autosave')).toBe(newer);
+  });
+
+  it('a saved plan of a newer format version is listed as newer, never as damaged', () => {
+    const store = memoryStore();
+    savePlan(store, 'Good', demo());
+    const plan = JSON.stringify({ ...JSON.parse(serializePlanFile(demo())), version: CURRENT_PLAN_VERSION + 1 });
+    store.setItem('sekundo.plan.zz9', JSON.stringify({ format: 'sekundo-saved-plan', id: 'zz9', name: 'From tomorrow', savedAt: '2026-12-04T00:00:00Z', plan }));
+    const listing = listPlans(store);
+    expect(listing.plans.map((p) => p.name)).toEqual(['Good']);
+    expect(listing.problems).toEqual([expect.stringMatching(/^The saved plan "From tomorrow" was saved by a newer Sekundo .*reload the page/)]);
   });
 });

@@ -3,8 +3,9 @@
  * reading input files, turning CSV and kernel errors into one-line usage errors, and the
  * candidate table.
  */
-import { closeSync, fstatSync, openSync, readFileSync, readSync } from 'node:fs';
+import { closeSync, fstatSync, openSync, readSync } from 'node:fs';
 import { CsvInputError } from '../../io/csv-common';
+import { TABLE_CSV_SIZE_LIMIT_BYTES } from '../../io/small-csv';
 import { fromBaseUnit } from '../../io/quantity';
 import {
   type ChoiceRule,
@@ -25,6 +26,7 @@ import {
 import type { ParsedArgs, QuantityArg, QuantityFlag } from '../args';
 import { UsageError } from '../errors';
 import { alignTable, formatRange, formatSignificant } from '../format';
+import { readFileCapped } from '../io';
 import { computeFor } from '../kernel-call';
 import { formatKelvin } from './shared';
 
@@ -156,7 +158,7 @@ export interface ChoiceResult {
  */
 export function chooseFor(
   candidates: readonly TemperatureCandidate[],
-  given: { rule: ChoiceRule; arg: QuantityArg } | undefined,
+  given: { rule: ChoiceRule; arg?: QuantityArg } | undefined,
   speed: { speed_m_s: number; speedSd_m_s: number } | null = null,
 ): ChoiceResult {
   let chosen: number | null;
@@ -164,7 +166,8 @@ export function chooseFor(
   let evidenceSd: (number | null)[] = candidates.map(() => null);
   const warnings: ReadingWarning[] = [];
   if (given) {
-    const c = computeFor(given.arg, () => chooseCandidate(candidates, given.rule));
+    // A flag's value is named in any refusal; evidence from elsewhere (a file's header) throws as it is.
+    const c = given.arg ? computeFor(given.arg, () => chooseCandidate(candidates, given.rule)) : chooseCandidate(candidates, given.rule);
     ({ index: chosen, reason: choice, evidenceSd } = c);
     warnings.push(...c.warnings);
   } else if (candidates.length === 1) {
@@ -237,13 +240,9 @@ function candidateNote(c: TemperatureCandidate): string {
   return notes.join('; ');
 }
 
-/** Reads a whole input file ("-" for standard input) as bytes; a failure is a one-line UsageError. */
-export function readInputFile(path: string, what: string): Uint8Array {
-  try {
-    return readFileSync(path === '-' ? 0 : path);
-  } catch (error) {
-    throw new UsageError(`cannot read ${what} "${path}": ${describeFileError(error)}`);
-  }
+/** Reads a whole input file ("-" for standard input) as bytes, at most `capBytes`; a failure is a one-line UsageError. */
+export function readInputFile(path: string, what: string, capBytes = TABLE_CSV_SIZE_LIMIT_BYTES): Uint8Array {
+  return readFileCapped(path, what, capBytes);
 }
 
 /**

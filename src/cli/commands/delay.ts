@@ -5,6 +5,7 @@
  */
 import { type ChoiceRule, convertDelay, DELAY_LIMITS, type DelayConversion, OutOfRangeError, requireInRange, SPEED_RANGE_M_S } from '../../physics';
 import { convertDelayBatch, delayResultsToCsv, parseDelayCsv } from '../../io/delay-batch';
+import { tooSlowForSecondSound } from '../../io/speed-plausibility';
 import { type QuantityFlag, requireQuantity, type TextFlag } from '../args';
 import type { Command } from '../command';
 import { EXIT_OK, UsageError } from '../errors';
@@ -129,6 +130,8 @@ export const delayCommand: Command = {
 };
 
 function convertOne(distance_m: number, delay_s: number, sds: ReturnType<typeof readUncertainties>, distanceText: string, delayText: string): DelayConversion {
+  const slow = tooSlowForSecondSound(distance_m / (delay_s - sds.offset_s));
+  if (slow !== null) throw new UsageError(`--distance ${distanceText.trim()} and --delay ${delayText.trim()}: ${slow}`);
   try {
     return convertDelay({ distance_m, delay_s, ...sds });
   } catch (error) {

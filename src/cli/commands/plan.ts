@@ -3,11 +3,9 @@
  * "sekundo-plan"): arrivals, pulse size, echoes, SNR and temperature resolution for every sensor,
  * the heater summary and every warning.
  */
-import { readFileSync, statSync } from 'node:fs';
 import {
   CURRENT_PLAN_VERSION,
   explainPlanError,
-  MAX_PLAN_FILE_CHARS,
   type PlanBath,
   type PlanFile,
   type PlanMigrationNote,
@@ -16,12 +14,14 @@ import {
   planBath,
   planFileToInput,
 } from '../../io/plan-file';
+import { MAX_PLAN_FILE_BYTES, planTextFromBytes } from '../../io/plan-text';
 import { fromBaseUnit } from '../../io/quantity';
 import { computePlan, PhysicsError, type PlanResult, type SampledSignal } from '../../physics';
 import type { BooleanFlag, OperandSpec } from '../args';
 import type { Command } from '../command';
 import { EXIT_OK, UsageError } from '../errors';
 import { ABSENT, alignTable, formatPlain, formatSignificant } from '../format';
+import { readFileCapped, shownPath } from '../io';
 import { formatKelvin, formatMillikelvin, JSON_FLAG, writeJson } from './shared';
 
 const FILE_OPERAND: OperandSpec = {
@@ -102,31 +102,13 @@ export function loadPlanWithNotes(path: string): { plan: PlanFile; migrated: Pla
   if (parsed.ok) return { plan: parsed.plan, migrated: parsed.migrated };
   const shown = parsed.errors.slice(0, MESSAGES_SHOWN);
   const more = parsed.errors.length - shown.length;
-  throw new UsageError(`plan file "${path}" is not valid: ${shown.join('; ')}${more > 0 ? `; and ${more} more` : ''}`);
+  throw new UsageError(`plan file "${shownPath(path)}" is not valid: ${shown.join('; ')}${more > 0 ? `; and ${more} more` : ''}`);
 }
 
 function readPlanText(path: string): string {
-  try {
-    const size = statSync(path).size;
-    if (size > MAX_PLAN_FILE_CHARS) {
-      throw new UsageError(`plan file "${path}" has ${size} bytes, more than the ${MAX_PLAN_FILE_CHARS} a plan file may have`);
-    }
-    return readFileSync(path, 'utf8');
-  } catch (error) {
-    if (error instanceof UsageError) throw error;
-    throw new UsageError(`cannot read plan file "${path}": ${describeFileError(error)}`);
-  }
-}
-
-function describeFileError(error: unknown): string {
-  const code = typeof error === 'object' && error !== null && 'code' in error ? String(error.code) : '';
-  const reasons: Readonly<Record<string, string>> = {
-    ENOENT: 'no such file',
-    EISDIR: 'it is a directory',
-    EACCES: 'permission denied',
-    EPERM: 'permission denied',
-  };
-  return reasons[code] ?? (error instanceof Error ? error.message : String(error));
+  const read = planTextFromBytes(readFileCapped(path, 'plan file', MAX_PLAN_FILE_BYTES));
+  if (!read.ok) throw new UsageError(`plan file "${shownPath(path)}" is not valid: ${read.errors.join('; ')}`);
+  return read.text;
 }
 
 function runPlan(path: string, plan: PlanFile): { bath: PlanBath; result: PlanResult } {

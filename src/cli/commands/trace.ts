@@ -4,16 +4,21 @@
  * src/io/trace-pick), its delay from the heater onset (or t = 0), and the temperature candidates.
  */
 import { CsvInputError } from '../../io/csv-common';
+import { tooSlowForSecondSound } from '../../io/speed-plausibility';
 import { type TraceCsv, TraceCsvParser } from '../../io/trace-csv';
+import { describeTraceHeader, type HeaderValue, readTraceHeader, type TraceHeaderValues } from '../../io/trace-header';
 import { pickTraceArrival, TRACE_SEARCH_RANGE_S, type TracePick } from '../../io/trace-pick';
 import {
+  chooseCandidate,
   convertDelay,
   DELAY_LIMITS,
   type DelayConversion,
   PICKER_KINDS,
   PICKER_LIMITS,
   type PickerKind,
+  PhysicsError,
   requireInRange,
+  type TemperatureCandidate,
 } from '../../physics';
 import type { NumberFlag, OperandSpec, QuantityFlag, TextFlag } from '../args';
 import type { Command } from '../command';
@@ -124,6 +129,12 @@ const FRACTION_FLAG: NumberFlag = {
 
 /** The JSON printed by `trace`. */
 export interface TraceJson extends TracePick, ChoiceResult {
+  /** Values read from the file's header under the documented keys (src/io/trace-header.ts), and the refusals. */
+  header: {
+    vapourPressure_Pa: HeaderValue<number> | null;
+    acquired: { key: string; text: string; iso: string } | null;
+    problems: string[];
+  };
   file: string;
   rows: number;
   timeColumn: string;
@@ -213,9 +224,12 @@ export const traceCommand: Command = {
       if (offset) computeFor(offset, (v) => requireInRange('offset', v, DELAY_LIMITS.offset_s[0], pick.delay_s * (1 - 1e-12), 's'));
       conversion = fromFile('trace file', path, () => {
         requireInRange('picked delay', pick.delay_s, DELAY_LIMITS.delay_s[0], DELAY_LIMITS.delay_s[1], 's', 'the arrival must come after time zero');
+        const slow = tooSlowForSecondSound(distance_m / (pick.delay_s - sds.offset_s));
+        if (slow !== null) throw new CsvInputError('out-of-range', `the picked delay of ${pick.delay_s} s with --distance ${distance_m} m: ${slow}`);
         return convertDelay({ distance_m, delay_s: pick.delay_s, distanceSd_m: sds.distanceSd_m, delaySd_s: pick.delaySd_s, offset_s: sds.offset_s, offsetSd_s: sds.offsetSd_s });
       });
     }
+    const header = readTraceHeader(trace.metadata.fields);
     const result: TraceJson = {
       file: path,
       rows: trace.metadata.rows,
@@ -224,13 +238,41 @@ export const traceCommand: Command = {
       distance_m,
       speed_m_s: conversion?.speed_m_s ?? null,
       speedSd_m_s: conversion?.speedSd_m_s ?? null,
-      ...(conversion ? chooseFor(conversion.candidates, choice, conversion) : { chosen: null, choice: 'no --distance: no speed or temperature', candidates: [], warnings: [] }),
+      ...(conversion ? chooseWithHeader(conversion, choice, header) : { chosen: null, choice: 'no --distance: no speed or temperature', candidates: [], warnings: [] }),
+      header: {
+        vapourPressure_Pa: header.vapourPressure_Pa,
+        acquired: header.acquired_ms ? { key: header.acquired_ms.key, text: header.acquired_ms.text, iso: new Date(header.acquired_ms.value).toISOString() } : null,
+        problems: header.problems,
+      },
     };
     if (args.flag(JSON_FLAG.name)) writeJson(io, result);
     else io.stdout(`${renderTrace(result).join('\n')}\n`);
     return EXIT_OK;
   },
 };
+
+/**
+ * --pressure or --near when given; else the bath vapour pressure in the file's header (the
+ * documented key, as the page reads it); else a single candidate or none.
+ */
+/**
+ * --pressure or --near when given; else the vapour pressure under a documented header key
+ * (src/io/trace-header.ts), said as such; else as chooseFor leaves it.
+ */
+function chooseWithHeader(conversion: DelayConversion, given: ReturnType<typeof readChoiceRule>, header: TraceHeaderValues): ChoiceResult {
+  const { candidates } = conversion;
+  const fromHeader = header.vapourPressure_Pa;
+  if (given || !fromHeader || candidates.length === 0) return chooseFor(candidates, given, conversion);
+  const where = `the vapour pressure in the file's header ("${fromHeader.key}: ${fromHeader.text}")`;
+  try {
+    const result = chooseFor(candidates, { rule: { kind: 'pressure', pressure_Pa: fromHeader.value } }, conversion);
+    return { ...result, choice: `by ${where}: ${result.choice}` };
+  } catch (error) {
+    if (!(error instanceof PhysicsError)) throw error;
+    const result = chooseFor(candidates, undefined, conversion);
+    return { ...result, choice: `${where} cannot choose (${error.message}); ${result.choice}` };
+  }
+}
 
 function optional<K extends string, V>(key: K, value: V | undefined): { [P in K]?: V } {
   return (value === undefined ? {} : { [key]: value }) as { [P in K]?: V };
@@ -273,6 +315,9 @@ export function renderTrace(r: TraceJson): string[] {
   ];
   if (r.speed_m_s !== null && r.speedSd_m_s !== null) rows.push(['Speed', `${formatSignificant(r.speed_m_s)} ± ${formatSignificant(r.speedSd_m_s, 2)} m/s`]);
   const lines = alignTable(rows, ['left', 'left']);
+  const used = describeTraceHeader({ vapourPressure_Pa: r.header.vapourPressure_Pa, acquired_ms: null, problems: [] });
+  if (used || r.header.acquired) lines.push(`Header    ${[used, r.header.acquired ? `recorded ${r.header.acquired.iso} (from "${r.header.acquired.key}: ${r.header.acquired.text}")` : null].filter(Boolean).join('; ')}`);
+  for (const problem of r.header.problems) lines.push(`Header    ${problem}`);
   if (r.snr < LOW_SNR) lines.push('', `Warning: SNR ${formatSignificant(r.snr, 3)} is low: the pick may be noise, not the pulse (check the channel and --from/--to).`);
   if (r.distance_m === null) return [...lines, '', 'Give --distance to convert the delay into speed and temperatures.'];
   const chosen = r.chosen === null ? null : r.candidates[r.chosen];

@@ -1,4 +1,5 @@
 import { useId, useMemo, useState } from 'react';
+import { overLimitText } from '../../io/byte-size';
 import { delayResultAt, delayResultCells, delayResultHeader, type DelayBatchResults, WARNING_CODES } from '../../io/delay-batch';
 import { ChartFigure } from '../charts/ChartFigure';
 import { formatSignificant } from '../format/format-number';
@@ -23,7 +24,7 @@ const PAGE_ROWS = 100;
 export async function loadBatchFile(file: Blob & { name: string }): Promise<void> {
   const state = useSekundoStore.getState();
   if (file.size > BATCH_FILE_LIMIT_BYTES) {
-    state.refuseConverterBatch(`${file.name} is ${Number((file.size / 1048576).toPrecision(3))} MiB, over the ${BATCH_FILE_LIMIT_BYTES / 1048576} MiB limit for batch files; split it into smaller files.`);
+    state.refuseConverterBatch(`${file.name} is ${overLimitText(file.size, BATCH_FILE_LIMIT_BYTES)} for batch files; split it into smaller files.`);
     return;
   }
   const bytes = new Uint8Array(await file.arrayBuffer());

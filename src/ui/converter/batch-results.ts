@@ -3,6 +3,7 @@
  * trial conversion so a file that cannot be converted is refused whole), the results derived from
  * the inputs, the chart's figure, and an invented example file.
  */
+import { overLimitText } from '../../io/byte-size';
 import { CsvInputError } from '../../io/csv-common';
 import { convertDelayBatch, type DelayBatch, type DelayBatchResults, parseDelayCsv } from '../../io/delay-batch';
 import { PhysicsError, secondSound, vapourPressure } from '../../physics';
@@ -16,14 +17,11 @@ export const BATCH_FILE_LIMIT_BYTES = 2 * 1024 * 1024;
 
 export type BatchRead = { ok: true; batch: DelayBatch } | { ok: false; message: string };
 
-function mib(bytes: number): string {
-  return `${Number((bytes / 1048576).toPrecision(3))} MiB`;
-}
 
 /** Reads a batch file's bytes; refuses an oversize, malformed or unconvertible file with a message naming it and the line. */
 export function readBatch(name: string, bytes: Uint8Array, values: FieldValues, choice: ChoiceKind): BatchRead {
   if (bytes.byteLength > BATCH_FILE_LIMIT_BYTES) {
-    return { ok: false, message: `${name} is ${mib(bytes.byteLength)}, over the ${mib(BATCH_FILE_LIMIT_BYTES)} limit for batch files; split it into smaller files.` };
+    return { ok: false, message: `${name} is ${overLimitText(bytes.byteLength, BATCH_FILE_LIMIT_BYTES)} for batch files; split it into smaller files.` };
   }
   try {
     const batch = parseDelayCsv(bytes);

@@ -2,7 +2,7 @@
  * Results as text for the clipboard and as CSV files. Downloads go through a Blob and an object URL;
  * nothing is ever written as HTML, so file names and cells from the user stay plain text.
  */
-import { type CsvCell, csvCell, writeCsv } from '../../io/csv-common';
+import { type CsvCell, csvCell, neutraliseFormula, writeCsv } from '../../io/csv-common';
 import type { Choice, TemperatureCandidate } from '../../physics';
 import type { DisplayUnitView } from '../units/use-display-unit';
 import type { ExportContent } from './ResultActions';
@@ -74,7 +74,7 @@ export function tableExport(fileName: string, table: { header: readonly string[]
 
 /** The table as tab-separated text (pastes into a spreadsheet). */
 export function tableTsv(table: { header: readonly string[]; rows: readonly (readonly CsvCell[])[] }): string {
-  const cell = (c: CsvCell) => (typeof c === 'string' ? c.replace(/[\t\r\n]+/g, ' ') : csvCell(c));
+  const cell = (c: CsvCell) => (typeof c === 'string' ? neutraliseFormula(c).replace(/[\t\r\n]+/g, ' ') : csvCell(c));
   return `${[table.header.map(cell).join('\t'), ...table.rows.map((r) => r.map(cell).join('\t'))].join('\n')}\n`;
 }
 

@@ -8,7 +8,7 @@
  * Pure functions; the CSV is plain text, never HTML.
  */
 import type { CsvCell } from '../../io/csv-common';
-import { parseQuantity } from '../../io/quantity';
+import { readTraceHeader } from '../../io/trace-header';
 import type { TracePick } from '../../io/trace-pick';
 import {
   type ChoiceRule,
@@ -24,40 +24,21 @@ import { candidateFlags } from './candidate-notes';
 import { sentence } from './converter-checks';
 import { type ConverterUnits, csvColumn, inUnit } from './converter-units';
 
-/** Header keys read as a timestamp (compared in lower case, without spaces, "_" or "-"). */
-const TIMESTAMP_KEYS: ReadonlySet<string> = new Set(['timestamp', 'time', 'date', 'datetime', 'acquired', 'acquisitiontime', 'triggertime', 'starttime', 'recorded']);
-
 export interface Timestamp {
   text: string;
-  /** Milliseconds since the epoch (text dates), or the number given in seconds × 1000. */
+  /** Milliseconds since the epoch (an ISO 8601 time without a zone is read as UTC, for ordering). */
   ms: number;
 }
 
-/** The file's timestamp from its header ("Timestamp: 2026-11-03T14:02:11", "date = …"), or null. */
+/** The file's timestamp from a documented header key (src/io/trace-header.ts), or null. */
 export function timestampOf(fields: Readonly<Record<string, string>>): Timestamp | null {
-  for (const [key, value] of Object.entries(fields)) {
-    if (!TIMESTAMP_KEYS.has(key.toLowerCase().replace(/[\s_-]+/g, ''))) continue;
-    const text = value.trim();
-    const number = /^[+-]?\d+(?:\.\d+)?(?:[eE][+-]?\d+)?$/.test(text) ? Number(text) * 1000 : Number.NaN;
-    const ms = Number.isFinite(number) ? number : Date.parse(text);
-    if (Number.isFinite(ms)) return { text, ms };
-  }
-  return null;
+  const read = readTraceHeader(fields).acquired_ms;
+  return read ? { text: read.text, ms: read.value } : null;
 }
 
-/** The bath vapour pressure from the header ("pressure_Pa: 1638", "bath pressure = 16.38 mbar"), Pa, or null. */
+/** The bath vapour pressure from the documented header key, Pa, or null (src/io/trace-header.ts). */
 export function pressureOf(fields: Readonly<Record<string, string>>): number | null {
-  for (const [key, value] of Object.entries(fields)) {
-    const k = key.toLowerCase();
-    if (!k.includes('pressure')) continue;
-    const unit = /(?:^|[\s_([])(pa|kpa|mbar|torr)[)\]]?\s*$/.exec(k)?.[1];
-    const canonical = unit === 'pa' ? 'Pa' : unit === 'kpa' ? 'kPa' : unit;
-    const text = value.trim();
-    try {
-      return parseQuantity(/^[+-]?[\d.]+(?:[eE][+-]?\d+)?$/.test(text) && canonical ? `${text} ${canonical}` : text, 'pressure');
-    } catch {}
-  }
-  return null;
+  return readTraceHeader(fields).vapourPressure_Pa?.value ?? null;
 }
 
 export interface SeriesFile {

@@ -27,6 +27,9 @@ function centroid(points: readonly Vec3[]): Vec3 {
   return [0, 1, 2].map((k) => points.reduce((acc, p) => acc + p[k as 0], 0) / n) as unknown as Vec3;
 }
 
+/** Most sensors the layout map is drawn for: past this its grid of fits would hold up typing for seconds. */
+export const MAP_MAX_SENSORS = 100;
+
 /**
  * Before a cooldown: the expected position sd of a source anywhere in a plane, from the layout and
  * the timing sd alone; and where one more sensor would help most. Drawn from deferred inputs.
@@ -43,7 +46,11 @@ export function LocateQualityMap() {
   const [boxRef, width] = useWidth<HTMLDivElement>(640);
   const outcome = locateOutcomeFor(rows, options);
   const speed = speedOf(options);
-  const positions = useMemo(() => rows.map((r) => r.position_m), [rows]);
+  // The same positions keep the same array (an arrival typed elsewhere does not redraw the map).
+  const positionsKey = rows.map((r) => r.position_m.join(',')).join(';');
+  // biome-ignore lint/correctness/useExhaustiveDependencies: the key stands for the positions
+  const positions = useMemo(() => rows.map((r) => r.position_m), [positionsKey]);
+  const tooMany = positions.length > MAP_MAX_SENSORS;
   const located = outcome.ok && !outcome.result.degenerate;
   const through: Vec3 = located ? outcome.result.source_m : centroid(positions);
   const timingSd = median(rows.map((r) => r.arrivalSd_s ?? options.arrivalSd_s));
@@ -54,7 +61,7 @@ export function LocateQualityMap() {
   const fitSpeed = options.fitSpeed;
   const [t0, t1, t2] = through;
   const map = useMemo(() => {
-    if (speed_m_s === null || positions.length === 0) return null;
+    if (speed_m_s === null || positions.length === 0 || positions.length > MAP_MAX_SENSORS) return null;
     return qualityMap(positions, [t0, t1, t2], plane, { speed_m_s, arrivalSd_s: sdForMap, fitSpeed, constraint }, placement);
   }, [positions, t0, t1, t2, plane, speed_m_s, sdForMap, fitSpeed, constraint, placement]);
   const side = Math.max(120, Math.min(width - PLOT_MARGIN_X_PX, MAP_HEIGHT_PX - PLOT_MARGIN_Y_PX));
@@ -91,6 +98,11 @@ export function LocateQualityMap() {
         <p className="muted">No map: {speed.message}</p>
       ) : positions.length === 0 ? (
         <p className="muted">No sensors yet: add some to see how well they would place a source.</p>
+      ) : tooMany ? (
+        <p className="muted">
+          No map for {positions.length} sensors: the page draws the layout map for up to {MAP_MAX_SENSORS} sensors, so that typing stays quick. The fit, its regions and the
+          residuals above are for all of them.
+        </p>
       ) : (
         <div className="locate-map__body">
           <div ref={boxRef} className="locate-map__chart">

@@ -1,4 +1,5 @@
 import type { SensorStatus } from '../../io/locate-csv';
+import { usePagedRows } from '../layout/TablePager';
 import { CsvExportButton } from '../export/CsvExportButton';
 import { formatFixed, formatSignificant } from '../format/format-number';
 import { useSekundoStore } from '../store';
@@ -23,6 +24,7 @@ export function LocateResiduals() {
   const outcome = useLocateOutcome();
   const rows = useSekundoStore((s) => s.locateRows);
   const time = useDisplayUnit('time');
+  const page = usePagedRows(outcome.ok ? outcome.outcomes.length : 0);
   const csv = () =>
     outcome.ok
       ? {
@@ -63,7 +65,8 @@ export function LocateResiduals() {
                 </tr>
               </thead>
               <tbody>
-                {outcome.outcomes.map((o, i) => {
+                {outcome.outcomes.slice(page.start, page.end).map((o, k) => {
+                  const i = page.start + k;
                   const z = o.normalisedResidual;
                   const flagged = o.status === 'outlier' || o.status === 'dropped';
                   return (
@@ -82,6 +85,7 @@ export function LocateResiduals() {
               </tbody>
             </table>
           </div>
+          {page.pager('sensors')}
           <p className="chart-caption">
             Residual: measured minus predicted arrival. Bars run from the centre line to ±{BAR_LIMIT}σ; sensors beyond 3σ are outliers, named in the
             status column (a robust refit in the fit options leaves them out one at a time).

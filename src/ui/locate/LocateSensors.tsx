@@ -1,4 +1,5 @@
 import { Fragment, useId } from 'react';
+import { usePagedRows } from '../layout/TablePager';
 import { HelpColumnHead, useFieldHelp } from '../help/FieldHelp';
 import { useSekundoStore } from '../store';
 import { LOCATE_ROWS_KEY } from '../store/locate-slice';
@@ -27,6 +28,7 @@ export function LocateSensors() {
   const positionHelp = useFieldHelp('sensor position', LOCATE_HELP.position(length.shown));
   const arrivalHelp = useFieldHelp('arrival time', LOCATE_HELP.arrival(time.shown));
   const sdHelp = useFieldHelp('timing sd of a sensor', LOCATE_HELP.sensorSd);
+  const { start, end, pager } = usePagedRows(rows.length);
   const columns: Columns = {
     length: { unit: length.unit, shown: length.shown },
     time: { unit: time.unit, shown: time.shown },
@@ -73,12 +75,13 @@ export function LocateSensors() {
             </tr>
           </thead>
           <tbody>
-            {rows.map((row) => (
+            {rows.slice(start, end).map((row) => (
               <SensorRow key={row.key} row={row} columns={columns} />
             ))}
           </tbody>
         </table>
       </div>
+      {pager('sensors')}
       {rows.length === 0 ? <p className="muted">No sensors: add one, or open a sensor CSV.</p> : null}
       {rowsError ? (
         <p className="field-error" role="alert">

@@ -172,11 +172,17 @@ export function projectionFigure(p: ProjectionInput): { data: PlotTrace[]; layou
   return { data, layout };
 }
 
+/** Most sensors whose labels are drawn beside their markers. */
+export const MAX_DRAWN_LABELS = 48;
+
 /**
  * Sensor labels beside their markers; sensors that fall on one spot in this projection (one above
  * the other) share one label, "U90, L135", so no text is drawn over another.
  */
 function sensorLabels(p: ProjectionInput, a: 0 | 1 | 2, b: 0 | 1 | 2, L: LengthScale): PlotAnnotation[] {
+  // Past a few dozen sensors, labels would cover the frame (and hundreds of them slow every redraw):
+  // they are then in each marker's hover text only.
+  if (p.positions.length > MAX_DRAWN_LABELS) return [];
   const spots = new Map<string, { x: number; y: number; names: string[] }>();
   p.positions.forEach((pos, i) => {
     const x = pos[a] * L.perMetre;

@@ -75,7 +75,7 @@ export function locateTraceFigure({ samples, rows, span, search, columns, time }
   const n = rows.length;
   const data: PlotTrace[] = [];
   const shapes: PlotShape[] = [];
-  const points = { x: [] as number[], y: [] as number[], text: [] as string[] };
+  const points = { x: [] as number[], y: [] as number[], text: [] as string[], customdata: [] as string[] };
   rows.forEach((row, i) => {
     const values = samples.channels.find((c) => c.name === row.channel)?.values;
     if (!values) return;
@@ -108,7 +108,8 @@ export function locateTraceFigure({ samples, rows, span, search, columns, time }
     );
     points.x.push(at);
     points.y.push(base + (EXCURSION * sign) / 2);
-    points.text.push(`${row.channel}${row.sensor ? ` → ${row.sensor}` : ' (not used)'}<br>${formatSignificant(at, 7)} ${time.shown} ± ${formatSignificant(row.pick.arrivalSd_s * 1e6, 2)} µs`);
+    points.text.push(`${row.channel}${row.sensor ? ` → ${row.sensor}` : ' (not used)'}`);
+    points.customdata.push(`${formatSignificant(at, 7)} ${time.shown} ± ${formatSignificant(row.pick.arrivalSd_s * 1e6, 2)} µs`);
   });
   if (points.x.length > 0) {
     data.push({
@@ -117,9 +118,10 @@ export function locateTraceFigure({ samples, rows, span, search, columns, time }
       x: points.x,
       y: points.y,
       text: points.text,
+      customdata: points.customdata,
       mode: 'markers',
       marker: { color: CHART_COLOURS.chosen, size: 7, symbol: 'diamond' },
-      hovertemplate: '%{text}<extra></extra>',
+      hovertemplate: '%{text}<br>%{customdata}<extra></extra>',
       showlegend: false,
     });
   }

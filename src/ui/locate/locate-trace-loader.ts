@@ -4,6 +4,7 @@
  * read (too big, not a trace, cancelled) leaves everything as it was — the sensors, and the file
  * read before — and says why under the panel.
  */
+import { overLimitText } from '../../io/byte-size';
 import { useSekundoStore } from '../store';
 import { TraceReadError, traceEngine } from '../converter/trace/trace-engine';
 import { TRACE_FILE_LIMIT_BYTES } from '../converter/trace/trace-protocol';
@@ -13,7 +14,6 @@ export const TRACE_FILE_KEY = 'traces.file';
 /** The demo traces beside the page (relative, so the built page works from any folder). */
 export const DEMO_TRACES_URL = 'demo-locate-traces.csv';
 
-const MIB = 1024 * 1024;
 let counter = 0;
 /** The id of the file being read, or null. */
 let reading: string | null = null;
@@ -26,7 +26,7 @@ function kept(): string {
 export async function openLocateTrace(file: Blob & { name: string }): Promise<void> {
   const store = useSekundoStore.getState();
   if (file.size > TRACE_FILE_LIMIT_BYTES) {
-    store.refuseLocate(TRACE_FILE_KEY, `${file.name} is ${Math.round(file.size / MIB)} MiB, over the ${TRACE_FILE_LIMIT_BYTES / MIB} MiB limit for a trace file; ${kept()}.`);
+    store.refuseLocate(TRACE_FILE_KEY, `${file.name} is ${overLimitText(file.size, TRACE_FILE_LIMIT_BYTES)} for a trace file; ${kept()}.`);
     return;
   }
   if (reading !== null) traceEngine().cancel(reading);

@@ -1,5 +1,6 @@
 import { useRef, useState } from 'react';
 import { useSekundoStore } from '../store';
+import { replaceOpenPlan } from '../workspace/keep-plan';
 import { describePlanMessage } from './plan-paths';
 import { loadDemoPlan } from './load-demo';
 import { PlanTextField } from './PlanField';
@@ -21,7 +22,6 @@ const SOURCE_LABEL = {
 export function PlanBar() {
   const source = useSekundoStore((s) => s.plannerSource);
   const plan = useSekundoStore((s) => s.plannerPlan);
-  const load = useSekundoStore((s) => s.loadPlannerPlan);
   const [fileProblem, setFileProblem] = useState<{ name: string; errors: string[] } | null>(null);
   const input = useRef<HTMLInputElement>(null);
 
@@ -30,7 +30,7 @@ export function PlanBar() {
     if (read.ok) {
       setFileProblem(null);
       const migrated = migrationText(read.migrated);
-      load(read.plan, { kind: 'file', note: `Opened “${file.name}”.${migrated ? ` ${migrated}` : ''}` });
+      replaceOpenPlan(read.plan, { kind: 'file', note: `Opened “${file.name}”.${migrated ? ` ${migrated}` : ''}` }, `opening “${file.name}”`);
     } else {
       setFileProblem({ name: file.name, errors: read.errors });
     }
@@ -38,7 +38,7 @@ export function PlanBar() {
   const reloadDemo = async () => {
     const demo = await loadDemoPlan();
     setFileProblem(null);
-    load(demo.plan, demo.source);
+    replaceOpenPlan(demo.plan, demo.source, 'starting again from the demo');
   };
 
   return (

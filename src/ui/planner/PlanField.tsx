@@ -1,8 +1,8 @@
-import { type ReactNode, useId } from 'react';
+import { type ReactNode, useId, useRef } from 'react';
 import type { PlanFile } from '../../io/plan-file';
 import { describedBy as joinIds, HelpLabel, type HelpTopic, useFieldHelp } from '../help/FieldHelp';
 import { useSekundoStore } from '../store';
-import { editField, fieldRangeText, fieldText, type NumberField, type PlanEdit } from './plan-fields';
+import { editField, fieldRangeText, fieldText, fieldUnit, type NumberField, type PlanEdit } from './plan-fields';
 import { PLAN_OTHER_HELP, planHelpKey, planNumberHelp } from './planner-help';
 
 /** Id of the element that shows a field's message, so inputs elsewhere can point to it. */
@@ -40,7 +40,13 @@ interface NumberFieldProps extends FieldProps {
 export function PlanNumberField({ field, help, ...props }: NumberFieldProps) {
   const range = useSekundoStore((s) => fieldRangeText(field, s.plannerPlan));
   const value = useSekundoStore((s) => fieldText(field, s.plannerPlan, s.displayUnits));
-  const edit = (plan: PlanFile, text: string) => editField(field, plan, text);
+  // A bare number is in the unit the field showed when typing began (it must not change while the
+  // typed value grows past a step of the unit ladder: 100 µs, then 1000 µs, stays in µs).
+  const unit = useSekundoStore((s) => fieldUnit(field, s.plannerPlan, s.displayUnits));
+  const typing = useSekundoStore((s) => field.key in s.plannerDrafts);
+  const unitAtStart = useRef(unit);
+  if (!typing) unitAtStart.current = unit;
+  const edit = (plan: PlanFile, text: string) => editField(field, plan, text, unitAtStart.current ?? undefined);
   return <PlanTextInput {...props} help={help ?? planNumberHelp(field, range)} fieldKey={field.key} value={value} edit={edit} rangeHint={(plan) => fieldRangeText(field, plan)} />;
 }
 

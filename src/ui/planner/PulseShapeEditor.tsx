@@ -1,6 +1,7 @@
 import { useId, useState } from 'react';
 import { CUSTOM_PULSE_MAX_POINTS } from '../../physics';
 import { describedBy, HelpColumnHead, HelpLabel, useFieldHelp } from '../help/FieldHelp';
+import { usePagedRows } from '../layout/TablePager';
 import { useSekundoStore } from '../store';
 import { PlanFieldMessage, PlanNumberField } from './PlanField';
 import { addPulsePoint, customPoints, parsePastedPoints, removePulsePoint, setPulsePoints, setShape, type ShapeKind, shapeKind } from './plan-edits';
@@ -52,6 +53,7 @@ function CustomPoints() {
   const amplitudeRange = useSekundoStore((s) => fieldRangeText(pulsePointField(0, 1), s.plannerPlan));
   const timeHelp = useFieldHelp('time from onset', planNumberHelp(pulsePointField(0, 0), timeRange));
   const amplitudeHelp = useFieldHelp('relative amplitude', planNumberHelp(pulsePointField(0, 1), amplitudeRange));
+  const { start, end, pager } = usePagedRows(count);
   return (
     <div className="pulse-points">
       <div className="help-panels">
@@ -72,9 +74,10 @@ function CustomPoints() {
             </tr>
           </thead>
           <tbody>
-            {points.map((_, i) => (
+            {points.slice(start, end).map((_, k) => {
+              const i = start + k;
+              return (
               // Points have no identity beyond their place; drafts are cleared when the list changes.
-              // biome-ignore lint/suspicious/noArrayIndexKey: a point is its position in the list
               <tr key={i}>
                 <td className="num">{i + 1}</td>
                 <td>
@@ -95,11 +98,13 @@ function CustomPoints() {
                   </button>
                 </td>
               </tr>
-            ))}
+              );
+            })}
           </tbody>
         </table>
       </div>
-      <PointMessages count={count} />
+      {pager('points')}
+      <PointMessages />
       <div className="pulse-points__actions">
         <button type="button" className="button button--small" disabled={count >= CUSTOM_PULSE_MAX_POINTS} onClick={() => edit('pulse.points', addPulsePoint, 'pulse.')}>
           Add point
@@ -164,9 +169,14 @@ Pulse points, one “time, amplitude” per line
 }
 
 /** Messages of the point fields (the table cells have no room for them), and of the list itself. */
-function PointMessages({ count }: { count: number }) {
-  const keys = [...Array.from({ length: count }, (_, i) => [pulsePointField(i, 0).key, pulsePointField(i, 1).key]).flat(), 'pulse.points'];
-  const shown = useSekundoStore((s) => keys.filter((k) => s.plannerErrors[k] !== undefined).join('\n'));
+function PointMessages() {
+  // Messages of every point (those on other pages too), in point order, then the list's own.
+  const shown = useSekundoStore((s) =>
+    Object.keys(s.plannerErrors)
+      .filter((k) => /^pulse\.\d+\./.test(k) || k === 'pulse.points')
+      .sort((a, b) => (a === 'pulse.points' ? 1 : b === 'pulse.points' ? -1 : a.localeCompare(b, undefined, { numeric: true })))
+      .join('\n'),
+  );
   if (shown === '') return null;
   return (
     <div className="pulse-points__messages">

@@ -4,7 +4,7 @@
  * range; the store applies the value only when the whole plan then checks out.
  */
 import { FLUX_RANGE_W_M2, type PlanFile, type PlanFileReflector, type PlanFileSensor } from '../../io/plan-file';
-import { parseQuantity, QuantityParseError, unitsOf } from '../../io/quantity';
+import { parseQuantity, QuantityParseError, type Unit, unitsOf } from '../../io/quantity';
 import {
   MAX_ECHO_ORDER,
   PATH_LENGTH_RANGE_M,
@@ -15,7 +15,7 @@ import {
   vapourPressure,
 } from '../../physics';
 import type { DisplayUnits } from '../units/unit-choices';
-import { inputText, KINDS, plainNumber, type QuantityKind, rangeText, shownLadder } from './display-units';
+import { inputText, KINDS, plainNumber, type QuantityKind, rangeText, shownLadder, unitFor } from './display-units';
 
 export type Range = readonly [number, number];
 
@@ -58,15 +58,19 @@ export function fieldRangeText(field: NumberField, plan: PlanFile): string {
 
 const PLAIN_NUMBER = /^[+-]?(?:\d+(?:\.\d*)?|\.\d+)(?:[eE][+-]?\d+)?$/;
 
-/** Reads typed text for a field against the current plan: the SI value, or a message. */
-export function readField(field: NumberField, plan: PlanFile, text: string): FieldRead {
+/**
+ * Reads typed text for a field against the current plan: the SI value, or a message. A bare number
+ * is in `bareUnit`, the unit the field shows (typing 30 where "10 mm" stood means 30 mm); without
+ * one, in the SI unit. The same rule as the converter and locate fields.
+ */
+export function readField(field: NumberField, plan: PlanFile, text: string, bareUnit?: Unit): FieldRead {
   const trimmed = text.trim().replace(/\u2212/g, '-');
   const range = fieldRangeText(field, plan);
   if (trimmed === '') return { ok: false, message: `${field.label} is empty: type a value, ${range}.` };
   let value: number;
   if (field.kind) {
     try {
-      value = parseQuantity(trimmed, field.kind.dimension);
+      value = parseQuantity(bareUnit && PLAIN_NUMBER.test(trimmed) ? `${trimmed} ${bareUnit}` : trimmed, field.kind.dimension);
     } catch (error) {
       if (!(error instanceof QuantityParseError)) throw error;
       const units = unitsOf(field.kind.dimension).join(', ');
@@ -108,9 +112,16 @@ export function fieldText(field: NumberField, plan: PlanFile, units?: DisplayUni
   return inputText(value, ladder, zero);
 }
 
-/** The edit typing `text` into `field` makes (before the whole-plan check). */
-export function editField(field: NumberField, plan: PlanFile, text: string): PlanEdit {
-  const read = readField(field, plan, text);
+/** The unit the field shows its value in ("mm" for "10 mm"); null for a plain-number field. */
+export function fieldUnit(field: NumberField, plan: PlanFile, units?: DisplayUnits): Unit | null {
+  if (!field.kind) return null;
+  const { ladder, zero } = shownLadder(field.kind, units);
+  return unitFor(field.get(plan) ?? 0, ladder, zero).unit;
+}
+
+/** The edit typing `text` into `field` makes (before the whole-plan check); a bare number is in `bareUnit`. */
+export function editField(field: NumberField, plan: PlanFile, text: string, bareUnit?: Unit): PlanEdit {
+  const read = readField(field, plan, text, bareUnit);
   return read.ok ? { ok: true, plan: field.set(plan, read.value) } : read;
 }
 

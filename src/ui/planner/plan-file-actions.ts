@@ -1,9 +1,12 @@
 import { type PlanFile, type PlanFileParse, type PlanMigrationNote, parsePlanFile, serializePlanFile } from '../../io/plan-file';
+import { MAX_PLAN_FILE_BYTES, planTextFromBytes } from '../../io/plan-text';
 
 /** Reads a plan file chosen by the user: the plan (with what reading an older version changed), or every problem found (the current plan is kept). */
-export async function readPlanFile(file: File): Promise<PlanFileParse> {
+export async function readPlanFile(file: Blob): Promise<PlanFileParse> {
+  if (file.size > MAX_PLAN_FILE_BYTES) return planTextFromBytes(new Uint8Array(MAX_PLAN_FILE_BYTES + 1)) as { ok: false; errors: string[] };
   try {
-    return parsePlanFile(await file.text());
+    const text = planTextFromBytes(new Uint8Array(await file.arrayBuffer()));
+    return text.ok ? parsePlanFile(text.text) : text;
   } catch (error) {
     return { ok: false, errors: [`plan: the file could not be read (${error instanceof Error ? error.message : String(error)})`] };
   }

@@ -3,6 +3,7 @@ import { DownloadIcon } from '../export/CsvExportButton';
 import { base64Bytes, downloadBlob, fileSlug } from '../export/download';
 import { useResolvedTheme } from '../theme/use-theme';
 import { loadPlotly } from './load-plotly';
+import { plainFigure } from './plain-text';
 import { themeFigure } from './plot-theme';
 import type { DrawnPlotElement, PlotConfig, PlotLayout, PlotlyApi, PlotTrace } from './plotly-types';
 
@@ -37,7 +38,7 @@ export interface PlotlyChartProps {
 /**
  * A thin wrapper around Plotly: draws with Plotly.react whenever data, layout or the page's theme
  * change (figures are written in the light palette; plot-theme.ts gives the dark one), purges on
- * unmount, and offers the chart as PNG and SVG. A failure to load or draw is thrown during render,
+ * unmount, and offers the chart as PNG and SVG. Every text it draws is plain text (plain-text.ts). A failure to load or draw is thrown during render,
  * for the nearest error boundary.
  */
 export function PlotlyChart({ chartId, label, data, layout, onDrawn }: PlotlyChartProps) {
@@ -49,7 +50,8 @@ export function PlotlyChart({ chartId, label, data, layout, onDrawn }: PlotlyCha
   const theme = useResolvedTheme();
   const touch = useCoarsePointer();
   const figure = useMemo(() => {
-    const themed = themeFigure(data, layout, theme);
+    const plain = plainFigure(data, layout);
+    const themed = themeFigure(plain.data, plain.layout, theme);
     // On a touch screen a drag scrolls the page; the zoom buttons zoom.
     return touch && themed.layout.dragmode !== false ? { ...themed, layout: { ...themed.layout, dragmode: false as const } } : themed;
   }, [data, layout, theme, touch]);
@@ -289,7 +291,9 @@ function useResizeWithBox(surface: RefObject<HTMLDivElement | null>, plotly: Plo
     const element = surface.current;
     if (!plotly || !element || typeof ResizeObserver === 'undefined') return;
     const observer = new ResizeObserver(() => {
-      if (element.classList.contains('js-plotly-plot')) void plotly.Plots.resize(element);
+      // A chart leaving the page (or hidden) is not resized; Plotly refuses such a div.
+      if (!element.classList.contains('js-plotly-plot') || !element.isConnected || element.offsetParent === null) return;
+      Promise.resolve(plotly.Plots.resize(element)).catch(() => undefined);
     });
     observer.observe(element);
     return () => observer.disconnect();

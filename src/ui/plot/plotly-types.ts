@@ -60,6 +60,8 @@ export interface PlotTrace {
   hovertemplate?: string;
   /** Text per point, for `%{text}` in the hover template. */
   text?: readonly string[];
+  /** Our own per-point text for `%{customdata}` (numbers; never user text, which goes in `text`). */
+  customdata?: readonly string[];
   hoverinfo?: 'skip' | 'none';
   showlegend?: boolean;
   /** Traces sharing a group show and hide together from the legend. */

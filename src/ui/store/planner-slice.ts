@@ -39,6 +39,8 @@ export interface PlannerSlice {
   /** 'idle' until the planner first opens, 'loading' while the demo is fetched, then 'ready'. */
   plannerStatus: 'idle' | 'loading' | 'ready';
   plannerSource: PlannerSource;
+  /** The plan as it was opened (same object as plannerPlan until the first edit): unchanged work needs no keeping. */
+  plannerOpenedPlan: PlanFile;
   /** Text typed into fields, by field key, until the field is left with a good value. */
   plannerDrafts: Readonly<Record<string, string>>;
   /** Why a field's text was refused (the plan keeps its last good value), by field key. */
@@ -112,6 +114,7 @@ export const createPlannerSlice: StateCreator<SekundoState, [], [], PlannerSlice
     plannerPlan: BUILT_IN_PLAN,
     plannerStatus: 'idle',
     plannerSource: { kind: 'built-in', note: null },
+    plannerOpenedPlan: BUILT_IN_PLAN,
     plannerDrafts: {},
     plannerErrors: {},
     ...freshKeys(BUILT_IN_PLAN),
@@ -121,7 +124,7 @@ export const createPlannerSlice: StateCreator<SekundoState, [], [], PlannerSlice
     beginPlannerLoad: () => set({ plannerStatus: 'loading' }),
 
     loadPlannerPlan: (plan, source) => {
-      set({ plannerPlan: plan, plannerSource: source, plannerStatus: 'ready', plannerDrafts: {}, plannerErrors: {}, plannerMapSensorKey: null, ...freshKeys(plan) });
+      set({ plannerPlan: plan, plannerOpenedPlan: plan, plannerSource: source, plannerStatus: 'ready', plannerDrafts: {}, plannerErrors: {}, plannerMapSensorKey: null, ...freshKeys(plan) });
     },
 
     typePlannerField: (key, text, edit) => {

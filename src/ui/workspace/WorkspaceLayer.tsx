@@ -1,12 +1,13 @@
 import { useEffect, useRef } from 'react';
 import { useSekundoStore } from '../store';
 import { SetupSheetHost } from './SetupSheet';
+import { answerQuestion } from './keep-plan';
 import { acceptSharedPlan, declineSharedPlan } from './share-actions';
 import { dismissToast, useWorkspaceStore } from './workspace-store';
 
 /** Whether a workspace dialog (shared plan, setup sheet) holds the page; the page behind is then inert. */
 export function useWorkspaceModal(): boolean {
-  return useWorkspaceStore((s) => s.sharePrompt !== null || s.sheetOpen);
+  return useWorkspaceStore((s) => s.sharePrompt !== null || s.sheetOpen || s.question !== null);
 }
 
 /** Storage and link notices under the header. */
@@ -48,6 +49,7 @@ export function WorkspaceOverlays() {
     <>
       <Toasts />
       <SharePromptDialog />
+      <QuestionDialog />
       <SetupSheetHost />
     </>
   );
@@ -116,7 +118,8 @@ function SharePromptDialog() {
           <p>
             {replacing !== null ? (
               <>
-                It replaces the plan you are editing, <span className="workspace-confirm__name">“{replacing}”</span>; Undo brings that back.
+                It replaces the plan you are editing, <span className="workspace-confirm__name">“{replacing}”</span>, which is kept in Saved plans first
+                (unless it is unchanged or already saved there).
               </>
             ) : (
               'It opens in the planner.'
@@ -130,6 +133,41 @@ function SharePromptDialog() {
           <button ref={keep} type="button" className="button" onClick={declineSharedPlan}>
             Keep my plan
           </button>
+        </div>
+      </div>
+    </div>
+  );
+}
+
+/** A question before work could be lost: two tabs saved one plan, or the open plan cannot be kept. */
+function QuestionDialog() {
+  const question = useWorkspaceStore((s) => s.question);
+  const first = useRef<HTMLButtonElement>(null);
+  useEffect(() => {
+    if (question) first.current?.focus();
+  }, [question]);
+  if (!question) return null;
+  const last = question.choices.length - 1;
+  return (
+    <div className="modal-backdrop">
+      <div
+        className="modal workspace-confirm"
+        role="alertdialog"
+        aria-modal="true"
+        aria-labelledby="workspace-question-title"
+        aria-describedby="workspace-question-text"
+        onKeyDown={(event) => {
+          if (event.key === 'Escape') answerQuestion(last);
+        }}
+      >
+        <h2 id="workspace-question-title">{question.title}</h2>
+        <p id="workspace-question-text">{question.text}</p>
+        <div className="modal__actions">
+          {question.choices.map((choice, i) => (
+            <button key={choice.label} ref={i === 0 ? first : undefined} type="button" className={i === 0 ? 'button button--primary' : 'button'} onClick={() => answerQuestion(i)}>
+              {choice.label}
+            </button>
+          ))}
         </div>
       </div>
     </div>

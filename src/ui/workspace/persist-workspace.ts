@@ -1,17 +1,25 @@
 /**
  * Nothing typed is lost: the plan being edited is autosaved (debounced, and at once when the page
- * is hidden or closed) and restored on the next visit; named plans are kept beside it. All of it
- * goes through src/io/workspace-storage.ts, which never throws: full, disabled or damaged storage
- * comes back as a message, which the page shows while it keeps working.
+ * is hidden or closed) into this tab's own slot and restored on the next visit; named plans are
+ * kept beside it. Tabs never overwrite each other: each writes its own autosave slot, hears the
+ * others (the `storage` event) so its list of saved plans stays current, re-reads a saved plan
+ * before opening or saving over it, and asks when another tab saved or deleted it meanwhile.
+ * Before a link, a file, a saved plan or the demo replaces work that exists nowhere else, that work
+ * is kept as a named copy in the saved plans, and the message says so. All storage goes through
+ * src/io/workspace-storage.ts, which never throws: full, disabled or damaged storage comes back
+ * as a message, which the page shows while it keeps working.
  */
 import type { PlanFile } from '../../io/plan-file';
 import {
   browserStore,
   deletePlan,
   duplicatePlan,
+  isSavedPlanKey,
   type KeyValueStore,
-  listPlans,
+  latestAutosave,
   loadAutosave,
+  newAutosaveSlot,
+  readSavedPlan,
   renamePlan,
   restorePlan,
   type SavedPlan,
@@ -20,7 +28,9 @@ import {
 } from '../../io/workspace-storage';
 import { useSekundoStore } from '../store';
 import { historyKey, redoPlan, startHistory, undoPlan } from './plan-history';
+import { replaceOpenPlan } from './keep-plan';
 import { readShareFragment } from './share-actions';
+import { refreshSavedPlans, setWorkspaceKv, workspaceKv } from './workspace-kv';
 import { showToast, useWorkspaceStore } from './workspace-store';
 
 /** Wait after the last change before the autosave is written, ms. */
@@ -30,28 +40,49 @@ export const AUTOSAVE_DELAY_MS = 400;
 export const STORAGE_OFF =
   'This browser does not let Sekundo keep data (storage is turned off or blocked): your plan and settings are not kept between visits and saved plans are unavailable. Everything else works; use “Save plan file” to keep your work.';
 
-let kv: KeyValueStore | null = null;
 let autosaveMessageShown: string | null = null;
+/** This tab's autosave slot (kept in sessionStorage, so a reload of the tab finds it again). */
+let slot: string | null = null;
+const TAB_SLOT_KEY = 'sekundo.tab-slot';
+const CHANNEL = 'sekundo-workspace';
+
+function tabSession(): Storage | null {
+  try {
+    return typeof sessionStorage === 'undefined' ? null : sessionStorage;
+  } catch {
+    return null;
+  }
+}
+
+function rememberSlot(id: string): void {
+  slot = id;
+  try {
+    tabSession()?.setItem(TAB_SLOT_KEY, id);
+  } catch {
+    // Without session storage a reload starts from the newest autosave instead; nothing is lost.
+  }
+}
+
+/** This tab's autosave slot (tests). */
+export function autosaveSlot(): string | null {
+  return slot;
+}
 
 /** The store the workspace uses (null: none). */
 export function workspaceStore(): KeyValueStore | null {
-  return kv;
+  return workspaceKv();
 }
 
 function setNotice(message: string | null): void {
   useWorkspaceStore.setState({ storageNotice: message });
 }
 
-/** Reads the named plans again into the workspace store. */
-export function refreshSavedPlans(): void {
-  const listing = listPlans(kv);
-  useWorkspaceStore.setState({ savedPlans: listing.plans, savedProblems: listing.problems });
-}
+export { refreshSavedPlans };
 
 /** Writes the open plan into the autosave slot now; says so when it cannot. */
 export function autosaveNow(plan: PlanFile = useSekundoStore.getState().plannerPlan): void {
-  if (useSekundoStore.getState().plannerStatus !== 'ready' || kv === null) return;
-  const result = saveAutosave(kv, plan);
+  if (useSekundoStore.getState().plannerStatus !== 'ready' || workspaceKv() === null) return;
+  const result = saveAutosave(workspaceKv(), plan, slot ?? undefined);
   if (!result.ok) {
     autosaveMessageShown = `Autosave stopped: ${result.message}`;
     setNotice(autosaveMessageShown);
@@ -76,16 +107,14 @@ interface StartOptions {
  */
 export function startWorkspace(store: KeyValueStore | null = browserStore(), options: StartOptions = {}): () => void {
   const { delayMs = AUTOSAVE_DELAY_MS, listen = typeof window !== 'undefined' } = options;
-  kv = store;
+  setWorkspaceKv(store);
   autosaveMessageShown = null;
   const stops: (() => void)[] = [];
   stops.push(startHistory());
 
   useWorkspaceStore.setState({ storageAvailable: store !== null });
   if (store === null) setNotice(STORAGE_OFF);
-  const restored = loadAutosave(store);
-  if (!restored.ok) setNotice(`${restored.message} The planner opens the demo plan instead; the damaged entry is overwritten by your next edit.`);
-  else if (restored.value !== null) useSekundoStore.getState().loadPlannerPlan(restored.value, { kind: 'restored', note: null });
+  restoreAutosave(store);
   refreshSavedPlans();
 
   let timer: ReturnType<typeof setTimeout> | null = null;
@@ -125,6 +154,13 @@ export function startWorkspace(store: KeyValueStore | null = browserStore(), opt
       else redoPlan();
     };
     const onHash = () => readShareFragment(window.location.hash);
+    // Another tab saved, renamed or deleted a named plan: list them again.
+    const onStorage = (event: StorageEvent) => {
+      if (event.storageArea === null || isSavedPlanKey(event.key)) refreshSavedPlans();
+    };
+    window.addEventListener('storage', onStorage);
+    stops.push(() => window.removeEventListener('storage', onStorage));
+    stops.push(watchDuplicateTabs());
     window.addEventListener('pagehide', onHide);
     window.addEventListener('beforeunload', onHide);
     document.addEventListener('visibilitychange', onVisibility);
@@ -145,6 +181,75 @@ export function startWorkspace(store: KeyValueStore | null = browserStore(), opt
   };
 }
 
+/**
+ * Opens this tab's last autosave (a reload), else the newest autosave of any tab (a new tab), and
+ * picks this tab's slot: its own after a reload, a new one otherwise. An autosave written by a
+ * newer Sekundo is named as such, never opened and never written over.
+ */
+function restoreAutosave(store: KeyValueStore | null): void {
+  const session = tabSession();
+  let previous: string | null = null;
+  try {
+    previous = session?.getItem(TAB_SLOT_KEY) ?? null;
+  } catch {
+    previous = null;
+  }
+  const load = (plan: PlanFile) => useSekundoStore.getState().loadPlannerPlan(plan, { kind: 'restored', note: null });
+  if (previous !== null && /^[a-z0-9-]{1,40}$/.test(previous)) {
+    const own = loadAutosave(store, previous);
+    if (own.ok && own.value !== null) {
+      rememberSlot(previous);
+      load(own.value);
+      return;
+    }
+    if (!own.ok && 'newerVersion' in own && own.newerVersion !== undefined) {
+      rememberSlot(newAutosaveSlot());
+      setNotice(`${own.message} The planner opens the demo plan; your edits go to a new autosave.`);
+      return;
+    }
+  }
+  rememberSlot(newAutosaveSlot());
+  const { latest, problems } = latestAutosave(store);
+  if (latest) load(latest.plan);
+  const problem = problems[0];
+  if (problem) {
+    const newer = 'newerVersion' in problem && problem.newerVersion !== undefined;
+    setNotice(
+      newer
+        ? `${problem.message}${latest ? ' The planner opened your newest autosave this Sekundo can read.' : ' The planner opens the demo plan; your edits go to a new autosave.'}`
+        : `${problem.message} ${latest ? 'The planner opened your newest readable autosave' : 'The planner opens the demo plan instead'}; the damaged entry is left as it is.`,
+    );
+  }
+}
+
+/**
+ * Two tabs with one slot (a duplicated tab copies the session): each announces its slot on a
+ * BroadcastChannel, and the one started later takes a new slot, so neither overwrites the other.
+ */
+function watchDuplicateTabs(): () => void {
+  if (typeof BroadcastChannel === 'undefined') return () => undefined;
+  const instance = `${Date.now().toString(36)}-${Math.random().toString(36).slice(2, 8)}`;
+  const startedAt = Date.now();
+  let channel: BroadcastChannel;
+  try {
+    channel = new BroadcastChannel(CHANNEL);
+  } catch {
+    return () => undefined;
+  }
+  const announce = (type: 'hello' | 'mine') => channel.postMessage({ type, slot, instance, startedAt });
+  channel.onmessage = (event: MessageEvent) => {
+    const m = event.data as { type?: string; slot?: string; instance?: string; startedAt?: number } | null;
+    if (!m || m.slot !== slot || m.instance === instance || typeof m.startedAt !== 'number' || typeof m.instance !== 'string') return;
+    const iAmNewer = startedAt > m.startedAt || (startedAt === m.startedAt && instance > m.instance);
+    if (iAmNewer) {
+      rememberSlot(newAutosaveSlot());
+      autosaveNow();
+    } else if (m.type === 'hello') announce('mine');
+  };
+  announce('hello');
+  return () => channel.close();
+}
+
 // ---------------------------------------------------------------------------------------------
 // Named plans.
 
@@ -153,53 +258,123 @@ function report(result: { ok: true } | { ok: false; message: string }): boolean 
   return result.ok;
 }
 
+function markOpen(saved: SavedPlan): void {
+  useWorkspaceStore.setState({ currentSavedId: saved.id, currentSavedAt: saved.savedAt });
+}
+
+function timeOf(iso: string): string {
+  const date = new Date(iso);
+  return Number.isNaN(date.getTime()) ? iso : date.toLocaleTimeString('en-GB', { hour: '2-digit', minute: '2-digit', second: '2-digit' });
+}
+
 /** Saves the open plan under a name, as a new entry. */
 export function saveCurrentAs(name: string): SavedPlan | null {
-  const result = savePlan(kv, name, useSekundoStore.getState().plannerPlan);
+  const result = savePlan(workspaceKv(), name, useSekundoStore.getState().plannerPlan);
   refreshSavedPlans();
   if (!report(result) || !result.ok) return null;
-  useWorkspaceStore.setState({ currentSavedId: result.value.id });
+  markOpen(result.value);
   showToast(`Saved “${result.value.name}”.`);
   return result.value;
 }
 
-/** Saves the open plan over the named plan it came from. */
-export function saveCurrentOver(saved: SavedPlan): void {
-  const result = savePlan(kv, saved.name, useSekundoStore.getState().plannerPlan, saved.id);
+function writeOver(saved: SavedPlan, plan: PlanFile): void {
+  const result = savePlan(workspaceKv(), saved.name, plan, saved.id);
   refreshSavedPlans();
-  if (report(result)) showToast(`Saved over “${saved.name}”.`);
+  if (report(result) && result.ok) {
+    markOpen(result.value);
+    showToast(`Saved over “${saved.name}”.`);
+  }
 }
 
-/** Opens a named plan (the plan it replaces can be had back with Undo). */
+/**
+ * Saves the open plan over the named plan it came from, after reading that plan again: when
+ * another tab saved over it or deleted it since this tab opened or saved it, asks first.
+ */
+export function saveCurrentOver(saved: SavedPlan): void {
+  const plan = useSekundoStore.getState().plannerPlan;
+  const now = readSavedPlan(workspaceKv(), saved.id);
+  refreshSavedPlans();
+  const seenAt = useWorkspaceStore.getState().currentSavedId === saved.id ? useWorkspaceStore.getState().currentSavedAt : saved.savedAt;
+  if (now.ok === 'missing') {
+    useWorkspaceStore.setState({
+      question: {
+        title: `“${saved.name}” was deleted in another tab`,
+        text: `Since this tab opened it, “${saved.name}” was deleted (in another tab or window). Save your plan under that name again, or as a new plan?`,
+        choices: [
+          { label: `Save again as “${saved.name}”`, run: () => writeOver(saved, plan) },
+          { label: 'Save as a new plan', run: () => saveCurrentAs(`${saved.name} (this tab)`) },
+          { label: 'Cancel', run: () => undefined },
+        ],
+      },
+    });
+    return;
+  }
+  if (!now.ok) {
+    showToast(now.message);
+    return;
+  }
+  if (seenAt !== null && now.value.savedAt !== seenAt) {
+    useWorkspaceStore.setState({
+      question: {
+        title: `“${saved.name}” changed in another tab`,
+        text: `“${saved.name}” was saved again at ${timeOf(now.value.savedAt)} (in another tab or window) after this tab opened or saved it at ${timeOf(seenAt)}. Saving here would replace that save.`,
+        choices: [
+          { label: 'Save mine as a new plan', run: () => saveCurrentAs(`${saved.name} (this tab)`) },
+          { label: 'Replace the other save', run: () => writeOver(now.value, plan) },
+          { label: 'Cancel', run: () => undefined },
+        ],
+      },
+    });
+    return;
+  }
+  writeOver(now.value, plan);
+}
+
+/**
+ * Opens a named plan as it is in storage now (another tab may have saved over it or deleted it);
+ * the plan it replaces is kept first (see {@link replaceOpenPlan}).
+ */
 export function openSaved(saved: SavedPlan): void {
-  useSekundoStore.getState().loadPlannerPlan(saved.plan, { kind: 'saved', note: `Opened the saved plan “${saved.name}”.` });
-  useWorkspaceStore.setState({ currentSavedId: saved.id });
+  const now = readSavedPlan(workspaceKv(), saved.id);
+  refreshSavedPlans();
+  if (now.ok === 'missing') {
+    showToast(`“${saved.name}” was deleted in another tab; nothing was opened.`);
+    return;
+  }
+  if (!now.ok) {
+    showToast(now.message);
+    return;
+  }
+  const fresh = now.value;
+  const changed = fresh.savedAt !== saved.savedAt ? ` (the version saved at ${timeOf(fresh.savedAt)} in another tab)` : '';
+  replaceOpenPlan(fresh.plan, { kind: 'saved', note: `Opened the saved plan “${fresh.name}”${changed}.` }, `opening “${fresh.name}”`, () => markOpen(fresh));
 }
 
+/** Makes a copy of a named plan. */
 export function duplicateSaved(saved: SavedPlan): void {
-  const result = duplicatePlan(kv, saved.id);
+  const result = duplicatePlan(workspaceKv(), saved.id);
   refreshSavedPlans();
   if (report(result) && result.ok) showToast(`Made “${result.value.name}”.`);
 }
 
 /** Renames a named plan; returns the message when the name is refused. */
 export function renameSaved(saved: SavedPlan, name: string): string | null {
-  const result = renamePlan(kv, saved.id, name);
+  const result = renamePlan(workspaceKv(), saved.id, name);
   refreshSavedPlans();
   return result.ok ? null : result.message;
 }
 
 /** Deletes a named plan, with a toast offering to undo it. */
 export function deleteSaved(saved: SavedPlan): void {
-  const result = deletePlan(kv, saved.id);
+  const result = deletePlan(workspaceKv(), saved.id);
   refreshSavedPlans();
   if (!report(result) || !result.ok) return;
   const record = result.value;
-  if (useWorkspaceStore.getState().currentSavedId === saved.id) useWorkspaceStore.setState({ currentSavedId: null });
+  if (useWorkspaceStore.getState().currentSavedId === saved.id) useWorkspaceStore.setState({ currentSavedId: null, currentSavedAt: null });
   const id = showToast(`Deleted “${record.name}”.`, {
     label: 'Undo',
     run: () => {
-      const back = restorePlan(kv, record);
+      const back = restorePlan(workspaceKv(), record);
       refreshSavedPlans();
       if (report(back)) showToast(`“${record.name}” is back.`);
       useWorkspaceStore.setState((s) => ({ toasts: s.toasts.filter((t) => t.id !== id) }));

@@ -1,12 +1,13 @@
 /**
  * Share links: the open plan carried in the URL fragment (src/io/share-link.ts), which never
- * reaches a server. Opening a link asks before the plan replaces the open one; a damaged or
- * foreign link says why and changes nothing.
+ * reaches a server. Opening a link asks before the plan replaces the open one, and keeps the open
+ * one first (keep-plan.ts); a damaged, foreign or too large link says why and changes nothing.
  */
 import type { PlanFile } from '../../io/plan-file';
 import { decodeShareFragment, encodeShareFragment } from '../../io/share-link';
 import { describePlanMessage } from '../planner/plan-paths';
 import { useSekundoStore } from '../store';
+import { replaceOpenPlan } from './keep-plan';
 import { useWorkspaceStore } from './workspace-store';
 
 /** The page's address with the plan in its fragment. */
@@ -36,14 +37,15 @@ export function readShareFragment(hash: string): void {
   else useWorkspaceStore.setState({ linkProblem: decoded.errors.map(describePlanMessage), sharePrompt: null });
 }
 
-/** Yes: the shared plan replaces the open one (Undo brings that back), and the planner shows it. */
+/** Yes: the open plan is kept (a named copy in Saved plans), the shared plan replaces it, and the planner shows it. */
 export function acceptSharedPlan(): void {
   const prompt = useWorkspaceStore.getState().sharePrompt;
   if (!prompt) return;
-  const main = useSekundoStore.getState();
-  main.loadPlannerPlan(prompt.plan, { kind: 'link', note: null });
-  main.setActiveView('planner');
-  useWorkspaceStore.setState({ sharePrompt: null, currentSavedId: null });
+  useWorkspaceStore.setState({ sharePrompt: null });
+  replaceOpenPlan(prompt.plan, { kind: 'link', note: null }, 'opening a shared link', () => {
+    useSekundoStore.getState().setActiveView('planner');
+    useWorkspaceStore.setState({ currentSavedId: null, currentSavedAt: null });
+  });
 }
 
 /** No: the open plan stays. */

@@ -27,6 +27,14 @@ export interface SharePrompt {
   plan: PlanFile;
 }
 
+/** A question the page asks before it could lose work (two tabs saved one plan; nowhere to keep a copy). */
+export interface WorkspaceQuestion {
+  title: string;
+  text: string;
+  /** The first choice is the default (focused); the last one is the safe way out (Escape). */
+  choices: readonly { label: string; run: () => void }[];
+}
+
 export interface WorkspaceState {
   past: readonly PlanSnapshot[];
   future: readonly PlanSnapshot[];
@@ -35,6 +43,10 @@ export interface WorkspaceState {
   savedProblems: readonly string[];
   /** The named plan the open plan was last opened from or saved as; null: none. */
   currentSavedId: string | null;
+  /** When that named plan was saved, as this tab last read it (another tab may save it since). */
+  currentSavedAt: string | null;
+  /** A question waiting for an answer; null: none. */
+  question: WorkspaceQuestion | null;
   /** Why plans cannot be kept (storage full, disabled) or the autosave was not restored; null: all is well. */
   storageNotice: string | null;
   /** Messages for a share link that could not be opened; null: none. */
@@ -53,6 +65,8 @@ export const INITIAL_WORKSPACE: WorkspaceState = {
   savedPlans: [],
   savedProblems: [],
   currentSavedId: null,
+  currentSavedAt: null,
+  question: null,
   storageNotice: null,
   linkProblem: null,
   sharePrompt: null,

@@ -1,4 +1,5 @@
 import { useId, useMemo } from 'react';
+import { describeTraceHeader, readTraceHeader } from '../../../io/trace-header';
 import type { TracePick } from '../../../io/trace-pick';
 import type { ChoiceRule } from '../../../physics';
 import { ChartFigure } from '../../charts/ChartFigure';
@@ -96,6 +97,23 @@ function rowChosen(row: SeriesRow, unit: 'K' | 'mK'): Chosen {
   return { rule: row.rule, choice };
 }
 
+/** What the file's header gives that Sekundo uses (documented keys only), shown before it is used; and what was refused. */
+function HeaderValues({ fields }: { fields: Readonly<Record<string, string>> }) {
+  const header = readTraceHeader(fields);
+  const used = describeTraceHeader(header);
+  if (!used && header.problems.length === 0) return null;
+  return (
+    <div className="trace-header-values">
+      {used ? <p className="muted">From the file’s header: {used}.</p> : null}
+      {header.problems.map((p) => (
+        <p key={p} className="field-error">
+          {p}
+        </p>
+      ))}
+    </div>
+  );
+}
+
 function SelectedTrace({ file, pick, row }: { file: TraceFileEntry; pick: PickState | undefined; row: SeriesRow | undefined }) {
   const headingId = useId();
   const view = useSekundoStore((s) => s.converterTraceView);
@@ -191,6 +209,7 @@ function SelectedTrace({ file, pick, row }: { file: TraceFileEntry; pick: PickSt
             <p className="plot-loading">Fetching the samples…</p>
           )}
         </div>
+        <HeaderValues fields={file.info?.fields ?? {}} />
         <PickSummary pick={pick} time={units.time} />
       </section>
       {row?.conversion && chosen ? (

@@ -4,17 +4,12 @@
  * store and a cancel that stops the file being read and drops the ones waiting. When the first
  * file of a session is read, its channel names set the heater and sensor defaults.
  */
+import { overLimitText } from '../../../io/byte-size';
 import { useSekundoStore } from '../../store';
 import type { TraceFileEntry } from '../converter-slice';
 import { TraceReadError, traceEngine } from './trace-engine';
 import { TRACE_FILE_COUNT_LIMIT, TRACE_FILE_LIMIT_BYTES, TRACE_TOTAL_LIMIT_BYTES, type TraceInfo } from './trace-protocol';
 
-const MIB = 1024 * 1024;
-
-function mib(bytes: number): string {
-  const x = bytes / MIB;
-  return `${x >= 10 ? Math.round(x) : Number(x.toPrecision(3))} MiB`;
-}
 
 /** Files waiting to be read, in order, with their File objects (never in the store). */
 const waiting: { id: string; file: Blob }[] = [];
@@ -33,7 +28,7 @@ export function loadTraceFiles(files: readonly (Blob & { name: string })[]): voi
   const accepted: TraceFileEntry[] = [];
   for (const file of files) {
     if (file.size > TRACE_FILE_LIMIT_BYTES) {
-      refused.push(`${file.name} is ${mib(file.size)}, over the ${mib(TRACE_FILE_LIMIT_BYTES)} limit for one trace file`);
+      refused.push(`${file.name} is ${overLimitText(file.size, TRACE_FILE_LIMIT_BYTES)} for one trace file`);
       continue;
     }
     if (count >= TRACE_FILE_COUNT_LIMIT) {
@@ -41,7 +36,7 @@ export function loadTraceFiles(files: readonly (Blob & { name: string })[]): voi
       continue;
     }
     if (total + file.size > TRACE_TOTAL_LIMIT_BYTES) {
-      refused.push(`${file.name} would bring the files held to ${mib(total + file.size)}, over the ${mib(TRACE_TOTAL_LIMIT_BYTES)} limit for all trace files together`);
+      refused.push(`${file.name} would bring the files held to ${overLimitText(total + file.size, TRACE_TOTAL_LIMIT_BYTES)} for all trace files together`);
       continue;
     }
     idCounter += 1;

@@ -9,7 +9,6 @@ import { type TraceCsv, TraceCsvParser } from '../../io/trace-csv';
 import { describeTraceHeader, type HeaderValue, readTraceHeader, type TraceHeaderValues } from '../../io/trace-header';
 import { pickTraceArrival, TRACE_SEARCH_RANGE_S, type TracePick } from '../../io/trace-pick';
 import {
-  chooseCandidate,
   convertDelay,
   DELAY_LIMITS,
   type DelayConversion,
@@ -18,7 +17,6 @@ import {
   type PickerKind,
   PhysicsError,
   requireInRange,
-  type TemperatureCandidate,
 } from '../../physics';
 import type { NumberFlag, OperandSpec, QuantityFlag, TextFlag } from '../args';
 import type { Command } from '../command';

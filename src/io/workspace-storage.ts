@@ -103,7 +103,7 @@ const SLOT_ID = /^[a-z0-9-]{1,40}$/;
 export type ReadFailure = { ok: false; message: string; newerVersion?: number };
 
 function newerMessage(what: string, version: number): string {
-  return `${what} was saved by a newer Sekundo (plan format version ${version}; this page reads version ${CURRENT_PLAN_VERSION}). It is kept untouched: reload the page to get the newer app.`;
+  return `${what} was saved by a newer Sekundo (plan format version ${version}; this page reads versions up to ${CURRENT_PLAN_VERSION}). It is kept untouched: reload the page to get the newer app.`;
 }
 
 function autosaveKey(slot: string | undefined): string {

@@ -217,7 +217,7 @@ describe('series of trace files', () => {
     // first file and the last carry their vapour pressure. Picks are the exact transit with 1 µs sd.
     const model = Array.from({ length: 16 }, (_, i) => 1.76 - i * 0.02);
     const last = model.length - 1;
-    const files = model.map((T, i) => ({ id: `f${i}`, name: `f${i}`, fields: (i === 0 || i === last ? { pressure_Pa: String(vapourPressure(T).pressure_Pa) } : {}) as Record<string, string> }));
+    const files = model.map((T, i) => ({ id: `f${i}`, name: `f${i}`, fields: (i === 0 || i === last ? { bath_vapour_pressure_Pa: String(vapourPressure(T).pressure_Pa) } : {}) as Record<string, string> }));
     const pick = (T: number) => ({ arrival_s: 0.05 / secondSound(T), arrivalSd_s: 1e-6, delay_s: 0.05 / secondSound(T), delaySd_s: 1e-6, timeZero_s: 0, timeZeroSd_s: 0, timeZero: 'file t = 0' as const, reference: "from the file's t = 0" as const, referenceTime_s: 0, picker: 'fraction' as const, sensor: 's', heater: null, template: null, baseline: { level: 0, noise: 1, samples: 10 }, peak: 10, snr: 10 });
     const picks = new Map(model.map((T, i) => [`f${i}`, pick(T)]));
     const settings = { distance_m: 0.05, distanceSd_m: 2e-5, offset_s: 0, offsetSd_s: 0 };

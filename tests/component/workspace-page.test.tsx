@@ -82,7 +82,8 @@ describe('user text is text', () => {
     vi.stubGlobal('alert', alertSpy);
     vi.stubGlobal('print', vi.fn());
     const { user } = await openPlanner();
-    main().loadPlannerPlan(hostile(), { kind: 'file', note: `Opened “${PAYLOAD}.json”.` });
+    // Opened from a link (kept nowhere else), so a second link asks before replacing it.
+    main().loadPlannerPlan(hostile(), { kind: 'link', note: `Opened “${PAYLOAD}.json”.` });
     expect(await screen.findByDisplayValue(`Plan ${PAYLOAD}`)).toBeInTheDocument();
     expect(screen.getAllByText(new RegExp(`Sensor ${PAYLOAD.replace(/[()]/g, '\\$&')}`)).length).toBeGreaterThan(0);
     expectNoInjectedElements();
@@ -131,8 +132,12 @@ describe('on the page', () => {
     expect(main().plannerPlan.name).toBe('Undo me');
   });
 
-  it('the shared-plan question is a dialog naming the plan; yes opens it', async () => {
+  it('over edits of one’s own, the shared-plan question is a dialog naming the plan; yes opens it', async () => {
     const { user } = await openPlanner();
+    const name = field('Plan name');
+    await user.clear(name);
+    await user.type(name, 'My own edits');
+    await user.tab();
     readShareFragment(encodeShareFragment({ ...demoPlan(), name: 'Colleague’s three-sensor plan' }));
     const dialog = await screen.findByRole('alertdialog', { name: 'Open the shared plan?' });
     expect(dialog).toHaveTextContent('“Colleague’s three-sensor plan”');

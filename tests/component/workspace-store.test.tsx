@@ -208,9 +208,9 @@ describe('named plans', () => {
 });
 
 describe('share links', () => {
-  it('a good link waits for a yes; no keeps the plan, yes replaces it', () => {
+  it('over work of one’s own, a good link waits for a yes; no keeps the plan, yes replaces it', () => {
     start(memoryStore());
-    main().loadPlannerPlan(demoPlan(), { kind: 'demo', note: null });
+    main().loadPlannerPlan(demoPlan(), { kind: 'restored', note: null });
     const mine = main().plannerPlan;
     const shared = { ...demoPlan(), name: 'From a colleague' };
     readShareFragment(encodeShareFragment(shared));
@@ -227,9 +227,32 @@ describe('share links', () => {
     expect(main().plannerPlan).toBe(mine);
   });
 
-  it('a link in the address at start is read', () => {
+  it('a link in the address at start opens on the planner at once: nothing of the visitor’s own is open', () => {
     start(memoryStore(), encodeShareFragment({ ...demoPlan(), name: 'At start' }));
-    expect(ws().sharePrompt?.plan.name).toBe('At start');
+    expect(ws().sharePrompt).toBeNull();
+    expect(main().plannerPlan.name).toBe('At start');
+    expect(main().plannerSource.kind).toBe('link');
+    expect(main().activeView).toBe('planner');
+  });
+
+  it('over the demo as it came, or a plan file unchanged, a link opens without asking', () => {
+    for (const kind of ['demo', 'file', 'saved'] as const) {
+      stop?.();
+      start(memoryStore());
+      main().loadPlannerPlan(demoPlan(), { kind, note: null });
+      readShareFragment(encodeShareFragment({ ...demoPlan(), name: `Over the ${kind}` }));
+      expect(ws().sharePrompt).toBeNull();
+      expect(main().plannerPlan.name).toBe(`Over the ${kind}`);
+    }
+  });
+
+  it('over the demo once edited, a link asks first', () => {
+    start(memoryStore());
+    main().loadPlannerPlan(demoPlan(), { kind: 'demo', note: null });
+    useSekundoStore.setState({ plannerPlan: { ...main().plannerPlan, name: 'Edited demo' } });
+    readShareFragment(encodeShareFragment({ ...demoPlan(), name: 'From a colleague' }));
+    expect(ws().sharePrompt?.plan.name).toBe('From a colleague');
+    expect(main().plannerPlan.name).toBe('Edited demo');
   });
 
   const fragments = JSON.parse(readFileSync('tests/corpus/fragments/fragments.json', 'utf8')) as { cases: { fragment: string; expect: string | null }[] };

@@ -156,11 +156,12 @@ test.describe('workspace', () => {
     const colleague = await other.newPage();
     watch(colleague);
     await colleague.goto(url);
-    const dialog = colleague.getByRole('alertdialog', { name: 'Open the shared plan?' });
-    await expect(dialog).toContainText('“Shared from bench 3”');
-    await colleague.screenshot({ path: `${ARTIFACTS}/workspace-share-confirm.png` });
-    await dialog.getByRole('button', { name: 'Open shared plan' }).click();
+    // A fresh browser has no work of its own to lose: the link opens on its plan at once, asking nothing.
+    await expect(colleague.getByRole('tab', { name: 'Plan a measurement' })).toHaveAttribute('aria-selected', 'true');
     await expect(colleague.getByRole('textbox', { name: 'Plan name' })).toHaveValue('Shared from bench 3');
+    await expect(colleague.getByRole('alertdialog')).toHaveCount(0);
+    await expect(colleague.locator(TIMELINE)).toHaveAttribute('data-drawn', 'true');
+    await colleague.screenshot({ path: `${ARTIFACTS}/workspace-share-opened.png` });
     await expect(colleague.getByText('From a shared link')).toBeVisible();
     expect(new URL(colleague.url()).hash).toBe('');
 

@@ -178,7 +178,7 @@ describe('autosave slots: one per tab, newer formats kept untouched', () => {
     store.setItem('sekundo.autosave', newer);
     const r = loadAutosave(store);
     expect(r.ok).toBe(false);
-    expect(!r.ok && r.message).toMatch(/saved by a newer Sekundo \(plan format version 2.*kept untouched: reload the page/);
+    expect(!r.ok && r.message).toMatch(new RegExp(`saved by a newer Sekundo \\(plan format version ${CURRENT_PLAN_VERSION + 1}.*kept untouched: reload the page`));
     expect(!r.ok && r.message).not.toMatch(/damaged/);
     expect(!r.ok && 'newerVersion' in r && r.newerVersion).toBe(CURRENT_PLAN_VERSION + 1);
     expect(latestAutosave(store).problems.map((p) => p.message).join(' ')).toMatch(/newer Sekundo/);

@@ -73,7 +73,10 @@ function useDemoPlanOnFirstOpen(): void {
   useEffect(() => {
     if (useSekundoStore.getState().plannerStatus !== 'idle') return;
     begin();
-    void loadDemoPlan().then(({ plan, source }) => load(plan, source));
+    // Unless something else (a shared link, a file) was opened while the demo was on its way.
+    void loadDemoPlan().then(({ plan, source }) => {
+      if (useSekundoStore.getState().plannerStatus === 'loading') load(plan, source);
+    });
   }, [begin, load]);
 }
 

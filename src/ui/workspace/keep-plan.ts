@@ -21,6 +21,16 @@ function keptName(plan: PlanFile, reason: string, now: Date): string {
   return `${plan.name} (kept ${when}, before ${reason})`.slice(0, 120);
 }
 
+/**
+ * Whether the open plan is work of the visitor's own that is kept nowhere else: false when no plan
+ * is open yet, or when it is unchanged since it came from a file, the demo or a saved plan.
+ */
+export function openPlanIsOwnWork(): boolean {
+  const main = useSekundoStore.getState();
+  if (main.plannerStatus !== 'ready') return false;
+  return !(main.plannerOpenedPlan === main.plannerPlan && ['demo', 'built-in', 'file', 'saved'].includes(main.plannerSource.kind));
+}
+
 /** What became of the open plan before it was replaced. */
 export type KeepOutcome = { kept: 'not needed' } | { kept: 'copy'; name: string } | { kept: 'saved'; name: string } | { kept: 'failed'; message: string };
 
@@ -30,10 +40,8 @@ export type KeepOutcome = { kept: 'not needed' } | { kept: 'copy'; name: string 
  * otherwise a named copy in the saved plans ("<name> (kept <time>, before <reason>)").
  */
 export function keepOpenPlan(reason: string, now = new Date()): KeepOutcome {
-  const main = useSekundoStore.getState();
-  if (main.plannerStatus !== 'ready') return { kept: 'not needed' };
-  const plan = main.plannerPlan;
-  if (main.plannerOpenedPlan === plan && ['demo', 'built-in', 'file', 'saved'].includes(main.plannerSource.kind)) return { kept: 'not needed' };
+  if (!openPlanIsOwnWork()) return { kept: 'not needed' };
+  const plan = useSekundoStore.getState().plannerPlan;
   const twin = listPlans(workspaceKv()).plans.find((p) => sameText(p.plan, plan));
   if (twin) return { kept: 'saved', name: twin.name };
   const result = savePlan(workspaceKv(), keptName(plan, reason, now), plan, undefined, now);

@@ -126,10 +126,10 @@ test.describe('replacing the open plan', () => {
     await expect(page.getByRole('list', { name: 'Saved plans' })).toContainText('Unsaved: heater at 3 mm (kept');
   });
 
-  test('"Start again from the demo" keeps the edited plan first', async ({ page }) => {
+  test('"Open the demo" keeps the edited plan first', async ({ page }) => {
     await openPlanner(page);
     await rename(page, 'Edited before the demo');
-    await page.getByRole('button', { name: 'Start again from the demo' }).click();
+    await page.getByRole('button', { name: 'Open the demo' }).click();
     await expect(page.locator('.plan-bar__note')).toContainText('Your previous plan is kept in Saved plans as “Edited before the demo (kept');
     await savedPlansPanel(page);
     await expect(page.getByRole('list', { name: 'Saved plans' })).toContainText('Edited before the demo (kept');

@@ -2,7 +2,9 @@ import { useRef, useState } from 'react';
 import { useSekundoStore } from '../store';
 import { replaceOpenPlan } from '../workspace/keep-plan';
 import { describePlanMessage } from './plan-paths';
+import { NEW_PLAN } from './default-plan';
 import { loadDemoPlan } from './load-demo';
+import { PlanDescription } from './PlanDescription';
 import { PlanTextField } from './PlanField';
 import { setPlanName } from './plan-edits';
 import { downloadPlanFile, migrationText, readPlanFile } from './plan-file-actions';
@@ -12,6 +14,7 @@ import { WarningCounts } from './WarningsList';
 const SOURCE_LABEL = {
   demo: 'Demo plan (invented setup)',
   'built-in': 'Built-in plan',
+  new: 'New plan',
   file: 'From a file',
   restored: 'Restored from your last visit',
   saved: 'Saved plan',
@@ -38,7 +41,11 @@ export function PlanBar() {
   const reloadDemo = async () => {
     const demo = await loadDemoPlan();
     setFileProblem(null);
-    replaceOpenPlan(demo.plan, demo.source, 'starting again from the demo');
+    replaceOpenPlan(demo.plan, demo.source, 'opening the demo');
+  };
+  const startNew = () => {
+    setFileProblem(null);
+    replaceOpenPlan(NEW_PLAN, { kind: 'new', note: null }, 'starting a new plan');
   };
 
   return (
@@ -76,8 +83,11 @@ export function PlanBar() {
           <button type="button" className="button button--small" onClick={() => downloadPlanFile(plan)}>
             Save plan file
           </button>
+          <button type="button" className="button button--small" onClick={startNew}>
+            New plan
+          </button>
           <button type="button" className="button button--small" onClick={() => void reloadDemo()}>
-            Start again from the demo
+            Open the demo
           </button>
         </div>
       </div>
@@ -86,12 +96,7 @@ export function PlanBar() {
           {source.note}
         </p>
       ) : null}
-      {plan.notes ? (
-        <details className="plan-bar__notes">
-          <summary>About this plan</summary>
-          <p>{plan.notes}</p>
-        </details>
-      ) : null}
+      <PlanDescription />
       {fileProblem ? (
         <div className="field-error plan-bar__file-error" role="alert">
           <p>

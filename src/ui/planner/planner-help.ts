@@ -7,7 +7,7 @@
  * (fieldRangeText, the same text validation uses), other limits from the plan-file schema and the
  * kernel, so help and validation cannot disagree.
  */
-import { MAX_ID_CHARS, MAX_LABEL_CHARS, MAX_NAME_CHARS, MAX_REFLECTORS } from '../../io/plan-file';
+import { MAX_ID_CHARS, MAX_LABEL_CHARS, MAX_NAME_CHARS, MAX_NOTES_CHARS, MAX_REFLECTORS } from '../../io/plan-file';
 import { fromBaseUnit, unitsOf } from '../../io/quantity';
 import {
   CUSTOM_PULSE_MAX_POINTS,
@@ -207,6 +207,11 @@ export const PLAN_OTHER_HELP = {
     what: 'A name for the plan, saved in the plan file and shown when it is opened again.',
     range: `1–${MAX_NAME_CHARS} characters`,
     origin: fromPlan(),
+  },
+  'plan.notes': {
+    what: 'What this plan is for, in your words: the insert, the cooldown, what to check. It travels with the plan file and the share link and prints under the title of the setup sheet; left empty, nothing is printed.',
+    range: `0–${MAX_NOTES_CHARS} characters`,
+    origin: 'Empty for a new plan; the demo’s text describes its invented setup.',
   },
   'bath.mode': {
     what: 'Give the bath as its temperature, or as the vapour pressure read over it (the planner then finds the temperature on the helium-4 vapour-pressure scale).',

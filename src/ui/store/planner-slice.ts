@@ -17,8 +17,8 @@ import type { SekundoState } from './state';
 
 /** Where the plan on screen came from. */
 export interface PlannerSource {
-  /** restored: the autosave of the last visit; saved: a named plan kept in the browser; link: a share link. */
-  kind: 'demo' | 'built-in' | 'file' | 'restored' | 'saved' | 'link';
+  /** restored: the autosave of the last visit; saved: a named plan kept in the browser; link: a share link; new: "New plan". */
+  kind: 'demo' | 'built-in' | 'new' | 'file' | 'restored' | 'saved' | 'link';
   /** What to tell the user about it (e.g. why the demo did not load); null for nothing. */
   note: string | null;
 }

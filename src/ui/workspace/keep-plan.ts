@@ -23,12 +23,12 @@ function keptName(plan: PlanFile, reason: string, now: Date): string {
 
 /**
  * Whether the open plan is work of the visitor's own that is kept nowhere else: false when no plan
- * is open yet, or when it is unchanged since it came from a file, the demo or a saved plan.
+ * is open yet, or when it is unchanged since it came from a file, the demo, "New plan" or a saved plan.
  */
 export function openPlanIsOwnWork(): boolean {
   const main = useSekundoStore.getState();
   if (main.plannerStatus !== 'ready') return false;
-  return !(main.plannerOpenedPlan === main.plannerPlan && ['demo', 'built-in', 'file', 'saved'].includes(main.plannerSource.kind));
+  return !(main.plannerOpenedPlan === main.plannerPlan && ['demo', 'built-in', 'new', 'file', 'saved'].includes(main.plannerSource.kind));
 }
 
 /** What became of the open plan before it was replaced. */

@@ -53,11 +53,17 @@ function buildBranch(branch: Branch, lo: number, hi: number): BranchTable {
   };
 }
 
-const BRANCHES: readonly BranchTable[] = [
-  buildBranch('low', MODEL_MIN_K, T_MIN),
-  buildBranch('middle', T_MIN, T_MAX),
-  buildBranch('high', T_MAX, T_LAMBDA_K),
-];
+let branchTables: readonly BranchTable[] | null = null;
+
+/**
+ * The three branch tables, built on first use (12 000 evaluations of u2): a program that loads
+ * the kernel without inverting a speed (the command line's `props`, the page's explorer) does
+ * not pay for them.
+ */
+function branches(): readonly BranchTable[] {
+  branchTables ??= [buildBranch('low', MODEL_MIN_K, T_MIN), buildBranch('middle', T_MIN, T_MAX), buildBranch('high', T_MAX, T_LAMBDA_K)];
+  return branchTables;
+}
 
 /** A Newton step this small leaves an error far below 1e-12 K (quadratic convergence). */
 const NEWTON_ACCEPT_STEP_K = 1e-7;
@@ -159,7 +165,7 @@ export function temperatureCandidates(speed_m_s: number, relativeSpeedSd: number
   requireInRange('relative speed uncertainty', relativeSpeedSd, 0, 1, '');
   const out: TemperatureCandidate[] = [];
   const { minimum, maximum } = SECOND_SOUND_EXTREMA;
-  for (const b of BRANCHES) {
+  for (const b of branches()) {
     const first = b.speeds[0] as number;
     const last = b.speeds[b.speeds.length - 1] as number;
     if (speed_m_s >= first && speed_m_s <= last) out.push(candidateAt(solveOnBranch(b, speed_m_s), b.branch, relativeSpeedSd));

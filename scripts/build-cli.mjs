@@ -3,19 +3,21 @@
  * Builds the command line into plain JavaScript, so `sekundo` starts without compiling
  * TypeScript: src/cli/entry.ts → build/cli/sekundo.mjs plus one chunk per command (loaded only
  * when that command runs). Run by npm's "prepare" step after `npm ci` / `npm install`, and by
- * `npm run build:cli`. build/ is not committed.
+ * `npm run build:cli`. build/ is not committed. `--outdir DIR` builds elsewhere (the tests do).
  *
  * Beside the bundle it writes inputs.json: every source file the bundle was built from (and
  * package.json). bin/sekundo.mjs runs the bundle only while none of them is newer than it, and
  * falls back to the sources (through tsx) otherwise, so an edited source is never shadowed.
  */
 import { mkdirSync, rmSync, writeFileSync } from 'node:fs';
-import { dirname, join, relative } from 'node:path';
+import { dirname, join, relative, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
+import { parseArgs } from 'node:util';
 import { build } from 'esbuild';
 
 const root = join(dirname(fileURLToPath(import.meta.url)), '..');
-const outdir = join(root, 'build', 'cli');
+const { values } = parseArgs({ options: { outdir: { type: 'string' } } });
+const outdir = values.outdir ? resolve(values.outdir) : join(root, 'build', 'cli');
 
 rmSync(outdir, { recursive: true, force: true });
 mkdirSync(outdir, { recursive: true });

@@ -421,6 +421,10 @@ export function* delayResultCsvChunks(results: DelayBatchResults, units: ResultU
   const numbers = new CsvNumberText();
   let chunk = `${delayResultHeader(results.batch, units).map(csvCell).join(',')}\n`;
   for (let i = 0; i < results.count; i++) {
+    if (chunk.length >= chunkChars) {
+      yield chunk;
+      chunk = '';
+    }
     let line = '';
     for (let c = 0; c < columns.length; c++) {
       const cell = (columns[c] as ResultColumn).cell(results, i, units);
@@ -428,10 +432,6 @@ export function* delayResultCsvChunks(results: DelayBatchResults, units: ResultU
       line = c === 0 ? text : `${line},${text}`;
     }
     chunk += `${line}\n`;
-    if (chunk.length >= chunkChars) {
-      yield chunk;
-      chunk = '';
-    }
   }
   if (chunk !== '') yield chunk;
 }

@@ -7,7 +7,8 @@
  *     onset) vs trace_peer.py (pandas.read_csv, C engine, plus a numpy onset pick).
  * The inputs are generated into a temporary directory (invented numbers) and deleted after. Each
  * pair runs --runs times (default 5), alternating Sekundo and its peer; the medians and their
- * ratio (Sekundo / peer: below 1 means Sekundo is faster) are printed.
+ * ratio (Sekundo / peer: below 1 means Sekundo is faster) are printed, for wall time and for CPU
+ * time (user + system, from /proc on Linux; steadier than wall time on a busy machine).
  *
  * Needs a python3 with numpy, scipy and pandas: $PYTHON, else python3 on PATH, else
  * /usr/bin/python3. Without one it prints why and exits 0 (skipped).
@@ -18,7 +19,7 @@
  * Also `npm run bench:peers`. A benchmark, not a test: nothing here fails on time.
  */
 import { spawnSync } from 'node:child_process';
-import { closeSync, mkdtempSync, openSync, rmSync, writeSync } from 'node:fs';
+import { closeSync, mkdtempSync, openSync, readFileSync, rmSync, writeSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { dirname, join, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
@@ -94,15 +95,29 @@ function writeTrace(path) {
   closeSync(fd);
 }
 
-/** Wall time of one whole process, ms; its stdout goes to `outPath`. Throws if it fails. */
+/** CPU seconds (user + system) used so far by this process's finished children (Linux), or NaN. */
+function childrenCpuSeconds() {
+  try {
+    const stat = readFileSync('/proc/self/stat', 'utf8');
+    const fields = stat.slice(stat.lastIndexOf(')') + 2).split(' ');
+    // Fields 16 and 17 of stat(5) (cutime, cstime), counted from field 3 here; clock ticks of 1/100 s.
+    return (Number(fields[13]) + Number(fields[14])) / 100;
+  } catch {
+    return Number.NaN;
+  }
+}
+
+/** Wall time and CPU time of one whole process, ms; its stdout goes to `outPath`. Throws if it fails. */
 function timeOne(command, args, outPath) {
   const out = openSync(outPath, 'w');
+  const cpuBefore = childrenCpuSeconds();
   const start = performance.now();
   const result = spawnSync(command, args, { stdio: ['ignore', out, 'pipe'], maxBuffer: 1 << 20 });
-  const ms = performance.now() - start;
+  const wall = performance.now() - start;
+  const cpu = (childrenCpuSeconds() - cpuBefore) * 1000;
   closeSync(out);
   if (result.status !== 0) throw new Error(`${command} ${args.join(' ')} failed (${result.status}): ${result.stderr}`);
-  return ms;
+  return { wall, cpu };
 }
 
 const median = (xs) => {
@@ -123,12 +138,16 @@ function compare(name, sekundo, peer, dir) {
       times[who].push(timeOne(command, args, join(dir, `${name}-${who}.out`)));
     }
   }
-  const s = median(times.sekundo);
-  const p = median(times.peer);
-  const fmt = (xs) => xs.map((x) => x.toFixed(0)).join(' ');
-  console.log(`${name.padEnd(6)} sekundo ${s.toFixed(0).padStart(6)} ms   peer ${p.toFixed(0).padStart(6)} ms   ratio ${(s / p).toFixed(2)}×`);
-  console.log(`       runs (ms): sekundo ${fmt(times.sekundo)} | peer ${fmt(times.peer)}`);
-  return s / p;
+  const line = (what) => {
+    const s = median(times.sekundo.map((t) => t[what]));
+    const p = median(times.peer.map((t) => t[what]));
+    const runs = (who) => times[who].map((t) => t[what].toFixed(0)).join(' ');
+    console.log(
+      `${name.padEnd(6)} ${what.padEnd(4)} sekundo ${s.toFixed(0).padStart(6)} ms   peer ${p.toFixed(0).padStart(6)} ms   ratio ${(s / p).toFixed(2)}×   (runs: ${runs('sekundo')} | ${runs('peer')})`,
+    );
+  };
+  line('wall');
+  line('cpu');
 }
 
 const { python, tried } = findPython();

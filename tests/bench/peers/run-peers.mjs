@@ -85,7 +85,7 @@ function writeTrace(path) {
     const heater = (t >= 0 && t < 1e-4 ? 1.5 : 0) + 2e-3 * noise();
     const x = (t - 2.5e-3) / 4e-5;
     const sensor = 2.0e-2 + (x > 0 ? 1e-3 * x * x * Math.exp(2 - 2 * x) : 0) + 5e-5 * noise();
-    text += `${t.toExponential(9)},${heater.toExponential(5)},${sensor.toExponential(5)}\n`;
+    text += `${t.toExponential(10)},${heater.toExponential(6)},${sensor.toExponential(6)}\n`;
     if (text.length > 1 << 20) {
       writeSync(fd, text);
       text = '';

@@ -43,9 +43,9 @@ import {
   seriesChooser,
   type TemperatureCandidate,
 } from '../physics';
-import { type CsvCell, CsvInputError, CsvNumberText, columnWithUnit, csvCell, toSi } from './csv-common';
+import { type CsvCell, CsvInputError, CsvNumberText, CsvWordText, columnWithUnit, csvCell, toSi } from './csv-common';
 import { fromBaseUnit, type Unit } from './quantity';
-import { type CsvTable, columnByBase, columnList, columnNamed, numberAt, readCsvTable, type TableColumn } from './small-csv';
+import { type CsvTable, columnByBase, columnList, columnNamed, numberAt, scanCsvTable, type TableColumn, type TableRow } from './small-csv';
 
 /** The delay column's default name. */
 export const DEFAULT_DELAY_COLUMN = 'delay_s';
@@ -76,25 +76,58 @@ export interface DelayBatch {
  * missing column with the columns present.
  */
 export function parseDelayCsv(input: string | Uint8Array, options: { column?: string } = {}): DelayBatch {
-  const table = readCsvTable(input, 'delay');
-  const delay = findDelayColumn(table, options.column);
-  const distance = columnByBase(table, 'distance', 'length');
-  const pressure = columnByBase(table, 'pressure', 'pressure');
-  const timestamp = columnNamed(table, 'timestamp', null);
-  // The delay cell is read once, as written; its SI value is that scaled (as numberAt would).
-  const delayAsWritten: TableColumn = { ...delay, pow10: 0 };
-  const rows = table.rows.map((row): DelayRow => {
-    const asWritten = numberAt(table, row, delayAsWritten) as number;
-    const out: DelayRow = { line: row.line, delayAsWritten: asWritten, delay_s: toSi(asWritten, delay.pow10) };
-    const d = distance ? numberAt(table, row, distance, true) : undefined;
-    if (d !== undefined) out.distance_m = d;
-    const p = pressure ? numberAt(table, row, pressure, true) : undefined;
-    if (p !== undefined) out.pressure_Pa = p;
-    if (timestamp) out.timestamp = (row.cells[timestamp.index] ?? '').trim();
-    return out;
+  // Rows become DelayRows as they are read (no table of cells kept). Errors come in the order of
+  // reading the whole table first: the file's structure (ragged rows …), then a missing delay
+  // column, then the first cell that is not a number.
+  let columns: ReturnType<typeof delayColumns> | null = null;
+  let deferred: unknown = null;
+  const rows: DelayRow[] = [];
+  const table = scanCsvTable(input, 'delay', {
+    header: (t) => {
+      try {
+        columns = delayColumns(t, options.column);
+      } catch (error) {
+        deferred = error;
+      }
+    },
+    row: (t, row) => {
+      if (deferred !== null || columns === null) return;
+      try {
+        rows.push(delayRowOf(t, row, columns));
+      } catch (error) {
+        deferred = error;
+      }
+    },
   });
+  if (deferred !== null) throw deferred;
+  const found = columns as ReturnType<typeof delayColumns> | null;
+  if (found === null) throw new CsvInputError('missing-column', 'no delay column', table.headerLine);
   if (rows.length === 0) throw new CsvInputError('no-data', `no delays after the header (line ${table.headerLine})`);
-  return { rows, delayColumn: delay.name, hasTimestamp: timestamp !== undefined, hasPressure: pressure !== undefined };
+  return { rows, delayColumn: found.delay.name, hasTimestamp: found.timestamp !== undefined, hasPressure: found.pressure !== undefined };
+}
+
+/** The batch's columns, found once from the header. */
+function delayColumns(table: CsvTable, column: string | undefined) {
+  const delay = findDelayColumn(table, column);
+  return {
+    delay,
+    // The delay cell is read once, as written; its SI value is that scaled (as numberAt would).
+    delayAsWritten: { ...delay, pow10: 0 } as TableColumn,
+    distance: columnByBase(table, 'distance', 'length'),
+    pressure: columnByBase(table, 'pressure', 'pressure'),
+    timestamp: columnNamed(table, 'timestamp', null),
+  };
+}
+
+function delayRowOf(table: CsvTable, row: TableRow, c: ReturnType<typeof delayColumns>): DelayRow {
+  const asWritten = numberAt(table, row, c.delayAsWritten) as number;
+  const out: DelayRow = { line: row.line, delayAsWritten: asWritten, delay_s: toSi(asWritten, c.delay.pow10) };
+  const d = c.distance ? numberAt(table, row, c.distance, true) : undefined;
+  if (d !== undefined) out.distance_m = d;
+  const p = c.pressure ? numberAt(table, row, c.pressure, true) : undefined;
+  if (p !== undefined) out.pressure_Pa = p;
+  if (c.timestamp) out.timestamp = (row.cells[c.timestamp.index] ?? '').trim();
+  return out;
 }
 
 function findDelayColumn(table: CsvTable, column: string | undefined): TableColumn {
@@ -412,26 +445,37 @@ const CSV_CHUNK_CHARS = 1 << 16;
 /**
  * The results as CSV text in chunks of about 64 k characters (whole lines), for writing a batch
  * of any length without holding its text: the same text as {@link delayResultsToCsv}. Each row
- * is written straight into the chunk, no cell array; a number written in the same row just
- * before (the chosen T and its Ti, the default distance on every row) is converted once
- * ({@link CsvNumberText}).
+ * is written straight into the chunk, no cell array; a number that repeats down its column (the
+ * default distance) or within a few cells (the chosen T and its Ti, {@link CsvNumberText}) is
+ * converted to text once.
  */
 export function* delayResultCsvChunks(results: DelayBatchResults, units: ResultUnits = {}, chunkChars = CSV_CHUNK_CHARS): Generator<string, void, undefined> {
   const columns = columnsOf(results.batch);
+  // A number is converted once when it repeats down its column (the default distance) or within
+  // a few cells of its row (the chosen T and its Ti); codes and notes are checked for quoting once.
   const numbers = new CsvNumberText();
+  const words = new CsvWordText();
+  const lastValue = new Float64Array(columns.length).fill(Number.NaN);
+  const lastText: string[] = columns.map(() => '');
   let chunk = `${delayResultHeader(results.batch, units).map(csvCell).join(',')}\n`;
   for (let i = 0; i < results.count; i++) {
     if (chunk.length >= chunkChars) {
       yield chunk;
       chunk = '';
     }
-    let line = '';
     for (let c = 0; c < columns.length; c++) {
       const cell = (columns[c] as ResultColumn).cell(results, i, units);
-      const text = typeof cell === 'number' ? numbers.text(cell) : csvCell(cell);
-      line = c === 0 ? text : `${line},${text}`;
+      let text: string;
+      if (typeof cell !== 'number') text = cell == null || cell === '' ? '' : words.text(cell);
+      else if (cell === lastValue[c]) text = lastText[c] as string;
+      else {
+        text = numbers.text(cell);
+        lastValue[c] = cell;
+        lastText[c] = text;
+      }
+      chunk += c === 0 ? text : `,${text}`;
     }
-    chunk += `${line}\n`;
+    chunk += '\n';
   }
   if (chunk !== '') yield chunk;
 }

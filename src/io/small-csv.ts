@@ -33,6 +33,22 @@ export interface CsvTable {
  * sends every file through Papa Parse (the tests compare it with the quick split of plain files).
  */
 export function readCsvTable(input: string | Uint8Array, what = 'table', options: { papa?: boolean } = {}): CsvTable {
+  return scanCsvTable(input, what, { row: (table, row) => table.rows.push(row) }, options);
+}
+
+/** What {@link scanCsvTable} calls: once with the header, then once per row (its `rows` stays empty). */
+export interface CsvTableVisitor {
+  header?(table: CsvTable): void;
+  row(table: CsvTable, row: TableRow): void;
+}
+
+/**
+ * Reads a table row by row, handing each row to `visit` as it is read, so a caller that turns
+ * rows into its own records keeps no cell arrays (a 200 000-row file then costs one record per
+ * row, not three objects that all outlive the read). Same checks and errors as
+ * {@link readCsvTable}, which is this collecting the rows.
+ */
+export function scanCsvTable(input: string | Uint8Array, what: string, visit: CsvTableVisitor, options: { papa?: boolean } = {}): CsvTable {
   const size = typeof input === 'string' ? input.length : input.byteLength;
   if (size > TABLE_CSV_SIZE_LIMIT_BYTES) {
     throw new CsvInputError('too-large', `the ${what} file is ${Math.round(size / 1048576)} MiB, over the ${TABLE_CSV_SIZE_LIMIT_BYTES / 1048576} MiB limit`);
@@ -47,35 +63,45 @@ export function readCsvTable(input: string | Uint8Array, what = 'table', options
   // cells at the delimiter, no cell spanning lines. Otherwise Papa reads quotes and CRLF.
   const plain = options.papa !== true && text.indexOf('"') < 0 && text.indexOf('\r') < 0;
   const data = plain
-    ? text.split('\n').map((row) => row.split(delimiter))
+    ? plainRows(text, delimiter)
     : Papa.parse<string[]>(text, { delimiter, quoteChar: '"', escapeChar: '"', skipEmptyLines: false, header: false }).data;
   let line = 1;
-  let header: string[] | null = null;
-  let headerLine = 0;
-  const rows: TableRow[] = [];
+  let table: CsvTable | null = null;
   for (const cells of data) {
     const here = line;
     line += plain ? 1 : 1 + cells.reduce((n, c) => n + newlinesIn(c), 0);
     if (cells.every((c) => c.trim() === '') || (cells[0] ?? '').trimStart().startsWith('#')) continue;
-    if (header === null) {
-      header = cells.map((c) => c.trim());
-      headerLine = here;
+    if (table === null) {
+      const header = cells.map((c) => c.trim());
       if (header.every((c) => Number.isFinite(readNumberCell(c, delimiter !== ',')))) {
         throw new CsvInputError('header', `the first row is numbers; the ${what} needs a header row of column names first`, here);
       }
+      table = { header, headerLine: here, rows: [], delimiter };
+      visit.header?.(table);
       continue;
     }
-    if (cells.length !== header.length) {
+    if (cells.length !== table.header.length) {
       const foreign = (['\t', ';', ','] as const).find((x) => x !== delimiter && !(x === ',' && delimiter !== ',') && cells.some((c) => c.includes(x)));
       if (foreign !== undefined) {
         throw new CsvInputError('mixed-delimiters', `mixed delimiters: a ${delimiterName(foreign)} in a ${delimiterName(delimiter)}-delimited file`, here);
       }
-      throw new CsvInputError('ragged', `ragged row: ${cells.length} cells where the header (line ${headerLine}) has ${header.length}`, here);
+      throw new CsvInputError('ragged', `ragged row: ${cells.length} cells where the header (line ${table.headerLine}) has ${table.header.length}`, here);
     }
-    rows.push({ line: here, cells });
+    visit.row(table, { line: here, cells });
   }
-  if (header === null) throw new CsvInputError('no-data', `the ${what} file holds only comment lines`);
-  return { header, headerLine, rows, delimiter };
+  if (table === null) throw new CsvInputError('no-data', `the ${what} file holds only comment lines`);
+  return table;
+}
+
+/** The lines of `text` split at "\n", each split at the delimiter, one at a time. */
+function* plainRows(text: string, delimiter: Delimiter): Generator<string[], void, undefined> {
+  let start = 0;
+  for (;;) {
+    const end = text.indexOf('\n', start);
+    yield text.slice(start, end < 0 ? text.length : end).split(delimiter);
+    if (end < 0) return;
+    start = end + 1;
+  }
 }
 
 function firstContentLine(text: string): string {

@@ -12,7 +12,7 @@ import { afterAll, describe, expect, it } from 'vitest';
 import type { CliIo } from '../../src/cli/io';
 import { main } from '../../src/cli/main';
 import { convertDelayBatch, delayResultCsvChunks, delayResultsToCsv, parseDelayCsv } from '../../src/io/delay-batch';
-import { CsvNumberText, csvCell } from '../../src/io/csv-common';
+import { CsvNumberText, CsvWordText, csvCell } from '../../src/io/csv-common';
 import { run } from '../support/cli-harness';
 
 const REPO_ROOT = fileURLToPath(new URL('../..', import.meta.url));
@@ -90,6 +90,12 @@ describe('CsvNumberText', () => {
     const numbers = new CsvNumberText();
     const values = [0.1 + 0.2, 0.05, 0.05, -0, 0, 1e21, 1e-7, 123456789012345680000, Number.NaN, Number.POSITIVE_INFINITY, 2, 2.0000000000000004, 0.05, 7, -3.5e-12, 0.30000000000000004];
     for (const x of values) expect(numbers.text(x)).toBe(csvCell(x));
+  });
+
+  it('CsvWordText writes every text cell as csvCell does, seen before or not', () => {
+    const words = new CsvWordText();
+    const cells = ['low', 'low', 'a,b', 'a,b', ' padded', 'say "hi"', 'two\nlines', '', 'x'.repeat(40), true, 'low', 'insensitive Landau-model'];
+    for (const cell of cells) expect(words.text(cell)).toBe(csvCell(cell));
   });
 });
 

@@ -158,7 +158,7 @@ if (!python) {
 
 const dir = mkdtempSync(join(tmpdir(), 'sekundo-peers-'));
 try {
-  console.log(`Sekundo: node ${SEKUNDO}; peers: ${python}; ${RUNS} alternating runs each, medians of whole-process wall time.`);
+  console.log(`Sekundo: node ${SEKUNDO}; peers: ${python}; ${RUNS} alternating runs each; medians of whole-process wall and CPU time.`);
   const node = process.execPath;
   if (opts.only !== 'trace') {
     const delays = join(dir, 'delays.csv');

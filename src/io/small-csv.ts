@@ -70,7 +70,10 @@ export function scanCsvTable(input: string | Uint8Array, what: string, visit: Cs
   for (const cells of data) {
     const here = line;
     line += plain ? 1 : 1 + cells.reduce((n, c) => n + newlinesIn(c), 0);
-    if (cells.every((c) => c.trim() === '') || (cells[0] ?? '').trimStart().startsWith('#')) continue;
+    // A row whose first character is printable ASCII other than "#" is neither blank nor a comment.
+    const first = (cells[0] ?? '').charCodeAt(0);
+    const plainStart = first > 32 && first < 127 && first !== 35;
+    if (!plainStart && (cells.every((c) => c.trim() === '') || (cells[0] ?? '').trimStart().startsWith('#'))) continue;
     if (table === null) {
       const header = cells.map((c) => c.trim());
       if (header.every((c) => Number.isFinite(readNumberCell(c, delimiter !== ',')))) {

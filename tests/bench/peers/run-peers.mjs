@@ -13,7 +13,10 @@
  * Needs a python3 with numpy, scipy and pandas: $PYTHON, else python3 on PATH, else
  * /usr/bin/python3. Without one it prints why and exits 0 (skipped).
  *
- * Usage: node tests/bench/peers/run-peers.mjs [--runs N] [--only delay|trace] [--sekundo BIN]
+ * It also times the cold start first (no Python needed): `sekundo --version` and `sekundo props
+ * --temperature 1.8K` against `node -e 0`, 4 × --runs alternations, medians.
+ *
+ * Usage: node tests/bench/peers/run-peers.mjs [--runs N] [--only cold|delay|trace] [--sekundo BIN]
  *   --sekundo BIN: the program to time (default bin/sekundo.mjs of this checkout), e.g. another
  *   checkout's bin/sekundo.mjs to compare before and after.
  * Also `npm run bench:peers`. A benchmark, not a test: nothing here fails on time.
@@ -150,6 +153,35 @@ function compare(name, sekundo, peer, dir) {
   line('cpu');
 }
 
+/** Cold start: `sekundo --version` and `sekundo props` against `node -e 0`, alternating, medians. */
+function coldStart(dir) {
+  const node = process.execPath;
+  const cases = [
+    ['node -e 0', [node, ['-e', '0']]],
+    ['sekundo --version', [node, [SEKUNDO, '--version']]],
+    ['sekundo props --temperature 1.8K', [node, [SEKUNDO, 'props', '--temperature', '1.8K']]],
+  ];
+  const times = cases.map(() => []);
+  for (const [, run] of cases) timeOne(...run, join(dir, 'cold.out'));
+  for (let r = 0; r < RUNS * 4; r++) cases.forEach(([, run], k) => times[k].push(timeOne(...run, join(dir, 'cold.out'))));
+  const base = { wall: median(times[0].map((t) => t.wall)), cpu: median(times[0].map((t) => t.cpu)) };
+  cases.forEach(([name], k) => {
+    const wall = median(times[k].map((t) => t.wall));
+    const cpu = median(times[k].map((t) => t.cpu));
+    console.log(`cold   ${name.padEnd(33)} wall ${wall.toFixed(0).padStart(5)} ms (${(wall / base.wall).toFixed(2)}× node -e 0)   cpu ${cpu.toFixed(0).padStart(5)} ms (${(cpu / base.cpu).toFixed(2)}×)`);
+  });
+}
+
+if (opts.only === undefined || opts.only === 'cold') {
+  const dir = mkdtempSync(join(tmpdir(), 'sekundo-cold-'));
+  try {
+    coldStart(dir);
+  } finally {
+    rmSync(dir, { recursive: true, force: true });
+  }
+}
+if (opts.only === 'cold') process.exit(0);
+
 const { python, tried } = findPython();
 if (!python) {
   console.log(`peer benchmarks skipped: no python3 with numpy, scipy and pandas (tried ${tried.join(', ')}); set PYTHON to one.`);
@@ -160,7 +192,7 @@ const dir = mkdtempSync(join(tmpdir(), 'sekundo-peers-'));
 try {
   console.log(`Sekundo: node ${SEKUNDO}; peers: ${python}; ${RUNS} alternating runs each; medians of whole-process wall and CPU time.`);
   const node = process.execPath;
-  if (opts.only !== 'trace') {
+  if (opts.only === undefined || opts.only === 'delay') {
     const delays = join(dir, 'delays.csv');
     writeDelays(delays);
     compare(
@@ -170,7 +202,7 @@ try {
       dir,
     );
   }
-  if (opts.only !== 'delay') {
+  if (opts.only === undefined || opts.only === 'trace') {
     const trace = join(dir, 'trace.csv');
     writeTrace(trace);
     compare(

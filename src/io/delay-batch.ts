@@ -457,11 +457,14 @@ export function* delayResultCsvChunks(results: DelayBatchResults, units: ResultU
   const words = new CsvWordText();
   const lastValue = new Float64Array(columns.length).fill(Number.NaN);
   const lastText: string[] = columns.map(() => '');
-  let chunk = `${delayResultHeader(results.batch, units).map(csvCell).join(',')}\n`;
+  let lines: string[] = [delayResultHeader(results.batch, units).map(csvCell).join(',')];
+  let chars = 0;
+  const texts: string[] = columns.map(() => '');
   for (let i = 0; i < results.count; i++) {
-    if (chunk.length >= chunkChars) {
-      yield chunk;
-      chunk = '';
+    if (chars >= chunkChars || (i === 0 && (lines[0] as string).length >= chunkChars)) {
+      yield `${lines.join('\n')}\n`;
+      lines = [];
+      chars = 0;
     }
     for (let c = 0; c < columns.length; c++) {
       const cell = (columns[c] as ResultColumn).cell(results, i, units);
@@ -473,11 +476,13 @@ export function* delayResultCsvChunks(results: DelayBatchResults, units: ResultU
         lastValue[c] = cell;
         lastText[c] = text;
       }
-      chunk += c === 0 ? text : `,${text}`;
+      texts[c] = text;
     }
-    chunk += '\n';
+    const line = texts.join(',');
+    lines.push(line);
+    chars += line.length + 1;
   }
-  if (chunk !== '') yield chunk;
+  if (lines.length > 0) yield `${lines.join('\n')}\n`;
 }
 
 /** The results as CSV text (RFC 4180 quoting, LF line ends, a header row first), columns in `units` where given. */

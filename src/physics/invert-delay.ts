@@ -43,6 +43,16 @@ function buildBranch(branch: Branch, lo: number, hi: number): BranchTable {
     const x = i / (TABLE_NODES - 1);
     temps.push(lo + (hi - lo) * (0.5 - 0.5 * Math.cos(Math.PI * x)));
   }
+  const speeds = Float64Array.from(temps, (T) => secondSoundValueUnchecked(T));
+  // Each branch is monotonic, so the nodes are already in order of speed (reversed on a falling
+  // branch); only where rounding breaks strict order are they sorted, as pairs (a stable sort).
+  const falling = (speeds[0] as number) > (speeds[TABLE_NODES - 1] as number);
+  const ordered = falling ? speeds.reverse() : speeds;
+  const orderedTemps = Float64Array.from(temps);
+  if (falling) orderedTemps.reverse();
+  let strict = true;
+  for (let i = 1; i < TABLE_NODES && strict; i++) strict = (ordered[i] as number) > (ordered[i - 1] as number);
+  if (strict) return { branch, lo, hi, speeds: ordered, temps: orderedTemps };
   const pairs = temps.map((T) => [secondSoundValueUnchecked(T), T] as const).sort((a, b) => a[0] - b[0]);
   return {
     branch,

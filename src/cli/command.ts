@@ -1,6 +1,6 @@
 /**
- * The shape of one command. main.ts keeps a table of these; adding a command (arrivals, plan,
- * delay, trace, fit, locate) means writing one module that exports a Command and listing it there.
+ * The shape of one command. commands/index.ts keeps the table of them; adding a command means
+ * writing one module that exports a Command and listing it there.
  */
 import type { FlagSpec, OperandSpec, ParsedArgs } from './args';
 import type { CliIo } from './io';
@@ -19,6 +19,9 @@ export interface Command {
   readonly operands?: readonly OperandSpec[];
   /** Complete example invocations, without the leading "sekundo ". */
   readonly examples: readonly string[];
-  /** Runs the command; returns the exit status. Throws UsageError for bad input. */
-  run(args: ParsedArgs, io: CliIo): number;
+  /**
+   * Runs the command; returns the exit status (a promise for one that streams a long output).
+   * Throws (or rejects with) UsageError for bad input.
+   */
+  run(args: ParsedArgs, io: CliIo): number | Promise<number>;
 }

@@ -11,6 +11,12 @@ import { UsageError } from './errors';
 export interface CliIo {
   stdout(text: string): void;
   stderr(text: string): void;
+  /**
+   * Long outputs (see writeChunks in output.ts) ask this before each chunk: true once stdout can
+   * take more (waiting while its buffer drains), false when the reader has gone (a closed pipe):
+   * stop writing. Absent: always ready.
+   */
+  ready?(): boolean | Promise<boolean>;
 }
 
 /** Writers bound to the real process streams. */
@@ -20,6 +26,20 @@ export const processIo: CliIo = {
   },
   stderr: (text) => {
     process.stderr.write(text);
+  },
+  ready: () => {
+    const out = process.stdout;
+    if (out.destroyed || out.errored) return false;
+    if (!out.writableNeedDrain) return true;
+    return new Promise<boolean>((resolve) => {
+      const done = () => {
+        out.off('drain', done);
+        out.off('close', done);
+        resolve(!out.destroyed && !out.errored);
+      };
+      out.on('drain', done);
+      out.on('close', done);
+    });
   },
 };
 

@@ -6,21 +6,11 @@
  */
 import { HELP_FLAGS, parseFlags } from './args';
 import type { Command } from './command';
-import { arrivalsCommand } from './commands/arrivals';
-import { delayCommand } from './commands/delay';
-import { fitCommand } from './commands/fit';
-import { locateCommand } from './commands/locate';
-import { planCommand } from './commands/plan';
-import { propsCommand } from './commands/props';
-import { traceCommand } from './commands/trace';
-import { vapourCommand } from './commands/vapour';
+import { COMMAND_TABLE, loadAllCommands } from './commands/index';
 import { EXIT_INTERNAL, EXIT_OK, EXIT_USAGE, fieldOf, printableLine, UsageError } from './errors';
 import { renderCommandHelp, renderGeneralHelp } from './help';
 import { type CliIo, processIo } from './io';
 import { packageVersion } from './version';
-
-/** Every command, in the order `sekundo --help` lists them. Add new commands here. */
-export const COMMANDS: readonly Command[] = [propsCommand, vapourCommand, arrivalsCommand, planCommand, delayCommand, traceCommand, fitCommand, locateCommand];
 
 const PROGRAM = 'sekundo';
 const VERSION_FLAG = '--version';
@@ -32,7 +22,7 @@ const VERSION_FLAG = '--version';
 export async function main(argv: string[], io: CliIo = processIo): Promise<number> {
   const json = argv.includes('--json');
   try {
-    return dispatch(argv, io);
+    return await dispatch(argv, io);
   } catch (error) {
     if (error instanceof UsageError) {
       const message = printableLine(error.message);
@@ -45,7 +35,7 @@ export async function main(argv: string[], io: CliIo = processIo): Promise<numbe
   }
 }
 
-function dispatch(argv: readonly string[], io: CliIo): number {
+async function dispatch(argv: readonly string[], io: CliIo): Promise<number> {
   const [first, ...rest] = argv;
   if (first === undefined) throw new UsageError(`no command given; commands: ${commandNames()} (try "${PROGRAM} --help")`);
   if (HELP_FLAGS.includes(first)) return printGeneralHelp(rest, io);
@@ -54,7 +44,7 @@ function dispatch(argv: readonly string[], io: CliIo): number {
   if (first.startsWith('-')) {
     throw new UsageError(`unknown flag ${first.split('=')[0]}; give a command first: ${commandNames()}`);
   }
-  const command = findCommand(first);
+  const command = await findCommand(first);
   if (rest.some((token) => HELP_FLAGS.includes(token))) {
     io.stdout(renderCommandHelp(command));
     return EXIT_OK;
@@ -62,9 +52,9 @@ function dispatch(argv: readonly string[], io: CliIo): number {
   return command.run(parseFlags(command.name, rest, command.flags, command.operands), io);
 }
 
-function printGeneralHelp(rest: readonly string[], io: CliIo): number {
+async function printGeneralHelp(rest: readonly string[], io: CliIo): Promise<number> {
   requireNothingAfter(HELP_FLAGS[0] ?? '--help', rest);
-  io.stdout(renderGeneralHelp(COMMANDS, packageVersion()));
+  io.stdout(renderGeneralHelp(await loadAllCommands(), packageVersion()));
   return EXIT_OK;
 }
 
@@ -74,18 +64,18 @@ function printVersion(rest: readonly string[], io: CliIo): number {
   return EXIT_OK;
 }
 
-function printHelpFor(rest: readonly string[], io: CliIo): number {
+async function printHelpFor(rest: readonly string[], io: CliIo): Promise<number> {
   const [name, ...extra] = rest;
   if (name === undefined) return printGeneralHelp([], io);
   requireNothingAfter(`help ${name}`, extra);
-  io.stdout(renderCommandHelp(findCommand(name)));
+  io.stdout(renderCommandHelp(await findCommand(name)));
   return EXIT_OK;
 }
 
-function findCommand(name: string): Command {
-  const command = COMMANDS.find((c) => c.name === name);
-  if (!command) throw new UsageError(`unknown command "${name}"; commands: ${commandNames()}, help`);
-  return command;
+function findCommand(name: string): Promise<Command> {
+  const entry = COMMAND_TABLE.find((c) => c.name === name);
+  if (!entry) throw new UsageError(`unknown command "${name}"; commands: ${commandNames()}, help`);
+  return entry.load();
 }
 
 function requireNothingAfter(what: string, rest: readonly string[]): void {
@@ -94,7 +84,7 @@ function requireNothingAfter(what: string, rest: readonly string[]): void {
 }
 
 function commandNames(): string {
-  return COMMANDS.map((c) => c.name).join(', ');
+  return COMMAND_TABLE.map((c) => c.name).join(', ');
 }
 
 function describeError(error: unknown): string {

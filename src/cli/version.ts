@@ -1,15 +1,12 @@
 /**
- * The version printed by `sekundo --version`, read from the project's package.json.
+ * The version printed by `sekundo --version`: package.json's "version" field, read when the
+ * module loads (the CLI bundle carries it in, so the bundle needs no file beside it).
  */
-import { readFileSync } from 'node:fs';
+import packageJson from '../../package.json' with { type: 'json' };
 
-const PACKAGE_JSON = new URL('../../package.json', import.meta.url);
-
-/** The "version" field of package.json. Throws if the file is missing or has no version. */
+/** The "version" field of package.json. Throws if it is not a string. */
 export function packageVersion(): string {
-  const parsed: unknown = JSON.parse(readFileSync(PACKAGE_JSON, 'utf8'));
-  if (typeof parsed === 'object' && parsed !== null && 'version' in parsed && typeof parsed.version === 'string') {
-    return parsed.version;
-  }
+  const version: unknown = packageJson.version;
+  if (typeof version === 'string') return version;
   throw new Error('package.json has no "version" string');
 }

@@ -59,9 +59,9 @@ import {
   speedSigmasFromTurn,
   type TemperatureCandidate,
 } from '../physics';
-import { type CsvCell, CsvInputError, columnWithUnit, writeCsv } from './csv-common';
+import { type CsvCell, CsvInputError, CsvNumberText, CsvWordText, columnWithUnit, csvCell, toSi } from './csv-common';
 import { fromBaseUnit, type Unit } from './quantity';
-import { type CsvTable, columnByBase, columnList, columnNamed, numberAt, readCsvTable, type TableColumn } from './small-csv';
+import { type CsvTable, columnByBase, columnList, columnNamed, numberAt, scanCsvTable, type TableColumn, type TableRow } from './small-csv';
 
 /** The delay column's default name. */
 export const DEFAULT_DELAY_COLUMN = 'delay_s';
@@ -92,23 +92,58 @@ export interface DelayBatch {
  * missing column with the columns present.
  */
 export function parseDelayCsv(input: string | Uint8Array, options: { column?: string } = {}): DelayBatch {
-  const table = readCsvTable(input, 'delay');
-  const delay = findDelayColumn(table, options.column);
-  const distance = columnByBase(table, 'distance', 'length');
-  const pressure = columnByBase(table, 'pressure', 'pressure');
-  const timestamp = columnNamed(table, 'timestamp', null);
-  const rows = table.rows.map((row): DelayRow => {
-    const delay_s = numberAt(table, row, delay) as number;
-    const out: DelayRow = { line: row.line, delayAsWritten: numberAt(table, row, { ...delay, pow10: 0 }) as number, delay_s };
-    const d = distance ? numberAt(table, row, distance, true) : undefined;
-    if (d !== undefined) out.distance_m = d;
-    const p = pressure ? numberAt(table, row, pressure, true) : undefined;
-    if (p !== undefined) out.pressure_Pa = p;
-    if (timestamp) out.timestamp = (row.cells[timestamp.index] ?? '').trim();
-    return out;
+  // Rows become DelayRows as they are read (no table of cells kept). Errors come in the order of
+  // reading the whole table first: the file's structure (ragged rows …), then a missing delay
+  // column, then the first cell that is not a number.
+  let columns: ReturnType<typeof delayColumns> | null = null;
+  let deferred: unknown = null;
+  const rows: DelayRow[] = [];
+  const table = scanCsvTable(input, 'delay', {
+    header: (t) => {
+      try {
+        columns = delayColumns(t, options.column);
+      } catch (error) {
+        deferred = error;
+      }
+    },
+    row: (t, row) => {
+      if (deferred !== null || columns === null) return;
+      try {
+        rows.push(delayRowOf(t, row, columns));
+      } catch (error) {
+        deferred = error;
+      }
+    },
   });
+  if (deferred !== null) throw deferred;
+  const found = columns as ReturnType<typeof delayColumns> | null;
+  if (found === null) throw new CsvInputError('missing-column', 'no delay column', table.headerLine);
   if (rows.length === 0) throw new CsvInputError('no-data', `no delays after the header (line ${table.headerLine})`);
-  return { rows, delayColumn: delay.name, hasTimestamp: timestamp !== undefined, hasPressure: pressure !== undefined };
+  return { rows, delayColumn: found.delay.name, hasTimestamp: found.timestamp !== undefined, hasPressure: found.pressure !== undefined };
+}
+
+/** The batch's columns, found once from the header. */
+function delayColumns(table: CsvTable, column: string | undefined) {
+  const delay = findDelayColumn(table, column);
+  return {
+    delay,
+    // The delay cell is read once, as written; its SI value is that scaled (as numberAt would).
+    delayAsWritten: { ...delay, pow10: 0 } as TableColumn,
+    distance: columnByBase(table, 'distance', 'length'),
+    pressure: columnByBase(table, 'pressure', 'pressure'),
+    timestamp: columnNamed(table, 'timestamp', null),
+  };
+}
+
+function delayRowOf(table: CsvTable, row: TableRow, c: ReturnType<typeof delayColumns>): DelayRow {
+  const asWritten = numberAt(table, row, c.delayAsWritten) as number;
+  const out: DelayRow = { line: row.line, delayAsWritten: asWritten, delay_s: toSi(asWritten, c.delay.pow10) };
+  const d = c.distance ? numberAt(table, row, c.distance, true) : undefined;
+  if (d !== undefined) out.distance_m = d;
+  const p = c.pressure ? numberAt(table, row, c.pressure, true) : undefined;
+  if (p !== undefined) out.pressure_Pa = p;
+  if (c.timestamp) out.timestamp = (row.cells[c.timestamp.index] ?? '').trim();
+  return out;
 }
 
 function findDelayColumn(table: CsvTable, column: string | undefined): TableColumn {
@@ -206,6 +241,9 @@ export interface DelayResult extends DelayConversion {
   warnings: ReadingWarning[];
 }
 
+/** Temperatures in the chooser's reasons, which a batch does not keep. */
+const noWords = (): string => '';
+
 /** The start rule used when none is given: decides only a reading with a single candidate. */
 const ONLY_CANDIDATE: ChoiceRule = { kind: 'range', min_K: 0, max_K: PROPERTIES_RANGE_K[1] };
 
@@ -247,7 +285,8 @@ export function convertDelayBatch(batch: DelayBatch, settings: DelayBatchSetting
     across: new Int8Array(n).fill(-1),
     warnings: new Uint8Array(n),
   };
-  const choose = seriesChooser(settings.start ?? ONLY_CANDIDATE);
+  // The batch keeps which rule chose, not the reason in words: no temperature text per row.
+  const choose = seriesChooser(settings.start ?? ONLY_CANDIDATE, noWords);
   const byCode: Readonly<Record<SeriesChoiceBy, number>> = {
     own: CHOSEN_BY_CODES.indexOf('pressure'),
     start: CHOSEN_BY_CODES.indexOf(settings.start ? settings.start.kind : 'only candidate'),
@@ -449,6 +488,15 @@ function noteOf(extremum: boolean, insensitive: boolean, region: number): string
   return words.join(' ');
 }
 
+/** Every note a candidate can have, by kind (0 root, 1 extremum) × insensitive × region, built once. */
+const NOTES: readonly string[] = Array.from({ length: 2 * 2 * REGION_CODES.length }, (_, code) =>
+  noteOf(code >= 2 * REGION_CODES.length, Math.floor(code / REGION_CODES.length) % 2 === 1, code % REGION_CODES.length),
+);
+
+function noteAt(r: DelayBatchResults, j: number): string {
+  return NOTES[((r.kind[j] === 1 ? 2 : 0) + (r.insensitive[j] === 1 ? 1 : 0)) * REGION_CODES.length + (r.region[j] as number)] as string;
+}
+
 /**
  * Units of the output columns by kind; a kind not given stays as described above (kelvin, metres,
  * pascals, the delay echoed as written).
@@ -465,54 +513,163 @@ function inUnit(value: number | null | undefined, unit: Unit | undefined): numbe
   return value == null || unit === undefined ? value : fromBaseUnit(value, unit);
 }
 
+type BatchShape = Pick<DelayBatch, 'delayColumn' | 'hasTimestamp' | 'hasPressure'>;
+
+/**
+ * One column of the results CSV: its name, whether a batch has it, and its cell in row i. The
+ * header, the page's table export and the streamed CSV all read {@link RESULT_COLUMNS}, so a new
+ * column is one entry there.
+ */
+interface ResultColumn {
+  name(batch: BatchShape, units: ResultUnits): string;
+  /** Absent: every batch has the column. */
+  present?(batch: BatchShape): boolean;
+  cell(r: DelayBatchResults, i: number, units: ResultUnits): CsvCell;
+}
+
+/** Index of row i's chosen candidate in the candidate columns, or −1. */
+function chosenAt(r: DelayBatchResults, i: number): number {
+  const chosen = r.chosen[i] as number;
+  return chosen < 0 ? -1 : i * MAX_CANDIDATES + chosen;
+}
+
+/** Index of row i's candidate k in the candidate columns, or −1 when the row has fewer. */
+function candidateAt(r: DelayBatchResults, i: number, k: number): number {
+  return k < (r.candidateCount[i] as number) ? i * MAX_CANDIDATES + k : -1;
+}
+
+/** Columns Ti_K, Ti_sd_K, Ti_branch, Ti_note for candidate k (0-based). */
+function candidateColumns(k: number): ResultColumn[] {
+  const n = k + 1;
+  return [
+    { name: (_b, u) => columnWithUnit(`T${n}`, u.temperature ?? 'K'), cell: (r, i, u) => valueAt(r.temperature_K, candidateAt(r, i, k), u.temperature) },
+    { name: (_b, u) => columnWithUnit(`T${n}_sd`, u.temperature ?? 'K'), cell: (r, i, u) => valueAt(r.sd_K, candidateAt(r, i, k), u.temperature) },
+    { name: () => `T${n}_branch`, cell: (r, i) => codeAt(BRANCH_CODES, r.branch, candidateAt(r, i, k)) },
+    { name: () => `T${n}_note`, cell: (r, i) => (candidateAt(r, i, k) < 0 ? null : noteAt(r, candidateAt(r, i, k))) },
+  ];
+}
+
+function valueAt(column: Float64Array, j: number, unit: Unit | undefined): number | null | undefined {
+  return j < 0 ? null : inUnit(column[j], unit);
+}
+
+function codeAt<T>(codes: readonly T[], column: Uint8Array, j: number): T | null {
+  return j < 0 ? null : (codes[column[j] as number] ?? null);
+}
+
+/** A column of the chosen candidate's temperature-like value (an sd part, an interval end), in the temperature unit. */
+function chosenTemperatureColumn(name: string, column: (r: DelayBatchResults) => Float64Array): ResultColumn {
+  return { name: (_b, u) => columnWithUnit(name, u.temperature ?? 'K'), cell: (r, i, u) => valueAt(column(r), chosenAt(r, i), u.temperature) };
+}
+
+/** Row i is undecided past a turn of u₂, with both continuations kept. */
+function ambiguousAt(r: DelayBatchResults, i: number): boolean {
+  return (r.chosen[i] as number) < 0 && (r.along[i] as number) >= 0;
+}
+
+/** The results CSV's columns, in order (see the module comment). */
+const RESULT_COLUMNS: readonly ResultColumn[] = [
+  { name: () => 'line', cell: (r, i) => (r.batch.rows[i] as DelayRow).line },
+  { name: () => 'timestamp', present: (b) => b.hasTimestamp, cell: (r, i) => (r.batch.rows[i] as DelayRow).timestamp ?? '' },
+  {
+    name: (b, u) => (u.time ? columnWithUnit('delay', u.time) : b.delayColumn),
+    cell: (r, i, u) => {
+      const row = r.batch.rows[i] as DelayRow;
+      return u.time ? fromBaseUnit(row.delay_s, u.time) : row.delayAsWritten;
+    },
+  },
+  { name: (_b, u) => columnWithUnit('distance', u.length ?? 'm'), cell: (r, i, u) => inUnit(r.distance_m[i], u.length) },
+  { name: (_b, u) => columnWithUnit('pressure', u.pressure ?? 'Pa'), present: (b) => b.hasPressure, cell: (r, i, u) => inUnit((r.batch.rows[i] as DelayRow).pressure_Pa ?? null, u.pressure) },
+  { name: () => 'speed_m_s', cell: (r, i) => r.speed_m_s[i] },
+  { name: () => 'speedSd_m_s', cell: (r, i) => r.speedSd_m_s[i] },
+  { name: () => 'candidates', cell: (r, i) => r.candidateCount[i] },
+  { name: () => 'chosen', cell: (r, i) => ((r.chosen[i] as number) < 0 ? null : (r.chosen[i] as number) + 1) },
+  { name: () => 'chosen_by', cell: (r, i) => CHOSEN_BY_CODES[r.chosenBy[i] as number] ?? '' },
+  { name: (_b, u) => columnWithUnit('T', u.temperature ?? 'K'), cell: (r, i, u) => valueAt(r.temperature_K, chosenAt(r, i), u.temperature) },
+  { name: (_b, u) => columnWithUnit('T_sd', u.temperature ?? 'K'), cell: (r, i, u) => valueAt(r.sd_K, chosenAt(r, i), u.temperature) },
+  chosenTemperatureColumn('T_sd_meas', (r) => r.sdMeasurement_K),
+  chosenTemperatureColumn('T_sd_curve', (r) => r.sdCurve_K),
+  chosenTemperatureColumn('T_lo68', (r) => r.low68_K),
+  chosenTemperatureColumn('T_hi68', (r) => r.high68_K),
+  chosenTemperatureColumn('T_lo95', (r) => r.low95_K),
+  chosenTemperatureColumn('T_hi95', (r) => r.high95_K),
+  {
+    name: () => 'evidence_sd',
+    cell: (r, i) => {
+      const j = chosenAt(r, i);
+      const e = j < 0 ? Number.NaN : (r.evidenceSd[j] as number);
+      return Number.isNaN(e) ? null : e;
+    },
+  },
+  { name: () => 'alternatives', cell: (r, i) => (ambiguousAt(r, i) ? `${(r.along[i] as number) + 1} ${(r.across[i] as number) + 1}` : '') },
+  { name: () => 'guess', cell: (r, i) => (ambiguousAt(r, i) ? (r.across[i] as number) + 1 : null) },
+  { name: () => 'warnings', cell: (r, i) => warningCodesAt(r, i).join(' ') },
+  ...Array.from({ length: MAX_CANDIDATES }, (_, k) => candidateColumns(k)).flat(),
+];
+
+function columnsOf(batch: BatchShape): ResultColumn[] {
+  return RESULT_COLUMNS.filter((c) => c.present?.(batch) ?? true);
+}
+
 /** The output header for a batch (see the module comment). */
-export function delayResultHeader(batch: Pick<DelayBatch, 'delayColumn' | 'hasTimestamp' | 'hasPressure'>, units: ResultUnits = {}): string[] {
-  const T = units.temperature ?? 'K';
-  const header = ['line'];
-  if (batch.hasTimestamp) header.push('timestamp');
-  header.push(units.time ? columnWithUnit('delay', units.time) : batch.delayColumn, columnWithUnit('distance', units.length ?? 'm'));
-  if (batch.hasPressure) header.push(columnWithUnit('pressure', units.pressure ?? 'Pa'));
-  header.push('speed_m_s', 'speedSd_m_s', 'candidates', 'chosen', 'chosen_by', columnWithUnit('T', T), columnWithUnit('T_sd', T));
-  header.push(...['T_sd_meas', 'T_sd_curve', 'T_lo68', 'T_hi68', 'T_lo95', 'T_hi95'].map((name) => columnWithUnit(name, T)), 'evidence_sd', 'alternatives', 'guess', 'warnings');
-  for (let i = 1; i <= MAX_CANDIDATES; i++) header.push(columnWithUnit(`T${i}`, T), columnWithUnit(`T${i}_sd`, T), `T${i}_branch`, `T${i}_note`);
-  return header;
+export function delayResultHeader(batch: BatchShape, units: ResultUnits = {}): string[] {
+  return columnsOf(batch).map((c) => c.name(batch, units));
 }
 
 /** Row `i`'s cells, in the order of {@link delayResultHeader}. */
 export function delayResultCells(r: DelayBatchResults, i: number, units: ResultUnits = {}): CsvCell[] {
-  const row = r.batch.rows[i] as DelayRow;
-  const T = units.temperature;
-  const cells: CsvCell[] = [row.line];
-  if (r.batch.hasTimestamp) cells.push(row.timestamp ?? '');
-  cells.push(units.time ? fromBaseUnit(row.delay_s, units.time) : row.delayAsWritten, inUnit(r.distance_m[i], units.length));
-  if (r.batch.hasPressure) cells.push(inUnit(row.pressure_Pa ?? null, units.pressure));
-  const chosen = r.chosen[i] as number;
-  const c = i * MAX_CANDIDATES + chosen;
-  const by = r.chosenBy[i] as number;
-  cells.push(r.speed_m_s[i], r.speedSd_m_s[i], r.candidateCount[i], chosen < 0 ? null : chosen + 1, CHOSEN_BY_CODES[by] ?? '');
-  cells.push(chosen < 0 ? null : inUnit(r.temperature_K[c], T), chosen < 0 ? null : inUnit(r.sd_K[c], T));
-  for (const column of [r.sdMeasurement_K, r.sdCurve_K, r.low68_K, r.high68_K, r.low95_K, r.high95_K]) cells.push(chosen < 0 ? null : inUnit(column[c], T));
-  const evidence = chosen < 0 ? Number.NaN : (r.evidenceSd[c] as number);
-  const along = r.along[i] as number;
-  const ambiguous = chosen < 0 && along >= 0;
-  cells.push(Number.isNaN(evidence) ? null : evidence, ambiguous ? `${along + 1} ${(r.across[i] as number) + 1}` : '', ambiguous ? (r.across[i] as number) + 1 : null, warningCodesAt(r, i).join(' '));
-  for (let k = 0; k < MAX_CANDIDATES; k++) {
-    const j = i * MAX_CANDIDATES + k;
-    const present = k < (r.candidateCount[i] as number);
-    cells.push(
-      present ? inUnit(r.temperature_K[j], T) : null,
-      present ? inUnit(r.sd_K[j], T) : null,
-      present ? BRANCH_CODES[r.branch[j] as number] : null,
-      present ? noteOf(r.kind[j] === 1, r.insensitive[j] === 1, r.region[j] as number) : null,
-    );
+  return columnsOf(r.batch).map((c) => c.cell(r, i, units));
+}
+
+/** Characters per chunk of {@link delayResultCsvChunks}. */
+const CSV_CHUNK_CHARS = 1 << 16;
+
+/**
+ * The results as CSV text in chunks of about 64 k characters (whole lines), for writing a batch
+ * of any length without holding its text: the same text as {@link delayResultsToCsv}. Each row
+ * is written straight into the chunk, no cell array; a number that repeats down its column (the
+ * default distance) or within a few cells (the chosen T and its Ti, {@link CsvNumberText}) is
+ * converted to text once.
+ */
+export function* delayResultCsvChunks(results: DelayBatchResults, units: ResultUnits = {}, chunkChars = CSV_CHUNK_CHARS): Generator<string, void, undefined> {
+  const columns = columnsOf(results.batch);
+  // A number is converted once when it repeats down its column (the default distance) or within
+  // a few cells of its row (the chosen T and its Ti); codes and notes are checked for quoting once.
+  const numbers = new CsvNumberText();
+  const words = new CsvWordText();
+  const lastValue = new Float64Array(columns.length).fill(Number.NaN);
+  const lastText: string[] = columns.map(() => '');
+  let lines: string[] = [delayResultHeader(results.batch, units).map(csvCell).join(',')];
+  let chars = 0;
+  const texts: string[] = columns.map(() => '');
+  for (let i = 0; i < results.count; i++) {
+    if (chars >= chunkChars || (i === 0 && (lines[0] as string).length >= chunkChars)) {
+      yield `${lines.join('\n')}\n`;
+      lines = [];
+      chars = 0;
+    }
+    for (let c = 0; c < columns.length; c++) {
+      const cell = (columns[c] as ResultColumn).cell(results, i, units);
+      let text: string;
+      if (typeof cell !== 'number') text = cell == null || cell === '' ? '' : words.text(cell);
+      else if (cell === lastValue[c]) text = lastText[c] as string;
+      else {
+        text = numbers.text(cell);
+        lastValue[c] = cell;
+        lastText[c] = text;
+      }
+      texts[c] = text;
+    }
+    const line = texts.join(',');
+    lines.push(line);
+    chars += line.length + 1;
   }
-  return cells;
+  if (lines.length > 0) yield `${lines.join('\n')}\n`;
 }
 
 /** The results as CSV text (RFC 4180 quoting, LF line ends, a header row first), columns in `units` where given. */
 export function delayResultsToCsv(results: DelayBatchResults, units: ResultUnits = {}): string {
-  return writeCsv(
-    delayResultHeader(results.batch, units),
-    Array.from({ length: results.count }, (_, i) => delayResultCells(results, i, units)),
-  );
+  let text = '';
+  for (const chunk of delayResultCsvChunks(results, units)) text += chunk;
+  return text;
 }

@@ -48,24 +48,48 @@ function buildNodes(): Float64Array {
 }
 
 const nodes = buildNodes();
-const cumulative = (() => {
-  const s = new Float64Array(nodes.length);
-  s[0] = heatCapacityUnchecked(HEAT_CAPACITY_MIN_K).value / 3;
-  for (let i = 1; i < nodes.length; i++) {
-    s[i] = (s[i - 1] as number) + integrateCOverT(nodes[i - 1] as number, nodes[i] as number);
-  }
-  return s;
-})();
-/** ds/dT = c/T at each node, evaluated on the node's own side of Tλ. */
-const slopes = nodes.map((T) => heatCapacityUnchecked(T).value / T);
+/**
+ * Cumulative entropy at each node and ds/dT = c/T there (on the node's own side of Tλ), filled on
+ * demand up to the highest node asked for, in the same order as a whole table: a program that
+ * asks for one temperature (the command line's `props`) integrates only the nodes below it.
+ */
+const cumulative = new Float64Array(nodes.length);
+let cumulativeFilled = 0;
+const slopes = new Float64Array(nodes.length).fill(Number.NaN);
+let leftSlopeAtLambda = Number.NaN;
 
-const leftSlopeAtLambda = heatCapacityUnchecked(T_LAMBDA_K * (1 - 1e-12)).value / T_LAMBDA_K;
+function cumulativeAt(i: number): number {
+  if (cumulativeFilled === 0) {
+    cumulative[0] = heatCapacityUnchecked(HEAT_CAPACITY_MIN_K).value / 3;
+    cumulativeFilled = 1;
+  }
+  for (; cumulativeFilled <= i; cumulativeFilled++) {
+    const k = cumulativeFilled;
+    cumulative[k] = (cumulative[k - 1] as number) + integrateCOverT(nodes[k - 1] as number, nodes[k] as number);
+  }
+  return cumulative[i] as number;
+}
+
+function slopeAt(i: number): number {
+  let m = slopes[i] as number;
+  if (Number.isNaN(m)) {
+    const T = nodes[i] as number;
+    m = heatCapacityUnchecked(T).value / T;
+    slopes[i] = m;
+  }
+  return m;
+}
+
+function slopeJustBelowLambda(): number {
+  if (Number.isNaN(leftSlopeAtLambda)) leftSlopeAtLambda = heatCapacityUnchecked(T_LAMBDA_K * (1 - 1e-12)).value / T_LAMBDA_K;
+  return leftSlopeAtLambda;
+}
 
 /** Entropy per unit mass in J/(kg·K), no range check (kernel-internal; 0.01 K ≤ T ≤ 4.24 K). */
 export function entropyUnchecked(T: number): number {
   let lo = 0;
   let hi = nodes.length - 1;
-  if (T >= (nodes[hi] as number)) return cumulative[hi] as number;
+  if (T >= (nodes[hi] as number)) return cumulativeAt(hi);
   while (hi - lo > 1) {
     const mid = (lo + hi) >> 1;
     if (T >= (nodes[mid] as number)) lo = mid;
@@ -74,11 +98,11 @@ export function entropyUnchecked(T: number): number {
   const t0 = nodes[lo] as number;
   const h = (nodes[lo + 1] as number) - t0;
   const u = (T - t0) / h;
+  const s1 = cumulativeAt(lo + 1);
   const s0 = cumulative[lo] as number;
-  const s1 = cumulative[lo + 1] as number;
   // Slopes at the interval's own ends: just inside Tλ the heat capacity jumps.
-  const m0 = (slopes[lo] as number) * h;
-  const m1 = (t0 < T_LAMBDA_K && (nodes[lo + 1] as number) === T_LAMBDA_K ? leftSlopeAtLambda : (slopes[lo + 1] as number)) * h;
+  const m0 = slopeAt(lo) * h;
+  const m1 = (t0 < T_LAMBDA_K && (nodes[lo + 1] as number) === T_LAMBDA_K ? slopeJustBelowLambda() : slopeAt(lo + 1)) * h;
   const u2 = u * u;
   const u3 = u2 * u;
   return (2 * u3 - 3 * u2 + 1) * s0 + (u3 - 2 * u2 + u) * m0 + (-2 * u3 + 3 * u2) * s1 + (u3 - u2) * m1;

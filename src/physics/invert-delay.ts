@@ -1,7 +1,7 @@
 import { MODEL_MIN_K } from './constants';
 import { requireInRange } from './errors';
 import { secondSoundRegion, secondSoundUnchecked, secondSoundValueUnchecked } from './second-sound';
-import { BRANCHES, type Branch, type Root, solveOnBranch } from './second-sound-branches';
+import { type Branch, branches, type Root, solveOnBranch } from './second-sound-branches';
 import { SECOND_SOUND_EXTREMA } from './second-sound-extrema';
 import { INTERVAL_K, type IntervalReach, intervalHolding, speedBandTemperatures } from './temperature-interval';
 import { secondSoundRelativeSd, secondSoundRelativeSdUnchecked, temperatureSpreadUnchecked } from './temperature-resolution';
@@ -113,7 +113,7 @@ export function temperatureCandidates(speed_m_s: number, relativeSpeedSd: number
   const { minimum, maximum } = SECOND_SOUND_EXTREMA;
   const sdMeasurement = relativeSpeedSd * speed_m_s;
   const bands: Bands = { p68: speedBandTemperatures(speed_m_s, sdMeasurement, INTERVAL_K.p68), p95: speedBandTemperatures(speed_m_s, sdMeasurement, INTERVAL_K.p95) };
-  for (const b of BRANCHES) {
+  for (const b of branches()) {
     if (speed_m_s >= b.slowest && speed_m_s <= b.fastest) out.push(candidateAt(solveOnBranch(b, speed_m_s), b.branch, relativeSpeedSd, bands));
   }
   const sigmaU = (u: number, tableRelSd: number) => u * Math.sqrt(relativeSpeedSd * relativeSpeedSd + tableRelSd * tableRelSd);

@@ -42,8 +42,7 @@ function buildBranch(branch: Branch, lo: number, hi: number): BranchTable {
     const x = i / (TABLE_NODES - 1);
     temps.push(lo + (hi - lo) * (0.5 - 0.5 * Math.cos(Math.PI * x)));
   }
-  const pairs = temps.map((T) => [secondSoundValueUnchecked(T), T] as const).sort((a, b) => a[0] - b[0]);
-  const speeds = Float64Array.from(pairs, (p) => p[0]);
+  const { speeds, temps: orderedTemps } = inOrderOfSpeed(temps);
   const slowest = speeds[0] as number;
   const fastest = speeds[speeds.length - 1] as number;
   const risingWithT = branch === 'middle';
@@ -52,7 +51,7 @@ function buildBranch(branch: Branch, lo: number, hi: number): BranchTable {
     lo,
     hi,
     speeds,
-    temps: Float64Array.from(pairs, (p) => p[1]),
+    temps: orderedTemps,
     slowest,
     fastest,
     speedAtLo: risingWithT ? slowest : fastest,
@@ -60,12 +59,41 @@ function buildBranch(branch: Branch, lo: number, hi: number): BranchTable {
   };
 }
 
-/** The branches, coldest first. */
-export const BRANCHES: readonly BranchTable[] = [
-  buildBranch('low', MODEL_MIN_K, SECOND_SOUND_EXTREMA.minimum.temperature_K),
-  buildBranch('middle', SECOND_SOUND_EXTREMA.minimum.temperature_K, SECOND_SOUND_EXTREMA.maximum.temperature_K),
-  buildBranch('high', SECOND_SOUND_EXTREMA.maximum.temperature_K, T_LAMBDA_K),
-];
+/**
+ * The nodes in order of increasing speed. A branch is monotonic, so they already are (reversed on a
+ * falling branch); only where rounding breaks strict order are they sorted, as pairs (a stable sort).
+ */
+function inOrderOfSpeed(temps: readonly number[]): { speeds: Float64Array; temps: Float64Array } {
+  const n = temps.length;
+  const speeds = Float64Array.from(temps, (T) => secondSoundValueUnchecked(T));
+  const falling = (speeds[0] as number) > (speeds[n - 1] as number);
+  const orderedTemps = Float64Array.from(temps);
+  if (falling) {
+    speeds.reverse();
+    orderedTemps.reverse();
+  }
+  let strict = true;
+  for (let i = 1; i < n && strict; i++) strict = (speeds[i] as number) > (speeds[i - 1] as number);
+  if (strict) return { speeds, temps: orderedTemps };
+  const pairs = temps.map((T) => [secondSoundValueUnchecked(T), T] as const).sort((a, b) => a[0] - b[0]);
+  return { speeds: Float64Array.from(pairs, (p) => p[0]), temps: Float64Array.from(pairs, (p) => p[1]) };
+}
+
+let branchTables: readonly BranchTable[] | null = null;
+
+/**
+ * The branches, coldest first, built on first use (about 12 000 evaluations of u2): a program that
+ * loads the kernel without inverting a speed (the command line's `props`, the page's explorer)
+ * does not pay for them.
+ */
+export function branches(): readonly BranchTable[] {
+  branchTables ??= [
+    buildBranch('low', MODEL_MIN_K, SECOND_SOUND_EXTREMA.minimum.temperature_K),
+    buildBranch('middle', SECOND_SOUND_EXTREMA.minimum.temperature_K, SECOND_SOUND_EXTREMA.maximum.temperature_K),
+    buildBranch('high', SECOND_SOUND_EXTREMA.maximum.temperature_K, T_LAMBDA_K),
+  ];
+  return branchTables;
+}
 
 /** A Newton step this small leaves an error far below 1e-12 K (quadratic convergence). */
 const NEWTON_ACCEPT_STEP_K = 1e-7;

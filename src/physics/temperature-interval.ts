@@ -1,6 +1,6 @@
 import { MODEL_MIN_K, T_LAMBDA_K } from './constants';
 import { LAMBDA_END_REACH_K, SECOND_SOUND_SD_EDGES_K, secondSoundBaseRelativeSd, secondSoundSdUnchecked, secondSoundUnchecked } from './second-sound';
-import { BRANCHES, type BranchTable, branchEnd, interpolateOnBranch } from './second-sound-branches';
+import { type BranchTable, branches, branchEnd, interpolateOnBranch } from './second-sound-branches';
 import { SECOND_SOUND_EXTREMA } from './second-sound-extrema';
 
 /*
@@ -196,7 +196,7 @@ function seedOn(b: BranchTable, u: number, k: number, sdMeasurement: number): nu
  */
 export function speedBandTemperatures(u: number, sdMeasurement: number, k: number): TemperatureInterval[] {
   for (let i = 0; i < 3; i++) {
-    const b = BRANCHES[i] as BranchTable;
+    const b = branches()[i] as BranchTable;
     const seed = seedOn(b, u, k, sdMeasurement);
     seeds[i] = seed;
     if (Number.isNaN(seed)) continue;
@@ -206,7 +206,7 @@ export function speedBandTemperatures(u: number, sdMeasurement: number, k: numbe
   const out: TemperatureInterval[] = [];
   let open: TemperatureInterval | null = null;
   for (let i = 0; i < 3; i++) {
-    const b = BRANCHES[i] as BranchTable;
+    const b = branches()[i] as BranchTable;
     if (Number.isNaN(seeds[i] as number)) {
       if (open) out.push(open);
       open = null;
@@ -216,7 +216,7 @@ export function speedBandTemperatures(u: number, sdMeasurement: number, k: numbe
     const high = highs[i] as number;
     const atCold = low <= b.lo;
     const atWarm = high >= b.hi;
-    const previousAtWarm = i > 0 && !Number.isNaN(seeds[i - 1] as number) && (highs[i - 1] as number) >= (BRANCHES[i - 1] as BranchTable).hi;
+    const previousAtWarm = i > 0 && !Number.isNaN(seeds[i - 1] as number) && (highs[i - 1] as number) >= (branches()[i - 1] as BranchTable).hi;
     if (open && previousAtWarm && atCold) {
       open.high_K = high;
       open.reaches.push(TURNS[i - 1] as IntervalReach);
@@ -228,7 +228,7 @@ export function speedBandTemperatures(u: number, sdMeasurement: number, k: numbe
     }
     if (i === 0 && atCold && low <= MODEL_MIN_K) open.reaches.unshift('model limit');
     if (i < 2 && atWarm) {
-      const next = BRANCHES[i + 1] as BranchTable;
+      const next = branches()[i + 1] as BranchTable;
       // The next branch's stretch is found in the next pass; it joins when it starts at its cold end.
       const nextJoins = !Number.isNaN(seeds[i + 1] as number) && (lows[i + 1] as number) <= next.lo;
       if (!nextJoins) open.reaches.push(TURNS[i] as IntervalReach);

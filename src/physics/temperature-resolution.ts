@@ -35,20 +35,30 @@ export function secondSoundCurvature(T: number): number {
   return (secondSoundUnchecked(T + h).slope - secondSoundUnchecked(lo).slope) / (T + h - lo);
 }
 
-/** |u2″| tabulated every 1 mK from 0.3 to 2.17 K, so sweeps need no extra evaluations. */
+/**
+ * |u2″| tabulated every 1 mK from 0.3 to 2.17 K, so sweeps need no extra evaluations. Built on
+ * first use (3 700 evaluations of u2): a program that never asks for a spread (the command line's
+ * `props`) does not pay for it.
+ */
 const CURVATURE_TABLE_STEP_K = 1e-3;
 const CURVATURE_TABLE_MAX_K = 2.17;
-const curvatureTable = Float64Array.from(
-  { length: Math.round((CURVATURE_TABLE_MAX_K - MODEL_MIN_K) / CURVATURE_TABLE_STEP_K) + 1 },
-  (_, i) => Math.abs(secondSoundCurvature(MODEL_MIN_K + i * CURVATURE_TABLE_STEP_K)),
-);
+let curvatureTableBuilt: Float64Array | null = null;
+
+function curvatureTable(): Float64Array {
+  curvatureTableBuilt ??= Float64Array.from(
+    { length: Math.round((CURVATURE_TABLE_MAX_K - MODEL_MIN_K) / CURVATURE_TABLE_STEP_K) + 1 },
+    (_, i) => Math.abs(secondSoundCurvature(MODEL_MIN_K + i * CURVATURE_TABLE_STEP_K)),
+  );
+  return curvatureTableBuilt;
+}
 
 function absCurvature(T: number): number {
   if (T > CURVATURE_TABLE_MAX_K) return 0;
+  const table = curvatureTable();
   const x = (T - MODEL_MIN_K) / CURVATURE_TABLE_STEP_K;
-  const i = Math.min(curvatureTable.length - 2, Math.max(0, Math.floor(x)));
+  const i = Math.min(table.length - 2, Math.max(0, Math.floor(x)));
   const f = x - i;
-  return (1 - f) * (curvatureTable[i] as number) + f * (curvatureTable[i + 1] as number);
+  return (1 - f) * (table[i] as number) + f * (table[i + 1] as number);
 }
 
 /**

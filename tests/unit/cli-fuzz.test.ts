@@ -10,8 +10,10 @@ import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { COMMANDS } from '../../src/cli/main';
+import { loadAllCommands } from '../../src/cli/commands/index';
 import { expectJsonUsageError, expectUsageError, run } from '../support/cli-harness';
+
+const COMMANDS = await loadAllCommands();
 
 const RUNS = 150;
 

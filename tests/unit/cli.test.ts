@@ -3,10 +3,13 @@ import { readdirSync, readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { type FlagSpec, parseFlags } from '../../src/cli/args';
-import { COMMANDS, main } from '../../src/cli/main';
+import { loadAllCommands } from '../../src/cli/commands/index';
+import { main } from '../../src/cli/main';
 import { heliumProperties } from '../../src/physics';
 import type { CliIo } from '../../src/cli/io';
 import { expectUsageError, type Run, run, runJson as runJsonAs } from '../support/cli-harness';
+
+const COMMANDS = await loadAllCommands();
 
 const REPO_ROOT = fileURLToPath(new URL('../..', import.meta.url));
 const PACKAGE_VERSION: unknown = JSON.parse(readFileSync(join(REPO_ROOT, 'package.json'), 'utf8')).version;

@@ -4,13 +4,14 @@
  * temperature picks. With --input, a CSV of delays → a CSV of results (src/io/delay-batch).
  */
 import { type ChoiceRule, convertDelay, DELAY_LIMITS, type DelayConversion, OutOfRangeError, requireInRange, SPEED_RANGE_M_S } from '../../physics';
-import { convertDelayBatch, delayResultsToCsv, parseDelayCsv } from '../../io/delay-batch';
+import { convertDelayBatch, delayResultCsvChunks, parseDelayCsv } from '../../io/delay-batch';
 import { tooSlowForSecondSound } from '../../io/speed-plausibility';
 import { type QuantityFlag, requireQuantity, type TextFlag } from '../args';
 import type { Command } from '../command';
 import { EXIT_OK, UsageError } from '../errors';
 import { alignTable, formatPlain, formatRange, formatSignificant } from '../format';
 import { computeFor } from '../kernel-call';
+import { writeChunks } from '../output';
 import {
   type ChoiceResult,
   chooseFor,
@@ -145,7 +146,7 @@ function convertOne(distance_m: number, delay_s: number, sds: ReturnType<typeof 
   }
 }
 
-function runBatch(args: Parameters<Command['run']>[0], path: string, io: Parameters<Command['run']>[1]): number {
+async function runBatch(args: Parameters<Command['run']>[0], path: string, io: Parameters<Command['run']>[1]): Promise<number> {
   for (const flag of [DELAY_FLAG, JSON_FLAG]) {
     if (args.has(flag.name)) {
       throw new UsageError(`--${flag.name} cannot be used with --input: the delays come from the file and the results are written as CSV`);
@@ -163,7 +164,8 @@ function runBatch(args: Parameters<Command['run']>[0], path: string, io: Paramet
   if (missing) throw new UsageError(`delay file "${path}", line ${missing.line}: no distance_m on this row; give --distance, e.g. --distance 50mm`);
   const settings = { ...sds, ...(distance_m === undefined ? {} : { distance_m }), ...(start ? { start } : {}) };
   const results = fromFile('delay file', path, () => convertDelayBatch(batch, settings));
-  io.stdout(delayResultsToCsv(results));
+  // Streamed: rows become text chunk by chunk as stdout takes them; a closed pipe stops it quietly.
+  await writeChunks(io, delayResultCsvChunks(results));
   return EXIT_OK;
 }
 

@@ -163,9 +163,9 @@ function coldStart(dir) {
   ];
   const times = cases.map(() => []);
   for (const [, run] of cases) timeOne(...run, join(dir, 'cold.out'));
-  for (let r = 0; r < RUNS * 4; r++) cases.forEach(([, run], k) => {
-      times[k].push(timeOne(...run, join(dir, "cold.out")));
-    });
+  for (let r = 0; r < RUNS * 4; r++) {
+    for (const [k, [, run]] of cases.entries()) times[k].push(timeOne(...run, join(dir, 'cold.out')));
+  }
   const base = { wall: median(times[0].map((t) => t.wall)), cpu: median(times[0].map((t) => t.cpu)) };
   cases.forEach(([name], k) => {
     const wall = median(times[k].map((t) => t.wall));

@@ -79,7 +79,7 @@ describe('delay --input streams its CSV', () => {
     expect([...delayResultCsvChunks(results, {}, 1)]).toHaveLength(4);
     const inUnits = [...delayResultCsvChunks(results, { temperature: 'mK', length: 'mm', time: 'us', pressure: 'mbar' }, 1)];
     expect(inUnits[0]).toBe(
-      'line,timestamp,delay_us,distance_mm,pressure_mbar,speed_m_s,speedSd_m_s,candidates,chosen,chosen_by,T_mK,T_sd_mK,T1_mK,T1_sd_mK,T1_branch,T1_note,T2_mK,T2_sd_mK,T2_branch,T2_note,T3_mK,T3_sd_mK,T3_branch,T3_note\n',
+      'line,timestamp,delay_us,distance_mm,pressure_mbar,speed_m_s,speedSd_m_s,candidates,chosen,chosen_by,T_mK,T_sd_mK,T_sd_meas_mK,T_sd_curve_mK,T_lo68_mK,T_hi68_mK,T_lo95_mK,T_hi95_mK,evidence_sd,alternatives,guess,warnings,T1_mK,T1_sd_mK,T1_branch,T1_note,T2_mK,T2_sd_mK,T2_branch,T2_note,T3_mK,T3_sd_mK,T3_branch,T3_note\n',
     );
     expect(inUnits[1]?.startsWith('2,"a, b",2500,50,16.38,20,0,3,')).toBe(true);
   });
@@ -94,7 +94,7 @@ describe('CsvNumberText', () => {
 
   it('CsvWordText writes every text cell as csvCell does, seen before or not', () => {
     const words = new CsvWordText();
-    const cells = ['low', 'low', 'a,b', 'a,b', ' padded', 'say "hi"', 'two\nlines', '', 'x'.repeat(40), true, 'low', 'insensitive Landau-model'];
+    const cells = ['low', 'low', '=1+1', '=1+1', '@SUM(A1)', '-x', 'a,b', 'a,b', ' padded', 'say "hi"', 'two\nlines', '', 'x'.repeat(40), true, 'low', 'insensitive Landau-model'];
     for (const cell of cells) expect(words.text(cell)).toBe(csvCell(cell));
   });
 });

@@ -109,23 +109,11 @@ export interface Root {
  * (b.slowest ≤ u ≤ b.fastest). Value and slope of u2 at the root come with it.
  */
 export function solveOnBranch(b: BranchTable, u: number): Root {
-  const s = b.speeds;
-  const n = s.length;
-  let i = 0;
-  let j = n - 1;
-  while (j - i > 1) {
-    const mid = (i + j) >> 1;
-    if (u >= (s[mid] as number)) i = mid;
-    else j = mid;
-  }
-  const s0 = s[i] as number;
-  const s1 = s[j] as number;
-  const t0 = b.temps[i] as number;
-  const t1 = b.temps[j] as number;
   // Bracket in temperature, and a linear first guess.
-  let lo = Math.min(t0, t1);
-  let hi = Math.max(t0, t1);
-  let T = s1 > s0 ? t0 + ((u - s0) * (t1 - t0)) / (s1 - s0) : t0;
+  const step = tableStep(b, u);
+  let lo = Math.min(step.t0, step.t1);
+  let hi = Math.max(step.t0, step.t1);
+  let T = step.guess;
   const rising = b.branch === 'middle';
   let at = secondSoundUnchecked(T);
   for (let k = 0; k < NEWTON_MAX_ITERATIONS; k++) {
@@ -155,6 +143,11 @@ export function branchEnd(b: BranchTable, which: 'slowest' | 'fastest'): number 
  * step): within about 1e-8 K of the root, enough for an interval bound. u within the branch's speeds.
  */
 export function interpolateOnBranch(b: BranchTable, u: number): number {
+  return tableStep(b, u).guess;
+}
+
+/** The table step around speed u (binary search): its end temperatures and the straight-line guess between them. */
+function tableStep(b: BranchTable, u: number): { t0: number; t1: number; guess: number } {
   const s = b.speeds;
   let i = 0;
   let j = s.length - 1;
@@ -167,5 +160,5 @@ export function interpolateOnBranch(b: BranchTable, u: number): number {
   const s1 = s[j] as number;
   const t0 = b.temps[i] as number;
   const t1 = b.temps[j] as number;
-  return s1 > s0 ? t0 + ((u - s0) * (t1 - t0)) / (s1 - s0) : t0;
+  return { t0, t1, guess: s1 > s0 ? t0 + ((u - s0) * (t1 - t0)) / (s1 - s0) : t0 };
 }

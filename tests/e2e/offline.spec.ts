@@ -3,21 +3,24 @@ import { createServer } from 'node:http';
 import type { AddressInfo } from 'node:net';
 import { tmpdir } from 'node:os';
 import { extname, join } from 'node:path';
-import { expect, test } from '@playwright/test';
+import { expect, type Page, test } from '@playwright/test';
 import { serviceWorkerForDirectory } from '../../app/offline/service-worker-plugin';
 
 // After one visit the page works with the network gone: the build's service worker keeps every
 // file of the page. (A first visit needs the network once; that is the documented limit.)
-test('works offline after the first load', async ({ page, context }) => {
+/** A first visit, then a reload once the offline cache controls the page and holds its files. */
+async function underOfflineCache(page: Page): Promise<void> {
   await page.goto('./');
   await expect(page.getByRole('heading', { name: 'Sekundo' })).toBeVisible();
-  // Wait until the offline cache controls the page and holds its files.
   await page.evaluate(async () => {
     await navigator.serviceWorker.ready;
   });
   await page.reload();
   await page.waitForFunction(() => navigator.serviceWorker.controller !== null);
+}
 
+test('works offline after the first load', async ({ page, context }) => {
+  await underOfflineCache(page);
   await context.setOffline(true);
   await page.reload();
   await expect(page.getByRole('heading', { name: 'Sekundo' })).toBeVisible();
@@ -74,4 +77,29 @@ test('a changed build is offered with a reload, and then used', async ({ page })
     await new Promise((done) => server.close(done));
     rmSync(root, { recursive: true, force: true });
   }
+});
+
+// The page installs as an app: its manifest and every icon it lists are served, decode at the sizes
+// stated, and are kept by the offline cache, so the installed app opens with the network gone.
+test('the manifest and its icons are served and kept for offline use', async ({ page, context }) => {
+  await underOfflineCache(page);
+  await context.setOffline(true);
+
+  const found = await page.evaluate(async () => {
+    const link = document.querySelector<HTMLLinkElement>('link[rel="manifest"]');
+    if (!link) return null;
+    const manifest = (await (await fetch(link.href)).json()) as { icons: { src: string; sizes: string }[] };
+    const icons = [];
+    for (const icon of manifest.icons) {
+      const image = new Image();
+      image.src = new URL(icon.src, link.href).href;
+      await image.decode();
+      icons.push({ sizes: icon.sizes, drawn: `${image.naturalWidth}x${image.naturalHeight}` });
+    }
+    return icons;
+  });
+  await context.setOffline(false);
+  expect(found).not.toBeNull();
+  for (const icon of found ?? []) if (icon.sizes !== 'any') expect(icon.drawn).toBe(icon.sizes);
+  expect(found?.length).toBeGreaterThanOrEqual(3);
 });

@@ -139,7 +139,7 @@ test.describe('replacing the open plan', () => {
 test.describe('newer format and crafted links', () => {
   test('an autosave of a newer format version is named as newer, not opened, and never overwritten', async ({ page }) => {
     const demo = (await (await page.request.get('./demo-plan.json')).json()) as Record<string, unknown>;
-    const newer = JSON.stringify({ ...demo, version: 2, name: 'Saved by tomorrow’s Sekundo' });
+    const newer = JSON.stringify({ ...demo, version: (demo.version as number) + 1, name: 'Saved by tomorrow’s Sekundo' });
     await page.addInitScript((text) => {
       if (!sessionStorage.getItem('seeded')) {
         localStorage.setItem('sekundo.autosave', text);

@@ -216,9 +216,11 @@ test.describe('workspace', () => {
     await expect(page.getByRole('list', { name: 'Saved plans' })).toContainText(`Plan ${PAYLOAD}`);
     await page.getByRole('button', { name: 'Copy share link' }).click();
     const url = await page.getByRole('textbox', { name: 'Share link' }).inputValue();
+    // The open plan is the file as opened (and saved): nothing to lose, so the link opens at once.
     await page.goto(url);
-    await expect(page.getByRole('alertdialog')).toContainText(`“Plan ${PAYLOAD}”`);
-    await page.getByRole('button', { name: 'Open shared plan' }).click();
+    await expect(page.getByText('From a shared link')).toBeVisible();
+    await expect(page.getByRole('alertdialog')).toHaveCount(0);
+    await expect(page.getByRole('textbox', { name: 'Plan name' })).toHaveValue(`Plan ${PAYLOAD}`);
     await page.addInitScript(() => {
       window.print = () => undefined;
     });

@@ -6,7 +6,8 @@ import { useDisplayUnit } from '../units/use-display-unit';
 import { CandidatesTable } from './CandidatesTable';
 import { limitText, temperatureText } from './converter-units';
 import type { Chosen } from './reading-results';
-import { type ExportContent, ResultActions } from './ResultActions';
+import type { ExportContent } from './export-text';
+import { ResultActions } from './ResultActions';
 import { SpeedChart } from './SpeedChart';
 
 interface ConversionResultProps {

@@ -1,12 +1,5 @@
 import { useState } from 'react';
-import { copyText, downloadText } from './export-text';
-
-export interface ExportContent {
-  fileName: string;
-  csv: string;
-  /** Text for the clipboard (tab-separated, pastes into a spreadsheet). */
-  tsv: string;
-}
+import { copyText, downloadText, type ExportContent } from './export-text';
 
 interface ResultActionsProps {
   /** What the buttons act on, e.g. "result", "series"; part of their accessible names. */

@@ -5,7 +5,14 @@
 import { type CsvCell, csvCell, neutraliseFormula, writeCsv } from '../../io/csv-common';
 import type { Choice, TemperatureCandidate } from '../../physics';
 import type { DisplayUnitView } from '../units/use-display-unit';
-import type { ExportContent } from './ResultActions';
+
+/** What a result's Copy and Export buttons act on. */
+export interface ExportContent {
+  fileName: string;
+  csv: string;
+  /** Text for the clipboard (tab-separated, pastes into a spreadsheet). */
+  tsv: string;
+}
 import { csvColumn } from './converter-units';
 
 /** Columns describing one candidate, after the context columns; temperatures in the display unit. */

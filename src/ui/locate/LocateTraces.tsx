@@ -2,7 +2,7 @@ import { useId, useMemo, useState } from 'react';
 import { PICKER_KINDS, type PickerKind } from '../../physics';
 import type { Polarity } from '../converter/converter-slice';
 import { DropZone } from '../converter/DropZone';
-import { PICKER_LABELS } from '../converter/trace/TraceMode';
+import { PICKER_LABELS } from '../converter/trace/trace-pick-options';
 import type { PickState } from '../converter/trace/trace-picks';
 import { useTraceSamples } from '../converter/trace/trace-picks';
 import { formatSignificant } from '../format/format-number';

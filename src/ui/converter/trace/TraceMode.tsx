@@ -1,5 +1,4 @@
 import { useId, useMemo } from 'react';
-import type { TracePickOptions } from '../../../io/trace-pick';
 import { PICKER_KINDS, type PickerKind } from '../../../physics';
 import { type FieldHelpParts, useFieldHelp } from '../../help/FieldHelp';
 import { PanelErrorBoundary } from '../../layout/PanelErrorBoundary';
@@ -11,19 +10,12 @@ import type { Polarity, TraceFileEntry } from '../converter-slice';
 import { CONVERTER_CHOICE_HELP } from '../converter-help';
 import { DropZone } from '../DropZone';
 import { SetupCard } from '../SetupCard';
-import { useFieldValues } from '../use-converter';
 import { exampleTraceFiles } from './trace-example';
 import { cancelTraceLoading, clearTraceFiles, loadTraceFiles, removeTraceFile } from './trace-loader';
-import { forgetPicks, pickOptionsOf } from './trace-picks';
+import { forgetPicks } from './trace-picks';
 import { TRACE_FILE_LIMIT_BYTES } from './trace-protocol';
 import { TraceResults } from './TraceResults';
-
-export const PICKER_LABELS: Readonly<Record<PickerKind, string>> = {
-  threshold: 'Threshold (k noise sd)',
-  fraction: 'Fraction of the peak',
-  peak: 'Peak (parabola)',
-  xcorr: 'Cross-correlation',
-};
+import { PICKER_LABELS } from './trace-pick-options';
 
 /** Digitiser traces → picked arrivals → temperatures, one file or a series. */
 export function TraceMode() {
@@ -47,19 +39,6 @@ export function TraceMode() {
         </PanelErrorBoundary>
       </div>
     </div>
-  );
-}
-
-/** The picker options from the store, as the worker takes them. */
-export function useTracePickOptions(): TracePickOptions {
-  const picker = useSekundoStore((s) => s.converterTracePicker);
-  const heater = useSekundoStore((s) => s.converterTraceHeater);
-  const sensor = useSekundoStore((s) => s.converterTraceSensor);
-  const polarity = useSekundoStore((s) => s.converterTracePolarity);
-  const v = useFieldValues();
-  return useMemo(
-    () => pickOptionsOf({ picker, heater, sensor, polarity, threshold: v.threshold, fraction: v.fraction, from_s: v.searchFrom, to_s: v.searchTo }),
-    [picker, heater, sensor, polarity, v.threshold, v.fraction, v.searchFrom, v.searchTo],
   );
 }
 

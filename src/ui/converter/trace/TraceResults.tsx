@@ -26,7 +26,7 @@ import { SeriesCells, SeriesHeads } from '../SeriesColumns';
 import { useFieldValues } from '../use-converter';
 import { traceFigure } from './trace-figure';
 import { type PickState, usePicks, useTraceSamples } from './trace-picks';
-import { PICKER_LABELS, useTracePickOptions } from './TraceMode';
+import { PICKER_LABELS, useTracePickOptions } from './trace-pick-options';
 
 /** Rows of the series from the files read and their picks (derived, never stored). */
 function seriesRows(files: readonly TraceFileEntry[], picks: ReadonlyMap<string, PickState>, values: FieldValues, start: ChoiceRule | null) {

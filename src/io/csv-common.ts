@@ -279,3 +279,11 @@ export function splitQuoted(line: string, delimiter: Delimiter): string[] {
   const result = Papa.parse<string[]>(line, { delimiter, quoteChar: '"', newline: '\n', skipEmptyLines: false });
   return (result.data[0] ?? []).map((cell) => cell.trim());
 }
+
+/** Index of the name `wanted` (exact, else ignoring case and surrounding spaces), or −1. */
+export function indexOfName(names: readonly string[], wanted: string): number {
+  const exact = names.indexOf(wanted);
+  if (exact >= 0) return exact;
+  const lower = wanted.trim().toLowerCase();
+  return names.findIndex((n) => n.toLowerCase() === lower);
+}

@@ -29,12 +29,11 @@
  *    metadata fields; all header lines are kept as they were.
  *  - Size limit: {@link TRACE_CSV_SIZE_LIMIT_BYTES} (512 MiB); larger inputs are refused.
  *
- * In a Web Worker: `parseTraceCsvBlob(file, { signal, onProgress: (p) => postMessage(p) })`, or
+ * In a Web Worker: `parseTraceCsvBlob(file, …)` (trace-csv-stream.ts), or
  * drive a {@link TraceCsvParser} by hand with `feed(chunk)` per chunk of `file.stream()`; post the
  * result back with its Float64Array buffers in the transfer list, so nothing is copied.
  */
 import { overLimitText } from './byte-size';
-import { heaterOnset, type Trace } from '../physics';
 import {
   baseOfColumn,
   CsvInputError,
@@ -44,8 +43,12 @@ import {
   sniffEncoding,
   splitQuoted,
   type TextEncodingName,
-  unitOfColumn,
+  indexOfName,
 } from './csv-common';
+import { concatBytes, isBlank, readDecimalBytes, takeDecimalComma } from './trace-bytes';
+import { countsSamples, headerFields, sameShape, type Shape, shapeOf, TIME_NAMES, TIME_UNIT_POW10, type TimeUnit, timeUnitOf } from './trace-csv-layout';
+
+export type { TimeUnit } from './trace-csv-layout';
 
 /** Largest trace file read, bytes (512 MiB). */
 export const TRACE_CSV_SIZE_LIMIT_BYTES = 512 * 1024 * 1024;
@@ -65,10 +68,10 @@ const INITIAL_CAPACITY = 4096;
 /** Most rows allocated up front from a size estimate (more grow on demand). */
 const MAX_ESTIMATED_ROWS = 1 << 26;
 /** Names taken for the time column (after dropping a unit), compared in lower case. */
-const TIME_NAMES: ReadonlySet<string> = new Set(['time', 't', 's', 'sec', 'secs', 'seconds', 'x', 'time_s']);
 
-export type TimeUnit = 's' | 'ms' | 'us' | 'ns';
-const TIME_UNIT_POW10: Readonly<Record<TimeUnit, number>> = { s: 0, ms: -3, us: -6, ns: -9 };
+
+
+
 
 export interface TraceChannel {
   name: string;
@@ -136,12 +139,6 @@ export interface TraceParseOptions {
   signal?: AbortSignal;
   /** Called after each chunk and at the end. */
   onProgress?: (progress: TraceParseProgress) => void;
-}
-
-interface Shape {
-  delimiter: Delimiter;
-  cells: number;
-  trailing: boolean;
 }
 
 interface PendingLine {
@@ -479,7 +476,7 @@ export class TraceCsvParser {
     this.capacity = this.initialCapacity(firstRow.text.length + 1);
     this.columns = Array.from({ length: this.ncols }, () => new Float64Array(this.capacity));
     this.state = 'data';
-    sawDecimalComma = false;
+    takeDecimalComma();
     const rows = this.pending.slice(index);
     this.pending = [];
     this.run = [];
@@ -559,10 +556,7 @@ export class TraceCsvParser {
     if (!(t > this.prevTime)) throw this.timeOrder(t, line);
     this.prevTime = t;
     this.rows = row + 1;
-    if (sawDecimalComma) {
-      this.usedDecimalComma = true;
-      sawDecimalComma = false;
-    }
+    if (takeDecimalComma()) this.usedDecimalComma = true;
   }
 
   private tooLargeCell(v: number, column: number, line: number): CsvInputError {
@@ -670,106 +664,6 @@ export class TraceCsvParser {
   }
 }
 
-/**
- * Whether a time column with no unit counts samples: at least three rows, every value a whole
- * number and every step exactly 1 (sample numbers, never seconds of a second-sound trace).
- */
-function countsSamples(time: Float64Array): boolean {
-  if (time.length < 3) return false;
-  for (let i = 0; i < time.length; i++) {
-    const t = time[i] as number;
-    if (!Number.isInteger(t) || (i > 0 && t - (time[i - 1] as number) !== 1)) return false;
-  }
-  return true;
-}
-
-function isBlank(b: Uint8Array, start: number, end: number): boolean {
-  for (let i = start; i < end; i++) {
-    const c = b[i] as number;
-    if (c !== 32 && c !== 9) return false;
-  }
-  return true;
-}
-
-/** Powers of ten that are exact doubles (10^0 … 10^22). */
-const EXACT_POW10 = Float64Array.from({ length: 23 }, (_, i) => 10 ** i);
-/** Set by {@link readDecimalBytes} when it read a decimal comma. */
-let sawDecimalComma = false;
-
-/**
- * Reads a plain decimal ("-1.234e-05", spaces around allowed; with `comma`, "1,5" too) from
- * b[start, end), or returns NaN for anything else, which the caller then reads the slow way.
- * Exact: at most 15 significant digits and a decimal exponent within ±22 make the result one
- * correctly rounded operation on exact doubles (Clinger's fast path), the same double `Number`
- * gives; anything longer returns NaN and goes to `Number`.
- */
-function readDecimalBytes(b: Uint8Array, start: number, end: number, comma: boolean): number {
-  let i = start;
-  let e = end;
-  while (i < e && b[i] === 32) i++;
-  while (e > i && b[e - 1] === 32) e--;
-  if (i === e) return Number.NaN;
-  let c = b[i] as number;
-  const negative = c === 45;
-  if (c === 45 || c === 43) i++;
-  let mantissa = 0;
-  let significant = 0;
-  let digits = 0;
-  let scale = 0;
-  while (i < e) {
-    c = b[i] as number;
-    if (c < 48 || c > 57) break;
-    mantissa = mantissa * 10 + (c - 48);
-    if (mantissa !== 0) significant++;
-    digits++;
-    i++;
-  }
-  if (i < e && (b[i] === 46 || (comma && b[i] === 44))) {
-    if (b[i] === 44) sawDecimalComma = true;
-    i++;
-    while (i < e) {
-      c = b[i] as number;
-      if (c < 48 || c > 57) break;
-      mantissa = mantissa * 10 + (c - 48);
-      if (mantissa !== 0) significant++;
-      digits++;
-      scale--;
-      i++;
-    }
-  }
-  if (digits === 0) return Number.NaN;
-  if (i < e) {
-    c = b[i] as number;
-    if (c !== 101 && c !== 69) return Number.NaN;
-    i++;
-    let exponentNegative = false;
-    if (i < e && (b[i] === 45 || b[i] === 43)) {
-      exponentNegative = b[i] === 45;
-      i++;
-    }
-    let exponent = 0;
-    const exponentStart = i;
-    while (i < e) {
-      c = b[i] as number;
-      if (c < 48 || c > 57 || i - exponentStart > 4) return Number.NaN;
-      exponent = exponent * 10 + (c - 48);
-      i++;
-    }
-    if (i === exponentStart) return Number.NaN;
-    scale += exponentNegative ? -exponent : exponent;
-  }
-  if (significant > 15) return Number.NaN;
-  let v: number;
-  if (scale === 0 || mantissa === 0) v = mantissa;
-  else if (scale < 0) {
-    if (scale < -22) return Number.NaN;
-    v = mantissa / (EXACT_POW10[-scale] as number);
-  } else {
-    if (scale > 22) return Number.NaN;
-    v = mantissa * (EXACT_POW10[scale] as number);
-  }
-  return negative ? -v : v;
-}
 
 function tooLarge(bytes: number, limit: number): CsvInputError {
   return new CsvInputError('too-large', `the file is ${overLimitText(bytes, limit)} for trace CSV files`);
@@ -779,142 +673,9 @@ function clip(text: string): string {
   return text.length > 24 ? `${text.slice(0, 24)}…` : text;
 }
 
-function concatBytes(a: Uint8Array, b: Uint8Array): Uint8Array {
-  const out = new Uint8Array(a.byteLength + b.byteLength);
-  out.set(a, 0);
-  out.set(b, a.byteLength);
-  return out;
-}
-
-/** The delimiter and width of a line of numbers, or null if it is not one. */
-function shapeOf(text: string): Shape | null {
-  for (const delimiter of ['\t', ';', ','] as const) {
-    if (!text.includes(delimiter)) continue;
-    const cells = text.split(delimiter);
-    let trailing = false;
-    if (cells.length > 2 && (cells[cells.length - 1] as string).trim() === '') {
-      cells.pop();
-      trailing = true;
-    }
-    if (cells.length < 2) continue;
-    const comma = delimiter !== ',';
-    if (cells.every((c) => Number.isFinite(readNumberCell(c, comma)))) return { delimiter, cells: cells.length, trailing };
-  }
-  return null;
-}
-
-function sameShape(a: Shape, b: Shape): boolean {
-  return a.delimiter === b.delimiter && a.cells === b.cells && a.trailing === b.trailing;
-}
-
-function headerFields(lines: readonly string[], delimiter: Delimiter): Record<string, string> {
-  const fields: Record<string, string> = {};
-  for (const raw of lines) {
-    const text = raw.replace(/^\s*[#%]+\s*/, '').trim();
-    const kv = /^([^:=]+?)\s*[:=]\s*(.*)$/.exec(text);
-    if (kv) {
-      fields[kv[1] as string] = (kv[2] as string).trim();
-      continue;
-    }
-    const cells = splitQuoted(text, delimiter).filter((c) => c !== '');
-    if (cells.length === 2) fields[cells[0] as string] = cells[1] as string;
-  }
-  return fields;
-}
-
-function timeUnitOf(name: string): TimeUnit | undefined {
-  const unit = unitOfColumn(name, 'time');
-  if (!unit) return undefined;
-  return (Object.keys(TIME_UNIT_POW10) as TimeUnit[]).find((u) => TIME_UNIT_POW10[u] === unit.pow10);
-}
-
-function indexOfName(names: readonly string[], wanted: string): number {
-  const exact = names.indexOf(wanted);
-  if (exact >= 0) return exact;
-  const lower = wanted.trim().toLowerCase();
-  return names.findIndex((n) => n.toLowerCase() === lower);
-}
-
 /** Parses a whole trace CSV given at once (text or bytes). Throws {@link CsvInputError}. */
 export function parseTraceCsv(input: string | Uint8Array, options: TraceParseOptions = {}): TraceCsv {
   const parser = new TraceCsvParser({ totalBytes: typeof input === 'string' ? input.length : input.byteLength, ...options });
   parser.feed(input);
   return parser.finish();
-}
-
-/**
- * Parses a trace from a stream of byte chunks (e.g. `file.stream()` in a Web Worker), with
- * progress and cancellation through the options. Throws {@link CsvInputError}.
- */
-export async function parseTraceCsvStream(stream: ReadableStream<Uint8Array>, options: TraceParseOptions = {}): Promise<TraceCsv> {
-  const parser = new TraceCsvParser(options);
-  const reader = stream.getReader();
-  try {
-    for (;;) {
-      const { done, value } = await reader.read();
-      if (done) break;
-      parser.feed(value);
-    }
-    return parser.finish();
-  } catch (error) {
-    await reader.cancel().catch(() => undefined);
-    throw error;
-  } finally {
-    reader.releaseLock();
-  }
-}
-
-/** Parses a File or Blob (its size gives the progress fraction). */
-export function parseTraceCsvBlob(blob: Blob, options: TraceParseOptions = {}): Promise<TraceCsv> {
-  return parseTraceCsvStream(blob.stream() as ReadableStream<Uint8Array>, { totalBytes: blob.size, ...options });
-}
-
-// ---- Helpers on a parsed trace. ----
-
-/** Names of the channels, in file order. */
-export function channelNames(trace: TraceCsv): string[] {
-  return trace.channels.map((c) => c.name);
-}
-
-/**
- * The channel called `name` (exact, else ignoring case and surrounding spaces).
- * Throws a 'missing-column' {@link CsvInputError} listing the channels.
- */
-export function channelByName(trace: TraceCsv, name: string): TraceChannel {
-  const i = indexOfName(channelNames(trace), name);
-  const channel = trace.channels[i];
-  if (!channel) {
-    const time = trace.metadata.timeColumn;
-    const why = indexOfName([time], name) === 0 ? ` ("${time}" is the time column)` : '';
-    throw new CsvInputError('missing-column', `no channel "${name}"${why}; channels: ${channelNames(trace).join(', ')}`);
-  }
-  return channel;
-}
-
-/** A kernel {@link Trace} of one channel, on the file's time axis or on `time_s` if given. */
-export function traceOf(trace: TraceCsv, name: string, time_s: Float64Array = trace.time_s): Trace {
-  return { time_s, values: channelByName(trace, name).values };
-}
-
-/** A time axis shifted so that the heater pulse starts at t = 0, and the onset it was shifted by. */
-export interface HeaterAlignment {
-  /** time − onset, s: a new array. */
-  time_s: Float64Array;
-  /** The heater onset on the file's time axis (50 % of its first rise, kernel `heaterOnset`), s. */
-  onset_s: number;
-  onsetSd_s: number;
-}
-
-/**
- * Shifts time zero to the heater pulse onset found in channel `heaterName` (the kernel's
- * `heaterOnset`: the 50 % crossing of the drive's first rise, baseline from its first 8 samples).
- * Throws CsvInputError for an unknown channel and the kernel's InvalidInputError for a drive
- * without a rise.
- */
-export function alignToHeaterOnset(trace: TraceCsv, heaterName: string): HeaterAlignment {
-  const heater = traceOf(trace, heaterName);
-  const { onset_s, onsetSd_s } = heaterOnset(heater);
-  const time_s = new Float64Array(trace.time_s.length);
-  for (let i = 0; i < time_s.length; i++) time_s[i] = (trace.time_s[i] as number) - onset_s;
-  return { time_s, onset_s, onsetSd_s };
 }

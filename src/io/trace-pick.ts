@@ -36,7 +36,8 @@ import {
   uniformStep,
 } from '../physics';
 import { CsvInputError } from './csv-common';
-import { alignToHeaterOnset, channelByName, type TraceCsv } from './trace-csv';
+import { alignToHeaterOnset, channelByName } from './trace-channels';
+import type { TraceCsv } from './trace-csv';
 
 /** Heater samples above this fraction of its peak belong to the drive pulse (template edges). */
 const TEMPLATE_EDGE_FRACTION = 0.02;

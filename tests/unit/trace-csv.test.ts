@@ -9,11 +9,10 @@ import { fileURLToPath } from 'node:url';
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { CsvInputError, csvCell, readNumberCell } from '../../src/io/csv-common';
+import { alignToHeaterOnset, channelByName } from '../../src/io/trace-channels';
+import { parseTraceCsvBlob } from '../../src/io/trace-csv-stream';
 import {
-  alignToHeaterOnset,
-  channelByName,
   parseTraceCsv,
-  parseTraceCsvBlob,
   TRACE_CSV_SIZE_LIMIT_BYTES,
   type TraceCsv,
   TraceCsvParser,

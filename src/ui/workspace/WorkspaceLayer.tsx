@@ -1,4 +1,4 @@
-import { useEffect, useRef } from 'react';
+import { type KeyboardEvent, type ReactNode, useEffect, useRef } from 'react';
 import { useSekundoStore } from '../store';
 import { SetupSheetHost } from './SetupSheet';
 import { answerQuestion } from './keep-plan';
@@ -94,21 +94,16 @@ function SharePromptDialog() {
   const current = useSekundoStore.getState();
   const replacing = current.plannerStatus === 'ready' ? current.plannerPlan.name : null;
   return (
-    <div className="modal-backdrop">
-      <div
-        className="modal workspace-confirm"
-        role="alertdialog"
-        aria-modal="true"
-        aria-labelledby="share-confirm-title"
-        aria-describedby="share-confirm-text"
-        onKeyDown={(event) => {
-          if (event.key === 'Escape') declineSharedPlan();
-          if (event.key === 'Tab') {
-            event.preventDefault();
-            (document.activeElement === open.current ? keep : open).current?.focus();
-          }
-        }}
-      >
+    <ConfirmDialog
+      idBase="share-confirm"
+      onKeyDown={(event) => {
+        if (event.key === 'Escape') declineSharedPlan();
+        if (event.key === 'Tab') {
+          event.preventDefault();
+          (document.activeElement === open.current ? keep : open).current?.focus();
+        }
+      }}
+    >
         <h2 id="share-confirm-title">Open the shared plan?</h2>
         <div id="share-confirm-text">
           <p>
@@ -134,8 +129,7 @@ function SharePromptDialog() {
             Keep my plan
           </button>
         </div>
-      </div>
-    </div>
+    </ConfirmDialog>
   );
 }
 
@@ -149,17 +143,12 @@ function QuestionDialog() {
   if (!question) return null;
   const last = question.choices.length - 1;
   return (
-    <div className="modal-backdrop">
-      <div
-        className="modal workspace-confirm"
-        role="alertdialog"
-        aria-modal="true"
-        aria-labelledby="workspace-question-title"
-        aria-describedby="workspace-question-text"
-        onKeyDown={(event) => {
-          if (event.key === 'Escape') answerQuestion(last);
-        }}
-      >
+    <ConfirmDialog
+      idBase="workspace-question"
+      onKeyDown={(event) => {
+        if (event.key === 'Escape') answerQuestion(last);
+      }}
+    >
         <h2 id="workspace-question-title">{question.title}</h2>
         <p id="workspace-question-text">{question.text}</p>
         <div className="modal__actions">
@@ -169,6 +158,19 @@ function QuestionDialog() {
             </button>
           ))}
         </div>
+    </ConfirmDialog>
+  );
+}
+
+/**
+ * The workspace's question before work could be lost, as a modal alert dialog: its title is the
+ * element with id `<idBase>-title`, its text `<idBase>-text`.
+ */
+function ConfirmDialog({ idBase, onKeyDown, children }: { idBase: string; onKeyDown: (event: KeyboardEvent<HTMLDivElement>) => void; children: ReactNode }) {
+  return (
+    <div className="modal-backdrop">
+      <div className="modal workspace-confirm" role="alertdialog" aria-modal="true" aria-labelledby={`${idBase}-title`} aria-describedby={`${idBase}-text`} onKeyDown={onKeyDown}>
+        {children}
       </div>
     </div>
   );

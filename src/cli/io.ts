@@ -11,6 +11,8 @@ import { UsageError } from './errors';
 export interface CliIo {
   stdout(text: string): void;
   stderr(text: string): void;
+  /** UTF-8 bytes for standard output (long outputs made as bytes); absent: they are decoded and given to stdout. */
+  stdoutBytes?(bytes: Uint8Array): void;
   /**
    * Long outputs (see writeChunks in output.ts) ask this before each chunk: true once stdout can
    * take more (waiting while its buffer drains), false when the reader has gone (a closed pipe):
@@ -23,6 +25,9 @@ export interface CliIo {
 export const processIo: CliIo = {
   stdout: (text) => {
     process.stdout.write(text);
+  },
+  stdoutBytes: (bytes) => {
+    process.stdout.write(bytes);
   },
   stderr: (text) => {
     process.stderr.write(text);

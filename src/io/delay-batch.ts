@@ -59,7 +59,8 @@ import {
   speedSigmasFromTurn,
   type TemperatureCandidate,
 } from '../physics';
-import { type CsvCell, CsvInputError, CsvNumberText, CsvWordText, columnWithUnit, csvCell, toSi } from './csv-common';
+import { CsvByteWriter } from './csv-byte-writer';
+import { type CsvCell, CsvInputError, columnWithUnit, toSi } from './csv-common';
 import { fromBaseUnit, type Unit } from './quantity';
 import { type CsvTable, columnByBase, columnList, columnNamed, numberAt, scanCsvTable, type TableColumn, type TableRow } from './small-csv';
 
@@ -409,6 +410,9 @@ function reachesOf(bits: number): IntervalReach[] {
   return REACH_CODES.filter((_, b) => (bits & (1 << b)) !== 0);
 }
 
+/** The warnings cell for each bit mask over {@link WARNING_CODES}, built once. */
+const WARNING_TEXTS: readonly string[] = Array.from({ length: 1 << WARNING_CODES.length }, (_, bits) => WARNING_CODES.filter((_, b) => (bits & (1 << b)) !== 0).join(' '));
+
 /** The warning codes of row `i`. */
 export function warningCodesAt(results: DelayBatchResults, i: number): ReadingWarningCode[] {
   const bits = results.warnings[i] as number;
@@ -603,7 +607,7 @@ const RESULT_COLUMNS: readonly ResultColumn[] = [
   },
   { name: () => 'alternatives', cell: (r, i) => (ambiguousAt(r, i) ? `${(r.along[i] as number) + 1} ${(r.across[i] as number) + 1}` : '') },
   { name: () => 'guess', cell: (r, i) => (ambiguousAt(r, i) ? (r.across[i] as number) + 1 : null) },
-  { name: () => 'warnings', cell: (r, i) => warningCodesAt(r, i).join(' ') },
+  { name: () => 'warnings', cell: (r, i) => WARNING_TEXTS[r.warnings[i] as number] as string },
   ...Array.from({ length: MAX_CANDIDATES }, (_, k) => candidateColumns(k)).flat(),
 ];
 
@@ -621,50 +625,45 @@ export function delayResultCells(r: DelayBatchResults, i: number, units: ResultU
   return columnsOf(r.batch).map((c) => c.cell(r, i, units));
 }
 
-/** Characters per chunk of {@link delayResultCsvChunks}. */
-const CSV_CHUNK_CHARS = 1 << 16;
+/** Bytes per chunk of {@link delayResultCsvBytes}. */
+const CSV_CHUNK_BYTES = 1 << 16;
 
 /**
- * The results as CSV text in chunks of about 64 k characters (whole lines), for writing a batch
- * of any length without holding its text: the same text as {@link delayResultsToCsv}. Each row
- * is written straight into the chunk, no cell array; a number that repeats down its column (the
- * default distance) or within a few cells (the chosen T and its Ti, {@link CsvNumberText}) is
- * converted to text once.
+ * The results as CSV, UTF-8 bytes in chunks of about 64 kB (whole lines), for writing a batch of
+ * any length without holding its text: the same text as {@link delayResultsToCsv}. Cells go
+ * straight into the chunk's bytes ({@link CsvByteWriter}): no string per number, cell or row,
+ * and a number that repeats down its column (the default distance) or within a few cells (the
+ * chosen T and its Ti) is converted to text once.
  */
-export function* delayResultCsvChunks(results: DelayBatchResults, units: ResultUnits = {}, chunkChars = CSV_CHUNK_CHARS): Generator<string, void, undefined> {
+export function* delayResultCsvBytes(results: DelayBatchResults, units: ResultUnits = {}, chunkBytes = CSV_CHUNK_BYTES): Generator<Uint8Array, void, undefined> {
   const columns = columnsOf(results.batch);
-  // A number is converted once when it repeats down its column (the default distance) or within
-  // a few cells of its row (the chosen T and its Ti); codes and notes are checked for quoting once.
-  const numbers = new CsvNumberText();
-  const words = new CsvWordText();
-  const lastValue = new Float64Array(columns.length).fill(Number.NaN);
-  const lastText: string[] = columns.map(() => '');
-  let lines: string[] = [delayResultHeader(results.batch, units).map(csvCell).join(',')];
-  let chars = 0;
-  const texts: string[] = columns.map(() => '');
-  for (let i = 0; i < results.count; i++) {
-    if (chars >= chunkChars || (i === 0 && (lines[0] as string).length >= chunkChars)) {
-      yield `${lines.join('\n')}\n`;
-      lines = [];
-      chars = 0;
-    }
-    for (let c = 0; c < columns.length; c++) {
-      const cell = (columns[c] as ResultColumn).cell(results, i, units);
-      let text: string;
-      if (typeof cell !== 'number') text = cell == null || cell === '' ? '' : words.text(cell);
-      else if (cell === lastValue[c]) text = lastText[c] as string;
-      else {
-        text = numbers.text(cell);
-        lastValue[c] = cell;
-        lastText[c] = text;
-      }
-      texts[c] = text;
-    }
-    const line = texts.join(',');
-    lines.push(line);
-    chars += line.length + 1;
+  const out = new CsvByteWriter(columns.length, chunkBytes);
+  const header = delayResultHeader(results.batch, units);
+  for (let c = 0; c < header.length; c++) {
+    if (c > 0) out.comma();
+    out.text(header[c] as string);
   }
-  if (lines.length > 0) yield `${lines.join('\n')}\n`;
+  out.newline();
+  for (let i = 0; i < results.count; i++) {
+    if (out.full()) yield out.take();
+    for (let c = 0; c < columns.length; c++) {
+      if (c > 0) out.comma();
+      const cell = (columns[c] as ResultColumn).cell(results, i, units);
+      if (typeof cell === 'number') out.number(cell, c);
+      else if (cell != null) out.text(cell);
+    }
+    out.newline();
+  }
+  if (out.size > 0) yield out.take();
+}
+
+/**
+ * The results as CSV text in chunks of about 64 k characters (whole lines): {@link delayResultCsvBytes}
+ * decoded, chunk by chunk.
+ */
+export function* delayResultCsvChunks(results: DelayBatchResults, units: ResultUnits = {}, chunkChars = CSV_CHUNK_BYTES): Generator<string, void, undefined> {
+  const decoder = new TextDecoder();
+  for (const bytes of delayResultCsvBytes(results, units, chunkChars)) yield decoder.decode(bytes);
 }
 
 /** The results as CSV text (RFC 4180 quoting, LF line ends, a header row first), columns in `units` where given. */

@@ -4,7 +4,7 @@
  * temperature picks. With --input, a CSV of delays → a CSV of results (src/io/delay-batch).
  */
 import { type ChoiceRule, convertDelay, DELAY_LIMITS, type DelayConversion, OutOfRangeError, requireInRange, SPEED_RANGE_M_S } from '../../physics';
-import { convertDelayBatch, delayResultCsvChunks, parseDelayCsv } from '../../io/delay-batch';
+import { convertDelayBatch, delayResultCsvBytes, parseDelayCsv } from '../../io/delay-batch';
 import { tooSlowForSecondSound } from '../../io/speed-plausibility';
 import { type QuantityFlag, requireQuantity, type TextFlag } from '../args';
 import type { Command } from '../command';
@@ -165,7 +165,7 @@ async function runBatch(args: Parameters<Command['run']>[0], path: string, io: P
   const settings = { ...sds, ...(distance_m === undefined ? {} : { distance_m }), ...(start ? { start } : {}) };
   const results = fromFile('delay file', path, () => convertDelayBatch(batch, settings));
   // Streamed: rows become text chunk by chunk as stdout takes them; a closed pipe stops it quietly.
-  await writeChunks(io, delayResultCsvChunks(results));
+  await writeChunks(io, delayResultCsvBytes(results));
   return EXIT_OK;
 }
 

@@ -11,8 +11,12 @@ import { UsageError } from './errors';
 export interface CliIo {
   stdout(text: string): void;
   stderr(text: string): void;
-  /** UTF-8 bytes for standard output (long outputs made as bytes); absent: they are decoded and given to stdout. */
-  stdoutBytes?(bytes: Uint8Array): void;
+  /**
+   * UTF-8 bytes for standard output (long outputs made as bytes); absent: they are decoded and
+   * given to stdout. Returns true when it is done with them (written or copied), so the writer
+   * may fill them again; false while they may still be read.
+   */
+  stdoutBytes?(bytes: Uint8Array): boolean;
   /**
    * Long outputs (see writeChunks in output.ts) ask this before each chunk: true once stdout can
    * take more (waiting while its buffer drains), false when the reader has gone (a closed pipe):
@@ -28,6 +32,8 @@ export const processIo: CliIo = {
   },
   stdoutBytes: (bytes) => {
     process.stdout.write(bytes);
+    // Nothing left queued: the bytes were written at once (a file), not kept for later (a pipe).
+    return process.stdout.writableLength === 0;
   },
   stderr: (text) => {
     process.stderr.write(text);

@@ -29,6 +29,7 @@ export class CsvByteWriter {
   private readonly recentLength = new Int32Array(RECENT);
   private recentNext = 0;
   private readonly words = new Map<string, Uint8Array>();
+  private spare: Uint8Array | null = null;
 
   /**
    * @param columns how many columns the table has (numbers repeated down a column are copied).
@@ -66,15 +67,27 @@ export class CsvByteWriter {
     return this.pos >= this.chunkBytes;
   }
 
-  /** The chunk written so far; the writer starts a new one (the bytes handed over are never written again). */
+  /**
+   * The chunk written so far; the writer starts a new one. The bytes handed over are not written
+   * again unless they are given back ({@link giveBack}).
+   */
   take(): Uint8Array {
     const chunk = this.buffer.subarray(0, this.pos);
-    this.buffer = new Uint8Array(this.capacity());
+    this.buffer = this.spare ?? new Uint8Array(this.capacity());
+    this.spare = null;
     this.pos = 0;
     // Remembered bytes lay in the chunk just handed over.
     this.columnValue.fill(Number.NaN);
     this.recentValue.fill(Number.NaN);
     return chunk;
+  }
+
+  /**
+   * A chunk from {@link take} whose reader is done with it (written out, or copied): its memory
+   * serves the next chunk, so a long table does not allocate a buffer per chunk.
+   */
+  giveBack(chunk: Uint8Array): void {
+    if (chunk.byteOffset === 0 && chunk.buffer.byteLength === this.capacity() && chunk.buffer !== this.buffer.buffer) this.spare = new Uint8Array(chunk.buffer as ArrayBuffer);
   }
 
   /** The cell delimiter. */

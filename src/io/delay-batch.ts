@@ -350,7 +350,8 @@ export function convertDelayBatch(batch: DelayBatch, settings: DelayBatchSetting
     if (index !== null && index < count) {
       out.chosen[i] = index;
       out.chosenBy[i] = byCode[by];
-      warnings |= warningBits(candidateWarnings(candidates[index] as TemperatureCandidate, 0));
+      // Only the codes are kept: the messages' temperatures are not written (noWords).
+      warnings |= warningBits(candidateWarnings(candidates[index] as TemperatureCandidate, 0, noWords));
     }
     if (choice.ambiguous) {
       out.along[i] = choice.ambiguous.alternatives[0];
@@ -364,11 +365,18 @@ export function convertDelayBatch(batch: DelayBatch, settings: DelayBatchSetting
 }
 
 function reachBits(reaches: readonly IntervalReach[]): number {
-  return reaches.reduce((bits, r) => bits | (1 << REACH_CODES.indexOf(r)), 0);
+  let bits = 0;
+  for (const r of reaches) bits |= 1 << REACH_CODES.indexOf(r);
+  return bits;
 }
 
 function warningBits(warnings: readonly ReadingWarning[]): number {
-  return warnings.reduce((bits, w) => (WARNING_CODES.includes(w.code) ? bits | (1 << WARNING_CODES.indexOf(w.code)) : bits), 0);
+  let bits = 0;
+  for (const w of warnings) {
+    const b = WARNING_CODES.indexOf(w.code);
+    if (b >= 0) bits |= 1 << b;
+  }
+  return bits;
 }
 
 /** A row past a turn that a later row's evidence settled: the continuation on the chosen branch. */
@@ -633,9 +641,10 @@ const CSV_CHUNK_BYTES = 1 << 16;
  * any length without holding its text: the same text as {@link delayResultsToCsv}. Cells go
  * straight into the chunk's bytes ({@link CsvByteWriter}): no string per number, cell or row,
  * and a number that repeats down its column (the default distance) or within a few cells (the
- * chosen T and its Ti) is converted to text once.
+ * chosen T and its Ti) is converted to text once. A reader done with a chunk when it asks for
+ * the next may pass it back (`next(chunk)`): its memory then serves again.
  */
-export function* delayResultCsvBytes(results: DelayBatchResults, units: ResultUnits = {}, chunkBytes = CSV_CHUNK_BYTES): Generator<Uint8Array, void, undefined> {
+export function* delayResultCsvBytes(results: DelayBatchResults, units: ResultUnits = {}, chunkBytes = CSV_CHUNK_BYTES): Generator<Uint8Array, void, Uint8Array | undefined> {
   const columns = columnsOf(results.batch);
   const out = new CsvByteWriter(columns.length, chunkBytes);
   const header = delayResultHeader(results.batch, units);
@@ -645,7 +654,10 @@ export function* delayResultCsvBytes(results: DelayBatchResults, units: ResultUn
   }
   out.newline();
   for (let i = 0; i < results.count; i++) {
-    if (out.full()) yield out.take();
+    if (out.full()) {
+      const done = yield out.take();
+      if (done) out.giveBack(done);
+    }
     for (let c = 0; c < columns.length; c++) {
       if (c > 0) out.comma();
       const cell = (columns[c] as ResultColumn).cell(results, i, units);
@@ -663,7 +675,13 @@ export function* delayResultCsvBytes(results: DelayBatchResults, units: ResultUn
  */
 export function* delayResultCsvChunks(results: DelayBatchResults, units: ResultUnits = {}, chunkChars = CSV_CHUNK_BYTES): Generator<string, void, undefined> {
   const decoder = new TextDecoder();
-  for (const bytes of delayResultCsvBytes(results, units, chunkChars)) yield decoder.decode(bytes);
+  const chunks = delayResultCsvBytes(results, units, chunkChars);
+  for (let next = chunks.next(); !next.done; ) {
+    const bytes = next.value;
+    yield decoder.decode(bytes);
+    // Decoded: the bytes serve the next chunk.
+    next = chunks.next(bytes);
+  }
 }
 
 /** The results as CSV text (RFC 4180 quoting, LF line ends, a header row first), columns in `units` where given. */

@@ -9,8 +9,10 @@
 import { csvCell } from './csv-common';
 import { SHORTEST_NUMBER_MAX_BYTES, writeShortestNumber } from './shortest-number-text';
 
-/** Numbers remembered for copying within a few cells (a power of two). */
-const RECENT = 16;
+/** Numbers remembered for copying within a few cells: a direct-mapped table by the double's bits (a power of two). */
+const RECENT = 64;
+const bits = new Float64Array(1);
+const words32 = new Uint32Array(bits.buffer);
 /** Text cells up to this length have their bytes remembered (codes, notes); longer ones are encoded each time. */
 const WORD_MAX_CHARS = 32;
 const WORDS_KEPT = 256;
@@ -23,11 +25,10 @@ export class CsvByteWriter {
   private readonly columnValue: Float64Array;
   private readonly columnStart: Int32Array;
   private readonly columnLength: Int32Array;
-  /** The last {@link RECENT} numbers written (any column), likewise. */
+  /** Numbers written lately (any column), likewise, each in the slot its bits choose. */
   private readonly recentValue = new Float64Array(RECENT).fill(Number.NaN);
   private readonly recentStart = new Int32Array(RECENT);
   private readonly recentLength = new Int32Array(RECENT);
-  private recentNext = 0;
   private readonly words = new Map<string, Uint8Array>();
   private spare: Uint8Array | null = null;
 
@@ -121,16 +122,14 @@ export class CsvByteWriter {
     if (Number.isSafeInteger(x) && x < 1e9 && x > -1e9) {
       this.integer(x);
     } else {
-      let k = 0;
-      while (k < RECENT && this.recentValue[k] !== x) k++;
-      if (k < RECENT) this.copy(this.recentStart[k] as number, this.recentLength[k] as number);
+      bits[0] = x;
+      const slot = ((words32[0] as number) ^ (words32[1] as number)) & (RECENT - 1);
+      if (this.recentValue[slot] === x) this.copy(this.recentStart[slot] as number, this.recentLength[slot] as number);
       else {
         this.pos = writeShortestNumber(x, this.buffer, start);
-        const slot = this.recentNext;
         this.recentValue[slot] = x;
         this.recentStart[slot] = start;
         this.recentLength[slot] = this.pos - start;
-        this.recentNext = (slot + 1) & (RECENT - 1);
       }
     }
     this.columnValue[column] = x;

@@ -11,7 +11,8 @@ import { fileURLToPath } from 'node:url';
 import { afterAll, describe, expect, it } from 'vitest';
 import type { CliIo } from '../../src/cli/io';
 import { main } from '../../src/cli/main';
-import { convertDelayBatch, delayResultCsvChunks, delayResultsToCsv, parseDelayCsv } from '../../src/io/delay-batch';
+import { convertDelayBatch, parseDelayCsv } from '../../src/io/delay-batch';
+import { delayResultCsvChunks, delayResultsToCsv } from '../../src/io/delay-results-csv';
 import { CsvNumberText, CsvWordText, csvCell } from '../../src/io/csv-common';
 import { run } from '../support/cli-harness';
 

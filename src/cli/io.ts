@@ -3,7 +3,7 @@
  * main() in-process and read the output. Files are read with a byte cap: a device or pipe that
  * never ends (/dev/zero), or a file larger than it claims, stops at the cap with a one-line error.
  */
-import { closeSync, openSync, readSync } from 'node:fs';
+import { closeSync, fstatSync, openSync, readSync } from 'node:fs';
 import { formatFileSize } from '../io/byte-size';
 import { UsageError } from './errors';
 
@@ -11,6 +11,12 @@ import { UsageError } from './errors';
 export interface CliIo {
   stdout(text: string): void;
   stderr(text: string): void;
+  /**
+   * UTF-8 bytes for standard output (long outputs made as bytes); absent: they are decoded and
+   * given to stdout. Returns true when it is done with them (written or copied), so the writer
+   * may fill them again; false while they may still be read.
+   */
+  stdoutBytes?(bytes: Uint8Array): boolean;
   /**
    * Long outputs (see writeChunks in output.ts) ask this before each chunk: true once stdout can
    * take more (waiting while its buffer drains), false when the reader has gone (a closed pipe):
@@ -23,6 +29,11 @@ export interface CliIo {
 export const processIo: CliIo = {
   stdout: (text) => {
     process.stdout.write(text);
+  },
+  stdoutBytes: (bytes) => {
+    process.stdout.write(bytes);
+    // Nothing left queued: the bytes were written at once (a file), not kept for later (a pipe).
+    return process.stdout.writableLength === 0;
   },
   stderr: (text) => {
     process.stderr.write(text);
@@ -78,14 +89,28 @@ export function readFileCapped(path: string, what: string, capBytes: number): Ui
   } catch (error) {
     throw new UsageError(`cannot read ${what} "${shownPath(path)}": ${describeFileError(error)}`);
   }
-  const chunks: Uint8Array[] = [];
+  // One buffer, sized from the file when it is a regular file (read straight into, no copies),
+  // doubled while a pipe or a growing file keeps giving more, never beyond the cap + 1.
+  let buffer: Uint8Array;
   let total = 0;
   try {
-    const buffer = new Uint8Array(Math.min(1024 * 1024, capBytes + 1));
+    let size = -1;
+    try {
+      const stat = fstatSync(fd);
+      if (stat.isFile()) size = stat.size;
+    } catch {
+      size = -1;
+    }
+    buffer = new Uint8Array(Math.min(size >= 0 ? size + 1 : 1024 * 1024, capBytes + 1));
     for (;;) {
+      if (total === buffer.length) {
+        const grown = new Uint8Array(Math.min(2 * buffer.length, capBytes + 1));
+        grown.set(buffer);
+        buffer = grown;
+      }
       let n: number;
       try {
-        n = readSync(fd, buffer, 0, Math.min(buffer.length, capBytes + 1 - total), null);
+        n = readSync(fd, buffer, total, buffer.length - total, null);
       } catch (error) {
         // A non-blocking standard input has nothing yet: wait a moment and read again.
         if (errorCode(error) === 'EAGAIN') {
@@ -96,7 +121,6 @@ export function readFileCapped(path: string, what: string, capBytes: number): Ui
         throw new UsageError(`cannot read ${what} "${shownPath(path)}": ${describeFileError(error)}`);
       }
       if (n === 0) break;
-      chunks.push(buffer.slice(0, n));
       total += n;
       if (total > capBytes) {
         throw new UsageError(`${what} "${shownPath(path)}" is larger than the ${formatFileSize(capBytes)} a ${what} may have (stopped reading there)`);
@@ -105,11 +129,5 @@ export function readFileCapped(path: string, what: string, capBytes: number): Ui
   } finally {
     if (own) closeSync(fd);
   }
-  const out = new Uint8Array(total);
-  let at = 0;
-  for (const c of chunks) {
-    out.set(c, at);
-    at += c.length;
-  }
-  return out;
+  return buffer.subarray(0, total);
 }

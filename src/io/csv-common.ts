@@ -227,51 +227,6 @@ export function csvCell(cell: CsvCell): string {
 }
 
 /**
- * Numbers as CSV text, as {@link csvCell} writes them (shortest round-trip form, empty for
- * non-finite), remembering the last four: a table that writes the same number again within a few
- * cells (a default repeated on every row, a chosen value beside its copy) converts it once.
- * Turning doubles into text is most of the cost of writing a large CSV.
- */
-export class CsvNumberText {
-  private readonly values = new Float64Array(4).fill(Number.NaN);
-  private readonly texts = ['', '', '', ''];
-  private next = 0;
-
-  text(x: number): string {
-    if (!Number.isFinite(x)) return '';
-    // Small integers (line numbers, counts) are cheap to write and would only crowd the others out.
-    if (Number.isSafeInteger(x) && x < 1e9 && x > -1e9) return String(x);
-    const values = this.values;
-    for (let k = 0; k < 4; k++) if (values[k] === x) return this.texts[k] as string;
-    const text = String(x);
-    values[this.next] = x;
-    this.texts[this.next] = text;
-    this.next = (this.next + 1) & 3;
-    return text;
-  }
-}
-
-/**
- * Text cells as CSV text (as {@link csvCell} writes them), remembering the quoted form of short
- * words seen before: a table whose text columns hold a few words (branch names, notes, "chosen
- * by") checks each word for quoting once, not once per row.
- */
-export class CsvWordText {
-  private readonly seen = new Map<string, string>();
-
-  text(cell: string | boolean): string {
-    if (typeof cell !== 'string' || cell.length > 32) return csvCell(cell);
-    let text = this.seen.get(cell);
-    if (text === undefined) {
-      text = csvCell(cell);
-      if (this.seen.size >= 256) this.seen.clear();
-      this.seen.set(cell, text);
-    }
-    return text;
-  }
-}
-
-/**
  * Splits one line into cells with the given delimiter, honouring RFC 4180 double quotes (for
  * header lines, where names may be quoted). Data rows use a faster split of their own.
  */

@@ -46,6 +46,7 @@ import {
   type Branch,
   type ChoiceRule,
   candidateWarnings,
+  checkDelayReading,
   convertDelay,
   type DelayConversion,
   EVIDENCE_LIMIT_SD,
@@ -59,7 +60,7 @@ import {
   speedSigmasFromTurn,
   type TemperatureCandidate,
 } from '../physics';
-import { type CsvCell, CsvInputError, CsvNumberText, CsvWordText, columnWithUnit, csvCell, toSi } from './csv-common';
+import { type CsvCell, CsvInputError, columnWithUnit, toSi } from './csv-common';
 import { fromBaseUnit, type Unit } from './quantity';
 import { type CsvTable, columnByBase, columnList, columnNamed, numberAt, scanCsvTable, type TableColumn, type TableRow } from './small-csv';
 
@@ -255,36 +256,65 @@ const ONLY_CANDIDATE: ChoiceRule = { kind: 'range', min_K: 0, max_K: PROPERTIES_
  */
 export function convertDelayBatch(batch: DelayBatch, settings: DelayBatchSettings): DelayBatchResults {
   const n = batch.rows.length;
+  const out = emptyDelayResults(batch, n);
+  const convert = delayRowConverter(settings, true);
+  for (let i = 0; i < n; i++) convert(out, i, batch.rows[i] as DelayRow);
+  return out;
+}
+
+/** Results with room for `n` rows, every cell empty (NaN, {@link NO_CODE}, −1). */
+export function emptyDelayResults(batch: DelayBatch, n: number): DelayBatchResults {
   const m = n * MAX_CANDIDATES;
-  const out: DelayBatchResults = {
+  return clearDelayResults({
     batch,
     count: n,
     distance_m: new Float64Array(n),
     speed_m_s: new Float64Array(n),
     speedSd_m_s: new Float64Array(n),
     candidateCount: new Uint8Array(n),
-    temperature_K: new Float64Array(m).fill(Number.NaN),
-    sd_K: new Float64Array(m).fill(Number.NaN),
-    slope_m_s_K: new Float64Array(m).fill(Number.NaN),
-    branch: new Uint8Array(m).fill(NO_CODE),
-    region: new Uint8Array(m).fill(NO_CODE),
-    kind: new Uint8Array(m).fill(NO_CODE),
+    temperature_K: new Float64Array(m),
+    sd_K: new Float64Array(m),
+    slope_m_s_K: new Float64Array(m),
+    branch: new Uint8Array(m),
+    region: new Uint8Array(m),
+    kind: new Uint8Array(m),
     insensitive: new Uint8Array(m),
-    sdMeasurement_K: new Float64Array(m).fill(Number.NaN),
-    sdCurve_K: new Float64Array(m).fill(Number.NaN),
-    low68_K: new Float64Array(m).fill(Number.NaN),
-    high68_K: new Float64Array(m).fill(Number.NaN),
-    low95_K: new Float64Array(m).fill(Number.NaN),
-    high95_K: new Float64Array(m).fill(Number.NaN),
+    sdMeasurement_K: new Float64Array(m),
+    sdCurve_K: new Float64Array(m),
+    low68_K: new Float64Array(m),
+    high68_K: new Float64Array(m),
+    low95_K: new Float64Array(m),
+    high95_K: new Float64Array(m),
     reaches68: new Uint8Array(m),
     reaches95: new Uint8Array(m),
-    evidenceSd: new Float64Array(m).fill(Number.NaN),
-    chosen: new Int8Array(n).fill(-1),
-    chosenBy: new Uint8Array(n).fill(NO_CODE),
-    along: new Int8Array(n).fill(-1),
-    across: new Int8Array(n).fill(-1),
+    evidenceSd: new Float64Array(m),
+    chosen: new Int8Array(n),
+    chosenBy: new Uint8Array(n),
+    along: new Int8Array(n),
+    across: new Int8Array(n),
     warnings: new Uint8Array(n),
-  };
+  });
+}
+
+/** Empties every cell of `r` (to be filled again, e.g. by the next block of a streamed batch). */
+export function clearDelayResults(r: DelayBatchResults): DelayBatchResults {
+  for (const column of [r.temperature_K, r.sd_K, r.slope_m_s_K, r.sdMeasurement_K, r.sdCurve_K, r.low68_K, r.high68_K, r.low95_K, r.high95_K, r.evidenceSd]) column.fill(Number.NaN);
+  for (const column of [r.branch, r.region, r.kind, r.chosenBy]) column.fill(NO_CODE);
+  for (const column of [r.chosen, r.along, r.across]) column.fill(-1);
+  for (const column of [r.insensitive, r.reaches68, r.reaches95, r.warnings]) column.fill(0);
+  return r;
+}
+
+/** Converts one row into row i of a results table; rows must come in order (the series is chosen row by row). */
+export type DelayRowConverter = (out: DelayBatchResults, i: number, row: DelayRow) => void;
+
+/**
+ * The conversion of {@link convertDelayBatch}, one row at a time, keeping the series' choice
+ * between calls. With `settle` false (rows written out block by block, so earlier rows are no
+ * longer at hand) a row that settles earlier ambiguous rows is an error: only a batch with
+ * pressures has such rows ({@link DelayBatch.hasPressure}).
+ */
+export function delayRowConverter(settings: DelayBatchSettings, settle: boolean): DelayRowConverter {
   // The batch keeps which rule chose, not the reason in words: no temperature text per row.
   const choose = seriesChooser(settings.start ?? ONLY_CANDIDATE, noWords);
   const byCode: Readonly<Record<SeriesChoiceBy, number>> = {
@@ -292,16 +322,8 @@ export function convertDelayBatch(batch: DelayBatch, settings: DelayBatchSetting
     start: CHOSEN_BY_CODES.indexOf(settings.start ? settings.start.kind : 'only candidate'),
     continuity: CHOSEN_BY_CODES.indexOf('continuity'),
   };
-  const reading = {
-    distance_m: 0,
-    delay_s: 0,
-    distanceSd_m: settings.distanceSd_m ?? 0,
-    delaySd_s: settings.delaySd_s ?? 0,
-    offset_s: settings.offset_s ?? 0,
-    offsetSd_s: settings.offsetSd_s ?? 0,
-  };
-  for (let i = 0; i < n; i++) {
-    const row = batch.rows[i] as DelayRow;
+  const reading = readingOf(settings);
+  return (out, i, row) => {
     const distance_m = row.distance_m ?? settings.distance_m;
     if (distance_m === undefined) throw new CsvInputError('missing-column', 'no distance: give a default distance or a distance_m cell', row.line);
     reading.distance_m = distance_m;
@@ -349,7 +371,8 @@ export function convertDelayBatch(batch: DelayBatch, settings: DelayBatchSetting
     if (index !== null && index < count) {
       out.chosen[i] = index;
       out.chosenBy[i] = byCode[by];
-      warnings |= warningBits(candidateWarnings(candidates[index] as TemperatureCandidate, 0));
+      // Only the codes are kept: the messages' temperatures are not written (noWords).
+      warnings |= warningBits(candidateWarnings(candidates[index] as TemperatureCandidate, 0, noWords));
     }
     if (choice.ambiguous) {
       out.along[i] = choice.ambiguous.alternatives[0];
@@ -357,17 +380,59 @@ export function convertDelayBatch(batch: DelayBatch, settings: DelayBatchSetting
       out.chosenBy[i] = CHOSEN_BY_CODES.indexOf('ambiguous');
     }
     out.warnings[i] = warnings;
+    if (choice.settles.length > 0 && !settle) throw new Error('a row settles earlier rows of a batch written block by block');
     for (const settled of choice.settles) settleRow(out, settled.row, settled.index);
+  };
+}
+
+/** The reading every row shares (its distance and delay are set per row). */
+function readingOf(settings: DelayBatchSettings) {
+  return {
+    distance_m: 0,
+    delay_s: 0,
+    distanceSd_m: settings.distanceSd_m ?? 0,
+    delaySd_s: settings.delaySd_s ?? 0,
+    offset_s: settings.offset_s ?? 0,
+    offsetSd_s: settings.offsetSd_s ?? 0,
+  };
+}
+
+/**
+ * Throws what {@link convertDelayBatch} would throw for a row the kernel refuses or a row
+ * without a distance (the first such row), without converting: a batch written block by block
+ * is refused whole before any of it is written.
+ */
+export function checkDelayBatch(batch: DelayBatch, settings: DelayBatchSettings): void {
+  const reading = readingOf(settings);
+  for (const row of batch.rows) {
+    const distance_m = row.distance_m ?? settings.distance_m;
+    if (distance_m === undefined) throw new CsvInputError('missing-column', 'no distance: give a default distance or a distance_m cell', row.line);
+    reading.distance_m = distance_m;
+    reading.delay_s = row.delay_s;
+    const slow = tooSlowForSecondSound(distance_m / (row.delay_s - reading.offset_s));
+    if (slow !== null) throw new CsvInputError('out-of-range', slow, row.line);
+    try {
+      checkDelayReading(reading);
+    } catch (error) {
+      if (error instanceof PhysicsError) throw new CsvInputError('out-of-range', error.message, row.line);
+      throw error;
+    }
   }
-  return out;
 }
 
 function reachBits(reaches: readonly IntervalReach[]): number {
-  return reaches.reduce((bits, r) => bits | (1 << REACH_CODES.indexOf(r)), 0);
+  let bits = 0;
+  for (const r of reaches) bits |= 1 << REACH_CODES.indexOf(r);
+  return bits;
 }
 
 function warningBits(warnings: readonly ReadingWarning[]): number {
-  return warnings.reduce((bits, w) => (WARNING_CODES.includes(w.code) ? bits | (1 << WARNING_CODES.indexOf(w.code)) : bits), 0);
+  let bits = 0;
+  for (const w of warnings) {
+    const b = WARNING_CODES.indexOf(w.code);
+    if (b >= 0) bits |= 1 << b;
+  }
+  return bits;
 }
 
 /** A row past a turn that a later row's evidence settled: the continuation on the chosen branch. */
@@ -408,6 +473,9 @@ export function candidatesAt(results: DelayBatchResults, i: number): Temperature
 function reachesOf(bits: number): IntervalReach[] {
   return REACH_CODES.filter((_, b) => (bits & (1 << b)) !== 0);
 }
+
+/** The warnings cell for each bit mask over {@link WARNING_CODES}, built once. */
+const WARNING_TEXTS: readonly string[] = Array.from({ length: 1 << WARNING_CODES.length }, (_, bits) => WARNING_CODES.filter((_, b) => (bits & (1 << b)) !== 0).join(' '));
 
 /** The warning codes of row `i`. */
 export function warningCodesAt(results: DelayBatchResults, i: number): ReadingWarningCode[] {
@@ -513,14 +581,14 @@ function inUnit(value: number | null | undefined, unit: Unit | undefined): numbe
   return value == null || unit === undefined ? value : fromBaseUnit(value, unit);
 }
 
-type BatchShape = Pick<DelayBatch, 'delayColumn' | 'hasTimestamp' | 'hasPressure'>;
+export type BatchShape = Pick<DelayBatch, 'delayColumn' | 'hasTimestamp' | 'hasPressure'>;
 
 /**
  * One column of the results CSV: its name, whether a batch has it, and its cell in row i. The
  * header, the page's table export and the streamed CSV all read {@link RESULT_COLUMNS}, so a new
  * column is one entry there.
  */
-interface ResultColumn {
+export interface ResultColumn {
   name(batch: BatchShape, units: ResultUnits): string;
   /** Absent: every batch has the column. */
   present?(batch: BatchShape): boolean;
@@ -603,11 +671,12 @@ const RESULT_COLUMNS: readonly ResultColumn[] = [
   },
   { name: () => 'alternatives', cell: (r, i) => (ambiguousAt(r, i) ? `${(r.along[i] as number) + 1} ${(r.across[i] as number) + 1}` : '') },
   { name: () => 'guess', cell: (r, i) => (ambiguousAt(r, i) ? (r.across[i] as number) + 1 : null) },
-  { name: () => 'warnings', cell: (r, i) => warningCodesAt(r, i).join(' ') },
+  { name: () => 'warnings', cell: (r, i) => WARNING_TEXTS[r.warnings[i] as number] as string },
   ...Array.from({ length: MAX_CANDIDATES }, (_, k) => candidateColumns(k)).flat(),
 ];
 
-function columnsOf(batch: BatchShape): ResultColumn[] {
+/** The columns a batch of this shape has, in order (for writers of the results CSV). */
+export function columnsOf(batch: BatchShape): ResultColumn[] {
   return RESULT_COLUMNS.filter((c) => c.present?.(batch) ?? true);
 }
 
@@ -619,57 +688,4 @@ export function delayResultHeader(batch: BatchShape, units: ResultUnits = {}): s
 /** Row `i`'s cells, in the order of {@link delayResultHeader}. */
 export function delayResultCells(r: DelayBatchResults, i: number, units: ResultUnits = {}): CsvCell[] {
   return columnsOf(r.batch).map((c) => c.cell(r, i, units));
-}
-
-/** Characters per chunk of {@link delayResultCsvChunks}. */
-const CSV_CHUNK_CHARS = 1 << 16;
-
-/**
- * The results as CSV text in chunks of about 64 k characters (whole lines), for writing a batch
- * of any length without holding its text: the same text as {@link delayResultsToCsv}. Each row
- * is written straight into the chunk, no cell array; a number that repeats down its column (the
- * default distance) or within a few cells (the chosen T and its Ti, {@link CsvNumberText}) is
- * converted to text once.
- */
-export function* delayResultCsvChunks(results: DelayBatchResults, units: ResultUnits = {}, chunkChars = CSV_CHUNK_CHARS): Generator<string, void, undefined> {
-  const columns = columnsOf(results.batch);
-  // A number is converted once when it repeats down its column (the default distance) or within
-  // a few cells of its row (the chosen T and its Ti); codes and notes are checked for quoting once.
-  const numbers = new CsvNumberText();
-  const words = new CsvWordText();
-  const lastValue = new Float64Array(columns.length).fill(Number.NaN);
-  const lastText: string[] = columns.map(() => '');
-  let lines: string[] = [delayResultHeader(results.batch, units).map(csvCell).join(',')];
-  let chars = 0;
-  const texts: string[] = columns.map(() => '');
-  for (let i = 0; i < results.count; i++) {
-    if (chars >= chunkChars || (i === 0 && (lines[0] as string).length >= chunkChars)) {
-      yield `${lines.join('\n')}\n`;
-      lines = [];
-      chars = 0;
-    }
-    for (let c = 0; c < columns.length; c++) {
-      const cell = (columns[c] as ResultColumn).cell(results, i, units);
-      let text: string;
-      if (typeof cell !== 'number') text = cell == null || cell === '' ? '' : words.text(cell);
-      else if (cell === lastValue[c]) text = lastText[c] as string;
-      else {
-        text = numbers.text(cell);
-        lastValue[c] = cell;
-        lastText[c] = text;
-      }
-      texts[c] = text;
-    }
-    const line = texts.join(',');
-    lines.push(line);
-    chars += line.length + 1;
-  }
-  if (lines.length > 0) yield `${lines.join('\n')}\n`;
-}
-
-/** The results as CSV text (RFC 4180 quoting, LF line ends, a header row first), columns in `units` where given. */
-export function delayResultsToCsv(results: DelayBatchResults, units: ResultUnits = {}): string {
-  let text = '';
-  for (const chunk of delayResultCsvChunks(results, units)) text += chunk;
-  return text;
 }

@@ -63,18 +63,15 @@ export function scanCsvTable(input: string | Uint8Array, what: string, visit: Cs
   // Without quotes or carriage returns, a split is what Papa's own fast mode does: lines at "\n",
   // cells at the delimiter, no cell spanning lines. Otherwise Papa reads quotes and CRLF.
   const plain = options.papa !== true && text.indexOf('"') < 0 && text.indexOf('\r') < 0;
-  const data = plain
-    ? plainRows(text, delimiter)
-    : Papa.parse<string[]>(text, { delimiter, quoteChar: '"', escapeChar: '"', skipEmptyLines: false, header: false }).data;
   let line = 1;
   let table: CsvTable | null = null;
-  for (const cells of data) {
+  const take = (cells: string[]): void => {
     const here = line;
     line += plain ? 1 : 1 + cells.reduce((n, c) => n + newlinesIn(c), 0);
     // A row whose first character is printable ASCII other than "#" is neither blank nor a comment.
     const first = (cells[0] ?? '').charCodeAt(0);
     const plainStart = first > 32 && first < 127 && first !== 35;
-    if (!plainStart && (cells.every((c) => c.trim() === '') || (cells[0] ?? '').trimStart().startsWith('#'))) continue;
+    if (!plainStart && (cells.every((c) => c.trim() === '') || (cells[0] ?? '').trimStart().startsWith('#'))) return;
     if (table === null) {
       const header = cells.map((c) => c.trim());
       if (header.every((c) => Number.isFinite(readNumberCell(c, delimiter !== ',')))) {
@@ -82,7 +79,7 @@ export function scanCsvTable(input: string | Uint8Array, what: string, visit: Cs
       }
       table = { header, headerLine: here, rows: [], delimiter };
       visit.header?.(table);
-      continue;
+      return;
     }
     if (cells.length !== table.header.length) {
       const foreign = (['\t', ';', ','] as const).find((x) => x !== delimiter && !(x === ',' && delimiter !== ',') && cells.some((c) => c.includes(x)));
@@ -92,20 +89,21 @@ export function scanCsvTable(input: string | Uint8Array, what: string, visit: Cs
       throw new CsvInputError('ragged', `ragged row: ${cells.length} cells where the header (line ${table.headerLine}) has ${table.header.length}`, here);
     }
     visit.row(table, { line: here, cells });
+  };
+  if (plain) {
+    // Lines split at "\n", each split at the delimiter, one at a time.
+    for (let start = 0; ; ) {
+      const end = text.indexOf('\n', start);
+      take(text.slice(start, end < 0 ? text.length : end).split(delimiter));
+      if (end < 0) break;
+      start = end + 1;
+    }
+  } else {
+    for (const cells of Papa.parse<string[]>(text, { delimiter, quoteChar: '"', escapeChar: '"', skipEmptyLines: false, header: false }).data) take(cells);
   }
-  if (table === null) throw new CsvInputError('no-data', `the ${what} file holds only comment lines`);
-  return table;
-}
-
-/** The lines of `text` split at "\n", each split at the delimiter, one at a time. */
-function* plainRows(text: string, delimiter: Delimiter): Generator<string[], void, undefined> {
-  let start = 0;
-  for (;;) {
-    const end = text.indexOf('\n', start);
-    yield text.slice(start, end < 0 ? text.length : end).split(delimiter);
-    if (end < 0) return;
-    start = end + 1;
-  }
+  const found = table as CsvTable | null;
+  if (found === null) throw new CsvInputError('no-data', `the ${what} file holds only comment lines`);
+  return found;
 }
 
 function firstContentLine(text: string): string {

@@ -130,6 +130,7 @@ export {
 export { type DistanceDelay, type DistanceFit, fitDistances } from './fit-distances';
 export {
   type Branch,
+  checkDelayReading,
   convertDelay,
   DELAY_LIMITS,
   type DelayConversion,

@@ -156,10 +156,11 @@ export const DELAY_LIMITS = {
 } as const;
 
 /**
- * Delay → speed u = d/(t − t0) with its sd, and every candidate temperature.
- * sd: σ_u/u = √((σ_d/d)² + (σ_t² + σ_t0²)/(t − t0)²). Throws typed errors naming the field.
+ * The checks {@link convertDelay} makes before it converts, in its order, with its errors: a
+ * caller that must refuse a whole batch before writing any of it (a streamed table) checks every
+ * row first. Throws typed errors naming the field.
  */
-export function convertDelay(r: DelayReading): DelayConversion {
+export function checkDelayReading(r: DelayReading): void {
   const L = DELAY_LIMITS;
   requireInRange('distance', r.distance_m, L.distance_m[0], L.distance_m[1], 'm');
   requireInRange('delay', r.delay_s, L.delay_s[0], L.delay_s[1], 's');
@@ -167,9 +168,19 @@ export function convertDelay(r: DelayReading): DelayConversion {
   requireInRange('delay sd', r.delaySd_s, L.delaySd_s[0], L.delaySd_s[1], 's');
   requireInRange('offset', r.offset_s, L.offset_s[0], r.delay_s * (1 - 1e-12), 's', 'the offset must be less than the delay');
   requireInRange('offset sd', r.offsetSd_s, L.offsetSd_s[0], L.offsetSd_s[1], 's');
+  const speed = r.distance_m / (r.delay_s - r.offset_s);
+  requireInRange('speed d/(t − t0)', speed, SPEED_RANGE_M_S[0], SPEED_RANGE_M_S[1], 'm/s', 'no second sound that fast or slow');
+}
+
+/**
+ * Delay → speed u = d/(t − t0) with its sd, and every candidate temperature.
+ * sd: σ_u/u = √((σ_d/d)² + (σ_t² + σ_t0²)/(t − t0)²). Throws typed errors naming the field
+ * ({@link checkDelayReading}).
+ */
+export function convertDelay(r: DelayReading): DelayConversion {
+  checkDelayReading(r);
   const transit = r.delay_s - r.offset_s;
   const speed = r.distance_m / transit;
   const rel = Math.hypot(r.distanceSd_m / r.distance_m, Math.hypot(r.delaySd_s, r.offsetSd_s) / transit);
-  requireInRange('speed d/(t − t0)', speed, SPEED_RANGE_M_S[0], SPEED_RANGE_M_S[1], 'm/s', 'no second sound that fast or slow');
   return { speed_m_s: speed, speedSd_m_s: speed * rel, candidates: temperatureCandidates(speed, Math.min(rel, 1)) };
 }

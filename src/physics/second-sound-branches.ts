@@ -29,7 +29,17 @@ export interface BranchTable {
   /** u2 at the cold and the warm end, m/s. */
   speedAtLo: number;
   speedAtHi: number;
+  /**
+   * Where to start the search for a speed: for each of {@link SPEED_BUCKETS} equal steps of speed
+   * from `slowest`, the table step holding the step's start (so a search spans a few nodes, not
+   * the whole table); `bucketsPerSpeed` converts a speed offset into a step number.
+   */
+  bucketStart: Int32Array;
+  bucketsPerSpeed: number;
 }
+
+/** Equal speed steps per branch in {@link BranchTable.bucketStart}. */
+const SPEED_BUCKETS = 4096;
 
 // With 4097 nodes the interpolated first guess is within about 1e-8 K of the root, so one Newton
 // step lands far below 1e-12 K and the evaluation made for it also serves the candidate's sd.
@@ -46,6 +56,14 @@ function buildBranch(branch: Branch, lo: number, hi: number): BranchTable {
   const slowest = speeds[0] as number;
   const fastest = speeds[speeds.length - 1] as number;
   const risingWithT = branch === 'middle';
+  const bucketsPerSpeed = SPEED_BUCKETS / (fastest - slowest);
+  const bucketStart = new Int32Array(SPEED_BUCKETS + 2);
+  let i = 0;
+  for (let q = 0; q < bucketStart.length; q++) {
+    const start = slowest + q / bucketsPerSpeed;
+    while (i < speeds.length - 2 && (speeds[i + 1] as number) <= start) i++;
+    bucketStart[q] = i;
+  }
   return {
     branch,
     lo,
@@ -56,6 +74,8 @@ function buildBranch(branch: Branch, lo: number, hi: number): BranchTable {
     fastest,
     speedAtLo: risingWithT ? slowest : fastest,
     speedAtHi: risingWithT ? fastest : slowest,
+    bucketStart,
+    bucketsPerSpeed,
   };
 }
 
@@ -110,10 +130,12 @@ export interface Root {
  */
 export function solveOnBranch(b: BranchTable, u: number): Root {
   // Bracket in temperature, and a linear first guess.
-  const step = tableStep(b, u);
-  let lo = Math.min(step.t0, step.t1);
-  let hi = Math.max(step.t0, step.t1);
-  let T = step.guess;
+  const i = tableIndex(b, u);
+  const t0 = b.temps[i] as number;
+  const t1 = b.temps[i + 1] as number;
+  let lo = Math.min(t0, t1);
+  let hi = Math.max(t0, t1);
+  let T = stepGuess(b, i, u);
   const rising = b.branch === 'middle';
   let at = secondSoundUnchecked(T);
   for (let k = 0; k < NEWTON_MAX_ITERATIONS; k++) {
@@ -143,22 +165,42 @@ export function branchEnd(b: BranchTable, which: 'slowest' | 'fastest'): number 
  * step): within about 1e-8 K of the root, enough for an interval bound. u within the branch's speeds.
  */
 export function interpolateOnBranch(b: BranchTable, u: number): number {
-  return tableStep(b, u).guess;
+  return stepGuess(b, tableIndex(b, u), u);
 }
 
-/** The table step around speed u (binary search): its end temperatures and the straight-line guess between them. */
-function tableStep(b: BranchTable, u: number): { t0: number; t1: number; guess: number } {
+/**
+ * The table step holding speed u: the last node i ≤ n − 2 with speeds[i] ≤ u (u ≥ slowest). One
+ * answer whatever the search's start: the speed step's bracket ({@link BranchTable.bucketStart})
+ * narrows it, checked, then a binary search inside; the whole table when the check fails.
+ */
+function tableIndex(b: BranchTable, u: number): number {
   const s = b.speeds;
+  const last = s.length - 1;
   let i = 0;
-  let j = s.length - 1;
+  let j = last;
+  const q = Math.floor((u - b.slowest) * b.bucketsPerSpeed);
+  if (q >= 0 && q <= SPEED_BUCKETS) {
+    const from = b.bucketStart[q] as number;
+    const to = (b.bucketStart[q + 1] as number) + 1;
+    // Bracket invariant: speeds[i] ≤ u, and j = last or speeds[j] > u.
+    if ((s[from] as number) <= u && (to >= last || (s[to] as number) > u)) {
+      i = from;
+      j = Math.min(to, last);
+    }
+  }
   while (j - i > 1) {
     const mid = (i + j) >> 1;
     if (u >= (s[mid] as number)) i = mid;
     else j = mid;
   }
-  const s0 = s[i] as number;
-  const s1 = s[j] as number;
+  return i;
+}
+
+/** The straight-line guess at speed u between the ends of table step i (nodes i and i + 1). */
+function stepGuess(b: BranchTable, i: number, u: number): number {
+  const s0 = b.speeds[i] as number;
+  const s1 = b.speeds[i + 1] as number;
   const t0 = b.temps[i] as number;
-  const t1 = b.temps[j] as number;
-  return { t0, t1, guess: s1 > s0 ? t0 + ((u - s0) * (t1 - t0)) / (s1 - s0) : t0 };
+  const t1 = b.temps[i + 1] as number;
+  return s1 > s0 ? t0 + ((u - s0) * (t1 - t0)) / (s1 - s0) : t0;
 }

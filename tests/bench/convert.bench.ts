@@ -5,7 +5,8 @@
  * Inputs are generated here (invented numbers).
  */
 import { bench, describe } from 'vitest';
-import { convertDelayBatch, type DelayBatch, delayResultsToCsv } from '../../src/io/delay-batch';
+import { convertDelayBatch, type DelayBatch } from '../../src/io/delay-batch';
+import { delayResultsToCsv } from '../../src/io/delay-results-csv';
 import { TraceCsvParser } from '../../src/io/trace-csv';
 import { pickTraceArrival } from '../../src/io/trace-pick';
 import { convertDelay } from '../../src/physics';

@@ -11,8 +11,8 @@ import { fileURLToPath } from 'node:url';
 import { afterAll, describe, expect, it } from 'vitest';
 import type { CliIo } from '../../src/cli/io';
 import { main } from '../../src/cli/main';
-import { convertDelayBatch, delayResultCsvChunks, delayResultsToCsv, parseDelayCsv } from '../../src/io/delay-batch';
-import { CsvNumberText, CsvWordText, csvCell } from '../../src/io/csv-common';
+import { convertDelayBatch, parseDelayCsv } from '../../src/io/delay-batch';
+import { delayResultCsvChunks, delayResultsToCsv } from '../../src/io/delay-results-csv';
 import { run } from '../support/cli-harness';
 
 const REPO_ROOT = fileURLToPath(new URL('../..', import.meta.url));
@@ -65,6 +65,29 @@ describe('delay --input streams its CSV', () => {
     }
   });
 
+  it('writes UTF-8 bytes where the writer takes them, reusing a chunk it is done with: the same text', async () => {
+    const decoder = new TextDecoder();
+    let text = '';
+    const buffers = new Set<ArrayBufferLike>();
+    let writes = 0;
+    const io: CliIo = {
+      stdout: (t) => {
+        text += t;
+      },
+      stderr: () => {},
+      stdoutBytes: (bytes) => {
+        text += decoder.decode(bytes);
+        buffers.add(bytes.buffer);
+        writes++;
+        return true;
+      },
+    };
+    expect(await main(['delay', '--input', bigDelays, '--distance', '50mm', '--delay-sd', '1us'], io)).toBe(0);
+    expect(text).toBe(delayResultsToCsv(convertDelayBatch(parseDelayCsv(delaysCsv(ROWS)), { distance_m: 0.05, delaySd_s: 1e-6 })));
+    expect(writes).toBeGreaterThan(10);
+    expect(buffers.size).toBeLessThanOrEqual(2);
+  });
+
   it('stops at the next chunk, quietly and with status 0, when the reader has gone', async () => {
     const { status, chunks, stderr } = await runChunks(['delay', '--input', bigDelays, '--distance', '50mm'], 2);
     expect(status).toBe(0);
@@ -82,20 +105,6 @@ describe('delay --input streams its CSV', () => {
       'line,timestamp,delay_us,distance_mm,pressure_mbar,speed_m_s,speedSd_m_s,candidates,chosen,chosen_by,T_mK,T_sd_mK,T_sd_meas_mK,T_sd_curve_mK,T_lo68_mK,T_hi68_mK,T_lo95_mK,T_hi95_mK,evidence_sd,alternatives,guess,warnings,T1_mK,T1_sd_mK,T1_branch,T1_note,T2_mK,T2_sd_mK,T2_branch,T2_note,T3_mK,T3_sd_mK,T3_branch,T3_note\n',
     );
     expect(inUnits[1]?.startsWith('2,"a, b",2500,50,16.38,20,0,3,')).toBe(true);
-  });
-});
-
-describe('CsvNumberText', () => {
-  it('writes every number as csvCell does, repeated or not (common practice, no source: JavaScript shortest round-trip text)', () => {
-    const numbers = new CsvNumberText();
-    const values = [0.1 + 0.2, 0.05, 0.05, -0, 0, 1e21, 1e-7, 123456789012345680000, Number.NaN, Number.POSITIVE_INFINITY, 2, 2.0000000000000004, 0.05, 7, -3.5e-12, 0.30000000000000004];
-    for (const x of values) expect(numbers.text(x)).toBe(csvCell(x));
-  });
-
-  it('CsvWordText writes every text cell as csvCell does, seen before or not', () => {
-    const words = new CsvWordText();
-    const cells = ['low', 'low', '=1+1', '=1+1', '@SUM(A1)', '-x', 'a,b', 'a,b', ' padded', 'say "hi"', 'two\nlines', '', 'x'.repeat(40), true, 'low', 'insensitive Landau-model'];
-    for (const cell of cells) expect(words.text(cell)).toBe(csvCell(cell));
   });
 });
 

@@ -14,9 +14,9 @@ import {
   type DelayBatchSettings,
   delayResultHeader,
   delayResultList,
-  delayResultsToCsv,
   parseDelayCsv,
 } from '../../src/io/delay-batch';
+import { delayResultsToCsv } from '../../src/io/delay-results-csv';
 import { parseFitCsv } from '../../src/io/fit-csv';
 import { convertDelay, fitDistances, temperatureFromVapourPressure } from '../../src/physics';
 

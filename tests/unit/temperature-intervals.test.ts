@@ -8,7 +8,8 @@
  * The coverage a correct interval must show is the normal distribution's: 68.27 % and 95.00 %.
  */
 import { describe, expect, it } from 'vitest';
-import { convertDelayBatch, type DelayBatch, delayResultList, delayResultsToCsv } from '../../src/io/delay-batch';
+import { convertDelayBatch, type DelayBatch, delayResultList } from '../../src/io/delay-batch';
+import { delayResultsToCsv } from '../../src/io/delay-results-csv';
 import {
   chooseCandidate,
   convertDelay,

@@ -4,7 +4,8 @@
  * temperature picks. With --input, a CSV of delays → a CSV of results (src/io/delay-batch).
  */
 import { type ChoiceRule, convertDelay, DELAY_LIMITS, type DelayConversion, OutOfRangeError, requireInRange, SPEED_RANGE_M_S } from '../../physics';
-import { convertDelayBatch, delayResultCsvChunks, parseDelayCsv } from '../../io/delay-batch';
+import { parseDelayCsv } from '../../io/delay-batch';
+import { delayBatchCsvBytes } from '../../io/delay-results-csv';
 import { tooSlowForSecondSound } from '../../io/speed-plausibility';
 import { type QuantityFlag, requireQuantity, type TextFlag } from '../args';
 import type { Command } from '../command';
@@ -163,9 +164,10 @@ async function runBatch(args: Parameters<Command['run']>[0], path: string, io: P
   const missing = distance_m === undefined ? batch.rows.find((row) => row.distance_m === undefined) : undefined;
   if (missing) throw new UsageError(`delay file "${path}", line ${missing.line}: no distance_m on this row; give --distance, e.g. --distance 50mm`);
   const settings = { ...sds, ...(distance_m === undefined ? {} : { distance_m }), ...(start ? { start } : {}) };
-  const results = fromFile('delay file', path, () => convertDelayBatch(batch, settings));
-  // Streamed: rows become text chunk by chunk as stdout takes them; a closed pipe stops it quietly.
-  await writeChunks(io, delayResultCsvChunks(results));
+  // Every row is checked (or the batch converted) here, so a refused row writes nothing; then rows
+  // become text chunk by chunk as stdout takes them, and a closed pipe stops it quietly.
+  const chunks = fromFile('delay file', path, () => delayBatchCsvBytes(batch, settings));
+  await writeChunks(io, chunks);
   return EXIT_OK;
 }
 

@@ -11,6 +11,7 @@
  *    that has just gone (its inode where the system gives one, else its size and modification time)
  *    is the same file under a new name.
  *  - A file that goes away is forgotten.
+ *  - Files that settle in the same look are read oldest first (modification time, then name).
  */
 
 /** One file in a listing. */
@@ -87,7 +88,12 @@ export class FolderPoller {
       k.readAs = { size_bytes: entry.size_bytes, modified_ms: entry.modified_ms };
     }
     for (const g of gone.values()) events.push({ kind: 'vanished', name: g.name, read: g.readAs !== null });
-    return events;
+    // Files that settled in the same look are read oldest first (then by name, shot-2 before shot-10).
+    const byAge = (a: PollEvent, b: PollEvent) =>
+      a.kind === 'ready' && b.kind === 'ready'
+        ? a.entry.modified_ms - b.entry.modified_ms || a.entry.name.localeCompare(b.entry.name, undefined, { numeric: true })
+        : 0;
+    return [...events.filter((e) => e.kind !== 'ready'), ...events.filter((e) => e.kind === 'ready').sort(byAge)];
   }
 
   /** Names listed but not read in their present state (still being written, or waiting for a second look). */

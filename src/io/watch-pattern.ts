@@ -16,7 +16,7 @@ export class WatchPatternError extends Error {
   override name = 'WatchPatternError';
 }
 
-function escape(c: string): string {
+function escapeChar(c: string): string {
   return /[\\^$.*+?()[\]{}|/]/.test(c) ? `\\${c}` : c;
 }
 
@@ -52,7 +52,7 @@ export function compileWatchPattern(pattern: string): (name: string) => boolean 
       inBraces = false;
       source += ')';
     } else if (c === ',' && inBraces) source += '|';
-    else source += escape(c);
+    else source += escapeChar(c);
   }
   const re = new RegExp(`^${source}$`, 'is');
   return (name) => re.test(name);

@@ -6,6 +6,7 @@ import { createPreferencesSlice } from './preferences-slice';
 import type { SekundoState } from './state';
 import { createTemperatureSlice } from './temperature-slice';
 import { createViewSlice } from './view-slice';
+import { createWatchSlice } from '../converter/watch/watch-slice';
 
 /** Sekundo's one store, built from typed slices. */
 export const useSekundoStore = create<SekundoState>()((...args) => ({
@@ -15,6 +16,7 @@ export const useSekundoStore = create<SekundoState>()((...args) => ({
   ...createConverterSlice(...args),
   ...createLocateSlice(...args),
   ...createPreferencesSlice(...args),
+  ...createWatchSlice(...args),
 }));
 
 /** Puts every slice back to its initial state (tests, "start over"). */

@@ -74,6 +74,7 @@ function LiveChart({ rows }: { rows: readonly WatchRow[] }) {
     return { data: shown.data, layout: { ...shown.layout, shapes }, drawn: f.drawn };
   }, [rows, alarms, band, width, unit]);
   const fromHeader = rows.filter((r) => r.timeFrom === 'header').length;
+  const decided = rows.filter((r) => r.chosen !== null).length;
   const latest = rows[rows.length - 1];
   const latestT = latest ? chosenTemperature(latest) : null;
   return (
@@ -97,7 +98,7 @@ function LiveChart({ rows }: { rows: readonly WatchRow[] }) {
           : fromHeader === 0
             ? 'each file’s modification time (no header timestamp)'
             : `the header timestamp (${fromHeader}) or else the file’s modification time (${rows.length - fromHeader})`}
-        {figure.drawn < rows.length ? `; the chart draws ${figure.drawn.toLocaleString('en')} points (lowest and highest per pixel column), the table and export hold every file` : ''}.
+        {figure.drawn < decided ? `; the chart draws ${figure.drawn.toLocaleString('en')} points (lowest and highest per pixel column), the table and export hold every file` : ''}.
       </p>
       <div ref={plotRef} className="watch-plot">
         <PlotlyChart chartId="watch-live" label={`Chosen bath temperature of ${rows.length} files against time, with alarm marks.`} data={figure.data} layout={figure.layout} />

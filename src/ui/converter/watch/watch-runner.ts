@@ -30,7 +30,7 @@ interface Run {
 let run: Run | null = null;
 let lastSource: WatchSource | null = null;
 let fileCounter = 0;
-let unsubscribe: (() => void) | null = null;
+let followingSettings = false;
 
 /** Distance, offset and start rule from the converter's inputs (SI). */
 export function watchSettingsOf(s: SekundoState): WatchSettings {
@@ -47,7 +47,9 @@ export function watchSettingsOf(s: SekundoState): WatchSettings {
 /** Keeps the live series built with the converter's current settings (from the first run on). */
 function followSettings(): void {
   watchLive.configure(watchSettingsOf(useSekundoStore.getState()));
-  unsubscribe ??= useSekundoStore.subscribe((s) => watchLive.configure(watchSettingsOf(s)));
+  if (followingSettings) return;
+  followingSettings = true;
+  useSekundoStore.subscribe((s) => watchLive.configure(watchSettingsOf(s)));
 }
 
 function pickOptionsNow() {

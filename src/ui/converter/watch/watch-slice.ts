@@ -1,6 +1,5 @@
 import type { StateCreator } from 'zustand';
 import { DEFAULT_WATCH_PATTERN } from '../../../io/watch-pattern';
-import type { SekundoState } from '../../store/state';
 
 /*
  * "Follow a folder": the inputs of a followed run — which files (pattern), how often to look, the
@@ -48,7 +47,8 @@ export const DEFAULT_WATCH_ALARMS: WatchAlarmInputs = { bandOn: false, low_K: 1.
 /** Time between looks when a run starts, s. */
 export const DEFAULT_WATCH_INTERVAL_S = 3;
 
-export const createWatchSlice: StateCreator<SekundoState, [], [], WatchSlice> = (set, get) => ({
+/** Reads and writes only its own keys, so it needs nothing of the root state (no import of it, no loop). */
+export const createWatchSlice: StateCreator<WatchSlice, [], [], WatchSlice> = (set, get) => ({
   watchStatus: 'idle',
   watchSource: null,
   watchPattern: DEFAULT_WATCH_PATTERN,

@@ -81,6 +81,12 @@ describe('Sekundo store', () => {
       'temperatureError',
       'temperature_K',
       'themeChoice',
+      'watchAlarms',
+      'watchInterval_s',
+      'watchNotice',
+      'watchPattern',
+      'watchSource',
+      'watchStatus',
     ]);
   });
 

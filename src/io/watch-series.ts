@@ -27,8 +27,11 @@ import {
 import { tooSlowForSecondSound } from './speed-plausibility';
 import { readTraceHeader } from './trace-header';
 
-/** Most files in one followed series: memory stays bounded (about 1 kB a file). */
-export const WATCH_ROW_LIMIT = 100_000;
+/**
+ * Most files in one followed series that keeps its rows (the page: about 1 kB a file, so at most
+ * about 50 MB); a series that keeps no history (`sekundo watch`) has no limit.
+ */
+export const WATCH_ROW_LIMIT = 50_000;
 
 /** Below this peak/noise ratio a row warns that the pick may be noise (as `sekundo trace`). */
 export const WATCH_LOW_SNR = 5;
@@ -153,9 +156,20 @@ function sentence(message: string): string {
 export class WatchSeries {
   private kept: Kept[] = [];
   private built: WatchRow[] = [];
+  /** Without history: the rows a later file may still settle (past a turn of u₂), by seq. */
+  private open = new Map<number, WatchRow>();
+  private count = 0;
   private choose: SeriesChooser;
 
-  constructor(private settings: WatchSettings) {
+  /**
+   * @param history keep every row (the page: to show, export and build again); false keeps only
+   *   the rows a later file may still settle, so a run of any length holds a few rows (`sekundo watch`,
+   *   which prints each row as it comes); `rows`, `replace` and `configure` then see no history.
+   */
+  constructor(
+    private settings: WatchSettings,
+    private readonly history = true,
+  ) {
     this.choose = seriesChooser(settings.start ?? ONLY_CANDIDATE);
   }
 
@@ -164,7 +178,7 @@ export class WatchSeries {
   }
 
   get length(): number {
-    return this.built.length;
+    return this.count;
   }
 
   /**
@@ -172,9 +186,9 @@ export class WatchSeries {
    * Throws RangeError past WATCH_ROW_LIMIT files.
    */
   add(reading: WatchReading): { row: WatchRow; settled: WatchRow[] } {
-    if (this.kept.length >= WATCH_ROW_LIMIT) throw new RangeError(`the series holds ${WATCH_ROW_LIMIT} files, the most one run keeps; export it and start again`);
+    if (this.history && this.kept.length >= WATCH_ROW_LIMIT) throw new RangeError(`the series holds ${WATCH_ROW_LIMIT} files, the most one run keeps; export it and start again`);
     const k = keep(reading);
-    this.kept.push(k);
+    if (this.history) this.kept.push(k);
     return this.build(k);
   }
 
@@ -191,6 +205,7 @@ export class WatchSeries {
   rename(from: string, to: string): void {
     for (const k of this.kept) if (k.file === from) k.file = to;
     for (const r of this.built) if (r.file === from) r.file = to;
+    for (const r of this.open.values()) if (r.file === from) r.file = to;
   }
 
   /** New distance, offset or rule: every row is built again from what was read. */
@@ -200,15 +215,17 @@ export class WatchSeries {
   }
 
   private rebuild(): void {
+    if (!this.history) throw new Error('a series without history cannot be built again');
     this.choose = seriesChooser(this.settings.start ?? ONLY_CANDIDATE);
     this.built = [];
+    this.count = 0;
     for (const k of this.kept) this.build(k);
   }
 
   private build(k: Kept): { row: WatchRow; settled: WatchRow[] } {
     const s = this.settings;
     const row: WatchRow = {
-      seq: this.built.length,
+      seq: this.count,
       file: k.file,
       time_ms: k.time_ms,
       timeFrom: k.timeFrom,
@@ -226,7 +243,8 @@ export class WatchSeries {
       warnings: [...k.headerProblems],
       problem: k.problem,
     };
-    this.built.push(row);
+    this.count += 1;
+    if (this.history) this.built.push(row);
     const settled: WatchRow[] = [];
     let full: TemperatureCandidate[] = [];
     if (k.pick) {
@@ -272,12 +290,17 @@ export class WatchSeries {
         for (const w of candidateWarnings(pick, speedSigmasFromTurn(pick, row.speed_m_s, row.speedSd_m_s))) row.warnings.push(w.message);
       }
       for (const done of choice.settles) {
-        const earlier = this.built[done.row];
+        const earlier = this.history ? this.built[done.row] : this.open.get(done.row);
         if (!earlier) continue;
         earlier.chosen = done.index;
         earlier.chosenBy = 'settled by a later pressure';
         earlier.ambiguous = null;
         settled.push(earlier);
+      }
+      if (!this.history) {
+        // A file decided by its own evidence ends any turn: nothing before it can be settled later.
+        if (choice.by === 'own' && choice.index !== null) this.open.clear();
+        if (row.ambiguous) this.open.set(row.seq, row);
       }
     } catch (error) {
       if (!(error instanceof PhysicsError)) throw error;

@@ -61,6 +61,23 @@ describe('WatchSeries', () => {
     });
   });
 
+  it('without history (the command line) it chooses and settles exactly as with it, holding only the rows still open', () => {
+    const temps = Array.from({ length: 15 }, (_, i) => 1.72 - 0.01 * i);
+    const readings = temps.map((T, i) => reading(i, T, { pressure: i === temps.length - 1 }));
+    const start = { kind: 'near' as const, temperature_K: 1.72 };
+    const full = new WatchSeries({ ...settings, start });
+    const light = new WatchSeries({ ...settings, start }, false);
+    for (const r of readings) {
+      const a = full.add(r);
+      const b = light.add(r);
+      expect(b.row).toEqual(a.row);
+      expect(b.settled).toEqual(a.settled);
+    }
+    expect(light.length).toBe(15);
+    expect(light.rows).toEqual([]);
+    expect(() => light.configure({ ...settings, start })).toThrow(/without history/);
+  });
+
   it('leaves files past the turn undecided (both continuations kept) until a file with its own pressure comes', () => {
     const temps = Array.from({ length: 10 }, (_, i) => 1.7 - 0.01 * i);
     const series = new WatchSeries({ ...settings, start: { kind: 'near', temperature_K: 1.7 } });
@@ -111,6 +128,6 @@ describe('WatchSeries', () => {
     expect(series.length).toBe(1);
     expect(chosenTemperature(series.rows[0] as never).temperature_K).toBeCloseTo(2.05, 6);
     expect(series.replace(reading(5, 2))).toBe(false);
-    expect(WATCH_ROW_LIMIT).toBe(100_000);
+    expect(WATCH_ROW_LIMIT).toBe(50_000);
   });
 });

@@ -201,7 +201,8 @@ export const watchCommand: Command = {
       ...optional('fraction', args.number(FRACTION_FLAG.name)?.value),
     };
     const json = args.flag(JSON_FLAG.name);
-    const series = new WatchSeries({ ...sds, distance_m, start: choice?.rule ?? null });
+    // Each row is printed as it comes: the series keeps only the rows a later file may still settle.
+    const series = new WatchSeries({ ...sds, distance_m, start: choice?.rule ?? null }, false);
     const print = (row: WatchRow) => {
       const line = watchLine(row);
       io.stdout(`${json ? JSON.stringify(line) : csvLine(line)}\n`);
@@ -240,19 +241,10 @@ export const watchCommand: Command = {
         return;
       }
       read += 1;
-      try {
-        const { row, settled } = series.add(result.reading);
-        if (event.again) row.warnings.unshift('read again: the file changed after it was first read');
-        print(row);
-        for (const earlier of settled) print(earlier);
-      } catch (error) {
-        if (error instanceof RangeError) {
-          complain(`${event.entry.name}: ${error.message}`);
-          controller.abort();
-          return;
-        }
-        throw error;
-      }
+      const { row, settled } = series.add(result.reading);
+      if (event.again) row.warnings.unshift('read again: the file changed after it was first read');
+      print(row);
+      for (const earlier of settled) print(earlier);
     };
 
     const controller = new AbortController();

@@ -44,26 +44,46 @@ export interface AlarmState {
 const mK = (K: number) => `${Number((K * 1e3).toPrecision(4))} mK`;
 const kelvin = (K: number) => `${K.toFixed(4)} K`;
 
-/** The least-squares slope of (t, T), K/s, or null with fewer than two distinct times. */
-function slope(t: readonly number[], T: readonly number[]): number | null {
-  const n = t.length;
-  if (n < 2) return null;
-  let mt = 0;
-  let mT = 0;
-  for (let i = 0; i < n; i++) {
-    mt += t[i] as number;
-    mT += T[i] as number;
+/**
+ * Running sums for the least-squares slope of (t, T) over a sliding window: O(1) per reading
+ * entering or leaving. Times are counted from the first reading and temperatures from the first
+ * temperature, so the sums keep their digits over a long run.
+ */
+class SlidingSlope {
+  private t0 = Number.NaN;
+  private T0 = Number.NaN;
+  private n = 0;
+  private st = 0;
+  private sT = 0;
+  private stt = 0;
+  private stT = 0;
+  private change(t_s: number, T_K: number, sign: 1 | -1): void {
+    if (Number.isNaN(this.t0)) {
+      this.t0 = t_s;
+      this.T0 = T_K;
+    }
+    const t = t_s - this.t0;
+    const T = T_K - this.T0;
+    this.n += sign;
+    this.st += sign * t;
+    this.sT += sign * T;
+    this.stt += sign * t * t;
+    this.stT += sign * t * T;
   }
-  mt /= n;
-  mT /= n;
-  let sxx = 0;
-  let sxy = 0;
-  for (let i = 0; i < n; i++) {
-    const dt = (t[i] as number) - mt;
-    sxx += dt * dt;
-    sxy += dt * ((T[i] as number) - mT);
+  add(t_s: number, T_K: number): void {
+    this.change(t_s, T_K, 1);
   }
-  return sxx > 0 ? sxy / sxx : null;
+  remove(t_s: number, T_K: number): void {
+    this.change(t_s, T_K, -1);
+  }
+  /** K/s, or null with fewer than two distinct times. */
+  slope(): number | null {
+    if (this.n < 2) return null;
+    const sxx = this.stt - (this.st * this.st) / this.n;
+    const sxy = this.stT - (this.st * this.sT) / this.n;
+    // Times equal to within rounding: no slope.
+    return sxx > 1e-9 * Math.max(1, this.stt) ? sxy / sxx : null;
+  }
 }
 
 /** Evaluates the alarms along the series (rows in arrival order; decided rows only). */
@@ -73,9 +93,11 @@ export function evaluateAlarms(rows: readonly WatchRow[], settings: AlarmSetting
   let now: AlarmMark[] = [];
   const { band, rate } = settings;
   if (!band && !rate) return { marks, now, crossings };
-  // Decided readings in the rate window (seconds and kelvin), oldest first.
+  // Decided readings in the rate window (seconds and kelvin), oldest first, from `first` on.
   const wt: number[] = [];
   const wT: number[] = [];
+  let first = 0;
+  const window = new SlidingSlope();
   const was = { band: false, rate: false };
   for (const row of rows) {
     const T = chosenTemperature(row).temperature_K;
@@ -90,11 +112,12 @@ export function evaluateAlarms(rows: readonly WatchRow[], settings: AlarmSetting
       const t = row.time_ms / 1000;
       wt.push(t);
       wT.push(T);
-      while (wt.length > 0 && (wt[0] as number) < t - rate.window_s) {
-        wt.shift();
-        wT.shift();
+      window.add(t, T);
+      while (first < wt.length && (wt[first] as number) < t - rate.window_s) {
+        window.remove(wt[first] as number, wT[first] as number);
+        first += 1;
       }
-      const s = slope(wt, wT);
+      const s = window.slope();
       const out = s !== null && Math.abs(s) > rate.limit_K_s;
       if (out && s !== null) {
         here.push({

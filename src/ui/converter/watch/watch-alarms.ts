@@ -25,11 +25,23 @@ export interface AlarmSettings {
 }
 
 export interface AlarmMark {
-  kind: 'band' | 'rate';
+  readonly kind: 'band' | 'rate';
   /** True on the first row of a stretch in alarm. */
-  crossing: boolean;
+  readonly crossing: boolean;
   /** One line: what is out and by how much. */
-  message: string;
+  readonly message: string;
+}
+
+/** A mark whose words are written only when read (a long run marks thousands of rows; a page shows fifty). */
+class Mark implements AlarmMark {
+  constructor(
+    readonly kind: 'band' | 'rate',
+    readonly crossing: boolean,
+    private readonly words: () => string,
+  ) {}
+  get message(): string {
+    return this.words();
+  }
 }
 
 export interface AlarmState {
@@ -105,7 +117,7 @@ export function evaluateAlarms(rows: readonly WatchRow[], settings: AlarmSetting
     const here: AlarmMark[] = [];
     if (band && (T < band.low_K || T > band.high_K)) {
       const by = T < band.low_K ? band.low_K - T : T - band.high_K;
-      here.push({ kind: 'band', crossing: !was.band, message: `${kelvin(T)} is ${mK(by)} ${T < band.low_K ? 'below' : 'above'} the band ${kelvin(band.low_K)}–${kelvin(band.high_K)}` });
+      here.push(new Mark('band', !was.band, () => `${kelvin(T)} is ${mK(by)} ${T < band.low_K ? 'below' : 'above'} the band ${kelvin(band.low_K)}–${kelvin(band.high_K)}`));
     }
     was.band = here.some((m) => m.kind === 'band');
     if (rate) {
@@ -120,11 +132,11 @@ export function evaluateAlarms(rows: readonly WatchRow[], settings: AlarmSetting
       const s = window.slope();
       const out = s !== null && Math.abs(s) > rate.limit_K_s;
       if (out && s !== null) {
-        here.push({
-          kind: 'rate',
-          crossing: !was.rate,
-          message: `${s < 0 ? 'cooling' : 'warming'} at ${mK(Math.abs(s) * 60)}/min over the last ${Number((rate.window_s / 60).toPrecision(3))} min (limit ${mK(rate.limit_K_s * 60)}/min)`,
-        });
+        const window_s = rate.window_s;
+        const limit = rate.limit_K_s;
+        here.push(
+          new Mark('rate', !was.rate, () => `${s < 0 ? 'cooling' : 'warming'} at ${mK(Math.abs(s) * 60)}/min over the last ${Number((window_s / 60).toPrecision(3))} min (limit ${mK(limit * 60)}/min)`),
+        );
       }
       was.rate = out;
     }

@@ -82,7 +82,7 @@ describe('Follow a folder', () => {
     const notRead = screen.getByRole('list', { name: 'Files not read' });
     expect(within(notRead).getByText('shot-2.csv')).toBeInTheDocument();
     expect(notRead).toHaveTextContent(/no data rows|time column|not a trace/i);
-    expect(lastDraw('watch-live')?.data.find((t) => t.name === WATCH_TRACE)?.y).toHaveLength(2);
+    await waitFor(() => expect(lastDraw('watch-live')?.data.find((t) => t.name === WATCH_TRACE)?.y).toHaveLength(2));
   }, 15_000);
 
   it('follows a picked folder: reads a file once its size settles, not while it grows; pauses and resumes; exports the series', async () => {
@@ -153,20 +153,20 @@ describe('Follow a folder', () => {
     // The default band 1.795–1.805 K: both readings (about 1.86 and 1.85 K) lie above it.
     await waitFor(() => expect(document.title).toMatch(/^\(!\) Band alarm: 1\.85\d\d K is .* above the band 1\.7950 K–1\.8050 K/));
     expect(screen.getByRole('alert')).toHaveTextContent(/Alarm: 1\.85\d\d K is .* above the band/);
-    expect(lastShape('watch-live', BAND_SHAPE)).toMatchObject({ y0: 1.795, y1: 1.805 });
+    await waitFor(() => expect(lastShape('watch-live', BAND_SHAPE)).toMatchObject({ y0: 1.795, y1: 1.805 }));
     expect(lastDraw('watch-live')?.data.find((t) => t.name === CROSSING_TRACE)?.x).toHaveLength(1);
     const rows = within(screen.getByRole('table', { name: /Each file’s time/ })).getAllByRole('row').slice(1);
     expect(rows[1]).toHaveClass('watch-row--crossing');
     expect(rows[0]).toHaveClass('watch-row--alarm');
 
-    const to = screen.getByRole('textbox', { name: 'To' });
+    const to = screen.getByRole('textbox', { name: 'Band to' });
     await user.clear(to);
     await user.type(to, '9{Enter}');
-    expect(screen.getByText(/To 9 K is outside the valid range 1\.795–4\.24 K\. The last good value stays in effect\./)).toBeInTheDocument();
+    expect(screen.getByText(/Band to 9 K is outside the valid range 1\.795–4\.24 K\. The last good value stays in effect\./)).toBeInTheDocument();
     await user.clear(to);
     await user.type(to, '1900 mK{Enter}');
     await waitFor(() => expect(document.title).toBe(base));
-    expect(lastDraw('watch-live')?.data.find((t) => t.name === CROSSING_TRACE)).toBeUndefined();
+    await waitFor(() => expect(lastDraw('watch-live')?.data.find((t) => t.name === CROSSING_TRACE)).toBeUndefined());
   }, 30_000);
 
   it('a change of distance converts every file read so far again', async () => {

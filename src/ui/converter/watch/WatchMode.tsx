@@ -228,7 +228,7 @@ function AlarmCard() {
         </legend>
         <div className="watch-alarm__pair">
           <WatchField
-            label="From"
+            label="Band from"
             value={a.low_K}
             dimension="temperature"
             unit="K"
@@ -237,7 +237,7 @@ function AlarmCard() {
             help={{ what: 'Lower edge of the band the bath should stay in.', units: 'K; a bare number is kelvin, or type 1795 mK', range: `Valid ${lo} K up to the upper edge`, origin: '1.795 K: an example band of ±5 mK around 1.8 K' }}
           />
           <WatchField
-            label="To"
+            label="Band to"
             value={a.high_K}
             dimension="temperature"
             unit="K"
@@ -255,7 +255,7 @@ function AlarmCard() {
         </legend>
         <div className="watch-alarm__pair">
           <WatchField
-            label="Limit"
+            label="Rate limit"
             value={a.rate_mK_min}
             dimension="number"
             unit="mK/min"
@@ -264,7 +264,7 @@ function AlarmCard() {
             help={{ what: 'Largest change of the bath temperature, up or down, before the alarm: the slope of a straight line through the readings of the window.', units: 'mK per minute', range: 'Valid 0.001–1000 mK/min', origin: '1 mK/min: an example; a regulated bath drifts far less (common practice, no source)' }}
           />
           <WatchField
-            label="Over the last"
+            label="Rate over the last"
             value={a.window_min}
             dimension="number"
             unit="min"

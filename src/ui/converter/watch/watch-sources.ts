@@ -21,7 +21,7 @@ export interface WatchSource extends FolderSource {
 export interface DirectoryHandleLike {
   readonly kind: 'directory';
   readonly name: string;
-  entries(): AsyncIterable<[string, { readonly kind: 'file' | 'directory' }]>;
+  entries(): AsyncIterable<[string, { readonly kind: 'file' | 'directory'; getFile?: () => Promise<File> }]>;
   getFileHandle(name: string): Promise<{ getFile(): Promise<File> }>;
 }
 
@@ -56,7 +56,8 @@ export function folderSource(handle: DirectoryHandleLike, matches: (name: string
       for await (const [name, entry] of handle.entries()) {
         if (entry.kind !== 'file' || !matches(name)) continue;
         try {
-          const file = await (await handle.getFileHandle(name)).getFile();
+          // The listing's own handle when it has one (one call per file and look, not two).
+          const file = entry.getFile ? await entry.getFile() : await (await handle.getFileHandle(name)).getFile();
           out.push({ name, size_bytes: file.size, modified_ms: file.lastModified });
         } catch {
           // Gone (or locked) between the listing and the look: the next look says so.

@@ -86,6 +86,12 @@ export const watchLive = {
     if (channels.some((c) => !snapshot.channels.includes(c))) snapshot = { ...snapshot, channels: [...new Set([...snapshot.channels, ...channels])] };
     changed();
   },
+  /** Channel names of a file read (offered in the picker card even when its pick fails). */
+  seen(channels: readonly string[]): void {
+    if (channels.every((c) => snapshot.channels.includes(c))) return;
+    snapshot = { ...snapshot, channels: [...new Set([...snapshot.channels, ...channels])] };
+    changed();
+  },
   rename(from: string, to: string): void {
     series?.rename(from, to);
     changed();

@@ -89,6 +89,7 @@ async function readFile(source: WatchSource, name: string, modified_ms: number, 
   const engine = traceEngine();
   try {
     const info = await engine.parse(id, blob, () => undefined);
+    watchLive.seen(info.channels);
     const store = useSekundoStore.getState();
     if (store.converterTraceHeater === null && store.converterTraceSensor === null && watchLive.get().rows.length === 0) {
       store.setConverterTraceChannels(defaultChannels(info.channels));

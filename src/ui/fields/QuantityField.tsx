@@ -78,9 +78,10 @@ export function QuantityField({ spec, value, apply, help, ...frame }: QuantityFi
   const unit = draft ? draft.unit : shown;
 
   const type = (text: string, bareUnit: Unit | null = unit) => {
-    const read = readFieldText(spec, text, bareUnit);
-    const message = read.ok ? apply(read.value) : read.message;
-    useSekundoStore.getState().setFieldDraft(fieldKey, { text, unit: bareUnit, message });
+    typeDraft(fieldKey, text, bareUnit, () => {
+      const read = readFieldText(spec, text, bareUnit);
+      return read.ok ? apply(read.value) : read.message;
+    });
   };
   const pickUnit = (picked: Unit) => {
     useSekundoStore.getState().setFieldUnit(fieldKey, picked);
@@ -134,10 +135,21 @@ export function TextField({ value, apply, help, range, ...frame }: TextFieldProp
       name={frame.label ?? ''}
       range={range ?? null}
       text={draft ? draft.text : value}
-      onType={(text) => useSekundoStore.getState().setFieldDraft(fieldKey, { text, unit: null, message: apply(text) })}
+      onType={(text) => typeDraft(fieldKey, text, null, () => apply(text))}
       after={null}
     />
   );
+}
+
+/**
+ * Keeps typed text as the field's draft, then applies it: the draft is in the store before the
+ * feature's value changes (the plan's undo history joins the keystrokes of one field into one step).
+ */
+function typeDraft(fieldKey: string, text: string, unit: Unit | null, applied: () => string | null): void {
+  const { setFieldDraft } = useSekundoStore.getState();
+  setFieldDraft(fieldKey, { text, unit, message: null });
+  const message = applied();
+  if (message !== null) setFieldDraft(fieldKey, { text, unit, message });
 }
 
 interface FrameProps extends FieldFrameProps {

@@ -161,8 +161,13 @@ describe('Follow a folder', () => {
 
     const to = screen.getByRole('textbox', { name: 'Band to' });
     await user.clear(to);
-    await user.type(to, '9{Enter}');
-    expect(screen.getByText(/Band to 9 K is outside the valid range 1\.795–4\.24 K\. The last good value stays in effect\./)).toBeInTheDocument();
+    await user.type(to, '9');
+    expect(screen.getByText(/^Band to must be 0\.3–4\.24 K .*; “9” is outside\.$/)).toBeInTheDocument();
+    await user.clear(to);
+    await user.type(to, '1.7');
+    expect(screen.getByText('Band to must be above the lower edge, 1.795 K.')).toBeInTheDocument();
+    // The band in effect is still 1.795–1.805 K: the title still shows the alarm.
+    expect(document.title).toMatch(/^\(!\) Band alarm/);
     await user.clear(to);
     await user.type(to, '1900 mK{Enter}');
     await waitFor(() => expect(document.title).toBe(base));

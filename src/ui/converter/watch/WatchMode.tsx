@@ -1,6 +1,4 @@
 import { useEffect, useId, useState } from 'react';
-import { WATCH_INTERVAL_RANGE_MS } from '../../../io/folder-watch';
-import { PROPERTIES_RANGE_K } from '../../../physics';
 import { PanelErrorBoundary } from '../../layout/PanelErrorBoundary';
 import { useSekundoStore } from '../../store';
 import { ChoiceCard } from '../ChoiceCard';
@@ -13,7 +11,8 @@ import { useWatchLive } from './watch-live';
 import { pauseWatch, readGivenFiles, resumeWatch, startOver, startWatch, stopWatch } from './watch-runner';
 import { canFollowFolders, folderSource, pickFolder } from './watch-sources';
 import { compileWatchPattern } from '../../../io/watch-pattern';
-import { WatchField } from './WatchField';
+import { QuantityField } from '../../fields';
+import { WATCH_FIELDS } from './watch-fields';
 import { WatchResults } from './WatchResults';
 
 /** "Follow a folder": the trace files of a running cooldown, read as they arrive, into a live temperature. */
@@ -149,18 +148,13 @@ function FolderCard() {
             </p>
           ) : null}
         </div>
-        <WatchField
-          label="Look every"
+        <QuantityField
+          fieldKey="converter.watch.interval"
+          spec={WATCH_FIELDS.interval}
           value={interval_s}
-          dimension="time"
-          unit="s"
-          range={[WATCH_INTERVAL_RANGE_MS[0] / 1000, WATCH_INTERVAL_RANGE_MS[1] / 1000]}
-          onValue={setInterval_s}
-          help={{
-            what: 'Time between two looks into the folder. A file is read once two looks in a row find the same size and time, so it is read one to two looks after the digitiser has finished it.',
-            units: 's; a bare number is seconds, or type 500 ms',
-            range: 'Typical 2–10 s; valid 0.1–600 s',
-            origin: '3 s: quick enough for a trace every few seconds, light on a network share (common practice, no source)',
+          apply={(v) => {
+            if (v !== null) setInterval_s(v);
+            return null;
           }}
         />
       </div>
@@ -210,7 +204,12 @@ function AlarmCard() {
   const headingId = useId();
   const a = useSekundoStore((s) => s.watchAlarms);
   const set = useSekundoStore((s) => s.setWatchAlarms);
-  const [lo, hi] = PROPERTIES_RANGE_K;
+  /** Takes a good value (these fields allow no empty value: null never comes); the field shows no refusal. */
+  const applied = (change: Partial<Record<'low_K' | 'high_K' | 'rate_mK_min' | 'window_min', number | null>>): null => {
+    const values = Object.fromEntries(Object.entries(change).filter(([, v]) => v !== null)) as Partial<Record<string, number>>;
+    set(values);
+    return null;
+  };
   return (
     <section className="card converter-card" aria-labelledby={headingId}>
       <h2 id={headingId} className="card-title">
@@ -227,23 +226,17 @@ function AlarmCard() {
           </label>
         </legend>
         <div className="watch-alarm__pair">
-          <WatchField
-            label="Band from"
+          <QuantityField
+            fieldKey="converter.watch.band-low"
+            spec={WATCH_FIELDS.bandLow}
             value={a.low_K}
-            dimension="temperature"
-            unit="K"
-            range={[lo, a.high_K]}
-            onValue={(low_K) => set({ low_K })}
-            help={{ what: 'Lower edge of the band the bath should stay in.', units: 'K; a bare number is kelvin, or type 1795 mK', range: `Valid ${lo} K up to the upper edge`, origin: '1.795 K: an example band of ±5 mK around 1.8 K' }}
+            apply={(low_K) => (low_K !== null && low_K >= a.high_K ? `Band from must be below the upper edge, ${a.high_K} K.` : applied({ low_K }))}
           />
-          <WatchField
-            label="Band to"
+          <QuantityField
+            fieldKey="converter.watch.band-high"
+            spec={WATCH_FIELDS.bandHigh}
             value={a.high_K}
-            dimension="temperature"
-            unit="K"
-            range={[a.low_K, hi]}
-            onValue={(high_K) => set({ high_K })}
-            help={{ what: 'Upper edge of the band the bath should stay in.', units: 'K; a bare number is kelvin, or type 1805 mK', range: `Valid from the lower edge up to ${hi} K`, origin: '1.805 K: an example band of ±5 mK around 1.8 K' }}
+            apply={(high_K) => (high_K !== null && high_K <= a.low_K ? `Band to must be above the lower edge, ${a.low_K} K.` : applied({ high_K }))}
           />
         </div>
       </fieldset>
@@ -254,23 +247,17 @@ function AlarmCard() {
           </label>
         </legend>
         <div className="watch-alarm__pair">
-          <WatchField
-            label="Rate limit"
+          <QuantityField
+            fieldKey="converter.watch.rate"
+            spec={WATCH_FIELDS.rate}
             value={a.rate_mK_min}
-            dimension="number"
-            unit="mK/min"
-            range={[0.001, 1000]}
-            onValue={(rate_mK_min) => set({ rate_mK_min })}
-            help={{ what: 'Largest change of the bath temperature, up or down, before the alarm: the slope of a straight line through the readings of the window.', units: 'mK per minute', range: 'Valid 0.001–1000 mK/min', origin: '1 mK/min: an example; a regulated bath drifts far less (common practice, no source)' }}
+            apply={(rate_mK_min) => applied({ rate_mK_min })}
           />
-          <WatchField
-            label="Rate over the last"
+          <QuantityField
+            fieldKey="converter.watch.window"
+            spec={WATCH_FIELDS.window}
             value={a.window_min}
-            dimension="number"
-            unit="min"
-            range={[0.1, 600]}
-            onValue={(window_min) => set({ window_min })}
-            help={{ what: 'The readings within this time before each one give its rate; a longer window averages the scatter of single readings away.', units: 'minutes', range: 'Valid 0.1–600 min', origin: '5 min: an example' }}
+            apply={(window_min) => applied({ window_min })}
           />
         </div>
       </fieldset>

@@ -6,7 +6,7 @@ import { usePagedRows } from '../../layout/TablePager';
 import { useElementWidth } from '../../layout/use-element-width';
 import { PlotlyChart } from '../../plot/PlotlyChart';
 import { useSekundoStore } from '../../store';
-import { currentConverterUnits, temperatureOnY, useConverterUnits } from '../converter-units';
+import { currentUnitViews, temperatureOnY, useUnitViews } from '../../units/unit-views';
 import { tableExport } from '../export-text';
 import { ResultActions } from '../ResultActions';
 import type { AlarmMark } from './watch-alarms';
@@ -54,14 +54,14 @@ function seriesExport() {
   const inputs = useSekundoStore.getState().watchAlarms;
   const snapshot = watchLive.get();
   if (snapshot.rows.length === 0) return null;
-  return tableExport('sekundo-live-series.csv', watchTable(snapshot.rows, alarmsFor(snapshot, inputs), currentConverterUnits()));
+  return tableExport('sekundo-live-series.csv', watchTable(snapshot.rows, alarmsFor(snapshot, inputs), currentUnitViews()));
 }
 
 function LiveChart({ rows }: { rows: readonly WatchRow[] }) {
   const headingId = useId();
   const alarms = useWatchAlarms();
   const inputs = useSekundoStore((s) => s.watchAlarms);
-  const units = useConverterUnits();
+  const units = useUnitViews();
   const unit = units.temperature.unit;
   const [plotRef, width] = useElementWidth<HTMLDivElement>(800);
   const band = alarmSettingsOf(inputs).band;
@@ -115,7 +115,7 @@ function alarmText(marks: readonly AlarmMark[] | undefined): string {
 function LiveTable({ rows }: { rows: readonly WatchRow[] }) {
   const headingId = useId();
   const alarms = useWatchAlarms();
-  const { temperature, time } = useConverterUnits();
+  const { temperature, time } = useUnitViews();
   const { start, end, pager } = usePagedRows(rows.length);
   // Newest first: page 1 holds the latest files.
   const shown = [];

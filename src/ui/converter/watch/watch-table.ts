@@ -4,7 +4,7 @@
  */
 import type { CsvCell } from '../../../io/csv-common';
 import { chosenTemperature, type WatchRow } from '../../../io/watch-series';
-import { type ConverterUnits, csvColumn, inUnit } from '../converter-units';
+import { csvColumn, inViewUnit as inUnit, type UnitViews } from '../../units/unit-views';
 import type { AlarmState } from './watch-alarms';
 
 /** What "chosen by" says for a row, in words (also for files past a turn of u₂). */
@@ -15,7 +15,7 @@ export function chosenByText(r: WatchRow): string {
   return r.candidates.length > 1 ? 'undecided' : '';
 }
 
-export function watchTable(rows: readonly WatchRow[], alarms: AlarmState, units: ConverterUnits): { header: string[]; rows: CsvCell[][] } {
+export function watchTable(rows: readonly WatchRow[], alarms: AlarmState, units: UnitViews): { header: string[]; rows: CsvCell[][] } {
   const { temperature, time, pressure } = units;
   const header = [
     'order',

@@ -253,9 +253,17 @@ export const watchCommand: Command = {
     process.once('SIGTERM', stop);
     if (!json) io.stdout(`${WATCH_COLUMNS.join(',')}\n`);
     const poller = new FolderPoller(matches);
+    const folder = nodeFolder(dir);
     try {
       await followFolder({
-        source: nodeFolder(dir),
+        source: {
+          list: async () => {
+            const listing = await folder.list();
+            // Listed again after a failure: the next failure is reported again.
+            listFailing = false;
+            return listing;
+          },
+        },
         poller,
         interval_ms: interval_s * 1000,
         sleep: realSleep,

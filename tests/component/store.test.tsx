@@ -53,6 +53,8 @@ describe('Sekundo store', () => {
       'converterTraceSensor',
       'converterTraceView',
       'displayUnits',
+      'fieldDrafts',
+      'fieldUnits',
       'guidesDismissed',
       'locateDisplay',
       'locateDrafts',
@@ -65,7 +67,6 @@ describe('Sekundo store', () => {
       'locateTraceFile',
       'locateTracePicker',
       'locateTraceReading',
-      'plannerDrafts',
       'plannerErrors',
       'plannerMapSensorKey',
       'plannerOpenedPlan',
@@ -81,6 +82,12 @@ describe('Sekundo store', () => {
       'temperatureError',
       'temperature_K',
       'themeChoice',
+      'watchAlarms',
+      'watchInterval_s',
+      'watchNotice',
+      'watchPattern',
+      'watchSource',
+      'watchStatus',
     ]);
   });
 

@@ -47,7 +47,15 @@ function argvFor(command: (typeof COMMANDS)[number]) {
     { weight: 1, arbitrary: fc.constantFrom('--nope', '-x', '--', '--json', 'extra').map((t) => [t]) },
   );
   const operand = command.operands && command.operands.length > 0 ? fc.constantFrom(...FILE_VALUES).map((f) => [f]) : fc.constant([] as string[]);
-  return fc.tuple(operand, fc.array(token, { maxLength: 6 })).map(([op, tokens]) => [command.name, ...op, ...tokens.flat()]);
+  // `watch` follows a folder until interrupted: every case looks twice, quickly, and ends (--once).
+  return fc.tuple(operand, fc.array(token, { maxLength: 6 })).map(([op, tokens]) => {
+    const flat = tokens.flat();
+    const ending =
+      command.name !== 'watch'
+        ? []
+        : [...(flat.includes('--once') ? [] : ['--once']), ...(flat.some((t) => t.startsWith('--interval')) ? [] : ['--interval', '0.1s'])];
+    return [command.name, ...op, ...ending, ...flat];
+  });
 }
 
 describe('every command, malformed input: status 0 or 2 with one line, never a stack trace', () => {

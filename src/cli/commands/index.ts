@@ -20,6 +20,7 @@ export const COMMAND_TABLE: readonly CommandEntry[] = [
   { name: 'trace', load: async () => (await import('./trace')).traceCommand },
   { name: 'fit', load: async () => (await import('./fit')).fitCommand },
   { name: 'locate', load: async () => (await import('./locate')).locateCommand },
+  { name: 'watch', load: async () => (await import('./watch')).watchCommand },
 ];
 
 /** Every command, loaded, in table order (for `sekundo --help` and the tests). */

@@ -63,35 +63,35 @@ const DISTANCE_FLAG: QuantityFlag = {
   help: 'heater–sensor path, cold: converts the delay to speed and temperatures (without it, the arrival only)',
 };
 
-const HEATER_FLAG: TextFlag = {
+export const HEATER_FLAG: TextFlag = {
   kind: 'text',
   name: 'heater-column',
   placeholder: 'NAME',
   help: 'the heater drive channel: time zero moves to its pulse onset (50 % of its first rise)',
 };
 
-const SENSOR_FLAG: TextFlag = {
+export const SENSOR_FLAG: TextFlag = {
   kind: 'text',
   name: 'sensor-column',
   placeholder: 'NAME',
   help: 'the sensor channel (default: the first channel not named like heater, drive, trigger or pulse)',
 };
 
-const TIME_FLAG: TextFlag = {
+export const TIME_FLAG: TextFlag = {
   kind: 'text',
   name: 'time-column',
   placeholder: 'NAME',
   help: 'the time column (default: the one named like time, t or s, else the first)',
 };
 
-const PICKER_FLAG: TextFlag = {
+export const PICKER_FLAG: TextFlag = {
   kind: 'text',
   name: 'picker',
   placeholder: PICKER_KINDS.join('|'),
   help: `how the arrival is found (default ${DEFAULT_PICKER})`,
 };
 
-const FROM_FLAG: QuantityFlag = {
+export const FROM_FLAG: QuantityFlag = {
   kind: 'quantity',
   name: 'from',
   dimension: 'time',
@@ -100,7 +100,7 @@ const FROM_FLAG: QuantityFlag = {
   help: 'start of the search window after time zero, e.g. past heater pickup (default 0)',
 };
 
-const TO_FLAG: QuantityFlag = {
+export const TO_FLAG: QuantityFlag = {
   kind: 'quantity',
   name: 'to',
   dimension: 'time',
@@ -109,7 +109,7 @@ const TO_FLAG: QuantityFlag = {
   help: 'end of the search window after time zero (default: the end of the trace)',
 };
 
-const THRESHOLD_FLAG: NumberFlag = {
+export const THRESHOLD_FLAG: NumberFlag = {
   kind: 'number',
   name: 'threshold',
   placeholder: 'k',
@@ -117,7 +117,7 @@ const THRESHOLD_FLAG: NumberFlag = {
   help: 'threshold picker: level in noise sd above the baseline (default 5)',
 };
 
-const FRACTION_FLAG: NumberFlag = {
+export const FRACTION_FLAG: NumberFlag = {
   kind: 'number',
   name: 'fraction',
   placeholder: 'f',
@@ -272,11 +272,11 @@ function chooseWithHeader(conversion: DelayConversion, given: ReturnType<typeof 
   }
 }
 
-function optional<K extends string, V>(key: K, value: V | undefined): { [P in K]?: V } {
+export function optional<K extends string, V>(key: K, value: V | undefined): { [P in K]?: V } {
   return (value === undefined ? {} : { [key]: value }) as { [P in K]?: V };
 }
 
-function readPicker(text: string | undefined): PickerKind {
+export function readPicker(text: string | undefined): PickerKind {
   if (text === undefined) return DEFAULT_PICKER;
   const kind = PICKER_KINDS.find((k) => k === text.trim().toLowerCase());
   if (!kind) throw new UsageError(`--picker "${text}" is not a picker; choose one of ${PICKER_KINDS.join(', ')}`);
@@ -284,7 +284,7 @@ function readPicker(text: string | undefined): PickerKind {
 }
 
 /** Streams the trace file through the incremental parser; problems become one usage line. */
-function readTrace(path: string, timeColumn: string | undefined): TraceCsv {
+export function readTrace(path: string, timeColumn: string | undefined): TraceCsv {
   let parser: TraceCsvParser | null = null;
   return fromFile('trace file', path, () => {
     streamFile(

@@ -5,17 +5,19 @@ import type { ConverterMode } from './converter-slice';
 import { ReadingMode } from './ReadingMode';
 import { Segmented } from './Segmented';
 import { TraceMode } from './trace/TraceMode';
+import { WatchMode } from './watch/WatchMode';
 
 const MODES: readonly { value: ConverterMode; label: string }[] = [
   { value: 'reading', label: 'One reading' },
   { value: 'batch', label: 'Batch file' },
   { value: 'trace', label: 'Trace lab' },
+  { value: 'watch', label: 'Follow a folder' },
 ];
 
 /**
  * The converter: a second-sound delay → every temperature it can mean, each with its uncertainty,
- * and the one the evidence favours. Three ways in: a reading typed by hand, a CSV of delays, or
- * digitiser traces in which the arrival is picked.
+ * and the one the evidence favours. Four ways in: a reading typed by hand, a CSV of delays,
+ * digitiser traces in which the arrival is picked, or a folder of traces followed as they arrive.
  */
 export function ConverterView() {
   const mode = useSekundoStore((s) => s.converterMode);
@@ -25,7 +27,7 @@ export function ConverterView() {
       <Segmented label="Converter mode" options={MODES} value={mode} onChange={setMode} panelId="converter-mode-panel" idPrefix="converter-mode" />
       <div id="converter-mode-panel" role="tabpanel" aria-labelledby={`converter-mode-${mode}`} className="converter-mode">
         <PanelErrorBoundary panel={`${MODES.find((m) => m.value === mode)?.label ?? 'converter'} mode`}>
-          {mode === 'reading' ? <ReadingMode /> : mode === 'batch' ? <BatchMode /> : <TraceMode />}
+          {mode === 'reading' ? <ReadingMode /> : mode === 'batch' ? <BatchMode /> : mode === 'trace' ? <TraceMode /> : <WatchMode />}
         </PanelErrorBoundary>
       </div>
     </div>

@@ -17,7 +17,7 @@ import type { TraceInfo } from './trace/trace-protocol';
  * these with the kernel in memos, never stored.
  */
 
-export type ConverterMode = 'reading' | 'batch' | 'trace';
+export type ConverterMode = 'reading' | 'batch' | 'trace' | 'watch';
 export type ReadingMethod = 'single' | 'distances' | 'sweep';
 
 export interface FieldState {

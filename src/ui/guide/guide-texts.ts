@@ -33,7 +33,7 @@ export const VIEW_GUIDES: Readonly<Record<ViewId, ViewGuideText>> = {
     lead: 'Type the distance and the delay you read off the scope.',
     steps: [
       'Every temperature the delay can mean is listed with its uncertainty; a vapour-pressure reading, an expected temperature or a range chooses among them.',
-      '“Batch file” converts a column of delays; “Trace lab” picks arrivals from saved digitiser traces, read in the background.',
+      '“Batch file” converts a column of delays; “Trace lab” picks arrivals from saved digitiser traces, read in the background; “Follow a folder” reads new traces as the digitiser writes them, live.',
       'Results copy and export as CSV in the display units.',
     ],
     caution: 'Near the u₂ minimum (1.12 K) and maximum (1.65 K) a delay says little about the temperature: such candidates are marked.',

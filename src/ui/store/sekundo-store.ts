@@ -1,11 +1,13 @@
 import { create } from 'zustand';
 import { createConverterSlice } from '../converter/converter-slice';
+import { createFieldsSlice } from '../fields/fields-slice';
 import { createLocateSlice } from './locate-slice';
 import { createPlannerSlice } from './planner-slice';
 import { createPreferencesSlice } from './preferences-slice';
 import type { SekundoState } from './state';
 import { createTemperatureSlice } from './temperature-slice';
 import { createViewSlice } from './view-slice';
+import { createWatchSlice } from '../converter/watch/watch-slice';
 
 /** Sekundo's one store, built from typed slices. */
 export const useSekundoStore = create<SekundoState>()((...args) => ({
@@ -15,6 +17,8 @@ export const useSekundoStore = create<SekundoState>()((...args) => ({
   ...createConverterSlice(...args),
   ...createLocateSlice(...args),
   ...createPreferencesSlice(...args),
+  ...createFieldsSlice(...args),
+  ...createWatchSlice(...args),
 }));
 
 /** Puts every slice back to its initial state (tests, "start over"). */

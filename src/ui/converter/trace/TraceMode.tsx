@@ -124,7 +124,8 @@ function FileList({ files }: { files: readonly TraceFileEntry[] }) {
   );
 }
 
-function PickerCard() {
+/** The picker and its channels; `channels` replaces the channels of the loaded files (the followed folder's). */
+export function PickerCard({ channels: given, lead }: { channels?: readonly string[]; lead?: string } = {}) {
   const headingId = useId();
   const files = useSekundoStore((s) => s.converterTraceFiles);
   const picker = useSekundoStore((s) => s.converterTracePicker);
@@ -134,7 +135,8 @@ function PickerCard() {
   const setPicker = useSekundoStore((s) => s.setConverterTracePicker);
   const setChannels = useSekundoStore((s) => s.setConverterTraceChannels);
   const setPolarity = useSekundoStore((s) => s.setConverterTracePolarity);
-  const channels = useMemo(() => [...new Set(files.flatMap((f) => f.info?.channels ?? []))], [files]);
+  const fromFiles = useMemo(() => [...new Set(files.flatMap((f) => f.info?.channels ?? []))], [files]);
+  const channels = given ?? fromFiles;
   const heaterId = useId();
   const sensorId = useId();
   const pickerId = useId();
@@ -150,6 +152,7 @@ function PickerCard() {
       <h2 id={headingId} className="card-title">
         Channels and picker
       </h2>
+      {lead ? <p className="muted converter-card__lead">{lead}</p> : null}
       <div className="picker-grid">
         <PickerLabel htmlFor={heaterId} label="Heater / trigger channel" help={help.heater} />
         <select id={heaterId} className="select" value={heater ?? ''} aria-describedby={help.heater.describedBy} onChange={(e) => setChannels({ heater: e.target.value === '' ? null : e.target.value })}>

@@ -12,6 +12,7 @@
  */
 import {
   DEFAULT_RECORD_SETTINGS,
+  delayBound,
   featureDelay,
   predictionSpan,
   noiseFreeRecord,
@@ -213,7 +214,8 @@ export function rehearse(plan: PlanInput, result: PlanResult, options: Rehearsal
   const windows = model.sensors.map((s) => searchWindow(model, s));
   const picks: SensorPicks[] = model.sensors.map((s, j) => {
     const w = windows[j] as { from_s: number; to_s: number };
-    const span = predictionSpan(s.prediction, w.from_s, w.to_s);
+    // Past the window's end by the drive's length: the cross-correlation's template starts inside the window.
+    const span = predictionSpan(s.prediction, w.from_s, w.to_s + model.profile.duration_s + 4 * model.step_s);
     const true_s = span
       ? featureDelay(span, model.profile, {
           picker: options.picker,
@@ -222,7 +224,10 @@ export function rehearse(plan: PlanInput, result: PlanResult, options: Rehearsal
           polarity: s.polarity,
         })
       : null;
-    return { true_s, delays_s: new Float64Array(options.trials).fill(Number.NaN), failures: new Map(), noiseFree_s: null };
+    // The bound for the direct pulse alone: from its arrival to the end of its own length.
+    const direct = predictionSpan(s.prediction, s.planned_s - s.lag_s - 2 * model.step_s, s.planned_s + s.pulseWindow_s);
+    const bound_s = direct ? delayBound(direct, s.recordNoise_V, model.step_s) : null;
+    return { true_s, bound_s, delays_s: new Float64Array(options.trials).fill(Number.NaN), failures: new Map(), noiseFree_s: null };
   });
   const kept: KeptWindow[][] = model.sensors.map(() => []);
 

@@ -190,3 +190,4 @@ export {
 } from './synthetic-record';
 export { delayTemperature, type RehearsalSensorSummary, SD_RATIO_NOTE, type SensorPicks, summariseSensor } from './rehearsal-summary';
 export { driveCentre, driveHalfRise, type FeatureSettings, featureDelay, predictionSpan } from './picker-features';
+export { delayBound } from './delay-bound';

@@ -34,6 +34,8 @@ const LOW_SNR_FOR_NOTE = 10;
 const REASONS_KEPT = 3;
 
 export interface SensorPicks {
+  /** Cramér–Rao bound for the delay of the predicted direct pulse in this record's noise (delay-bound.ts), s. */
+  bound_s: number | null;
   /** True delay of the picker's feature (picker-features.ts), s, or null when the prediction has none. */
   true_s: number | null;
   /** Picked delay per trial, s (NaN: the picker refused). */
@@ -72,6 +74,11 @@ export interface RehearsalSensorSummary {
   analyticTemperatureSd_K: number | null;
   /** arrivalSd_s / analyticTimingSd_s. */
   sdRatio: number | null;
+  /**
+   * The Cramér–Rao bound for the delay of the predicted direct pulse in this noise, s: what a
+   * matched cross-correlation reaches at high SNR (delay-bound.ts).
+   */
+  boundTimingSd_s: number | null;
   picks: number;
   /** The commonest reasons picks failed, with counts. */
   failureReasons: { message: string; count: number }[];
@@ -163,6 +170,7 @@ export function summariseSensor(
     analyticTimingSd_s: analytic,
     analyticTemperatureSd_K: s.plan.temperatureChangeSd_K,
     sdRatio: ratio,
+    boundTimingSd_s: picks.bound_s,
     picks: good.length,
     failureReasons: reasons,
     notes: [],
@@ -197,7 +205,10 @@ function sensorNotes(
     }
     if (s.step_V !== null && s.step_V > s.recordNoise_V) causes.push(`the digitiser's step (${Number((s.step_V * 1e6).toPrecision(3))} µV) is coarser than the averaged noise, so rounding, not noise, sets the scatter`);
     if (ratio < 1) {
-      if (c.picker === 'xcorr') causes.push("the cross-correlation uses every sample of the pulse, while the planner's figure is one edge's noise over its slope (rise / SNR): a matched template beats it by about the square root of the samples on the edges");
+      if (c.picker === 'xcorr') {
+        const bound = r.boundTimingSd_s === null ? '' : ` (the Cramér–Rao bound for this pulse and noise is ${us(r.boundTimingSd_s)})`;
+        causes.push(`the cross-correlation uses every sample of the pulse${bound}, while the planner's figure is one edge's noise over its slope (rise / SNR) with the sampling's Δt/√12`);
+      }
       else if (c.picker === 'peak') causes.push('the parabola through the top averages many samples');
       const sampling = c.sampleInterval_s / Math.sqrt(12);
       if (r.analyticTimingSd_s !== null && sampling > 0.5 * r.analyticTimingSd_s) causes.push(`the planner's figure is mostly the sampling's Δt/√12 (${us(sampling)}), which interpolating pickers undercut`);

@@ -112,6 +112,7 @@ export function rehearsalJson(path: string, planName: string, r: RehearsalResult
       analyticTimingSd_s: s.analyticTimingSd_s,
       analyticTemperatureSd_K: s.analyticTemperatureSd_K,
       sdRatio: s.sdRatio,
+      boundTimingSd_s: s.boundTimingSd_s,
       plannedArrival_s: s.plannedArrival_s,
       featureOffset_s: s.featureOffset_s,
       noiseFreeBias_s: s.noiseFreeBias_s,
@@ -128,7 +129,7 @@ export function rehearsalJson(path: string, planName: string, r: RehearsalResult
 /** The readable report: one table, then the notes per sensor. */
 export function renderRehearsal(path: string, planName: string, r: RehearsalResult, written: string[]): string[] {
   const rows = [
-    ['Sensor', 'True arrival (µs)', 'Bias (µs)', 'sd (µs)', 'Planner sd (µs)', 'Ratio', 'Failed', 'T bias (mK)', 'T sd (mK)', 'Planner T sd (mK)'],
+    ['Sensor', 'True arrival (µs)', 'Bias (µs)', 'sd (µs)', 'Planner sd (µs)', 'Ratio', 'Bound (µs)', 'Failed', 'T bias (mK)', 'T sd (mK)', 'Planner T sd (mK)'],
     ...r.sensors.map((s) => [
       s.id,
       us(s.arrival_s, 6),
@@ -136,6 +137,7 @@ export function renderRehearsal(path: string, planName: string, r: RehearsalResu
       us(s.arrivalSd_s),
       us(s.analyticTimingSd_s),
       s.sdRatio === null ? ABSENT : formatSignificant(s.sdRatio, 2),
+      us(s.boundTimingSd_s),
       `${formatSignificant(s.failedShare * 100, 3)} %`,
       mK(s.temperatureBias_K),
       mK(s.temperatureSd_K),
@@ -145,9 +147,9 @@ export function renderRehearsal(path: string, planName: string, r: RehearsalResu
   const lines = [
     `Rehearsal of "${planName}" (${path}): ${r.trials} synthetic records, ${r.picker} picker, seed ${r.seed}, ${r.samples} samples each`,
     '',
-    ...alignTable(rows, ['left', 'right', 'right', 'right', 'right', 'right', 'right', 'right', 'right', 'right']),
+    ...alignTable(rows, ['left', 'right', 'right', 'right', 'right', 'right', 'right', 'right', 'right', 'right', 'right']),
     '',
-    `True arrival: the delay of the feature this picker measures on the predicted pulse, measured like with like from the drive (the converter's rule); bias = mean picked − true. Temperatures use t0 calibrated with this picker; planner's T sd: a change between readings, from timing alone. Ratio: rehearsed sd / planner's sd (a note when beyond ×${SD_RATIO_NOTE}).`,
+    `True arrival: the delay of the feature this picker measures on the predicted pulse, measured like with like from the drive (the converter's rule); bias = mean picked − true. Temperatures use t0 calibrated with this picker; planner's T sd: a change between readings, from timing alone. Ratio: rehearsed sd / planner's sd (a note when beyond ×${SD_RATIO_NOTE}). Bound: the Cramér–Rao bound for the delay of the predicted pulse in this noise (Kay 1993), which a matched cross-correlation reaches at high SNR.`,
   ];
   for (const s of r.sensors) {
     const offset = s.featureOffset_s === null ? '' : `; its feature sits ${us(s.featureOffset_s)} µs from the planner's arrival ${us(s.plannedArrival_s, 6)} µs`;

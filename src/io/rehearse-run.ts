@@ -77,6 +77,8 @@ export interface KeptWindow {
   values: Float64Array;
   /** Picked arrival, s after the heater onset, or null when the pick failed. */
   pick_s: number | null;
+  /** The picked delay (from the drive's matching feature), s, or null. */
+  delay_s: number | null;
 }
 
 export interface RehearsalSensorResult extends RehearsalSensorSummary {
@@ -175,7 +177,7 @@ function pickOne(trace: TraceCsv, heater: string, s: SensorRecordModel, window: 
   return { delay_s: pick.delay_s, arrival_s: pick.arrival_s };
 }
 
-function keepWindow(record: SyntheticRecord, j: number, window: { from_s: number; to_s: number }, pick_s: number | null): KeptWindow {
+function keepWindow(record: SyntheticRecord, j: number, window: { from_s: number; to_s: number }, pick_s: number | null, delay_s: number | null): KeptWindow {
   const t = record.time_s;
   const v = record.sensors[j] as Float64Array;
   // On the heater-onset axis; a little before and after the window.
@@ -194,6 +196,7 @@ function keepWindow(record: SyntheticRecord, j: number, window: { from_s: number
     time_s: Float64Array.from(kept, (i) => (t[i] as number) - record.onset_s),
     values: Float64Array.from(kept, (i) => v[i] as number),
     pick_s,
+    delay_s,
   };
 }
 
@@ -222,6 +225,7 @@ export function rehearse(plan: PlanInput, result: PlanResult, options: Rehearsal
           thresholdLevel_V: (options.thresholdSigma ?? DEFAULT_THRESHOLD_SIGMA) * s.recordNoise_V,
           fraction: options.fraction ?? DEFAULT_FRACTION,
           polarity: s.polarity,
+          sampleInterval_s: model.step_s,
         })
       : null;
     // The bound for the direct pulse alone: from its arrival to the end of its own length.
@@ -248,15 +252,17 @@ export function rehearse(plan: PlanInput, result: PlanResult, options: Rehearsal
       const p = picks[j] as SensorPicks;
       const window = windows[j] as { from_s: number; to_s: number };
       let arrival: number | null = null;
+      let delay: number | null = null;
       try {
         const pick = pickOne(trace, heater, s, window, options);
         p.delays_s[trial] = pick.delay_s;
+        delay = pick.delay_s;
         arrival = pick.arrival_s - record.onset_s;
       } catch (error) {
         const why = failureText(error);
         p.failures.set(why, (p.failures.get(why) ?? 0) + 1);
       }
-      if (trial < RECORDS_KEPT) (kept[j] as KeptWindow[]).push(keepWindow(record, j, window, arrival));
+      if (trial < RECORDS_KEPT) (kept[j] as KeptWindow[]).push(keepWindow(record, j, window, arrival, delay));
     });
     hooks.progress?.(trial + 1, options.trials);
   }

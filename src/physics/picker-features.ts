@@ -1,3 +1,4 @@
+import { fitParabola } from './parabola';
 import type { PickerKind } from './pickers';
 import type { PulseProfile } from './pulse-shape';
 import type { SampledSignal } from './received-pulse';
@@ -9,8 +10,9 @@ import type { SampledSignal } from './received-pulse';
  *  - threshold: where the predicted pulse first reaches k × the record's noise rms, from the
  *    drive's 50 % rise;
  *  - fraction:  where it reaches f × its peak on the leading edge of the peak, from the drive's 50 % rise;
- *  - peak:      the time of its extreme (parabola through the top three points), from the drive's
- *    centre at half height;
+ *  - peak:      the vertex of the least-squares parabola through the run of points above half the
+ *    extreme around it, at most 200 sample intervals long, grown first backwards then forwards as
+ *    the peak picker grows it (src/physics/pickers.ts), from the drive's centre at half height;
  *  - xcorr:     the shift that best lays the drive f(t) over the prediction (the cross-correlation's
  *    maximum, parabola-refined): the drive's onset to its copy in the sensor.
  * Linear interpolation between the grid's points; the grid resolves the edges to a tenth of the
@@ -24,6 +26,28 @@ export interface FeatureSettings {
   /** Fraction of the peak. */
   fraction: number;
   polarity: 'positive' | 'negative';
+  /** The digitiser's sample interval, s (the peak picker's longest run is counted in samples). */
+  sampleInterval_s: number;
+}
+
+/** The peak picker's longest run, sample intervals (PEAK_MAX_POINTS − 1 in pickers.ts). */
+const PEAK_RUN_INTERVALS = 200;
+/** Points per sample interval for the peak's run, and the most points refined. */
+const PEAK_REFINE = 32;
+const MAX_REFINED_POINTS = 400_000;
+
+/** The span on a finer grid, by linear interpolation (at most {@link MAX_REFINED_POINTS} points). */
+function refined(span: SampledSignal, step_s: number): SampledSignal {
+  const n = span.values.length;
+  const factor = Math.max(1, Math.min(Math.ceil(span.step_s / step_s), Math.floor(MAX_REFINED_POINTS / n)));
+  const h = span.step_s / factor;
+  const values = new Float64Array((n - 1) * factor + 1);
+  for (let i = 0; i < values.length; i++) {
+    const k = Math.min(n - 2, Math.floor(i / factor));
+    const f = i / factor - k;
+    values[i] = (1 - f) * (span.values[k] as number) + f * (span.values[k + 1] as number);
+  }
+  return { start_s: span.start_s, step_s: h, values };
 }
 
 /** The prediction between `from_s` and `to_s` on one grid (segments on one step, gaps filled with 0). */
@@ -81,6 +105,8 @@ function vertexOffset(ym: number, y0: number, yp: number): number {
  * or null when the feature is not there (a threshold above the pulse).
  */
 export function featureDelay(span: SampledSignal, profile: PulseProfile, f: FeatureSettings): number | null {
+  // A flat top makes the peak's parabola hang on the ends of its run: resolve them finely.
+  if (f.picker === 'peak' && span.step_s > f.sampleInterval_s / PEAK_REFINE) return featureDelay(refined(span, f.sampleInterval_s / PEAK_REFINE), profile, f);
   const v = span.values;
   const h = span.step_s;
   const sign = f.polarity === 'negative' ? -1 : 1;
@@ -109,7 +135,17 @@ export function featureDelay(span: SampledSignal, profile: PulseProfile, f: Feat
     }
     case 'peak': {
       if (iPeak === 0 || iPeak === v.length - 1) return null;
-      return at(iPeak) + vertexOffset(y(iPeak - 1), top, y(iPeak + 1)) * h - driveCentre(profile);
+      const longest = Math.max(2, Math.floor((PEAK_RUN_INTERVALS * f.sampleInterval_s) / h));
+      let lo = iPeak;
+      let hi = iPeak;
+      while (lo > 0 && hi - lo < longest && y(lo - 1) >= 0.5 * top) lo--;
+      while (hi < v.length - 1 && hi - lo < longest && y(hi + 1) >= 0.5 * top) hi++;
+      lo = Math.min(lo, iPeak - 1);
+      hi = Math.max(hi, iPeak + 1);
+      const u = Float64Array.from({ length: hi - lo + 1 }, (_, k) => lo + k - iPeak);
+      const p = fitParabola(u, Float64Array.from(u, (k) => y(iPeak + k)));
+      const vertex = p.c < 0 ? Math.max(u[0] as number, Math.min(u[u.length - 1] as number, -p.b / (2 * p.c))) : 0;
+      return at(iPeak) + vertex * h - driveCentre(profile);
     }
     case 'xcorr': {
       const m = Math.max(3, Math.ceil(profile.duration_s / h) + 1);

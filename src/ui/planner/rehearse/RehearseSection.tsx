@@ -161,7 +161,7 @@ function RehearseTable({ result }: { result: RehearsalResult }) {
         {result.trials} records per sensor, {PICKER_NAMES[result.picker].toLowerCase()} picker, seed {result.seed}; bath {temperatureText(result.temperature_K, L.temperature)}.
       </p>
       <div className="table-scroll">
-        <table className="data-table rehearse__table">
+        <table className="properties-table rehearse__table">
           <caption className="visually-hidden">Rehearsed timing and temperature per sensor</caption>
           <thead>
             <tr>
@@ -202,21 +202,12 @@ function RehearseTable({ result }: { result: RehearsalResult }) {
         each pick through the converter’s inversion with t₀ calibrated for this picker; the planner’s T sd is that of a change between readings.
       </p>
       <ul className="rehearse__notes">
-        {result.sensors.flatMap((s) => [
-          ...(s.featureOffset_s === null
-            ? []
-            : [
-                <li key={`${s.id}-where`}>
-                  <strong>{s.id}</strong>: window {readText(s.window.from_s, L.time)}–{readText(s.window.to_s, L.time)}, {s.polarity} pulse; the feature
-                  sits {readText(s.featureOffset_s, LADDERS.time, 3)} from the planner’s arrival {readText(s.plannedArrival_s, L.time, 6)}.
-                </li>,
-              ]),
-          ...s.notes.map((note) => (
-            <li key={`${s.id}-${note.slice(0, 40)}`}>
-              <strong>{s.id}</strong>: {note}
-            </li>
-          )),
-        ])}
+        {result.sensors.map((s) => (
+          <li key={s.id}>
+            <strong>{s.id}</strong> ({s.label}): search window {readText(s.window.from_s, L.time)}–{readText(s.window.to_s, L.time)}, {s.polarity} pulse.{' '}
+            {s.notes.join(' ')}
+          </li>
+        ))}
         {result.skipped.length > 0 ? <li>Not rehearsed (no second-sound pulse reaches them): {result.skipped.join(', ')}.</li> : null}
       </ul>
     </div>

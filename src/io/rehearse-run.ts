@@ -272,7 +272,7 @@ export function rehearse(plan: PlanInput, result: PlanResult, options: Rehearsal
       temperature_K: result.temperature_K,
       picker: options.picker,
       sampleInterval_s: model.step_s,
-      window: windows[j] as { from_s: number; to_s: number },
+      searchWindow: windows[j] as { from_s: number; to_s: number },
       warnings: result.warnings,
     }),
     window: windows[j] as { from_s: number; to_s: number },

@@ -134,7 +134,7 @@ function steepestEdge_s(s: SensorRecordModel): number | null {
 export function summariseSensor(
   s: SensorRecordModel,
   picks: SensorPicks,
-  context: { temperature_K: number; picker: PickerKind; sampleInterval_s: number; window: { from_s: number; to_s: number }; warnings: readonly PlanWarning[] },
+  context: { temperature_K: number; picker: PickerKind; sampleInterval_s: number; searchWindow: { from_s: number; to_s: number }; warnings: readonly PlanWarning[] },
 ): RehearsalSensorSummary {
   const good: number[] = [];
   const temperatures: number[] = [];
@@ -182,7 +182,7 @@ export function summariseSensor(
 function sensorNotes(
   s: SensorRecordModel,
   r: RehearsalSensorSummary,
-  c: { picker: PickerKind; sampleInterval_s: number; window: { from_s: number; to_s: number }; warnings: readonly PlanWarning[] },
+  c: { picker: PickerKind; sampleInterval_s: number; searchWindow: { from_s: number; to_s: number }; warnings: readonly PlanWarning[] },
 ): string[] {
   const notes: string[] = [];
   const mine = c.warnings.filter((w) => w.sensorId === s.id);
@@ -198,7 +198,7 @@ function sensorNotes(
     if (r.failedShare > 0) causes.push(`${Number((r.failedShare * 100).toPrecision(2))} % of picks failed${r.failureReasons[0] ? ` (${r.failureReasons[0].message})` : ''}, and the rest include near-misses`);
     const snr = s.plan.snrAveraged;
     if (snr !== null && snr < LOW_SNR_FOR_NOTE) causes.push(`the SNR after averaging is only ${Number(snr.toPrecision(2))}: the planner's σ/slope is a small-noise figure, and noise crossings and outliers widen the spread`);
-    const inWindow = s.plan.echoes.filter((e) => e.arrival_s < c.window.to_s);
+    const inWindow = s.plan.echoes.filter((e) => e.arrival_s < c.searchWindow.to_s);
     if (inWindow.length > 0 || mine.some((w) => w.code === 'echo-overlap')) {
       const e = inWindow[0] ?? s.plan.echoes[0];
       causes.push(`an echo${e ? ` (${e.path.join(' → ') || 'reflection'}, ${us(e.arrival_s - s.planned_s)} after the direct pulse)` : ''} overlaps the direct pulse inside the picker's window`);

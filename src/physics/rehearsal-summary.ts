@@ -30,6 +30,13 @@ import type { SensorRecordModel } from './synthetic-record';
 export const SD_RATIO_NOTE = 1.5;
 /** Below this averaged SNR the planner's small-noise timing figure is not expected to hold (common practice, no source). */
 const LOW_SNR_FOR_NOTE = 10;
+/** What moves each picker off its feature on noise-free samples. */
+const METHOD_CAUSE: Record<PickerKind, string> = {
+  threshold: 'linear interpolation between samples on a curved edge',
+  fraction: 'linear interpolation between samples on a curved edge, and the peak taken at a sample',
+  peak: 'a parabola over the whole top of a lopsided pulse, or over at most 201 samples of a long one',
+  xcorr: "the correlation's peak interpolated between lags, and the drive template cut at 2 % of its height",
+};
 /** Failure messages kept per sensor. */
 const REASONS_KEPT = 3;
 
@@ -232,10 +239,16 @@ function sensorNotes(
       `The rehearsed timing sd is ${Number(ratio.toPrecision(2))} × the planner's (${direction} than a factor ${SD_RATIO_NOTE} allows)${causes.length > 0 ? `; likely: ${causes.join('; ')}` : '; no cause found among failures, SNR, echoes and quantisation'}.`,
     );
   }
-  const method = r.noiseFreeBias_s;
-  if (method !== null && Math.abs(method) > Math.max(r.analyticTimingSd_s ?? 0, (r.arrivalSd_s ?? 0) * 2)) {
+  const bound = r.boundTimingSd_s;
+  if (c.picker === 'xcorr' && bound !== null && r.arrivalSd_s !== null && r.arrivalSd_s > SD_RATIO_NOTE * bound && (s.plan.snrAveraged ?? 0) >= LOW_SNR_FOR_NOTE) {
     notes.push(
-      `Without noise the picker lands ${us(method)} from its own feature (its method on these samples, e.g. a parabola over the whole top of a lopsided pulse): a bias that no averaging removes.`,
+      `The cross-correlation's sd is ${Number((r.arrivalSd_s / bound).toPrecision(2))} × the Cramér–Rao bound (${us(bound)}): its template is the heater drive, and the pulse reaches this sensor in another shape (the lag, the heater's size), so the match is not the best possible.`,
+    );
+  }
+  const method = r.noiseFreeBias_s;
+  if (method !== null && Math.abs(method) > Math.max(2 * (r.arrivalSd_s ?? 0), c.sampleInterval_s / 20)) {
+    notes.push(
+      `Without noise the picker lands ${us(method)} from its own feature (${METHOD_CAUSE[c.picker]}): a bias that no averaging removes.`,
     );
   }
   if (r.featureOffset_s === null) notes.push("The predicted pulse has no such feature (a threshold above its peak?): the bias is counted from the planner's arrival.");

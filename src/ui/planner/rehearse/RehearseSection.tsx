@@ -180,7 +180,10 @@ function RehearseTable({ result }: { result: RehearsalResult }) {
           <tbody>
             {result.sensors.map((s) => (
               <tr key={s.id} className={s.sdRatio !== null && (s.sdRatio > 1.5 || s.sdRatio < 1 / 1.5) ? 'rehearse__row--differs' : undefined}>
-                <th scope="row">{s.id}</th>
+                <th scope="row">
+                  {s.id}
+                  {s.sdRatio !== null && (s.sdRatio > 1.5 || s.sdRatio < 1 / 1.5) ? <span className="visually-hidden"> (differs from the planner’s sd by more than ×1.5)</span> : null}
+                </th>
                 <td>{formatSignificant(inUnit(s.arrival_s, time), 6)}</td>
                 <td>{inSd(s.arrivalBias_s)}</td>
                 <td>{inSd(s.arrivalSd_s)}</td>
@@ -198,7 +201,7 @@ function RehearseTable({ result }: { result: RehearsalResult }) {
       <p className="field-hint">
         True arrival: the delay of the feature the picker measures on the predicted pulse, counted like with like from the drive (its 50 % rise; its
         centre for the peak picker), as the converter counts it. Bias: mean pick − true. Planner’s sd: rise at the sensor over SNR with the sampling’s
-        Δt/√12. Bound: the Cramér–Rao bound for this pulse and noise (Kay 1993), which a matched cross-correlation reaches at high SNR. Temperatures:
+        Δt/√12. Bound: the Cramér–Rao bound for this pulse and noise (Kay 1993), which a matched cross-correlation reaches at high SNR. ≠: the rehearsed sd and the planner’s differ by more than ×1.5 (the note below says why). Temperatures:
         each pick through the converter’s inversion with t₀ calibrated for this picker; the planner’s T sd is that of a change between readings.
       </p>
       <ul className="rehearse__notes">

@@ -7,7 +7,7 @@ import { REHEARSAL_TRIALS_RANGE } from '../../../io/rehearse-run';
 import { PICKER_LIMITS, RECORD_SETTING_LIMITS, SEED_RANGE } from '../../../physics';
 import type { FieldSpec } from '../../fields/field-spec';
 import type { HelpTopic } from '../../help/FieldHelp';
-import { KINDS } from '../../units/ladders';
+import { KINDS, LADDERS } from '../../units/ladders';
 
 export const PICKER_HELP: HelpTopic = {
   what: 'How the arrival is found in each synthetic record, as the converter finds it with a heater channel: threshold (first crossing of k noise sd), fraction (the leading edge at a share of the peak), peak (a parabola through the top) or cross-correlation with the heater drive.',
@@ -55,7 +55,8 @@ export const REHEARSE_FIELDS = {
   },
   range: {
     label: 'Input range ±',
-    kind: KINDS.voltage,
+    // An empty field shows volts, the unit a scope's range is set in.
+    kind: { ...KINDS.voltage, zero: LADDERS.voltage[0] },
     range: RECORD_SETTING_LIMITS.range_V,
     blank: 'each channel’s own',
     help: {

@@ -2,6 +2,7 @@ import { screen, waitFor, within } from '@testing-library/react';
 import { REHEARSE_CHART_ID } from '../../src/ui/planner/rehearse/RehearseSection';
 import { lastDraw } from './fake-plotly';
 import { field, openPlanner, retype, store } from './planner-helpers';
+import { runGate } from './planner-rehearse-port';
 
 // jsdom has no Web Workers: the worker's boundary is replaced by the same service run in-process.
 vi.mock('../../src/ui/planner/rehearse/rehearse-port', async () => {
@@ -50,9 +51,13 @@ describe('planner: rehearse the measurement', () => {
     const { user } = await openPlanner();
     const region = section();
     await retype(user, 'Trials', '3');
+    runGate.hold = true;
     await user.click(within(region).getByRole('button', { name: 'Run the rehearsal' }));
+    expect(within(region).getByText(/Trial 0 of 3/)).toBeTruthy();
     await user.click(within(region).getByRole('button', { name: 'Cancel' }));
     expect(within(region).getByText(/Cancelled; nothing from that run is shown/)).toBeTruthy();
+    // The run the worker would have finished: nothing of it arrives.
+    runGate.release();
     await new Promise((resolve) => setTimeout(resolve, 50));
     expect(within(region).queryByRole('table')).toBeNull();
     expect(store().rehearseRun.status).toBe('cancelled');
@@ -75,7 +80,8 @@ describe('planner: rehearse the measurement', () => {
     expect(within(section()).getByText(/give the digitiser’s bits first/)).toBeTruthy();
     await retype(user, 'Digitiser resolution (bits)', '12');
     await retype(user, 'Input range ±', '1');
-    expect(store().rehearseOptions).toMatchObject({ resolutionBits: 12, range_V: 1e-9 });
+    // A bare number is in the unit the empty field shows: volts.
+    expect(store().rehearseOptions).toMatchObject({ resolutionBits: 12, range_V: 1 });
     expect(field('Input range ±').value).toBe('1');
   });
 });

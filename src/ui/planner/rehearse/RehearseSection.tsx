@@ -238,7 +238,8 @@ function RehearseChart({ result }: { result: RehearsalResult }) {
       caption={
         <>
           The first {sensor.kept.length} records of {sensor.id} around its search window, each with its pick (dotted, {picked} of {sensor.kept.length}{' '}
-          picked), and the true arrival of the feature (dashed).
+          picked), and the true arrival of the feature (dashed). Where the noise is small against the pulse the records lie on top of each
+          other: zoom in on the edge to see their scatter.
         </>
       }
     >

@@ -45,11 +45,12 @@ export function rehearseFigure(s: RehearsalSensorResult, time: DisplayUnit, volt
   return {
     data,
     layout: {
-      height: 300,
-      margin: { l: 64, r: 16, t: 16, b: 48 },
+      height: 320,
+      margin: { l: 64, r: 16, t: 40, b: 48 },
       xaxis: { title: { text: `Time after the heater onset (${time.shown})` } },
       yaxis: { title: { text: `Sensor (${volts.shown})` } },
-      legend: { orientation: 'h', y: -0.25 },
+      // Above the plot, so it never meets the axis title on a narrow screen.
+      legend: { orientation: 'h', x: 0, y: 1.02, xanchor: 'left', yanchor: 'bottom' },
       dragmode: 'zoom',
     },
   };

@@ -37,7 +37,7 @@ const options = (o: Partial<RehearsalOptions>): RehearsalOptions => ({ ...DEFAUL
 
 describe('seeded random numbers', () => {
   it(`xoshiro128** gives the reference algorithm's words (${XOSHIRO})`, () => {
-    // An independent transcription of the reference C code in BigInt, from the same splitmix32 seeding.
+    // The reference C code rewritten independently in BigInt, from the same splitmix32 seeding.
     const random = new SeededRandom(12345, 7);
     const internal = random as unknown as { s0: number; s1: number; s2: number; s3: number };
     const s = [internal.s0, internal.s1, internal.s2, internal.s3].map((x) => BigInt.asUintN(32, BigInt(x)));

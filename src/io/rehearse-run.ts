@@ -162,6 +162,22 @@ export function searchWindow(model: RecordModel, s: SensorRecordModel): { from_s
   return { from_s: Math.max(0.5 * s.planned_s, s.planned_s - s.pulseWindow_s), to_s: Math.min(end, s.planned_s + s.pulseWindow_s) };
 }
 
+/**
+ * The samples a pick reads in one sensor's channel: the pre-trigger part (baseline and noise) and
+ * the search window widened by the drive's length (the correlation's template runs past the last
+ * start it tries) and a tenth of the window (the chart's margin), as sample index ranges.
+ */
+export function pickedSamples(model: RecordModel, window: { from_s: number; to_s: number }): [number, number][] {
+  const index = (t: number) => Math.round((t - model.start_s) / model.step_s);
+  const margin = Math.max(model.profile.duration_s, 0.1 * (window.to_s - window.from_s)) + 10 * model.step_s;
+  const last = model.samples - 1;
+  const clamp = (i: number) => Math.max(0, Math.min(last, i));
+  return [
+    [0, clamp(index(model.step_s * 2))],
+    [clamp(index(window.from_s - margin)), clamp(index(window.to_s + margin))],
+  ];
+}
+
 /** The converter's pick: the delay from the drive's matching feature, and the arrival on the file's axis, s. */
 function pickOne(trace: TraceCsv, heater: string, s: SensorRecordModel, window: { from_s: number; to_s: number }, o: RehearsalOptions): { delay_s: number; arrival_s: number } {
   const pick = pickTraceArrival(trace, {
@@ -244,9 +260,12 @@ export function rehearse(plan: PlanInput, result: PlanResult, options: Rehearsal
     }
   });
 
+  const ranges = model.sensors.map((_, j) => pickedSamples(model, windows[j] as { from_s: number; to_s: number }));
   for (let trial = 0; trial < options.trials; trial++) {
     if (hooks.cancelled?.()) throw new RehearsalCancelled();
-    const record = syntheticRecord(model, trial, times);
+    // Noise only where the picker and the chart read (the pre-trigger part and around the window):
+    // the same numbers there as in the whole record a trace file holds.
+    const record = syntheticRecord(model, trial, times, ranges);
     const trace = recordAsTrace(model, record, heater);
     model.sensors.forEach((s, j) => {
       const p = picks[j] as SensorPicks;

@@ -20,7 +20,8 @@ import { SeededRandom } from './seeded-random';
  *    the shots averaged into one record share it. This is what puts the Δt/√12 of sampling into
  *    the timing.
  *  - Noise: white and Gaussian, the sensor's single-shot rms per sample divided by √(pulses
- *    averaged), drawn per record and per channel from the seeded stream (seed, trial, channel).
+ *    averaged), drawn per record, channel and block of 4096 samples from the seeded stream
+ *    (seed, trial, channel, block).
  *  - Quantisation (when a resolution in bits is given): each shot is rounded to the digitiser's step
  *    q = 2·range/2^bits and clipped to ±range before averaging. Up to 8 shots are simulated one by
  *    one; beyond that the averaged record is clean + noise of rms √(σ² + q²/12)/√N when σ ≥ q/2 (the
@@ -224,14 +225,17 @@ export function recordModel(plan: PlanInput, result: PlanResult, settings: Recor
   return { start_s: -d.preTrigger_s, step_s, samples, shots: h.averages, profile, sensors, settings, seed };
 }
 
-/** Adds `signal` (linear between its samples, zero outside) read at t = first_s + i·step_s into `out`. */
-export function addSampled(out: Float64Array, first_s: number, step_s: number, signal: SampledSignal): void {
+/**
+ * Adds `signal` (linear between its samples, zero outside) read at t = first_s + i·step_s into `out`,
+ * for the indices `from`–`to` (default: all).
+ */
+export function addSampled(out: Float64Array, first_s: number, step_s: number, signal: SampledSignal, from = 0, to = out.length - 1): void {
   const v = signal.values;
   const n = v.length;
   if (n === 0) return;
   const end = signal.start_s + (n - 1) * signal.step_s;
-  const i0 = Math.max(0, Math.ceil((signal.start_s - first_s) / step_s));
-  const i1 = Math.min(out.length - 1, Math.floor((end - first_s) / step_s));
+  const i0 = Math.max(from, Math.ceil((signal.start_s - first_s) / step_s));
+  const i1 = Math.min(to, Math.floor((end - first_s) / step_s));
   for (let i = i0; i <= i1; i++) {
     const x = (first_s + i * step_s - signal.start_s) / signal.step_s;
     const k = Math.min(n - 2, Math.max(0, Math.floor(x)));
@@ -240,11 +244,17 @@ export function addSampled(out: Float64Array, first_s: number, step_s: number, s
   }
 }
 
-/** The clean (noise-free) signal of sensor `s` at the record's instants, with the heater onset at `onset_s` on the file's axis. */
-export function cleanChannel(model: RecordModel, s: SensorRecordModel, onset_s: number): Float64Array {
+/**
+ * The clean (noise-free) signal of sensor `s` at the record's instants, with the heater onset at
+ * `onset_s` on the file's axis; only inside `ranges` when given (zero elsewhere).
+ */
+export function cleanChannel(model: RecordModel, s: SensorRecordModel, onset_s: number, ranges: NoiseRanges = null): Float64Array {
   const out = new Float64Array(model.samples);
   // Physical time since the onset of sample i: start + i·Δt − onset.
-  for (const w of s.signal) addSampled(out, model.start_s - onset_s, model.step_s, w);
+  for (const w of s.signal) {
+    if (ranges === null) addSampled(out, model.start_s - onset_s, model.step_s, w);
+    else for (const [a, z] of ranges) addSampled(out, model.start_s - onset_s, model.step_s, w, a, z);
+  }
   return out;
 }
 
@@ -253,11 +263,39 @@ function quantise(x: number, range: number, q: number): number {
   return q * Math.round(clipped / q);
 }
 
+/**
+ * Samples per noise block: each block of a channel draws from its own stream (seed, trial, channel,
+ * block), so a caller that reads only some samples (the rehearsal's pickers read the pre-trigger
+ * part and the search window) can draw only the blocks it needs and get the same numbers there.
+ */
+export const NOISE_BLOCK = 4096;
+
+/** Sample ranges [first, last] (inclusive) that must carry noise; null: all of them. */
+export type NoiseRanges = readonly (readonly [number, number])[] | null;
+
+function blockNeeded(b: number, n: number, ranges: NoiseRanges): boolean {
+  if (ranges === null) return true;
+  const lo = b * NOISE_BLOCK;
+  const hi = Math.min(n, lo + NOISE_BLOCK) - 1;
+  return ranges.some(([a, z]) => a <= hi && z >= lo);
+}
+
+/** Adds white noise of rms `sd` in blocks (see {@link NOISE_BLOCK}), only to the blocks `ranges` touch. */
+function addBlockNoise(values: Float64Array, sd: number, key: { seed: number; trial: number; channel: number }, ranges: NoiseRanges): void {
+  const n = values.length;
+  for (let b = 0; b * NOISE_BLOCK < n; b++) {
+    if (!blockNeeded(b, n, ranges)) continue;
+    const random = new SeededRandom(key.seed, key.trial, key.channel, b);
+    const end = Math.min(n, (b + 1) * NOISE_BLOCK);
+    for (let i = b * NOISE_BLOCK; i < end; i++) values[i] = (values[i] as number) + sd * random.normal();
+  }
+}
+
 /** The averaged record of one channel from its clean samples (which it may overwrite). */
-function noisyChannel(model: RecordModel, s: SensorRecordModel, clean: Float64Array, random: SeededRandom): Float64Array {
+function noisyChannel(model: RecordModel, s: SensorRecordModel, clean: Float64Array, key: { seed: number; trial: number; channel: number }, ranges: NoiseRanges): Float64Array {
   const n = clean.length;
   if (s.step_V === null || s.range_V === null) {
-    random.addNormal(clean, s.recordNoise_V);
+    addBlockNoise(clean, s.recordNoise_V, key, ranges);
     return clean;
   }
   const q = s.step_V;
@@ -265,6 +303,8 @@ function noisyChannel(model: RecordModel, s: SensorRecordModel, clean: Float64Ar
   const shots = model.shots;
   const out = new Float64Array(n);
   if (shots <= EXACT_SHOTS_LIMIT) {
+    // Shot by shot, every sample (rounding is not linear, so each shot is made whole).
+    const random = new SeededRandom(key.seed, key.trial, key.channel);
     const shot = new Float64Array(n);
     for (let k = 0; k < shots; k++) {
       shot.set(clean);
@@ -278,7 +318,7 @@ function noisyChannel(model: RecordModel, s: SensorRecordModel, clean: Float64Ar
     const c = Math.max(-range, Math.min(range - q, clean[i] as number));
     out[i] = dithered ? c : quantise(c, range, q);
   }
-  random.addNormal(out, dithered ? Math.sqrt(s.shotNoise_V ** 2 + (q * q) / 12) / Math.sqrt(shots) : s.recordNoise_V);
+  addBlockNoise(out, dithered ? Math.sqrt(s.shotNoise_V ** 2 + (q * q) / 12) / Math.sqrt(shots) : s.recordNoise_V, key, ranges);
   return out;
 }
 
@@ -301,13 +341,15 @@ export function driveChannel(model: RecordModel, onset_s: number): Float64Array 
 
 /**
  * Record number `trial` (0-based) of the model: the same seed and trial give the same numbers,
- * whatever other trials were made. Channel streams: (seed, trial, 0) for the trigger phase,
- * (seed, trial, 1 + sensor index) for each sensor's noise.
+ * whatever other trials were made. Streams: (seed, trial, 0) for the trigger phase, (seed, trial,
+ * 1 + sensor index, block) for each sensor's noise. `ranges` (per sensor, sample ranges) makes only
+ * the samples a caller reads: the signal inside them and the noise of the blocks they touch, the
+ * same numbers there as in the whole record (elsewhere the channel is left unmade).
  */
-export function syntheticRecord(model: RecordModel, trial: number, times: Float64Array = recordTimes(model)): SyntheticRecord {
+export function syntheticRecord(model: RecordModel, trial: number, times: Float64Array = recordTimes(model), ranges: readonly NoiseRanges[] | null = null): SyntheticRecord {
   const phase = new SeededRandom(model.seed, trial, 0).uniform();
   const onset_s = -phase * model.step_s;
-  const sensors = model.sensors.map((s, j) => noisyChannel(model, s, cleanChannel(model, s, onset_s), new SeededRandom(model.seed, trial, 1 + j)));
+  const sensors = model.sensors.map((s, j) => noisyChannel(model, s, cleanChannel(model, s, onset_s, ranges?.[j] ?? null), { seed: model.seed, trial, channel: 1 + j }, ranges?.[j] ?? null));
   return { trial, time_s: times, heater: driveChannel(model, onset_s), sensors, onset_s };
 }
 

@@ -6,6 +6,7 @@ import { registerOfflineCache } from './offline/register';
 import './styles.css';
 import '../src/ui/workspace/workspace.css';
 import '../src/ui/converter/watch/watch.css';
+import '../src/ui/planner/rehearse/rehearse.css';
 import './small-screens.css';
 import { startWorkspace } from '../src/ui/workspace/persist-workspace';
 import { startLocatePersistence } from '../src/ui/locate/persist-locate';

@@ -171,3 +171,24 @@ export { type ConfidenceRegion, type LocateOptions, type LocateResult, LOCATE_SP
 export type { SpeedPrior } from './arrival-fit';
 export { bestAddedSensor, type LayoutOptions, type LayoutScore, layoutQuality, type SensorPlacement, sensorPlaceAllowed } from './layout-quality';
 export { insideBody, type SurfaceConstraint } from './surface-constraint';
+export { requireSeed, SEED_RANGE, SeededRandom } from './seeded-random';
+export {
+  addSampled,
+  cleanChannel,
+  DEFAULT_RECORD_SETTINGS,
+  driveChannel,
+  EXACT_SHOTS_LIMIT,
+  noiseFreeRecord,
+  RECORD_SETTING_LIMITS,
+  type RecordModel,
+  type RecordSettings,
+  recordModel,
+  recordTimes,
+  scopeRange,
+  type SensorRecordModel,
+  type SyntheticRecord,
+  syntheticRecord,
+} from './synthetic-record';
+export { delayTemperature, type RehearsalSensorSummary, SD_RATIO_NOTE, type SensorPicks, summariseSensor } from './rehearsal-summary';
+export { driveCentre, driveHalfRise, type FeatureSettings, featureDelay, predictionSpan } from './picker-features';
+export { delayBound } from './delay-bound';

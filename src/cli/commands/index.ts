@@ -16,6 +16,7 @@ export const COMMAND_TABLE: readonly CommandEntry[] = [
   { name: 'vapour', load: async () => (await import('./vapour')).vapourCommand },
   { name: 'arrivals', load: async () => (await import('./arrivals')).arrivalsCommand },
   { name: 'plan', load: async () => (await import('./plan')).planCommand },
+  { name: 'rehearse', load: async () => (await import('./rehearse')).rehearseCommand },
   { name: 'delay', load: async () => (await import('./delay')).delayCommand },
   { name: 'trace', load: async () => (await import('./trace')).traceCommand },
   { name: 'fit', load: async () => (await import('./fit')).fitCommand },

@@ -7,6 +7,7 @@ import { HeaterEditor } from './HeaterEditor';
 import { HeaterSummary } from './HeaterSummary';
 import { loadDemoPlan } from './load-demo';
 import { PlanBar } from './PlanBar';
+import { RehearseSection } from './rehearse/RehearseSection';
 import { ResolutionMap } from './ResolutionMap';
 import { ResultsTable } from './ResultsTable';
 import { SensorsEditor } from './SensorsEditor';
@@ -61,6 +62,9 @@ export function PlannerView() {
       </PanelErrorBoundary>
       <PanelErrorBoundary panel="resolution map">
         <ResolutionMap />
+      </PanelErrorBoundary>
+      <PanelErrorBoundary panel="rehearsal">
+        <RehearseSection />
       </PanelErrorBoundary>
     </div>
   );

@@ -1,6 +1,7 @@
 import { create } from 'zustand';
 import { createConverterSlice } from '../converter/converter-slice';
 import { createFieldsSlice } from '../fields/fields-slice';
+import { createRehearseSlice } from '../planner/rehearse/rehearse-slice';
 import { createLocateSlice } from './locate-slice';
 import { createPlannerSlice } from './planner-slice';
 import { createPreferencesSlice } from './preferences-slice';
@@ -19,6 +20,7 @@ export const useSekundoStore = create<SekundoState>()((...args) => ({
   ...createPreferencesSlice(...args),
   ...createFieldsSlice(...args),
   ...createWatchSlice(...args),
+  ...createRehearseSlice(...args),
 }));
 
 /** Puts every slice back to its initial state (tests, "start over"). */

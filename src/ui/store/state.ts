@@ -1,5 +1,6 @@
 import type { ConverterSlice } from '../converter/converter-slice';
 import type { FieldsSlice } from '../fields/fields-slice';
+import type { RehearseSlice } from '../planner/rehearse/rehearse-slice';
 import type { LocateSlice } from './locate-slice';
 import type { PlannerSlice } from './planner-slice';
 import type { PreferencesSlice } from './preferences-slice';
@@ -8,4 +9,4 @@ import type { ViewSlice } from './view-slice';
 import type { WatchSlice } from '../converter/watch/watch-slice';
 
 /** The whole store: inputs only. Results are derived from them with kernel calls. */
-export type SekundoState = TemperatureSlice & ViewSlice & PlannerSlice & ConverterSlice & LocateSlice & PreferencesSlice & FieldsSlice & WatchSlice;
+export type SekundoState = TemperatureSlice & ViewSlice & PlannerSlice & ConverterSlice & LocateSlice & PreferencesSlice & FieldsSlice & WatchSlice & RehearseSlice;

@@ -27,18 +27,18 @@ export interface ResonatorPlanInput {
   gapSd_m?: number;
   /** Spacer material id (contraction.ts) when the gap was measured warm; null: the gap is cold. */
   spacerId: string | null;
-  /** Plate diameter, m (the smaller plate's). */
-  plateDiameter_m: number;
+  /** Plate diameter, m (the smaller plate's); without it no Fresnel number. */
+  plateDiameter_m?: number;
   /** Bath temperature, K (He II). */
   temperature_K: number;
   /** Highest mode number shown, 1–500. */
   modes: number;
-  /** Target temperature resolution, K (for the frequency resolution each mode needs). */
-  targetSd_K: number;
-  /** Expected full width of a vortex-free resonance, Hz (for the smallest line density). */
-  width0_Hz: number;
-  /** Amplitude noise relative to the vortex-free peak amplitude, σ_A/A₀ (for the smallest line density). */
-  amplitudeNoise: number;
+  /** Target temperature resolution, K (for the frequency resolution each mode needs); optional. */
+  targetSd_K?: number;
+  /** Expected full width of a vortex-free resonance, Hz (with `amplitudeNoise`: the smallest line density). */
+  width0_Hz?: number;
+  /** Amplitude noise relative to the vortex-free peak amplitude, σ_A/A₀. */
+  amplitudeNoise?: number;
   /** Tangle geometry assumed for line densities (default isotropic). */
   geometry?: TangleGeometry;
 }
@@ -67,10 +67,10 @@ export interface ResonatorMode {
   frequency_Hz: number;
   /** df_n/dT, Hz/K. */
   dfdT_Hz_K: number;
-  /** Frequency change a step of the target resolution makes (the resolution the readout needs), Hz. */
-  frequencyStep_Hz: number;
-  /** N_F = a²/(λ d) for this mode. */
-  fresnelNumber: number;
+  /** Frequency change a step of the target resolution makes (the resolution the readout needs), Hz; null without a target. */
+  frequencyStep_Hz: number | null;
+  /** N_F = a²/(λ d) for this mode; null without a plate diameter. */
+  fresnelNumber: number | null;
 }
 
 export interface ResonatorNote {
@@ -89,8 +89,8 @@ export interface ResonatorPlan {
   slope_m_s_K: number;
   /** Spacing of neighbouring modes u₂/(2d), Hz (= f₁). */
   modeSpacing_Hz: number;
-  /** Relative frequency resolution needed for the target: δf/f (the same for every mode). */
-  relativeStep: number;
+  /** Relative frequency resolution needed for the target: δf/f (the same for every mode); null without a target. */
+  relativeStep: number | null;
   modes: ResonatorMode[];
   /** Where df/dT vanishes: the u₂ minimum and maximum. */
   insensitiveAt_K: { minimum: number; maximum: number };
@@ -115,12 +115,12 @@ export function planResonator(input: ResonatorPlanInput): ResonatorPlan {
   const L = RESONATOR_LIMITS;
   requireInRange('gap', input.gap_m, L.gap_m[0], L.gap_m[1], 'm');
   requireInRange('gap sd', input.gapSd_m ?? 0, L.gapSd_m[0], L.gapSd_m[1], 'm');
-  requireInRange('plate diameter', input.plateDiameter_m, L.plateDiameter_m[0], L.plateDiameter_m[1], 'm');
+  if (input.plateDiameter_m !== undefined) requireInRange('plate diameter', input.plateDiameter_m, L.plateDiameter_m[0], L.plateDiameter_m[1], 'm');
   requireInRange('temperature', input.temperature_K, L.temperature_K[0], L.temperature_K[1], 'K', 'second sound exists only below Tλ');
   requireInRange('modes', input.modes, L.modes[0], L.modes[1], '');
-  requireInRange('target temperature resolution', input.targetSd_K, L.targetSd_K[0], L.targetSd_K[1], 'K');
-  requireInRange('vortex-free width', input.width0_Hz, L.width0_Hz[0], L.width0_Hz[1], 'Hz');
-  requireInRange('relative amplitude noise', input.amplitudeNoise, L.amplitudeNoise[0], L.amplitudeNoise[1], '');
+  if (input.targetSd_K !== undefined) requireInRange('target temperature resolution', input.targetSd_K, L.targetSd_K[0], L.targetSd_K[1], 'K');
+  if (input.width0_Hz !== undefined) requireInRange('vortex-free width', input.width0_Hz, L.width0_Hz[0], L.width0_Hz[1], 'Hz');
+  if (input.amplitudeNoise !== undefined) requireInRange('relative amplitude noise', input.amplitudeNoise, L.amplitudeNoise[0], L.amplitudeNoise[1], '');
   const notes: ResonatorNote[] = [];
   const cold = coldGap(input.gap_m, input.gapSd_m ?? 0, input.spacerId);
   if (input.spacerId !== null) {
@@ -134,8 +134,8 @@ export function planResonator(input: ResonatorPlanInput): ResonatorPlan {
   const T = input.temperature_K;
   const at = secondSoundUnchecked(T);
   const spacing = modeFrequency(1, at.value, cold.gap_m);
-  const relativeStep = relativeFrequencyStep(T, input.targetSd_K, at.value);
-  const radius = input.plateDiameter_m / 2;
+  const relativeStep = input.targetSd_K === undefined ? null : relativeFrequencyStep(T, input.targetSd_K, at.value);
+  const radius = input.plateDiameter_m === undefined ? null : input.plateDiameter_m / 2;
   const modes: ResonatorMode[] = [];
   const count = Math.round(input.modes);
   for (let n = 1; n <= count; n++) {
@@ -145,8 +145,8 @@ export function planResonator(input: ResonatorPlanInput): ResonatorPlan {
       n,
       frequency_Hz: f,
       dfdT_Hz_K: (f * at.slope) / at.value,
-      frequencyStep_Hz: f * relativeStep,
-      fresnelNumber: (radius * radius) / (wavelength * cold.gap_m),
+      frequencyStep_Hz: relativeStep === null ? null : f * relativeStep,
+      fresnelNumber: radius === null ? null : (radius * radius) / (wavelength * cold.gap_m),
     });
   }
   const { minimum, maximum } = SECOND_SOUND_EXTREMA;
@@ -159,8 +159,10 @@ export function planResonator(input: ResonatorPlanInput): ResonatorPlan {
       value: nearest.temperature_K,
     });
   }
-  const f1 = modes[0]?.fresnelNumber ?? 0;
-  if (f1 < FRESNEL_CAUTION) {
+  const f1 = modes[0]?.fresnelNumber ?? null;
+  if (f1 === null) {
+    // No plate diameter: no Fresnel number, no diffraction note.
+  } else if (f1 < FRESNEL_CAUTION) {
     const nGood = Math.ceil(FRESNEL_CAUTION / f1);
     notes.push({
       code: 'diffraction-limited',
@@ -178,7 +180,9 @@ export function planResonator(input: ResonatorPlanInput): ResonatorPlan {
   }
   let noise: number | null = null;
   let detectable: number | null = null;
-  if (T >= MUTUAL_FRICTION_RANGE_K[0] && T <= MUTUAL_FRICTION_RANGE_K[1]) {
+  if (input.width0_Hz === undefined || input.amplitudeNoise === undefined) {
+    // No expected width or noise: no smallest line density.
+  } else if (T >= MUTUAL_FRICTION_RANGE_K[0] && T <= MUTUAL_FRICTION_RANGE_K[1]) {
     const { factor } = lineDensityGeometry(input.geometry ?? 'isotropic');
     const k = (factor * input.width0_Hz) / (mutualFrictionBUnchecked(T) * QUANTUM_OF_CIRCULATION_M2_S);
     const r = input.amplitudeNoise;

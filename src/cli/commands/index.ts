@@ -20,6 +20,9 @@ export const COMMAND_TABLE: readonly CommandEntry[] = [
   { name: 'trace', load: async () => (await import('./trace')).traceCommand },
   { name: 'fit', load: async () => (await import('./fit')).fitCommand },
   { name: 'locate', load: async () => (await import('./locate')).locateCommand },
+  { name: 'resonator', load: async () => (await import('./resonator')).resonatorCommand },
+  { name: 'sweep', load: async () => (await import('./sweep')).sweepCommand },
+  { name: 'lockin', load: async () => (await import('./lockin')).lockinCommand },
 ];
 
 /** Every command, loaded, in table order (for `sekundo --help` and the tests). */

@@ -8,8 +8,8 @@ import { MUTUAL_FRICTION_B_PRIME_SPLINE, MUTUAL_FRICTION_B_SPLINE } from './refe
  * represent them (their source: Barenghi, Donnelly & Vinen, J. Low Temp. Phys. 52, 189 (1983)):
  * cubic B-splines in x = log10(t), t = 1 − T/Tλ, of log10(B) and log10(B′ + 15), and near Tλ the
  * power laws they state, B = 0.47 t^−0.33 above 2.167 K and B′ = 1.01 − 0.34 t^−0.33 above
- * 2.134 K. The splines end at t = 1e-5 (20 µK below Tλ) and at t = 0.41 (1.286 K for B, 1.278 K
- * for B′): below 1.286 K the representation gives no B, and nothing here extrapolates it.
+ * 2.134 K. The splines end at t = 1e-5 (20 µK below Tλ) and at t = 0.41 (1.2858 K for B, 1.278 K
+ * for B′): below 1.2858 K the representation gives no B, and nothing here extrapolates it.
  * At the joins the spline and the power law differ by 0.8 % (B, 2.167 K) and 0.3 % (B′, 2.134 K);
  * tests/unit/mutual-friction.test.ts checks the spline's Tλ end against the power laws.
  */
@@ -63,7 +63,7 @@ export function mutualFrictionBSplineOnly(T: number): number {
 
 /**
  * Hall–Vinen mutual friction coefficient B (dimensionless) at T along SVP.
- * @param T temperature, K, 1.2864 K – 2.17678 K ({@link MUTUAL_FRICTION_RANGE_K}).
+ * @param T temperature, K, 1.2858 K – 2.17678 K ({@link MUTUAL_FRICTION_RANGE_K}).
  * Source: Donnelly & Barenghi, J. Phys. Chem. Ref. Data 27, 1217 (1998) (spline and power law);
  * data: Barenghi, Donnelly & Vinen, JLTP 52, 189 (1983). About 1.02 at 1.8 K, minimum 0.98 near 1.9 K.
  * Throws OutOfRangeError / NonFiniteInputError naming the range.

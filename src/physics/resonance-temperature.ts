@@ -66,14 +66,15 @@ export interface ModeFromNeighbour {
   reason: string;
 }
 
-/** How far from a whole number the ratio may be, in its own sd, and at most in absolute terms. */
+/** 3 sd of the ratio must stay within half a mode; the ratio within 0.25 of a whole number (common practice). */
 const MODE_REACH_SD = 3;
 const MODE_REACH_MAX = 0.25;
 
 /**
  * The mode number of the resonance at `frequency_Hz`, from its neighbour at `neighbour_Hz` (the
- * next mode up or down): n_low = f_low/(f_high − f_low), the upper one n_low + 1. The ratio must lie
- * within 3 of its sds and 0.25 of a whole number, else `mode` is null with the reason.
+ * next mode up or down): n_low = f_low/(f_high − f_low) rounded, the upper one n_low + 1. The ratio
+ * must lie within 0.25 of a whole number (real plates shift it a little: an end correction) and its
+ * sd must be small enough that 3 sd cannot reach the next whole number; else `mode` is null.
  */
 export function modeFromNeighbour(frequency_Hz: number, frequencySd_Hz: number, neighbour_Hz: number, neighbourSd_Hz: number): ModeFromNeighbour {
   const L = RESONANCE_LIMITS;
@@ -93,13 +94,12 @@ export function modeFromNeighbour(frequency_Hz: number, frequencySd_Hz: number, 
   const ratioSd = Math.hypot((high / (spacing * spacing)) * lowSd, (low / (spacing * spacing)) * highSd);
   const nearest = Math.round(ratio);
   const off = Math.abs(ratio - nearest);
-  const reach = Math.min(MODE_REACH_MAX, Math.max(MODE_REACH_SD * ratioSd, 0));
   const base = { ratio, ratioSd, spacing_Hz: spacing, spacingSd_Hz: spacingSd };
   if (nearest < 1) return { ...base, mode: null, reason: `f/(spacing) = ${ratio.toFixed(3)} is below 1: these are not neighbouring modes of one gap` };
   if (ratioSd * MODE_REACH_SD >= 0.5) {
     return { ...base, mode: null, reason: `f/(spacing) = ${ratio.toFixed(3)} ± ${ratioSd.toFixed(3)}: the frequencies are too uncertain to tell n from n ± 1` };
   }
-  if (off > Math.max(reach, MODE_REACH_SD * ratioSd) || off > MODE_REACH_MAX) {
+  if (off > MODE_REACH_MAX) {
     return {
       ...base,
       mode: null,

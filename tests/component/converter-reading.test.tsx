@@ -2,7 +2,7 @@ import { render, screen, waitFor, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import { App } from '../../app/App';
 import { convertDelay, secondSound } from '../../src/physics';
-import { formatMeasured } from '../../src/ui/format/format-measured';
+import { formatMeasured } from '../../src/ui/units/format-measured';
 import { SPEED_BAND_SHAPE } from '../../src/ui/converter/speed-figure';
 import { useSekundoStore } from '../../src/ui/store';
 import { lastDraw, lastShape } from './fake-plotly';

@@ -4,7 +4,7 @@ import { App } from '../../app/App';
 import { convertDelay, secondSound, vapourPressure } from '../../src/physics';
 import { FIELD_SPECS, followedUnit, unitKindOf } from '../../src/ui/converter/converter-fields';
 import { valuesOf } from '../../src/ui/converter/converter-slice';
-import { converterUnitsOf } from '../../src/ui/converter/converter-units';
+import { unitViewsOf } from '../../src/ui/units/unit-views';
 import { buildSeries, seriesTable } from '../../src/ui/converter/series';
 import { ARRIVAL_SHAPE, traceFigure } from '../../src/ui/converter/trace/trace-figure';
 import type { TracePick } from '../../src/io/trace-pick';
@@ -243,7 +243,7 @@ function exactPick(T: number): TracePick {
 }
 
 describe('trace series and trace chart in the header units', () => {
-  const mK_us = converterUnitsOf({ temperature: 'mK', length: 'mm', time: 'µs', pressure: 'mbar' });
+  const mK_us = unitViewsOf({ temperature: 'mK', length: 'mm', time: 'µs', pressure: 'mbar' });
 
   it('names and fills the series table’s columns in the display units', () => {
     const model = [1.86, 1.84];

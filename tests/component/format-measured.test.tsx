@@ -1,4 +1,4 @@
-import { formatMeasured, formatSd, sdLastDigit } from '../../src/ui/format/format-measured';
+import { formatMeasured, formatSd, sdLastDigit } from '../../src/ui/units/format-measured';
 
 // The rounding rule of format-measured.ts (a common convention, no source): an sd keeps two digits
 // when its leading three are 100–354, one digit for 355–949, and 950–999 round up to two digits of

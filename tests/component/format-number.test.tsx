@@ -1,4 +1,4 @@
-import { formatFixed, formatScientific, formatSignificant } from '../../src/ui/format/format-number';
+import { formatFixed, formatScientific, formatSignificant } from '../../src/ui/units/format-number';
 
 describe('number formatting', () => {
   it.each([

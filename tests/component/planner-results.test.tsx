@@ -1,8 +1,8 @@
 import { screen, within } from '@testing-library/react';
 import { planFileToInput } from '../../src/io/plan-file';
 import { computePlan } from '../../src/physics';
-import { formatSignificant } from '../../src/ui/format/format-number';
-import { inUnit, LADDERS, unitForColumn } from '../../src/ui/planner/display-units';
+import { formatSignificant } from '../../src/ui/units/format-number';
+import { inUnit, LADDERS, unitForColumn } from '../../src/ui/units/ladders';
 import { demoPlan, openPlanner, store } from './planner-helpers';
 
 describe('planner results for the demo plan', { timeout: 20_000 }, () => {

@@ -4,7 +4,7 @@ import {
   formatMillikelvin,
   parseTemperature,
   TEMPERATURE_RANGE_TEXT,
-} from '../../src/ui/temperature/temperature-units';
+} from '../../src/ui/units/temperature-text';
 
 // Exact conversions: no tolerance beyond floating-point rounding.
 const ACCEPTED: [typed: string, kelvin: number][] = [

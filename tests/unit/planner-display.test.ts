@@ -5,7 +5,7 @@ import { parseQuantity } from '../../src/io/quantity';
 import { computePlan, type PlanWarning } from '../../src/physics';
 import { planFileToInput } from '../../src/io/plan-file';
 import { tableCsv } from '../../src/ui/export/csv-export';
-import { chosenLadders, inputText, KINDS, LADDERS, readText, shownLadder, temperatureText } from '../../src/ui/planner/display-units';
+import { chosenLadders, inputText, KINDS, LADDERS, readText, shownLadder, temperatureText } from '../../src/ui/units/ladders';
 import { DIGITISER_FIELDS, fieldText, HEATER_FIELDS, sensorFields } from '../../src/ui/planner/plan-fields';
 import { warningFigures, warningsCsv, warningUnit } from '../../src/ui/planner/warning-figures';
 import { DEFAULT_DISPLAY_UNITS, type DisplayUnits } from '../../src/ui/units/unit-choices';

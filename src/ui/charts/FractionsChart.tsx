@@ -1,10 +1,10 @@
 import { useMemo } from 'react';
 import { type HeliumProperties, PROPERTIES_RANGE_K, SECOND_SOUND_MEASURED_MIN_K, T_LAMBDA_K } from '../../physics';
-import { formatSignificant } from '../format/format-number';
+import { formatSignificant } from '../units/format-number';
 import { PlotlyChart } from '../plot/PlotlyChart';
 import type { PlotLayout, PlotTrace } from '../plot/plotly-types';
 import { useHeliumProperties } from '../store';
-import { formatTemperature } from '../temperature/temperature-units';
+import { formatTemperature } from '../units/temperature-text';
 import { useDisplayUnit } from '../units/use-display-unit';
 import { ChartFigure } from './ChartFigure';
 import {

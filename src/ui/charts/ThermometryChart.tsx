@@ -1,10 +1,10 @@
 import { useMemo } from 'react';
 import { type HeliumProperties, T_LAMBDA_K } from '../../physics';
-import { formatFixed, formatSignificant } from '../format/format-number';
+import { formatFixed, formatSignificant } from '../units/format-number';
 import { PlotlyChart } from '../plot/PlotlyChart';
 import type { PlotAnnotation, PlotLayout, PlotShape, PlotTrace } from '../plot/plotly-types';
 import { useHeliumProperties } from '../store';
-import { formatTemperature } from '../temperature/temperature-units';
+import { formatTemperature } from '../units/temperature-text';
 import { useDisplayUnit } from '../units/use-display-unit';
 import { ChartFigure } from './ChartFigure';
 import { axis, baseLayout, CHART_COLOURS, chosenTemperatureLine, referenceLine, temperatureBand } from './chart-theme';

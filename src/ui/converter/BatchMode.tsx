@@ -2,14 +2,14 @@ import { useId, useMemo, useState } from 'react';
 import { overLimitText } from '../../io/byte-size';
 import { delayResultAt, delayResultCells, delayResultHeader, type DelayBatchResults, WARNING_CODES } from '../../io/delay-batch';
 import { ChartFigure } from '../charts/ChartFigure';
-import { formatSignificant } from '../format/format-number';
+import { formatSignificant } from '../units/format-number';
 import { PanelErrorBoundary } from '../layout/PanelErrorBoundary';
 import { PlotlyChart } from '../plot/PlotlyChart';
 import { useSekundoStore } from '../store';
 import { BATCH_FILE_LIMIT_BYTES, batchFigure, batchMinutes, batchResults, exampleBatchText, readBatch } from './batch-results';
 import { ChoiceCard } from './ChoiceCard';
 import { valuesOf } from './converter-slice';
-import { type ConverterUnits, currentConverterUnits, temperatureOnY, temperatureText, useConverterUnits } from './converter-units';
+import { type UnitViews, currentUnitViews, temperatureOnY, fixedTemperatureText, useUnitViews } from '../units/unit-views';
 import { DropZone } from './DropZone';
 import { exportName, tableExport } from './export-text';
 import { ResultActions } from './ResultActions';
@@ -114,7 +114,7 @@ function batchExport() {
   const outcome = batchResults(input.batch, valuesOf(state.converterFields), state.converterChoice);
   if (!outcome.ok) return null;
   const r = outcome.results;
-  const { temperature, length, time, pressure } = currentConverterUnits();
+  const { temperature, length, time, pressure } = currentUnitViews();
   const units = { temperature: temperature.unit, length: length.unit, time: time.unit, pressure: pressure.unit };
   const header = delayResultHeader(r.batch, units);
   const rows = Array.from({ length: r.count }, (_, i) => delayResultCells(r, i, units));
@@ -126,7 +126,7 @@ function BatchResults() {
   const input = useSekundoStore((s) => s.converterBatch);
   const kind = useSekundoStore((s) => s.converterChoice);
   const values = useFieldValues();
-  const units = useConverterUnits();
+  const units = useUnitViews();
   const unit = units.temperature.unit;
   const outcome = useMemo(() => (input ? batchResults(input.batch, values, kind) : null), [input, values, kind]);
   const minutes = useMemo(() => (input ? batchMinutes(input.batch) : null), [input]);
@@ -173,7 +173,7 @@ function BatchResults() {
         </div>
         <p className="caption-values batch-summary">
           {r.count} readings; {decided} with a chosen temperature
-          {decided > 0 ? `, from ${temperatureText(lo, unit)} to ${temperatureText(hi, unit)}` : ''}.
+          {decided > 0 ? `, from ${fixedTemperatureText(lo, unit)} to ${fixedTemperatureText(hi, unit)}` : ''}.
           {decided + ambiguous < r.count ? ' Undecided rows have several candidates and nothing to choose by: set a way of choosing.' : ''}
         </p>
         {disagreeing.length > 0 ? (
@@ -207,7 +207,7 @@ function BatchResults() {
 }
 
 /** Each row's delay, pressure and temperatures in the display units; value and sd rounded together. */
-function BatchTable({ results, units }: { results: DelayBatchResults; units: ConverterUnits }) {
+function BatchTable({ results, units }: { results: DelayBatchResults; units: UnitViews }) {
   const { temperature, time, pressure } = units;
   const [shown, setShown] = useState(PAGE_ROWS);
   const batch = results.batch;

@@ -1,9 +1,9 @@
 import { type Choice, type ChoiceRule, PROPERTIES_RANGE_K, type TemperatureCandidate } from '../../physics';
-import { formatSignificant } from '../format/format-number';
+import { formatSignificant } from '../units/format-number';
 import { useDisplayUnit } from '../units/use-display-unit';
 import { branchWords, type CandidateFlag, candidateFlags, choiceNote } from './candidate-notes';
-import { limitText } from './converter-units';
-import { LADDERS, readText } from '../planner/display-units';
+import { limitText } from '../units/unit-views';
+import { LADDERS, readText } from '../units/ladders';
 
 /** A distance from the evidence in sd: "12 sd" (flagged past 3), or a dash without evidence. */
 function evidenceText(d: number | null | undefined): string {

@@ -1,10 +1,10 @@
 import { type ReactNode, useId } from 'react';
 import { candidateWarnings, PROPERTIES_RANGE_K, type ReadingWarning, speedSigmasFromTurn, type TemperatureCandidate } from '../../physics';
-import { formatSignificant } from '../format/format-number';
+import { formatSignificant } from '../units/format-number';
 import { PanelErrorBoundary } from '../layout/PanelErrorBoundary';
 import { useDisplayUnit } from '../units/use-display-unit';
 import { CandidatesTable } from './CandidatesTable';
-import { limitText, temperatureText } from './converter-units';
+import { limitText, fixedTemperatureText } from '../units/unit-views';
 import type { Chosen } from './reading-results';
 import type { ExportContent } from './export-text';
 import { ResultActions } from './ResultActions';
@@ -34,7 +34,7 @@ export function ConversionResult({ title, chartId, speed_m_s, speedSd_m_s, speed
   const temperature = useDisplayUnit('temperature');
   // The chosen temperature and its sd rounded together, in the display unit.
   const picked = pick ? temperature.measured(pick.temperature_K, pick.sd_K) : null;
-  const fmt = (T: number) => temperatureText(T, temperature.unit);
+  const fmt = (T: number) => fixedTemperatureText(T, temperature.unit);
   const warnings: ReadingWarning[] = [...choice.warnings, ...(pick ? candidateWarnings(pick, speedSigmasFromTurn(pick, speed_m_s, speedSd_m_s), fmt) : [])];
   return (
     <>

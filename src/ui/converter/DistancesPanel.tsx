@@ -1,7 +1,7 @@
 import { type ClipboardEvent, type FocusEvent, type KeyboardEvent, useId, useMemo } from 'react';
 import type { Unit } from '../../io/quantity';
 import { fitDistances, PhysicsError } from '../../physics';
-import { formatSignificant } from '../format/format-number';
+import { formatSignificant } from '../units/format-number';
 import { useSekundoStore } from '../store';
 import type { DisplayUnitOf } from '../units/unit-choices';
 import { displayUnitView } from '../units/use-display-unit';
@@ -12,7 +12,7 @@ import { ConversionResult } from './ConversionResult';
 import { tableExport } from './export-text';
 import { distanceColumnHelp } from './converter-help';
 import { useFieldHelp } from '../help/FieldHelp';
-import { currentConverterUnits, useConverterUnits } from './converter-units';
+import { currentUnitViews, useUnitViews } from '../units/unit-views';
 import { chooseFor, distanceFit, distanceFitTable } from './reading-results';
 import { readDistanceRows, splitPasted } from './table-input';
 import { useFieldValues } from './use-converter';
@@ -189,7 +189,7 @@ export function DistancesResult() {
   const kind = useSekundoStore((s) => s.converterChoice);
   const values = useFieldValues();
   const applyValues = useSekundoStore((s) => s.applyConverterValues);
-  const { length, temperature } = useConverterUnits();
+  const { length, temperature } = useUnitViews();
   const displayUnits = useSekundoStore((s) => s.displayUnits);
   // t₀ in the offset field's own (finer) unit, as it would be typed there.
   const offsetUnit = displayUnitView(followedUnit(FIELD_SPECS.offset, displayUnits) as DisplayUnitOf<'time'>);
@@ -211,7 +211,7 @@ export function DistancesResult() {
   }
   const f = fit.value;
   const exportContent = () => {
-    return tableExport('sekundo-distance-fit.csv', distanceFitTable(f, chosen, currentConverterUnits()));
+    return tableExport('sekundo-distance-fit.csv', distanceFitTable(f, chosen, currentUnitViews()));
   };
   return (
     <ConversionResult

@@ -3,7 +3,7 @@ import { PanelErrorBoundary } from '../layout/PanelErrorBoundary';
 import { useSekundoStore } from '../store';
 import { ChoiceCard } from './ChoiceCard';
 import { valuesOf } from './converter-slice';
-import { currentConverterUnits } from './converter-units';
+import { currentUnitViews } from '../units/unit-views';
 import { ConversionResult } from './ConversionResult';
 import { DistancesInput, DistancesResult } from './DistancesPanel';
 import { tableExport } from './export-text';
@@ -67,7 +67,7 @@ function singleExport() {
   const values = valuesOf(state.converterFields);
   const result = singleReading(values);
   if (!result.ok) return null;
-  const units = currentConverterUnits();
+  const units = currentUnitViews();
   const table = singleReadingTable(values, result.value, chooseFor(result.value.candidates, state.converterChoice, values, units.temperature.unit), units);
   return tableExport('sekundo-reading.csv', table);
 }

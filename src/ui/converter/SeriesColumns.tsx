@@ -1,9 +1,9 @@
 import type { ReactNode } from 'react';
 import type { TemperatureCandidate } from '../../physics';
-import { formatSignificant } from '../format/format-number';
-import type { ConverterUnits } from './converter-units';
+import { formatSignificant } from '../units/format-number';
+import type { UnitViews } from '../units/unit-views';
 
-type TemperatureView = ConverterUnits['temperature'];
+type TemperatureView = UnitViews['temperature'];
 
 /** Every candidate's temperature, each to the digit its sd supports, "*" marking an extremum: "1.232 · 1.41 · 1.785". */
 export function candidateList(candidates: readonly TemperatureCandidate[], temperature: TemperatureView): string {

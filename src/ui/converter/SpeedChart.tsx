@@ -1,7 +1,7 @@
 import { useMemo } from 'react';
 import type { ChoiceRule, TemperatureCandidate } from '../../physics';
 import { ChartFigure } from '../charts/ChartFigure';
-import { formatSignificant } from '../format/format-number';
+import { formatSignificant } from '../units/format-number';
 import { inTemperatureUnit } from '../charts/temperature-axis';
 import { PlotlyChart } from '../plot/PlotlyChart';
 import { useDisplayUnit } from '../units/use-display-unit';

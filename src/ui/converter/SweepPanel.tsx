@@ -3,14 +3,14 @@ import { fromBaseUnit, type Unit } from '../../io/quantity';
 import { calibratePathFromSweep, PhysicsError, SECOND_SOUND_EXTREMA, secondSound } from '../../physics';
 import { ChartFigure } from '../charts/ChartFigure';
 import { axis, baseLayout, CHART_COLOURS } from '../charts/chart-theme';
-import { formatSignificant } from '../format/format-number';
+import { formatSignificant } from '../units/format-number';
 import { PlotlyChart } from '../plot/PlotlyChart';
 import type { PlotLayout, PlotTrace } from '../plot/plotly-types';
 import { useSekundoStore } from '../store';
 import { shownUnit } from '../units/unit-choices';
 import { sentence } from './converter-checks';
 import { valuesOf } from './converter-slice';
-import { csvColumn, currentConverterUnits, TIME_DECIMALS, useConverterUnits } from './converter-units';
+import { csvColumn, currentUnitViews, TIME_DECIMALS, useUnitViews } from '../units/unit-views';
 import { tableExport } from './export-text';
 import { sweepHelp } from './converter-help';
 import { describedBy, HelpLabel, useFieldHelp } from '../help/FieldHelp';
@@ -66,7 +66,7 @@ export function SweepInput() {
   const error = useSekundoStore((s) => s.converterSweepError);
   const edit = useSekundoStore((s) => s.editConverterSweep);
   const setUnit = useSekundoStore((s) => s.setConverterSweepUnit);
-  const { temperature } = useConverterUnits();
+  const { temperature } = useUnitViews();
   const maximumAt = `${temperature.format(SECOND_SOUND_EXTREMA.maximum.temperature_K, 3)} ${temperature.shown}`;
   const topics = sweepHelp(unit);
   const textHelp = useFieldHelp('sweep readings', topics.text);
@@ -147,7 +147,7 @@ export function SweepResult() {
   const points = useSekundoStore((s) => s.converterSweepPoints);
   const values = useFieldValues();
   const applyValues = useSekundoStore((s) => s.applyConverterValues);
-  const { length, time } = useConverterUnits();
+  const { length, time } = useUnitViews();
   const result = useMemo(() => sweepCalibration(points, values), [points, values]);
   const figure = useMemo(
     () => (points && result?.ok ? sweepFigure(points, result.value.atX, result.value.shortestDelay_s, time.unit) : null),
@@ -171,7 +171,7 @@ export function SweepResult() {
   const path = length.measured(c.pathLength_m, c.pathLengthSd_m);
   const shortest = time.measured(c.shortestDelay_s, c.shortestDelaySd_s);
   const exportContent = () => {
-    const { length: l, time: t } = currentConverterUnits();
+    const { length: l, time: t } = currentUnitViews();
     const header = [
       csvColumn('path_length', l),
       csvColumn('path_length_sd', l),

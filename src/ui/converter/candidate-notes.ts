@@ -11,10 +11,10 @@ import {
   type TemperatureCandidate,
   temperatureFromVapourPressure,
 } from '../../physics';
-import { formatSignificant } from '../format/format-number';
+import { formatSignificant } from '../units/format-number';
 import { sentence } from './converter-checks';
-import { temperatureText } from './converter-units';
-import { LADDERS, readText } from '../planner/display-units';
+import { fixedTemperatureText } from '../units/unit-views';
+import { LADDERS, readText } from '../units/ladders';
 
 /** A flag shown on a candidate, with the sentence that explains it. */
 export interface CandidateFlag {
@@ -61,7 +61,7 @@ export function candidateFlags(c: TemperatureCandidate): CandidateFlag[] {
 export function applyRule(candidates: readonly TemperatureCandidate[], rule: ChoiceRule | null, unit: 'K' | 'mK' = 'K'): Choice & { problem: string | null } {
   if (rule === null) return { index: null, reason: 'no way of choosing is set', evidenceSd: candidates.map(() => null), warnings: [], problem: null };
   try {
-    return { ...chooseCandidate(candidates, rule, (T) => temperatureText(T, unit)), problem: null };
+    return { ...chooseCandidate(candidates, rule, (T) => fixedTemperatureText(T, unit)), problem: null };
   } catch (error) {
     if (error instanceof PhysicsError) return { index: null, reason: 'the rule cannot be applied', evidenceSd: candidates.map(() => null), warnings: [], problem: sentence(error.message) };
     throw error;
@@ -81,7 +81,7 @@ export function ruleTemperature(rule: ChoiceRule | null): number | null {
 
 /** Why candidate `i` was or was not chosen, in a few words, temperatures in `unit`. */
 export function choiceNote(candidates: readonly TemperatureCandidate[], i: number, rule: ChoiceRule | null, choice: Choice, unit: 'K' | 'mK' = 'K'): string {
-  const shown = (T: number) => temperatureText(T, unit);
+  const shown = (T: number) => fixedTemperatureText(T, unit);
   const c = candidates[i];
   if (!c) return '';
   if (choice.index === i) return `Chosen: ${choice.reason}.`;

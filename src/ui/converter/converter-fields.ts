@@ -6,6 +6,7 @@
 import { type Dimension, fromBaseUnit, parseQuantity, QuantityParseError, toBaseUnit, type Unit } from '../../io/quantity';
 import { TRACE_SEARCH_RANGE_S } from '../../io/trace-pick';
 import { DELAY_LIMITS, PICKER_LIMITS, PROPERTIES_RANGE_K, VAPOUR_PRESSURE_RANGE_PA } from '../../physics';
+import { plain } from '../units/format-number';
 import type { DisplayUnits, UnitKind } from '../units/unit-choices';
 
 export type ConverterFieldKey =
@@ -156,11 +157,6 @@ function inSuitableUnit(value: number, spec: FieldSpec, preferred: Unit | ''): s
   return fit ? `${plain(fit.x)} ${fit.u}` : plain(value);
 }
 
-/** A number in plain digits, at most 6 significant, with a true minus sign. */
-export function plain(x: number): string {
-  const text = Number(x.toPrecision(6)).toString();
-  return text.startsWith('-') ? `\u2212${text.slice(1)}` : text;
-}
 
 /** The text a field shows for an SI value in `unit` (empty for null). */
 export function fieldText(spec: FieldSpec, value: number | null, unit: Unit | ''): string {

@@ -13,7 +13,7 @@ export interface ExportContent {
   /** Text for the clipboard (tab-separated, pastes into a spreadsheet). */
   tsv: string;
 }
-import { csvColumn } from './converter-units';
+import { csvColumn } from '../units/unit-views';
 
 /** Columns describing one candidate, after the context columns; temperatures in the display unit. */
 function candidateColumns(temperature: DisplayUnitView<'temperature'>): string[] {

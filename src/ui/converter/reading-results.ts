@@ -15,9 +15,9 @@ import {
 } from '../../physics';
 import { applyRule } from './candidate-notes';
 import { type ChoiceKind, choiceRuleOf, convertReading, type FieldValues, sentence } from './converter-checks';
-import { plain } from './converter-fields';
+import { plain } from '../units/format-number';
 import type { DistancePoints } from './converter-slice';
-import { type ConverterUnits, csvColumn, inUnit, temperatureText } from './converter-units';
+import { type UnitViews, csvColumn, inViewUnit, fixedTemperatureText } from '../units/unit-views';
 import { type CandidateTable, candidateTable } from './export-text';
 
 export type Derived<T> = { ok: true; value: T } | { ok: false; message: string };
@@ -61,16 +61,16 @@ export function sweepCalibration(points: readonly { x: number; delay_s: number }
 }
 
 /** The export table of one delay: the reading, then one row per candidate; lengths, times and temperatures in the display units. */
-export function singleReadingTable(values: FieldValues, conversion: DelayConversion, chosen: Chosen, units: ConverterUnits): CandidateTable {
+export function singleReadingTable(values: FieldValues, conversion: DelayConversion, chosen: Chosen, units: UnitViews): CandidateTable {
   const { length, time } = units;
   return candidateTable(
     [
-      [csvColumn('distance', length), inUnit(values.distance, length)],
-      [csvColumn('distance_sd', length), inUnit(values.distanceSd, length)],
-      [csvColumn('delay', time), inUnit(values.delay, time)],
-      [csvColumn('delay_sd', time), inUnit(values.delaySd, time)],
-      [csvColumn('offset', time), inUnit(values.offset, time)],
-      [csvColumn('offset_sd', time), inUnit(values.offsetSd, time)],
+      [csvColumn('distance', length), inViewUnit(values.distance, length)],
+      [csvColumn('distance_sd', length), inViewUnit(values.distanceSd, length)],
+      [csvColumn('delay', time), inViewUnit(values.delay, time)],
+      [csvColumn('delay_sd', time), inViewUnit(values.delaySd, time)],
+      [csvColumn('offset', time), inViewUnit(values.offset, time)],
+      [csvColumn('offset_sd', time), inViewUnit(values.offsetSd, time)],
       ['speed_m_s', conversion.speed_m_s],
       ['speed_sd_m_s', conversion.speedSd_m_s],
       ['rule', ruleWords(chosen.rule, units)],
@@ -82,7 +82,7 @@ export function singleReadingTable(values: FieldValues, conversion: DelayConvers
 }
 
 /** The export table of a distance fit; the offset and temperatures in the display units. */
-export function distanceFitTable(fit: DistanceFit, chosen: Chosen, units: ConverterUnits): CandidateTable {
+export function distanceFitTable(fit: DistanceFit, chosen: Chosen, units: UnitViews): CandidateTable {
   const { time } = units;
   return candidateTable(
     [
@@ -103,9 +103,9 @@ export function distanceFitTable(fit: DistanceFit, chosen: Chosen, units: Conver
 }
 
 /** The rule in words for an export cell, in the display units: "vapour pressure 1638.2 Pa", "near 1.8000 K", "range 1700.0–2100.0 mK", "". */
-export function ruleWords(rule: ChoiceRule | null, units: Pick<ConverterUnits, 'temperature' | 'pressure'>): string {
+export function ruleWords(rule: ChoiceRule | null, units: Pick<UnitViews, 'temperature' | 'pressure'>): string {
   if (rule === null) return '';
-  const t = (T_K: number) => temperatureText(T_K, units.temperature.unit);
+  const t = (T_K: number) => fixedTemperatureText(T_K, units.temperature.unit);
   if (rule.kind === 'pressure') return `vapour pressure ${plain(units.pressure.fromSi(rule.pressure_Pa))} ${units.pressure.shown}`;
   if (rule.kind === 'near') return `near ${t(rule.temperature_K)}`;
   return `range ${t(rule.min_K)}–${t(rule.max_K)}`;

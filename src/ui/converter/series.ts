@@ -22,7 +22,7 @@ import {
 } from '../../physics';
 import { candidateFlags } from './candidate-notes';
 import { sentence } from './converter-checks';
-import { type ConverterUnits, csvColumn, inUnit } from './converter-units';
+import { type UnitViews, csvColumn, inViewUnit } from '../units/unit-views';
 
 export interface Timestamp {
   text: string;
@@ -167,7 +167,7 @@ export function noteWords(c: TemperatureCandidate): string {
 const MAX_CANDIDATES = 3;
 
 /** The series as a table: one row per file in series order; numbers in full precision, in the display units. */
-export function seriesTable(rows: readonly SeriesRow[], units: ConverterUnits): { header: string[]; rows: CsvCell[][] } {
+export function seriesTable(rows: readonly SeriesRow[], units: UnitViews): { header: string[]; rows: CsvCell[][] } {
   const { temperature, time, pressure } = units;
   const header = [
     'order',
@@ -199,32 +199,32 @@ export function seriesTable(rows: readonly SeriesRow[], units: ConverterUnits): 
       k + 1,
       r.file.name,
       r.timestamp?.text ?? '',
-      inUnit(r.pressure_Pa, pressure),
+      inViewUnit(r.pressure_Pa, pressure),
       r.pick?.sensor ?? '',
       r.pick?.heater ?? '',
       r.pick?.picker ?? '',
-      inUnit(r.pick?.delay_s, time),
-      inUnit(r.pick?.delaySd_s, time),
+      inViewUnit(r.pick?.delay_s, time),
+      inViewUnit(r.pick?.delaySd_s, time),
       r.pick?.snr,
       r.conversion?.speed_m_s,
       r.conversion?.speedSd_m_s,
       r.conversion ? r.conversion.candidates.length : null,
       r.chosen === null ? null : r.chosen + 1,
       r.chosenBy ?? '',
-      inUnit(c?.temperature_K, temperature),
-      inUnit(c?.sd_K, temperature),
-      inUnit(c?.sdMeasurement_K, temperature),
-      inUnit(c?.sdCurve_K, temperature),
-      inUnit(c?.interval68_K[0], temperature),
-      inUnit(c?.interval68_K[1], temperature),
-      inUnit(c?.interval95_K[0], temperature),
-      inUnit(c?.interval95_K[1], temperature),
+      inViewUnit(c?.temperature_K, temperature),
+      inViewUnit(c?.sd_K, temperature),
+      inViewUnit(c?.sdMeasurement_K, temperature),
+      inViewUnit(c?.sdCurve_K, temperature),
+      inViewUnit(c?.interval68_K[0], temperature),
+      inViewUnit(c?.interval68_K[1], temperature),
+      inViewUnit(c?.interval95_K[0], temperature),
+      inViewUnit(c?.interval95_K[1], temperature),
       r.ambiguous ? `${r.ambiguous.alternatives[0] + 1} ${r.ambiguous.alternatives[1] + 1}` : '',
       r.ambiguous ? r.ambiguous.guess + 1 : null,
     ];
     for (let i = 0; i < MAX_CANDIDATES; i++) {
       const x = r.conversion?.candidates[i];
-      cells.push(inUnit(x?.temperature_K, temperature), inUnit(x?.sd_K, temperature), x?.branch, x ? noteWords(x) : undefined);
+      cells.push(inViewUnit(x?.temperature_K, temperature), inViewUnit(x?.sd_K, temperature), x?.branch, x ? noteWords(x) : undefined);
     }
     cells.push(r.problem ?? '');
     return cells;

@@ -5,7 +5,7 @@
  */
 import { type Dimension, fromBaseUnit, parseQuantity, QuantityParseError, type Unit } from '../../io/quantity';
 import { DELAY_LIMITS } from '../../physics';
-import { plain } from './converter-fields';
+import { plain } from '../units/format-number';
 import type { DistancePoints } from './converter-slice';
 
 export type TableRead<T> = { ok: true; value: T } | { ok: false; message: string };

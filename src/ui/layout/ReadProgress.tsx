@@ -1,5 +1,5 @@
 import { useId } from 'react';
-import { formatSignificant } from '../format/format-number';
+import { formatSignificant } from '../units/format-number';
 
 /** A file size for people: "290 KiB", "1.5 MiB". */
 export function fileSize(bytes: number): string {

@@ -1,5 +1,5 @@
 import { type ReactNode, useId } from 'react';
-import { formatSignificant } from '../format/format-number';
+import { formatSignificant } from '../units/format-number';
 import { HelpLabel, type HelpTopic, useFieldHelp } from '../help/FieldHelp';
 import { useSekundoStore } from '../store';
 import { useDisplayUnit } from '../units/use-display-unit';

@@ -1,6 +1,6 @@
 import { useDeferredValue, useId, useMemo } from 'react';
 import type { Vec3 } from '../../physics';
-import { formatSignificant } from '../format/format-number';
+import { formatSignificant } from '../units/format-number';
 import { useFieldHelp } from '../help/FieldHelp';
 import { PanelErrorBoundary } from '../layout/PanelErrorBoundary';
 import { PlotlyChart } from '../plot/PlotlyChart';

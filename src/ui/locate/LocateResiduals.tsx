@@ -1,7 +1,7 @@
 import type { SensorStatus } from '../../io/locate-csv';
 import { usePagedRows } from '../layout/TablePager';
 import { CsvExportButton } from '../export/CsvExportButton';
-import { formatFixed, formatSignificant } from '../format/format-number';
+import { formatFixed, formatSignificant } from '../units/format-number';
 import { useSekundoStore } from '../store';
 import { useDisplayUnit } from '../units/use-display-unit';
 import { useLocateOutcome } from './use-locate';

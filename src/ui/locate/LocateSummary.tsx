@@ -1,6 +1,6 @@
 import { CsvExportButton } from '../export/CsvExportButton';
-import { formatMeasured } from '../format/format-measured';
-import { formatSignificant } from '../format/format-number';
+import { formatMeasured } from '../units/format-measured';
+import { formatSignificant } from '../units/format-number';
 import { useSekundoStore } from '../store';
 import { useDisplayUnit } from '../units/use-display-unit';
 import { AXIS_NAMES } from './locate-inputs';

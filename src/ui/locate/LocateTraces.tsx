@@ -5,7 +5,7 @@ import { DropZone } from '../converter/DropZone';
 import { PICKER_LABELS } from '../converter/trace/trace-pick-options';
 import type { PickState } from '../converter/trace/trace-picks';
 import { useTraceSamples } from '../converter/trace/trace-picks';
-import { formatSignificant } from '../format/format-number';
+import { formatSignificant } from '../units/format-number';
 import { HelpColumnHead, HelpLabel, type HelpTopic, useFieldHelp } from '../help/FieldHelp';
 import { PanelErrorBoundary } from '../layout/PanelErrorBoundary';
 import { fileSize, ReadProgress } from '../layout/ReadProgress';

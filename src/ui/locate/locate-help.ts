@@ -5,7 +5,7 @@
  */
 import { LOCATE_ARRIVAL_RANGE_S, LOCATE_ARRIVAL_SD_RANGE_S, LOCATE_LABEL_MAX, LOCATE_MAX_SENSORS, LOCATE_POSITION_RANGE_M } from '../../io/locate-csv';
 import { MIN_BASELINE_SAMPLES, MODEL_MIN_K, SECOND_SOUND_EXTREMA, secondSound, T_LAMBDA_K } from '../../physics';
-import { plain } from '../converter/converter-fields';
+import { plain } from '../units/format-number';
 import { FIELD_SPECS } from '../converter/converter-fields';
 import { TRACE_FILE_LIMIT_BYTES } from '../converter/trace/trace-protocol';
 import type { HelpTopic } from '../help/FieldHelp';

@@ -8,7 +8,7 @@
 import type { TracePick } from '../../io/trace-pick';
 import { axis, baseLayout, CHART_COLOURS } from '../charts/chart-theme';
 import { decimateMinMax } from '../converter/decimate';
-import { formatSignificant } from '../format/format-number';
+import { formatSignificant } from '../units/format-number';
 import type { TraceSamples } from '../converter/trace/trace-protocol';
 import type { PlotLayout, PlotShape, PlotTrace } from '../plot/plotly-types';
 

@@ -8,7 +8,7 @@ import type { PickerKind } from '../../physics';
 import { FIELD_SPECS } from '../converter/converter-fields';
 import type { Polarity } from '../converter/converter-slice';
 // Types only: the store imports this file, and must not start the trace worker's module.
-import { plain } from '../converter/converter-fields';
+import { plain } from '../units/format-number';
 import type { PickState } from '../converter/trace/trace-picks';
 import type { LocateRowInput } from './locate-inputs';
 

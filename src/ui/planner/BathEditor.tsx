@@ -1,8 +1,8 @@
 import { type PlanFile, planBath } from '../../io/plan-file';
 import { vapourPressure } from '../../physics';
-import { formatSignificant } from '../format/format-number';
+import { formatSignificant } from '../units/format-number';
 import { useSekundoStore } from '../store';
-import { formatKelvin } from '../temperature/temperature-units';
+import { formatKelvin } from '../units/temperature-text';
 import { ChoiceGroup, EditorCard } from './EditorCard';
 import { PlanFieldMessage, PlanNumberField } from './PlanField';
 import { type BathMode, bathMode, setBathMode } from './plan-edits';

@@ -1,8 +1,8 @@
 import type { HeaterPlanResult } from '../../physics';
-import { formatSignificant } from '../format/format-number';
-import { LADDERS, type Ladder, readText, temperatureText } from './display-units';
+import { formatSignificant } from '../units/format-number';
+import { LADDERS, type Ladder, readText, temperatureText } from '../units/ladders';
 import { usePlanOutcome } from './use-plan';
-import { useShownLadders } from './use-shown-ladders';
+import { useShownLadders } from '../units/use-shown-ladders';
 
 /** What the heater does: flux, energy, power into the bath, the wave it launches and where it would shock. */
 export function HeaterSummary() {

@@ -7,7 +7,7 @@ import { PlanFieldMessage, PlanNumberField } from './PlanField';
 import { addPulsePoint, customPoints, parsePastedPoints, removePulsePoint, setPulsePoints, setShape, type ShapeKind, shapeKind } from './plan-edits';
 import { fieldRangeText, HEATER_FIELDS, pulsePointField } from './plan-fields';
 import { PLAN_OTHER_HELP, planNumberHelp } from './planner-help';
-import { inputText, KINDS, shownLadder } from './display-units';
+import { inputText, KINDS, shownLadder } from '../units/ladders';
 import { RemoveIcon } from './RowIcons';
 
 const SHAPES = [

@@ -5,11 +5,11 @@ import { PlotlyChart } from '../plot/PlotlyChart';
 import { HelpLabel, useFieldHelp } from '../help/FieldHelp';
 import { useSekundoStore } from '../store';
 import { PLAN_OTHER_HELP } from './planner-help';
-import { type DisplayUnit, LADDERS, readText, temperatureText } from './display-units';
+import { type DisplayUnit, LADDERS, readText, temperatureText } from '../units/ladders';
 import { MAP_DISTANCE_RANGE_M, type MapSensor, mapFigure, mapGrid, onMap, spreadAt } from './resolution-map';
 import { markMapStart, reportDrawn } from './recompute-timer';
 import { usePlanOutcome } from './use-plan';
-import { useShownLadders } from './use-shown-ladders';
+import { useShownLadders } from '../units/use-shown-ladders';
 
 export const MAP_CHART_ID = 'planner-resolution-map';
 

@@ -1,14 +1,14 @@
 import type { ReactNode } from 'react';
 import type { SensorPlanResult } from '../../physics';
-import { formatSignificant } from '../format/format-number';
-import { type DisplayUnit, inUnit, LADDERS, type ShownLadders, temperatureText, unitForColumn } from './display-units';
+import { formatSignificant } from '../units/format-number';
+import { type DisplayUnit, inUnit, LADDERS, type ShownLadders, temperatureText, unitForColumn } from '../units/ladders';
 import { CsvExportButton } from '../export/CsvExportButton';
 import { themedColour } from '../plot/plot-theme';
 import { useResolvedTheme } from '../theme/use-theme';
 import { sensorColour } from './planner-colours';
 import { resultsCsv } from './results-csv';
 import { usePlanOutcome } from './use-plan';
-import { useShownLadders } from './use-shown-ladders';
+import { useShownLadders } from '../units/use-shown-ladders';
 
 interface Column {
   key: string;

@@ -7,10 +7,10 @@ import type { TimelineView } from '../store/planner-slice';
 import { useResolvedTheme } from '../theme/use-theme';
 import { PLANNER_COLOURS } from './planner-colours';
 import { reportDrawn } from './recompute-timer';
-import { type DisplayUnit, inUnit } from './display-units';
+import { type DisplayUnit, inUnit } from '../units/ladders';
 import { formatTime, type TimelineKeyEntry, timelineFigure } from './timeline-figure';
 import { usePlanOutcome } from './use-plan';
-import { useShownLadders } from './use-shown-ladders';
+import { useShownLadders } from '../units/use-shown-ladders';
 import { useElementWidth } from '../layout/use-element-width';
 
 /** Chart id of the timeline (tests read the drawn figure from the element with this data-chart). */

@@ -1,7 +1,7 @@
 import type { PlanWarning } from '../../physics';
 import { CsvExportButton } from '../export/CsvExportButton';
 import { usePlanOutcome } from './use-plan';
-import { useShownLadders } from './use-shown-ladders';
+import { useShownLadders } from '../units/use-shown-ladders';
 import { warningFigures, warningsCsv } from './warning-figures';
 
 const SEVERITY_ORDER: Record<PlanWarning['severity'], number> = { stop: 0, caution: 1, info: 2 };

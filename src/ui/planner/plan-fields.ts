@@ -15,7 +15,7 @@ import {
   vapourPressure,
 } from '../../physics';
 import type { DisplayUnits } from '../units/unit-choices';
-import { inputText, KINDS, plainNumber, type QuantityKind, rangeText, shownLadder, unitFor } from './display-units';
+import { inputText, KINDS, plainNumber, type QuantityKind, rangeText, shownLadder, unitFor } from '../units/ladders';
 
 export type Range = readonly [number, number];
 

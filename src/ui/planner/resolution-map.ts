@@ -14,7 +14,7 @@
 import { SECOND_SOUND_EXTREMA, secondSound, secondSoundSlope, T_LAMBDA_K, temperatureSpread } from '../../physics';
 import { axis, baseLayout, CHART_COLOURS } from '../charts/chart-theme';
 import type { PlotAnnotation, PlotLayout, PlotShape, PlotTrace } from '../plot/plotly-types';
-import { type DisplayUnit, inUnit, LADDERS, messageText, plainNumber, readText, temperatureText } from './display-units';
+import { type DisplayUnit, inUnit, LADDERS, messageText, plainNumber, readText, temperatureText } from '../units/ladders';
 import { bandColours, PLANNER_COLOURS } from './planner-colours';
 
 /** Temperatures shown, K: from where second sound is a measured wave well into He II, up to just below Tλ. */

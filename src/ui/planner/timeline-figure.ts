@@ -8,7 +8,7 @@ import { axis, baseLayout, CHART_COLOURS } from '../charts/chart-theme';
 import type { PlotAnnotation, PlotLayout, PlotShape, PlotTrace } from '../plot/plotly-types';
 import type { TimelineView } from '../store/planner-slice';
 import { decimateSegments } from './decimate';
-import { type DisplayUnit, inUnit, LADDERS, unitForColumn } from './display-units';
+import { type DisplayUnit, inUnit, LADDERS, unitForColumn } from '../units/ladders';
 import { PLANNER_COLOURS, sensorColour } from './planner-colours';
 
 /** The time axis before a unit is chosen. */

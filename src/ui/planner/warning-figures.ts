@@ -5,8 +5,8 @@
  */
 import type { PlanWarning, WarningCode } from '../../physics';
 import type { CsvTableData } from '../export/csv-export';
-import { formatSignificant } from '../format/format-number';
-import { LADDERS, readText, type ShownLadders, temperatureText } from './display-units';
+import { formatSignificant } from '../units/format-number';
+import { LADDERS, readText, type ShownLadders, temperatureText } from '../units/ladders';
 
 interface FigureSpec {
   /** What the value is, e.g. "shock distance". */
@@ -70,6 +70,7 @@ const SI_UNIT: Record<keyof ShownLadders, string> = {
   responsivity: 'V/K',
   power: 'W',
   heatFlux: 'W/m2',
+  speed: 'm/s',
 };
 
 /** The SI unit of a warning's value and limit ("" for a plain number such as an SNR). */

@@ -1,6 +1,6 @@
 import type { HeliumProperties } from '../../physics';
-import { formatMeasured } from '../format/format-measured';
-import { formatSignificant } from '../format/format-number';
+import { formatMeasured } from '../units/format-measured';
+import { formatSignificant } from '../units/format-number';
 
 interface KeyFigureProps {
   label: string;

@@ -4,7 +4,7 @@ import type { CsvTableData } from '../export/csv-export';
 import { useFieldHelp } from '../help/FieldHelp';
 import { useHeliumProperties, useSekundoStore } from '../store';
 import { TEMPERATURE_HELP } from '../temperature/temperature-help';
-import { formatTemperature } from '../temperature/temperature-units';
+import { formatTemperature } from '../units/temperature-text';
 import { fromSi } from '../units/unit-choices';
 import { useDisplayUnit } from '../units/use-display-unit';
 import { absentReasonOf, type PropertyUnits, propertyUnit, propertyValue } from './property-display';

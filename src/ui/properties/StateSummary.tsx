@@ -1,8 +1,8 @@
 import { type HeliumProperties, ITS90_RANGE_K, T_LAMBDA_K } from '../../physics';
 import { INSENSITIVE_SLOPE_M_S_K } from '../charts/curves';
-import { formatSignificant } from '../format/format-number';
+import { formatSignificant } from '../units/format-number';
 import { useHeliumProperties } from '../store';
-import { formatMillikelvin } from '../temperature/temperature-units';
+import { formatMillikelvin } from '../units/temperature-text';
 import { KeyFigures } from './KeyFigures';
 import { CRITICAL_REGION_UK, MODEL_REGION_TEXT } from './regions';
 

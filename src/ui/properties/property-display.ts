@@ -7,8 +7,8 @@ import {
   type PropertyInfo,
   type PropertyKey,
 } from '../../physics';
-import { formatMeasured, formatSd } from '../format/format-measured';
-import { DISPLAY_SIGNIFICANT_DIGITS, formatSignificant, UNCERTAINTY_SIGNIFICANT_DIGITS } from '../format/format-number';
+import { formatMeasured, formatSd } from '../units/format-measured';
+import { DISPLAY_SIGNIFICANT_DIGITS, formatSignificant, UNCERTAINTY_SIGNIFICANT_DIGITS } from '../units/format-number';
 import { fromSi, shownUnit } from '../units/unit-choices';
 
 /** Display units the table uses: properties in these kinds are shown in the chosen unit. */

@@ -1,5 +1,5 @@
 import { PROPERTIES_RANGE_K, SECOND_SOUND_CRITICAL_JOIN_K, SECOND_SOUND_MEASURED_MIN_K, T_LAMBDA_K } from '../../physics';
-import { formatFixed } from '../format/format-number';
+import { formatFixed } from '../units/format-number';
 
 const MICROKELVIN_PER_KELVIN = 1e6;
 

@@ -1,5 +1,6 @@
 import { create } from 'zustand';
 import { createConverterSlice } from '../converter/converter-slice';
+import { createFieldsSlice } from '../fields/fields-slice';
 import { createLocateSlice } from './locate-slice';
 import { createPlannerSlice } from './planner-slice';
 import { createPreferencesSlice } from './preferences-slice';
@@ -15,6 +16,7 @@ export const useSekundoStore = create<SekundoState>()((...args) => ({
   ...createConverterSlice(...args),
   ...createLocateSlice(...args),
   ...createPreferencesSlice(...args),
+  ...createFieldsSlice(...args),
 }));
 
 /** Puts every slice back to its initial state (tests, "start over"). */

@@ -1,4 +1,5 @@
 import type { ConverterSlice } from '../converter/converter-slice';
+import type { FieldsSlice } from '../fields/fields-slice';
 import type { LocateSlice } from './locate-slice';
 import type { PlannerSlice } from './planner-slice';
 import type { PreferencesSlice } from './preferences-slice';
@@ -6,4 +7,4 @@ import type { TemperatureSlice } from './temperature-slice';
 import type { ViewSlice } from './view-slice';
 
 /** The whole store: inputs only. Results are derived from them with kernel calls. */
-export type SekundoState = TemperatureSlice & ViewSlice & PlannerSlice & ConverterSlice & LocateSlice & PreferencesSlice;
+export type SekundoState = TemperatureSlice & ViewSlice & PlannerSlice & ConverterSlice & LocateSlice & PreferencesSlice & FieldsSlice;

@@ -1,5 +1,5 @@
 import type { StateCreator } from 'zustand';
-import { checkTemperature, formatTemperature, parseTemperature, type TemperatureParse } from '../temperature/temperature-units';
+import { checkTemperature, formatTemperature, parseTemperature, type TemperatureParse } from '../units/temperature-text';
 import type { SekundoState } from './state';
 
 /** Temperature the explorer shows when it opens, K: a typical He II working point. */

@@ -5,7 +5,7 @@ import { TemperaturePresets } from './TemperaturePresets';
 import { TemperatureSlider } from './TemperatureSlider';
 import { TEMPERATURE_HELP } from './temperature-help';
 import { useDisplayUnit } from '../units/use-display-unit';
-import { formatTemperature, otherTemperatureUnit } from './temperature-units';
+import { formatTemperature, otherTemperatureUnit } from '../units/temperature-text';
 
 /** The chosen temperature: readout, typed field, slider and quick picks. */
 export function TemperatureControl() {

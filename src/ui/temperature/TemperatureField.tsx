@@ -2,7 +2,7 @@ import type { FormEvent } from 'react';
 import { describedBy, HelpLabel, useFieldHelp } from '../help/FieldHelp';
 import { useSekundoStore } from '../store';
 import { TEMPERATURE_HELP } from './temperature-help';
-import { TEMPERATURE_RANGE_TEXT } from './temperature-units';
+import { TEMPERATURE_RANGE_TEXT } from '../units/temperature-text';
 
 const INPUT_ID = 'temperature-input';
 const HINT_ID = 'temperature-hint';

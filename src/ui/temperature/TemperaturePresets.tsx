@@ -1,6 +1,6 @@
 import { T_LAMBDA_K } from '../../physics';
 import { propertyCurves, secondSoundExtremes } from '../charts/curves';
-import { formatFixed } from '../format/format-number';
+import { formatFixed } from '../units/format-number';
 import { useFieldHelp } from '../help/FieldHelp';
 import { useSekundoStore } from '../store';
 import { useDisplayUnit } from '../units/use-display-unit';

@@ -3,7 +3,7 @@ import { PROPERTIES_RANGE_K, T_LAMBDA_K } from '../../physics';
 import { HelpLabel, type HelpTopic, useFieldHelp } from '../help/FieldHelp';
 import { useSekundoStore } from '../store';
 import { useDisplayUnit } from '../units/use-display-unit';
-import { formatTemperature, otherTemperatureUnit } from './temperature-units';
+import { formatTemperature, otherTemperatureUnit } from '../units/temperature-text';
 
 /** Slider step, K: 10 mK per arrow key; the typed field reaches any value in between. */
 export const SLIDER_STEP_K = 0.01;

@@ -1,6 +1,6 @@
 import { useMemo } from 'react';
-import { formatSignificant } from '../format/format-number';
-import { formatMeasured, type MeasuredText } from '../format/format-measured';
+import { formatSignificant } from './format-number';
+import { formatMeasured, type MeasuredText } from './format-measured';
 import { useSekundoStore } from '../store';
 import { type DisplayUnitOf, fromSi, shownUnit, toSi, type UnitKind } from './unit-choices';
 

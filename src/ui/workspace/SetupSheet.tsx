@@ -2,10 +2,10 @@ import { useEffect, useRef } from 'react';
 import { createPortal, flushSync } from 'react-dom';
 import type { PlanFile } from '../../io/plan-file';
 import type { PlanResult, SensorPlanResult } from '../../physics';
-import { formatSignificant } from '../format/format-number';
+import { formatSignificant } from '../units/format-number';
 import { derivePlan } from '../planner/derive-plan';
-import { type Ladder, LADDERS, readText, type ShownLadders, temperatureText } from '../planner/display-units';
-import { useShownLadders } from '../planner/use-shown-ladders';
+import { type Ladder, LADDERS, readText, type ShownLadders, temperatureText } from '../units/ladders';
+import { useShownLadders } from '../units/use-shown-ladders';
 import { useSekundoStore } from '../store';
 import { useWorkspaceStore } from './workspace-store';
 

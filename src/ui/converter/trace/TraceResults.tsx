@@ -4,7 +4,7 @@ import type { TracePick } from '../../../io/trace-pick';
 import type { ChoiceRule } from '../../../physics';
 import { ChartFigure } from '../../charts/ChartFigure';
 import { CHART_COLOURS } from '../../charts/chart-theme';
-import { formatSignificant } from '../../format/format-number';
+import { formatSignificant } from '../../units/format-number';
 import { PanelErrorBoundary } from '../../layout/PanelErrorBoundary';
 import { useElementWidth } from '../../layout/use-element-width';
 import { PlotlyChart } from '../../plot/PlotlyChart';
@@ -15,7 +15,7 @@ import { ACROSS_TRACE, ALONG_TRACE, temperatureSeriesLayout } from '../batch-res
 import { applyRule } from '../candidate-notes';
 import { choiceRuleOf, type FieldValues } from '../converter-checks';
 import type { TraceFileEntry } from '../converter-slice';
-import { type ConverterUnits, csvColumn, currentConverterUnits, inUnit, temperatureOnY, temperatureText, useConverterUnits } from '../converter-units';
+import { type UnitViews, csvColumn, currentUnitViews, inViewUnit, temperatureOnY, fixedTemperatureText, useUnitViews } from '../../units/unit-views';
 import { ConversionResult } from '../ConversionResult';
 import { candidateTable, tableExport } from '../export-text';
 import type { Chosen } from '../reading-results';
@@ -91,7 +91,7 @@ function rowChosen(row: SeriesRow, unit: 'K' | 'mK'): Chosen {
   const candidates = row.conversion?.candidates ?? [];
   const choice = applyRule(candidates, row.rule, unit);
   if (row.chosenBy === 'continuity' && row.rule?.kind === 'near') {
-    return { rule: row.rule, choice: { ...choice, reason: `nearest to the file before (${temperatureText(row.rule.temperature_K, unit)})` } };
+    return { rule: row.rule, choice: { ...choice, reason: `nearest to the file before (${fixedTemperatureText(row.rule.temperature_K, unit)})` } };
   }
   if (row.chosenBy === 'vapour pressure in the file') return { rule: row.rule, choice: { ...choice, reason: `${choice.reason}, from the file’s own header` } };
   return { rule: row.rule, choice };
@@ -121,7 +121,7 @@ function SelectedTrace({ file, pick, row }: { file: TraceFileEntry; pick: PickSt
   const options = useTracePickOptions();
   const values = useFieldValues();
   const samples = useTraceSamples(file.id);
-  const units = useConverterUnits();
+  const units = useUnitViews();
   const timeUnit = units.time.unit;
   const [plotRef, width] = useElementWidth<HTMLDivElement>(900);
   const picked = pick?.status === 'picked' ? pick.pick : null;
@@ -146,7 +146,7 @@ function SelectedTrace({ file, pick, row }: { file: TraceFileEntry; pick: PickSt
   const exportContent = () => {
     if (!row?.conversion || !row.pick) return null;
     const p = row.pick;
-    const now = currentConverterUnits();
+    const now = currentUnitViews();
     const { length, time } = now;
     const table = candidateTable(
       [
@@ -158,10 +158,10 @@ function SelectedTrace({ file, pick, row }: { file: TraceFileEntry; pick: PickSt
         [csvColumn('delay', time), time.fromSi(p.delay_s)],
         [csvColumn('delay_sd', time), time.fromSi(p.delaySd_s)],
         ['snr', p.snr],
-        [csvColumn('distance', length), inUnit(values.distance, length)],
-        [csvColumn('distance_sd', length), inUnit(values.distanceSd, length)],
-        [csvColumn('offset', time), inUnit(values.offset, time)],
-        [csvColumn('offset_sd', time), inUnit(values.offsetSd, time)],
+        [csvColumn('distance', length), inViewUnit(values.distance, length)],
+        [csvColumn('distance_sd', length), inViewUnit(values.distanceSd, length)],
+        [csvColumn('offset', time), inViewUnit(values.offset, time)],
+        [csvColumn('offset_sd', time), inViewUnit(values.offsetSd, time)],
         ['speed_m_s', row.conversion.speed_m_s],
         ['speed_sd_m_s', row.conversion.speedSd_m_s],
       ],
@@ -233,7 +233,7 @@ function SelectedTrace({ file, pick, row }: { file: TraceFileEntry; pick: PickSt
 }
 
 /** The pick: delay and time zero in the display unit of time, each rounded with its sd. */
-function PickSummary({ pick, time }: { pick: PickState | undefined; time: ConverterUnits['time'] }) {
+function PickSummary({ pick, time }: { pick: PickState | undefined; time: UnitViews['time'] }) {
   if (!pick || pick.status === 'picking') {
     return (
       <p className="pick-summary muted" role="status">
@@ -297,13 +297,13 @@ function PickSummary({ pick, time }: { pick: PickState | undefined; time: Conver
 }
 
 function seriesExport(rows: readonly SeriesRow[]) {
-  return () => tableExport('sekundo-trace-series.csv', seriesTable(rows, currentConverterUnits()));
+  return () => tableExport('sekundo-trace-series.csv', seriesTable(rows, currentUnitViews()));
 }
 
 function SeriesCard({ rows, by }: { rows: readonly SeriesRow[]; by: 'timestamp' | 'name' }) {
   const headingId = useId();
   const select = useSekundoStore((s) => s.selectConverterTrace);
-  const units = useConverterUnits();
+  const units = useUnitViews();
   const { temperature, time } = units;
   const figure = useMemo(() => temperatureOnY(seriesFigure(rows, by), temperature.unit), [rows, by, temperature.unit]);
   const decided = rows.filter((r) => chosenOf(r) !== undefined).length;

@@ -8,7 +8,7 @@ import { axis, baseLayout, CHART_COLOURS } from '../../charts/chart-theme';
 import { fromBaseUnit } from '../../../io/quantity';
 import type { PlotLayout, PlotShape, PlotTrace } from '../../plot/plotly-types';
 import { shownUnit } from '../../units/unit-choices';
-import { TIME_DECIMALS } from '../converter-units';
+import { TIME_DECIMALS } from '../../units/unit-views';
 import { decimateMinMax } from '../decimate';
 import type { TraceSamples } from './trace-protocol';
 

@@ -1,6 +1,6 @@
 import { useMemo } from 'react';
 import { useSekundoStore } from '../store';
-import { chosenLadders, type ShownLadders } from './display-units';
+import { chosenLadders, type ShownLadders } from './ladders';
 
 /** The planner's display ladders with the header's chosen units (see chosenLadders). */
 export function useShownLadders(): ShownLadders {

@@ -60,3 +60,9 @@ export function superscript(n: number): string {
     .map((c) => SUPERSCRIPT[c] ?? c)
     .join('');
 }
+
+/** A number in plain digits, at most 6 significant, with a true minus sign (limits and ranges in messages). */
+export function plain(x: number): string {
+  const text = Number(x.toPrecision(6)).toString();
+  return text.startsWith('-') ? `\u2212${text.slice(1)}` : text;
+}

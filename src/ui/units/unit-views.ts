@@ -7,15 +7,15 @@
  */
 import { columnWithUnit } from '../../io/csv-common';
 import { fromBaseUnit, type Unit } from '../../io/quantity';
-import { formatFixed } from '../format/format-number';
+import { formatFixed } from './format-number';
 import type { PlotLayout, PlotTrace } from '../plot/plotly-types';
-import { plain } from './converter-fields';
+import { plain } from './format-number';
 import { useSekundoStore } from '../store';
-import type { DisplayUnits } from '../units/unit-choices';
-import { type DisplayUnitView, displayUnitView, useDisplayUnit } from '../units/use-display-unit';
+import type { DisplayUnits } from './unit-choices';
+import { type DisplayUnitView, displayUnitView, useDisplayUnit } from './use-display-unit';
 
 /** The display units the converter shows: one view per kind. */
-export interface ConverterUnits {
+export interface UnitViews {
   temperature: DisplayUnitView<'temperature'>;
   length: DisplayUnitView<'length'>;
   time: DisplayUnitView<'time'>;
@@ -23,7 +23,7 @@ export interface ConverterUnits {
 }
 
 /** The views of a set of display units (exports read the store at click time). */
-export function converterUnitsOf(units: Pick<DisplayUnits, keyof ConverterUnits>): ConverterUnits {
+export function unitViewsOf(units: Pick<DisplayUnits, keyof UnitViews>): UnitViews {
   return {
     temperature: displayUnitView(units.temperature),
     length: displayUnitView(units.length),
@@ -33,12 +33,12 @@ export function converterUnitsOf(units: Pick<DisplayUnits, keyof ConverterUnits>
 }
 
 /** The display units now, outside React (exports built at click time). */
-export function currentConverterUnits(): ConverterUnits {
-  return converterUnitsOf(useSekundoStore.getState().displayUnits);
+export function currentUnitViews(): UnitViews {
+  return unitViewsOf(useSekundoStore.getState().displayUnits);
 }
 
 /** The header's display units for the converter's results. */
-export function useConverterUnits(): ConverterUnits {
+export function useUnitViews(): UnitViews {
   const temperature = useDisplayUnit('temperature');
   const length = useDisplayUnit('length');
   const time = useDisplayUnit('time');
@@ -52,7 +52,7 @@ export function csvColumn(base: string, view: { unit: Unit }): string {
 }
 
 /** An SI value (or none) in a display unit, for a CSV cell. */
-export function inUnit<V extends number | null | undefined>(value: V, view: { fromSi: (v: number) => number }): number | Exclude<V, number> {
+export function inViewUnit<V extends number | null | undefined>(value: V, view: { fromSi: (v: number) => number }): number | Exclude<V, number> {
   return (typeof value === 'number' ? view.fromSi(value) : value) as number | Exclude<V, number>;
 }
 
@@ -60,7 +60,7 @@ export function inUnit<V extends number | null | undefined>(value: V, view: { fr
  * A temperature that is no measurement (the one a rule points at, a range end, a difference), to
  * 0.1 mK as the kernel's own reasons give it: "1.8000 K", "1800.0 mK".
  */
-export function temperatureText(T_K: number, unit: 'K' | 'mK'): string {
+export function fixedTemperatureText(T_K: number, unit: 'K' | 'mK'): string {
   return unit === 'mK' ? `${formatFixed(T_K * 1e3, 1)} mK` : `${formatFixed(T_K, 4)} K`;
 }
 

@@ -10,8 +10,8 @@
  * Conversion uses src/io/quantity.ts, so what is shown can be typed back unchanged.
  */
 import { type Dimension, fromBaseUnit, type Unit } from '../../io/quantity';
-import { formatSignificant } from '../format/format-number';
-import { type DisplayUnits, shownUnit, type UnitKind } from '../units/unit-choices';
+import { formatSignificant } from './format-number';
+import { type DisplayUnits, shownUnit, type UnitKind } from './unit-choices';
 
 /** A unit as shown (µ and ², which the parser also accepts) and the symbol the parser knows. */
 export interface DisplayUnit {
@@ -35,6 +35,7 @@ export const LADDERS = {
   responsivity: [u('V/K', 'V/K'), u('mV/K', 'mV/K'), u('µV/K', 'µV/K')],
   power: [u('W', 'W'), u('mW', 'mW'), u('µW', 'µW')],
   heatFlux: [u('W/cm²', 'W/cm2'), u('mW/cm²', 'mW/cm2')],
+  speed: [u('m/s', 'm/s')],
 } as const satisfies Record<string, readonly DisplayUnit[]>;
 
 export type Ladder = readonly DisplayUnit[];
@@ -53,7 +54,7 @@ export interface QuantityKind {
 
 export const KINDS = {
   temperature: { dimension: 'temperature', ladder: LADDERS.temperature, example: '1.8 K or 1800 mK', follows: 'temperature' },
-  temperatureDifference: { dimension: 'temperature difference', ladder: LADDERS.temperatureDifference, example: '1 mK or 50 uK' },
+  temperatureDifference: { dimension: 'temperature difference', ladder: LADDERS.temperatureDifference, zero: LADDERS.temperatureDifference[1], example: '1 mK or 50 uK' },
   pressure: { dimension: 'pressure', ladder: LADDERS.pressure, example: '1638 Pa or 16.4 mbar', follows: 'pressure' },
   length: { dimension: 'length', ladder: LADDERS.length, zero: LADDERS.length[1], example: '50 mm', follows: 'length' },
   /** An uncertainty of a length: shown on the ladder, not in the chosen unit. */
@@ -68,6 +69,7 @@ export const KINDS = {
   responsivity: { dimension: 'responsivity', ladder: LADDERS.responsivity, example: '2 V/K' },
   power: { dimension: 'power', ladder: LADDERS.power, example: '100 mW' },
   heatFlux: { dimension: 'heat flux', ladder: LADDERS.heatFlux, example: '0.1 W/cm2', follows: 'heatFlux' },
+  speed: { dimension: 'speed', ladder: LADDERS.speed, example: '20 m/s' },
 } as const satisfies Record<string, QuantityKind>;
 
 /** A one-unit ladder: the chosen display unit of a kind. */

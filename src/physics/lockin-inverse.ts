@@ -180,8 +180,8 @@ export function analyseLockin(record: LockinRecord, reference: ResonanceFit, opt
       out.temperatureShiftSd_K[i] = Math.hypot(sigmaW, refF) / Math.abs(dfdT);
     }
   }
-  if (!withTemperature) out.notes.push(`df₀/dT = ${dfdT.toPrecision(3)} Hz/K is too small at ${T} K (near a u₂ extremum) to turn the drift of f₀ into a temperature.`);
-  out.notes.push(`The vortices shift f₀ too, through B′ (${Bp.toPrecision(3)} at ${T} K): by up to about |B′/B|·(Δ − Δ₀)/2 = ${(Math.abs(Bp / B) / 2).toPrecision(2)} × (Δ − Δ₀), included in the f₀ drift.`);
+  if (!withTemperature) out.notes.push(`df₀/dT = ${dfdT.toPrecision(3)} Hz/K is too small at ${T.toFixed(4)} K (near a u₂ extremum) to turn the drift of f₀ into a temperature.`);
+  out.notes.push(`The vortices shift f₀ too, through B′ (${Bp.toPrecision(3)} at ${T.toFixed(4)} K): by up to about |B′/B|·(Δ − Δ₀)/2 = ${(Math.abs(Bp / B) / 2).toPrecision(2)} × (Δ − Δ₀), included in the f₀ drift.`);
   if (noiseFrom === 'record') out.notes.push('Noise per component from successive differences of the record: a lock-in time constant longer than the sampling step makes it (and the measurement sds) too small.');
   return out;
 }

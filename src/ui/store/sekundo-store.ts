@@ -4,6 +4,7 @@ import { createFieldsSlice } from '../fields/fields-slice';
 import { createLocateSlice } from './locate-slice';
 import { createPlannerSlice } from './planner-slice';
 import { createPreferencesSlice } from './preferences-slice';
+import { createResonatorSlice } from '../resonator/resonator-slice';
 import type { SekundoState } from './state';
 import { createTemperatureSlice } from './temperature-slice';
 import { createViewSlice } from './view-slice';
@@ -15,6 +16,7 @@ export const useSekundoStore = create<SekundoState>()((...args) => ({
   ...createPlannerSlice(...args),
   ...createConverterSlice(...args),
   ...createLocateSlice(...args),
+  ...createResonatorSlice(...args),
   ...createPreferencesSlice(...args),
   ...createFieldsSlice(...args),
 }));

@@ -3,8 +3,9 @@ import type { FieldsSlice } from '../fields/fields-slice';
 import type { LocateSlice } from './locate-slice';
 import type { PlannerSlice } from './planner-slice';
 import type { PreferencesSlice } from './preferences-slice';
+import type { ResonatorSlice } from '../resonator/resonator-slice';
 import type { TemperatureSlice } from './temperature-slice';
 import type { ViewSlice } from './view-slice';
 
 /** The whole store: inputs only. Results are derived from them with kernel calls. */
-export type SekundoState = TemperatureSlice & ViewSlice & PlannerSlice & ConverterSlice & LocateSlice & PreferencesSlice & FieldsSlice;
+export type SekundoState = TemperatureSlice & ViewSlice & PlannerSlice & ConverterSlice & LocateSlice & ResonatorSlice & PreferencesSlice & FieldsSlice;

@@ -35,21 +35,21 @@ export interface TangleGeometryInfo {
 export const TANGLE_GEOMETRIES: readonly TangleGeometryInfo[] = [
   {
     id: 'isotropic',
-    label: 'isotropic tangle (6π)',
+    label: 'isotropic (6π)',
     meanSin2: 2 / 3,
     factor: 6 * Math.PI,
     source: 'Vinen, Proc. R. Soc. A 240, 114 (1957): isotropic average ⟨sin²θ⟩ = 2/3',
   },
   {
     id: 'perpendicular',
-    label: 'lines perpendicular to the wave (4π)',
+    label: 'perpendicular to the wave (4π)',
     meanSin2: 1,
     factor: 4 * Math.PI,
     source: 'Hall & Vinen, Proc. R. Soc. A 238, 204 (1956): lines across the wave (rotation), sin²θ = 1',
   },
   {
     id: 'in-plane',
-    label: 'lines in planes holding the wave (8π)',
+    label: 'in planes holding the wave (8π)',
     meanSin2: 1 / 2,
     factor: 8 * Math.PI,
     source: 'derived here from the Hall–Vinen sin²θ dependence: lines spread evenly in planes that contain the wave vector, ⟨sin²θ⟩ = 1/2',

@@ -180,7 +180,7 @@ function LineDensityBox({ value, bath, temperatureText }: { value: LineDensityPa
         L = {formatMeasured(a.lineDensity_m2, a.sd_m2).text} m⁻²
       </p>
       <p className="muted">
-        From the peak amplitudes, L = (k Δ₀/(B κ))(A₀/A − 1) with k = {Math.round(geometry.factor / Math.PI)}π for the {geometry.label.replace(/ \(.*\)$/, '')} ({geometry.source}): sd {formatScientific(a.sdMeasurement_m2, 2)} m⁻² from this sweep and {formatScientific(a.sdReference_m2, 2)} m⁻² from the reference. B = {formatSignificant(a.mutualFrictionB, 4)} at {temperatureText} ({bath.from}; Donnelly & Barenghi 1998); its own uncertainty is not published with the representation and is not included.
+        From the peak amplitudes, L = (k Δ₀/(B κ))(A₀/A − 1) with k = {Math.round(geometry.factor / Math.PI)}π (tangle: {geometry.label.replace(/ \(.*\)$/, '')}; {geometry.source}): sd {formatScientific(a.sdMeasurement_m2, 2)} m⁻² from this sweep and {formatScientific(a.sdReference_m2, 2)} m⁻² from the reference. B = {formatSignificant(a.mutualFrictionB, 4)} at {temperatureText} ({bath.from}; Donnelly & Barenghi 1998); its own uncertainty is not published with the representation and is not included.
       </p>
       <p className="muted">
         Check from the widths, factor·(Δ − Δ₀)/(B κ): {formatMeasured(value.width.lineDensity_m2, value.width.sd_m2).text} m⁻²

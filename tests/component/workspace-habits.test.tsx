@@ -49,7 +49,7 @@ afterEach(() => {
   vi.unstubAllGlobals();
 });
 
-const ALL_GUIDES = 'explorer,planner,converter,locate';
+const ALL_GUIDES = 'explorer,planner,converter,locate,resonator';
 
 /** A browser store that already holds preferences (every guide put away, unless `prefs` says otherwise). */
 function storeWith(prefs: Record<string, string> = { guides: ALL_GUIDES }): KeyValueStore {
@@ -320,7 +320,7 @@ describe('first-visit guides', () => {
     await user.click(screen.getByRole('tab', { name: 'Plan a measurement' }));
     expect(screen.getByRole('complementary', { name: /^First time here\? Edit the demo plan/ })).toBeInTheDocument();
     await user.click(screen.getByRole('button', { name: 'Hide all guides' }));
-    expect(kept(browser)).toMatchObject({ guides: 'explorer,planner,converter,locate' });
+    expect(kept(browser)).toMatchObject({ guides: 'explorer,planner,converter,locate,resonator' });
 
     const again = await reload(browser);
     expect(screen.queryByRole('complementary', { name: /^First time here/ })).toBeNull();

@@ -8,6 +8,7 @@ const VIEWS = [
   { id: 'planner', tab: 'Plan a measurement' },
   { id: 'converter', tab: 'Read the temperature' },
   { id: 'locate', tab: 'Locate a source' },
+  { id: 'resonator', tab: 'Resonator' },
 ] as const;
 
 /** Every chart on the page drawn (and at least one there). */
@@ -210,7 +211,7 @@ test.describe('workspace habits', () => {
     await page.keyboard.press('Home');
     await expect(page.getByRole('tab', { name: 'Helium properties' })).toHaveAttribute('aria-selected', 'true');
     await page.keyboard.press('End');
-    await expect(page.getByRole('tab', { name: 'Locate a source' })).toBeFocused();
+    await expect(page.getByRole('tab', { name: 'Resonator' })).toBeFocused();
     await page.keyboard.press('Home');
     await expect(page.getByRole('tab', { name: 'Helium properties' })).toBeFocused();
     await waitForCharts(page);

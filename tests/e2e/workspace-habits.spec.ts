@@ -303,8 +303,8 @@ test.describe('first visit', () => {
     await page.screenshot({ path: `${ARTIFACTS}/first-visit-guide.png` });
 
     // Each view has its own guide; the keyboard reaches its buttons in the page's order.
-    const leads = ['Start with the bath temperature', 'Edit the demo plan', 'Type the distance and the delay', 'Type or load the sensors'];
-    const tabs = ['Helium properties', 'Plan a measurement', 'Read the temperature', 'Locate a source'];
+    const leads = ['Start with the bath temperature', 'Edit the demo plan', 'Type the distance and the delay', 'Type or load the sensors', 'Open the demo resonator'];
+    const tabs = ['Helium properties', 'Plan a measurement', 'Read the temperature', 'Locate a source', 'Resonator'];
     for (const [i, tab] of tabs.entries()) {
       await page.getByRole('tab', { name: tab }).click();
       await expect(page.getByRole('complementary', { name: new RegExp(`^First time here\\? ${leads[i]}`) })).toBeVisible();

@@ -63,7 +63,7 @@ export function ResonatorLockin() {
       ) : series.ok ? (
         <>
           <p data-testid="resonator-lockin-summary">
-            {series.value.time_s.length} rows at {formatSignificant(series.value.drive_Hz, 9)} Hz; noise per point {formatSignificant(series.value.noise, 2)} ({series.value.noiseFrom === 'record' ? 'from successive differences' : 'given'}); B = {formatSignificant(series.value.mutualFrictionB, 4)} at {T ? `${T.temperature_K.toFixed(4)} K (${T.from})` : 'the bath temperature'}. Last row: L = {formatMeasured(series.value.lineDensity_m2[series.value.time_s.length - 1] as number, series.value.lineDensitySd_m2[series.value.time_s.length - 1] as number).text} m⁻², δf₀ ={' '}
+            {series.value.time_s.length} rows at {formatSignificant(series.value.drive_Hz, 9)} Hz; noise per point {formatSignificant(series.value.noise, 2)} {signalUnit(record?.data.columns.x ?? '')} ({series.value.noiseFrom === 'record' ? 'from successive differences' : 'given'}); B = {formatSignificant(series.value.mutualFrictionB, 4)} at {T ? `${T.temperature_K.toFixed(4)} K (${T.from})` : 'the bath temperature'}. Last row: L = {formatMeasured(series.value.lineDensity_m2[series.value.time_s.length - 1] as number, series.value.lineDensitySd_m2[series.value.time_s.length - 1] as number).text} m⁻², δf₀ ={' '}
             {formatMeasured(((series.value.frequencyShift_Hz[series.value.time_s.length - 1] as number) * 1e3), (series.value.frequencyShiftSd_Hz[series.value.time_s.length - 1] as number) * 1e3).text} mHz
             {series.value.temperatureShift_K ? ` (δT = ${formatMeasured((series.value.temperatureShift_K[series.value.time_s.length - 1] as number) * 1e6, ((series.value.temperatureShiftSd_K as Float64Array)[series.value.time_s.length - 1] as number) * 1e6).text} µK)` : ''}.
           </p>
@@ -89,4 +89,9 @@ export function ResonatorLockin() {
       )}
     </section>
   );
+}
+
+/** "V" when the record's x column named a voltage unit (the reader scaled it to volts), else the file's own unit. */
+function signalUnit(column: string): string {
+  return /(^|[\s_(/[])[mnuµμ]?V\)?\]?$/.test(column.trim()) ? 'V' : '(the file’s signal unit)';
 }

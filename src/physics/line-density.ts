@@ -1,4 +1,4 @@
-import { InvalidInputError, requireInRange } from './errors';
+import { InvalidInputError, OutOfRangeError, requireInRange } from './errors';
 import { MUTUAL_FRICTION_RANGE_K, mutualFrictionBUnchecked } from './mutual-friction';
 import { QUANTUM_OF_CIRCULATION_M2_S } from './quantum-of-circulation';
 
@@ -19,6 +19,9 @@ import { QUANTUM_OF_CIRCULATION_M2_S } from './quantum-of-circulation';
  *    in planes across the heat flow, probed by a resonator whose wave crosses the flow): ⟨sin²θ⟩
  *    = 1/2, factor 8π.
  */
+
+/** Largest A₀/A read (a peak fallen by more than this is no resonance to read). */
+const MAX_AMPLITUDE_RATIO = 1e9;
 
 export type TangleGeometry = 'isotropic' | 'perpendicular' | 'in-plane';
 
@@ -115,14 +118,19 @@ export function lineDensityFromAmplitude(r: AmplitudeReading): LineDensity {
   }
   const geometry = r.geometry ?? 'isotropic';
   const { k, B } = perHertz(r.temperature_K, geometry);
-  const ratio = r.amplitude0 / r.amplitude;
-  const L = k * r.width0_Hz * (ratio - 1);
-  const dA = -k * r.width0_Hz * (ratio / r.amplitude);
-  const dA0 = (k * r.width0_Hz) / r.amplitude;
-  const dW0 = k * (ratio - 1);
-  const measurement = Math.abs(dA) * r.amplitudeSd;
-  const refVar = (dA0 * r.amplitude0Sd) ** 2 + (dW0 * r.width0Sd_Hz) ** 2 + 2 * dA0 * dW0 * (r.covariance0 ?? 0);
-  const reference = Math.sqrt(Math.max(0, refVar));
+  const ratio = requireInRange('amplitude ratio A₀/A', r.amplitude0 / r.amplitude, 0, MAX_AMPLITUDE_RATIO, '', 'the peak fell by more than a factor 1e9: no resonance left to read');
+  const scale = k * r.width0_Hz;
+  const L = scale * (ratio - 1);
+  // In relative terms so that tiny amplitudes (any unit) cannot overflow: ∂L/∂A · σ_A = scale·ratio·σ_A/A,
+  // ∂L/∂A₀ · σ_A₀ = scale·ratio·σ_A₀/A₀, ∂L/∂Δ₀ · σ_Δ₀ = k (ratio − 1) σ_Δ₀.
+  const measurement = scale * ratio * (r.amplitudeSd / r.amplitude);
+  const fromA0 = scale * ratio * (r.amplitude0Sd / r.amplitude0);
+  const fromW0 = k * (ratio - 1) * r.width0Sd_Hz;
+  const cross = 2 * (scale * ratio) * (k * (ratio - 1)) * ((r.covariance0 ?? 0) / r.amplitude0);
+  const reference = Math.sqrt(Math.max(0, fromA0 * fromA0 + fromW0 * fromW0 + cross));
+  if (![L, measurement, reference].every(Number.isFinite)) {
+    throw new OutOfRangeError('amplitude sd', r.amplitudeSd, 0, r.amplitude, '', 'the sds are too large against the amplitudes to propagate');
+  }
   return { lineDensity_m2: L, sd_m2: Math.hypot(measurement, reference), sdMeasurement_m2: measurement, sdReference_m2: reference, mutualFrictionB: B, geometry, perHertz_m2_Hz: k };
 }
 

@@ -60,7 +60,7 @@ describe('sekundo sweep on the invented Kestrel-2 demo (its truth: L = 3e8 m⁻�
     expect(r.warnings.map((w) => w.code)).not.toContain('forms-disagree');
   });
 
-  it('takes B at the chosen candidate when no bath temperature is given, and a typed reference', async () => {
+  it('takes B at the vapour-pressure temperature, against a typed reference (Δ₀, A₀)', async () => {
     const t = demoTruth();
     const r = await runJson<SweepOut & { temperatureFrom: string }>('sweep', DEMO_SWEEP_PATH, '--width0', `${t.width_Hz}Hz`, '--amplitude0', `${t.amplitude * 1e3}mV`, '--pressure', '2.27kPa');
     expect(r.temperatureFrom).toBe('pressure');

@@ -1,4 +1,6 @@
 import { ConvergenceError, InvalidInputError, requireInRange } from './errors';
+import { initialGuess, medianStep } from './resonance-start';
+import { invertSymmetric, solveSymmetric } from './symmetric-solve';
 
 /*
  * A second-sound resonance fitted by least squares (PHYSICS notes §8):
@@ -198,98 +200,6 @@ function checkFrequencies(f: Float64Array): void {
   }
 }
 
-interface Start {
-  s0: number;
-  width_Hz: number;
-  A: number;
-  phase: number;
-  b0r: number;
-  b0i: number;
-  /** Background slopes per Hz. */
-  b1r: number;
-  b1i: number;
-}
-
-function initialGuess(data: SweepData, complex: boolean, centre: number): Start {
-  const f = data.frequency_Hz;
-  const n = f.length;
-  const x = (complex ? data.x : data.amplitude) as Float64Array;
-  const y = complex ? (data.y as Float64Array) : null;
-  const k = Math.max(2, Math.floor(n / 20));
-  const mean = (arr: Float64Array | null, from: number, to: number) => {
-    if (!arr) return 0;
-    let sum = 0;
-    for (let i = from; i < to; i++) sum += arr[i] as number;
-    return sum / (to - from);
-  };
-  const fa = mean(f, 0, k);
-  const fb = mean(f, n - k, n);
-  const xa = mean(x, 0, k);
-  const xb = mean(x, n - k, n);
-  const ya = mean(y, 0, k);
-  const yb = mean(y, n - k, n);
-  const slopeX = (xb - xa) / (fb - fa);
-  const slopeY = (yb - ya) / (fb - fa);
-  const bx = (i: number) => xa + slopeX * ((f[i] as number) - fa);
-  const by = (i: number) => ya + slopeY * ((f[i] as number) - fa);
-  const mag = new Float64Array(n);
-  let peak = 0;
-  let at = 0;
-  for (let i = 0; i < n; i++) {
-    const dx = (x[i] as number) - bx(i);
-    const dy = y ? (y[i] as number) - by(i) : 0;
-    const m = complex ? Math.hypot(dx, dy) : Math.abs(dx);
-    mag[i] = m;
-    if (m > peak) {
-      peak = m;
-      at = i;
-    }
-  }
-  if (!(peak > 0)) throw new InvalidInputError('sweep', 'the signal is flat: no resonance to fit');
-  const half = peak / Math.SQRT2;
-  const edge = (dir: 1 | -1): number | null => {
-    for (let i = at; i >= 0 && i < n; i += dir) {
-      if ((mag[i] as number) < half) {
-        const j = i - dir;
-        const mi = mag[i] as number;
-        const mj = mag[j] as number;
-        const frac = (mj - half) / (mj - mi);
-        return (f[j] as number) + frac * ((f[i] as number) - (f[j] as number));
-      }
-    }
-    return null;
-  };
-  const lo = edge(-1);
-  const hi = edge(1);
-  const fPeak = f[at] as number;
-  const step = medianStep(f);
-  let width: number;
-  if (lo !== null && hi !== null) width = Math.abs(hi - lo);
-  else if (lo !== null) width = 2 * Math.abs(fPeak - lo);
-  else if (hi !== null) width = 2 * Math.abs(hi - fPeak);
-  else width = Math.abs((f[n - 1] as number) - (f[0] as number)) / 2;
-  width = Math.max(width, 2 * step);
-  const dx = (x[at] as number) - bx(at);
-  const dy = y ? (y[at] as number) - by(at) : 0;
-  return {
-    s0: (fPeak - centre) / width,
-    width_Hz: width,
-    A: complex ? peak : dx,
-    phase: Math.atan2(dy, dx),
-    b0r: xa + slopeX * (centre - fa),
-    b0i: ya + slopeY * (centre - fa),
-    b1r: slopeX,
-    b1i: slopeY,
-  };
-}
-
-function medianStep(f: Float64Array): number {
-  const steps = new Float64Array(f.length - 1);
-  for (let i = 1; i < f.length; i++) steps[i - 1] = Math.abs((f[i] as number) - (f[i - 1] as number));
-  steps.sort();
-  return steps[steps.length >> 1] as number;
-}
-
 /** Residual sum of squares at p, or +∞ when p is outside the model (g ≤ 0). */
 function residualSumOfSquares(pr: Problem, p: readonly number[]): number {
   const s0 = p[0] as number;
@@ -441,58 +351,6 @@ function levenbergMarquardt(pr: Problem, start: number[]): { p: number[]; rss: n
     if (!accepted) return { p, rss, iterations: iter };
   }
   throw new ConvergenceError(`the resonance fit did not settle in ${FIT_MAX_ITERATIONS} steps; check that the sweep holds one resonance with its peak inside`);
-}
-
-/** Solves A x = b for symmetric positive definite A (row-major m×m) by Cholesky; null if A is not. */
-function solveSymmetric(a: Float64Array, b: Float64Array, m: number): Float64Array | null {
-  const l = cholesky(a, m);
-  if (!l) return null;
-  const x = Float64Array.from(b);
-  for (let i = 0; i < m; i++) {
-    let sum = x[i] as number;
-    for (let k = 0; k < i; k++) sum -= (l[i * m + k] as number) * (x[k] as number);
-    x[i] = sum / (l[i * m + i] as number);
-  }
-  for (let i = m - 1; i >= 0; i--) {
-    let sum = x[i] as number;
-    for (let k = i + 1; k < m; k++) sum -= (l[k * m + i] as number) * (x[k] as number);
-    x[i] = sum / (l[i * m + i] as number);
-  }
-  return x;
-}
-
-function cholesky(a: Float64Array, m: number): Float64Array | null {
-  const l = new Float64Array(m * m);
-  for (let i = 0; i < m; i++) {
-    for (let j = 0; j <= i; j++) {
-      let sum = a[i * m + j] as number;
-      for (let k = 0; k < j; k++) sum -= (l[i * m + k] as number) * (l[j * m + k] as number);
-      if (i === j) {
-        if (!(sum > 0)) return null;
-        l[i * m + i] = Math.sqrt(sum);
-      } else l[i * m + j] = sum / (l[j * m + j] as number);
-    }
-  }
-  return l;
-}
-
-/** The inverse of a symmetric positive definite matrix (row-major), or null. */
-function invertSymmetric(a: Float64Array): Float64Array | null {
-  const m = Math.round(Math.sqrt(a.length));
-  // Equilibrate first: the parameters' scales differ by many orders.
-  const d = new Float64Array(m);
-  for (let i = 0; i < m; i++) d[i] = 1 / Math.sqrt(a[i * m + i] as number);
-  const scaled = new Float64Array(m * m);
-  for (let i = 0; i < m; i++) for (let j = 0; j < m; j++) scaled[i * m + j] = (a[i * m + j] as number) * (d[i] as number) * (d[j] as number);
-  const out = new Float64Array(m * m);
-  for (let col = 0; col < m; col++) {
-    const e = new Float64Array(m);
-    e[col] = 1;
-    const x = solveSymmetric(scaled, e, m);
-    if (!x) return null;
-    for (let row = 0; row < m; row++) out[row * m + col] = (x[row] as number) * (d[row] as number) * (d[col] as number);
-  }
-  return out;
 }
 
 function residualCorrelation(pr: Problem, p: readonly number[]): number {

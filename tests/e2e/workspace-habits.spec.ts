@@ -136,6 +136,8 @@ test.describe('workspace habits', () => {
   });
 
   test('keyboard only: header controls, every tab, into each view and back, focus always visible', async ({ page }) => {
+    // Five views of up to 30 Tab stops each, and back: past the default minute on a busy machine.
+    test.setTimeout(150_000);
     await page.goto('/');
     await waitForCharts(page);
     const focused = () =>
@@ -221,6 +223,8 @@ test.describe('workspace habits', () => {
   });
 
   test('every view in both themes at 1280×720 (screenshots)', async ({ page }) => {
+    // Five views, two themes, two screenshots each: past the default minute on a busy machine.
+    test.setTimeout(150_000);
     mkdirSync(ARTIFACTS, { recursive: true });
     await page.goto('/');
     for (const theme of ['light', 'dark'] as const) {

@@ -18,7 +18,6 @@ import { useResonatorFits, useResonatorReading } from './use-resonator';
 /** A sweep and its vortex-free reference → fits, temperature candidates, line density. */
 export function ResonatorSweep() {
   const { sweep, reference, sweepFit, referenceFit } = useResonatorFits();
-  const reading = useResonatorReading();
   return (
     <section className="card resonator-card" aria-labelledby="resonator-sweep-title">
       <h2 id="resonator-sweep-title" className="card-title">
@@ -60,7 +59,6 @@ export function ResonatorSweep() {
               {...sweepFigure(sweep.data, sweepFit.value, reference && referenceFit?.ok ? { data: reference.data, fit: referenceFit.value } : null)}
             />
           </ChartFigure>
-          {reading ? <Reading /> : null}
         </>
       ) : null}
     </section>
@@ -125,15 +123,19 @@ function FitTable({ fit, reference }: { fit: ResonanceFit; reference: ResonanceF
   );
 }
 
-function Reading() {
+/** What the fitted sweep says: every candidate temperature from f₀, and the vortex line density. */
+export function ResonatorReading() {
   const reading = useResonatorReading();
   const temperature = useDisplayUnit('temperature');
   const { referenceFit } = useResonatorFits();
   if (!reading) return null;
   const t = reading.temperature;
   return (
-    <div className="resonator-reading">
-      <h3 className="resonator-sub">Temperature from f₀</h3>
+    <section className="card resonator-card resonator-reading" aria-labelledby="resonator-reading-title">
+      <h2 id="resonator-reading-title" className="card-title">
+        Temperature and line density from the sweep
+      </h2>
+      <h3 className="resonator-sub resonator-sub--first">Temperature from f₀</h3>
       {t === null ? (
         <p className="muted" role="status">
           {reading.modeReason}.
@@ -167,7 +169,7 @@ function Reading() {
           {reading.lineDensity.message}
         </p>
       )}
-    </div>
+    </section>
   );
 }
 

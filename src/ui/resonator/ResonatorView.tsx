@@ -5,7 +5,7 @@ import { loadResonatorDemo } from './load-demo';
 import { ResonatorCautions } from './ResonatorCautions';
 import { ResonatorLockin } from './ResonatorLockin';
 import { ResonatorPlan } from './ResonatorPlan';
-import { ResonatorSweep } from './ResonatorSweep';
+import { ResonatorReading, ResonatorSweep } from './ResonatorSweep';
 
 /** Standing waves: plan a resonator, read a sweep (temperature, line density), follow a lock-in record. */
 export function ResonatorView() {
@@ -31,6 +31,9 @@ export function ResonatorView() {
           <ResonatorSweep />
         </PanelErrorBoundary>
       </div>
+      <PanelErrorBoundary panel="temperature and line density">
+        <ResonatorReading />
+      </PanelErrorBoundary>
       <PanelErrorBoundary panel="lock-in record">
         <ResonatorLockin />
       </PanelErrorBoundary>

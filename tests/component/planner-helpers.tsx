@@ -71,3 +71,10 @@ export function arrivalTimes(sensorId: string, kind: 'first sound' | 'second sou
   if (!marks) return [];
   return (marks.text ?? []).flatMap((text, i) => (text.startsWith(`${sensorId} · ${kind}`) ? [marks.x[i] as number] : []));
 }
+
+/** What a quantity field shows: the number in its box and the unit beside it ("10 mm"). */
+export function shown(name: string | RegExp): string {
+  const input = field(name);
+  const unit = input.parentElement?.querySelector('.quantity-field__unit, .unit-select')?.textContent ?? '';
+  return unit === '' ? input.value : `${input.value} ${unit}`;
+}

@@ -1,6 +1,6 @@
 import { screen, waitFor, within } from '@testing-library/react';
 import { lastDraw } from './fake-plotly';
-import { field, openPlanner, retype, store } from './planner-helpers';
+import { field, openPlanner, retype, store, shown } from './planner-helpers';
 
 const sensors = () => store().plannerPlan.sensors;
 const resultRows = () => within(screen.getByRole('table', { name: /predicted arrivals/i })).getAllByRole('row').slice(1);
@@ -15,7 +15,7 @@ describe('planner sensors', { timeout: 20_000 }, () => {
     expect(sensors()[4]).toMatchObject({ id: 's5', distance_m: 0.06, responsivity_V_K: 2 });
     expect(resultRows()).toHaveLength(5);
     await waitFor(() => expect(sensorTraces()).toHaveLength(5));
-    expect(field('Sensor 5 distance')).toHaveValue('60 mm');
+    expect(shown('Sensor 5 distance')).toBe('60 mm');
   });
 
   it('duplicates a sensor with a new id right after it', async () => {

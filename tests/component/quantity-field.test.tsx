@@ -49,7 +49,12 @@ function Cell() {
 
 function Name() {
   const [name, setName] = useState('Insert A');
-  return <TextField fieldKey="test.name" label="Name" value={name} apply={(t) => (t.trim() === '' ? 'Name is empty: give 1–40 characters.' : (setName(t), null))} />;
+  const apply = (t: string) => {
+    if (t.trim() === '') return 'Name is empty: give 1–40 characters.';
+    setName(t);
+    return null;
+  };
+  return <TextField fieldKey="test.name" label="Name" value={name} apply={apply} />;
 }
 
 const box = (name: string) => screen.getByRole('textbox', { name }) as HTMLInputElement;

@@ -25,7 +25,7 @@ import { demoPlan } from './planner-helpers';
 
 const main = () => useSekundoStore.getState();
 const ws = () => useWorkspaceStore.getState();
-const nameEdit = (_: unknown, text: string) => ({ ok: true as const, plan: { ...main().plannerPlan, name: text } });
+const nameEdit = (text: string) => main().applyPlannerEdit((plan) => ({ ...plan, name: text }));
 
 let stop: (() => void) | null = null;
 function start(store: KeyValueStore | null, hash = '') {
@@ -33,8 +33,11 @@ function start(store: KeyValueStore | null, hash = '') {
 }
 
 /** Types text into the plan name one character at a time, as the field does. */
-function typeName(text: string, key = 'plan.name') {
-  for (let i = 1; i <= text.length; i++) main().typePlannerField(key, text.slice(0, i), nameEdit);
+function typeName(text: string, key = 'planner.plan.name') {
+  for (let i = 1; i <= text.length; i++) {
+    main().setFieldDraft(key, { text: text.slice(0, i), unit: null, message: null });
+    nameEdit(text.slice(0, i));
+  }
 }
 
 beforeEach(() => {
@@ -57,7 +60,7 @@ describe('undo history', () => {
     await Promise.resolve();
     expect(main().plannerPlan.name).toBe('Cell A');
     expect(ws().past).toHaveLength(1);
-    main().leavePlannerField('plan.name');
+    main().dropFieldDraft('planner.plan.name');
     typeName('Cell B');
     await Promise.resolve();
     expect(ws().past).toHaveLength(2);

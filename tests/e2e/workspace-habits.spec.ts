@@ -91,8 +91,8 @@ test.describe('workspace habits', () => {
 
     await openTab(page, 'Plan a measurement');
     await waitForCharts(page);
-    await expect(page.getByRole('textbox', { name: 'Pulse width' })).toHaveValue('100 µs');
-    await expect(page.getByRole('textbox', { name: 'Sensor 4 distance', exact: true })).toHaveValue('5 cm');
+    await expect(page.getByRole('textbox', { name: 'Pulse width' })).toHaveValue('100');
+    await expect(page.getByRole('textbox', { name: 'Sensor 4 distance', exact: true })).toHaveValue('5');
     await expect(page.getByRole('table', { name: /predicted arrivals/i }).getByRole('columnheader', { name: /Second sound \(µs\)/ })).toBeVisible();
     await expect.poll(() => drawnLayout(page, 'planner-timeline', 'xaxisTitle')).toBe('Time after the heater pulse starts (µs)');
   });

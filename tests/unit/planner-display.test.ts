@@ -1,12 +1,12 @@
 import { describe, expect, it } from 'vitest';
 import { readFileSync } from 'node:fs';
 import { parsePlanFile } from '../../src/io/plan-file';
-import { parseQuantity } from '../../src/io/quantity';
 import { computePlan, type PlanWarning } from '../../src/physics';
 import { planFileToInput } from '../../src/io/plan-file';
 import { tableCsv } from '../../src/ui/export/csv-export';
-import { chosenLadders, inputText, KINDS, LADDERS, readText, shownLadder, temperatureText } from '../../src/ui/units/ladders';
-import { DIGITISER_FIELDS, fieldText, HEATER_FIELDS, sensorFields } from '../../src/ui/planner/plan-fields';
+import { chosenLadders, KINDS, LADDERS, readText, shownLadder, temperatureText, unitFor } from '../../src/ui/units/ladders';
+import { fieldValueText, readFieldText, shownFieldUnit } from '../../src/ui/fields/field-spec';
+import { DIGITISER_FIELDS, HEATER_FIELDS, type NumberField, planFieldSpec, sensorFields } from '../../src/ui/planner/plan-fields';
 import { warningFigures, warningsCsv, warningUnit } from '../../src/ui/planner/warning-figures';
 import { DEFAULT_DISPLAY_UNITS, type DisplayUnits } from '../../src/ui/units/unit-choices';
 
@@ -46,22 +46,21 @@ describe('planner display units', () => {
   it('writes field texts in the chosen unit that read back to the same value', () => {
     const chosen = units({ time: 'µs', length: 'cm', heatFlux: 'W/m2' });
     const sensor = sensorFields(0, 'k0');
-    const cases = [
-      [HEATER_FIELDS.width, 'time'],
-      [DIGITISER_FIELDS.recordLength, 'time'],
-      [DIGITISER_FIELDS.preTrigger, 'time'],
-      [sensor.distance, 'length'],
-      [HEATER_FIELDS.flux, 'heat flux'],
-    ] as const;
-    for (const [field, dimension] of cases) {
-      const text = fieldText(field, demo, chosen);
+    const cases = [HEATER_FIELDS.width, DIGITISER_FIELDS.recordLength, DIGITISER_FIELDS.preTrigger, sensor.distance, HEATER_FIELDS.flux] as const;
+    const shown = (field: NumberField, inUnits = chosen) => {
       const value = field.get(demo) as number;
-      expect(parseQuantity(text, dimension)).toBeCloseTo(value, 12);
+      const unit = shownFieldUnit(planFieldSpec(field, demo), value, inUnits);
+      return { value, unit, text: fieldValueText(value, unit) };
+    };
+    for (const field of cases) {
+      const { value, unit, text } = shown(field);
+      const read = readFieldText(planFieldSpec(field, demo), text, unit);
+      expect(read.ok && read.value).toBeCloseTo(value, 12);
     }
-    expect(fieldText(HEATER_FIELDS.width, demo, chosen)).toBe(`${Number(((demo.heater.width_s as number) * 1e6).toPrecision(6))} µs`);
-    expect(fieldText(sensor.distance, demo, chosen)).toMatch(/ cm$/);
-    // Without units (the CLI, old callers): the value on its ladder, as before.
-    expect(fieldText(HEATER_FIELDS.width, demo)).toBe(inputText(demo.heater.width_s as number, LADDERS.time));
+    expect(shown(HEATER_FIELDS.width)).toMatchObject({ unit: 'µs', text: `${Number(((demo.heater.width_s as number) * 1e6).toPrecision(6))}` });
+    expect(shown(sensor.distance).unit).toBe('cm');
+    // An instrument constant stays on its ladder whatever the header says.
+    expect(shown(sensor.lag).unit).toBe(unitFor(sensor.lag.get(demo) as number, LADDERS.time, KINDS.timeConstant.zero).unit);
   });
 
   it('shows an absolute temperature to 0.1 mK in either unit', () => {

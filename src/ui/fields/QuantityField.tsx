@@ -78,17 +78,18 @@ export function QuantityField({ spec, value, apply, help, ...frame }: QuantityFi
   const unit = draft ? draft.unit : shown;
 
   const type = (text: string, bareUnit: Unit | null = unit) => {
-    const read = readFieldText(spec, text, bareUnit);
-    const message = read.ok ? apply(read.value) : read.message;
-    useSekundoStore.getState().setFieldDraft(fieldKey, { text, unit: bareUnit, message });
+    typeDraft(fieldKey, text, bareUnit, () => {
+      const read = readFieldText(spec, text, bareUnit);
+      return read.ok ? apply(read.value) : read.message;
+    });
   };
   const pickUnit = (picked: Unit) => {
     useSekundoStore.getState().setFieldUnit(fieldKey, picked);
     if (draft) type(draft.text, picked);
   };
-  const unitPart =
+  const unitPart = (helpIds: string | undefined) =>
     unit === null ? null : spec.units && spec.units.length > 0 ? (
-      <select className="unit-select" aria-label={`${frame.label ?? spec.label} unit`} value={unit} onChange={(event) => pickUnit(event.target.value as Unit)}>
+      <select className="unit-select" aria-label={`${frame.label ?? spec.label} unit`} aria-describedby={helpIds} value={unit} onChange={(event) => pickUnit(event.target.value as Unit)}>
         {(spec.units.includes(unit) ? spec.units : [unit, ...spec.units]).map((u) => (
           <option key={u} value={u}>
             {unitLabel(spec, u)}
@@ -134,10 +135,21 @@ export function TextField({ value, apply, help, range, ...frame }: TextFieldProp
       name={frame.label ?? ''}
       range={range ?? null}
       text={draft ? draft.text : value}
-      onType={(text) => useSekundoStore.getState().setFieldDraft(fieldKey, { text, unit: null, message: apply(text) })}
-      after={null}
+      onType={(text) => typeDraft(fieldKey, text, null, () => apply(text))}
+      after={() => null}
     />
   );
+}
+
+/**
+ * Keeps typed text as the field's draft, then applies it: the draft is in the store before the
+ * feature's value changes (the plan's undo history joins the keystrokes of one field into one step).
+ */
+function typeDraft(fieldKey: string, text: string, unit: Unit | null, applied: () => string | null): void {
+  const { setFieldDraft } = useSekundoStore.getState();
+  setFieldDraft(fieldKey, { text, unit, message: null });
+  const message = applied();
+  if (message !== null) setFieldDraft(fieldKey, { text, unit, message });
 }
 
 interface FrameProps extends FieldFrameProps {
@@ -147,7 +159,8 @@ interface FrameProps extends FieldFrameProps {
   range: string | null;
   text: string;
   onType: (text: string) => void;
-  after: ReactNode;
+  /** What stands after the box (the unit), given the ids of the field's help. */
+  after: (helpIds: string | undefined) => ReactNode;
 }
 
 /** Label, box, unit, hint and message: what every field looks like and how it leaves and restores. */
@@ -199,7 +212,7 @@ function FieldFrame({ fieldKey, label, shortLabel, labelHidden = false, hint, me
             if (event.key === 'Escape') useSekundoStore.getState().dropFieldDraft(fieldKey);
           }}
         />
-        {after}
+        {after(joinIds(hasHelp && fieldHelp.describedBy, elsewhere))}
       </div>
       {error && message === 'below' ? (
         <p id={fieldMessageId(fieldKey)} className="field-error quantity-field__error" role="alert">

@@ -4,7 +4,9 @@ import { formatSignificant } from '../units/format-number';
 import { useSekundoStore } from '../store';
 import { formatKelvin } from '../units/temperature-text';
 import { ChoiceGroup, EditorCard } from './EditorCard';
-import { PlanFieldMessage, PlanNumberField } from './PlanField';
+import { QuantityField } from '../fields/QuantityField';
+import { PlanControlMessage } from './PlanControlMessage';
+import { usePlanField } from './use-plan-field';
 import { type BathMode, bathMode, setBathMode } from './plan-edits';
 import { BATH_FIELDS } from './plan-fields';
 import { PLAN_OTHER_HELP } from './planner-help';
@@ -19,6 +21,9 @@ export function BathEditor() {
   const plan = useSekundoStore((s) => s.plannerPlan);
   const edit = useSekundoStore((s) => s.editPlanner);
   const mode = bathMode(plan);
+  const temperature = usePlanField(BATH_FIELDS.temperature);
+  const pressure = usePlanField(BATH_FIELDS.vapourPressure);
+  const depth = usePlanField(BATH_FIELDS.liquidDepth);
   return (
     <EditorCard id="planner-bath" title="Bath">
       <div className="plan-grid">
@@ -30,13 +35,13 @@ export function BathEditor() {
           onChange={(m) => edit('bath.mode', (p) => setBathMode(p, m))}
           help={PLAN_OTHER_HELP['bath.mode']}
         />
-        <PlanFieldMessage fieldKey="bath.mode" />
+        <PlanControlMessage controlKey="bath.mode" />
         {mode === 'temperature' ? (
-          <PlanNumberField field={BATH_FIELDS.temperature} label="Bath temperature" hint={temperatureHint(plan)} />
+          <QuantityField {...temperature} label="Bath temperature" hint={temperatureHint(plan)} />
         ) : (
-          <PlanNumberField field={BATH_FIELDS.vapourPressure} label="Vapour pressure over the bath" hint={pressureHint(plan)} />
+          <QuantityField {...pressure} label="Vapour pressure over the bath" hint={pressureHint(plan)} />
         )}
-        <PlanNumberField field={BATH_FIELDS.liquidDepth} label="Liquid above the setup" hint="Adds a hydrostatic head; He II stays isothermal." />
+        <QuantityField {...depth} label="Liquid above the setup" hint="Adds a hydrostatic head; He II stays isothermal." />
       </div>
     </EditorCard>
   );

@@ -1,7 +1,9 @@
 import { describedBy, HelpLabel, useFieldHelp } from '../help/FieldHelp';
 import { useSekundoStore } from '../store';
 import { ChoiceGroup, EditorCard } from './EditorCard';
-import { PlanFieldMessage, PlanNumberField } from './PlanField';
+import { QuantityField } from '../fields/QuantityField';
+import { PlanControlMessage } from './PlanControlMessage';
+import { usePlanField } from './use-plan-field';
 import { PulseShapeEditor } from './PulseShapeEditor';
 import { type DriveMode, driveMode, type HeaterChoice, heaterChoice, setDriveMode, setGeometry } from './plan-edits';
 import { HEATER_FIELDS } from './plan-fields';
@@ -32,6 +34,14 @@ export function HeaterEditor() {
   const drive = useSekundoStore((s) => driveMode(s.plannerPlan));
   const edit = useSekundoStore((s) => s.editPlanner);
   const geometryHelp = useFieldHelp('heater geometry', PLAN_OTHER_HELP['heater.geometry']);
+  const radius = usePlanField(HEATER_FIELDS.radius);
+  const sideX = usePlanField(HEATER_FIELDS.sideX);
+  const sideY = usePlanField(HEATER_FIELDS.sideY);
+  const area = usePlanField(HEATER_FIELDS.area);
+  const flux = usePlanField(HEATER_FIELDS.flux);
+  const power = usePlanField(HEATER_FIELDS.power);
+  const repetitionRate = usePlanField(HEATER_FIELDS.repetitionRate);
+  const averages = usePlanField(HEATER_FIELDS.averages);
   return (
     <EditorCard id="planner-heater" title="Heater">
       <div className="plan-grid">
@@ -55,31 +65,31 @@ Heater geometry
           <p id="planner-geometry-note" className="field-hint plan-field__hint">
             {GEOMETRY_NOTE[geometry]}
           </p>
-          <PlanFieldMessage fieldKey="heater.geometry" />
+          <PlanControlMessage controlKey="heater.geometry" />
         </div>
         {geometry === 'disk' ? (
-          <PlanNumberField field={HEATER_FIELDS.radius} label="Disk radius" />
+          <QuantityField {...radius} label="Disk radius" />
         ) : geometry === 'rectangle' ? (
           <>
-            <PlanNumberField field={HEATER_FIELDS.sideX} label="Heater width" />
-            <PlanNumberField field={HEATER_FIELDS.sideY} label="Heater height" />
+            <QuantityField {...sideX} label="Heater width" />
+            <QuantityField {...sideY} label="Heater height" />
           </>
         ) : (
-          <PlanNumberField field={HEATER_FIELDS.area} label="Nominal area (for the flux)" />
+          <QuantityField {...area} label="Nominal area (for the flux)" />
         )}
         <ChoiceGroup<DriveMode> legend="Drive given as" name="planner-drive" value={drive} options={DRIVES} onChange={(m) => edit('heater.drive', (p) => setDriveMode(p, m))}
           help={PLAN_OTHER_HELP['heater.drive']}
         />
         {drive === 'flux' ? (
-          <PlanNumberField field={HEATER_FIELDS.flux} label="Peak heat flux" hint="e.g. 0.1 W/cm2" />
+          <QuantityField {...flux} label="Peak heat flux" hint="e.g. 0.1 W/cm2" />
         ) : (
-          <PlanNumberField field={HEATER_FIELDS.power} label="Peak power" hint="e.g. 100 mW" />
+          <QuantityField {...power} label="Peak power" hint="e.g. 100 mW" />
         )}
       </div>
       <PulseShapeEditor />
       <div className="plan-grid">
-        <PlanNumberField field={HEATER_FIELDS.repetitionRate} label="Repetition rate" />
-        <PlanNumberField field={HEATER_FIELDS.averages} label="Pulses averaged" />
+        <QuantityField {...repetitionRate} label="Repetition rate" />
+        <QuantityField {...averages} label="Pulses averaged" />
       </div>
       <HeaterCaution />
     </EditorCard>

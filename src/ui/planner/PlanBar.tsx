@@ -5,7 +5,8 @@ import { describePlanMessage } from './plan-paths';
 import { NEW_PLAN } from './default-plan';
 import { loadDemoPlan } from './load-demo';
 import { PlanDescription } from './PlanDescription';
-import { PlanTextField } from './PlanField';
+import { TextField } from '../fields/QuantityField';
+import { usePlanText } from './use-plan-field';
 import { setPlanName } from './plan-edits';
 import { downloadPlanFile, migrationText, readPlanFile } from './plan-file-actions';
 import { useRecomputeTimes } from './recompute-timer';
@@ -27,6 +28,7 @@ export function PlanBar() {
   const plan = useSekundoStore((s) => s.plannerPlan);
   const [fileProblem, setFileProblem] = useState<{ name: string; errors: string[] } | null>(null);
   const input = useRef<HTMLInputElement>(null);
+  const name = usePlanText('plan.name', (p) => p.name, (p, text) => setPlanName(p, text));
 
   const open = async (file: File) => {
     const read = await readPlanFile(file);
@@ -51,13 +53,7 @@ export function PlanBar() {
   return (
     <section className="card plan-bar" aria-label="Plan">
       <div className="plan-bar__main">
-        <PlanTextField
-          className="plan-bar__name"
-          label="Plan name"
-          fieldKey="plan.name"
-          select={(p) => p.name}
-          edit={(p, text) => ({ ok: true, plan: setPlanName(p, text) })}
-        />
+        <TextField {...name} className="plan-bar__name" label="Plan name" />
         <div className="plan-bar__source">
           <span className={`badge plan-source plan-source--${source.kind}`}>{SOURCE_LABEL[source.kind]}</span>
           <WarningCounts />

@@ -4,7 +4,8 @@ import { HelpLabel, useFieldHelp } from '../help/FieldHelp';
 import { useSekundoStore } from '../store';
 import { PLAN_OTHER_HELP } from './planner-help';
 
-const KEY = 'plan.notes';
+/** The description's key in the fields slice (see use-plan-field.ts). */
+const KEY = 'planner.plan.notes';
 
 /** The plan with its description set; an empty description is no description (the file leaves it out). */
 export function setPlanNotes(plan: PlanFile, text: string): PlanFile {
@@ -25,30 +26,38 @@ function notesEdit(plan: PlanFile, text: string) {
 export function PlanDescription() {
   const id = useId();
   const notes = useSekundoStore((s) => s.plannerPlan.notes ?? '');
-  const draft = useSekundoStore((s) => s.plannerDrafts[KEY]);
-  const error = useSekundoStore((s) => s.plannerErrors[KEY]);
-  const type = useSekundoStore((s) => s.typePlannerField);
-  const leave = useSekundoStore((s) => s.leavePlannerField);
-  const discard = useSekundoStore((s) => s.discardPlannerDraft);
+  const draft = useSekundoStore((s) => s.fieldDrafts[KEY]);
+  const error = draft?.message ?? null;
   const help = useFieldHelp('Plan description', PLAN_OTHER_HELP['plan.notes']);
+  // The same rules as every typed field (src/ui/fields): a good text applies as it is typed, a
+  // refused one stays with its message, leaving shows the text in effect, Escape restores it.
+  const type = (text: string) => {
+    const { setFieldDraft, applyPlannerEdit } = useSekundoStore.getState();
+    setFieldDraft(KEY, { text, unit: null, message: null });
+    const message = applyPlannerEdit((plan) => notesEdit(plan, text));
+    if (message !== null) setFieldDraft(KEY, { text, unit: null, message });
+  };
+  const leave = () => {
+    if (draft && draft.message === null) useSekundoStore.getState().dropFieldDraft(KEY);
+  };
   return (
     <details className="plan-bar__notes" open={notes !== '' || draft !== undefined}>
       <summary>About this plan{notes === '' ? ' (no description yet)' : ''}</summary>
-      <HelpLabel htmlFor={id} help={help} className="plan-field__label">
+      <HelpLabel htmlFor={id} help={help} className="quantity-field__label">
         Plan description
       </HelpLabel>
       <textarea
         id={id}
         className="plan-bar__description"
         rows={3}
-        value={draft ?? notes}
+        value={draft?.text ?? notes}
         placeholder="What this plan is for: the insert, the cooldown, what to check. Printed on the setup sheet."
         aria-invalid={error ? true : undefined}
         aria-describedby={error ? `${id}-error ${help.describedBy}` : help.describedBy}
-        onChange={(event) => type(KEY, event.target.value, notesEdit)}
-        onBlur={() => leave(KEY)}
+        onChange={(event) => type(event.target.value)}
+        onBlur={leave}
         onKeyDown={(event) => {
-          if (event.key === 'Escape') discard(KEY);
+          if (event.key === 'Escape') useSekundoStore.getState().dropFieldDraft(KEY);
         }}
       />
       {error ? (

@@ -3,7 +3,10 @@ import { CUSTOM_PULSE_MAX_POINTS } from '../../physics';
 import { describedBy, HelpColumnHead, HelpLabel, useFieldHelp } from '../help/FieldHelp';
 import { usePagedRows } from '../layout/TablePager';
 import { useSekundoStore } from '../store';
-import { PlanFieldMessage, PlanNumberField } from './PlanField';
+import { PLANNER_FIELD_PREFIX } from '../store/planner-slice';
+import { QuantityField } from '../fields/QuantityField';
+import { PlanControlMessage } from './PlanControlMessage';
+import { usePlanField } from './use-plan-field';
 import { addPulsePoint, customPoints, parsePastedPoints, removePulsePoint, setPulsePoints, setShape, type ShapeKind, shapeKind } from './plan-edits';
 import { fieldRangeText, HEATER_FIELDS, pulsePointField } from './plan-fields';
 import { PLAN_OTHER_HELP, planNumberHelp } from './planner-help';
@@ -21,6 +24,8 @@ export function PulseShapeEditor() {
   const kind = useSekundoStore((s) => shapeKind(s.plannerPlan));
   const edit = useSekundoStore((s) => s.editPlanner);
   const shapeHelp = useFieldHelp('pulse shape', PLAN_OTHER_HELP['heater.shape']);
+  const width = usePlanField(HEATER_FIELDS.width);
+  const riseTime = usePlanField(HEATER_FIELDS.riseTime);
   return (
     <div className="plan-grid plan-grid--pulse">
       <div className="plan-field">
@@ -34,10 +39,10 @@ Pulse shape
             </option>
           ))}
         </select>
-        <PlanFieldMessage fieldKey="heater.shape" />
+        <PlanControlMessage controlKey="heater.shape" />
       </div>
-      {kind === 'custom' ? null : <PlanNumberField field={HEATER_FIELDS.width} label="Pulse width" />}
-      {kind === 'rectangle' ? <PlanNumberField field={HEATER_FIELDS.riseTime} label="Rise time" hint="Edge time of the heater drive." /> : null}
+      {kind === 'custom' ? null : <QuantityField {...width} label="Pulse width" />}
+      {kind === 'rectangle' ? <QuantityField {...riseTime} label="Rise time" hint="Edge time of the heater drive." /> : null}
       {kind === 'custom' ? <CustomPoints /> : null}
     </div>
   );
@@ -74,32 +79,11 @@ function CustomPoints() {
             </tr>
           </thead>
           <tbody>
-            {points.slice(start, end).map((_, k) => {
-              const i = start + k;
-              return (
+            {points.slice(start, end).map((_, k) => (
               // Points have no identity beyond their place; drafts are cleared when the list changes.
-              <tr key={i}>
-                <td className="num">{i + 1}</td>
-                <td>
-                  <PlanNumberField field={pulsePointField(i, 0)} label={`Point ${i + 1} time`} labelHidden message="elsewhere" describedBy={timeHelp.describedBy} />
-                </td>
-                <td>
-                  <PlanNumberField field={pulsePointField(i, 1)} label={`Point ${i + 1} amplitude`} labelHidden message="elsewhere" describedBy={amplitudeHelp.describedBy} />
-                </td>
-                <td>
-                  <button
-                    type="button"
-                    className="icon-button"
-                    disabled={count <= 2}
-                    aria-label={`Remove point ${i + 1}`}
-                    onClick={() => edit('pulse.points', (p) => removePulsePoint(p, i), 'pulse.')}
-                  >
-                    <RemoveIcon />
-                  </button>
-                </td>
-              </tr>
-              );
-            })}
+              // biome-ignore lint/suspicious/noArrayIndexKey: see the line above
+              <PointRow key={start + k} index={start + k} count={count} timeHelp={timeHelp.describedBy} amplitudeHelp={amplitudeHelp.describedBy} />
+            ))}
           </tbody>
         </table>
       </div>
@@ -115,6 +99,29 @@ function CustomPoints() {
       </div>
       <PastePoints />
     </div>
+  );
+}
+
+/** One custom pulse point: its time and amplitude, and its remove button. */
+function PointRow({ index: i, count, timeHelp, amplitudeHelp }: { index: number; count: number; timeHelp: string; amplitudeHelp: string }) {
+  const edit = useSekundoStore((s) => s.editPlanner);
+  const time = usePlanField(pulsePointField(i, 0));
+  const amplitude = usePlanField(pulsePointField(i, 1));
+  return (
+    <tr>
+      <td className="num">{i + 1}</td>
+      <td>
+        <QuantityField {...time} label={`Point ${i + 1} time`} labelHidden message="elsewhere" describedBy={timeHelp} />
+      </td>
+      <td>
+        <QuantityField {...amplitude} label={`Point ${i + 1} amplitude`} labelHidden message="elsewhere" describedBy={amplitudeHelp} />
+      </td>
+      <td>
+        <button type="button" className="icon-button" disabled={count <= 2} aria-label={`Remove point ${i + 1}`} onClick={() => edit('pulse.points', (p) => removePulsePoint(p, i), 'pulse.')}>
+          <RemoveIcon />
+        </button>
+      </td>
+    </tr>
   );
 }
 
@@ -172,7 +179,7 @@ Pulse points, one “time, amplitude” per line
 function PointMessages() {
   // Messages of every point (those on other pages too), in point order, then the list's own.
   const shown = useSekundoStore((s) =>
-    Object.keys(s.plannerErrors)
+    [...Object.keys(s.plannerErrors), ...Object.keys(s.fieldDrafts).filter((k) => k.startsWith(PLANNER_FIELD_PREFIX) && s.fieldDrafts[k]?.message).map((k) => k.slice(PLANNER_FIELD_PREFIX.length))]
       .filter((k) => /^pulse\.\d+\./.test(k) || k === 'pulse.points')
       .sort((a, b) => (a === 'pulse.points' ? 1 : b === 'pulse.points' ? -1 : a.localeCompare(b, undefined, { numeric: true })))
       .join('\n'),
@@ -181,7 +188,7 @@ function PointMessages() {
   return (
     <div className="pulse-points__messages">
       {shown.split('\n').map((k) => (
-        <PlanFieldMessage key={k} fieldKey={k} />
+        <PlanControlMessage key={k} controlKey={k} />
       ))}
     </div>
   );

@@ -3,7 +3,9 @@ import { type FieldHelpParts, HelpColumnHead, useFieldHelp } from '../help/Field
 import { useSekundoStore } from '../store';
 import { PLANNER_STRUCTURE_KEY } from '../store/planner-slice';
 import { EditorCard } from './EditorCard';
-import { messageId, PlanFieldMessage, PlanNumberField, PlanTextField } from './PlanField';
+import { QuantityField, TextField } from '../fields/QuantityField';
+import { PlanControlMessage, RowMessages } from './PlanControlMessage';
+import { usePlanField, usePlanText } from './use-plan-field';
 import { MAX_SENSORS, type PositionMode, positionMode, setPositionMode, setSensorText } from './plan-edits';
 import { fieldRangeText, type NumberField, sensorFields } from './plan-fields';
 import { PLAN_OTHER_HELP, planNumberHelp, planUnitsText, sensorPositionHelp } from './planner-help';
@@ -101,7 +103,7 @@ export function SensorsEditor() {
           ))}
         </table>
       </div>
-      <PlanFieldMessage fieldKey={PLANNER_STRUCTURE_KEY} />
+      <PlanControlMessage controlKey={PLANNER_STRUCTURE_KEY} />
     </EditorCard>
   );
 }
@@ -111,10 +113,17 @@ function SensorRow({ index, rowKey, count, help }: { index: number; rowKey: stri
   const duplicate = useSekundoStore((s) => s.duplicatePlannerSensor);
   const theme = useResolvedTheme();
   const remove = useSekundoStore((s) => s.removePlannerSensor);
-  if (!sensor) return null;
   const fields = sensorFields(index, rowKey);
-  const n = index + 1;
   const textKeys = [`sensor.${rowKey}.id`, `sensor.${rowKey}.label`, `sensor.${rowKey}.mode`];
+  const id = usePlanText(textKeys[0] as string, (p) => p.sensors[index]?.id ?? '', (p, text) => setSensorText(p, index, 'id', text));
+  const label = usePlanText(textKeys[1] as string, (p) => p.sensors[index]?.label ?? '', (p, text) => setSensorText(p, index, 'label', text));
+  const distanceSd = usePlanField(fields.distanceSd);
+  const area = usePlanField(fields.area);
+  const responsivity = usePlanField(fields.responsivity);
+  const noise = usePlanField(fields.noise);
+  const lag = usePlanField(fields.lag);
+  if (!sensor) return null;
+  const n = index + 1;
   const messageKeys = [...textKeys, ...Object.values(fields).map((f) => f.key)];
   return (
     <tbody className="sensor-row">
@@ -124,46 +133,28 @@ function SensorRow({ index, rowKey, count, help }: { index: number; rowKey: stri
           {n}
         </td>
         <td>
-          <PlanTextField
-            className="plan-field--id"
-            label={`Sensor ${n} id`}
-            labelHidden
-            message="elsewhere"
-            describedBy={help.id.describedBy}
-            fieldKey={textKeys[0] as string}
-            select={(p) => p.sensors[index]?.id ?? ''}
-            edit={(p, text) => ({ ok: true, plan: setSensorText(p, index, 'id', text) })}
-          />
+          <TextField {...id} help={undefined} className="plan-field--id" label={`Sensor ${n} id`} labelHidden message="elsewhere" describedBy={help.id.describedBy} />
         </td>
         <td>
-          <PlanTextField
-            className="plan-field--label"
-            label={`Sensor ${n} label`}
-            labelHidden
-            message="elsewhere"
-            describedBy={help.label.describedBy}
-            fieldKey={textKeys[1] as string}
-            select={(p) => p.sensors[index]?.label ?? ''}
-            edit={(p, text) => ({ ok: true, plan: setSensorText(p, index, 'label', text) })}
-          />
+          <TextField {...label} help={undefined} className="plan-field--label" label={`Sensor ${n} label`} labelHidden message="elsewhere" describedBy={help.label.describedBy} />
         </td>
         <td>
           <PositionCell index={index} sensor={sensor} fields={fields} modeKey={textKeys[2] as string} help={help.position.describedBy} />
         </td>
         <td>
-          <PlanNumberField field={fields.distanceSd} label={`Sensor ${n} distance sd`} labelHidden message="elsewhere" describedBy={help.distanceSd.describedBy} />
+          <QuantityField {...distanceSd} label={`Sensor ${n} distance sd`} labelHidden message="elsewhere" describedBy={help.distanceSd.describedBy} />
         </td>
         <td>
-          <PlanNumberField field={fields.area} label={`Sensor ${n} area`} labelHidden message="elsewhere" describedBy={help.area.describedBy} />
+          <QuantityField {...area} label={`Sensor ${n} area`} labelHidden message="elsewhere" describedBy={help.area.describedBy} />
         </td>
         <td>
-          <PlanNumberField field={fields.responsivity} label={`Sensor ${n} responsivity`} labelHidden message="elsewhere" describedBy={help.responsivity.describedBy} />
+          <QuantityField {...responsivity} label={`Sensor ${n} responsivity`} labelHidden message="elsewhere" describedBy={help.responsivity.describedBy} />
         </td>
         <td>
-          <PlanNumberField field={fields.noise} label={`Sensor ${n} noise`} labelHidden message="elsewhere" describedBy={help.noise.describedBy} />
+          <QuantityField {...noise} label={`Sensor ${n} noise`} labelHidden message="elsewhere" describedBy={help.noise.describedBy} />
         </td>
         <td>
-          <PlanNumberField field={fields.lag} label={`Sensor ${n} lag`} labelHidden message="elsewhere" describedBy={help.lag.describedBy} />
+          <QuantityField {...lag} label={`Sensor ${n} lag`} labelHidden message="elsewhere" describedBy={help.lag.describedBy} />
         </td>
         <td className="row-actions">
           <button type="button" className="icon-button" aria-label={`Duplicate sensor ${n} (${sensor.id})`} title="Duplicate" disabled={count >= MAX_SENSORS} onClick={() => duplicate(index)}>
@@ -183,6 +174,10 @@ function PositionCell({ index, sensor, fields, modeKey, help }: { index: number;
   const edit = useSekundoStore((s) => s.editPlanner);
   const mode = positionMode(sensor);
   const n = index + 1;
+  const distance = usePlanField(fields.distance);
+  const x = usePlanField(fields.x);
+  const y = usePlanField(fields.y);
+  const z = usePlanField(fields.z);
   return (
     <div className="position-cell">
       <select
@@ -196,32 +191,14 @@ function PositionCell({ index, sensor, fields, modeKey, help }: { index: number;
         <option value="xyz">x y z</option>
       </select>
       {mode === 'axis' ? (
-        <PlanNumberField field={fields.distance} label={`Sensor ${n} distance`} labelHidden message="elsewhere" describedBy={help} />
+        <QuantityField {...distance} label={`Sensor ${n} distance`} labelHidden message="elsewhere" describedBy={help} />
       ) : (
         <>
-          <PlanNumberField field={fields.x} label={`Sensor ${n} x`} labelHidden message="elsewhere" describedBy={help} />
-          <PlanNumberField field={fields.y} label={`Sensor ${n} y`} labelHidden message="elsewhere" describedBy={help} />
-          <PlanNumberField field={fields.z} label={`Sensor ${n} z`} labelHidden message="elsewhere" describedBy={help} />
+          <QuantityField {...x} label={`Sensor ${n} x`} labelHidden message="elsewhere" describedBy={help} />
+          <QuantityField {...y} label={`Sensor ${n} y`} labelHidden message="elsewhere" describedBy={help} />
+          <QuantityField {...z} label={`Sensor ${n} z`} labelHidden message="elsewhere" describedBy={help} />
         </>
       )}
     </div>
-  );
-}
-
-/** The messages of a table row's fields, in a full-width row right under it. */
-export function RowMessages({ keys, colSpan }: { keys: readonly string[]; colSpan: number }) {
-  const errors = useSekundoStore((s) => s.plannerErrors);
-  const shown = keys.filter((k) => errors[k]);
-  if (shown.length === 0) return null;
-  return (
-    <tr className="row-messages">
-      <td colSpan={colSpan}>
-        {shown.map((k) => (
-          <p key={k} id={messageId(k)} className="field-error plan-field__error" role="alert">
-            {errors[k]}
-          </p>
-        ))}
-      </td>
-    </tr>
   );
 }

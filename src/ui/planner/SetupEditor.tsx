@@ -2,13 +2,14 @@ import { SPACER_MATERIALS } from '../../physics';
 import { describedBy, type FieldHelpParts, HelpColumnHead, HelpLabel, useFieldHelp } from '../help/FieldHelp';
 import { useSekundoStore } from '../store';
 import { EditorCard } from './EditorCard';
-import { PlanFieldMessage, PlanNumberField, PlanTextField } from './PlanField';
+import { QuantityField, TextField } from '../fields/QuantityField';
+import { PlanControlMessage, RowMessages } from './PlanControlMessage';
+import { usePlanField, usePlanText } from './use-plan-field';
 import { MAX_REFLECTORS, setReflectionSource, setReflector, setSpacer } from './plan-edits';
 import { usePlanOutcome } from './use-plan';
 import { ECHO_ORDER_FIELD, fieldRangeText, reflectorFields } from './plan-fields';
 import { PLAN_OTHER_HELP, planNumberHelp } from './planner-help';
 import { RemoveIcon } from './RowIcons';
-import { RowMessages } from './SensorsEditor';
 
 /** Spacer material (cold path lengths) and the reflecting planes that make echoes. */
 export function SetupEditor() {
@@ -16,6 +17,7 @@ export function SetupEditor() {
   const edit = useSekundoStore((s) => s.editPlanner);
   const material = SPACER_MATERIALS.find((m) => m.id === spacer.materialId);
   const spacerHelp = useFieldHelp('spacer material', PLAN_OTHER_HELP['spacer.materialId']);
+  const echoOrder = usePlanField(ECHO_ORDER_FIELD);
   const warmHelp = useFieldHelp('distances measured warm', PLAN_OTHER_HELP['spacer.measuredWarm']);
   return (
     <EditorCard id="planner-setup" title="Spacer and reflections">
@@ -38,7 +40,7 @@ Spacer material
           </select>
           <p id="planner-spacer-note" className="field-hint plan-field__hint">
             Contraction 293 K → 4 K{material ? `: ${(material.contraction * 100).toFixed(2)} ± ${(material.contractionSd * 100).toFixed(2)} %` : ''} ({material?.source ?? 'handbook'}).</p>
-          <PlanFieldMessage fieldKey="spacer.materialId" />
+          <PlanControlMessage controlKey="spacer.materialId" />
         </div>
         <div className="plan-field plan-field--check">
           <div className="field-head">
@@ -58,7 +60,7 @@ Spacer material
       </div>
       <Reflectors />
       <div className="plan-grid">
-        <PlanNumberField field={ECHO_ORDER_FIELD} label="Echo order" hint="Most reflections followed per echo (0 = none)." />
+        <QuantityField {...echoOrder} label="Echo order" hint="Most reflections followed per echo (0 = none)." />
       </div>
     </EditorCard>
   );
@@ -148,27 +150,22 @@ function ReflectorRow({ index, rowKey, help }: { index: number; rowKey: string; 
   const edit = useSekundoStore((s) => s.editPlanner);
   const remove = useSekundoStore((s) => s.removePlannerReflector);
   const outcome = usePlanOutcome();
+  const fields = reflectorFields(index, rowKey);
+  const labelKey = `plane.${rowKey}.label`;
+  const axisKey = `plane.${rowKey}.axis`;
+  const position = usePlanField(fields.position);
+  const reflection = usePlanField(fields.reflection);
+  const label = usePlanText(labelKey, (p) => p.reflectors[index]?.label ?? '', (p, text) => setReflector(p, index, { label: text }));
   if (!plane) return null;
   const used = outcome.ok ? outcome.result.planes.filter((p) => p.source !== 'heater-plate')[index] : undefined;
   const measured = plane.reflection !== undefined;
   const sourceKey = `plane.${rowKey}.source`;
   const n = index + 1;
-  const fields = reflectorFields(index, rowKey);
-  const labelKey = `plane.${rowKey}.label`;
-  const axisKey = `plane.${rowKey}.axis`;
   return (
     <tbody>
       <tr>
         <td>
-          <PlanTextField
-            label={`Plane ${n} label`}
-            labelHidden
-            message="elsewhere"
-            describedBy={help.label.describedBy}
-            fieldKey={labelKey}
-            select={(p) => p.reflectors[index]?.label ?? ''}
-            edit={(p, text) => ({ ok: true, plan: setReflector(p, index, { label: text }) })}
-          />
+          <TextField {...label} help={undefined} label={`Plane ${n} label`} labelHidden message="elsewhere" describedBy={help.label.describedBy} />
         </td>
         <td>
           <select
@@ -184,7 +181,7 @@ function ReflectorRow({ index, rowKey, help }: { index: number; rowKey: string; 
           </select>
         </td>
         <td>
-          <PlanNumberField field={fields.position} label={`Plane ${n} position`} labelHidden message="elsewhere" describedBy={help.position.describedBy} />
+          <QuantityField {...position} label={`Plane ${n} position`} labelHidden message="elsewhere" describedBy={help.position.describedBy} />
         </td>
         <td>
           <select
@@ -200,7 +197,7 @@ function ReflectorRow({ index, rowKey, help }: { index: number; rowKey: string; 
         </td>
         <td>
           {measured ? (
-            <PlanNumberField field={fields.reflection} label={`Plane ${n} reflection R`} labelHidden message="elsewhere" describedBy={help.reflection.describedBy} />
+            <QuantityField {...reflection} label={`Plane ${n} reflection R`} labelHidden message="elsewhere" describedBy={help.reflection.describedBy} />
           ) : (
             <span className="plane-r" title={used?.note}>
               {used ? used.reflection.toFixed(4) : '—'}

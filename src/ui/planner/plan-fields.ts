@@ -1,10 +1,10 @@
 /**
- * The planner's numeric fields: what each edits in the plan file, its label, units and valid
- * range. Reading a typed value gives the SI number or a message that names the field and its
- * range; the store applies the value only when the whole plan then checks out.
+ * The planner's field specs: each is a FieldSpec (src/ui/fields) with what it edits in the plan
+ * file, and a valid range that may depend on the rest of the plan (the rise time is at most the
+ * pulse width). use-plan-field.ts binds them to the store for QuantityField; the planner applies a
+ * typed value only when the whole plan then checks out.
  */
 import { FLUX_RANGE_W_M2, type PlanFile, type PlanFileReflector, type PlanFileSensor } from '../../io/plan-file';
-import { parseQuantity, QuantityParseError, type Unit, unitsOf } from '../../io/quantity';
 import {
   MAX_ECHO_ORDER,
   PATH_LENGTH_RANGE_M,
@@ -14,115 +14,43 @@ import {
   VAPOUR_PRESSURE_RANGE_PA,
   vapourPressure,
 } from '../../physics';
-import type { DisplayUnits } from '../units/unit-choices';
-import { inputText, KINDS, plainNumber, type QuantityKind, rangeText, shownLadder, unitFor } from '../units/ladders';
+import { type FieldSpec, fieldRangeText as specRangeText, type Range } from '../fields/field-spec';
+import { KINDS, type QuantityKind } from '../units/ladders';
 
-export type Range = readonly [number, number];
+export type { Range };
 
 /** A change to the plan, or why it was refused. */
 export type PlanEdit = { ok: true; plan: PlanFile } | { ok: false; message: string };
 
-export interface NumberField {
-  /** Store key for the field's draft text and message; unique on the page. */
+/** A planner field: a FieldSpec whose range may follow the plan, and how it reads and sets the plan. */
+export interface NumberField extends Omit<FieldSpec, 'range'> {
+  /** Key of the field on the page (its help, its draft under "planner."); unique. */
   key: string;
-  /** Label as shown; messages start with it. */
-  label: string;
-  /** The quantity typed (with units); null for a plain number. */
-  kind: QuantityKind | null;
   /** Valid range in SI, possibly depending on the rest of the plan. */
   range: Range | ((plan: PlanFile) => Range);
-  integer?: boolean;
-  /** Words after the range in messages, e.g. "at most the pulse width". */
-  rangeNote?: string;
   get(plan: PlanFile): number | undefined;
   set(plan: PlanFile, value: number): PlanFile;
 }
 
-export type FieldRead = { ok: true; value: number } | { ok: false; message: string };
-
-function rangeOf(field: NumberField, plan: PlanFile): Range {
+/** The field's valid range against `plan`. */
+export function rangeOf(field: NumberField, plan: PlanFile): Range {
   return typeof field.range === 'function' ? field.range(plan) : field.range;
+}
+
+/** The field as a FieldSpec with the given range. */
+export function specWithRange(field: NumberField, range: Range): FieldSpec {
+  const { key: _key, get: _get, set: _set, range: _range, ...spec } = field;
+  return { ...spec, range };
+}
+
+/** The field as a FieldSpec with its range against `plan`. */
+export function planFieldSpec(field: NumberField, plan: PlanFile): FieldSpec {
+  return specWithRange(field, rangeOf(field, plan));
 }
 
 /** The valid range of a field as people read it: "10 ns–10 s", "a whole number 1–10000000". */
 export function fieldRangeText(field: NumberField, plan: PlanFile): string {
-  const [min, max] = rangeOf(field, plan);
-  const text = field.kind
-    ? rangeText(min, max, field.kind.ladder, field.kind.zero)
-    : min < 0
-      ? `from ${plainNumber(min).replace(/^-/, '\u2212')} to ${plainNumber(max)}`
-      : `${plainNumber(min)}–${plainNumber(max)}`;
-  const whole = field.integer ? 'a whole number ' : '';
-  return `${whole}${text}${field.rangeNote ? ` (${field.rangeNote})` : ''}`;
-}
-
-const PLAIN_NUMBER = /^[+-]?(?:\d+(?:\.\d*)?|\.\d+)(?:[eE][+-]?\d+)?$/;
-
-/**
- * Reads typed text for a field against the current plan: the SI value, or a message. A bare number
- * is in `bareUnit`, the unit the field shows (typing 30 where "10 mm" stood means 30 mm); without
- * one, in the SI unit. The same rule as the converter and locate fields.
- */
-export function readField(field: NumberField, plan: PlanFile, text: string, bareUnit?: Unit): FieldRead {
-  const trimmed = text.trim().replace(/\u2212/g, '-');
-  const range = fieldRangeText(field, plan);
-  if (trimmed === '') return { ok: false, message: `${field.label} is empty: type a value, ${range}.` };
-  let value: number;
-  if (field.kind) {
-    try {
-      value = parseQuantity(bareUnit && PLAIN_NUMBER.test(trimmed) ? `${trimmed} ${bareUnit}` : trimmed, field.kind.dimension);
-    } catch (error) {
-      if (!(error instanceof QuantityParseError)) throw error;
-      const units = unitsOf(field.kind.dimension).join(', ');
-      return { ok: false, message: `${field.label}: ${unitProblem(error)} Type e.g. ${field.kind.example} (units ${units}); valid ${range}.` };
-    }
-  } else {
-    if (!PLAIN_NUMBER.test(trimmed)) return { ok: false, message: `${field.label} must be a number, ${range}; “${text.trim()}” is not one.` };
-    value = Number(trimmed);
-  }
-  const [min, max] = rangeOf(field, plan);
-  if (!(value >= min && value <= max) || (field.integer && !Number.isInteger(value))) {
-    return { ok: false, message: `${field.label} must be ${range}; “${text.trim()}” is outside.` };
-  }
-  return { ok: true, value };
-}
-
-function unitProblem(error: QuantityParseError): string {
-  switch (error.problem) {
-    case 'not-a-number':
-      return `“${error.input.trim()}” does not start with a number.`;
-    case 'unknown-unit':
-      return `“${error.input.trim()}” has a unit that is not a ${error.dimension}.`;
-    case 'non-finite':
-      return `“${error.input.trim()}” is not a finite number.`;
-    default:
-      return 'the field is empty.';
-  }
-}
-
-/**
- * The field's current value as text for its input ("100 µs"); empty when the plan has none. With
- * `units`, quantities that follow the header's display units are shown in the chosen one ("0.1 ms").
- */
-export function fieldText(field: NumberField, plan: PlanFile, units?: DisplayUnits): string {
-  const value = field.get(plan);
-  if (value === undefined) return '';
-  if (!field.kind) return plainNumber(value);
-  const { ladder, zero } = shownLadder(field.kind, units);
-  return inputText(value, ladder, zero);
-}
-
-/** The unit the field shows its value in ("mm" for "10 mm"); null for a plain-number field. */
-export function fieldUnit(field: NumberField, plan: PlanFile, units?: DisplayUnits): Unit | null {
-  if (!field.kind) return null;
-  const { ladder, zero } = shownLadder(field.kind, units);
-  return unitFor(field.get(plan) ?? 0, ladder, zero).unit;
-}
-
-/** The edit typing `text` into `field` makes (before the whole-plan check); a bare number is in `bareUnit`. */
-export function editField(field: NumberField, plan: PlanFile, text: string, bareUnit?: Unit): PlanEdit {
-  const read = readField(field, plan, text, bareUnit);
-  return read.ok ? { ok: true, plan: field.set(plan, read.value) } : read;
+  return specRangeText(planFieldSpec(field, plan));
 }
 
 // ---------------------------------------------------------------------------------------------

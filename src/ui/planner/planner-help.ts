@@ -8,7 +8,7 @@
  * kernel, so help and validation cannot disagree.
  */
 import { MAX_ID_CHARS, MAX_LABEL_CHARS, MAX_NAME_CHARS, MAX_NOTES_CHARS, MAX_REFLECTORS } from '../../io/plan-file';
-import { fromBaseUnit, unitsOf } from '../../io/quantity';
+import { unitsOf } from '../../io/quantity';
 import {
   CUSTOM_PULSE_MAX_POINTS,
   SAMPLES_PER_EDGE,
@@ -181,10 +181,9 @@ export function planHelpKey(fieldKey: string): string {
 /** The units a number field takes, from the parser's own unit table. */
 export function planUnitsText(field: NumberField): string {
   if (!field.kind) return field.integer ? 'a whole number, no unit' : 'a plain number, no unit';
-  const { dimension, ladder, example } = field.kind;
+  const { dimension, example } = field.kind;
   const units = unitsOf(dimension);
-  const base = ladder.find((d) => fromBaseUnit(1, d.unit) === 1)?.shown ?? units.find((unit) => fromBaseUnit(1, unit) === 1);
-  return `any ${dimension} unit, typed after the number (${units.join(', ')}), e.g. ${example}; a bare number is in ${base}`;
+  return `any ${dimension} unit, typed after the number (${units.join(', ')}), e.g. ${example}; a bare number is in the unit shown beside the box`;
 }
 
 /**

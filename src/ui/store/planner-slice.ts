@@ -26,9 +26,6 @@ export interface PlannerSource {
 /** What the timeline shows: the direct arrivals, the whole record, or the heater and first sound. */
 export type TimelineView = 'arrivals' | 'record' | 'early';
 
-/** A change made from text: the plan it gives, or why it is refused. */
-export type TextEdit = (plan: PlanFile, text: string) => PlanEdit;
-
 /**
  * The measurement planner's inputs: the plan file (always one the schema and kernel accept), the
  * text of fields being typed or refused, and which sensor the resolution map follows. Results are
@@ -41,9 +38,10 @@ export interface PlannerSlice {
   plannerSource: PlannerSource;
   /** The plan as it was opened (same object as plannerPlan until the first edit): unchanged work needs no keeping. */
   plannerOpenedPlan: PlanFile;
-  /** Text typed into fields, by field key, until the field is left with a good value. */
-  plannerDrafts: Readonly<Record<string, string>>;
-  /** Why a field's text was refused (the plan keeps its last good value), by field key. */
+  /**
+   * Why a change from a control (select, button) was refused, by key. Typed fields keep their
+   * drafts and messages in the fields slice under "planner.<key>" (src/ui/fields).
+   */
   plannerErrors: Readonly<Record<string, string>>;
   /** Stable keys of the sensor rows and plane rows (React keys and field keys), in plan order. */
   plannerSensorKeys: readonly string[];
@@ -54,12 +52,8 @@ export interface PlannerSlice {
   beginPlannerLoad: () => void;
   /** Replaces the whole plan (demo, built-in, file); clears drafts and messages. */
   loadPlannerPlan: (plan: PlanFile, source: PlannerSource) => void;
-  /** Text typed into a field: kept as the draft; applied when it gives a good plan, otherwise refused with a message. */
-  typePlannerField: (key: string, text: string, edit: TextEdit) => void;
-  /** Leaving a field: a good draft gives way to the plan's value; a refused one stays with its message. */
-  leavePlannerField: (key: string) => void;
-  /** Drops a field's draft and message (Escape): the field shows the plan's value again. */
-  discardPlannerDraft: (key: string) => void;
+  /** A change from a typed field: made when the plan then checks out; returns the refusal, or null. */
+  applyPlannerEdit: (change: (plan: PlanFile) => PlanEdit | PlanFile) => string | null;
   /**
    * A change from a control (select, checkbox, button); a refusal is shown under `key`. Drafts and
    * messages of fields starting with `clearPrefix` go when the change is made (renumbered rows).
@@ -91,7 +85,10 @@ function without(record: Readonly<Record<string, string>>, key: string): Record<
   return copy;
 }
 
-/** Drops drafts and messages whose key starts with one of the prefixes (rows removed or renumbered). */
+/** Prefix of the planner's field keys in the fields slice. */
+export const PLANNER_FIELD_PREFIX = 'planner.';
+
+/** Drops messages whose key starts with one of the prefixes (rows removed or renumbered). */
 function withoutPrefixes(record: Readonly<Record<string, string>>, prefixes: readonly string[]): Record<string, string> {
   return Object.fromEntries(Object.entries(record).filter(([key]) => !prefixes.some((p) => key.startsWith(p))));
 }
@@ -109,13 +106,16 @@ export const createPlannerSlice: StateCreator<SekundoState, [], [], PlannerSlice
   };
 
   const refuse = (key: string, message: string): void => set({ plannerErrors: { ...get().plannerErrors, [key]: message } });
+  /** Drops the drafts of typed fields whose planner key starts with one of the prefixes. */
+  const dropDrafts = (prefixes: readonly string[]): void => {
+    for (const prefix of prefixes) get().dropFieldDrafts(`${PLANNER_FIELD_PREFIX}${prefix}`);
+  };
 
   return {
     plannerPlan: BUILT_IN_PLAN,
     plannerStatus: 'idle',
     plannerSource: { kind: 'built-in', note: null },
     plannerOpenedPlan: BUILT_IN_PLAN,
-    plannerDrafts: {},
     plannerErrors: {},
     ...freshKeys(BUILT_IN_PLAN),
     plannerMapSensorKey: null,
@@ -124,34 +124,25 @@ export const createPlannerSlice: StateCreator<SekundoState, [], [], PlannerSlice
     beginPlannerLoad: () => set({ plannerStatus: 'loading' }),
 
     loadPlannerPlan: (plan, source) => {
-      set({ plannerPlan: plan, plannerOpenedPlan: plan, plannerSource: source, plannerStatus: 'ready', plannerDrafts: {}, plannerErrors: {}, plannerMapSensorKey: null, ...freshKeys(plan) });
+      dropDrafts(['']);
+      set({ plannerPlan: plan, plannerOpenedPlan: plan, plannerSource: source, plannerStatus: 'ready', plannerErrors: {}, plannerMapSensorKey: null, ...freshKeys(plan) });
     },
 
-    typePlannerField: (key, text, edit) => {
-      const state = get();
-      set({ plannerDrafts: { ...state.plannerDrafts, [key]: text } });
-      const result = edit(state.plannerPlan, text);
-      const problem = result.ok ? commit(result.plan) : result.message;
-      if (problem === null) set({ plannerErrors: without(get().plannerErrors, key) });
-      else refuse(key, problem);
+    applyPlannerEdit: (change) => {
+      const result = change(get().plannerPlan);
+      const edit: PlanEdit = 'ok' in result ? result : { ok: true, plan: result };
+      return edit.ok ? commit(edit.plan) : edit.message;
     },
-
-    leavePlannerField: (key) => {
-      const { plannerErrors, plannerDrafts } = get();
-      if (key in plannerErrors || !(key in plannerDrafts)) return;
-      set({ plannerDrafts: without(plannerDrafts, key) });
-    },
-
-    discardPlannerDraft: (key) => set({ plannerDrafts: without(get().plannerDrafts, key), plannerErrors: without(get().plannerErrors, key) }),
 
     editPlanner: (key, change, clearPrefix) => {
-      const { plannerPlan, plannerDrafts, plannerErrors } = get();
+      const { plannerPlan, plannerErrors } = get();
       const result = change(plannerPlan);
       const edit: PlanEdit = 'ok' in result ? result : { ok: true, plan: result };
       const prefixes = clearPrefix === undefined ? [] : [clearPrefix];
-      const extra = { plannerErrors: withoutPrefixes(without(plannerErrors, key), prefixes), plannerDrafts: withoutPrefixes(plannerDrafts, prefixes) };
+      const extra = { plannerErrors: withoutPrefixes(without(plannerErrors, key), prefixes) };
       const problem = edit.ok ? commit(edit.plan, extra) : edit.message;
       if (problem !== null) refuse(key, problem);
+      else dropDrafts(prefixes);
     },
 
     addPlannerSensor: () => {
@@ -170,17 +161,17 @@ export const createPlannerSlice: StateCreator<SekundoState, [], [], PlannerSlice
     },
 
     removePlannerSensor: (index) => {
-      const { plannerPlan, plannerSensorKeys, plannerDrafts, plannerErrors, plannerMapSensorKey } = get();
+      const { plannerPlan, plannerSensorKeys, plannerErrors, plannerMapSensorKey } = get();
       if (plannerPlan.sensors.length <= 1) return refuse(STRUCTURE_ERROR_KEY, 'A plan needs at least one sensor.');
       const removed = plannerSensorKeys[index];
       const prefixes = removed === undefined ? [] : [`sensor.${removed}.`];
       const problem = commit(removeSensor(plannerPlan, index), {
         plannerSensorKeys: plannerSensorKeys.filter((_, i) => i !== index),
-        plannerDrafts: withoutPrefixes(plannerDrafts, prefixes),
         plannerErrors: withoutPrefixes(without(plannerErrors, STRUCTURE_ERROR_KEY), prefixes),
         plannerMapSensorKey: plannerMapSensorKey === removed ? null : plannerMapSensorKey,
       });
       if (problem !== null) refuse(STRUCTURE_ERROR_KEY, problem);
+      else dropDrafts(prefixes);
     },
 
     addPlannerReflector: () => {
@@ -191,15 +182,15 @@ export const createPlannerSlice: StateCreator<SekundoState, [], [], PlannerSlice
     },
 
     removePlannerReflector: (index) => {
-      const { plannerPlan, plannerReflectorKeys, plannerDrafts, plannerErrors } = get();
+      const { plannerPlan, plannerReflectorKeys, plannerErrors } = get();
       const removed = plannerReflectorKeys[index];
       const prefixes = removed === undefined ? [] : [`plane.${removed}.`];
       const problem = commit(removeReflector(plannerPlan, index), {
         plannerReflectorKeys: plannerReflectorKeys.filter((_, i) => i !== index),
-        plannerDrafts: withoutPrefixes(plannerDrafts, prefixes),
         plannerErrors: withoutPrefixes(plannerErrors, prefixes),
       });
       if (problem !== null) refuse(STRUCTURE_ERROR_KEY, problem);
+      else dropDrafts(prefixes);
     },
 
     setPlannerMapSensor: (key) => set({ plannerMapSensorKey: key }),

@@ -6,6 +6,7 @@
  */
 import { useSekundoStore } from '../store';
 import type { SekundoState } from '../store';
+import { PLANNER_FIELD_PREFIX } from '../store/planner-slice';
 import { type PlanSnapshot, useWorkspaceStore } from './workspace-store';
 
 /** Steps kept each way. */
@@ -29,10 +30,10 @@ function onChange(state: SekundoState, prev: SekundoState): void {
     coalesceKey = null;
     return;
   }
-  if (state.plannerDrafts !== prev.plannerDrafts) {
-    for (const key of Object.keys(prev.plannerDrafts)) if (!(key in state.plannerDrafts)) coalesceKey = null;
-    for (const [key, text] of Object.entries(state.plannerDrafts)) {
-      if (prev.plannerDrafts[key] !== text) {
+  if (state.fieldDrafts !== prev.fieldDrafts) {
+    for (const key of Object.keys(prev.fieldDrafts)) if (!(key in state.fieldDrafts)) coalesceKey = null;
+    for (const [key, draft] of Object.entries(state.fieldDrafts)) {
+      if (key.startsWith(PLANNER_FIELD_PREFIX) && prev.fieldDrafts[key]?.text !== draft.text) {
         typingKey = key;
         queueMicrotask(() => {
           typingKey = null;
@@ -68,13 +69,13 @@ function restore(snapshot: PlanSnapshot): void {
       plannerPlan: snapshot.plan,
       plannerSensorKeys: snapshot.sensorKeys,
       plannerReflectorKeys: snapshot.reflectorKeys,
-      plannerDrafts: {},
       plannerErrors: {},
       plannerMapSensorKey: mapKey !== null && snapshot.sensorKeys.includes(mapKey) ? mapKey : null,
     });
   } finally {
     restoring = false;
   }
+  state.dropFieldDrafts(PLANNER_FIELD_PREFIX);
   coalesceKey = null;
 }
 

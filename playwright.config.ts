@@ -23,7 +23,7 @@ export default defineConfig({
     // guides start from empty storage (tests/e2e/workspace-habits.spec.ts).
     storageState: {
       cookies: [],
-      origins: [{ origin: BASE_URL, localStorage: [{ name: 'sekundo.prefs', value: '{"guides":"explorer,planner,converter,locate"}' }] }],
+      origins: [{ origin: BASE_URL, localStorage: [{ name: 'sekundo.prefs', value: '{"guides":"explorer,planner,converter,locate,resonator"}' }] }],
     },
     viewport: { width: 1280, height: 720 },
     trace: 'retain-on-failure',

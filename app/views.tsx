@@ -3,6 +3,7 @@ import { ConverterView } from '../src/ui/converter/ConverterView';
 import { ExplorerView } from '../src/ui/explorer/ExplorerView';
 import { LocateView } from '../src/ui/locate/LocateView';
 import { PlannerView } from '../src/ui/planner/PlannerView';
+import { ResonatorView } from '../src/ui/resonator/ResonatorView';
 import type { ViewId } from '../src/ui/store/view-slice';
 
 /** The page's views, in tab order. A new view adds its id to ViewId and an entry here. */
@@ -42,5 +43,12 @@ export const VIEWS: readonly ViewEntry[] = [
     purpose:
       'Where is the heat source? Arrival times at several sensors → its position with 1σ and 2σ regions and residuals; before a cooldown, how well a sensor layout would place it.',
     component: LocateView,
+  },
+  {
+    id: 'resonator',
+    label: 'Resonator',
+    purpose:
+      'Standing waves: plan a second-sound resonator, read a frequency sweep into a bath temperature and a vortex line density, and follow a lock-in record over time.',
+    component: ResonatorView,
   },
 ];

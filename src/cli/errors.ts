@@ -51,6 +51,6 @@ export function fieldOf(error: UsageError): string | null {
   if (error.field !== null) return error.field;
   const flag = /^(--[a-z][\w-]*)/.exec(error.message)?.[1];
   if (flag) return flag;
-  const file = /^(?:cannot read )?((?:plan|sensor|trace|delay|fit) file)\b/.exec(error.message)?.[1];
+  const file = /^(?:cannot read )?((?:plan|sensor|trace|delay|fit|sweep|reference|lock-in) file)\b/.exec(error.message)?.[1];
   return file ?? null;
 }

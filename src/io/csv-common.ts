@@ -92,7 +92,24 @@ const LENGTH_UNITS: Readonly<Record<string, number>> = { m: 0, cm: -2, mm: -3, u
 /** Pressure units a column name may carry (decimal ones only). */
 const PRESSURE_UNITS: Readonly<Record<string, number>> = { pa: 0, kpa: 3, mbar: 2, bar: 5 };
 
-export type ColumnDimension = 'time' | 'length' | 'pressure';
+/** Frequency units a column name may carry (case kept: mHz is not MHz; "hz", "khz" also read). */
+const FREQUENCY_UNITS: Readonly<Record<string, number>> = { Hz: 0, hz: 0, kHz: 3, khz: 3, MHz: 6, mHz: -3 };
+
+/** Voltage units a column name may carry (case kept; "v" also read). */
+const VOLTAGE_UNITS: Readonly<Record<string, number>> = { V: 0, v: 0, mV: -3, uV: -6, 'µV': -6, 'μV': -6, nV: -9 };
+
+/** Canonical symbols of the lower-case frequency spellings. */
+const FREQUENCY_SYMBOLS: Readonly<Record<string, string>> = { hz: 'Hz', khz: 'kHz' };
+
+export type ColumnDimension = 'time' | 'length' | 'pressure' | 'frequency' | 'voltage';
+
+const UNITS_OF: Readonly<Record<ColumnDimension, Readonly<Record<string, number>>>> = {
+  time: TIME_UNITS,
+  length: LENGTH_UNITS,
+  pressure: PRESSURE_UNITS,
+  frequency: FREQUENCY_UNITS,
+  voltage: VOLTAGE_UNITS,
+};
 
 /** A unit read from a column name: its symbol and its size in the SI unit as a power of ten. */
 export interface ColumnUnit {
@@ -106,15 +123,18 @@ export interface ColumnUnit {
  * "ms") is that unit. Returns undefined when the name carries no unit of `dimension`.
  */
 export function unitOfColumn(name: string, dimension: ColumnDimension): ColumnUnit | undefined {
-  const table = dimension === 'time' ? TIME_UNITS : dimension === 'length' ? LENGTH_UNITS : PRESSURE_UNITS;
+  const table = UNITS_OF[dimension];
   const text = name.trim().replace(/[)\]]\s*$/, '');
   const match = /(?:^|[\s_([/])([^\s_([/]+)$/.exec(text);
   const token = match?.[1];
   if (token === undefined) return undefined;
-  // Time units are read case-blind ("TIME_MS"); lengths keep their case (mm is not Mm).
-  const key = dimension === 'length' ? token : token.toLowerCase();
+  // Time and pressure units are read case-blind ("TIME_MS"); lengths, frequencies and voltages keep
+  // their case (mm is not Mm, mHz is not MHz).
+  const key = dimension === 'time' || dimension === 'pressure' ? token.toLowerCase() : token;
   const pow10 = table[key];
-  return pow10 === undefined ? undefined : { symbol: dimension === 'pressure' ? canonicalPressure(key) : key.replace('μ', 'µ'), pow10 };
+  if (pow10 === undefined) return undefined;
+  const symbol = dimension === 'pressure' ? canonicalPressure(key) : dimension === 'frequency' ? (FREQUENCY_SYMBOLS[key] ?? key) : key.replace('μ', 'µ');
+  return { symbol: dimension === 'voltage' && key === 'v' ? 'V' : symbol, pow10 };
 }
 
 function canonicalPressure(key: string): string {

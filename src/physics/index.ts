@@ -192,3 +192,46 @@ export {
 export { delayTemperature, type RehearsalSensorSummary, SD_RATIO_NOTE, type SensorPicks, summariseSensor } from './rehearsal-summary';
 export { driveCentre, driveHalfRise, type FeatureSettings, featureDelay, predictionSpan } from './picker-features';
 export { delayBound } from './delay-bound';
+export {
+  MUTUAL_FRICTION_B_POWER_LAW,
+  MUTUAL_FRICTION_B_POWER_LAW_FROM_K,
+  MUTUAL_FRICTION_B_PRIME_POWER_LAW,
+  MUTUAL_FRICTION_B_PRIME_POWER_LAW_FROM_K,
+  MUTUAL_FRICTION_RANGE_K,
+  mutualFrictionB,
+  mutualFrictionBPrime,
+} from './mutual-friction';
+export { HELIUM4_ATOM_MASS_KG, PLANCK_J_S, QUANTUM_OF_CIRCULATION_M2_S } from './quantum-of-circulation';
+export {
+  type AmplitudeReading,
+  type LineDensity,
+  lineDensityFromAmplitude,
+  lineDensityFromWidth,
+  lineDensityGeometry,
+  TANGLE_GEOMETRIES,
+  type TangleGeometry,
+  type TangleGeometryInfo,
+} from './line-density';
+export {
+  coldGap,
+  DETECTION_SD,
+  FRESNEL_CAUTION,
+  FRESNEL_NOTE,
+  modeFrequency,
+  planResonator,
+  RESONATOR_LIMITS,
+  type ResonatorMode,
+  type ResonatorNote,
+  type ResonatorPlan,
+  type ResonatorPlanInput,
+} from './resonator-modes';
+export { FIT_MAX_ITERATIONS, fitResonance, type ResonanceFit, type ResonanceWarning, resonanceAt, SWEEP_MIN_POINTS, type SweepData } from './resonance-fit';
+export {
+  type ModeFromNeighbour,
+  modeFromNeighbour,
+  type ResonanceReading,
+  RESONANCE_LIMITS,
+  type ResonanceTemperature,
+  temperatureFromResonance,
+} from './resonance-temperature';
+export { analyseLockin, LOCKIN_MAX_ROWS, type LockinOptions, type LockinRecord, type LockinSeries, noiseFromDifferences } from './lockin-inverse';

@@ -16,7 +16,9 @@ export type ReadingWarningCode =
   | 'series-guess'
   | 'undecided'
   | 'near-lambda'
-  | 'model-region';
+  | 'model-region'
+  /** A resonator's line density: its amplitude form and width form disagree. */
+  | 'forms-disagree';
 
 export interface ReadingWarning {
   code: ReadingWarningCode;

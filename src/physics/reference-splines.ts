@@ -69,3 +69,21 @@ export const VAPOUR_PRESSURE_SPLINE: SplineData = {
   unit: 'Pa',
   note: "Agrees with the ITS-90 equations to better than 0.1 % from 1.3 to 4.2 K and extends below ITS-90's 1.25 K lower limit for helium-4.",
 };
+
+/** mutual friction B: Dimensionless Hall-Vinen coefficient B. Near T_lambda (T > 2.167 K) the reference uses B = 0.47 t^-0.33. Variable log10(t), t = 1 − T/Tλ; value log10(B). */
+export const MUTUAL_FRICTION_B_SPLINE: SplineData = {
+  knots: [-5.0, -5.0, -5.0, -5.0, -2.5, -2.0, -0.8, -0.387958059947, -0.387958059947, -0.387958059947, -0.387958059947],
+  coefficients: [1.31928144433, 1.12452707801, 0.639314792565, 0.313383532495, -0.162687403543, 0.092047691284, 0.188452616588],
+  range: [-5.0, -0.387958059947],
+  unit: "log10(B)",
+  note: "Dimensionless Hall-Vinen coefficient B. Near T_lambda (T > 2.167 K) the reference uses B = 0.47 t^-0.33.",
+};
+
+/** mutual friction B prime: Subtract 15 after taking 10^value. Near T_lambda (T > 2.134 K) the reference uses B' = 1.01 - 0.34 t^-0.33. Variable log10(t), t = 1 − T/Tλ; value log10(B' + 15). */
+export const MUTUAL_FRICTION_B_PRIME_SPLINE: SplineData = {
+  knots: [-5.0, -5.0, -5.0, -5.0, -3.55, -3.2, -2.5, -1.0, -0.384067377871, -0.384067377871, -0.384067377871, -0.384067377871],
+  coefficients: [-0.0847218032526, 0.931621715174, 0.973263359433, 1.10543591819, 1.15904485127, 1.18311634566, 1.17480594214, 1.19458392766],
+  range: [-5.0, -0.384067377871],
+  unit: "log10(B' + 15)",
+  note: "Subtract 15 after taking 10^value. Near T_lambda (T > 2.134 K) the reference uses B' = 1.01 - 0.34 t^-0.33.",
+};

@@ -5,7 +5,8 @@
  * and pasted tables, and the series (timestamps, order, choice along the series).
  */
 import { secondSound, vapourPressure } from '../../src/physics';
-import { readField, FIELD_SPECS } from '../../src/ui/converter/converter-fields';
+import { FIELD_SPECS } from '../../src/ui/converter/converter-fields';
+import { readFieldText } from '../../src/ui/fields/field-spec';
 import { decimateMinMax, lowerBound } from '../../src/ui/converter/decimate';
 import { buildSeries, orderFiles, pressureOf, timestampOf } from '../../src/ui/converter/series';
 import { readDistanceRows, readSweepText, splitPasted } from '../../src/ui/converter/table-input';
@@ -136,13 +137,13 @@ describe('min/max decimation', () => {
 
 describe('typed fields and pasted tables', () => {
   it('reads a bare number in the chosen unit and a typed unit as written', () => {
-    expect(readField(FIELD_SPECS.delay, '2.5', 'ms')).toEqual({ ok: true, value: 2.5e-3 });
-    expect(readField(FIELD_SPECS.delay, '2500 us', 'ms')).toEqual({ ok: true, value: 2.5e-3 });
-    expect(readField(FIELD_SPECS.delay, '−1', 'ms')).toEqual({ ok: false, message: 'Delay −1 ms is outside the valid range 1 ns – 10000 s.' });
-    expect(readField(FIELD_SPECS.delay, '', 'ms')).toEqual({ ok: false, message: 'Delay is empty: type a value in 1 ns – 10000 s.' });
-    expect(readField(FIELD_SPECS.delay, '2.5 K', 'ms')).toMatchObject({ ok: false, message: expect.stringMatching(/^Delay: "2\.5 K" has unknown unit "K"; accepted units: s, ms, us, µs, ns\. Valid range 1 ns – 10000 s\.$/) });
-    expect(readField(FIELD_SPECS.pressure, '', 'Pa')).toEqual({ ok: true, value: null });
-    expect(readField(FIELD_SPECS.fraction, '0.99', '')).toEqual({ ok: false, message: 'Fraction of the peak 0.99 is outside the valid range 0.05–0.95.' });
+    expect(readFieldText(FIELD_SPECS.delay, '2.5', 'ms')).toEqual({ ok: true, value: 2.5e-3 });
+    expect(readFieldText(FIELD_SPECS.delay, '2500 us', 'ms')).toEqual({ ok: true, value: 2.5e-3 });
+    expect(readFieldText(FIELD_SPECS.delay, '−1', 'ms')).toEqual({ ok: false, message: 'Delay must be 1 ns–10000 s; “−1” is outside.' });
+    expect(readFieldText(FIELD_SPECS.delay, '', 'ms')).toEqual({ ok: false, message: 'Delay is empty: type a value, 1 ns–10000 s.' });
+    expect(readFieldText(FIELD_SPECS.delay, '2.5 K', 'ms')).toMatchObject({ ok: false, message: expect.stringMatching(/^Delay: “2\.5 K” has a unit that is not a time\. Type e\.g\. 100 us \(units s, ms, us, µs, ns\); valid 1 ns–10000 s\.$/) });
+    expect(readFieldText(FIELD_SPECS.pressure, '', 'Pa')).toEqual({ ok: true, value: null });
+    expect(readFieldText(FIELD_SPECS.fraction, '0.99', null)).toEqual({ ok: false, message: 'Fraction of the peak must be 0.05–0.95; “0.99” is outside.' });
   });
 
   it('reads the distance table and names the row, the column and the range of a bad cell', () => {

@@ -98,11 +98,11 @@ describe('converter: one reading', () => {
     await typeField(user, 'Delay', '2.5');
     const before = screen.getByTestId('speed').textContent;
     await typeField(user, 'Delay', '-3');
-    expect(screen.getByRole('alert')).toHaveTextContent('Delay −3 ms is outside the valid range 1 ns – 10000 s. The last good value stays in effect.');
+    expect(screen.getByRole('alert')).toHaveTextContent('Delay must be 1 ns–10000 s; “-3” is outside.');
     expect(screen.getByRole('textbox', { name: 'Delay' })).toHaveAttribute('aria-invalid', 'true');
     expect(screen.getByTestId('speed').textContent).toBe(before);
     expect(candidateRows()).toHaveLength(3);
-    expect(useSekundoStore.getState().converterFields.delay.value).toBe(2.5e-3);
+    expect(useSekundoStore.getState().converterValues.delay).toBe(2.5e-3);
 
     // Fine alone, impossible with the distance: a speed no second sound has.
     await typeField(user, 'Delay', '0.1');
@@ -171,6 +171,6 @@ describe('converter: one reading', () => {
     const [, L, sd] = /([\d.]+) ± ([\d.]+) mm/.exec(figure) ?? [];
     expect(Math.abs(Number(L) - 48.6)).toBeLessThan(2 * Number(sd));
     await user.click(screen.getByRole('button', { name: 'Use as the distance' }));
-    expect(useSekundoStore.getState().converterFields.distance.value).toBeCloseTo(0.0486, 4);
+    expect(useSekundoStore.getState().converterValues.distance).toBeCloseTo(0.0486, 4);
   });
 });

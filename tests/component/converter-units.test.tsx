@@ -2,14 +2,14 @@ import { act, render, screen, waitFor, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import { App } from '../../app/App';
 import { convertDelay, secondSound, vapourPressure } from '../../src/physics';
-import { FIELD_SPECS, followedUnit, unitKindOf } from '../../src/ui/converter/converter-fields';
-import { valuesOf } from '../../src/ui/converter/converter-slice';
+import { FIELD_SPECS } from '../../src/ui/converter/converter-fields';
+import { shownFieldUnit } from '../../src/ui/fields/field-spec';
 import { unitViewsOf } from '../../src/ui/units/unit-views';
 import { buildSeries, seriesTable } from '../../src/ui/converter/series';
 import { ARRIVAL_SHAPE, traceFigure } from '../../src/ui/converter/trace/trace-figure';
 import type { TracePick } from '../../src/io/trace-pick';
 import { useSekundoStore } from '../../src/ui/store';
-import { DEFAULT_DISPLAY_UNITS, type DisplayUnitOf, UNIT_KINDS, type UnitKind } from '../../src/ui/units/unit-choices';
+import { DEFAULT_DISPLAY_UNITS, type DisplayUnitOf, type DisplayUnits, UNIT_KINDS, type UnitKind } from '../../src/ui/units/unit-choices';
 import { lastDraw } from './fake-plotly';
 
 /*
@@ -59,29 +59,31 @@ function captureDownloads() {
 describe('converter fields and the header units', () => {
   it('offers every header unit in the menu of every field of its kind', () => {
     for (const spec of Object.values(FIELD_SPECS)) {
-      const kind = unitKindOf(spec);
-      if (kind === null) continue;
+      const kind = spec.kind?.follows;
+      if (kind === undefined) continue;
       for (const { unit } of UNIT_KINDS[kind].choices) expect(spec.units, `${spec.label} menu`).toContain(unit);
     }
   });
 
-  it('a value field takes the header unit; an sd or offset field keeps its finer default unless the header unit is finer', () => {
+  it('a value field takes the header unit; an sd or the offset sits on its ladder, whatever the header says', () => {
     const units = { ...DEFAULT_DISPLAY_UNITS, length: 'm', time: 's' } as const;
-    expect(followedUnit(FIELD_SPECS.delay, units)).toBe('s');
-    expect(followedUnit(FIELD_SPECS.distance, units)).toBe('m');
-    expect(followedUnit(FIELD_SPECS.delaySd, units)).toBe('µs');
-    expect(followedUnit(FIELD_SPECS.distanceSd, units)).toBe('mm');
-    expect(followedUnit(FIELD_SPECS.delaySd, { ...units, time: 'µs' })).toBe('µs');
-    // The instrument offset t₀ is a few µs: it keeps µs, so a bare "20" keeps meaning 20 µs.
-    expect(followedUnit(FIELD_SPECS.offset, units)).toBe('µs');
-    expect(followedUnit(FIELD_SPECS.offset, { ...units, time: 'ms' })).toBe('µs');
-    expect(followedUnit(FIELD_SPECS.offsetSd, units)).toBe('µs');
-    expect(followedUnit(FIELD_SPECS.fraction, units)).toBe('');
+    const shown = (key: keyof typeof FIELD_SPECS, header: DisplayUnits = units) => shownFieldUnit(FIELD_SPECS[key], FIELD_SPECS[key].initial, header);
+    expect(shown('delay')).toBe('s');
+    expect(shown('distance')).toBe('m');
+    // 2 µs and 0.1 mm = 100 µm: the units where their numbers read at least 1.
+    expect(shown('delaySd')).toBe('µs');
+    expect(shown('distanceSd')).toBe('µm');
+    expect(shown('delaySd', { ...units, time: 'µs' })).toBe('µs');
+    // The instrument offset t₀ is a few µs: zero shows in µs, so a bare "20" means 20 µs.
+    expect(shown('offset')).toBe('µs');
+    expect(shown('offset', { ...units, time: 'ms' })).toBe('µs');
+    expect(shown('offsetSd')).toBe('µs');
+    expect(shown('fraction')).toBeNull();
   });
 
   it('switching the header units re-shows the following fields; no value changes', async () => {
     await openConverter();
-    const before = valuesOf(store().converterFields);
+    const before = store().converterValues;
     expect(field('Delay')).toHaveValue('2.5');
     expect(unitOf('Delay')).toHaveValue('ms');
     choose('time', 'µs');
@@ -93,17 +95,17 @@ describe('converter fields and the header units', () => {
     expect(unitOf('Distance')).toHaveValue('cm');
     expect(field('Offset t₀')).toHaveValue('0');
     expect(unitOf('Offset t₀')).toHaveValue('µs');
-    // The sds keep their own finer units (µs, mm) whatever the header says.
+    // The sds keep the units of their ladders (µs, µm) whatever the header says.
     expect(field('Delay sd')).toHaveValue('2');
     expect(unitOf('Delay sd')).toHaveValue('µs');
-    expect(field('Distance sd')).toHaveValue('0.1');
-    expect(unitOf('Distance sd')).toHaveValue('mm');
+    expect(field('Distance sd')).toHaveValue('100');
+    expect(unitOf('Distance sd')).toHaveValue('µm');
     expect(field('Expected temperature')).toHaveValue('1800');
     expect(unitOf('Expected temperature')).toHaveValue('mK');
     choose('time', 's');
     expect(field('Delay')).toHaveValue('0.0025');
     expect(field('Delay sd')).toHaveValue('2');
-    expect(valuesOf(store().converterFields)).toEqual(before);
+    expect(store().converterValues).toEqual(before);
   });
 
   it('a unit picked in a field’s own menu stays when the header changes', async () => {
@@ -117,29 +119,29 @@ describe('converter fields and the header units', () => {
     expect(unitOf('Offset t₀')).toHaveValue('µs');
   });
 
-  it('keeps a draft being typed, and a refused entry with its message, until it is applied or dropped', async () => {
+  it('keeps a draft being typed, and a refused entry with its message, until it is left or dropped', async () => {
     const user = await openConverter();
     await user.clear(field('Delay'));
     await user.type(field('Delay'), '2.7');
+    // A good value applies as it is typed (the same rule in every view).
+    expect(store().converterValues.delay).toBeCloseTo(2.7e-3, 15);
     choose('time', 'µs');
     // The draft keeps its text and the unit it was typed against.
     expect(field('Delay')).toHaveValue('2.7');
     expect(unitOf('Delay')).toHaveValue('ms');
-    expect(store().converterFields.delay.value).toBe(2.5e-3);
     await user.type(field('Delay'), '{Enter}');
-    expect(store().converterFields.delay.value).toBeCloseTo(2.7e-3, 15);
-    // Applied, the field follows the header again.
+    // Left, the field follows the header again.
     expect(field('Delay')).toHaveValue('2700');
     expect(unitOf('Delay')).toHaveValue('µs');
 
     await user.clear(field('Distance'));
     await user.type(field('Distance'), '-3{Enter}');
     const message = screen.getByRole('alert').textContent;
-    expect(message).toMatch(/^Distance −3 mm is outside the valid range/);
+    expect(message).toMatch(/^Distance must be .*; “-3” is outside\.$/);
     choose('length', 'm');
     expect(field('Distance')).toHaveValue('-3');
     expect(screen.getByRole('alert').textContent).toBe(message);
-    expect(store().converterFields.distance.value).toBe(0.05);
+    expect(store().converterValues.distance).toBe(0.05);
     // Escape drops the refused entry: the good value, in the header's unit.
     await user.type(field('Distance'), '{Escape}');
     expect(field('Distance')).toHaveValue('0.05');
@@ -158,7 +160,7 @@ describe('converter results in the header units', () => {
   it('shows the candidates, the chosen temperature and the u₂ chart in mK, each value rounded with its sd', async () => {
     const user = await openConverter();
     await user.type(field('Vapour pressure'), '1638.2{Enter}');
-    const values = valuesOf(store().converterFields);
+    const values = store().converterValues;
     choose('temperature', 'mK');
     const candidates = convertDelay(START).candidates;
     // sds 5.7, 15.8 and 10.9 mK from the kernel (the 0.1 mm distance sd dominates): whole mK.
@@ -174,7 +176,7 @@ describe('converter results in the header units', () => {
     expect(chosen?.x[0]).toBeCloseTo((candidates[2]?.temperature_K ?? Number.NaN) * 1e3, 9);
     // The speed is no temperature: still m/s.
     expect(screen.getByTestId('speed')).toHaveTextContent('20.00');
-    expect(valuesOf(store().converterFields)).toEqual(values);
+    expect(store().converterValues).toEqual(values);
   });
 
   it('exports the reading with its columns named and valued in the display units', async () => {

@@ -8,7 +8,7 @@ describe('locate view: bad input names the field and its range and keeps the las
     const arrival = screen.getByLabelText('Arrival at U90 (ms)');
     fireEvent.change(arrival, { target: { value: 'soon' } });
     expect(screen.getByRole('alert')).toHaveTextContent(
-      'arrival at sensor U90: "soon" is not a time; type a number in ms or add a unit (s, ms, us, µs, ns); valid range -1000 to 1000 s, or blank for no reading.',
+      'arrival at sensor U90: “soon” does not start with a number. Type e.g. 100 us (units s, ms, us, µs, ns); valid from −1000 s to 1000 s (empty for no reading).',
     );
     expect(arrival).toHaveAttribute('aria-invalid', 'true');
     expect(arrival).toHaveValue('soon');
@@ -24,9 +24,9 @@ describe('locate view: bad input names the field and its range and keeps the las
     await openLocate();
     const x = screen.getByLabelText('x of U0 (mm)');
     fireEvent.change(x, { target: { value: '200 m' } });
-    expect(screen.getByRole('alert')).toHaveTextContent('x of sensor U0 200 m is outside the valid range -100 to 100 m.');
+    expect(screen.getByRole('alert')).toHaveTextContent('x of sensor U0 must be from −100 m to 100 m; “200 m” is outside.');
     fireEvent.change(x, { target: { value: '2 ft' } });
-    expect(screen.getByRole('alert')).toHaveTextContent('x of sensor U0: "2 ft" is not a length; type a number in mm or add a unit (m, cm, mm, um, µm)');
+    expect(screen.getByRole('alert')).toHaveTextContent('x of sensor U0: “2 ft” has a unit that is not a length. Type e.g. 50 mm (units m, cm, mm, um, µm); valid from −100 m to 100 m.');
     expect(store().locateRows[0]?.position_m[0]).toBe(0.15);
     // A good value typed with a unit applies and clears the message.
     fireEvent.change(x, { target: { value: '0.16 m' } });
@@ -37,11 +37,11 @@ describe('locate view: bad input names the field and its range and keeps the las
   it('a timing sd of zero, a temperature above Tλ, a repeated label', async () => {
     await openLocate();
     const alerts = () => screen.getAllByRole('alert').map((a) => a.textContent ?? '');
-    fireEvent.change(screen.getByLabelText('Timing sd of U0 (µs)'), { target: { value: '0' } });
-    expect(alerts()).toContain('timing sd of sensor U0 0 is outside the valid range above 0 µs, up to 10 s, or blank for the default.');
+    fireEvent.change(screen.getByLabelText('Timing sd of U0'), { target: { value: '0' } });
+    expect(alerts()).toContain('timing sd of sensor U0 must be above 0 µs, up to 10 s (empty for the default); “0” is outside.');
     expect(store().locateRows[0]?.arrivalSd_s).toBe(5e-5);
     fireEvent.change(screen.getByLabelText('Bath temperature T90'), { target: { value: '2.5 K' } });
-    expect(alerts()).toContain('Bath temperature 2.5 K is outside the valid range 0.3–2.1768 K (He II).');
+    expect(alerts()).toContain('Bath temperature must be 0.3–2.1768 K (He II); “2.5 K” is outside.');
     expect(store().locateOptions.temperature_K).toBe(1.8);
     fireEvent.change(screen.getByLabelText('Label of sensor U90'), { target: { value: 'U0' } });
     expect(alerts()).toContain('Label "U0" is already used by another sensor; give each sensor its own label.');

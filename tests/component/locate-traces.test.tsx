@@ -1,7 +1,11 @@
 import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { fireEvent, screen, waitFor, within } from '@testing-library/react';
+import type { Unit } from '../../src/io/quantity';
 import type { TraceInfo } from '../../src/ui/converter/trace/trace-protocol';
+import { readFieldText } from '../../src/ui/fields/field-spec';
+import { locateFieldKey } from '../../src/ui/locate/locate-fields';
+import { type TraceSettingKey, traceSettingKey, traceSettingSpec } from '../../src/ui/locate/trace-fields';
 import { PICKS_TRACE } from '../../src/ui/locate/locate-trace-figure';
 import { TRACES_CHART_ID } from '../../src/ui/locate/LocateTraces';
 import { lastDraw } from './fake-plotly';
@@ -94,7 +98,7 @@ describe('locate view: arrival times from traces', { timeout: 30_000 }, () => {
     // The picker's stated sd: here its floor, a sample step over √12 (the noise over the slope, 0.2 µs, is less).
     const sd = row('U0').arrivalSd_s ?? 0;
     expect(sd).toBeCloseTo(STEP_S / Math.sqrt(12), 12);
-    expect(screen.getByLabelText('Timing sd of U0 (µs)')).toHaveValue(String(Number((sd * 1e6).toPrecision(6))));
+    expect(screen.getByLabelText('Timing sd of U0')).toHaveValue(String(Number((sd * 1e6).toPrecision(6))));
   });
 
   it('refuses to write when two channels would go to one sensor, naming both', async () => {
@@ -159,7 +163,7 @@ describe('locate view: arrival times from traces', { timeout: 30_000 }, () => {
     // A threshold out of range is refused with the field and its range; the last good value stays.
     const k = screen.getByRole('textbox', { name: 'Threshold k (noise sd)' });
     fireEvent.change(k, { target: { value: '0.5' } });
-    expect(screen.getByText('Threshold k 0.5 is outside the valid range 1–1000 noise sd.')).toBeInTheDocument();
+    expect(screen.getByText('Threshold k must be 1–1000 (noise sd); “0.5” is outside.')).toBeInTheDocument();
     expect(store().locateTracePicker.threshold).toBe(5);
     // Noise within ±0.2 mV (sd 0.115 mV) never reaches 8 sd.
     fireEvent.change(k, { target: { value: '8' } });
@@ -230,26 +234,35 @@ describe('locate view: arrival times from traces', { timeout: 30_000 }, () => {
 describe('locate traces: the picker settings in the store', () => {
   const info: TraceInfo = { rows: 10, channels: ['U0'], timeColumn: 'time_s', timeUnit: 's', fields: {}, firstTime_s: 0, lastTime_s: 1, bytes: 100 };
 
+  /** Types a setting's text as its field does (src/ui/fields): the draft, then the value if it reads. */
+  function typeSetting(setting: TraceSettingKey, text: string, unit: Unit | null = 'ms') {
+    const key = locateFieldKey(traceSettingKey(setting));
+    store().setFieldDraft(key, { text, unit, message: null });
+    const read = readFieldText(traceSettingSpec(setting), text, unit);
+    const message = read.ok ? store().setLocateTraceSetting(setting, read.value) : read.message;
+    if (message !== null) store().setFieldDraft(key, { text, unit, message });
+  }
+  const draft = (setting: TraceSettingKey) => store().fieldDrafts[locateFieldKey(traceSettingKey(setting))];
+
   it('keeps a refused setting with its message when a new file is read, and drops the old file message', () => {
-    store().typeLocateTraceSetting('from', '−20000 s', 'ms');
-    expect(store().locateErrors['traces.from']).toMatch(/Search from/);
+    typeSetting('from', '−20000 s');
+    expect(draft('from')?.message).toMatch(/Search from/);
     store().refuseLocate('traces.file', 'the last file could not be read');
     store().setLocateTraceFile({ id: 'locate-trace-9', name: 'next.csv', size: 100, info });
-    expect(store().locateDrafts['traces.from']).toBe('−20000 s');
-    expect(store().locateErrors['traces.from']).toMatch(/Search from/);
+    expect(draft('from')?.text).toBe('−20000 s');
+    expect(draft('from')?.message).toMatch(/Search from/);
     expect(store().locateErrors['traces.file']).toBeUndefined();
   });
 
   it('checks the other end of the search window again once it can hold', () => {
-    store().typeLocateTraceSetting('from', '5', 'ms');
-    store().typeLocateTraceSetting('to', '10', 'ms');
-    store().typeLocateTraceSetting('from', '20', 'ms');
-    expect(store().locateErrors['traces.from']).toMatch(/must end after it starts/);
+    typeSetting('from', '5');
+    typeSetting('to', '10');
+    typeSetting('from', '20');
+    expect(draft('from')?.message).toMatch(/must end after it starts/);
     expect(store().locateTracePicker.from_s).toBeCloseTo(5e-3, 12);
-    store().typeLocateTraceSetting('to', '30', 'ms');
+    typeSetting('to', '30');
     expect(store().locateTracePicker.to_s).toBeCloseTo(30e-3, 12);
     expect(store().locateTracePicker.from_s).toBeCloseTo(20e-3, 12);
-    expect(store().locateErrors['traces.from']).toBeUndefined();
-    expect(store().locateDrafts['traces.from']).toBeUndefined();
+    expect(draft('from')).toBeUndefined();
   });
 });

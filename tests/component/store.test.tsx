@@ -3,24 +3,29 @@ import { DEFAULT_TEMPERATURE_K, resetSekundoStore, useSekundoStore } from '../..
 const store = () => useSekundoStore.getState();
 
 describe('Sekundo store', () => {
-  it('starts at the default temperature with no message', () => {
+  it('starts at the default temperature with no draft', () => {
     expect(store().temperature_K).toBe(DEFAULT_TEMPERATURE_K);
-    expect(store().temperatureError).toBeNull();
+    expect(store().fieldDrafts).toEqual({});
   });
 
-  it('keeps the last good temperature when a typed entry is rejected', () => {
-    store().setTemperature(1.5);
-    store().editTemperatureDraft('9 K');
-    store().commitTemperatureDraft();
+  it('keeps the last good temperature when a value out of range is refused, and says why', () => {
+    expect(store().setTemperature(1.5)).toBeNull();
+    expect(store().setTemperature(9)).toMatch(/Temperature must be 0\.3–4\.24 K/);
     expect(store().temperature_K).toBe(1.5);
-    expect(store().temperatureDraft).toBe('9 K');
-    expect(store().temperatureError).toMatch(/Temperature must be 0\.3–4\.24 K/);
   });
 
-  it('rejects an out-of-range value from a control the same way', () => {
-    store().setTemperature(Number.NaN);
+  it('rejects a value that is not a number the same way', () => {
+    expect(store().setTemperature(Number.NaN)).not.toBeNull();
     expect(store().temperature_K).toBe(DEFAULT_TEMPERATURE_K);
-    expect(store().temperatureError).not.toBeNull();
+  });
+
+  it('keeps drafts by field key and drops a feature\'s drafts by prefix', () => {
+    store().setFieldDraft('planner.bath.temperature', { text: '9', unit: 'K', message: 'Bath temperature must be …' });
+    store().setFieldDraft('converter.delay', { text: '2', unit: 'ms', message: null });
+    store().dropFieldDrafts('planner.');
+    expect(Object.keys(store().fieldDrafts)).toEqual(['converter.delay']);
+    store().dropFieldDraft('converter.delay');
+    expect(store().fieldDrafts).toEqual({});
   });
 
   it('stores inputs only: no derived results in the state', () => {
@@ -35,8 +40,6 @@ describe('Sekundo store', () => {
       'converterDistancePoints',
       'converterDistanceRows',
       'converterDistanceUnits',
-      'converterErrors',
-      'converterFields',
       'converterMethod',
       'converterMode',
       'converterSweepError',
@@ -52,12 +55,12 @@ describe('Sekundo store', () => {
       'converterTraceSelected',
       'converterTraceSensor',
       'converterTraceView',
+      'converterValues',
       'displayUnits',
       'fieldDrafts',
       'fieldUnits',
       'guidesDismissed',
       'locateDisplay',
-      'locateDrafts',
       'locateErrors',
       'locateOptions',
       'locateOrigin',
@@ -82,9 +85,15 @@ describe('Sekundo store', () => {
       'rehearseExportTrial',
       'rehearseOptions',
       'rehearseRun',
+      'resonatorFileErrors',
+      'resonatorInputs',
+      'resonatorLockin',
+      'resonatorNote',
+      'resonatorOrigin',
+      'resonatorReference',
+      'resonatorStatus',
+      'resonatorSweep',
       'sourceDetailsShown',
-      'temperatureDraft',
-      'temperatureError',
       'temperature_K',
       'themeChoice',
       'watchAlarms',

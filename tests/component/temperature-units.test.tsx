@@ -1,19 +1,20 @@
-import {
-  checkTemperature,
-  formatKelvin,
-  formatMillikelvin,
-  parseTemperature,
-  TEMPERATURE_RANGE_TEXT,
-} from '../../src/ui/units/temperature-text';
+import { readFieldText } from '../../src/ui/fields/field-spec';
+import { TEMPERATURE_FIELD } from '../../src/ui/temperature/TemperatureField';
+import { checkTemperature, formatKelvin, formatMillikelvin, TEMPERATURE_RANGE_TEXT } from '../../src/ui/units/temperature-text';
+
+/*
+ * The explorer's typed temperature is a quantity field like every other (src/ui/fields): a bare
+ * number is in the unit shown (here K), a typed unit wins; units as src/io/quantity.ts reads them
+ * (case matters: m is milli, M mega).
+ */
 
 // Exact conversions: no tolerance beyond floating-point rounding.
 const ACCEPTED: [typed: string, kelvin: number][] = [
   ['1.8', 1.8],
   ['1.8 K', 1.8],
   ['1.8K', 1.8],
-  ['1.8 k', 1.8],
   ['1800 mK', 1.8],
-  ['1800mk', 1.8],
+  ['1800mK', 1.8],
   ['  2.1768 K  ', 2.1768],
   ['1,8 K', 1.8],
   ['.5', 0.5],
@@ -27,17 +28,18 @@ const ACCEPTED: [typed: string, kelvin: number][] = [
 const REJECTED: [typed: string, why: RegExp][] = [
   ['', /empty/],
   ['   ', /empty/],
-  ['abc', /must be a number in K or mK/],
-  ['1.8 C', /must be a number in K or mK/],
-  ['1.8 K K', /must be a number in K or mK/],
-  ['5 K', /must be 0\.3–4\.24 K \(300–4240 mK\); got 5 K/],
+  ['abc', /does not start with a number/],
+  ['1.8 C', /not a temperature/],
+  ['1.8 K K', /not a temperature/],
+  ['1800 mk', /not a temperature/],
+  ['5 K', /must be 0\.3–4\.24 K; “5 K” is outside/],
   ['0.29999', /must be 0\.3–4\.24 K/],
   ['4.2401', /must be 0\.3–4\.24 K/],
-  ['299 mK', /got 299 mK/],
+  ['299 mK', /“299 mK” is outside/],
   ['-1 K', /must be 0\.3–4\.24 K/],
   ['\u22121 K', /must be 0\.3–4\.24 K/],
-  ['1e999', /must be 0\.3–4\.24 K/],
-  ['2000', /did you mean 2000 mK\?/],
+  ['1e999', /not a finite number/],
+  ['2000', /A bare number is in K: did you mean 2000 mK\?/],
 ];
 
 describe('typed temperatures', () => {
@@ -46,17 +48,21 @@ describe('typed temperatures', () => {
   });
 
   it.each(ACCEPTED)('reads %j as %f K', (typed, kelvin) => {
-    const parsed = parseTemperature(typed);
-    expect(parsed.ok).toBe(true);
-    if (parsed.ok) expect(parsed.temperature_K).toBeCloseTo(kelvin, 12);
+    const read = readFieldText(TEMPERATURE_FIELD, typed, 'K');
+    expect(read.ok).toBe(true);
+    if (read.ok) expect(read.value).toBeCloseTo(kelvin, 12);
+  });
+
+  it('reads a bare number in mK when the field shows mK', () => {
+    expect(readFieldText(TEMPERATURE_FIELD, '1800', 'mK')).toEqual({ ok: true, value: 1.8 });
   });
 
   it.each(REJECTED)('rejects %j', (typed, why) => {
-    const parsed = parseTemperature(typed);
-    expect(parsed.ok).toBe(false);
-    if (!parsed.ok) {
-      expect(parsed.message).toMatch(why);
-      expect(parsed.message).toMatch(/^Temperature/);
+    const read = readFieldText(TEMPERATURE_FIELD, typed, 'K');
+    expect(read.ok).toBe(false);
+    if (!read.ok) {
+      expect(read.message).toMatch(why);
+      expect(read.message).toMatch(/^Temperature/);
     }
   });
 

@@ -124,7 +124,7 @@ test.describe('converter', () => {
     // A bad delay: the message names the field and the range; the result stays.
     await delay.fill('-3');
     await delay.press('Enter');
-    await expect(page.getByRole('alert')).toContainText('Delay −3 ms is outside the valid range 1 ns – 10000 s');
+    await expect(page.getByRole('alert')).toContainText('Delay must be 1 ns–10000 s; “-3” is outside.');
     await expect(page.getByTestId('chosen-temperature')).toHaveText('1.785');
     await delay.press('Escape');
 

@@ -62,7 +62,7 @@ test.describe('property explorer', () => {
     // A bad entry keeps the last good temperature.
     await field.fill('5 K');
     await field.press('Enter');
-    await expect(page.getByRole('alert')).toContainText('Temperature must be 0.3–4.24 K (300–4240 mK)');
+    await expect(page.getByRole('alert')).toContainText('Temperature must be 0.3–4.24 K; “5 K” is outside.');
     await expect(u2Cell(page)).toHaveText('18.51');
 
     // The slider, by keyboard: 10 mK per arrow key.

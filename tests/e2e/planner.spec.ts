@@ -65,7 +65,7 @@ test.describe('measurement planner', () => {
     await openPlanner(page);
     expect(requests.some((url) => url.endsWith('/demo-plan.json'))).toBe(true);
     await expect(page.getByRole('textbox', { name: 'Plan name' })).toHaveValue(/Orrin-2 insert/);
-    await expect(page.getByRole('textbox', { name: 'Sensor 4 distance', exact: true })).toHaveValue('50 mm');
+    await expect(page.getByRole('textbox', { name: 'Sensor 4 distance', exact: true })).toHaveValue('50');
     const table = page.getByRole('table', { name: /predicted arrivals/i });
     await expect(table.getByRole('row')).toHaveCount(5);
     await expect(page.locator('[data-code="echo-overlap"]')).toHaveCount(0);

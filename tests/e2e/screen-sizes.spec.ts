@@ -19,6 +19,7 @@ const STOPS: readonly { id: string; tabs: readonly string[] }[] = [
   { id: 'converter-batch', tabs: ['Read the temperature', 'Batch file'] },
   { id: 'converter-trace', tabs: ['Read the temperature', 'Trace lab'] },
   { id: 'locate', tabs: ['Locate a source'] },
+  { id: 'resonator', tabs: ['Resonator'] },
 ];
 
 async function open(page: Page, tabs: readonly string[]) {

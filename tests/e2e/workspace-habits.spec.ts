@@ -8,6 +8,7 @@ const VIEWS = [
   { id: 'planner', tab: 'Plan a measurement' },
   { id: 'converter', tab: 'Read the temperature' },
   { id: 'locate', tab: 'Locate a source' },
+  { id: 'resonator', tab: 'Resonator' },
 ] as const;
 
 /** Every chart on the page drawn (and at least one there). */
@@ -90,8 +91,8 @@ test.describe('workspace habits', () => {
 
     await openTab(page, 'Plan a measurement');
     await waitForCharts(page);
-    await expect(page.getByRole('textbox', { name: 'Pulse width' })).toHaveValue('100 µs');
-    await expect(page.getByRole('textbox', { name: 'Sensor 4 distance', exact: true })).toHaveValue('5 cm');
+    await expect(page.getByRole('textbox', { name: 'Pulse width' })).toHaveValue('100');
+    await expect(page.getByRole('textbox', { name: 'Sensor 4 distance', exact: true })).toHaveValue('5');
     await expect(page.getByRole('table', { name: /predicted arrivals/i }).getByRole('columnheader', { name: /Second sound \(µs\)/ })).toBeVisible();
     await expect.poll(() => drawnLayout(page, 'planner-timeline', 'xaxisTitle')).toBe('Time after the heater pulse starts (µs)');
   });
@@ -135,6 +136,8 @@ test.describe('workspace habits', () => {
   });
 
   test('keyboard only: header controls, every tab, into each view and back, focus always visible', async ({ page }) => {
+    // Five views of up to 30 Tab stops each, and back: past the default minute on a busy machine.
+    test.setTimeout(150_000);
     await page.goto('/');
     await waitForCharts(page);
     const focused = () =>
@@ -210,7 +213,7 @@ test.describe('workspace habits', () => {
     await page.keyboard.press('Home');
     await expect(page.getByRole('tab', { name: 'Helium properties' })).toHaveAttribute('aria-selected', 'true');
     await page.keyboard.press('End');
-    await expect(page.getByRole('tab', { name: 'Locate a source' })).toBeFocused();
+    await expect(page.getByRole('tab', { name: 'Resonator' })).toBeFocused();
     await page.keyboard.press('Home');
     await expect(page.getByRole('tab', { name: 'Helium properties' })).toBeFocused();
     await waitForCharts(page);
@@ -220,6 +223,8 @@ test.describe('workspace habits', () => {
   });
 
   test('every view in both themes at 1280×720 (screenshots)', async ({ page }) => {
+    // Five views, two themes, two screenshots each: past the default minute on a busy machine.
+    test.setTimeout(150_000);
     mkdirSync(ARTIFACTS, { recursive: true });
     await page.goto('/');
     for (const theme of ['light', 'dark'] as const) {
@@ -302,8 +307,8 @@ test.describe('first visit', () => {
     await page.screenshot({ path: `${ARTIFACTS}/first-visit-guide.png` });
 
     // Each view has its own guide; the keyboard reaches its buttons in the page's order.
-    const leads = ['Start with the bath temperature', 'Edit the demo plan', 'Type the distance and the delay', 'Type or load the sensors'];
-    const tabs = ['Helium properties', 'Plan a measurement', 'Read the temperature', 'Locate a source'];
+    const leads = ['Start with the bath temperature', 'Edit the demo plan', 'Type the distance and the delay', 'Type or load the sensors', 'Open the demo resonator'];
+    const tabs = ['Helium properties', 'Plan a measurement', 'Read the temperature', 'Locate a source', 'Resonator'];
     for (const [i, tab] of tabs.entries()) {
       await page.getByRole('tab', { name: tab }).click();
       await expect(page.getByRole('complementary', { name: new RegExp(`^First time here\\? ${leads[i]}`) })).toBeVisible();

@@ -6,7 +6,7 @@ import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { type PlanFile, parsePlanFile } from '../../src/io/plan-file';
 import type { Unit } from '../../src/io/quantity';
-import { type ConverterFieldKey, FIELD_SPECS, fieldText as converterFieldText, rangeText, readField as readConverterField } from '../../src/ui/converter/converter-fields';
+import { type ConverterFieldKey, FIELD_SPECS } from '../../src/ui/converter/converter-fields';
 import { CONVERTER_CHOICE_HELP, CONVERTER_FIELD_HELP, converterFieldHelp, distanceColumnHelp, sweepHelp } from '../../src/ui/converter/converter-help';
 import { readDistanceRows, readSweepText } from '../../src/ui/converter/table-input';
 import { BUILT_IN_PLAN } from '../../src/ui/planner/default-plan';
@@ -23,7 +23,7 @@ import {
   sensorFields,
   TARGET_FIELDS,
 } from '../../src/ui/planner/plan-fields';
-import { fieldValueText, readFieldText, shownFieldUnit } from '../../src/ui/fields/field-spec';
+import { fieldRangeText as specRangeText, fieldValueText, readFieldText, shownFieldUnit, unitLabel } from '../../src/ui/fields/field-spec';
 import { DEFAULT_DISPLAY_UNITS } from '../../src/ui/units/unit-choices';
 import { PLAN_NUMBER_HELP, PLAN_OTHER_HELP, planHelpKey, planNumberHelp, planUnitsText } from '../../src/ui/planner/planner-help';
 
@@ -145,10 +145,10 @@ describe('planner help', () => {
 });
 
 const CONVERTER_KEYS = Object.keys(FIELD_SPECS) as ConverterFieldKey[];
-/** Each field with each unit it offers ('' for a plain number). */
-const FIELD_UNITS: readonly [ConverterFieldKey, Unit | ''][] = CONVERTER_KEYS.flatMap((key) => {
-  const units: readonly (Unit | '')[] = FIELD_SPECS[key].units.length > 0 ? FIELD_SPECS[key].units : [''];
-  return units.map((unit) => [key, unit] as [ConverterFieldKey, Unit | '']);
+/** Each field with each unit it offers (null for a plain number). */
+const FIELD_UNITS: readonly [ConverterFieldKey, Unit | null][] = CONVERTER_KEYS.flatMap((key) => {
+  const units: readonly (Unit | null)[] = FIELD_SPECS[key].units ?? [null];
+  return units.map((unit) => [key, unit] as [ConverterFieldKey, Unit | null]);
 });
 
 describe('converter help', () => {
@@ -156,7 +156,7 @@ describe('converter help', () => {
     const topic = CONVERTER_FIELD_HELP[key];
     expect(topic.what.length).toBeGreaterThan(20);
     expect(topic.typical.length).toBeGreaterThan(0);
-    const help = converterFieldHelp(key, FIELD_SPECS[key].units[0] ?? '');
+    const help = converterFieldHelp(key, FIELD_SPECS[key].units?.[0] ?? null);
     expect(help.units?.length).toBeGreaterThan(5);
     expect(help.range).toMatch(/^typically .+; valid /);
     expect(help.origin?.length).toBeGreaterThan(5);
@@ -165,11 +165,11 @@ describe('converter help', () => {
   it.each(FIELD_UNITS)('%s in %s: the help names the range its messages name', (key, unit) => {
     const spec = FIELD_SPECS[key];
     const named = validPart(converterFieldHelp(key, unit).range);
-    expect(named).toBe(rangeText(spec, unit));
+    expect(named).toBe(specRangeText(spec).split(';')[0]);
     const [min, max] = spec.range;
     for (const value of outside(min, max)) {
-      const text = converterFieldText(spec, value, unit);
-      const read = readConverterField(spec, text, unit);
+      const text = fieldValueText(value, unit);
+      const read = readFieldText(spec, text, unit);
       expect(read.ok, `${key} = ${text} ${unit}`).toBe(false);
       if (!read.ok) expect(read.message).toContain(named);
     }
@@ -179,24 +179,25 @@ describe('converter help', () => {
     const spec = FIELD_SPECS[key];
     const origin = converterFieldHelp(key, unit).origin ?? '';
     if (spec.initial === null) {
-      expect(spec.optional).toBe(true);
+      expect(spec.blank).toBeDefined();
       expect(origin).toMatch(/^(empty|no reading)/);
       return;
     }
-    const shown = converterFieldText(spec, spec.initial, unit);
-    expect(origin.startsWith(`${shown}${unit ? ` ${unit}` : ''}:`)).toBe(true);
-    expect(readConverterField(spec, shown, unit)).toEqual({ ok: true, value: spec.initial });
+    const shown = fieldValueText(spec.initial, unit);
+    expect(origin.startsWith(`${shown}${unit ? ` ${unitLabel(spec, unit)}` : ''}:`)).toBe(true);
+    expect(readFieldText(spec, shown, unit)).toEqual({ ok: true, value: spec.initial });
   });
 
-  it.each(CONVERTER_KEYS.filter((k) => FIELD_SPECS[k].units.length > 0))('%s: the typed example in its help is a good value of its kind', (key) => {
+  it.each(CONVERTER_KEYS.filter((k) => (FIELD_SPECS[k].units ?? []).length > 0))('%s: the typed example in its help is a good value of its kind', (key) => {
     const spec = FIELD_SPECS[key];
-    const example = /e\.g\. “(.+)”/.exec(converterFieldHelp(key, spec.units[0] ?? '').units ?? '')?.[1] ?? '';
-    expect(readConverterField(spec, example, spec.units[0] ?? '')).toMatchObject({ ok: true });
+    const unit = spec.units?.[0] ?? null;
+    const example = /e\.g\. “(.+)”/.exec(converterFieldHelp(key, unit).units ?? '')?.[1] ?? '';
+    expect(readFieldText(spec, example, unit)).toMatchObject({ ok: true });
   });
 
-  it('optional fields say what an empty field means', () => {
-    for (const key of CONVERTER_KEYS.filter((k) => FIELD_SPECS[k].optional)) {
-      expect(converterFieldHelp(key, FIELD_SPECS[key].units[0] ?? '').range).toContain(`empty for ${FIELD_SPECS[key].emptyMeaning}`);
+  it('fields that may be empty say what an empty field means', () => {
+    for (const key of CONVERTER_KEYS.filter((k) => FIELD_SPECS[k].blank !== undefined)) {
+      expect(converterFieldHelp(key, FIELD_SPECS[key].units?.[0] ?? null).range).toContain(`empty for ${FIELD_SPECS[key].blank}`);
     }
   });
 

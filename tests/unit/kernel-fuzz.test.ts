@@ -63,6 +63,8 @@ const temperatureFunctions: [string, (T: number) => number, [number, number]][] 
   ['nonlinearity', K.nonlinearity, [-1e12, 1e12]],
   ['twoFluidSecondSound', K.twoFluidSecondSound, [0, 200]],
   ['secondSoundRelativeSd', K.secondSoundRelativeSd, [0, 1]],
+  ['mutualFrictionB', K.mutualFrictionB, [0.5, 100]],
+  ['mutualFrictionBPrime', K.mutualFrictionBPrime, [-100, 1]],
 ];
 
 describe('temperature functions: finite in range, or a typed error', () => {
@@ -313,6 +315,42 @@ describe('source location entry points', () => {
         if (withPrior.ok) assertAllFinite(withPrior.value);
         const q = outcome(() => K.layoutQuality(sensors.map((s) => s.position_m), [[0, 0, 0.05]], { speed_m_s: u, arrivalSd_s: 5e-6, fitSpeed, constraint: { kind: 'none' } }));
         if (q.ok) for (const v of q.value) expect(v > 0).toBe(true);
+      }),
+      { numRuns: RUNS / 4 },
+    );
+  });
+});
+
+describe('resonator entry points', () => {
+  it('planResonator, temperatureFromResonance, modeFromNeighbour and the line densities with any numbers', () => {
+    fc.assert(
+      fc.property(mostly(1e-4, 0.05), mostly(0.3, 2.2), mostly(1, 40), mostly(1, 1e5), mostly(1e-3, 10), mostly(1e-4, 0.1), (gap, T, n, f, width, noise) => {
+        const plan = outcome(() => K.planResonator({ gap_m: gap, spacerId: null, temperature_K: T, modes: Math.round(n), plateDiameter_m: 0.02, targetSd_K: 1e-5, width0_Hz: width, amplitudeNoise: noise }));
+        if (plan.ok) assertAllFinite(plan.value);
+        const reading = outcome(() => K.temperatureFromResonance({ frequency_Hz: f, frequencySd_Hz: 0.01, gap_m: gap, gapSd_m: 1e-6, mode: Math.round(n) }));
+        if (reading.ok) assertAllFinite(reading.value);
+        const mode = outcome(() => K.modeFromNeighbour(f, 0.01, f * (1 + 1 / Math.max(1, Math.round(n))), 0.01));
+        if (mode.ok) assertAllFinite(mode.value);
+        const L = outcome(() => K.lineDensityFromWidth(width * 1.5, 0.01, width, 0.01, T));
+        if (L.ok) assertAllFinite(L.value);
+        const A = outcome(() => K.lineDensityFromAmplitude({ amplitude: noise, amplitudeSd: noise / 100, amplitude0: 2 * noise, amplitude0Sd: 0, width0_Hz: width, width0Sd_Hz: 0, temperature_K: T }));
+        if (A.ok) assertAllFinite(A.value);
+      }),
+      { numRuns: RUNS },
+    );
+  });
+
+  it('fitResonance with any sweep: finite results or a typed error', () => {
+    const point = fc.tuple(mostly(-1, 1), mostly(-1, 1));
+    fc.assert(
+      fc.property(fc.array(point, { minLength: 0, maxLength: 60 }), mostly(1, 1e4), mostly(1e-3, 10), (points, start, step) => {
+        const frequency_Hz = Float64Array.from(points, (_, i) => start + i * step);
+        const x = Float64Array.from(points, (p) => p[0]);
+        const y = Float64Array.from(points, (p) => p[1]);
+        const complex = outcome(() => K.fitResonance({ frequency_Hz, x, y }));
+        if (complex.ok) assertAllFinite(complex.value);
+        const amplitude = outcome(() => K.fitResonance({ frequency_Hz, amplitude: x }));
+        if (amplitude.ok) assertAllFinite(amplitude.value);
       }),
       { numRuns: RUNS / 4 },
     );

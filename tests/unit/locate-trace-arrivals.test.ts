@@ -12,7 +12,8 @@ import {
   sensorNamed,
   withArrivals,
 } from '../../src/ui/locate/trace-arrivals';
-import { editTraceSetting } from '../../src/ui/locate/trace-fields';
+import { readFieldText } from '../../src/ui/fields/field-spec';
+import { editTraceSetting, traceSettingSpec } from '../../src/ui/locate/trace-fields';
 import { DEMO_TRACES_PATH, demoSensors, locateDemoTracesCsv } from '../support/locate-demo-traces';
 
 const rowOf = (key: string, label: string, arrival_s: number | null = null): LocateRowInput => ({ key, label, position_m: [0, 0, 0], arrival_s, arrivalSd_s: null });
@@ -106,22 +107,21 @@ describe('turning picks into arrivals', () => {
 
 describe('picker settings typed in the traces panel', () => {
   it('takes a threshold in range and refuses one outside, naming the field and the range', () => {
-    const good = editTraceSetting(DEFAULT_TRACE_PICKER, 'threshold', '8');
+    const good = editTraceSetting(DEFAULT_TRACE_PICKER, 'threshold', 8);
     expect(good.ok && good.settings.threshold).toBe(8);
-    expect(editTraceSetting(DEFAULT_TRACE_PICKER, 'threshold', '0.5')).toEqual({ ok: false, message: 'Threshold k 0.5 is outside the valid range 1–1000 noise sd.' });
-    expect(editTraceSetting(DEFAULT_TRACE_PICKER, 'fraction', '1.2')).toEqual({ ok: false, message: 'Fraction of the peak 1.2 is outside the valid range 0.05–0.95.' });
+    expect(readFieldText(traceSettingSpec('threshold'), '0.5', null)).toEqual({ ok: false, message: 'Threshold k must be 1–1000 (noise sd); “0.5” is outside.' });
+    expect(readFieldText(traceSettingSpec('fraction'), '1.2', null)).toEqual({ ok: false, message: 'Fraction of the peak must be 0.05–0.95; “1.2” is outside.' });
   });
 
   it('reads a bare search time in the shown unit, a blank as no limit, and refuses a window that runs backwards', () => {
-    const from = editTraceSetting(DEFAULT_TRACE_PICKER, 'from', '2', 'ms');
-    expect(from.ok && from.settings.from_s).toBeCloseTo(2e-3, 15);
-    const to = editTraceSetting(DEFAULT_TRACE_PICKER, 'to', '1500 us', 'ms');
-    expect(to.ok && to.settings.to_s).toBeCloseTo(1.5e-3, 15);
-    const cleared = editTraceSetting({ ...DEFAULT_TRACE_PICKER, from_s: 2e-3 }, 'from', ' ', 'ms');
+    expect(readFieldText(traceSettingSpec('from'), '2', 'ms')).toEqual({ ok: true, value: 2e-3 });
+    expect(readFieldText(traceSettingSpec('to'), '1500 us', 'ms')).toEqual({ ok: true, value: 1.5e-3 });
+    expect(readFieldText(traceSettingSpec('from'), ' ', 'ms')).toEqual({ ok: true, value: null });
+    const cleared = editTraceSetting({ ...DEFAULT_TRACE_PICKER, from_s: 2e-3 }, 'from', null);
     expect(cleared.ok && cleared.settings.from_s).toBeNull();
-    expect(editTraceSetting({ ...DEFAULT_TRACE_PICKER, from_s: 2e-3 }, 'to', '1', 'ms')).toEqual({
+    expect(editTraceSetting({ ...DEFAULT_TRACE_PICKER, from_s: 2e-3 }, 'to', 1e-3)).toEqual({
       ok: false,
-      message: 'Search to 1: the search window must end after it starts (from 2 ms to 1 ms as typed).',
+      message: 'Search to: the search window must end after it starts (from 2 ms to 1 ms).',
     });
   });
 });

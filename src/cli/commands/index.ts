@@ -22,6 +22,9 @@ export const COMMAND_TABLE: readonly CommandEntry[] = [
   { name: 'fit', load: async () => (await import('./fit')).fitCommand },
   { name: 'locate', load: async () => (await import('./locate')).locateCommand },
   { name: 'watch', load: async () => (await import('./watch')).watchCommand },
+  { name: 'resonator', load: async () => (await import('./resonator')).resonatorCommand },
+  { name: 'sweep', load: async () => (await import('./sweep')).sweepCommand },
+  { name: 'lockin', load: async () => (await import('./lockin')).lockinCommand },
 ];
 
 /** Every command, loaded, in table order (for `sekundo --help` and the tests). */

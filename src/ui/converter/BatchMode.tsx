@@ -29,7 +29,7 @@ export async function loadBatchFile(file: Blob & { name: string }): Promise<void
   }
   const bytes = new Uint8Array(await file.arrayBuffer());
   const now = useSekundoStore.getState();
-  const read = readBatch(file.name, bytes, valuesOf(now.converterFields), now.converterChoice);
+  const read = readBatch(file.name, bytes, valuesOf(now.converterValues), now.converterChoice);
   if (read.ok) now.loadConverterBatch({ fileName: file.name, batch: read.batch });
   else now.refuseConverterBatch(read.message);
 }
@@ -111,7 +111,7 @@ function batchExport() {
   const state = useSekundoStore.getState();
   const input = state.converterBatch;
   if (!input) return null;
-  const outcome = batchResults(input.batch, valuesOf(state.converterFields), state.converterChoice);
+  const outcome = batchResults(input.batch, valuesOf(state.converterValues), state.converterChoice);
   if (!outcome.ok) return null;
   const r = outcome.results;
   const { temperature, length, time, pressure } = currentUnitViews();

@@ -2,8 +2,9 @@ import { useId } from 'react';
 import { type HelpTopic, useFieldHelp } from '../help/FieldHelp';
 import { useSekundoStore } from '../store';
 import type { ChoiceKind } from './converter-checks';
-import { CONVERTER_CHOICE_HELP, converterFieldHelp } from './converter-help';
-import { ConverterField } from './ConverterField';
+import { CONVERTER_CHOICE_HELP } from './converter-help';
+import { QuantityField } from '../fields/QuantityField';
+import { useConverterField } from './use-converter-field';
 
 const OPTIONS: readonly { kind: ChoiceKind; label: string; hint: string }[] = [
   { kind: 'none', label: 'Show all, choose none', hint: 'Every candidate stays undecided.' },
@@ -21,13 +22,17 @@ export function ChoiceCard({ series = false }: { series?: boolean }) {
   const name = useId();
   const choice = useSekundoStore((s) => s.converterChoice);
   const setChoice = useSekundoStore((s) => s.setConverterChoice);
-  const pressureUnit = useSekundoStore((s) => s.converterFields.pressure.unit);
-  const expectedUnit = useSekundoStore((s) => s.converterFields.expected.unit);
+  const fields = {
+    pressure: useConverterField('pressure', () => setChoice('pressure')),
+    expected: useConverterField('expected', () => setChoice('expected')),
+    rangeMin: useConverterField('rangeMin', () => setChoice('range')),
+    rangeMax: useConverterField('rangeMax', () => setChoice('range')),
+  };
   // One help per way of choosing; a field without a visible label is described by its choice's.
   const topics: Record<ChoiceKind, HelpTopic> = {
     none: CONVERTER_CHOICE_HELP.none,
-    pressure: converterFieldHelp('pressure', pressureUnit),
-    expected: converterFieldHelp('expected', expectedUnit),
+    pressure: fields.pressure.spec.help ?? CONVERTER_CHOICE_HELP.none,
+    expected: fields.expected.spec.help ?? CONVERTER_CHOICE_HELP.none,
     range: CONVERTER_CHOICE_HELP.range,
   };
   const help = {
@@ -67,19 +72,12 @@ export function ChoiceCard({ series = false }: { series?: boolean }) {
             {help[o.kind].panel}
             {choice === o.kind ? <p className="field-hint">{o.hint}</p> : null}
             {o.kind === 'pressure' || o.kind === 'expected' ? (
-              <ConverterField
-                fieldKey={o.kind}
-                label={ONE_FIELD_LABEL[o.kind]}
-                labelHidden
-                describedBy={help[o.kind].describedBy}
-                className="choice-option__field"
-                onApplied={() => setChoice(o.kind)}
-              />
+              <QuantityField {...fields[o.kind]} label={ONE_FIELD_LABEL[o.kind]} labelHidden describedBy={help[o.kind].describedBy} className="choice-option__field" />
             ) : null}
             {o.kind === 'range' ? (
               <div className="choice-option__pair choice-option__pair--range">
-                <ConverterField fieldKey="rangeMin" label="From" className="choice-option__field" onApplied={() => setChoice('range')} />
-                <ConverterField fieldKey="rangeMax" label="To" className="choice-option__field" onApplied={() => setChoice('range')} />
+                <QuantityField {...fields.rangeMin} shortLabel="From" className="choice-option__field" />
+                <QuantityField {...fields.rangeMax} shortLabel="To" className="choice-option__field" />
               </div>
             ) : null}
           </div>

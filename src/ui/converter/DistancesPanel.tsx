@@ -5,7 +5,8 @@ import { formatSignificant } from '../units/format-number';
 import { useSekundoStore } from '../store';
 import type { DisplayUnitOf } from '../units/unit-choices';
 import { displayUnitView } from '../units/use-display-unit';
-import { FIELD_SPECS, followedUnit } from './converter-fields';
+import { shownFieldUnit } from '../fields/field-spec';
+import { converterFieldKey, FIELD_SPECS } from './converter-fields';
 import { sentence } from './converter-checks';
 import type { DistanceColumn } from './converter-slice';
 import { ConversionResult } from './ConversionResult';
@@ -181,8 +182,8 @@ export function DistancesInput() {
 
 /**
  * The fit of the distance table: speed, t₀, their correlation, residuals and the candidates, in the
- * header's display units. Residuals and the scatter stay in µs, like the sd fields (followedUnit in
- * converter-fields.ts): they are orders of magnitude below the delays, and no header unit is finer.
+ * header's display units. Residuals and the scatter stay in µs, like the sd fields (on their ladder,
+ * src/ui/fields/field-spec.ts): they are orders of magnitude below the delays, and no header unit is finer.
  */
 export function DistancesResult() {
   const points = useSekundoStore((s) => s.converterDistancePoints);
@@ -191,8 +192,7 @@ export function DistancesResult() {
   const applyValues = useSekundoStore((s) => s.applyConverterValues);
   const { length, temperature } = useUnitViews();
   const displayUnits = useSekundoStore((s) => s.displayUnits);
-  // t₀ in the offset field's own (finer) unit, as it would be typed there.
-  const offsetUnit = displayUnitView(followedUnit(FIELD_SPECS.offset, displayUnits) as DisplayUnitOf<'time'>);
+  const ownOffsetUnit = useSekundoStore((s) => s.fieldUnits[converterFieldKey('offset')]);
   const fit = useMemo(() => distanceFit(points), [points]);
   const chosen = useMemo(() => (fit?.ok ? chooseFor(fit.value.candidates, kind, values, temperature.unit) : null), [fit, kind, values, temperature.unit]);
   if (fit === null) {
@@ -210,6 +210,8 @@ export function DistancesResult() {
     );
   }
   const f = fit.value;
+  // t₀ in the unit the offset field would show it in, as it would be typed there.
+  const offsetUnit = displayUnitView((shownFieldUnit(FIELD_SPECS.offset, f.offset_s, displayUnits, ownOffsetUnit) ?? 'µs') as DisplayUnitOf<'time'>);
   const exportContent = () => {
     return tableExport('sekundo-distance-fit.csv', distanceFitTable(f, chosen, currentUnitViews()));
   };

@@ -64,7 +64,7 @@ export function ReadingMode() {
 /** Export of one delay, built from the inputs at click time. */
 function singleExport() {
   const state = useSekundoStore.getState();
-  const values = valuesOf(state.converterFields);
+  const values = valuesOf(state.converterValues);
   const result = singleReading(values);
   if (!result.ok) return null;
   const units = currentUnitViews();

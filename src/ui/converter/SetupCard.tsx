@@ -1,7 +1,8 @@
 import { type FormEvent, type ReactNode, useId } from 'react';
+import { QuantityField } from '../fields/QuantityField';
 import { useSekundoStore } from '../store';
-import type { ConverterFieldKey } from './converter-fields';
-import { ConverterField } from './ConverterField';
+import { type ConverterFieldKey, converterFieldKey } from './converter-fields';
+import { useConverterField } from './use-converter-field';
 
 export type SetupPair = 'distance' | 'delay' | 'delaySd' | 'offset';
 
@@ -17,18 +18,25 @@ interface SetupCardProps {
   pairs: readonly SetupPair[];
   /** A line under the title. */
   lead?: ReactNode;
-  /** Label of the button that applies every field (Enter does the same). */
+  /** Label of the button that shows every good value as applied (values apply as they are typed). */
   submitLabel?: string;
   children?: ReactNode;
 }
 
-/** Value ± sd pairs (distance, delay, offset t₀) in one form: Enter or the button applies them all. */
+/**
+ * Value ± sd pairs (distance, delay, offset t₀) in one form. Good values apply as they are typed;
+ * the button (or Enter) shows each good value as applied, and leaves refused texts with their messages.
+ */
 export function SetupCard({ title, pairs, lead, submitLabel = 'Apply', children }: SetupCardProps) {
   const headingId = useId();
-  const commit = useSekundoStore((s) => s.commitConverterField);
   const submit = (event: FormEvent<HTMLFormElement>) => {
     event.preventDefault();
-    for (const pair of pairs) for (const key of PAIRS[pair]) if (key) commit(key);
+    const { fieldDrafts, dropFieldDraft } = useSekundoStore.getState();
+    for (const pair of pairs)
+      for (const key of PAIRS[pair]) {
+        const fieldKey = key && converterFieldKey(key);
+        if (fieldKey && fieldDrafts[fieldKey]?.message === null) dropFieldDraft(fieldKey);
+      }
   };
   return (
     <section className="card converter-card" aria-labelledby={headingId}>
@@ -40,27 +48,36 @@ export function SetupCard({ title, pairs, lead, submitLabel = 'Apply', children 
         {pairs.map((pair) => {
           const [value, sd] = PAIRS[pair];
           return (
-            <div key={pair} className="value-sd">
-              <ConverterField fieldKey={value} />
-              {sd ? (
-                <>
-                  <span className="value-sd__pm" aria-hidden="true">
-                    ±
-                  </span>
-                  <ConverterField fieldKey={sd} label="sd (1σ)" />
-                </>
-              ) : null}
-            </div>
+            <ValueSd key={pair} value={value} sd={sd} />
           );
         })}
         <div className="setup-form__actions">
           <button type="submit" className="button button--primary">
             {submitLabel}
           </button>
-          <span className="field-hint">Enter in any field applies it; units may be typed too (“2.5 ms”).</span>
+          <span className="field-hint">Values apply as you type; a bare number is in the unit beside it, or type one (“2.5 ms”).</span>
         </div>
       </form>
       {children}
     </section>
+  );
+}
+
+/** A value and its sd side by side. */
+function ValueSd({ value, sd }: { value: ConverterFieldKey; sd: ConverterFieldKey | null }) {
+  const valueField = useConverterField(value);
+  const sdField = useConverterField(sd ?? value);
+  return (
+    <div className="value-sd">
+      <QuantityField {...valueField} />
+      {sd ? (
+        <>
+          <span className="value-sd__pm" aria-hidden="true">
+            ±
+          </span>
+          <QuantityField {...sdField} shortLabel="sd (1σ)" />
+        </>
+      ) : null}
+    </div>
   );
 }

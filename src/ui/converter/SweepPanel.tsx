@@ -46,7 +46,7 @@ export function commitSweep(): void {
     state.commitConverterSweep(read);
     return;
   }
-  const v = valuesOf(state.converterFields);
+  const v = valuesOf(state.converterValues);
   try {
     calibratePathFromSweep(read.value, v.offset ?? 0, v.offsetSd ?? 0);
   } catch (error) {

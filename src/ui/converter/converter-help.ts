@@ -4,13 +4,14 @@
  * table column's) and read out with each field (src/ui/help/FieldHelp.tsx).
  *
  * Valid ranges and starting values are never typed here: they come from FIELD_SPECS (the same
- * rangeText the fields' messages use) and from the table cells' specs, so help and validation
+ * fieldRangeText the fields' messages use) and from the table cells' specs, so help and validation
  * cannot disagree.
  */
 import type { Unit } from '../../io/quantity';
 import { SECOND_SOUND_EXTREMA, T_LAMBDA_K, vapourPressure } from '../../physics';
 import type { HelpTopic } from '../help/FieldHelp';
-import { type ConverterFieldKey, FIELD_SPECS, type FieldSpec, fieldText, rangeText } from './converter-fields';
+import { fieldRangeText, fieldValueText, unitLabel } from '../fields/field-spec';
+import { type ConverterFieldKey, type ConverterFieldSpec, FIELD_SPECS } from './converter-fields';
 import { type CellSpec, cellRangeText, DELAY_CELL, DISTANCE_CELL, SD_CELL, SWEEP_DELAY_CELL } from './table-input';
 
 const RULE = 'common practice, no source';
@@ -102,23 +103,23 @@ export const CONVERTER_FIELD_HELP: Readonly<Record<ConverterFieldKey, FieldTopic
 };
 
 /** The units a field takes: its menu, or a unit typed after the number. */
-export function converterUnitsText(spec: FieldSpec): string {
-  if (spec.units.length === 0) return 'a plain number, no unit';
-  const other = spec.units[1] ?? spec.units[0] ?? '';
-  const example = `${spec.initial === null ? '1' : fieldText(spec, spec.initial, other)} ${other}`;
-  return `${spec.units.join(', ')}: a bare number is in the unit chosen beside the field; or type a unit after it (e.g. “${example}”)`;
+export function converterUnitsText(spec: ConverterFieldSpec): string {
+  const units = spec.units ?? [];
+  if (spec.kind === null || units.length === 0) return 'a plain number, no unit';
+  const other = units[1] ?? units[0] ?? 's';
+  const example = `${spec.initial === null ? '1' : fieldValueText(spec.initial, other)} ${other}`;
+  return `${units.join(', ')}: a bare number is in the unit shown beside the field; or type a unit after it (e.g. “${example}”)`;
 }
 
 /** The whole help of a field, its range and starting value shown in `unit` (the field's unit in use). */
-export function converterFieldHelp(key: ConverterFieldKey, unit: Unit | ''): HelpTopic {
+export function converterFieldHelp(key: ConverterFieldKey, unit: Unit | null): HelpTopic {
   const spec = FIELD_SPECS[key];
   const topic = CONVERTER_FIELD_HELP[key];
-  const empty = spec.optional ? `; empty for ${spec.emptyMeaning}` : '';
-  const start = spec.initial === null ? 'empty' : `${fieldText(spec, spec.initial, unit)}${unit ? ` ${unit}` : ''}`;
+  const start = spec.initial === null ? 'empty' : `${fieldValueText(spec.initial, unit)}${unit ? ` ${unitLabel(spec, unit)}` : ''}`;
   return {
     what: topic.what,
     units: converterUnitsText(spec),
-    range: `typically ${topic.typical}; valid ${rangeText(spec, unit)}${empty}`,
+    range: `typically ${topic.typical}; valid ${fieldRangeText(spec)}`,
     origin: spec.initial === null ? topic.why : `${start}: ${topic.why}`,
   };
 }

@@ -3,15 +3,15 @@ import type { DelayBatch } from '../../io/delay-batch';
 import type { Unit } from '../../io/quantity';
 import type { PickerKind } from '../../physics';
 import type { SekundoState } from '../store/state';
-import { DEFAULT_DISPLAY_UNITS, type DisplayUnits } from '../units/unit-choices';
 import { type ChoiceKind, crossFieldProblem, type FieldValues } from './converter-checks';
-import { type ConverterFieldKey, FIELD_SPECS, fieldText, followedUnit, readField } from './converter-fields';
+import { fieldValueText, shownFieldUnit } from '../fields/field-spec';
+import { type ConverterFieldKey, converterFieldKey, FIELD_SPECS, initialConverterValues } from './converter-fields';
 import { readDistanceRows } from './table-input';
 import type { TraceInfo } from './trace/trace-protocol';
 
 /*
- * The converter's inputs: typed fields (last good value in SI, the text as typed, its unit, and
- * the message for a refused entry), the way of choosing among candidates, the distance table and
+ * The converter's inputs: the typed fields' last good values in SI (their drafts, messages and
+ * picked units live in the fields slice under "converter.", src/ui/fields), the way of choosing among candidates, the distance table and
  * sweep as typed with their last good points, the batch file read, and the trace files loaded
  * with the picking options. Results (speeds, candidates, fits, picks, series) are derived from
  * these with the kernel in memos, never stored.
@@ -19,20 +19,6 @@ import type { TraceInfo } from './trace/trace-protocol';
 
 export type ConverterMode = 'reading' | 'batch' | 'trace' | 'watch';
 export type ReadingMethod = 'single' | 'distances' | 'sweep';
-
-export interface FieldState {
-  /** The text in the field (as typed, or the value in `unit`). */
-  text: string;
-  /** The unit of the text and of the field's menu. */
-  unit: Unit | '';
-  /** Last good value, SI; a refused entry never replaces it. null: empty (optional fields). */
-  value: number | null;
-  /**
-   * Whether the unit was picked in the field's own menu. Until then the field follows the header's
-   * display units (see followedUnit in converter-fields.ts); after that it keeps its own choice.
-   */
-  ownUnit: boolean;
-}
 
 export type DistanceColumn = 'distance' | 'delay' | 'sd';
 
@@ -82,8 +68,8 @@ export type Polarity = 'auto' | 'positive' | 'negative';
 export interface ConverterSlice {
   converterMode: ConverterMode;
   converterMethod: ReadingMethod;
-  converterFields: Readonly<Record<ConverterFieldKey, FieldState>>;
-  converterErrors: Readonly<Partial<Record<ConverterFieldKey, string>>>;
+  /** Last good value of each typed field, SI; a refused entry never replaces it. null: empty (fields that allow it). */
+  converterValues: Readonly<Record<ConverterFieldKey, number | null>>;
   converterChoice: ChoiceKind;
   converterDistanceRows: readonly DistanceRow[];
   converterDistanceUnits: { distance: Unit; delay: Unit; sd: Unit };
@@ -110,20 +96,8 @@ export interface ConverterSlice {
 
   setConverterMode: (mode: ConverterMode) => void;
   setConverterMethod: (method: ReadingMethod) => void;
-  /** Text typed into a field; applied on commit. */
-  editConverterField: (key: ConverterFieldKey, text: string) => void;
-  /** Applies the field's text if it is valid alone and with the other fields; otherwise keeps the value and sets the message. */
-  commitConverterField: (key: ConverterFieldKey) => void;
-  /** Drops a refused or unfinished entry (Escape): the field shows its good value again. */
-  discardConverterDraft: (key: ConverterFieldKey) => void;
-  /** Changes the unit of a field: the value stays, the text is shown in the new unit. The field keeps this unit from now on. */
-  setConverterFieldUnit: (key: ConverterFieldKey, unit: Unit) => void;
-  /**
-   * Shows the fields that follow the header's display units in those units (called when they
-   * change): values stay as they are; a field with a draft or a refused entry keeps its text, unit
-   * and message, and follows once the draft is applied or dropped.
-   */
-  followConverterDisplayUnits: () => void;
+  /** A good value typed into a field (SI): set when it agrees with the other fields; returns the refusal, or null. */
+  setConverterValue: (key: ConverterFieldKey, value: number | null) => string | null;
   /** Sets field values from a result ("use this path length"); each is checked like a typed one. */
   applyConverterValues: (values: Partial<Record<ConverterFieldKey, number>>) => void;
   setConverterChoice: (choice: ChoiceKind) => void;
@@ -154,27 +128,8 @@ export interface ConverterSlice {
   setConverterTraceView: (view: 'record' | 'arrival') => void;
 }
 
-const FIELD_KEYS = Object.keys(FIELD_SPECS) as ConverterFieldKey[];
-
-function initialFields(units: DisplayUnits): Record<ConverterFieldKey, FieldState> {
-  const fields = {} as Record<ConverterFieldKey, FieldState>;
-  for (const key of FIELD_KEYS) {
-    const spec = FIELD_SPECS[key];
-    const unit = followedUnit(spec, units);
-    fields[key] = { text: fieldText(spec, spec.initial, unit), unit, value: spec.initial, ownUnit: false };
-  }
-  return fields;
-}
-
-/** The unit a field shows once it has no draft: its own choice, or the header's. */
-function shownUnitOf(key: ConverterFieldKey, field: FieldState, units: DisplayUnits): Unit | '' {
-  return field.ownUnit ? field.unit : followedUnit(FIELD_SPECS[key], units);
-}
-
-/** SI values of the fields. */
-export function valuesOf(fields: Readonly<Record<ConverterFieldKey, FieldState>>): FieldValues {
-  const values = {} as Record<ConverterFieldKey, number | null>;
-  for (const key of FIELD_KEYS) values[key] = fields[key].value;
+/** SI values of the fields (the converter's checks and results read them). */
+export function valuesOf(values: Readonly<Record<ConverterFieldKey, number | null>>): FieldValues {
   return values;
 }
 
@@ -197,47 +152,24 @@ const EXAMPLE_DISTANCE_ROWS = [
 const EXAMPLE_DISTANCE_READ = readDistanceRows(EXAMPLE_DISTANCE_ROWS, { distance: 'mm', delay: 'ms', sd: 'µs' });
 const EXAMPLE_DISTANCE_POINTS: DistancePoints | null = EXAMPLE_DISTANCE_READ.ok ? EXAMPLE_DISTANCE_READ.value : null;
 
-function without<K extends string>(record: Readonly<Partial<Record<K, string>>>, key: K): Partial<Record<K, string>> {
-  if (!(key in record)) return record;
-  const copy = { ...record };
-  delete copy[key];
-  return copy;
-}
-
 export const createConverterSlice: StateCreator<SekundoState, [], [], ConverterSlice> = (set, get) => {
-  /** Checks a new value of `key` with the others; applies it or records the message. */
-  const apply = (key: ConverterFieldKey, text: string, unit: Unit | ''): void => {
-    const spec = FIELD_SPECS[key];
-    const read = readField(spec, text, unit);
-    const { converterFields, converterErrors, converterMode, converterMethod, converterBatch, converterChoice, displayUnits } = get();
-    if (!read.ok) {
-      set({ converterErrors: { ...converterErrors, [key]: read.message } });
-      return;
-    }
-    const next = { ...valuesOf(converterFields), [key]: read.value };
-    const problem = crossFieldProblem(key, next, {
+  /** Checks a new value of `key` with the others; sets it, or gives the message. */
+  const setValue = (key: ConverterFieldKey, value: number | null): string | null => {
+    const { converterValues, converterMode, converterMethod, converterBatch, converterChoice } = get();
+    const problem = crossFieldProblem(key, { ...converterValues, [key]: value }, {
       reading: converterMode === 'reading' && converterMethod === 'single',
       batch: converterMode === 'batch' ? (converterBatch?.batch ?? null) : null,
       choice: converterChoice,
     });
-    if (problem !== null) {
-      set({ converterErrors: { ...converterErrors, [key]: problem } });
-      return;
-    }
-    // The text was read in `unit`; the good value is shown in the unit the field shows now.
-    const field = converterFields[key];
-    const shown = field.ownUnit ? unit : followedUnit(spec, displayUnits);
-    set({
-      converterFields: { ...converterFields, [key]: { ...field, text: fieldText(spec, read.value, shown), unit: shown, value: read.value } },
-      converterErrors: without(converterErrors, key),
-    });
+    if (problem !== null) return problem;
+    if (converterValues[key] !== value) set({ converterValues: { ...converterValues, [key]: value } });
+    return null;
   };
 
   return {
     converterMode: 'reading',
     converterMethod: 'single',
-    converterFields: initialFields(DEFAULT_DISPLAY_UNITS),
-    converterErrors: {},
+    converterValues: initialConverterValues(),
     converterChoice: 'none',
     converterDistanceRows: EXAMPLE_DISTANCE_ROWS.map((r) => ({ key: rowKey(), ...r })),
     converterDistanceUnits: { distance: 'mm', delay: 'ms', sd: 'µs' },
@@ -262,58 +194,19 @@ export const createConverterSlice: StateCreator<SekundoState, [], [], ConverterS
     setConverterMode: (mode) => set({ converterMode: mode }),
     setConverterMethod: (method) => set({ converterMethod: method }),
 
-    editConverterField: (key, text) => {
-      const { converterFields } = get();
-      set({ converterFields: { ...converterFields, [key]: { ...converterFields[key], text } } });
-    },
-
-    commitConverterField: (key) => {
-      const field = get().converterFields[key];
-      apply(key, field.text, field.unit);
-    },
-
-    discardConverterDraft: (key) => {
-      const { converterFields, converterErrors, displayUnits } = get();
-      const field = converterFields[key];
-      const unit = shownUnitOf(key, field, displayUnits);
-      set({
-        converterFields: { ...converterFields, [key]: { ...field, unit, text: fieldText(FIELD_SPECS[key], field.value, unit) } },
-        converterErrors: without(converterErrors, key),
-      });
-    },
-
-    setConverterFieldUnit: (key, unit) => {
-      const { converterFields, converterErrors } = get();
-      const field = converterFields[key];
-      const spec = FIELD_SPECS[key];
-      if (key in converterErrors) {
-        // A refused text is re-read in the new unit.
-        set({ converterFields: { ...converterFields, [key]: { ...field, unit, ownUnit: true } } });
-        apply(key, field.text, unit);
-        return;
-      }
-      set({ converterFields: { ...converterFields, [key]: { ...field, unit, ownUnit: true, text: fieldText(spec, field.value, unit) } } });
-    },
-
-    followConverterDisplayUnits: () => {
-      const { converterFields, converterErrors, displayUnits } = get();
-      let fields: Record<ConverterFieldKey, FieldState> | null = null;
-      for (const key of FIELD_KEYS) {
-        const field = converterFields[key];
-        const spec = FIELD_SPECS[key];
-        const unit = shownUnitOf(key, field, displayUnits);
-        const draft = key in converterErrors || field.text !== fieldText(spec, field.value, field.unit);
-        if (unit === field.unit || draft) continue;
-        fields ??= { ...converterFields };
-        fields[key] = { ...field, unit, text: fieldText(spec, field.value, unit) };
-      }
-      if (fields) set({ converterFields: fields });
-    },
+    setConverterValue: setValue,
 
     applyConverterValues: (values) => {
       for (const [key, value] of Object.entries(values) as [ConverterFieldKey, number][]) {
-        const field = get().converterFields[key];
-        apply(key, fieldText(FIELD_SPECS[key], value, field.unit), field.unit);
+        const problem = setValue(key, value);
+        if (problem === null) get().dropFieldDraft(converterFieldKey(key));
+        else {
+          // Refused: the value stays in the field as a draft, in the unit it shows, with the message.
+          const fieldKey = converterFieldKey(key);
+          const { displayUnits, fieldUnits, setFieldDraft } = get();
+          const unit = shownFieldUnit(FIELD_SPECS[key], value, displayUnits, fieldUnits[fieldKey]);
+          setFieldDraft(fieldKey, { text: fieldValueText(value, unit), unit, message: problem });
+        }
       }
     },
 

@@ -87,9 +87,9 @@ export function QuantityField({ spec, value, apply, help, ...frame }: QuantityFi
     useSekundoStore.getState().setFieldUnit(fieldKey, picked);
     if (draft) type(draft.text, picked);
   };
-  const unitPart =
+  const unitPart = (helpIds: string | undefined) =>
     unit === null ? null : spec.units && spec.units.length > 0 ? (
-      <select className="unit-select" aria-label={`${frame.label ?? spec.label} unit`} value={unit} onChange={(event) => pickUnit(event.target.value as Unit)}>
+      <select className="unit-select" aria-label={`${frame.label ?? spec.label} unit`} aria-describedby={helpIds} value={unit} onChange={(event) => pickUnit(event.target.value as Unit)}>
         {(spec.units.includes(unit) ? spec.units : [unit, ...spec.units]).map((u) => (
           <option key={u} value={u}>
             {unitLabel(spec, u)}
@@ -136,7 +136,7 @@ export function TextField({ value, apply, help, range, ...frame }: TextFieldProp
       range={range ?? null}
       text={draft ? draft.text : value}
       onType={(text) => typeDraft(fieldKey, text, null, () => apply(text))}
-      after={null}
+      after={() => null}
     />
   );
 }
@@ -159,7 +159,8 @@ interface FrameProps extends FieldFrameProps {
   range: string | null;
   text: string;
   onType: (text: string) => void;
-  after: ReactNode;
+  /** What stands after the box (the unit), given the ids of the field's help. */
+  after: (helpIds: string | undefined) => ReactNode;
 }
 
 /** Label, box, unit, hint and message: what every field looks like and how it leaves and restores. */
@@ -211,7 +212,7 @@ function FieldFrame({ fieldKey, label, shortLabel, labelHidden = false, hint, me
             if (event.key === 'Escape') useSekundoStore.getState().dropFieldDraft(fieldKey);
           }}
         />
-        {after}
+        {after(joinIds(hasHelp && fieldHelp.describedBy, elsewhere))}
       </div>
       {error && message === 'below' ? (
         <p id={fieldMessageId(fieldKey)} className="field-error quantity-field__error" role="alert">

@@ -10,11 +10,11 @@
  * time constant, a frequency…: "2 µs", "5 MS/s"). A bare number typed is in the unit shown; a
  * number with a unit ("2.5 ms") uses that unit.
  */
-import { fromBaseUnit, parseQuantity, QuantityParseError, type Unit, unitsOf } from '../../io/quantity';
+import { fromBaseUnit, parseQuantity, QuantityParseError, toBaseUnit, type Unit, unitsOf } from '../../io/quantity';
 import type { HelpTopic } from '../help/FieldHelp';
 import { type DisplayUnit, messageText, type QuantityKind, rangeText, unitFor } from '../units/ladders';
 import { plain } from '../units/format-number';
-import { type DisplayUnits, shownUnit } from '../units/unit-choices';
+import { type DisplayUnits, shownUnit, UNIT_KINDS, type UnitChoice } from '../units/unit-choices';
 
 /** A value, or an uncertainty standing on its own (always shown on its kind's ladder, never in the header's unit). */
 export type FieldRole = 'value' | 'sd';
@@ -83,7 +83,7 @@ export function fieldRangeText(spec: FieldSpec): string {
  * began); a typed unit wins. Gives the SI value, or a message naming the field and its valid range.
  */
 export function readFieldText(spec: FieldSpec, text: string, unit: Unit | null): FieldRead {
-  const trimmed = text.trim().replace(/\u2212/g, '-');
+  const trimmed = decimalPoint(text.trim().replace(/\u2212/g, '-'));
   const range = fieldRangeText(spec);
   if (trimmed === '') {
     if (spec.blank !== undefined) return { ok: true, value: null };
@@ -102,12 +102,32 @@ export function readFieldText(spec: FieldSpec, text: string, unit: Unit | null):
     if (!PLAIN_NUMBER.test(trimmed)) return { ok: false, message: `${spec.label} must be a number, ${range}; “${text.trim()}” is not one.` };
     value = Number(trimmed);
   }
-  const [min, max] = spec.range;
-  const inside = value <= max && (spec.aboveMin ? value > min : value >= min);
-  if (!inside || (spec.integer && !Number.isInteger(value))) {
-    return { ok: false, message: `${spec.label} must be ${range}; “${text.trim()}” is outside.` };
+  if (!inRange(spec, value) || (spec.integer && !Number.isInteger(value))) {
+    const meant = spec.kind && unit !== null && PLAIN_NUMBER.test(trimmed) ? meantUnit(spec, Number(trimmed), unit) : null;
+    return { ok: false, message: `${spec.label} must be ${range}; “${text.trim()}” is outside.${meant ? ` A bare number is in ${shownUnit(unit ?? '')}: did you mean ${trimmed} ${meant}?` : ''}` };
   }
   return { ok: true, value };
+}
+
+function inRange(spec: FieldSpec, value: number): boolean {
+  const [min, max] = spec.range;
+  return value <= max && (spec.aboveMin ? value > min : value >= min);
+}
+
+/** "1,65" → "1.65": a decimal comma in a number typed alone (no point, one comma between digits). */
+function decimalPoint(text: string): string {
+  return /^[+-]?\d+,\d+(?:[eE][+-]?\d+)?(?:\s*\D.*)?$/.test(text) && !text.includes('.') ? text.replace(',', '.') : text;
+}
+
+/**
+ * Another unit of the header's choices for the field's kind in which a bare number that is out of
+ * range would be in range (1800 typed in K: "1800 mK"); null when none or the kind has no choice.
+ */
+function meantUnit(spec: FieldSpec, amount: number, unit: Unit): string | null {
+  const follows = spec.kind?.follows;
+  if (!follows) return null;
+  const other = (UNIT_KINDS[follows].choices as readonly UnitChoice[]).find((c) => c.unit !== unit && inRange(spec, toBaseUnit(amount, c.unit as Unit)));
+  return other ? other.shown : null;
 }
 
 function unitProblem(error: QuantityParseError): string {

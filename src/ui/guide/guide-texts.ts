@@ -47,4 +47,13 @@ export const VIEW_GUIDES: Readonly<Record<ViewId, ViewGuideText>> = {
     ],
     caution: 'Sekundo is a planning and analysis aid, not a safety system.',
   },
+  resonator: {
+    lead: 'Open the demo resonator, or type your gap and bath temperature.',
+    steps: [
+      'The plan lists the modes f_n = n u₂/2d with their temperature slope, the frequency step your target resolution needs and the plates’ Fresnel number.',
+      'Drop a sweep CSV (frequency_Hz with x and y, or amplitude): the resonance is fitted with sds; with the mode number it gives every candidate temperature, and against a vortex-free reference the vortex line density.',
+      'Drop a lock-in record (time_s, x, y) to follow the line density and the drift of f₀ over time; export it as CSV.',
+    ],
+    caution: 'Heaters in a cryogenic bath and counterflow runs: the cautions under the heater panel of this view apply; local codes and licensed practice come first.',
+  },
 };

@@ -11,15 +11,16 @@ import {
   regionSpec,
   SPEED_SPEC,
   speedEdit,
-  surfaceFields,
+  SURFACE_FIELDS,
   TEMPERATURE_SD_SPEC,
-  temperatureEditIn,
+  TEMPERATURE_SPEC,
+  temperatureEdit,
   temperatureSdEdit,
-  temperatureSpec,
 } from './locate-fields';
+import { locateFieldProps } from './locate-field-props';
+import { QuantityField } from '../fields/QuantityField';
 import { LOCATE_HELP } from './locate-help';
 import { AXIS_NAMES, type LocateOptionsInput, type SurfaceKind } from './locate-inputs';
-import { LocateField } from './LocateField';
 
 const SURFACE_CHOICES: readonly { kind: SurfaceKind; label: string }[] = [
   { kind: 'none', label: 'None: anywhere in 3-D' },
@@ -33,7 +34,6 @@ export function LocateOptions() {
   const options = useSekundoStore((s) => s.locateOptions);
   const change = useSekundoStore((s) => s.changeLocate);
   const temperature = useDisplayUnit('temperature');
-  const length = useDisplayUnit('length');
   const surfaceId = useId();
   const speedHelp = useFieldHelp('speed of the front', LOCATE_HELP.speedMode);
   const surfaceHelp = useFieldHelp('source on a surface', LOCATE_HELP.surface);
@@ -56,13 +56,9 @@ export function LocateOptions() {
         </label>
         {options.speedMode === 'temperature' ? (
           <div className="locate-indent">
-            <LocateField
-              fieldKey="opt.temperature"
-              spec={temperatureSpec(temperature.unit)}
-              value={options.temperature_K}
-              edit={temperatureEditIn(temperature.unit)}
+            <QuantityField
+              {...locateFieldProps('opt.temperature', TEMPERATURE_SPEC, options.temperature_K, temperatureEdit)}
               label="Bath temperature T90"
-              unit={temperature.shown}
               help={LOCATE_HELP.temperature(temperature.shown)}
             />
             <p className="field-hint" aria-live="polite">
@@ -79,13 +75,9 @@ export function LocateOptions() {
               Fit the speed within u₂’s own uncertainty (a prior){options.fitSpeed ? ' — off while an effective speed is fitted freely' : ''}
             </CheckWithHelp>
             {options.speedPrior && !options.fitSpeed ? (
-              <LocateField
-                fieldKey="opt.temperatureSd"
-                spec={TEMPERATURE_SD_SPEC}
-                value={options.temperatureSd_K}
-                edit={temperatureSdEdit}
+              <QuantityField
+                {...locateFieldProps('opt.temperatureSd', TEMPERATURE_SD_SPEC, options.temperatureSd_K, temperatureSdEdit)}
                 label="Bath temperature sd"
-                unit="mK"
                 help={LOCATE_HELP.temperatureSd}
               />
             ) : null}
@@ -97,7 +89,7 @@ export function LocateOptions() {
         </label>
         {options.speedMode === 'speed' ? (
           <div className="locate-indent">
-            <LocateField fieldKey="opt.speed" spec={SPEED_SPEC} value={options.speed_m_s} edit={speedEdit} label="Speed" unit="m/s" help={LOCATE_HELP.speed} />
+            <QuantityField {...locateFieldProps('opt.speed', SPEED_SPEC, options.speed_m_s, speedEdit)} label="Speed" help={LOCATE_HELP.speed} />
           </div>
         ) : null}
         <CheckWithHelp
@@ -109,13 +101,9 @@ export function LocateOptions() {
           Fit an effective speed too (strong pulses can travel faster than u₂; needs one more sensor)
         </CheckWithHelp>
       </fieldset>
-      <LocateField
-        fieldKey="opt.arrivalSd"
-        spec={DEFAULT_SD_SPEC}
-        value={options.arrivalSd_s}
-        edit={defaultSdEdit}
+      <QuantityField
+        {...locateFieldProps('opt.arrivalSd', DEFAULT_SD_SPEC, options.arrivalSd_s, defaultSdEdit)}
         label="Timing sd of sensors without their own"
-        unit="µs"
         help={LOCATE_HELP.defaultSd}
       />
       <div className="locate-group">
@@ -137,15 +125,11 @@ Source on a surface
         </select>
         {options.surface !== 'none' ? (
           <div className="locate-surface-fields">
-            {surfaceFields(length.unit)[options.surface].map((f) => (
-              <LocateField
+            {SURFACE_FIELDS[options.surface].map((f) => (
+              <QuantityField
                 key={f.id}
-                fieldKey={`opt.${f.id}`}
-                spec={f.spec}
-                value={f.value(options)}
-                edit={f.edit}
-                label={f.spec.name.replace(/^(Sphere|Cylinder|Plane) /, '')}
-                unit={f.spec.dimension === 'length' ? length.shown : undefined}
+                {...locateFieldProps(`opt.${f.id}`, f.spec, f.value(options), f.edit)}
+                label={f.spec.label.replace(/^(Sphere|Cylinder|Plane) /, '')}
                 describedBy={surfaceHelp.describedBy}
               />
             ))}
@@ -167,7 +151,6 @@ Source on a surface
 
 /** Where the quality map may suggest one more sensor: outside the body (always), inside a box (when asked). */
 function SensorRegion({ options, set }: { options: LocateOptionsInput; set: (key: string, patch: Partial<LocateOptionsInput>) => void }) {
-  const length = useDisplayUnit('length');
   const region = options.sensorRegion;
   const body = options.surface === 'sphere' || options.surface === 'cylinder' ? options.surface : null;
   return (
@@ -179,14 +162,10 @@ function SensorRegion({ options, set }: { options: LocateOptionsInput; set: (key
         <div className="locate-surface-fields">
           {(['min', 'max'] as const).flatMap((corner) =>
             ([0, 1, 2] as const).map((axis) => (
-              <LocateField
+              <QuantityField
                 key={`${corner}${axis}`}
-                fieldKey={`opt.region.${corner}${axis}`}
-                spec={regionSpec(corner, axis, length.unit)}
-                value={(corner === 'min' ? region.min_m : region.max_m)[axis]}
-                edit={regionEdit(corner, axis, length.unit)}
+                {...locateFieldProps(`opt.region.${corner}${axis}`, regionSpec(corner, axis), (corner === 'min' ? region.min_m : region.max_m)[axis], regionEdit(corner, axis))}
                 label={`${corner === 'min' ? 'lowest' : 'highest'} ${AXIS_NAMES[axis]}`}
-                unit={length.shown}
               />
             )),
           )}

@@ -1,18 +1,20 @@
-import { Fragment, useId } from 'react';
+import { Fragment } from 'react';
+import { useShallow } from 'zustand/react/shallow';
 import { usePagedRows } from '../layout/TablePager';
 import { HelpColumnHead, useFieldHelp } from '../help/FieldHelp';
 import { useSekundoStore } from '../store';
 import { LOCATE_ROWS_KEY } from '../store/locate-slice';
 import { useDisplayUnit } from '../units/use-display-unit';
-import { arrivalEdit, arrivalSpec, labelEdit, type LengthUnit, positionEdit, positionSpec, sensorSdEdit, sensorSdSpec, type TimeUnit } from './locate-fields';
+import { fieldMessageId, QuantityField, TextField } from '../fields/QuantityField';
+import { arrivalEdit, arrivalSpec, LOCATE_FIELD_PREFIX, labelEdit, locateFieldKey, positionEdit, positionSpec, sensorSdEdit, sensorSdSpec } from './locate-fields';
+import { locateFieldProps, locateTextProps } from './locate-field-props';
 import { LOCATE_HELP } from './locate-help';
 import type { LocateRowInput } from './locate-inputs';
-import { LocateField } from './LocateField';
 
 /** Units of the table's columns, and the ids of each column's help. */
 interface Columns {
-  length: { unit: LengthUnit; shown: string };
-  time: { unit: TimeUnit; shown: string };
+  length: { shown: string };
+  time: { shown: string };
   help: { label: string; position: string; arrival: string; sd: string };
 }
 
@@ -30,8 +32,8 @@ export function LocateSensors() {
   const sdHelp = useFieldHelp('timing sd of a sensor', LOCATE_HELP.sensorSd);
   const { start, end, pager } = usePagedRows(rows.length);
   const columns: Columns = {
-    length: { unit: length.unit, shown: length.shown },
-    time: { unit: time.unit, shown: time.shown },
+    length: { shown: length.shown },
+    time: { shown: time.shown },
     help: { label: labelHelp.describedBy, position: positionHelp.describedBy, arrival: arrivalHelp.describedBy, sd: sdHelp.describedBy },
   };
   return (
@@ -45,8 +47,8 @@ export function LocateSensors() {
         </button>
       </div>
       <p className="muted locate-lead">
-        Positions in {length.shown}, arrival times in {time.shown} on any common clock, timing sd in µs (a bare number is in the column’s unit; you may
-        type another: 0.12 m, 11563 us). Leave the arrival blank for a sensor without a reading; leave the sd blank to use the default (
+        Positions in {length.shown}, arrival times in {time.shown} on any common clock, each timing sd in the unit beside it (a bare number is in the
+        unit shown; you may type another: 0.12 m, 11563 us). Leave the arrival blank for a sensor without a reading; leave the sd blank to use the default (
         {(defaultSd * 1e6).toPrecision(3)} µs). The “?” in a column’s heading says more.
       </p>
       <div className="help-panels">
@@ -68,7 +70,7 @@ export function LocateSensors() {
                 z <span className="unit-as-written">({length.shown})</span>
               </th>
               <HelpColumnHead help={arrivalHelp}>Arrival <span className="unit-as-written">({time.shown})</span></HelpColumnHead>
-              <HelpColumnHead help={sdHelp}>Timing sd <span className="unit-as-written">(µs)</span></HelpColumnHead>
+              <HelpColumnHead help={sdHelp}>Timing sd</HelpColumnHead>
               <th scope="col">
                 <span className="visually-hidden">Actions</span>
               </th>
@@ -94,53 +96,51 @@ export function LocateSensors() {
 
 function SensorRow({ row, columns }: { row: LocateRowInput; columns: Columns }) {
   const remove = useSekundoStore((s) => s.removeLocateSensor);
-  const errors = useSekundoStore((s) => s.locateErrors);
-  const labelId = useId();
   const prefix = `row.${row.key}.`;
-  const messages = Object.entries(errors).filter(([key]) => key.startsWith(prefix));
+  // Messages of the row's fields (the fields slice) and of its controls, in one list under the row.
+  const messages = useSekundoStore(
+    useShallow((s) => [
+      ...Object.entries(s.fieldDrafts)
+        .filter(([key, draft]) => key.startsWith(locateFieldKey(prefix)) && draft.message !== null)
+        .map(([key, draft]) => [key, draft.message as string] as const),
+      ...Object.entries(s.locateErrors).filter(([key]) => key.startsWith(prefix)),
+    ].flat()),
+  );
+  const pairs: [string, string][] = [];
+  for (let i = 0; i + 1 < messages.length; i += 2) pairs.push([messages[i] as string, messages[i + 1] as string]);
   return (
     <Fragment>
       <tr>
         <td>
-          <LabelField row={row} id={labelId} describedBy={columns.help.label} />
+          <TextField {...locateTextProps(`${prefix}label`, row.label, labelEdit(row))} label={`Label of sensor ${row.label}`} labelHidden message="elsewhere" describedBy={columns.help.label} className="locate-label-field" />
         </td>
         {([0, 1, 2] as const).map((axis) => (
           <td key={axis} className="locate-cell">
-            <LocateField
-              fieldKey={`${prefix}${'xyz'[axis]}`}
-              spec={positionSpec(row.label, axis, columns.length.unit)}
-              value={row.position_m[axis]}
-              edit={positionEdit(row, axis, columns.length.unit)}
+            <QuantityField
+              {...locateFieldProps(`${prefix}${'xyz'[axis]}`, positionSpec(row.label, axis), row.position_m[axis], positionEdit(row, axis))}
               label={`${'xyz'[axis]} of ${row.label} (${columns.length.shown})`}
               describedBy={columns.help.position}
-              hideLabel
-              inlineMessage={false}
+              labelHidden
+              message="elsewhere"
             />
           </td>
         ))}
         <td className="locate-cell">
-          <LocateField
-            fieldKey={`${prefix}arrival`}
-            spec={arrivalSpec(row.label, columns.time.unit)}
-            value={row.arrival_s}
-            edit={arrivalEdit(row, columns.time.unit)}
+          <QuantityField
+            {...locateFieldProps(`${prefix}arrival`, arrivalSpec(row.label), row.arrival_s, arrivalEdit(row))}
             label={`Arrival at ${row.label} (${columns.time.shown})`}
             describedBy={columns.help.arrival}
-            hideLabel
-            inlineMessage={false}
-            placeholder="no reading"
+            labelHidden
+            message="elsewhere"
           />
         </td>
         <td className="locate-cell">
-          <LocateField
-            fieldKey={`${prefix}sd`}
-            spec={sensorSdSpec(row.label)}
-            value={row.arrivalSd_s}
-            edit={sensorSdEdit(row)}
-            label={`Timing sd of ${row.label} (µs)`}
+          <QuantityField
+            {...locateFieldProps(`${prefix}sd`, sensorSdSpec(row.label), row.arrivalSd_s, sensorSdEdit(row))}
+            label={`Timing sd of ${row.label}`}
             describedBy={columns.help.sd}
-            hideLabel
-            inlineMessage={false}
+            labelHidden
+            message="elsewhere"
             placeholder="default"
           />
         </td>
@@ -150,11 +150,11 @@ function SensorRow({ row, columns }: { row: LocateRowInput; columns: Columns }) 
           </button>
         </td>
       </tr>
-      {messages.length > 0 ? (
+      {pairs.length > 0 ? (
         <tr className="locate-row-messages">
           <td colSpan={7}>
-            {messages.map(([key, message]) => (
-              <p key={key} className="field-error" role="alert">
+            {pairs.map(([key, message]) => (
+              <p key={key} id={fieldMessageId(key.startsWith(LOCATE_FIELD_PREFIX) ? key : locateFieldKey(key))} className="field-error" role="alert">
                 {message}
               </p>
             ))}
@@ -162,36 +162,5 @@ function SensorRow({ row, columns }: { row: LocateRowInput; columns: Columns }) 
         </tr>
       ) : null}
     </Fragment>
-  );
-}
-
-function LabelField({ row, id, describedBy }: { row: LocateRowInput; id: string; describedBy: string }) {
-  const key = `row.${row.key}.label`;
-  const draft = useSekundoStore((s) => s.locateDrafts[key]);
-  const error = useSekundoStore((s) => s.locateErrors[key]);
-  const type = useSekundoStore((s) => s.typeLocateField);
-  const leave = useSekundoStore((s) => s.leaveLocateField);
-  const discard = useSekundoStore((s) => s.discardLocateDraft);
-  return (
-    <>
-      <label htmlFor={id} className="visually-hidden">
-        Label of sensor {row.label}
-      </label>
-      <input
-        id={id}
-        className="locate-input locate-input--label"
-        type="text"
-        autoComplete="off"
-        spellCheck={false}
-        value={draft ?? row.label}
-        aria-invalid={error ? true : undefined}
-        aria-describedby={describedBy}
-        onChange={(event) => type(key, event.target.value, labelEdit(row))}
-        onBlur={() => leave(key)}
-        onKeyDown={(event) => {
-          if (event.key === 'Escape') discard(key);
-        }}
-      />
-    </>
   );
 }

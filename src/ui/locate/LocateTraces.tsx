@@ -14,7 +14,8 @@ import { PlotlyChart } from '../plot/PlotlyChart';
 import { useSekundoStore } from '../store';
 import type { LocateTraceFile } from '../store/locate-slice';
 import { useDisplayUnit } from '../units/use-display-unit';
-import { LocateField } from './LocateField';
+import { QuantityField } from '../fields/QuantityField';
+import { locateFieldKey } from './locate-fields';
 import { LOCATE_HELP } from './locate-help';
 import { BAND_PX, FRAME_PX, locateTraceFigure, spanAroundPicks } from './locate-trace-figure';
 import { cancelLocateTrace, openLocateDemoTraces, openLocateTrace, TRACE_FILE_KEY } from './locate-trace-loader';
@@ -157,20 +158,16 @@ interface SettingFieldProps {
   help: HelpTopic;
 }
 
-/** A typed picker setting: a good value applies as it is typed; a bad one keeps the last good value and says why. */
+/** A typed picker setting: the one quantity field over the panel's picker settings. */
 function SettingField({ setting, label, placeholder, help }: SettingFieldProps) {
   const value = useSekundoStore((s) => traceSettingValue(s.locateTracePicker, setting));
-  const type = useSekundoStore((s) => s.typeLocateTraceSetting);
-  const time = useDisplayUnit('time');
-  const spec = traceSettingSpec(setting, time.unit);
   return (
-    <LocateField
-      fieldKey={traceSettingKey(setting)}
-      spec={spec}
+    <QuantityField
+      fieldKey={locateFieldKey(traceSettingKey(setting))}
+      spec={traceSettingSpec(setting)}
       value={value}
-      onType={(text) => type(setting, text, time.unit)}
+      apply={(v) => useSekundoStore.getState().setLocateTraceSetting(setting, v)}
       label={label}
-      unit={spec.unit ? time.shown : undefined}
       placeholder={placeholder}
       help={help}
     />

@@ -6,9 +6,10 @@
 import { LOCATE_ARRIVAL_RANGE_S, LOCATE_ARRIVAL_SD_RANGE_S, LOCATE_LABEL_MAX, LOCATE_MAX_SENSORS, LOCATE_POSITION_RANGE_M } from '../../io/locate-csv';
 import { MIN_BASELINE_SAMPLES, MODEL_MIN_K, SECOND_SOUND_EXTREMA, secondSound, T_LAMBDA_K } from '../../physics';
 import { plain } from '../units/format-number';
-import { FIELD_SPECS } from '../converter/converter-fields';
+import { PICKER_FIELD_SPECS } from '../fields/picker-specs';
 import { TRACE_FILE_LIMIT_BYTES } from '../converter/trace/trace-protocol';
 import type { HelpTopic } from '../help/FieldHelp';
+import { fieldRangeText } from '../fields/field-spec';
 import { SPEED_SPEC } from './locate-fields';
 import { LOCATE_DEFAULT_ARRIVAL_SD_S, LOCATE_DEFAULT_TEMPERATURE_K } from './locate-inputs';
 
@@ -62,7 +63,7 @@ export const LOCATE_HELP = {
   speed: {
     what: 'The speed of the front, used instead of u₂ (strong pulses can travel faster than small-signal second sound).',
     units: typed('m/s', '20 m/s, 2000 cm/s'),
-    range: `small-signal u₂ is ${U2_SPAN}; valid ${SPEED_SPEC.rangeText}`,
+    range: `small-signal u₂ is ${U2_SPAN}; valid ${fieldRangeText(SPEED_SPEC)}`,
     origin: '20 m/s, about u₂ in the usual working range',
   },
   speedPrior: {
@@ -137,19 +138,19 @@ export const LOCATE_HELP = {
   traceThreshold: {
     what: 'The threshold picker’s level, in noise sd above the baseline: higher is safer from noise, lower is closer to the foot of the pulse.',
     units: 'noise sd (a plain number)',
-    range: `typically 3–10; valid ${FIELD_SPECS.threshold.range[0]}–${FIELD_SPECS.threshold.range[1]}`,
-    origin: `${FIELD_SPECS.threshold.initial}, as in the converter`,
+    range: `typically 3–10; valid ${PICKER_FIELD_SPECS.threshold.range[0]}–${PICKER_FIELD_SPECS.threshold.range[1]}`,
+    origin: `${PICKER_FIELD_SPECS.threshold.initial}, as in the converter`,
   },
   traceFraction: {
     what: 'The fraction picker’s level, as a fraction of the pulse height above the baseline.',
     units: 'a plain number',
-    range: `typically 0.2–0.5; valid ${FIELD_SPECS.fraction.range[0]}–${FIELD_SPECS.fraction.range[1]}`,
-    origin: `${FIELD_SPECS.fraction.initial}, half height`,
+    range: `typically 0.2–0.5; valid ${PICKER_FIELD_SPECS.fraction.range[0]}–${PICKER_FIELD_SPECS.fraction.range[1]}`,
+    origin: `${PICKER_FIELD_SPECS.fraction.initial}, half height`,
   },
   traceSearch: (unit: string): HelpTopic => ({
     what: 'Where on the file’s clock the picker looks for the pulse, in every channel alike: start past a pickup at the trigger, stop before an echo.',
     units: typed(unit, '1.5 ms, 1500 us'),
-    range: `${plain(FIELD_SPECS.searchFrom.range[0])} to ${plain(FIELD_SPECS.searchFrom.range[1])} s; the end after the start; blank: from t = 0 to the end of the record`,
+    range: `${plain(PICKER_FIELD_SPECS.searchFrom.range[0])} to ${plain(PICKER_FIELD_SPECS.searchFrom.range[1])} s; the end after the start; blank: from t = 0 to the end of the record`,
     origin: 'blank',
   }),
 } as const satisfies Record<string, HelpTopic | ((unit: string) => HelpTopic)>;

@@ -5,7 +5,7 @@
  */
 import { LOCATE_ARRIVAL_RANGE_S, LOCATE_ARRIVAL_SD_RANGE_S } from '../../io/locate-csv';
 import type { PickerKind } from '../../physics';
-import { FIELD_SPECS } from '../converter/converter-fields';
+import { PICKER_FIELD_SPECS } from '../fields/picker-specs';
 import type { Polarity } from '../converter/converter-slice';
 // Types only: the store imports this file, and must not start the trace worker's module.
 import { plain } from '../units/format-number';
@@ -46,8 +46,8 @@ export interface TracePickerSettings {
 export const DEFAULT_TRACE_PICKER: TracePickerSettings = {
   picker: 'fraction',
   polarity: 'auto',
-  threshold: FIELD_SPECS.threshold.initial ?? 5,
-  fraction: FIELD_SPECS.fraction.initial ?? 0.5,
+  threshold: PICKER_FIELD_SPECS.threshold.initial,
+  fraction: PICKER_FIELD_SPECS.fraction.initial,
   from_s: null,
   to_s: null,
 };

@@ -1,49 +1,29 @@
 /**
- * The typed picker settings of the "from traces" panel: the converter's picker fields (their
- * names and ranges, src/ui/converter/converter-fields.ts) read the locate view's way (a bare
- * number in the shown unit, a message naming the field and its range, the last good value kept).
+ * The typed picker settings of the "from traces" panel: the picker's shared specs
+ * (src/ui/fields/picker-specs.ts, as in the converter), and how a good value changes the settings
+ * (the search window must run forwards).
  */
-import { FIELD_SPECS } from '../converter/converter-fields';
-import { type FieldRead, fieldText, type QuantityFieldSpec, readField, type TimeUnit } from './locate-fields';
+import type { FieldSpec } from '../fields/field-spec';
+import { PICKER_FIELD_SPECS } from '../fields/picker-specs';
+import { KINDS, messageText } from '../units/ladders';
 import type { TracePickerSettings } from './trace-arrivals';
 
 export const TRACE_SETTING_KEYS = ['threshold', 'fraction', 'from', 'to'] as const;
 export type TraceSettingKey = (typeof TRACE_SETTING_KEYS)[number];
 
-/** Store key of a setting's draft and message. */
+/** Key of a setting's draft and message ("traces.from"; in the fields slice under "locate."). */
 export const traceSettingKey = (key: TraceSettingKey) => `traces.${key}`;
 
-const plain = (x: number) => String(x).replace('-', '\u2212');
-const seconds = (range: readonly [number, number]) => `${plain(range[0])} to ${plain(range[1])} s`;
-
-const THRESHOLD_SPEC: QuantityFieldSpec = {
-  name: 'Threshold k',
-  dimension: null,
-  unit: null,
-  range: FIELD_SPECS.threshold.range,
-  rangeText: `${FIELD_SPECS.threshold.range[0]}–${FIELD_SPECS.threshold.range[1]} noise sd`,
+const SPECS: Readonly<Record<TraceSettingKey, FieldSpec>> = {
+  threshold: { ...PICKER_FIELD_SPECS.threshold, label: 'Threshold k' },
+  fraction: PICKER_FIELD_SPECS.fraction,
+  from: PICKER_FIELD_SPECS.searchFrom,
+  to: PICKER_FIELD_SPECS.searchTo,
 };
 
-const FRACTION_SPEC: QuantityFieldSpec = {
-  name: 'Fraction of the peak',
-  dimension: null,
-  unit: null,
-  range: FIELD_SPECS.fraction.range,
-  rangeText: `${FIELD_SPECS.fraction.range[0]}–${FIELD_SPECS.fraction.range[1]}`,
-};
-
-/** A setting's spec; times are shown, and read when bare, in the view's time unit. */
-export function traceSettingSpec(key: TraceSettingKey, unit: TimeUnit = 'ms'): QuantityFieldSpec {
-  switch (key) {
-    case 'threshold':
-      return THRESHOLD_SPEC;
-    case 'fraction':
-      return FRACTION_SPEC;
-    case 'from':
-      return { name: 'Search from', dimension: 'time', unit, range: FIELD_SPECS.searchFrom.range, rangeText: `${seconds(FIELD_SPECS.searchFrom.range)}, or blank for t = 0`, blankAllowed: true };
-    case 'to':
-      return { name: 'Search to', dimension: 'time', unit, range: FIELD_SPECS.searchTo.range, rangeText: `${seconds(FIELD_SPECS.searchTo.range)}, or blank for the end of the record`, blankAllowed: true };
-  }
+/** A setting's spec; times follow the header's unit of time. */
+export function traceSettingSpec(key: TraceSettingKey): FieldSpec {
+  return SPECS[key];
 }
 
 /** The setting's value in the settings. */
@@ -60,12 +40,8 @@ export function traceSettingValue(settings: TracePickerSettings, key: TraceSetti
   }
 }
 
-/** The settings with one field's text applied, or why the text is refused (the window must run forwards). */
-export function editTraceSetting(settings: TracePickerSettings, key: TraceSettingKey, text: string, unit: TimeUnit = 'ms'): { ok: true; settings: TracePickerSettings } | { ok: false; message: string } {
-  const spec = traceSettingSpec(key, unit);
-  const read: FieldRead = readField(spec, text);
-  if (!read.ok) return read;
-  const value = read.value;
+/** The settings with one good value set, or why they refuse it (the window must run forwards). */
+export function editTraceSetting(settings: TracePickerSettings, key: TraceSettingKey, value: number | null): { ok: true; settings: TracePickerSettings } | { ok: false; message: string } {
   const next: TracePickerSettings =
     key === 'threshold'
       ? { ...settings, threshold: value ?? settings.threshold }
@@ -75,8 +51,8 @@ export function editTraceSetting(settings: TracePickerSettings, key: TraceSettin
           ? { ...settings, from_s: value }
           : { ...settings, to_s: value };
   if (next.from_s !== null && next.to_s !== null && !(next.to_s > next.from_s)) {
-    const shown = (x: number) => `${fieldText(traceSettingSpec('from', unit), x)} ${unit}`;
-    return { ok: false, message: `${spec.name} ${text.trim()}: the search window must end after it starts (from ${shown(next.from_s)} to ${shown(next.to_s)} as typed).` };
+    const shown = (x: number) => messageText(x, KINDS.time.ladder, KINDS.time.zero);
+    return { ok: false, message: `${SPECS[key].label}: the search window must end after it starts (from ${shown(next.from_s)} to ${shown(next.to_s)}).` };
   }
   return { ok: true, settings: next };
 }

@@ -11,8 +11,9 @@ import {
 } from '../locate/locate-inputs';
 import type { TraceInfo } from '../converter/trace/trace-protocol';
 import { type ArrivalUpdate, type ChannelChoice, DEFAULT_TRACE_PICKER, type TracePickerSettings, withArrivals } from '../locate/trace-arrivals';
-import type { TimeUnit } from '../locate/locate-fields';
-import { editTraceSetting, TRACE_SETTING_KEYS, type TraceSettingKey, traceSettingKey } from '../locate/trace-fields';
+import { readFieldText } from '../fields/field-spec';
+import { LOCATE_FIELD_PREFIX, locateFieldKey } from '../locate/locate-fields';
+import { editTraceSetting, TRACE_SETTING_KEYS, type TraceSettingKey, traceSettingKey, traceSettingSpec } from '../locate/trace-fields';
 import type { SekundoState } from './state';
 
 /** Store keys of the trace picker's typed settings. */
@@ -45,12 +46,10 @@ export interface LocateTraceReading {
   rows: number;
 }
 
-/** A change made from a field's text: the inputs it gives, or why it is refused. */
-export type LocateTextEdit = (inputs: LocateInputs, text: string) => LocateEdit;
-
 /**
  * The source-location view's inputs: sensor rows and fit options (always values the fields
- * accepted), how results are shown, and the text of fields being typed or refused. Results are
+ * accepted) and how results are shown; typed fields keep their drafts and messages in the fields
+ * slice under "locate." (src/ui/fields). Results are
  * derived from these with the kernel (src/ui/locate/derive-locate.ts), never stored.
  */
 export interface LocateSlice {
@@ -60,19 +59,13 @@ export interface LocateSlice {
   /** 'idle' until the view first opens, 'loading' while the demo is fetched, then 'ready'. */
   locateStatus: 'idle' | 'loading' | 'ready';
   locateOrigin: LocateOrigin;
-  /** Text typed into fields, by field key, until the field is left with a good value. */
-  locateDrafts: Readonly<Record<string, string>>;
-  /** Why a field's text (or a file, or an action) was refused, by key; the inputs keep their last good value. */
+  /** Why a control's change (or a file, or an action) was refused, by key; the inputs keep their last good value. */
   locateErrors: Readonly<Record<string, string>>;
   beginLocateLoad: () => void;
   /** Replaces every sensor (demo, file); clears drafts and messages. Options are kept unless given. */
   loadLocateSensors: (sensors: readonly LocateSensor[], origin: LocateOrigin, options?: Partial<LocateOptionsInput>) => void;
-  /** Text typed into a field: kept as the draft; applied when good, otherwise refused with a message. */
-  typeLocateField: (key: string, text: string, edit: LocateTextEdit) => void;
-  /** Leaving a field: a good draft gives way to the value; a refused one stays with its message. */
-  leaveLocateField: (key: string) => void;
-  /** Drops a field's draft and message (Escape): the field shows the value in effect again. */
-  discardLocateDraft: (key: string) => void;
+  /** A change from a typed field: made when the inputs take it; returns the refusal, or null. */
+  applyLocateEdit: (change: (inputs: LocateInputs) => LocateEdit | LocateInputs) => string | null;
   /** A change from a control (checkbox, select, button); a refusal is shown under `key`. */
   changeLocate: (key: string, change: (inputs: LocateInputs) => LocateEdit | LocateInputs) => void;
   addLocateSensor: () => void;
@@ -97,8 +90,8 @@ export interface LocateSlice {
   chooseLocateTraceSensor: (channel: string, key: string | null) => void;
   /** A change from a picker control (select). */
   setLocateTracePicker: (change: Partial<TracePickerSettings>) => void;
-  /** Text typed into a picker setting: kept as the draft; applied when good, otherwise refused with a message. */
-  typeLocateTraceSetting: (key: TraceSettingKey, text: string, unit?: TimeUnit) => void;
+  /** A good value typed into a picker setting: set when the window still runs forwards; returns the refusal, or null. */
+  setLocateTraceSetting: (key: TraceSettingKey, value: number | null) => string | null;
   /**
    * Writes arrival times and timing sds into the given sensors, in one change; every other sensor
    * and field stays as it was. Drafts and messages of the written fields go.
@@ -142,35 +135,28 @@ export const createLocateSlice: StateCreator<SekundoState, [], [], LocateSlice> 
     locateDisplay: DEFAULT_LOCATE_DISPLAY,
     locateStatus: 'idle',
     locateOrigin: { kind: 'built-in', name: 'built-in layout', note: null },
-    locateDrafts: {},
     locateErrors: {},
 
     beginLocateLoad: () => set({ locateStatus: 'loading' }),
 
-    loadLocateSensors: (sensors, origin, options) =>
+    loadLocateSensors: (sensors, origin, options) => {
+      get().dropFieldDrafts(LOCATE_FIELD_PREFIX);
       set({
         locateRows: sensors.map((s) => ({ ...s, key: newKey() })),
         locateOrigin: origin,
         locateOptions: options ? { ...get().locateOptions, ...options } : get().locateOptions,
         locateStatus: 'ready',
-        locateDrafts: {},
         locateErrors: {},
-      }),
-
-    typeLocateField: (key, text, edit) => {
-      set({ locateDrafts: { ...get().locateDrafts, [key]: text } });
-      const result = edit(inputs(), text);
-      if (result.ok) set({ locateRows: result.inputs.rows, locateOptions: result.inputs.options, locateErrors: without(get().locateErrors, key) });
-      else refuse(key, result.message);
+      });
     },
 
-    leaveLocateField: (key) => {
-      const { locateErrors, locateDrafts } = get();
-      if (key in locateErrors || !(key in locateDrafts)) return;
-      set({ locateDrafts: without(locateDrafts, key) });
+    applyLocateEdit: (change) => {
+      const result = change(inputs());
+      const edit: LocateEdit = 'ok' in result ? result : { ok: true, inputs: result };
+      if (!edit.ok) return edit.message;
+      set({ locateRows: edit.inputs.rows, locateOptions: edit.inputs.options });
+      return null;
     },
-
-    discardLocateDraft: (key) => set({ locateDrafts: without(get().locateDrafts, key), locateErrors: without(get().locateErrors, key) }),
 
     changeLocate: (key, change) => {
       const result = change(inputs());
@@ -194,10 +180,10 @@ export const createLocateSlice: StateCreator<SekundoState, [], [], LocateSlice> 
     },
 
     removeLocateSensor: (key) => {
-      const { locateRows, locateDrafts, locateErrors } = get();
+      const { locateRows, locateErrors } = get();
+      get().dropFieldDrafts(locateFieldKey(`row.${key}.`));
       set({
         locateRows: locateRows.filter((r) => r.key !== key),
-        locateDrafts: withoutPrefix(locateDrafts, `row.${key}.`),
         locateErrors: withoutPrefix(without(locateErrors, LOCATE_ROWS_KEY), `row.${key}.`),
       });
     },
@@ -221,29 +207,30 @@ export const createLocateSlice: StateCreator<SekundoState, [], [], LocateSlice> 
       }),
     chooseLocateTraceSensor: (channel, key) => set({ locateTraceChoice: { ...get().locateTraceChoice, [channel]: key } }),
     setLocateTracePicker: (change) => set({ locateTracePicker: { ...get().locateTracePicker, ...change } }),
-    typeLocateTraceSetting: (key, text, unit) => {
-      const field = traceSettingKey(key);
-      set({ locateDrafts: { ...get().locateDrafts, [field]: text } });
-      const result = editTraceSetting(get().locateTracePicker, key, text, unit);
-      if (!result.ok) {
-        refuse(field, result.message);
-        return;
-      }
-      set({ locateTracePicker: result.settings, locateErrors: without(get().locateErrors, field) });
-      // The window's other end may have been refused only because of this one: try its text again.
+    setLocateTraceSetting: (key, value) => {
+      const result = editTraceSetting(get().locateTracePicker, key, value);
+      if (!result.ok) return result.message;
+      set({ locateTracePicker: result.settings });
+      // The window's other end may have been refused only because of this one: read its text again.
       const other = key === 'from' ? 'to' : key === 'to' ? 'from' : null;
-      const otherField = other && traceSettingKey(other);
-      const otherText = otherField && get().locateErrors[otherField] !== undefined ? get().locateDrafts[otherField] : undefined;
-      if (other && otherField && otherText !== undefined) {
-        const again = editTraceSetting(get().locateTracePicker, other, otherText, unit);
-        if (again.ok) set({ locateTracePicker: again.settings, locateErrors: without(get().locateErrors, otherField), locateDrafts: without(get().locateDrafts, otherField) });
+      const otherKey = other && locateFieldKey(traceSettingKey(other));
+      const draft = otherKey ? get().fieldDrafts[otherKey] : undefined;
+      if (other && otherKey && draft && draft.message !== null) {
+        const read = readFieldText(traceSettingSpec(other), draft.text, draft.unit);
+        const again = read.ok ? editTraceSetting(get().locateTracePicker, other, read.value) : null;
+        if (again?.ok) {
+          set({ locateTracePicker: again.settings });
+          get().dropFieldDraft(otherKey);
+        }
       }
+      return null;
     },
     setLocateArrivals: (updates) => {
-      const { locateRows, locateDrafts, locateErrors } = get();
+      const { locateRows, locateErrors } = get();
       const fields = new Set(updates.flatMap((u) => [`row.${u.key}.arrival`, `row.${u.key}.sd`]));
+      for (const field of fields) get().dropFieldDraft(locateFieldKey(field));
       const keep = (record: Readonly<Record<string, string>>) => Object.fromEntries(Object.entries(record).filter(([key]) => !fields.has(key)));
-      set({ locateRows: withArrivals(locateRows, updates), locateDrafts: keep(locateDrafts), locateErrors: keep(locateErrors) });
+      set({ locateRows: withArrivals(locateRows, updates), locateErrors: keep(locateErrors) });
     },
   };
 };

@@ -3,7 +3,6 @@ import type { Preferences } from '../../io/workspace-storage';
 import { asDisplayUnit, DEFAULT_DISPLAY_UNITS, type DisplayUnitOf, type DisplayUnits, UNIT_KIND_LIST, type UnitKind } from '../units/unit-choices';
 import type { SekundoState } from './state';
 import { VIEW_IDS, type ViewId } from './view-slice';
-import { draftFor } from './temperature-slice';
 
 /** The colour theme a person chose; "system" follows the operating system's light or dark setting. */
 export type ThemeChoice = 'light' | 'dark' | 'system';
@@ -69,8 +68,7 @@ export const createPreferencesSlice: StateCreator<SekundoState, [], [], Preferen
   setDisplayUnit: (kind, unit) => {
     const before = get();
     const displayUnits = { ...before.displayUnits, [kind]: unit };
-    set({ displayUnits, ...temperatureDraftIn(before, displayUnits.temperature) });
-    get().followConverterDisplayUnits();
+    set({ displayUnits });
   },
   guidesDismissed: [],
   dismissGuide: (view) => set((s) => (s.guidesDismissed.includes(view) ? s : { guidesDismissed: [...s.guidesDismissed, view] })),
@@ -88,15 +86,8 @@ export const createPreferencesSlice: StateCreator<SekundoState, [], [], Preferen
     set({
       themeChoice: isThemeChoice(theme) ? theme : get().themeChoice,
       displayUnits: units as DisplayUnits,
-      ...temperatureDraftIn(get(), (units as DisplayUnits).temperature),
       guidesDismissed: dismissedGuides(prefs),
     });
-    get().followConverterDisplayUnits();
   },
 });
 
-/** The temperature field's text in a new unit, unless someone is typing in it (then it is left alone). */
-function temperatureDraftIn(state: SekundoState, unit: DisplayUnits['temperature']): { temperatureDraft?: string } {
-  const shown = draftFor(state.temperature_K, state.displayUnits.temperature);
-  return state.temperatureDraft === shown ? { temperatureDraft: draftFor(state.temperature_K, unit) } : {};
-}

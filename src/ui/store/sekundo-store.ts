@@ -5,6 +5,7 @@ import { createRehearseSlice } from '../planner/rehearse/rehearse-slice';
 import { createLocateSlice } from './locate-slice';
 import { createPlannerSlice } from './planner-slice';
 import { createPreferencesSlice } from './preferences-slice';
+import { createResonatorSlice } from '../resonator/resonator-slice';
 import type { SekundoState } from './state';
 import { createTemperatureSlice } from './temperature-slice';
 import { createViewSlice } from './view-slice';
@@ -17,6 +18,7 @@ export const useSekundoStore = create<SekundoState>()((...args) => ({
   ...createPlannerSlice(...args),
   ...createConverterSlice(...args),
   ...createLocateSlice(...args),
+  ...createResonatorSlice(...args),
   ...createPreferencesSlice(...args),
   ...createFieldsSlice(...args),
   ...createWatchSlice(...args),

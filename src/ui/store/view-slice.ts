@@ -2,7 +2,7 @@ import type { StateCreator } from 'zustand';
 import type { SekundoState } from './state';
 
 /** The page's views (tabs), in tab order. */
-export const VIEW_IDS = ['explorer', 'planner', 'converter', 'locate'] as const;
+export const VIEW_IDS = ['explorer', 'planner', 'converter', 'locate', 'resonator'] as const;
 export type ViewId = (typeof VIEW_IDS)[number];
 
 /** How the page is shown (no physics here). */

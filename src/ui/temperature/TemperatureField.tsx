@@ -1,58 +1,32 @@
-import type { FormEvent } from 'react';
-import { describedBy, HelpLabel, useFieldHelp } from '../help/FieldHelp';
+import { PROPERTIES_RANGE_K } from '../../physics';
+import type { FieldSpec } from '../fields/field-spec';
+import { QuantityField } from '../fields/QuantityField';
 import { useSekundoStore } from '../store';
-import { TEMPERATURE_HELP } from './temperature-help';
+import { KINDS } from '../units/ladders';
 import { TEMPERATURE_RANGE_TEXT } from '../units/temperature-text';
+import { TEMPERATURE_HELP } from './temperature-help';
 
-const INPUT_ID = 'temperature-input';
-const HINT_ID = 'temperature-hint';
-const ERROR_ID = 'temperature-error';
+/** The explorer's temperature field: the kernel's property range, in the header's unit of temperature. */
+export const TEMPERATURE_FIELD: FieldSpec = { label: 'Temperature', kind: KINDS.temperature, range: PROPERTIES_RANGE_K, help: TEMPERATURE_HELP.field };
 
-/** Typed temperature in K or mK; applied on Enter, on "Set" or when the field loses focus. */
+/** Typed temperature in the header's unit (K or mK), or with its unit; applied as it is typed. */
 export function TemperatureField() {
-  const draft = useSekundoStore((state) => state.temperatureDraft);
-  const error = useSekundoStore((state) => state.temperatureError);
-  const edit = useSekundoStore((state) => state.editTemperatureDraft);
-  const commit = useSekundoStore((state) => state.commitTemperatureDraft);
-  const help = useFieldHelp('temperature', TEMPERATURE_HELP.field);
-
-  const submit = (event: FormEvent<HTMLFormElement>) => {
-    event.preventDefault();
-    commit();
-  };
-
+  const temperature_K = useSekundoStore((s) => s.temperature_K);
+  const setTemperature = useSekundoStore((s) => s.setTemperature);
   return (
-    <form className="temperature-form" onSubmit={submit} noValidate>
-      <HelpLabel htmlFor={INPUT_ID} help={help}>
-Temperature (type K or mK)
-</HelpLabel>
-      <div className="field-row">
-        <input
-          id={INPUT_ID}
-          className="text-input"
-          type="text"
-          inputMode="decimal"
-          autoComplete="off"
-          spellCheck={false}
-          value={draft}
-          onChange={(event) => edit(event.target.value)}
-          onBlur={commit}
-          aria-invalid={error !== null}
-          aria-describedby={describedBy(error !== null && ERROR_ID, HINT_ID, help.describedBy)}
-        />
-        <button type="submit" className="button button--primary">
-          Set
-        </button>
-      </div>
-      <p id={HINT_ID} className="field-hint">
-        For example 1.8, 1.8 K or 1800 mK; press Enter to apply. Range{' '}
-        <span className="nowrap">{TEMPERATURE_RANGE_TEXT}</span>.
-      </p>
-      {error === null ? null : (
-        <p id={ERROR_ID} className="field-error" role="alert">
-          {error} The temperature in effect is unchanged.
-        </p>
-      )}
-    </form>
+    <div className="temperature-form">
+      <QuantityField
+        fieldKey="explorer.temperature"
+        spec={TEMPERATURE_FIELD}
+        value={temperature_K}
+        apply={(v) => (v === null ? 'Temperature is empty.' : setTemperature(v))}
+        label="Temperature"
+        hint={
+          <>
+            For example 1.8 in K, 1800 in mK, or with its unit (“1800 mK”). Range <span className="nowrap">{TEMPERATURE_RANGE_TEXT}</span>.
+          </>
+        }
+      />
+    </div>
   );
 }

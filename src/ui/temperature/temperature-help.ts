@@ -9,7 +9,7 @@ const [MIN_K, MAX_K] = PROPERTIES_RANGE_K;
 export const TEMPERATURE_HELP = {
   field: {
     what: 'The bath temperature on ITS-90 (T90) at which every property, key figure and chart marker is shown.',
-    units: 'K or mK; a bare number is kelvin (1.8 = 1.8 K); a decimal comma is read too',
+    units: 'K or mK; a bare number is in the unit shown beside the field (the header’s choice), or type the unit (1800 mK)',
     range: `${MIN_K}–${MAX_K} K. He II below Tλ = ${T_LAMBDA_K} K; measured second sound from ${SECOND_SOUND_MEASURED_MIN_K} K (below it the Landau model); ITS-90 vapour pressure from ${ITS90_RANGE_K[0]} K`,
     origin: `${DEFAULT_TEMPERATURE_K} K, a common He II working point`,
   },

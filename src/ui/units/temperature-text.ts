@@ -1,6 +1,6 @@
 /**
- * Temperature units at the UI edge: the kernel works in kelvin only; people type kelvin or
- * millikelvin. Parsing and formatting live here and nowhere else.
+ * Temperatures as text at the UI edge: the kernel works in kelvin only; people read kelvin or
+ * millikelvin. Typed temperatures are read by the one quantity field (src/ui/fields).
  */
 import { PROPERTIES_RANGE_K } from '../../physics';
 
@@ -42,38 +42,9 @@ export const TEMPERATURE_RANGE_TEXT = `${MIN_K}–${MAX_K} K (${MIN_K * MILLIKEL
 
 export type TemperatureParse = { ok: true; temperature_K: number } | { ok: false; message: string };
 
-// A decimal number (point or comma), optional exponent, optional unit K or mK (any case).
-const TEMPERATURE_PATTERN = /^([+-]?(?:\d+(?:[.,]\d*)?|[.,]\d+)(?:e[+-]?\d+)?)\s*(mk|k)?$/i;
-
-/**
- * Reads a typed temperature: "1.8", "1.8 K", "1800 mK", "1,8 K". A bare number is kelvin.
- * Returns the temperature in kelvin, or a message that names the field and the valid range.
- */
-export function parseTemperature(text: string): TemperatureParse {
-  const trimmed = text.trim().replace(/\u2212/g, '-');
-  if (trimmed === '') {
-    return { ok: false, message: `Temperature is empty: type a value in ${TEMPERATURE_RANGE_TEXT}, e.g. 1.8 K or 1800 mK.` };
-  }
-  const match = TEMPERATURE_PATTERN.exec(trimmed);
-  const numberText = match?.[1];
-  if (!match || numberText === undefined) {
-    return {
-      ok: false,
-      message: `Temperature must be a number in K or mK (e.g. 1.8 K or 1800 mK) within ${TEMPERATURE_RANGE_TEXT}.`,
-    };
-  }
-  const amount = Number(numberText.replace(',', '.'));
-  const inMillikelvin = match[2]?.toLowerCase() === 'mk';
-  const temperature_K = inMillikelvin ? amount / MILLIKELVIN_PER_KELVIN : amount;
-  if (!isInRange(temperature_K)) {
-    return { ok: false, message: outOfRangeMessage(amount, inMillikelvin, match[2] !== undefined) };
-  }
-  return { ok: true, temperature_K };
-}
-
 /** Checks a temperature already in kelvin (slider, presets) against the same range. */
 export function checkTemperature(temperature_K: number): TemperatureParse {
-  if (!isInRange(temperature_K)) return { ok: false, message: outOfRangeMessage(temperature_K, false, true) };
+  if (!isInRange(temperature_K)) return { ok: false, message: outOfRangeMessage(temperature_K) };
   return { ok: true, temperature_K };
 }
 
@@ -81,12 +52,6 @@ function isInRange(temperature_K: number): boolean {
   return Number.isFinite(temperature_K) && temperature_K >= MIN_K && temperature_K <= MAX_K;
 }
 
-function outOfRangeMessage(amount: number, inMillikelvin: boolean, hadUnit: boolean): string {
-  const got = `${amount} ${inMillikelvin ? 'mK' : 'K'}`;
-  const base = `Temperature must be ${TEMPERATURE_RANGE_TEXT}; got ${got}.`;
-  const asMillikelvin = amount / MILLIKELVIN_PER_KELVIN;
-  if (!hadUnit && asMillikelvin >= MIN_K && asMillikelvin <= MAX_K) {
-    return `${base} A number without a unit is read as kelvin: did you mean ${amount} mK?`;
-  }
-  return base;
+function outOfRangeMessage(temperature_K: number): string {
+  return `Temperature must be ${TEMPERATURE_RANGE_TEXT}; got ${temperature_K} K.`;
 }

@@ -5,7 +5,8 @@ import { PanelErrorBoundary } from '../../layout/PanelErrorBoundary';
 import { fileSize, ReadProgress } from '../../layout/ReadProgress';
 import { useSekundoStore } from '../../store';
 import { ChoiceCard } from '../ChoiceCard';
-import { ConverterField } from '../ConverterField';
+import { QuantityField } from '../../fields/QuantityField';
+import { useConverterField } from '../use-converter-field';
 import type { Polarity, TraceFileEntry } from '../converter-slice';
 import { CONVERTER_CHOICE_HELP } from '../converter-help';
 import { DropZone } from '../DropZone';
@@ -135,6 +136,10 @@ export function PickerCard({ channels: given, lead }: { channels?: readonly stri
   const setPicker = useSekundoStore((s) => s.setConverterTracePicker);
   const setChannels = useSekundoStore((s) => s.setConverterTraceChannels);
   const setPolarity = useSekundoStore((s) => s.setConverterTracePolarity);
+  const threshold = useConverterField('threshold');
+  const fraction = useConverterField('fraction');
+  const searchFrom = useConverterField('searchFrom');
+  const searchTo = useConverterField('searchTo');
   const fromFiles = useMemo(() => [...new Set(files.flatMap((f) => f.info?.channels ?? []))], [files]);
   const channels = given ?? fromFiles;
   const heaterId = useId();
@@ -192,10 +197,10 @@ export function PickerCard({ channels: given, lead }: { channels?: readonly stri
         {help.polarity.panel}
       </div>
       <div className="picker-fields">
-        {picker === 'threshold' ? <ConverterField fieldKey="threshold" label="Threshold k (noise sd)" className="picker-fields__wide" /> : null}
-        {picker === 'fraction' ? <ConverterField fieldKey="fraction" label="Fraction of the peak (0.05–0.95)" className="picker-fields__wide" /> : null}
-        <ConverterField fieldKey="searchFrom" label="Search from" />
-        <ConverterField fieldKey="searchTo" label="Search to" />
+        {picker === 'threshold' ? <QuantityField {...threshold} shortLabel="Threshold k (noise sd)" className="picker-fields__wide" /> : null}
+        {picker === 'fraction' ? <QuantityField {...fraction} shortLabel="Fraction of the peak (0.05–0.95)" className="picker-fields__wide" /> : null}
+        <QuantityField {...searchFrom} />
+        <QuantityField {...searchTo} />
       </div>
       <p className="field-hint">
         Search window times count from time zero. Baseline and noise come from the samples before time zero; a window starting past the heater

@@ -14,7 +14,6 @@ import { compileWatchPattern } from '../../../io/watch-pattern';
 import { useSekundoStore } from '../../store';
 import type { SekundoState } from '../../store/state';
 import { choiceRuleOf } from '../converter-checks';
-import { valuesOf } from '../converter-slice';
 import { defaultChannels } from '../trace/trace-loader';
 import { traceEngine } from '../trace/trace-engine';
 import { pickOptionsOf } from '../trace/trace-picks';
@@ -34,7 +33,7 @@ let followingSettings = false;
 
 /** Distance, offset and start rule from the converter's inputs (SI). */
 export function watchSettingsOf(s: SekundoState): WatchSettings {
-  const v = valuesOf(s.converterFields);
+  const v = s.converterValues;
   return {
     distance_m: v.distance ?? 0.05,
     distanceSd_m: v.distanceSd ?? 0,
@@ -54,7 +53,7 @@ function followSettings(): void {
 
 function pickOptionsNow() {
   const s = useSekundoStore.getState();
-  const v = valuesOf(s.converterFields);
+  const v = s.converterValues;
   return pickOptionsOf({
     picker: s.converterTracePicker,
     heater: s.converterTraceHeater,

@@ -3,7 +3,7 @@ import { ConverterView } from '../src/ui/converter/ConverterView';
 import { ExplorerView } from '../src/ui/explorer/ExplorerView';
 import { LocateView } from '../src/ui/locate/LocateView';
 import { PlannerView } from '../src/ui/planner/PlannerView';
-import type { ViewId } from '../src/ui/store/view-slice';
+import type { ViewId } from '../src/ui/layout/view-slice';
 
 /** The page's views, in tab order. A new view adds its id to ViewId and an entry here. */
 export interface ViewEntry {

@@ -1,10 +1,10 @@
 import type { ConverterSlice } from '../converter/converter-slice';
 import type { FieldsSlice } from '../fields/fields-slice';
-import type { LocateSlice } from './locate-slice';
-import type { PlannerSlice } from './planner-slice';
-import type { PreferencesSlice } from './preferences-slice';
-import type { TemperatureSlice } from './temperature-slice';
-import type { ViewSlice } from './view-slice';
+import type { LocateSlice } from '../locate/locate-slice';
+import type { PlannerSlice } from '../planner/planner-slice';
+import type { PreferencesSlice } from '../preferences/preferences-slice';
+import type { TemperatureSlice } from '../temperature/temperature-slice';
+import type { ViewSlice } from '../layout/view-slice';
 
 /** The whole store: inputs only. Results are derived from them with kernel calls. */
 export type SekundoState = TemperatureSlice & ViewSlice & PlannerSlice & ConverterSlice & LocateSlice & PreferencesSlice & FieldsSlice;

@@ -7,7 +7,7 @@ import type { SensorOutcome } from '../../io/locate-csv';
 import type { LocateResult, SurfaceConstraint, Vec3 } from '../../physics';
 import { axis, baseLayout, CHART_COLOURS } from '../charts/chart-theme';
 import type { PlotAnnotation, PlotLayout, PlotTrace } from '../plot/plotly-types';
-import { ELLIPSE_DCHI2, ellipseAxes, ellipsePoints, marginalCovariance, project, type QualityMap } from './locate-geometry';
+import { ELLIPSE_DCHI2, ellipseAxes, ellipsePoints, marginalCovariance, project, } from './locate-geometry';
 import { AXIS_NAMES, axesOf, type PlanePair } from './locate-inputs';
 
 /** Colours of this view (the house palette, chart-theme and app/styles.css). */

@@ -4,7 +4,7 @@
  * locate-figures.ts).
  */
 import type { Vec3 } from '../../physics';
-import { axis, baseLayout, CHART_COLOURS } from '../charts/chart-theme';
+import { axis, baseLayout, } from '../charts/chart-theme';
 import type { PlotAnnotation, PlotLayout, PlotTrace } from '../plot/plotly-types';
 import { fmt, LOCATE_COLOURS, type LengthScale, MM_SCALE, TRACE_NAMES } from './locate-figures';
 import type { QualityMap } from './locate-geometry';

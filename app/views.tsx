@@ -4,7 +4,7 @@ import { ExplorerView } from '../src/ui/explorer/ExplorerView';
 import { LocateView } from '../src/ui/locate/LocateView';
 import { PlannerView } from '../src/ui/planner/PlannerView';
 import { ResonatorView } from '../src/ui/resonator/ResonatorView';
-import type { ViewId } from '../src/ui/store/view-slice';
+import type { ViewId } from '../src/ui/layout/view-slice';
 
 /** The page's views, in tab order. A new view adds its id to ViewId and an entry here. */
 export interface ViewEntry {

@@ -27,7 +27,10 @@
  *    from row to row.
  *  - Header lines of the form "key: value", "key = value" or "key<delimiter>value" are kept as
  *    metadata fields; all header lines are kept as they were.
- *  - Size limit: {@link TRACE_CSV_SIZE_LIMIT_BYTES} (512 MiB); larger inputs are refused.
+ *  - Size limits: the parser itself refuses more than {@link TRACE_CSV_SIZE_LIMIT_BYTES} (512 MiB),
+ *    the command line's limit (`sekundo trace`); the page refuses a file before reading it above
+ *    its own, smaller TRACE_FILE_LIMIT_BYTES (256 MiB, src/ui/converter/trace/trace-protocol.ts),
+ *    so a browser tab keeps memory for the samples it draws.
  *
  * In a Web Worker: `parseTraceCsvBlob(file, …)` (trace-csv-stream.ts), or
  * drive a {@link TraceCsvParser} by hand with `feed(chunk)` per chunk of `file.stream()`; post the
@@ -50,7 +53,7 @@ import { countsSamples, headerFields, sameShape, type Shape, shapeOf, TIME_NAMES
 
 export type { TimeUnit } from './trace-csv-layout';
 
-/** Largest trace file read, bytes (512 MiB). */
+/** Largest trace input the parser reads, bytes (512 MiB; the command line's limit, the page's is 256 MiB). */
 export const TRACE_CSV_SIZE_LIMIT_BYTES = 512 * 1024 * 1024;
 /**
  * Largest size of a value read, in any column: noise and baseline sums square the samples, and

@@ -131,13 +131,16 @@ describe('property explorer', () => {
     expect(screen.getByText('ITS-90')).toBeInTheDocument();
   });
 
-  it('moves with the slider and writes the value back into the field', () => {
-    setup();
+  it('moves with the slider and writes the value back into the field, in place of a refused text', async () => {
+    const { user, field } = setup();
+    await typeTemperature(user, field, '5 K');
+    expect(screen.getByRole('alert')).toBeInTheDocument();
     const slider = screen.getByRole('slider', { name: /sweep the temperature/i });
     fireEvent.change(slider, { target: { value: '2.5' } });
     expect(readout()).toContain('2.5000 K');
     expect(screen.getByRole('textbox', { name: /temperature/i })).toHaveValue('2.5');
     expect(slider).toHaveAttribute('aria-valuetext', '2.5000 K (2500.0 mK)');
+    expect(screen.queryByRole('alert')).not.toBeInTheDocument();
   });
 
   it('jumps to the u₂ maximum found on the curve', async () => {

@@ -99,7 +99,7 @@ test.describe('source location', () => {
     await expect(page.getByTestId('locate-source-x')).not.toHaveText('');
     // A bad entry names the field and its range, and the last good value stays in effect.
     await arrival.fill('soon');
-    await expect(page.getByRole('alert').filter({ hasText: 'arrival at sensor U90' })).toContainText('valid range');
+    await expect(page.getByRole('alert').filter({ hasText: 'arrival at sensor U90' })).toContainText('valid from');
     await expect(page.getByText('No source located')).toHaveCount(0);
   });
 

@@ -2,11 +2,12 @@ import type { StateCreator } from 'zustand';
 import type { DelayBatch } from '../../io/delay-batch';
 import type { Unit } from '../../io/quantity';
 import type { PickerKind } from '../../physics';
-import type { SekundoState } from '../store/state';
+import type { FieldsSlice } from '../fields/fields-slice';
+import type { PreferencesSlice } from '../preferences/preferences-slice';
 import { type ChoiceKind, crossFieldProblem, type FieldValues } from './converter-checks';
 import { fieldValueText, shownFieldUnit } from '../fields/field-spec';
 import { type ConverterFieldKey, converterFieldKey, FIELD_SPECS, initialConverterValues } from './converter-fields';
-import { readDistanceRows } from './table-input';
+import { type DistancePoints, readDistanceRows } from './table-input';
 import type { TraceInfo } from './trace/trace-protocol';
 
 /*
@@ -29,11 +30,7 @@ export interface DistanceRow {
   sd: string;
 }
 
-/** Last good points of the distance table (SI), with their 1-based table rows. */
-export interface DistancePoints {
-  points: { distance_m: number; delay_s: number; delaySd_s?: number }[];
-  rows: number[];
-}
+export type { DistancePoints } from './table-input';
 
 export interface BatchInput {
   fileName: string;
@@ -63,7 +60,8 @@ export interface TraceProgress {
   rows: number;
 }
 
-export type Polarity = 'auto' | 'positive' | 'negative';
+export type { Polarity } from './trace/trace-protocol';
+import type { Polarity } from './trace/trace-protocol';
 
 export interface ConverterSlice {
   converterMode: ConverterMode;
@@ -152,7 +150,10 @@ const EXAMPLE_DISTANCE_ROWS = [
 const EXAMPLE_DISTANCE_READ = readDistanceRows(EXAMPLE_DISTANCE_ROWS, { distance: 'mm', delay: 'ms', sd: 'µs' });
 const EXAMPLE_DISTANCE_POINTS: DistancePoints | null = EXAMPLE_DISTANCE_READ.ok ? EXAMPLE_DISTANCE_READ.value : null;
 
-export const createConverterSlice: StateCreator<SekundoState, [], [], ConverterSlice> = (set, get) => {
+/** What the converter's slice reads besides its own state: the fields' drafts and units, the header's units. */
+type ConverterStore = ConverterSlice & FieldsSlice & Pick<PreferencesSlice, 'displayUnits'>;
+
+export const createConverterSlice: StateCreator<ConverterStore, [], [], ConverterSlice> = (set, get) => {
   /** Checks a new value of `key` with the others; sets it, or gives the message. */
   const setValue = (key: ConverterFieldKey, value: number | null): string | null => {
     const { converterValues, converterMode, converterMethod, converterBatch, converterChoice } = get();

@@ -6,7 +6,12 @@
 import { type Dimension, fromBaseUnit, parseQuantity, QuantityParseError, type Unit } from '../../io/quantity';
 import { DELAY_LIMITS } from '../../physics';
 import { plain } from '../units/format-number';
-import type { DistancePoints } from './converter-slice';
+
+/** Last good points of the distance table (SI), with their 1-based table rows. */
+export interface DistancePoints {
+  points: { distance_m: number; delay_s: number; delaySd_s?: number }[];
+  rows: number[];
+}
 
 export type TableRead<T> = { ok: true; value: T } | { ok: false; message: string };
 

@@ -1,5 +1,5 @@
 import { useSekundoStore } from '../store';
-import type { ViewId } from '../store/view-slice';
+import type { ViewId } from '../layout/view-slice';
 import { VIEW_GUIDES } from './guide-texts';
 
 /**

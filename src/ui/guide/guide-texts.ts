@@ -1,4 +1,4 @@
-import type { ViewId } from '../store/view-slice';
+import type { ViewId } from '../layout/view-slice';
 
 /** What a first-time visitor needs to start in one view: a few steps and where its cautions are. */
 export interface ViewGuideText {

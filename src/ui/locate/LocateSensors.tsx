@@ -3,7 +3,7 @@ import { useShallow } from 'zustand/react/shallow';
 import { usePagedRows } from '../layout/TablePager';
 import { HelpColumnHead, useFieldHelp } from '../help/FieldHelp';
 import { useSekundoStore } from '../store';
-import { LOCATE_ROWS_KEY } from '../store/locate-slice';
+import { LOCATE_ROWS_KEY } from './locate-slice';
 import { useDisplayUnit } from '../units/use-display-unit';
 import { fieldMessageId, QuantityField, TextField } from '../fields/QuantityField';
 import { arrivalEdit, arrivalSpec, LOCATE_FIELD_PREFIX, labelEdit, locateFieldKey, positionEdit, positionSpec, sensorSdEdit, sensorSdSpec } from './locate-fields';

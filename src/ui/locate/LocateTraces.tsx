@@ -12,7 +12,7 @@ import { fileSize, ReadProgress } from '../layout/ReadProgress';
 import { useElementWidth } from '../layout/use-element-width';
 import { PlotlyChart } from '../plot/PlotlyChart';
 import { useSekundoStore } from '../store';
-import type { LocateTraceFile } from '../store/locate-slice';
+import type { LocateTraceFile } from './locate-slice';
 import { useDisplayUnit } from '../units/use-display-unit';
 import { QuantityField } from '../fields/QuantityField';
 import { locateFieldKey } from './locate-fields';

@@ -6,7 +6,7 @@
 import { LOCATE_ARRIVAL_RANGE_S, LOCATE_ARRIVAL_SD_RANGE_S } from '../../io/locate-csv';
 import type { PickerKind } from '../../physics';
 import { PICKER_FIELD_SPECS } from '../fields/picker-specs';
-import type { Polarity } from '../converter/converter-slice';
+import type { Polarity } from '../converter/trace/trace-protocol';
 // Types only: the store imports this file, and must not start the trace worker's module.
 import { plain } from '../units/format-number';
 import type { PickState } from '../converter/trace/trace-picks';

@@ -3,7 +3,7 @@ import { CUSTOM_PULSE_MAX_POINTS } from '../../physics';
 import { describedBy, HelpColumnHead, HelpLabel, useFieldHelp } from '../help/FieldHelp';
 import { usePagedRows } from '../layout/TablePager';
 import { useSekundoStore } from '../store';
-import { PLANNER_FIELD_PREFIX } from '../store/planner-slice';
+import { PLANNER_FIELD_PREFIX } from './planner-slice';
 import { QuantityField } from '../fields/QuantityField';
 import { PlanControlMessage } from './PlanControlMessage';
 import { usePlanField } from './use-plan-field';

@@ -1,7 +1,7 @@
 import type { PlanFileSensor } from '../../io/plan-file';
 import { type FieldHelpParts, HelpColumnHead, useFieldHelp } from '../help/FieldHelp';
 import { useSekundoStore } from '../store';
-import { PLANNER_STRUCTURE_KEY } from '../store/planner-slice';
+import { PLANNER_STRUCTURE_KEY } from './planner-slice';
 import { EditorCard } from './EditorCard';
 import { QuantityField, TextField } from '../fields/QuantityField';
 import { PlanControlMessage, RowMessages } from './PlanControlMessage';

@@ -3,7 +3,7 @@ import { ChartFigure } from '../charts/ChartFigure';
 import { PlotlyChart } from '../plot/PlotlyChart';
 import { themedColour } from '../plot/plot-theme';
 import { useSekundoStore } from '../store';
-import type { TimelineView } from '../store/planner-slice';
+import type { TimelineView } from './planner-slice';
 import { useResolvedTheme } from '../theme/use-theme';
 import { PLANNER_COLOURS } from './planner-colours';
 import { reportDrawn } from './recompute-timer';

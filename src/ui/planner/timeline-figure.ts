@@ -6,7 +6,7 @@
 import type { PlanResult, SampledSignal, SensorPlanResult } from '../../physics';
 import { axis, baseLayout, CHART_COLOURS } from '../charts/chart-theme';
 import type { PlotAnnotation, PlotLayout, PlotShape, PlotTrace } from '../plot/plotly-types';
-import type { TimelineView } from '../store/planner-slice';
+import type { TimelineView } from './planner-slice';
 import { decimateSegments } from './decimate';
 import { type DisplayUnit, inUnit, LADDERS, unitForColumn } from '../units/ladders';
 import { PLANNER_COLOURS, sensorColour } from './planner-colours';

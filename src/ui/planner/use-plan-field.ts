@@ -3,7 +3,7 @@ import type { PlanFile } from '../../io/plan-file';
 import { fieldRangeText as specRangeText } from '../fields/field-spec';
 import type { QuantityFieldProps, TextFieldProps } from '../fields/QuantityField';
 import { useSekundoStore } from '../store';
-import { PLANNER_FIELD_PREFIX } from '../store/planner-slice';
+import { PLANNER_FIELD_PREFIX } from './planner-slice';
 import { type NumberField, type PlanEdit, rangeOf, specWithRange } from './plan-fields';
 import { PLAN_OTHER_HELP, planHelpKey, planNumberHelp } from './planner-help';
 

@@ -6,7 +6,7 @@
  */
 import { browserStore, type KeyValueStore, loadPreferences, savePreferences } from '../../io/workspace-storage';
 import { useSekundoStore } from '../store';
-import { preferencesOf } from '../store/preferences-slice';
+import { preferencesOf } from './preferences-slice';
 import { resolveTheme, setDocumentTheme } from '../theme/use-theme';
 
 /** What the page says, once, when preferences cannot be kept. */

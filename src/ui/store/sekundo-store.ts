@@ -1,15 +1,15 @@
 import { create } from 'zustand';
 import { createConverterSlice } from '../converter/converter-slice';
 import { createFieldsSlice } from '../fields/fields-slice';
+import { createLocateSlice } from '../locate/locate-slice';
+import { createPlannerSlice } from '../planner/planner-slice';
 import { createRehearseSlice } from '../planner/rehearse/rehearse-slice';
-import { createLocateSlice } from './locate-slice';
-import { createPlannerSlice } from './planner-slice';
-import { createPreferencesSlice } from './preferences-slice';
+import { createPreferencesSlice } from '../preferences/preferences-slice';
 import { createResonatorSlice } from '../resonator/resonator-slice';
-import type { SekundoState } from './state';
-import { createTemperatureSlice } from './temperature-slice';
-import { createViewSlice } from './view-slice';
 import { createWatchSlice } from '../converter/watch/watch-slice';
+import type { SekundoState } from './state';
+import { createTemperatureSlice } from '../temperature/temperature-slice';
+import { createViewSlice } from '../layout/view-slice';
 
 /** Sekundo's one store, built from typed slices. */
 export const useSekundoStore = create<SekundoState>()((...args) => ({

@@ -2,6 +2,7 @@ import { PROPERTIES_RANGE_K } from '../../physics';
 import type { FieldSpec } from '../fields/field-spec';
 import { QuantityField } from '../fields/QuantityField';
 import { useSekundoStore } from '../store';
+import { TEMPERATURE_FIELD_KEY } from './temperature-slice';
 import { KINDS } from '../units/ladders';
 import { TEMPERATURE_RANGE_TEXT } from '../units/temperature-text';
 import { TEMPERATURE_HELP } from './temperature-help';
@@ -16,7 +17,7 @@ export function TemperatureField() {
   return (
     <div className="temperature-form">
       <QuantityField
-        fieldKey="explorer.temperature"
+        fieldKey={TEMPERATURE_FIELD_KEY}
         spec={TEMPERATURE_FIELD}
         value={temperature_K}
         apply={(v) => (v === null ? 'Temperature is empty.' : setTemperature(v))}

@@ -35,7 +35,7 @@ function notableTemperatures(): Preset[] {
 
 /** One-click jumps to notable temperatures. */
 export function TemperaturePresets() {
-  const setTemperature = useSekundoStore((state) => state.setTemperature);
+  const setTemperature = useSekundoStore((state) => state.chooseTemperature);
   const { unit } = useDisplayUnit('temperature');
   const help = useFieldHelp('jump to', TEMPERATURE_HELP.presets);
   return (

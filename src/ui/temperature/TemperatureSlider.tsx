@@ -16,7 +16,7 @@ const TRACK_STYLE = { '--lambda-position': `${LAMBDA_PERCENT}%` } as CSSProperti
 /** Sweeps the temperature over the whole range; the track shows where He II ends. */
 export function TemperatureSlider({ help }: { help: HelpTopic }) {
   const temperature_K = useSekundoStore((state) => state.temperature_K);
-  const setTemperature = useSekundoStore((state) => state.setTemperature);
+  const setTemperature = useSekundoStore((state) => state.chooseTemperature);
   const { unit } = useDisplayUnit('temperature');
   const fieldHelp = useFieldHelp('sweep the temperature', help);
   return (

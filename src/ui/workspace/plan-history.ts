@@ -6,7 +6,7 @@
  */
 import { useSekundoStore } from '../store';
 import type { SekundoState } from '../store';
-import { PLANNER_FIELD_PREFIX } from '../store/planner-slice';
+import { PLANNER_FIELD_PREFIX } from '../planner/planner-slice';
 import { type PlanSnapshot, useWorkspaceStore } from './workspace-store';
 
 /** Steps kept each way. */

@@ -6,7 +6,7 @@
 import { useEffect, useMemo, useState, useSyncExternalStore } from 'react';
 import type { TracePick, TracePickOptions } from '../../../io/trace-pick';
 import type { PickerKind } from '../../../physics';
-import type { Polarity } from '../converter-slice';
+import type { Polarity } from './trace-protocol';
 import { traceEngine } from './trace-engine';
 import type { TraceSamples } from './trace-protocol';
 

@@ -13,6 +13,9 @@ export const TRACE_FILE_COUNT_LIMIT = 500;
 export const TRACE_TOTAL_LIMIT_BYTES = 768 * 1024 * 1024;
 
 /** What the page learns about a parsed file (the numbers stay in the worker until asked for). */
+/** Which way the pulse goes on the sensor channel; automatic follows the larger excursion. */
+export type Polarity = 'auto' | 'positive' | 'negative';
+
 export interface TraceInfo {
   rows: number;
   /** Channel names, file order, time excluded. */

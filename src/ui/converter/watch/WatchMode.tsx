@@ -1,4 +1,4 @@
-import { useEffect, useId, useState } from 'react';
+import { useEffect, useId } from 'react';
 import { PanelErrorBoundary } from '../../layout/PanelErrorBoundary';
 import { useSekundoStore } from '../../store';
 import { ChoiceCard } from '../ChoiceCard';
@@ -11,7 +11,7 @@ import { useWatchLive } from './watch-live';
 import { pauseWatch, readGivenFiles, resumeWatch, startOver, startWatch, stopWatch } from './watch-runner';
 import { canFollowFolders, folderSource, pickFolder } from './watch-sources';
 import { compileWatchPattern } from '../../../io/watch-pattern';
-import { QuantityField } from '../../fields';
+import { QuantityField, TextField } from '../../fields';
 import { WATCH_FIELDS } from './watch-fields';
 import { WatchResults } from './WatchResults';
 
@@ -49,7 +49,6 @@ const STATUS_WORDS = { idle: 'Not following', running: 'Following', paused: 'Pau
 
 function FolderCard() {
   const headingId = useId();
-  const patternId = useId();
   const status = useSekundoStore((s) => s.watchStatus);
   const source = useSekundoStore((s) => s.watchSource);
   const notice = useSekundoStore((s) => s.watchNotice);
@@ -58,17 +57,15 @@ function FolderCard() {
   const interval_s = useSekundoStore((s) => s.watchInterval_s);
   const setInterval_s = useSekundoStore((s) => s.setWatchInterval);
   const setNotice = useSekundoStore((s) => s.setWatchNotice);
-  const [patternText, setPatternText] = useState(pattern);
-  const [patternError, setPatternError] = useState<string | null>(null);
   const supported = canFollowFolders();
   const live = useWatchLive();
-  const applyPattern = () => {
+  const applyPattern = (text: string): string | null => {
     try {
-      compileWatchPattern(patternText);
-      setPattern(patternText.trim());
-      setPatternError(null);
+      compileWatchPattern(text);
+      setPattern(text.trim());
+      return null;
     } catch (error) {
-      setPatternError(`File pattern: ${error instanceof Error ? error.message : String(error)}. The pattern ${pattern} stays in effect.`);
+      return `File pattern: ${error instanceof Error ? error.message : String(error)}. The pattern ${pattern} stays in effect.`;
     }
   };
   const choose = async () => {
@@ -116,38 +113,19 @@ function FolderCard() {
         </>
       )}
       <div className="watch-settings">
-        <div className="converter-field">
-          <label className="field-label" htmlFor={patternId}>
-            File pattern
-          </label>
-          <input
-            id={patternId}
-            className="text-input"
-            type="text"
-            value={patternText}
-            spellCheck={false}
-            autoComplete="off"
-            aria-invalid={patternError ? true : undefined}
-            aria-describedby={`${patternId}-hint`}
-            onChange={(e) => setPatternText(e.target.value)}
-            onBlur={applyPattern}
-            onKeyDown={(e) => {
-              if (e.key === 'Enter') {
-                e.preventDefault();
-                applyPattern();
-              }
-            }}
-          />
-          <p id={`${patternId}-hint`} className="field-hint">
-            Names of the files to read: * any text, ? one character, [0-9] one of a set, {'{csv,txt}'} one of a few; any case. Applies from the next
-            folder chosen.
-          </p>
-          {patternError ? (
-            <p className="field-error" role="alert">
-              {patternError}
-            </p>
-          ) : null}
-        </div>
+        <TextField
+          fieldKey="converter.watchPattern"
+          label="File pattern"
+          value={pattern}
+          apply={applyPattern}
+          range="a file-name pattern: * any text, ? one character, [0-9] a set, {csv,txt} alternatives"
+          hint={
+            <>
+              Names of the files to read: * any text, ? one character, [0-9] one of a set, {'{csv,txt}'} one of a few; any case. Applies from the next
+              folder chosen.
+            </>
+          }
+        />
         <QuantityField
           fieldKey="converter.watch.interval"
           spec={WATCH_FIELDS.interval}

@@ -1,8 +1,7 @@
 import type { StateCreator } from 'zustand';
 import type { Preferences } from '../../io/workspace-storage';
 import { asDisplayUnit, DEFAULT_DISPLAY_UNITS, type DisplayUnitOf, type DisplayUnits, UNIT_KIND_LIST, type UnitKind } from '../units/unit-choices';
-import type { SekundoState } from './state';
-import { VIEW_IDS, type ViewId } from './view-slice';
+import { VIEW_IDS, type ViewId } from '../layout/view-slice';
 
 /** The colour theme a person chose; "system" follows the operating system's light or dark setting. */
 export type ThemeChoice = 'light' | 'dark' | 'system';
@@ -61,7 +60,7 @@ function dismissedGuides(prefs: Preferences): ViewId[] {
   return VIEW_IDS.filter((v) => named.has(v));
 }
 
-export const createPreferencesSlice: StateCreator<SekundoState, [], [], PreferencesSlice> = (set, get) => ({
+export const createPreferencesSlice: StateCreator<PreferencesSlice, [], [], PreferencesSlice> = (set, get) => ({
   themeChoice: 'system',
   setThemeChoice: (choice) => set({ themeChoice: choice }),
   displayUnits: DEFAULT_DISPLAY_UNITS,

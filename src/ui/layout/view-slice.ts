@@ -1,5 +1,4 @@
 import type { StateCreator } from 'zustand';
-import type { SekundoState } from './state';
 
 /** The page's views (tabs), in tab order. */
 export const VIEW_IDS = ['explorer', 'planner', 'converter', 'locate', 'resonator'] as const;
@@ -15,7 +14,7 @@ export interface ViewSlice {
   setSourceDetailsShown: (shown: boolean) => void;
 }
 
-export const createViewSlice: StateCreator<SekundoState, [], [], ViewSlice> = (set) => ({
+export const createViewSlice: StateCreator<ViewSlice, [], [], ViewSlice> = (set) => ({
   activeView: 'explorer',
   setActiveView: (view) => set({ activeView: view }),
   sourceDetailsShown: false,

@@ -1,7 +1,7 @@
 import type { StateCreator } from 'zustand';
 import type { PlanFile } from '../../io/plan-file';
-import { BUILT_IN_PLAN } from '../planner/default-plan';
-import { planProblem } from '../planner/derive-plan';
+import { BUILT_IN_PLAN } from './default-plan';
+import { planProblem } from './derive-plan';
 import {
   addReflector,
   addSensor,
@@ -10,10 +10,10 @@ import {
   MAX_SENSORS,
   removeReflector,
   removeSensor,
-} from '../planner/plan-edits';
-import type { PlanEdit } from '../planner/plan-fields';
-import { markPlanEdit } from '../planner/recompute-timer';
-import type { SekundoState } from './state';
+} from './plan-edits';
+import type { PlanEdit } from './plan-fields';
+import { markPlanEdit } from './recompute-timer';
+import type { FieldsSlice } from '../fields/fields-slice';
 
 /** Where the plan on screen came from. */
 export interface PlannerSource {
@@ -95,7 +95,10 @@ function withoutPrefixes(record: Readonly<Record<string, string>>, prefixes: rea
 
 const STRUCTURE_ERROR_KEY = 'structure';
 
-export const createPlannerSlice: StateCreator<SekundoState, [], [], PlannerSlice> = (set, get) => {
+/** What the planner slice reads besides its own state: the fields' drafts. */
+type PlannerStore = PlannerSlice & FieldsSlice;
+
+export const createPlannerSlice: StateCreator<PlannerStore, [], [], PlannerSlice> = (set, get) => {
   /** Checks a changed plan; on success it becomes the plan (and the edit is timed). Returns the refusal, or null. */
   const commit = (plan: PlanFile, extra: Partial<PlannerSlice> = {}): string | null => {
     const problem = planProblem(plan);

@@ -8,13 +8,13 @@ import {
   type LocateInputs,
   type LocateOptionsInput,
   type LocateRowInput,
-} from '../locate/locate-inputs';
+} from './locate-inputs';
 import type { TraceInfo } from '../converter/trace/trace-protocol';
-import { type ArrivalUpdate, type ChannelChoice, DEFAULT_TRACE_PICKER, type TracePickerSettings, withArrivals } from '../locate/trace-arrivals';
+import { type ArrivalUpdate, type ChannelChoice, DEFAULT_TRACE_PICKER, type TracePickerSettings, withArrivals } from './trace-arrivals';
 import { readFieldText } from '../fields/field-spec';
-import { LOCATE_FIELD_PREFIX, locateFieldKey } from '../locate/locate-fields';
-import { editTraceSetting, TRACE_SETTING_KEYS, type TraceSettingKey, traceSettingKey, traceSettingSpec } from '../locate/trace-fields';
-import type { SekundoState } from './state';
+import { LOCATE_FIELD_PREFIX, locateFieldKey } from './locate-fields';
+import { editTraceSetting, TRACE_SETTING_KEYS, type TraceSettingKey, traceSettingKey, traceSettingSpec } from './trace-fields';
+import type { FieldsSlice } from '../fields/fields-slice';
 
 /** Store keys of the trace picker's typed settings. */
 const SETTING_FIELDS: ReadonlySet<string> = new Set(TRACE_SETTING_KEYS.map(traceSettingKey));
@@ -125,7 +125,10 @@ function freeLabel(rows: readonly LocateRowInput[]): string {
   for (let n = rows.length + 1; ; n++) if (!used.has(`S${n}`)) return `S${n}`;
 }
 
-export const createLocateSlice: StateCreator<SekundoState, [], [], LocateSlice> = (set, get) => {
+/** What the locate slice reads besides its own state: the fields' drafts. */
+type LocateStore = LocateSlice & FieldsSlice;
+
+export const createLocateSlice: StateCreator<LocateStore, [], [], LocateSlice> = (set, get) => {
   const inputs = (): LocateInputs => ({ rows: get().locateRows, options: get().locateOptions });
   const refuse = (key: string, message: string): void => set({ locateErrors: { ...get().locateErrors, [key]: message } });
 

@@ -121,10 +121,27 @@ function its90Pressure(T: number): number {
   return Math.exp(bisectIncreasing((l) => its90T(Math.exp(l), r), T, lo, hi));
 }
 
+/**
+ * The reference spline meets ITS-90 at 1.25 K 0.058 % high (87 µK in T), so p(T) fell at the join
+ * and a pressure just above p₉₀(1.25 K) had two temperatures. Over the last SPLINE_EASE_K below the
+ * join the spline is eased onto the scale in ln p (a linear weight, 0 at 1.20 K, 1 at 1.25 K): p(T)
+ * is continuous and increasing, T → p → T returns T, and nothing below 1.20 K changes. The shift
+ * (≤ 0.058 % in p) is inside the spline's own stated agreement with the scale (0.1 %).
+ */
+const SPLINE_EASE_K = 0.05;
+const JOIN_LN_RATIO = Math.log(its90Pressure(ITS90_RANGE_K[0]) / spline.value(ITS90_RANGE_K[0]));
+
+/** The reference spline below ITS-90 (Pa), eased onto the scale at the join (above). */
+function splinePressure(T: number): number {
+  const weight = (T - (ITS90_RANGE_K[0] - SPLINE_EASE_K)) / SPLINE_EASE_K;
+  const p = spline.value(T);
+  return weight <= 0 ? p : p * Math.exp(JOIN_LN_RATIO * Math.min(1, weight));
+}
+
 /** Pressure range covered by ITS-90 (Pa), computed once from the scale itself. */
 export const ITS90_PRESSURE_RANGE_PA = [its90Pressure(ITS90_RANGE_K[0]), its90Pressure(ITS90_RANGE_K[1])] as const;
 /** Pressure range covered by the reference spline below ITS-90 (Pa). */
-export const SPLINE_PRESSURE_RANGE_PA = [spline.value(VAPOUR_SPLINE_RANGE_K[0]), ITS90_PRESSURE_RANGE_PA[0]] as const;
+export const SPLINE_PRESSURE_RANGE_PA = [splinePressure(VAPOUR_SPLINE_RANGE_K[0]), ITS90_PRESSURE_RANGE_PA[0]] as const;
 /** Full pressure range accepted by {@link temperatureFromVapourPressure}, Pa. */
 export const VAPOUR_PRESSURE_RANGE_PA = [SPLINE_PRESSURE_RANGE_PA[0], ITS90_PRESSURE_RANGE_PA[1]] as const;
 /** Full temperature range accepted by {@link vapourPressure}, K. */
@@ -137,8 +154,8 @@ export interface VapourPressureResult {
 }
 
 function splineTemperature(p: number): number {
-  // The spline p(T) increases monotonically on 0.5–1.25 K: bisection on ln p against T.
-  return bisectIncreasing((T) => Math.log(spline.value(T)), Math.log(p), VAPOUR_SPLINE_RANGE_K[0], VAPOUR_SPLINE_RANGE_K[1]);
+  // The eased spline p(T) increases monotonically on 0.5–1.25 K: bisection on ln p against T.
+  return bisectIncreasing((T) => Math.log(splinePressure(T)), Math.log(p), VAPOUR_SPLINE_RANGE_K[0], VAPOUR_SPLINE_RANGE_K[1]);
 }
 
 /**
@@ -157,7 +174,7 @@ export function temperatureFromVapourPressure(p_Pa: number): VapourPressureResul
 
 /** Vapour pressure (Pa) at T with no range check (kernel-internal; 0.5–5.0 K). */
 export function vapourPressureUnchecked(T: number): number {
-  return T < ITS90_RANGE_K[0] ? spline.value(T) : its90Pressure(T);
+  return T < ITS90_RANGE_K[0] ? splinePressure(T) : its90Pressure(T);
 }
 
 /**

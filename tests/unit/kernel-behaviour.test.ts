@@ -236,6 +236,18 @@ describe('bad input raises a typed error naming the valid range', () => {
 });
 
 describe('vapour pressure round trip (property test)', () => {
+  it('round-trips just below the 1.25 K join, where the spline met the scale 0.058 % high (found by this property)', () => {
+    // Common practice, no source: p(T) must be continuous and increasing across the join of the
+    // reference spline and ITS-90 for the inverse to be single-valued.
+    for (const T of [1.2499121785826415, 1.24999, 1.2499999, 1.2]) {
+      const back = temperatureFromVapourPressure(vapourPressure(T).pressure_Pa);
+      expect(Math.abs(back.temperature_K - T)).toBeLessThan(1e-8);
+    }
+    const below = vapourPressure(1.25 - 1e-9).pressure_Pa;
+    const at = vapourPressure(1.25).pressure_Pa;
+    expect(below).toBeLessThan(at);
+    expect((at - below) / at).toBeLessThan(1e-7);
+  });
   it('T → p → T returns T to 1e-8 K over 0.5–5.0 K', () => {
     fc.assert(
       fc.property(fc.double({ min: VAPOUR_TEMPERATURE_RANGE_K[0], max: VAPOUR_TEMPERATURE_RANGE_K[1], noNaN: true }), (T) => {

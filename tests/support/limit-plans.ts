@@ -22,7 +22,7 @@ function customPulse(demo: Json, points: number): Json {
 function crowded(demo: Json, count: number, planes: number, echoOrder: number): Json {
   const base = (demo.sensors as Json[])[0] as Json;
   const sensors = Array.from({ length: count }, (_, i) => {
-    const s: Json = { ...base, id: `s${i + 1}`, label: `Sensor ${i + 1}`, position_m: [0.002 * ((i % 8) - 3.5), 0.002 * (Math.floor(i / 8) - 3.5), 0.01 + 0.0005 * i] };
+    const s: Json = { ...base, id: `s${i + 1}`, label: `Sensor ${i + 1}`, position_m: [0.002 * ((i % 8) - 3.5), 0.002 * (Math.floor(i / 8) - 3.5), 0.0101 + 0.0005 * i] };
     delete s.distance_m;
     return s;
   });

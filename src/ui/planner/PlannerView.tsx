@@ -1,4 +1,4 @@
-import { useEffect } from 'react';
+import { useEffect, useState } from 'react';
 import { PanelErrorBoundary } from '../layout/PanelErrorBoundary';
 import { useSekundoStore } from '../store';
 import { BathEditor } from './BathEditor';
@@ -12,7 +12,7 @@ import { ResultsTable } from './ResultsTable';
 import { SensorsEditor } from './SensorsEditor';
 import { SetupEditor } from './SetupEditor';
 import { TimelineChart } from './TimelineChart';
-import { usePlanOutcome } from './use-plan';
+import { usePlanOutcome, usePlanUpdating } from './use-plan';
 import { WarningsList } from './WarningsList';
 import { WorkspaceBar } from '../workspace/WorkspaceBar';
 
@@ -36,6 +36,7 @@ export function PlannerView() {
         <WorkspaceBar />
       </PanelErrorBoundary>
       <PlanProblem />
+      <PlanUpdating />
       <div className="planner-top">
         <div className="planner-inputs">
           <BathEditor />
@@ -83,7 +84,7 @@ function useDemoPlanOnFirstOpen(): void {
 /** When the kernel refuses the plan as a whole (e.g. one opened from a file), say why; the plan is kept as it is. */
 function PlanProblem() {
   const outcome = usePlanOutcome();
-  if (outcome.ok) return null;
+  if (outcome.ok || outcome.pending) return null;
   return (
     <div className="panel-failure plan-problem" role="alert">
       <p>
@@ -91,5 +92,42 @@ function PlanProblem() {
       </p>
       <p>The plan is kept as it is; change the field named above.</p>
     </div>
+  );
+}
+
+/** How long results may lag an edit before the page says they are being updated, ms (no flicker while typing on a small plan). */
+const UPDATING_NOTICE_MS = 250;
+
+/**
+ * While the plan worker computes a newer plan, the results on screen are the last ones: say so,
+ * and dim them (the `planner-updating` class on the page's root), once it takes longer than a moment.
+ */
+function PlanUpdating() {
+  const updating = usePlanUpdating();
+  const pending = usePlanOutcome();
+  const [shown, setShown] = useState(false);
+  useEffect(() => {
+    if (!updating) {
+      setShown(false);
+      return;
+    }
+    const timer = setTimeout(() => setShown(true), UPDATING_NOTICE_MS);
+    return () => clearTimeout(timer);
+  }, [updating]);
+  useEffect(() => {
+    const root = document.querySelector('.planner');
+    root?.classList.toggle('planner-updating', shown);
+    return () => root?.classList.remove('planner-updating');
+  }, [shown]);
+  const first = !pending.ok && pending.pending === true;
+  return (
+    <p className="plan-updating" role="status" data-updating={updating ? 'true' : 'false'}>
+      {shown ? (
+        <>
+          <span className="plan-updating__mark" aria-hidden="true" />
+          {first ? 'Working out the results for this plan…' : 'Updating the results for your latest edit… the figures below are for the plan before it.'}
+        </>
+      ) : null}
+    </p>
   );
 }

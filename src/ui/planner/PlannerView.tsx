@@ -1,4 +1,5 @@
-import { useEffect, useState } from 'react';
+import { useEffect } from 'react';
+import { UpdatingNote } from '../layout/UpdatingNote';
 import { PanelErrorBoundary } from '../layout/PanelErrorBoundary';
 import { useSekundoStore } from '../store';
 import { BathEditor } from './BathEditor';
@@ -95,39 +96,15 @@ function PlanProblem() {
   );
 }
 
-/** How long results may lag an edit before the page says they are being updated, ms (no flicker while typing on a small plan). */
-const UPDATING_NOTICE_MS = 250;
-
-/**
- * While the plan worker computes a newer plan, the results on screen are the last ones: say so,
- * and dim them (the `planner-updating` class on the page's root), once it takes longer than a moment.
- */
+/** While the plan worker computes a newer plan, the results on screen are the last ones: say so. */
 function PlanUpdating() {
   const updating = usePlanUpdating();
-  const pending = usePlanOutcome();
-  const [shown, setShown] = useState(false);
-  useEffect(() => {
-    if (!updating) {
-      setShown(false);
-      return;
-    }
-    const timer = setTimeout(() => setShown(true), UPDATING_NOTICE_MS);
-    return () => clearTimeout(timer);
-  }, [updating]);
-  useEffect(() => {
-    const root = document.querySelector('.planner');
-    root?.classList.toggle('planner-updating', shown);
-    return () => root?.classList.remove('planner-updating');
-  }, [shown]);
-  const first = !pending.ok && pending.pending === true;
+  const outcome = usePlanOutcome();
+  const first = !outcome.ok && outcome.pending === true;
   return (
-    <p className="plan-updating" role="status" data-updating={updating ? 'true' : 'false'}>
-      {shown ? (
-        <>
-          <span className="plan-updating__mark" aria-hidden="true" />
-          {first ? 'Working out the results for this plan…' : 'Updating the results for your latest edit… the figures below are for the plan before it.'}
-        </>
-      ) : null}
-    </p>
+    <UpdatingNote
+      updating={updating}
+      text={first ? 'Working out the results for this plan…' : 'Updating the results for your latest edit… the figures below are for the plan before it.'}
+    />
   );
 }

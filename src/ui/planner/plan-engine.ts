@@ -10,8 +10,9 @@
 import { useEffect, useMemo, useSyncExternalStore } from 'react';
 import type { PlanFile } from '../../io/plan-file';
 import { SensorResultCache } from '../../physics';
+import { HeldUntilTypingPauses, watchTyping } from '../layout/typing-pause';
 import { derivePlan, type PlanOutcome } from './derive-plan';
-import { type PlanReply, type PlanRequest, sameTimeline, type TimelineRequest } from './plan-worker-protocol';
+import { type PlanReply, type PlanRequest, packPlan, sameTimeline, type TimelineRequest } from './plan-worker-protocol';
 import { type TimelineFigure, timelineFigure } from './timeline-figure';
 
 /** What the planner shows: the newest answer, and whether a newer plan is being computed. */
@@ -43,10 +44,16 @@ function publish(next: ShownPlan): void {
   for (const listener of listeners) listener();
 }
 
+/** Answers wait for a pause in typing before they are drawn (see typing-pause.ts). */
+const held = new HeldUntilTypingPauses<PlanReply>((reply) => {
+  if (reply.id !== wanted.id) return;
+  publish({ plan: wanted.plan, outcome: reply.outcome, figure: reply.figure, timeline: wanted.timeline, updating: false });
+});
+
 function receive(reply: PlanReply): void {
   // An answer to a plan already replaced is dropped: the newer one is on its way.
   if (reply.id !== wanted.id) return;
-  publish({ plan: wanted.plan, outcome: reply.outcome, figure: reply.figure, timeline: wanted.timeline, updating: false });
+  held.offer(reply);
 }
 
 function fail(message: string): void {
@@ -62,6 +69,8 @@ function planPort(): PlanPort | null {
   }
   try {
     const worker = new Worker(new URL('./plan-worker.ts', import.meta.url), { type: 'module', name: 'sekundo-plans' });
+    // Keys typed anywhere on the page hold new results back until typing pauses.
+    watchTyping();
     worker.addEventListener('message', (event: MessageEvent<PlanReply>) => receive(event.data));
     worker.addEventListener('error', (event) => fail(event.message || 'the plan worker stopped'));
     worker.addEventListener('messageerror', () => fail('an answer from the plan worker could not be read'));
@@ -78,7 +87,7 @@ function send(): void {
   if (target === null || plan === null) return;
   nextId += 1;
   wanted = { ...wanted, id: nextId };
-  target.post({ id: nextId, plan, timeline: wanted.timeline });
+  target.post({ id: nextId, ...packPlan(plan), timeline: wanted.timeline });
   if (!shown.updating) publish({ ...shown, updating: true });
 }
 

@@ -10,7 +10,7 @@
 import { SensorResultCache } from '../../physics';
 import { derivePlanSteps, type PlanOutcome } from './derive-plan';
 import type { PlanReply, PlanRequest } from './plan-worker-protocol';
-import { withoutWaveforms } from './plan-worker-protocol';
+import { samePoints, unpackPlan, withoutWaveforms } from './plan-worker-protocol';
 import { timelineFigure } from './timeline-figure';
 
 interface WorkerScope {
@@ -26,7 +26,7 @@ const cache = new SensorResultCache();
 let waiting: PlanRequest | null = null;
 let running = false;
 /** The last plan computed in full (as text) and its outcome, for requests that change only the figure. */
-let last: { text: string; outcome: PlanOutcome } | null = null;
+let last: { text: string; points: Float64Array | null; outcome: PlanOutcome } | null = null;
 
 const pause = () => new Promise<void>((resolve) => setTimeout(resolve, 0));
 
@@ -36,9 +36,9 @@ async function serve(request: PlanRequest): Promise<void> {
   let outcome: PlanOutcome;
   cache.hits = 0;
   cache.misses = 0;
-  if (last?.text === text) outcome = last.outcome;
+  if (last?.text === text && samePoints(last.points, request.points)) outcome = last.outcome;
   else {
-    const steps = derivePlanSteps(request.plan, cache);
+    const steps = derivePlanSteps(unpackPlan(request.plan, request.points), cache);
     let sliceStart = performance.now();
     for (;;) {
       const step = steps.next();
@@ -52,7 +52,7 @@ async function serve(request: PlanRequest): Promise<void> {
         sliceStart = performance.now();
       }
     }
-    last = { text, outcome };
+    last = { text, points: request.points, outcome };
   }
   const t = request.timeline;
   const figure = t !== null && outcome.ok ? timelineFigure(outcome.result, t.view, t.columns, t.timeUnit) : null;

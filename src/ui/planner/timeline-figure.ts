@@ -13,6 +13,14 @@ import { PLANNER_COLOURS, sensorColour } from './planner-colours';
 
 /** The time axis before a unit is chosen. */
 const MILLISECONDS: DisplayUnit = { shown: 'ms', unit: 'ms' };
+/**
+ * Points of all sensors' waveforms together (about two per column each): up to 12 sensors get a
+ * column per pixel of a wide chart; more share it. Common practice, no source: chosen so the
+ * largest plan's timeline draws in tens of milliseconds (tests/bench/keystroke-limits.browser.ts).
+ */
+const SENSOR_POINT_BUDGET = 24_000;
+/** Fewest columns a sensor's waveform is cut to. */
+const MIN_SENSOR_COLUMNS = 120;
 /** Fraction of the plot height given to the sensors (bottom) and the heater (top). */
 const SENSOR_DOMAIN: [number, number] = [0, 0.76];
 const HEATER_DOMAIN: [number, number] = [0.84, 1];
@@ -121,6 +129,9 @@ function peakOf(sensor: SensorPlanResult): { min: number; max: number } {
  */
 export function timelineFigure(result: PlanResult, view: TimelineView, columns: number, timeUnit: DisplayUnit = MILLISECONDS): TimelineFigure {
   const [from, to] = timelineRange(result, view);
+  // Many sensors share the columns: the chart draws on the page's main thread, and its time grows
+  // with the points, so a crowded plan's waveforms are cut coarser (never below MIN_SENSOR_COLUMNS).
+  const sensorColumns = Math.max(MIN_SENSOR_COLUMNS, Math.min(columns, Math.floor(SENSOR_POINT_BUDGET / (2 * Math.max(1, result.sensors.length)))));
   const inTime = (t_s: number) => inUnit(t_s, timeUnit);
   const tu = timeUnit.shown;
   const peaks = result.sensors.map(peakOf);
@@ -158,7 +169,7 @@ export function timelineFigure(result: PlanResult, view: TimelineView, columns: 
   const lines: Record<ArrivalKind, number[]> = { 'first sound': [], 'second sound': [], echo: [] };
   result.sensors.forEach((sensor, i) => {
     const colour = sensorColour(i);
-    const line = decimateSegments(sensor.waveform, from, to, columns);
+    const line = decimateSegments(sensor.waveform, from, to, sensorColumns);
     const name = `${sensor.label} (${sensor.id})`;
     data.push({
       type: 'scatter',

@@ -128,12 +128,18 @@ export const createPlannerSlice: StateCreator<SekundoState, [], [], PlannerSlice
     },
 
     typePlannerField: (key, text, edit) => {
+      // One store update per keystroke: every field's selectors run on each update, and a plan of
+      // 64 sensors has hundreds of fields.
       const state = get();
-      set({ plannerDrafts: { ...state.plannerDrafts, [key]: text } });
+      const plannerDrafts = { ...state.plannerDrafts, [key]: text };
       const result = edit(state.plannerPlan, text);
-      const problem = result.ok ? commit(result.plan) : result.message;
-      if (problem === null) set({ plannerErrors: without(get().plannerErrors, key) });
-      else refuse(key, problem);
+      const problem = result.ok ? planProblem(result.plan) : result.message;
+      if (problem !== null || !result.ok) {
+        set({ plannerDrafts, plannerErrors: { ...state.plannerErrors, [key]: problem ?? '' } });
+        return;
+      }
+      markPlanEdit();
+      set({ plannerDrafts, plannerPlan: result.plan, plannerErrors: without(state.plannerErrors, key) });
     },
 
     leavePlannerField: (key) => {

@@ -18,7 +18,12 @@ function customPulse(demo: Json, points: number): Json {
   return heater;
 }
 
-/** `count` sensors on a frame 10–40 mm in front of the heater, and `planes` plates 5–20 mm beside and behind. */
+/**
+ * `count` sensors on a frame 10–42 mm in front of the heater, and `planes` plates 5–20 mm beside and
+ * behind. The sensors start at 10.1 mm, not 10 mm: with plates stacked behind each other the image
+ * method puts a heater image at exactly z = 24 mm, and a sensor in an image's plane makes the
+ * kernel refuse the plan ("must lie off the heater plane") — a kernel limit noted for its own fix.
+ */
 function crowded(demo: Json, count: number, planes: number, echoOrder: number): Json {
   const base = (demo.sensors as Json[])[0] as Json;
   const sensors = Array.from({ length: count }, (_, i) => {

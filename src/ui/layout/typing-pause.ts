@@ -18,12 +18,14 @@ function noteTyping(): void {
   lastTyped = performance.now();
 }
 
-/** Starts noting keys and input anywhere on the page (once; nothing where there is no document). */
+/**
+ * Starts noting keys pressed anywhere on the page (once; nothing where there is no document). Only
+ * keys: a choice made with the mouse (a select, a checkbox) is drawn at once.
+ */
 export function watchTyping(): void {
   if (watching || typeof document === 'undefined') return;
   watching = true;
   document.addEventListener('keydown', noteTyping, { capture: true, passive: true });
-  document.addEventListener('input', noteTyping, { capture: true, passive: true });
 }
 
 /** Holds the newest of a stream of results until typing pauses, then hands it on. */

@@ -51,6 +51,9 @@ export function TimelineChart() {
           <span className="caption-values">{summary}</span> Top: heater flux. Below: predicted δT at each sensor (linear
           theory). Vertical lines mark the arrivals; each marker on top has its sensor’s colour. Shaded: the record
           window.
+          {figure.echoes.shown < figure.echoes.inView
+            ? ` Echoes marked: each sensor’s earliest, ${figure.echoes.shown.toLocaleString('en-GB')} of the ${figure.echoes.inView.toLocaleString('en-GB')} in this span.`
+            : null}
         </>
       }
     >

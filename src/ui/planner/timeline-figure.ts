@@ -19,6 +19,13 @@ const MILLISECONDS: DisplayUnit = { shown: 'ms', unit: 'ms' };
  * largest plan's timeline draws in tens of milliseconds (tests/bench/keystroke-limits.browser.ts).
  */
 const SENSOR_POINT_BUDGET = 24_000;
+/**
+ * Echo arrivals marked on the timeline, all sensors together: each marker is an SVG element the
+ * page draws on its main thread, and the largest plan has over 14 000 echoes in view. Each sensor
+ * gets its earliest echoes, at least MIN_ECHOES_PER_SENSOR; the caption says how many are marked.
+ */
+const ECHO_MARK_BUDGET = 1200;
+const MIN_ECHOES_PER_SENSOR = 8;
 /** Fewest columns a sensor's waveform is cut to. */
 const MIN_SENSOR_COLUMNS = 120;
 /** Fraction of the plot height given to the sensors (bottom) and the heater (top). */
@@ -42,6 +49,8 @@ export interface TimelineFigure {
   range_s: [number, number];
   /** Unit of the δT axis. */
   amplitudeUnit: DisplayUnit;
+  /** Echo arrivals in the span shown, and how many of them are marked (each sensor's earliest, within the budget). */
+  echoes: { inView: number; shown: number };
 }
 
 /** End of the segment of `waveform` that holds time t (or t itself). */
@@ -167,6 +176,8 @@ export function timelineFigure(result: PlanResult, view: TimelineView, columns: 
   const shapes: PlotShape[] = [recordWindow(result, inTime)];
   const marks: { t: number; colour: string; symbol: string; text: string }[] = [];
   const lines: Record<ArrivalKind, number[]> = { 'first sound': [], 'second sound': [], echo: [] };
+  let echoesInView = 0;
+  let echoesShown = 0;
   result.sensors.forEach((sensor, i) => {
     const colour = sensorColour(i);
     const line = decimateSegments(sensor.waveform, from, to, sensorColumns);
@@ -181,7 +192,14 @@ export function timelineFigure(result: PlanResult, view: TimelineView, columns: 
       line: { color: colour, width: 1.6 },
       hovertemplate: `${escapeHover(sensor.id)}: t = %{x:.4g} ${tu}, δT = %{y:.3g} ${amplitudeUnit.shown}<extra></extra>`,
     });
-    const arrivals = arrivalsOf(sensor).filter((a) => a.t_s >= from && a.t_s <= to);
+    const inView = arrivalsOf(sensor).filter((a) => a.t_s >= from && a.t_s <= to);
+    // Each sensor's earliest echoes, up to its share of the budget (the markers are SVG elements).
+    const echoes = inView.filter((a) => a.kind === 'echo').sort((x, y) => x.t_s - y.t_s);
+    const echoShare = Math.max(MIN_ECHOES_PER_SENSOR, Math.floor(ECHO_MARK_BUDGET / Math.max(1, result.sensors.length)));
+    echoesInView += echoes.length;
+    const keptEchoes = new Set(echoes.slice(0, echoShare));
+    echoesShown += keptEchoes.size;
+    const arrivals = inView.filter((a) => a.kind !== 'echo' || keptEchoes.has(a));
     for (const a of arrivals) {
       marks.push({ t: inTime(a.t_s), colour, symbol: MARKER_STYLE[a.kind].symbol, text: `${escapeHover(sensor.id)} · ${a.detail}: ${formatTime(a.t_s, timeUnit)}` });
       lines[a.kind].push(inTime(a.t_s));
@@ -237,7 +255,7 @@ export function timelineFigure(result: PlanResult, view: TimelineView, columns: 
     ...result.sensors.map((sensor, i): TimelineKeyEntry => ({ label: `${sensor.label} (${sensor.id})`, colour: sensorColour(i), kind: 'line' })),
     ...ARRIVAL_KINDS.map((kind): TimelineKeyEntry => ({ label: ARRIVAL_LEGEND[kind], colour: MARKER_STYLE[kind].colour, kind })),
   ];
-  return { data, key, layout, range_s: [from, to], amplitudeUnit };
+  return { data, key, layout, range_s: [from, to], amplitudeUnit, echoes: { inView: echoesInView, shown: echoesShown } };
 }
 
 function recordWindow(result: PlanResult, inTime: (t_s: number) => number): PlotShape {

@@ -1,3 +1,4 @@
+import { useDeferredValue } from 'react';
 import { useSekundoStore } from '../store';
 import type { PlanOutcome } from './derive-plan';
 import { useShownPlan } from './plan-engine';
@@ -11,7 +12,8 @@ const PENDING: PlanOutcome = { ok: false, message: 'Working out the plan…', pe
  */
 export function usePlanOutcome(): PlanOutcome {
   const plan = useSekundoStore((s) => s.plannerPlan);
-  return useShownPlan(plan).outcome ?? PENDING;
+  // Deferred: a new answer re-renders the results at low priority, so a keystroke interrupts it.
+  return useDeferredValue(useShownPlan(plan).outcome ?? PENDING);
 }
 
 /** Whether the results on screen are for an earlier plan (or timeline) than the one being edited. */

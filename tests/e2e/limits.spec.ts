@@ -2,18 +2,21 @@
  * The worst cases of the documented limits in Chromium: a plan with 64 sensors, 16 reflecting
  * planes at echo order 12 and a 10 000-point custom pulse, and 500 located sensors.
  *
- * What is checked, without timing anything by the clock: the page computes these in its workers,
- * so while the largest plan is being computed (the page says it is updating) every keystroke typed
- * lands in the field, in order, and the main thread runs no task of a second or more (Long Tasks
- * API). Computing this plan takes 6–20 s on one core (the kernel in node), and one of its sensors
- * a few hundred milliseconds; either on the main thread would show as such a task. The plan's
- * results then arrive in full: no lowered limit, no message in their place. Keystroke times are
- * measured by tests/bench/keystroke-limits.browser.ts.
+ * What is checked, without timing anything by the clock (a shared machine's load stretches every
+ * task): the page computes these in its workers, so while the largest plan is being computed (the
+ * page says it is updating) every keystroke typed lands in the field, in order, and the page's
+ * main thread computes no plan and no fit at all — the page notes any such work in its performance
+ * timeline (`noteThreadWork`), and the test finds none, while the results still arrive in full (no
+ * lowered limit, no message in their place). The main thread's long tasks (Long Tasks API) are
+ * reported beside the test for the record. Keystroke times are measured by
+ * tests/bench/keystroke-limits.browser.ts.
  */
 import { readFileSync } from 'node:fs';
 import { expect, type Page, test } from '@playwright/test';
 import { limitCases, locateCsv } from '../support/limit-plans';
 import { guardEveryPage } from './page-guard';
+import { PLAN_ON_THIS_THREAD } from '../../src/ui/planner/derive-plan';
+import { LOCATE_ON_THIS_THREAD } from '../../src/ui/locate/use-locate';
 
 guardEveryPage();
 
@@ -31,8 +34,16 @@ async function longTasks(page: Page): Promise<number[]> {
   return page.evaluate('window.sekundoLongTasks');
 }
 
-/** A task this long on the main thread would be the kernel's work there (see above). */
-const KERNEL_SIZED_TASK_MS = 1000;
+/** Work of the given name the page's main thread did (measures it notes in its timeline). */
+async function mainThreadWork(page: Page, name: string): Promise<number> {
+  return page.evaluate((n) => performance.getEntriesByName(n).length, name);
+}
+
+/** Notes the long tasks seen beside the test's result, for the record. */
+async function recordLongTasks(page: Page, what: string): Promise<void> {
+  const tasks = (await longTasks(page)).map(Math.round);
+  test.info().annotations.push({ type: 'long tasks', description: `${what}: ${tasks.length} long tasks, longest ${Math.max(0, ...tasks)} ms` });
+}
 
 test('all planner limits together: typing stays in the field while the plan computes off the main thread; then every result arrives', async ({ page }) => {
   test.setTimeout(600_000);
@@ -59,14 +70,15 @@ test('all planner limits together: typing stays in the field while the plan comp
   // Every keystroke landed, in order, while the plan was still being computed.
   await expect(name).toHaveValue(before + typed);
   await expect(note).toHaveAttribute('data-updating', 'true');
-  const tasks = await longTasks(page);
-  expect(Math.max(0, ...tasks), `long tasks while typing: ${tasks.map(Math.round).join(', ')} ms`).toBeLessThan(KERNEL_SIZED_TASK_MS);
+  await recordLongTasks(page, 'typing while the largest plan computes');
 
   // The results arrive in full (the name edit reuses every sensor already computed).
   await expect(page.locator('[data-chart="planner-timeline"]')).toHaveAttribute('data-drawn', 'true', { timeout: 540_000 });
   await expect(note).toHaveAttribute('data-updating', 'false');
   await expect(page.locator('.plan-problem')).toHaveCount(0);
   await expect(page.getByRole('table', { name: /predicted arrivals/i }).locator('tbody tr')).toHaveCount(64);
+  // All of it was computed off the main thread.
+  expect(await mainThreadWork(page, PLAN_ON_THIS_THREAD)).toBe(0);
   await page.getByRole('button', { name: 'Later points' }).click();
   await expect(page.getByRole('textbox', { name: 'Point 51 time' })).toBeVisible();
 });
@@ -86,8 +98,9 @@ test('500 located sensors: a page of rows; typing an arrival stays in the field 
   await field.press('End');
   await page.keyboard.type('1234', { delay: 60 });
   await expect(field).toHaveValue(`${before}1234`);
-  const tasks = await longTasks(page);
-  expect(Math.max(0, ...tasks), `long tasks while typing: ${tasks.map(Math.round).join(', ')} ms`).toBeLessThan(KERNEL_SIZED_TASK_MS);
-  // The fit of the newest arrivals arrives once typing pauses.
+  await recordLongTasks(page, 'typing arrivals with 500 sensors');
+  // The fit of the newest arrivals arrives once typing pauses, computed off the main thread.
   await expect(page.locator('.locate .updating-note')).toHaveAttribute('data-updating', 'false', { timeout: 120_000 });
+  await expect(page.locator('.locate-summary')).not.toContainText('Locating the source…');
+  expect(await mainThreadWork(page, LOCATE_ON_THIS_THREAD)).toBe(0);
 });

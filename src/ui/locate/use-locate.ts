@@ -1,3 +1,4 @@
+import { noteThreadWork } from '../layout/main-thread-work';
 import { useEffect, useState, useSyncExternalStore } from 'react';
 import { HeldUntilTypingPauses, watchTyping } from '../layout/typing-pause';
 import { useSekundoStore } from '../store';
@@ -13,10 +14,16 @@ const KEEP = 3;
 export function locateOutcomeFor(rows: readonly LocateRowInput[], options: LocateOptionsInput): LocateOutcome {
   const hit = recent.find((e) => e.rows === rows && e.options === options);
   if (hit) return hit.outcome;
+  const start = performance.now();
   const outcome = deriveLocate(rows, options);
   recent = [{ rows, options, outcome }, ...recent].slice(0, KEEP);
+  // The browser test checks the page's main thread never fits while the locate worker runs.
+  noteThreadWork(LOCATE_ON_THIS_THREAD, start);
   return outcome;
 }
+
+/** Performance-timeline name of a fit made on the calling thread. */
+export const LOCATE_ON_THIS_THREAD = 'sekundo: source located on this thread';
 
 // The fit runs in the locate worker (locate-worker.ts) where the browser has workers: the view
 // keeps the last outcome, marked as updating, until the newest inputs are fitted. Without workers

@@ -1,3 +1,4 @@
+import { noteThreadWork } from '../layout/main-thread-work';
 import { CUSTOM_AMPLITUDE_RANGE, explainPlanError, type PlanBath, type PlanFile, parsePlanFile, planBath, planFileToInput } from '../../io/plan-file';
 import {
   checkPlanInput,
@@ -62,12 +63,19 @@ const outcomes = new WeakMap<PlanFile, PlanOutcome>();
 export function derivePlan(plan: PlanFile, cache?: SensorResultCache): PlanOutcome {
   const known = outcomes.get(plan);
   if (known) return known;
+  const start = performance.now();
   const steps = derivePlanSteps(plan, cache);
   let step = steps.next();
   while (!step.done) step = steps.next();
   outcomes.set(plan, step.value);
+  // Named in the calling thread's performance timeline: the browser test checks the page's main
+  // thread never computes a plan while its worker runs.
+  noteThreadWork(PLAN_ON_THIS_THREAD, start);
   return step.value;
 }
+
+/** Performance-timeline name of a plan computed on the calling thread (see {@link derivePlan}). */
+export const PLAN_ON_THIS_THREAD = 'sekundo: plan computed on this thread';
 
 /**
  * Whether a custom pulse's points pass every rule the plan-file schema has for them (2 to the

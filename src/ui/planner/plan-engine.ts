@@ -7,11 +7,12 @@
  * Where no worker can run (jsdom in the component tests, a browser without module workers) the
  * plan is computed on the calling thread, as before, with the same per-sensor cache.
  */
+import { noteThreadWork } from '../layout/main-thread-work';
 import { useEffect, useMemo, useSyncExternalStore } from 'react';
 import type { PlanFile } from '../../io/plan-file';
 import { SensorResultCache } from '../../physics';
 import { HeldUntilTypingPauses, watchTyping } from '../layout/typing-pause';
-import { derivePlan, type PlanOutcome } from './derive-plan';
+import { derivePlan, PLAN_ON_THIS_THREAD, type PlanOutcome } from './derive-plan';
 import { type PlanReply, type PlanRequest, packPlan, sameTimeline, type TimelineRequest } from './plan-worker-protocol';
 import { type TimelineFigure, timelineFigure } from './timeline-figure';
 
@@ -138,7 +139,13 @@ export function useTimelineFigure(outcome: PlanOutcome | null, request: Timeline
   }, [inWorker, view, columns, timeUnit]);
   const fromWorker = useSyncExternalStore(subscribe, current, current);
   const result = outcome?.ok ? outcome.result : null;
-  const here = useMemo(() => (inWorker || result === null ? null : timelineFigure(result, view, columns, timeUnit)), [inWorker, result, view, columns, timeUnit]);
+  const here = useMemo(() => {
+    if (inWorker || result === null) return null;
+    const start = performance.now();
+    const figure = timelineFigure(result, view, columns, timeUnit);
+    noteThreadWork(PLAN_ON_THIS_THREAD, start);
+    return figure;
+  }, [inWorker, result, view, columns, timeUnit]);
   return inWorker ? fromWorker.figure : here;
 }
 

@@ -52,7 +52,7 @@ export function SavedPlansPanel({ id }: { id: string }) {
         </ul>
       ) : null}
       {own.length === 0 ? (
-        <p className="muted">No saved plans yet.</p>
+        <p className="muted">{kept.length > 0 ? 'No plans saved by you yet; the page’s kept copies are below.' : 'No saved plans yet.'}</p>
       ) : (
         <ul className="saved-plans__list" aria-label="Saved plans">
           {own.map((p) => (

@@ -34,6 +34,11 @@ export interface SavedPlan {
   /** ISO 8601 time of the last save. */
   savedAt: string;
   plan: PlanFile;
+  /**
+   * Set on a copy the page kept by itself before something replaced the open plan: what replaced
+   * it ("before opening a share link"). Absent on plans the user saved.
+   */
+  kept?: string;
 }
 
 /** What a listing found: the plans that read cleanly, and a message for each entry that did not. */
@@ -271,7 +276,21 @@ function readRecord(store: KeyValueStore, key: string): StoreResult<SavedPlan> {
   const parsed = parsePlanFile(r.plan);
   if (!parsed.ok && parsed.newerVersion !== undefined) return { ok: false, message: newerMessage(`The saved plan "${r.name.slice(0, MAX_PLAN_NAME)}"`, parsed.newerVersion) };
   if (!parsed.ok) return { ok: false, message: `The saved plan "${r.name.slice(0, MAX_PLAN_NAME)}" is damaged (${parsed.errors[0] ?? 'unreadable'}); the other plans are fine.` };
-  return { ok: true, value: { id: r.id, name: r.name.slice(0, MAX_PLAN_NAME), savedAt: r.savedAt, plan: parsed.plan } };
+  const name = r.name.slice(0, MAX_PLAN_NAME);
+  const kept = typeof r.kept === 'string' ? r.kept.slice(0, MAX_KEPT_REASON) : keptReasonInName(name);
+  return { ok: true, value: { id: r.id, name, savedAt: r.savedAt, plan: parsed.plan, ...(kept === null ? {} : { kept }) } };
+}
+
+/** Longest reason kept with a kept copy. */
+const MAX_KEPT_REASON = 200;
+
+/**
+ * A kept copy written before kept copies were marked in the record carries its reason only in its
+ * name, "<plan> (kept <time>, before <reason>)": read it from there (null for any other name).
+ */
+function keptReasonInName(name: string): string | null {
+  const match = /\(kept [^()]*?, (before [^()]+)\)$/.exec(name);
+  return match?.[1] ?? null;
 }
 
 /** One named plan as it is in storage now (another tab may have changed or deleted it). */
@@ -329,7 +348,14 @@ function writeRecord(store: KeyValueStore, record: SavedPlan): StoreResult<Saved
   try {
     store.setItem(
       PLAN_PREFIX + record.id,
-      JSON.stringify({ format: RECORD_FORMAT, id: record.id, name: record.name, savedAt: record.savedAt, plan: serializePlanFile(record.plan) }),
+      JSON.stringify({
+        format: RECORD_FORMAT,
+        id: record.id,
+        name: record.name,
+        savedAt: record.savedAt,
+        plan: serializePlanFile(record.plan),
+        ...(record.kept === undefined ? {} : { kept: record.kept }),
+      }),
     );
     return { ok: true, value: record };
   } catch (error) {
@@ -345,13 +371,34 @@ export function savePlan(store: KeyValueStore | null, name: string, plan: PlanFi
   return writeRecord(store, { id: id ?? newId(now), name: n.value, savedAt: now.toISOString(), plan });
 }
 
+/**
+ * Keeps a plan as a copy the page made by itself before something replaced it (`reason`: "before
+ * opening a share link"), marked as such in Saved plans.
+ */
+export function keepPlanCopy(store: KeyValueStore | null, name: string, plan: PlanFile, reason: string, now = new Date()): StoreResult<SavedPlan> {
+  if (!store) return unavailable(`"${name}"`);
+  const n = cleanName(name);
+  if (!n.ok) return n;
+  return writeRecord(store, { id: newId(now), name: n.value, savedAt: now.toISOString(), plan, kept: reason.slice(0, MAX_KEPT_REASON) });
+}
+
+/** Makes a kept copy one of the user's own saved plans (it is no longer listed with the kept copies). */
+export function adoptKeptPlan(store: KeyValueStore | null, id: string): StoreResult<SavedPlan> {
+  if (!store) return unavailable('the change');
+  const r = readRecord(store, PLAN_PREFIX + id);
+  if (!r.ok) return r;
+  const { kept: _kept, ...own } = r.value;
+  const name = own.name.replace(/ \(kept [^()]*?, before [^()]+\)$/, '') || own.name;
+  return writeRecord(store, { ...own, name });
+}
+
 /** A copy of a saved plan under "<name> (copy)". */
 export function duplicatePlan(store: KeyValueStore | null, id: string, now = new Date()): StoreResult<SavedPlan> {
   if (!store) return unavailable('the copy');
   const r = readRecord(store, PLAN_PREFIX + id);
   if (!r.ok) return r;
   const name = `${r.value.name} (copy)`.slice(0, MAX_PLAN_NAME);
-  return writeRecord(store, { id: newId(now), name, savedAt: now.toISOString(), plan: r.value.plan });
+  return writeRecord(store, { id: newId(now), name, savedAt: now.toISOString(), plan: r.value.plan, ...(r.value.kept === undefined ? {} : { kept: r.value.kept }) });
 }
 
 /** Renames a saved plan. */

@@ -41,7 +41,8 @@ export {
 } from './vapour-pressure';
 export { coldLength, type ColdLength, PATH_LENGTH_RANGE_M, SPACER_MATERIALS, type SpacerMaterial, spacerMaterial } from './contraction';
 export { imageSources, MAX_ECHO_ORDER, type ReflectingPlane, type SourceImage, type Vec3 } from './image-sources';
-export { computePlan } from './planner';
+export { computePlan, computePlanSteps } from './planner';
+export { type CachedSensor, SensorResultCache } from './sensor-cache';
 export {
   checkPlanInput,
   heaterArea_m2,

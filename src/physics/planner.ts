@@ -10,6 +10,7 @@ import { bathWarnings, fmt, geometryWarnings, heaterWarnings } from './plan-warn
 import { heliumProperties } from './properties';
 import { pulseProfile } from './pulse-shape';
 import type { Medium, SampledSignal } from './received-pulse';
+import type { SensorResultCache } from './sensor-cache';
 import { sensorResult } from './sensor-plan';
 import { wallReflection } from './wall-reflection';
 
@@ -25,7 +26,21 @@ import { wallReflection } from './wall-reflection';
  * resolution for every sensor. Inputs in SI (see {@link PlanInput}); throws OutOfRangeError,
  * NonFiniteInputError or InvalidInputError naming the field.
  */
-export function computePlan(plan: PlanInput): PlanResult {
+export function computePlan(plan: PlanInput, cache?: SensorResultCache): PlanResult {
+  const steps = computePlanSteps(plan, cache);
+  for (;;) {
+    const step = steps.next();
+    if (step.done) return step.value;
+  }
+}
+
+/**
+ * {@link computePlan} one sensor at a time: the generator yields the number of sensors done after
+ * each one and returns the result, so a caller can pause between sensors (the page's worker
+ * drops a plan the user has already changed). With a {@link SensorResultCache}, a sensor whose
+ * inputs are unchanged since an earlier call is taken from it (same result, same warnings).
+ */
+export function* computePlanSteps(plan: PlanInput, cache?: SensorResultCache): Generator<number, PlanResult, void> {
   checkPlanInput(plan);
   const T = plan.temperature_K;
   const props = heliumProperties(T);
@@ -110,10 +125,24 @@ export function computePlan(plan: PlanInput): PlanResult {
     // One order more than asked: a reflector through the sensor adds its partner to the last echo.
     plan.echoOrder + 1,
   );
-  const sensors = plan.sensors.map((sensor, i) => {
+  // Everything a sensor's result depends on besides the sensor itself (see SensorResultCache).
+  const known = cache?.context(JSON.stringify({ ...plan, sensors: null }));
+  const sensors = [];
+  for (const [i, sensor] of plan.sensors.entries()) {
+    const blocked = behind.has(sensor.id) || throughHeater.length > 0;
+    const key = known ? `${blocked}|${JSON.stringify(sensor)}` : '';
+    const kept = known?.get(key);
+    if (kept && cache) {
+      cache.hits += 1;
+      sensors.push(kept.result);
+      warnings.push(...kept.warnings);
+      yield i + 1;
+      continue;
+    }
     const measuredLength = Math.hypot(...sensor.position_m);
     const pathSd = Math.hypot(sensor.distanceSd_m * scale, warm ? measuredLength * material.contractionSd : 0);
-    return sensorResult({
+    const own: PlanWarning[] = [];
+    const result = sensorResult({
       plan,
       sensor,
       position: positions[i] as (typeof positions)[number],
@@ -125,12 +154,19 @@ export function computePlan(plan: PlanInput): PlanResult {
       face,
       images,
       planes,
-      warnings,
+      warnings: own,
       faceDeltaT: heater.faceDeltaT_K,
       shockDistance: heater.shockDistance_m,
-      blocked: behind.has(sensor.id) || throughHeater.length > 0,
+      blocked,
     });
-  });
+    if (known && cache) {
+      cache.misses += 1;
+      known.set(key, { result, warnings: own });
+    }
+    sensors.push(result);
+    warnings.push(...own);
+    yield i + 1;
+  }
 
   const heaterStep = Math.max(profile.duration_s / 400, 1e-12);
   const heaterPulse: SampledSignal = {

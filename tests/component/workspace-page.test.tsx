@@ -85,7 +85,8 @@ describe('user text is text', () => {
     // Opened from a link (kept nowhere else), so a second link asks before replacing it.
     main().loadPlannerPlan(hostile(), { kind: 'link', note: `Opened “${PAYLOAD}.json”.` });
     expect(await screen.findByDisplayValue(`Plan ${PAYLOAD}`)).toBeInTheDocument();
-    expect(screen.getAllByText(new RegExp(`Sensor ${PAYLOAD.replace(/[()]/g, '\\$&')}`)).length).toBeGreaterThan(0);
+    // The results follow the plan at low priority (a deferred render): wait for them.
+    expect((await screen.findAllByText(new RegExp(`Sensor ${PAYLOAD.replace(/[()]/g, '\\$&')}`))).length).toBeGreaterThan(0);
     expectNoInjectedElements();
 
     // Saved plans list, the toast, and the rename form.

@@ -90,19 +90,26 @@ function Projection({ slot, help, describedBy }: { slot: 0 | 1; help: ReactNode;
   const zoom = outcome.ok ? display.zoom : 'layout';
   const [boxRef, width] = useWidth<HTMLDivElement>(600);
   const length = useDisplayUnit('length');
+  // Positions and labels by value: an arrival typed in the table leaves them (and the chart) as they are.
+  const positionsKey = rows.map((r) => r.position_m.join(',')).join(';');
+  const labelsKey = rows.map((r) => r.label).join('\n');
+  // biome-ignore lint/correctness/useExhaustiveDependencies: the key stands for the positions
+  const positions = useMemo(() => rows.map((r) => r.position_m), [positionsKey]);
+  // biome-ignore lint/correctness/useExhaustiveDependencies: the key stands for the labels
+  const labels = useMemo(() => rows.map((r) => r.label), [labelsKey]);
   const figure = useMemo(
     () =>
       projectionFigure({
         pair,
-        positions: rows.map((r) => r.position_m),
-        labels: rows.map((r) => r.label),
+        positions,
+        labels,
         outcomes: outcome.ok ? outcome.outcomes : null,
         result: outcome.ok ? outcome.result : null,
         constraint: outcome.constraint,
         zoom,
         length: lengthScale(length.unit),
       }),
-    [pair, rows, outcome, zoom, length.unit],
+    [pair, positions, labels, outcome, zoom, length.unit],
   );
   const choose = (next: PlanePair) => {
     const projections: [PlanePair, PlanePair] = [display.projections[0], display.projections[1]];

@@ -13,7 +13,7 @@ import { LOCATE_HELP } from './locate-help';
 import { MAP_POINTS_PER_SIDE, median, qualityMap } from './locate-geometry';
 import { AXIS_NAMES, axesOf, constraintOf, PLANE_PAIRS, type PlanePair, pairName, placementOf } from './locate-inputs';
 import { useElementWidth as useWidth } from '../layout/use-element-width';
-import { locateOutcomeFor, useSettled } from './use-locate';
+import { useLocateOutcome, useSettled } from './use-locate';
 
 export const QUALITY_CHART_ID = 'locate-quality-map';
 /** The map is redrawn once typing pauses this long, ms (it takes about a tenth of a second). */
@@ -45,7 +45,8 @@ export function LocateQualityMap() {
   const mm = (m: number) => length.format(m, 3);
   const planeHelp = useFieldHelp('map plane', LOCATE_HELP.mapPlane);
   const [boxRef, width] = useWidth<HTMLDivElement>(640);
-  const outcome = locateOutcomeFor(rows, options);
+  // The fit on screen (the locate worker's newest): the map is drawn through its source.
+  const outcome = useLocateOutcome();
   const speed = speedOf(options);
   // The same positions keep the same array (an arrival typed elsewhere does not redraw the map).
   const positionsKey = rows.map((r) => r.position_m.join(',')).join(';');

@@ -1,3 +1,5 @@
+import { UpdatingNote } from '../layout/UpdatingNote';
+import { useLocateUpdating } from './use-locate';
 import { useEffect } from 'react';
 import { PanelErrorBoundary } from '../layout/PanelErrorBoundary';
 import { useSekundoStore } from '../store';
@@ -24,6 +26,7 @@ export function LocateView() {
   }
   return (
     <div className="locate">
+      <LocateUpdating />
       <PanelErrorBoundary panel="sensor data bar">
         <LocateBar />
       </PanelErrorBoundary>
@@ -67,4 +70,9 @@ function useDemoOnFirstOpen(): void {
     begin();
     void loadLocateDemo().then(({ sensors, origin }) => load(sensors, origin));
   }, [begin, load]);
+}
+
+/** While the locate worker fits newer inputs, the fit on screen is the last one: say so. */
+function LocateUpdating() {
+  return <UpdatingNote updating={useLocateUpdating()} text="Locating the source again for your latest edit… the fit below is for the inputs before it." />;
 }

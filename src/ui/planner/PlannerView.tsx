@@ -1,4 +1,5 @@
 import { useEffect } from 'react';
+import { UpdatingNote } from '../layout/UpdatingNote';
 import { PanelErrorBoundary } from '../layout/PanelErrorBoundary';
 import { useSekundoStore } from '../store';
 import { BathEditor } from './BathEditor';
@@ -13,7 +14,7 @@ import { ResultsTable } from './ResultsTable';
 import { SensorsEditor } from './SensorsEditor';
 import { SetupEditor } from './SetupEditor';
 import { TimelineChart } from './TimelineChart';
-import { usePlanOutcome } from './use-plan';
+import { usePlanOutcome, usePlanUpdating } from './use-plan';
 import { WarningsList } from './WarningsList';
 import { WorkspaceBar } from '../workspace/WorkspaceBar';
 
@@ -37,6 +38,7 @@ export function PlannerView() {
         <WorkspaceBar />
       </PanelErrorBoundary>
       <PlanProblem />
+      <PlanUpdating />
       <div className="planner-top">
         <div className="planner-inputs">
           <BathEditor />
@@ -87,7 +89,7 @@ function useDemoPlanOnFirstOpen(): void {
 /** When the kernel refuses the plan as a whole (e.g. one opened from a file), say why; the plan is kept as it is. */
 function PlanProblem() {
   const outcome = usePlanOutcome();
-  if (outcome.ok) return null;
+  if (outcome.ok || outcome.pending) return null;
   return (
     <div className="panel-failure plan-problem" role="alert">
       <p>
@@ -95,5 +97,18 @@ function PlanProblem() {
       </p>
       <p>The plan is kept as it is; change the field named above.</p>
     </div>
+  );
+}
+
+/** While the plan worker computes a newer plan, the results on screen are the last ones: say so. */
+function PlanUpdating() {
+  const updating = usePlanUpdating();
+  const outcome = usePlanOutcome();
+  const first = !outcome.ok && outcome.pending === true;
+  return (
+    <UpdatingNote
+      updating={updating}
+      text={first ? 'Working out the results for this plan…' : 'Updating the results for your latest edit… the figures below are for the plan before it.'}
+    />
   );
 }

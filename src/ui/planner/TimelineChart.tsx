@@ -1,4 +1,3 @@
-import { useMemo } from 'react';
 import { ChartFigure } from '../charts/ChartFigure';
 import { PlotlyChart } from '../plot/PlotlyChart';
 import { themedColour } from '../plot/plot-theme';
@@ -8,8 +7,9 @@ import { useResolvedTheme } from '../theme/use-theme';
 import { PLANNER_COLOURS } from './planner-colours';
 import { reportDrawn } from './recompute-timer';
 import { type DisplayUnit, inUnit } from '../units/ladders';
-import { formatTime, type TimelineKeyEntry, timelineFigure } from './timeline-figure';
-import { usePlanOutcome } from './use-plan';
+import { useTimelineFigure } from './plan-engine';
+import { formatTime, type TimelineKeyEntry } from './timeline-figure';
+import { usePlanOutcome, usePlanUpdating } from './use-plan';
 import { useShownLadders } from '../units/use-shown-ladders';
 import { useElementWidth } from '../layout/use-element-width';
 
@@ -33,7 +33,9 @@ export function TimelineChart() {
   const columns = Math.max(100, width - PLOT_MARGIN_PX);
   const result = outcome.ok ? outcome.result : null;
   const timeUnit = useShownLadders().time[0] as DisplayUnit;
-  const figure = useMemo(() => (result ? timelineFigure(result, view, columns, timeUnit) : null), [result, view, columns, timeUnit]);
+  // Built by the plan worker beside the results (on this thread where no worker runs).
+  const figure = useTimelineFigure(outcome, { view, columns, timeUnit });
+  const updating = usePlanUpdating();
   if (!result || !figure) return null;
   const second = result.sensors.filter((s) => s.secondSoundArrival_s !== null);
   const summary =
@@ -49,6 +51,9 @@ export function TimelineChart() {
           <span className="caption-values">{summary}</span> Top: heater flux. Below: predicted δT at each sensor (linear
           theory). Vertical lines mark the arrivals; each marker on top has its sensor’s colour. Shaded: the record
           window.
+          {figure.echoes.shown < figure.echoes.inView
+            ? ` Echoes marked: each sensor’s earliest, ${figure.echoes.shown.toLocaleString('en-GB')} of the ${figure.echoes.inView.toLocaleString('en-GB')} in this span.`
+            : null}
         </>
       }
     >
@@ -67,7 +72,10 @@ export function TimelineChart() {
           label={`Timeline of one heater pulse with the predicted signal at ${result.sensors.length} sensors. ${summary}`}
           data={figure.data}
           layout={figure.layout}
-          onDrawn={() => reportDrawn('timeline')}
+          // The edit → result time counts the draw of the newest plan's figure only.
+          onDrawn={() => {
+            if (!updating) reportDrawn('timeline');
+          }}
         />
       </div>
       <TimelineKey entries={figure.key} />

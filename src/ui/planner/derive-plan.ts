@@ -1,19 +1,23 @@
+import { noteThreadWork } from '../layout/main-thread-work';
 import { CUSTOM_AMPLITUDE_RANGE, explainPlanError, type PlanBath, type PlanFile, parsePlanFile, planBath, planFileToInput } from '../../io/plan-file';
-import { computePlan, CUSTOM_PULSE_MAX_POINTS, imageSources, MAX_ECHO_ORDER, type PlanInput, type PlanResult, PULSE_WIDTH_RANGE_S } from '../../physics';
+import {
+  checkPlanInput,
+  computePlanSteps,
+  CUSTOM_PULSE_MAX_POINTS,
+  imageSources,
+  MAX_ECHO_ORDER,
+  type PlanInput,
+  type PlanResult,
+  PULSE_WIDTH_RANGE_S,
+  type SensorResultCache,
+} from '../../physics';
 import { describePlanMessage } from './plan-paths';
 
 /** A plan's results, or the one message that says why there are none. */
-export type PlanOutcome = { ok: true; input: PlanInput; bath: PlanBath; result: PlanResult } | { ok: false; message: string };
-
-/**
- * The page's limit on work per recompute: sensors × echo paths (the heater and its images in the
- * reflecting planes, up to one order past the echo order). The kernel's cost grows with it (about
- * 0.1–0.2 ms per arrival in Chromium on one core), and every keystroke recomputes the plan, so
- * above this the page would stop answering keys within 100 ms (tests/bench/keystroke-limits
- * .browser.ts). The plan file and `sekundo plan` take larger plans; the page opens them with this
- * message in place of results, and refuses an edit that would pass it.
- */
-export const PAGE_ARRIVALS_LIMIT = 400;
+export type PlanOutcome =
+  | { ok: true; input: PlanInput; bath: PlanBath; result: PlanResult }
+  /** `pending`: no results yet, the first computation of the plan is under way (not a refusal). */
+  | { ok: false; message: string; pending?: true };
 
 /** Sensors × echo paths of a plan, as the kernel will compute them (null when the plan cannot say). */
 export function planArrivals(plan: PlanFile): number | null {
@@ -29,42 +33,49 @@ export function planArrivals(plan: PlanFile): number | null {
   }
 }
 
-/** Why the page will not compute this plan as you type (over {@link PAGE_ARRIVALS_LIMIT}), or null. */
-export function overPageLimit(plan: PlanFile): string | null {
-  const arrivals = planArrivals(plan);
-  if (arrivals === null || arrivals <= PAGE_ARRIVALS_LIMIT) return null;
-  const paths = arrivals / plan.sensors.length;
-  return (
-    `This plan has ${plan.sensors.length} sensor${plan.sensors.length === 1 ? '' : 's'} × ${paths} echo paths = ${arrivals} arrivals to compute; ` +
-    `the page computes up to ${PAGE_ARRIVALS_LIMIT} as you type, so it stays responsive. Remove sensors or reflecting planes, or lower the echo order; ` +
-    '`sekundo plan` on the command line computes the plan as it is.'
-  );
-}
-
-// Results are derived, never stored: one memo per plan object (plans are replaced, never mutated),
-// so the check made while typing and the page's own read share one computation.
-const outcomes = new WeakMap<PlanFile, PlanOutcome>();
-
-/** The plan's results from the kernel (planFileToInput + computePlan), memoised per plan object. */
-export function derivePlan(plan: PlanFile): PlanOutcome {
-  const known = outcomes.get(plan);
-  if (known) return known;
-  let outcome: PlanOutcome;
-  const tooLarge = overPageLimit(plan);
-  if (tooLarge !== null) {
-    outcome = { ok: false, message: tooLarge };
-    outcomes.set(plan, outcome);
-    return outcome;
+/**
+ * The plan's results from the kernel (planFileToInput + computePlan), one sensor at a time: the
+ * generator yields after each sensor (the page's plan worker stops there when the plan has been
+ * changed meanwhile) and returns the outcome. With a cache, unchanged sensors are not recomputed.
+ */
+export function* derivePlanSteps(plan: PlanFile, cache?: SensorResultCache): Generator<number, PlanOutcome, void> {
+  let input: PlanInput;
+  try {
+    input = planFileToInput(plan);
+  } catch (error) {
+    return { ok: false, message: describePlanMessage(explainPlanError(error)) };
   }
   try {
-    const input = planFileToInput(plan);
-    outcome = { ok: true, input, bath: planBath(plan), result: computePlan(input) };
+    const result = yield* computePlanSteps(input, cache);
+    return { ok: true, input, bath: planBath(plan), result };
   } catch (error) {
-    outcome = { ok: false, message: describePlanMessage(explainPlanError(error)) };
+    return { ok: false, message: describePlanMessage(explainPlanError(error)) };
   }
-  outcomes.set(plan, outcome);
-  return outcome;
 }
+
+// Results are derived, never stored: one memo per plan object (plans are replaced, never mutated).
+const outcomes = new WeakMap<PlanFile, PlanOutcome>();
+
+/**
+ * The plan's results on the calling thread, memoised per plan object. The page computes in its
+ * plan worker (plan-engine.ts); this is for the printed setup sheet, tests and where no worker runs.
+ */
+export function derivePlan(plan: PlanFile, cache?: SensorResultCache): PlanOutcome {
+  const known = outcomes.get(plan);
+  if (known) return known;
+  const start = performance.now();
+  const steps = derivePlanSteps(plan, cache);
+  let step = steps.next();
+  while (!step.done) step = steps.next();
+  outcomes.set(plan, step.value);
+  // Named in the calling thread's performance timeline: the browser test checks the page's main
+  // thread never computes a plan while its worker runs.
+  noteThreadWork(PLAN_ON_THIS_THREAD, start);
+  return step.value;
+}
+
+/** Performance-timeline name of a plan computed on the calling thread (see {@link derivePlan}). */
+export const PLAN_ON_THIS_THREAD = 'sekundo: plan computed on this thread';
 
 /**
  * Whether a custom pulse's points pass every rule the plan-file schema has for them (2 to the
@@ -103,8 +114,10 @@ function withCheckedPointsShort(plan: PlanFile): PlanFile {
 }
 
 /**
- * Why a changed plan cannot be used, or null: first the plan-file schema (every field and
- * cross-field rule), then the kernel itself. The message names the field as the page labels it.
+ * Why a changed plan cannot be used, or null: the plan-file schema (every field and cross-field
+ * rule), then the kernel's check of its inputs. Cheap enough for every keystroke: the plan itself
+ * is computed in the plan worker, and a plan the kernel still refuses there shows its message in
+ * place of results. The message names the field as the page labels it.
  */
 export function planProblem(plan: PlanFile): string | null {
   const parsed = parsePlanFile(JSON.stringify(withCheckedPointsShort(plan)));
@@ -113,8 +126,10 @@ export function planProblem(plan: PlanFile): string | null {
     const more = rest.length > 0 ? ` (and ${rest.length} more)` : '';
     return `${describePlanMessage(first)}${more}`;
   }
-  const tooLarge = overPageLimit(plan);
-  if (tooLarge !== null) return tooLarge;
-  const outcome = derivePlan(plan);
-  return outcome.ok ? null : outcome.message;
+  try {
+    checkPlanInput(planFileToInput(plan));
+    return null;
+  } catch (error) {
+    return describePlanMessage(explainPlanError(error));
+  }
 }

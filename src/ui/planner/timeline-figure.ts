@@ -13,6 +13,21 @@ import { PLANNER_COLOURS, sensorColour } from './planner-colours';
 
 /** The time axis before a unit is chosen. */
 const MILLISECONDS: DisplayUnit = { shown: 'ms', unit: 'ms' };
+/**
+ * Points of all sensors' waveforms together (about two per column each): up to 12 sensors get a
+ * column per pixel of a wide chart; more share it. Common practice, no source: chosen so the
+ * largest plan's timeline draws in tens of milliseconds (tests/bench/keystroke-limits.browser.ts).
+ */
+const SENSOR_POINT_BUDGET = 24_000;
+/**
+ * Echo arrivals marked on the timeline, all sensors together: each marker is an SVG element the
+ * page draws on its main thread, and the largest plan has over 14 000 echoes in view. Each sensor
+ * gets its earliest echoes, at least MIN_ECHOES_PER_SENSOR; the caption says how many are marked.
+ */
+const ECHO_MARK_BUDGET = 1200;
+const MIN_ECHOES_PER_SENSOR = 8;
+/** Fewest columns a sensor's waveform is cut to. */
+const MIN_SENSOR_COLUMNS = 120;
 /** Fraction of the plot height given to the sensors (bottom) and the heater (top). */
 const SENSOR_DOMAIN: [number, number] = [0, 0.76];
 const HEATER_DOMAIN: [number, number] = [0.84, 1];
@@ -34,6 +49,8 @@ export interface TimelineFigure {
   range_s: [number, number];
   /** Unit of the δT axis. */
   amplitudeUnit: DisplayUnit;
+  /** Echo arrivals in the span shown, and how many of them are marked (each sensor's earliest, within the budget). */
+  echoes: { inView: number; shown: number };
 }
 
 /** End of the segment of `waveform` that holds time t (or t itself). */
@@ -121,6 +138,9 @@ function peakOf(sensor: SensorPlanResult): { min: number; max: number } {
  */
 export function timelineFigure(result: PlanResult, view: TimelineView, columns: number, timeUnit: DisplayUnit = MILLISECONDS): TimelineFigure {
   const [from, to] = timelineRange(result, view);
+  // Many sensors share the columns: the chart draws on the page's main thread, and its time grows
+  // with the points, so a crowded plan's waveforms are cut coarser (never below MIN_SENSOR_COLUMNS).
+  const sensorColumns = Math.max(MIN_SENSOR_COLUMNS, Math.min(columns, Math.floor(SENSOR_POINT_BUDGET / (2 * Math.max(1, result.sensors.length)))));
   const inTime = (t_s: number) => inUnit(t_s, timeUnit);
   const tu = timeUnit.shown;
   const peaks = result.sensors.map(peakOf);
@@ -156,9 +176,11 @@ export function timelineFigure(result: PlanResult, view: TimelineView, columns: 
   const shapes: PlotShape[] = [recordWindow(result, inTime)];
   const marks: { t: number; colour: string; symbol: string; text: string }[] = [];
   const lines: Record<ArrivalKind, number[]> = { 'first sound': [], 'second sound': [], echo: [] };
+  let echoesInView = 0;
+  let echoesShown = 0;
   result.sensors.forEach((sensor, i) => {
     const colour = sensorColour(i);
-    const line = decimateSegments(sensor.waveform, from, to, columns);
+    const line = decimateSegments(sensor.waveform, from, to, sensorColumns);
     const name = `${sensor.label} (${sensor.id})`;
     data.push({
       type: 'scatter',
@@ -170,7 +192,14 @@ export function timelineFigure(result: PlanResult, view: TimelineView, columns: 
       line: { color: colour, width: 1.6 },
       hovertemplate: `${escapeHover(sensor.id)}: t = %{x:.4g} ${tu}, δT = %{y:.3g} ${amplitudeUnit.shown}<extra></extra>`,
     });
-    const arrivals = arrivalsOf(sensor).filter((a) => a.t_s >= from && a.t_s <= to);
+    const inView = arrivalsOf(sensor).filter((a) => a.t_s >= from && a.t_s <= to);
+    // Each sensor's earliest echoes, up to its share of the budget (the markers are SVG elements).
+    const echoes = inView.filter((a) => a.kind === 'echo').sort((x, y) => x.t_s - y.t_s);
+    const echoShare = Math.max(MIN_ECHOES_PER_SENSOR, Math.floor(ECHO_MARK_BUDGET / Math.max(1, result.sensors.length)));
+    echoesInView += echoes.length;
+    const keptEchoes = new Set(echoes.slice(0, echoShare));
+    echoesShown += keptEchoes.size;
+    const arrivals = inView.filter((a) => a.kind !== 'echo' || keptEchoes.has(a));
     for (const a of arrivals) {
       marks.push({ t: inTime(a.t_s), colour, symbol: MARKER_STYLE[a.kind].symbol, text: `${escapeHover(sensor.id)} · ${a.detail}: ${formatTime(a.t_s, timeUnit)}` });
       lines[a.kind].push(inTime(a.t_s));
@@ -226,7 +255,7 @@ export function timelineFigure(result: PlanResult, view: TimelineView, columns: 
     ...result.sensors.map((sensor, i): TimelineKeyEntry => ({ label: `${sensor.label} (${sensor.id})`, colour: sensorColour(i), kind: 'line' })),
     ...ARRIVAL_KINDS.map((kind): TimelineKeyEntry => ({ label: ARRIVAL_LEGEND[kind], colour: MARKER_STYLE[kind].colour, kind })),
   ];
-  return { data, key, layout, range_s: [from, to], amplitudeUnit };
+  return { data, key, layout, range_s: [from, to], amplitudeUnit, echoes: { inView: echoesInView, shown: echoesShown } };
 }
 
 function recordWindow(result: PlanResult, inTime: (t_s: number) => number): PlotShape {

@@ -1,6 +1,7 @@
 import { useState } from 'react';
 import type { SavedPlan } from '../../io/workspace-storage';
 import { useSekundoStore } from '../store';
+import { adoptKept, askDeleteAllKept, splitKept } from './kept-copies';
 import { deleteSaved, duplicateSaved, openSaved, renameSaved, saveCurrentAs, saveCurrentOver } from './persist-workspace';
 import { useWorkspaceStore } from './workspace-store';
 
@@ -9,7 +10,11 @@ function when(iso: string): string {
   return Number.isNaN(date.getTime()) ? iso : date.toLocaleString('en-GB', { dateStyle: 'medium', timeStyle: 'short' });
 }
 
-/** Named plans kept in this browser: save the open plan under a name; open, duplicate, rename, delete (with undo). */
+/**
+ * Named plans kept in this browser: save the open plan under a name; open, duplicate, rename, delete
+ * (with undo). The copies the page kept by itself before replacing work are listed apart, can be
+ * moved to the user's plans, and deleted one by one or all at once (after a question, with undo).
+ */
 export function SavedPlansPanel({ id }: { id: string }) {
   const plans = useWorkspaceStore((s) => s.savedPlans);
   const problems = useWorkspaceStore((s) => s.savedProblems);
@@ -17,6 +22,7 @@ export function SavedPlansPanel({ id }: { id: string }) {
   const planName = useSekundoStore((s) => s.plannerPlan.name);
   const [name, setName] = useState(planName);
   const current = plans.find((p) => p.id === currentId) ?? null;
+  const { own, kept } = splitKept(plans);
   return (
     <div id={id} className="saved-plans">
       <form
@@ -45,15 +51,35 @@ export function SavedPlansPanel({ id }: { id: string }) {
           ))}
         </ul>
       ) : null}
-      {plans.length === 0 ? (
-        <p className="muted">No saved plans yet.</p>
+      {own.length === 0 ? (
+        <p className="muted">{kept.length > 0 ? 'No plans saved by you yet; the page’s kept copies are below.' : 'No saved plans yet.'}</p>
       ) : (
         <ul className="saved-plans__list" aria-label="Saved plans">
-          {plans.map((p) => (
+          {own.map((p) => (
             <SavedRow key={p.id} saved={p} current={p.id === currentId} />
           ))}
         </ul>
       )}
+      {kept.length > 0 ? (
+        <section className="saved-plans__kept" aria-labelledby={`${id}-kept`}>
+          <div className="saved-plans__kept-head">
+            <h4 id={`${id}-kept`} className="saved-plans__kept-title">
+              Kept copies ({kept.length})
+            </h4>
+            <button type="button" className="button button--small button--danger" onClick={() => askDeleteAllKept(kept)}>
+              Delete all kept copies…
+            </button>
+          </div>
+          <p className="muted saved-plans__kept-lead">
+            Kept by the page before a link, a file, a saved plan or the demo replaced your work, so nothing was lost. An identical plan is kept once.
+          </p>
+          <ul className="saved-plans__list" aria-label="Kept copies">
+            {kept.map((p) => (
+              <SavedRow key={p.id} saved={p} current={p.id === currentId} />
+            ))}
+          </ul>
+        </section>
+      ) : null}
     </div>
   );
 }
@@ -106,6 +132,11 @@ function SavedRow({ saved, current }: { saved: SavedPlan; current: boolean }) {
         <button type="button" className="button button--small" onClick={() => duplicateSaved(saved)} aria-label={`Duplicate “${saved.name}”`}>
           Duplicate
         </button>
+        {saved.kept !== undefined ? (
+          <button type="button" className="button button--small" onClick={() => adoptKept(saved)} aria-label={`Move “${saved.name}” to my plans`}>
+            Move to my plans
+          </button>
+        ) : null}
         <button type="button" className="button button--small" onClick={() => setRenaming(saved.name)} aria-label={`Rename “${saved.name}”`}>
           Rename
         </button>

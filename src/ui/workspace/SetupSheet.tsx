@@ -4,6 +4,7 @@ import type { PlanFile } from '../../io/plan-file';
 import type { PlanResult, SensorPlanResult } from '../../physics';
 import { formatSignificant } from '../units/format-number';
 import { derivePlan } from '../planner/derive-plan';
+import { shownOutcomeFor } from '../planner/plan-engine';
 import { type Ladder, LADDERS, readText, type ShownLadders, temperatureText } from '../units/ladders';
 import { useShownLadders } from '../units/use-shown-ladders';
 import { useSekundoStore } from '../store';
@@ -100,7 +101,8 @@ function SetupSheetOverlay() {
 }
 
 export function SetupSheet({ plan, headingRef }: { plan: PlanFile; headingRef?: React.Ref<HTMLHeadingElement> }) {
-  const outcome = derivePlan(plan);
+  // The results the planner already shows for this plan, else computed here (printing another plan).
+  const outcome = shownOutcomeFor(plan) ?? derivePlan(plan);
   const printed = new Date().toISOString().slice(0, 16).replace('T', ' ');
   return (
     <article className="setup-sheet" aria-label="Setup sheet">

@@ -6,7 +6,7 @@
  * off) the page asks first.
  */
 import { type PlanFile, serializePlanFile } from '../../io/plan-file';
-import { listPlans, savePlan } from '../../io/workspace-storage';
+import { keepPlanCopy, listPlans } from '../../io/workspace-storage';
 import { downloadPlanFile } from '../planner/plan-file-actions';
 import { type PlannerSource, useSekundoStore } from '../store';
 import { refreshSavedPlans, workspaceKv } from './workspace-kv';
@@ -37,14 +37,15 @@ export type KeepOutcome = { kept: 'not needed' } | { kept: 'copy'; name: string 
 /**
  * Keeps the open plan somewhere durable before it is replaced: nothing to do when it is unchanged
  * since it came from a file, the demo or a saved plan, or when a saved plan holds the same plan;
- * otherwise a named copy in the saved plans ("<name> (kept <time>, before <reason>)").
+ * (compared by content: a copy already kept is not kept twice); otherwise a named copy in the
+ * saved plans ("<name> (kept <time>, before <reason>)"), marked as a kept copy.
  */
 export function keepOpenPlan(reason: string, now = new Date()): KeepOutcome {
   if (!openPlanIsOwnWork()) return { kept: 'not needed' };
   const plan = useSekundoStore.getState().plannerPlan;
   const twin = listPlans(workspaceKv()).plans.find((p) => sameText(p.plan, plan));
   if (twin) return { kept: 'saved', name: twin.name };
-  const result = savePlan(workspaceKv(), keptName(plan, reason, now), plan, undefined, now);
+  const result = keepPlanCopy(workspaceKv(), keptName(plan, reason, now), plan, `before ${reason}`, now);
   refreshSavedPlans();
   return result.ok ? { kept: 'copy', name: result.value.name } : { kept: 'failed', message: result.message };
 }

@@ -64,7 +64,7 @@ export function RehearseSection() {
           <HelpLabel htmlFor={pickerId} className="quantity-field__label" help={pickerHelp}>
             Picker
           </HelpLabel>
-          <select id={pickerId} className="select" value={options.picker} aria-describedby={pickerHelp.describedBy} onChange={(e) => set({ picker: e.target.value as PickerKind })}>
+          <select id={pickerId} className="plan-select" value={options.picker} aria-describedby={pickerHelp.describedBy} onChange={(e) => set({ picker: e.target.value as PickerKind })}>
             {PICKER_KINDS.map((k) => (
               <option key={k} value={k}>
                 {PICKER_NAMES[k]}
@@ -245,7 +245,7 @@ function RehearseChart({ result }: { result: RehearsalResult }) {
     >
       <div className="rehearse__chart-choice">
         <label htmlFor={selectId}>Sensor</label>
-        <select id={selectId} className="select" value={sensor.id} onChange={(e) => choose(e.target.value)}>
+        <select id={selectId} className="plan-select" value={sensor.id} onChange={(e) => choose(e.target.value)}>
           {result.sensors.map((s) => (
             <option key={s.id} value={s.id}>
               {s.id} — {s.label}

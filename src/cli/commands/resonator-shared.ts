@@ -17,15 +17,13 @@ import {
   type TangleGeometry,
   lineDensityGeometry,
   temperatureFromVapourPressure,
-  VAPOUR_PRESSURE_RANGE_PA,
-  VAPOUR_TEMPERATURE_RANGE_K,
 } from '../../physics';
 import { BASE_UNIT } from '../../io/quantity';
 import type { NumberFlag, ParsedArgs, QuantityArg, QuantityFlag, TextFlag } from '../args';
 import { UsageError } from '../errors';
 import { formatRange } from '../format';
 import { computeFor } from '../kernel-call';
-import { fromFile, readInputFile } from './convert-shared';
+import { fromFile, PRESSURE_FLAG as DELAY_PRESSURE_FLAG, readInputFile } from './convert-shared';
 
 export const GAP_FLAG: QuantityFlag = {
   kind: 'quantity',
@@ -68,13 +66,9 @@ export const TEMPERATURE_FLAG: QuantityFlag = {
   help: 'bath temperature T90: for B(T), and it chooses among the candidate temperatures',
 };
 
+/** `delay`'s --pressure (same range and unit), read here also as the temperature for B(T). */
 export const PRESSURE_FLAG: QuantityFlag = {
-  kind: 'quantity',
-  name: 'pressure',
-  dimension: 'pressure',
-  placeholder: 'p',
-  range: VAPOUR_PRESSURE_RANGE_PA,
-  rangeNote: `the vapour curve over ${formatRange(VAPOUR_TEMPERATURE_RANGE_K, 'K')}`,
+  ...DELAY_PRESSURE_FLAG,
   help: 'bath vapour pressure (ITS-90): the temperature for B(T), and it chooses among the candidates',
 };
 

@@ -129,6 +129,12 @@ test.describe('every screen size', () => {
           await open(page, stop.tabs);
           await page.screenshot({ path: `${ARTIFACTS}/${stop.id}-${viewport.width}-${theme.toLowerCase()}.png`, fullPage: true });
         }
+        // The header's units panel and a help panel open, in this theme.
+        await open(page, ['Helium properties']);
+        await page.getByRole('button', { name: /^Units/ }).click();
+        await page.getByRole('button', { name: 'Help: temperature' }).click({ force: true });
+        await page.screenshot({ path: `${ARTIFACTS}/units-and-help-${viewport.width}-${theme.toLowerCase()}.png` });
+        await page.keyboard.press('Escape');
       });
     }
   }

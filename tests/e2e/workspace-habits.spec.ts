@@ -222,30 +222,6 @@ test.describe('workspace habits', () => {
     await expect(page.getByRole('status', { name: 'Temperature in effect' })).toContainText('1.65');
   });
 
-  test('every view in both themes at 1280×720 (screenshots)', async ({ page }) => {
-    // Five views, two themes, two screenshots each: past the default minute on a busy machine.
-    test.setTimeout(150_000);
-    mkdirSync(ARTIFACTS, { recursive: true });
-    await page.goto('/');
-    for (const theme of ['light', 'dark'] as const) {
-      await themeOption(page, theme === 'light' ? 'Light' : 'Dark').click();
-      await expect(page.locator('html')).toHaveAttribute('data-theme', theme);
-      for (const view of VIEWS) {
-        await openTab(page, view.tab);
-        await waitForCharts(page);
-        await page.mouse.move(0, 0);
-        await page.evaluate(() => window.scrollTo(0, 0));
-        await page.screenshot({ path: `${ARTIFACTS}/theme-${theme}-${view.id}.png` });
-        await page.screenshot({ path: `${ARTIFACTS}/theme-${theme}-${view.id}-full.png`, fullPage: true });
-      }
-      await openTab(page, 'Helium properties');
-      await page.getByRole('button', { name: /^Units/ }).click();
-      await page.getByRole('button', { name: 'Help: temperature' }).click({ force: true });
-      await page.screenshot({ path: `${ARTIFACTS}/theme-${theme}-units-and-help.png` });
-      await page.keyboard.press('Escape');
-    }
-  });
-
   test('storage full for preferences: the page says so once and works on', async ({ page }) => {
     await page.addInitScript(() => {
       const setItem = Storage.prototype.setItem;

@@ -23,6 +23,25 @@ export interface CliIo {
    * stop writing. Absent: always ready.
    */
   ready?(): boolean | Promise<boolean>;
+  /**
+   * The open file descriptor a "-" operand reads; absent: 0, the process's own standard input.
+   * In-process runs (tests) give one of their own, so a "-" never waits on the test runner's input.
+   */
+  stdinFd?: number;
+}
+
+/** The descriptor "-" reads during the current run of main() (see CliIo.stdinFd). */
+let standardInputFd = 0;
+
+/** Runs `body` with "-" reading `fd` (absent: the process's standard input), then restores the previous one. */
+export async function withStandardInput<T>(fd: number | undefined, body: () => Promise<T>): Promise<T> {
+  const previous = standardInputFd;
+  standardInputFd = fd ?? 0;
+  try {
+    return await body();
+  } finally {
+    standardInputFd = previous;
+  }
 }
 
 /** Writers bound to the real process streams. */
@@ -85,7 +104,7 @@ export function readFileCapped(path: string, what: string, capBytes: number): Ui
   let fd: number;
   const own = path !== '-';
   try {
-    fd = own ? openSync(path, 'r') : 0;
+    fd = own ? openSync(path, 'r') : standardInputFd;
   } catch (error) {
     throw new UsageError(`cannot read ${what} "${shownPath(path)}": ${describeFileError(error)}`);
   }

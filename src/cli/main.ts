@@ -9,7 +9,7 @@ import type { Command } from './command';
 import { COMMAND_TABLE, loadAllCommands } from './commands/index';
 import { EXIT_INTERNAL, EXIT_OK, EXIT_USAGE, fieldOf, printableLine, UsageError } from './errors';
 import { renderCommandHelp, renderGeneralHelp } from './help';
-import { type CliIo, processIo } from './io';
+import { type CliIo, processIo, withStandardInput } from './io';
 import { packageVersion } from './version';
 
 const PROGRAM = 'sekundo';
@@ -22,7 +22,7 @@ const VERSION_FLAG = '--version';
 export async function main(argv: string[], io: CliIo = processIo): Promise<number> {
   const json = argv.includes('--json');
   try {
-    return await dispatch(argv, io);
+    return await withStandardInput(io.stdinFd, () => dispatch(argv, io));
   } catch (error) {
     if (error instanceof UsageError) {
       const message = printableLine(error.message);

@@ -1,3 +1,4 @@
+import { openSync } from 'node:fs';
 import { expect } from 'vitest';
 import type { CliIo } from '../../src/cli/io';
 import { main } from '../../src/cli/main';
@@ -9,11 +10,18 @@ export interface Run {
   stderr: string;
 }
 
-/** Runs main() in-process and collects what it writes. */
+/**
+ * Standard input of in-process runs: empty. The test runner's own input may be a socket that never
+ * ends, so a "-" operand or value read from it would block the whole worker.
+ */
+const EMPTY_STDIN = openSync('/dev/null', 'r');
+
+/** Runs main() in-process and collects what it writes; "-" reads an empty standard input. */
 export async function run(...argv: string[]): Promise<Run> {
   let stdout = '';
   let stderr = '';
   const io: CliIo = {
+    stdinFd: EMPTY_STDIN,
     stdout: (text) => {
       stdout += text;
     },

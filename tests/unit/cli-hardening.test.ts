@@ -5,11 +5,12 @@
  * time columns that count samples are refused. Expected behaviour is common practice, no source.
  */
 import { spawnSync } from 'node:child_process';
-import { mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { closeSync, mkdtempSync, openSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { MAX_ERROR_CHARS } from '../../src/cli/errors';
+import { main } from '../../src/cli/main';
 import { expectUsageError, run } from '../support/cli-harness';
 
 let dir = '';
@@ -109,6 +110,23 @@ describe('standard input and encodings', () => {
     const b = JSON.parse(named.stdout) as { source: unknown };
     expect(a.source).toEqual(b.source);
   }, 30_000);
+
+  it('in-process runs read "-" from the descriptor they are given, never from the runner\'s own input (which may never end)', async () => {
+    // The harness's empty standard input: refused as an empty file at once, not waited on.
+    const empty = expectUsageError(await run('locate', '-', '--temperature', '1.8K'));
+    expect(empty).toContain('standard input');
+    // A descriptor of a real file: read like the named file.
+    const fd = openSync('public/demo-locate.csv', 'r');
+    try {
+      let stdout = '';
+      const status = await main(['locate', '-', '--temperature', '1.8K', '--json'], { stdinFd: fd, stdout: (t) => (stdout += t), stderr: () => undefined });
+      expect(status).toBe(0);
+      const named = await run('locate', 'public/demo-locate.csv', '--temperature', '1.8K', '--json');
+      expect((JSON.parse(stdout) as { source: unknown }).source).toEqual((JSON.parse(named.stdout) as { source: unknown }).source);
+    } finally {
+      closeSync(fd);
+    }
+  });
 
   it('a UTF-16 plan file with a byte-order mark is read like a UTF-8 one', async () => {
     const bytes = new Uint8Array(2 + DEMO_PLAN.length * 2);

@@ -75,14 +75,7 @@ export type WatchChosenBy =
   | 'settled by a later pressure';
 
 /** A candidate as the series keeps it. */
-export interface WatchCandidate {
-  temperature_K: number;
-  sd_K: number;
-  lo95_K: number;
-  hi95_K: number;
-  branch: TemperatureCandidate['branch'];
-  kind: TemperatureCandidate['kind'];
-}
+export type WatchCandidate = Pick<TemperatureCandidate, 'temperature_K' | 'sd_K' | 'sdMeasurement_K' | 'sdCurve_K' | 'interval68_K' | 'interval95_K' | 'branch' | 'kind'>;
 
 export interface WatchRow {
   /** 0-based position in the series (arrival order). */
@@ -263,7 +256,16 @@ export class WatchSeries {
         full = conversion.candidates;
         row.speed_m_s = conversion.speed_m_s;
         row.speedSd_m_s = conversion.speedSd_m_s;
-        row.candidates = full.map((c) => ({ temperature_K: c.temperature_K, sd_K: c.sd_K, lo95_K: c.interval95_K[0], hi95_K: c.interval95_K[1], branch: c.branch, kind: c.kind }));
+        row.candidates = full.map((c) => ({
+          temperature_K: c.temperature_K,
+          sd_K: c.sd_K,
+          sdMeasurement_K: c.sdMeasurement_K,
+          sdCurve_K: c.sdCurve_K,
+          interval68_K: c.interval68_K,
+          interval95_K: c.interval95_K,
+          branch: c.branch,
+          kind: c.kind,
+        }));
         if (k.pick.snr < WATCH_LOW_SNR) row.warnings.push(`SNR ${Number(k.pick.snr.toPrecision(3))} is low: the pick may be noise, not the pulse.`);
         if (full.length === 0) row.problem = 'No temperature between 0.3 K and Tλ has this speed.';
       } catch (error) {

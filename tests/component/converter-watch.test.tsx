@@ -48,7 +48,7 @@ async function openWatch() {
 }
 
 function tableTemperatures(): string[] {
-  const table = screen.getByRole('table', { name: /Each file’s time, delay, chosen temperature and alarm/ });
+  const table = screen.getByRole('table', { name: /Each file’s time, delay, chosen temperature with its sd in parts, and alarm/ });
   return within(table)
     .getAllByRole('row')
     .slice(1)
@@ -131,13 +131,23 @@ describe('Follow a folder', () => {
     click.mockRestore();
     const lines = ((await blobs[0]?.text()) ?? '').trimEnd().split('\n');
     expect(lines[0]).toBe(
-      'order,file,time,time_from,time_header,pressure_Pa,delay_ms,delay_sd_ms,snr,speed_m_s,speed_sd_m_s,candidates,chosen,chosen_by,T_K,T_sd_K,T_lo95_K,T_hi95_K,alarm,warnings,problem',
+      'order,file,time,time_from,time_header,pressure_Pa,delay_ms,delay_sd_ms,snr,speed_m_s,speed_sd_m_s,candidates,chosen,chosen_by,T_K,T_sd_K,T_sd_meas_K,T_sd_curve_K,T_lo68_K,T_hi68_K,T_lo95_K,T_hi95_K,alarm,warnings,problem',
     );
     expect(lines.slice(1).map((l) => l.split(',').slice(0, 4).join(','))).toEqual([
       '1,shot-1.csv,2026-11-03T15:00:00.000Z,header',
       expect.stringMatching(/^2,shot-2\.csv,\d{4}-\d\d-\d\dT[\d:.]+Z,file modified$/),
       '3,shot-3.csv,2026-11-03T15:04:00.000Z,header',
     ]);
+    // The sd in its parts (measurement ⊕ u₂ curve = whole) and the intervals around T, as the trace lab's series export gives them.
+    const header = (lines[0] as string).split(',');
+    const first = (lines[1] as string).split(',');
+    const at = (name: string) => Number(first[header.indexOf(name)]);
+    expect(Math.abs(Math.hypot(at('T_sd_meas_K'), at('T_sd_curve_K')) / at('T_sd_K') - 1)).toBeLessThan(1e-3);
+    expect(at('T_sd_curve_K')).toBeGreaterThan(0);
+    expect(at('T_lo95_K')).toBeLessThan(at('T_lo68_K'));
+    expect(at('T_lo68_K')).toBeLessThan(at('T_K'));
+    expect(at('T_hi68_K')).toBeGreaterThan(at('T_K'));
+    expect(at('T_hi95_K')).toBeGreaterThan(at('T_hi68_K'));
   }, 30_000);
 
   it('a band alarm marks the chart, the table and the page title, and clears when the band is widened', async () => {

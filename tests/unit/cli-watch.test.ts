@@ -40,7 +40,11 @@ describe('sekundo watch --once', () => {
     const lines = result.stdout.trim().split('\n').map((l) => JSON.parse(l));
     expect(lines.map((l) => l.file)).toEqual(['shot-1.csv', 'shot-3.csv', 'shot-4.csv']);
     lines.forEach((l, i) => {
-      expect(Object.keys(l)).toEqual(['file', 'time', 'time_from', 'delay_s', 'delay_sd_s', 'temperature_K', 'sd_K', 'chosen_by', 'warnings']);
+      expect(Object.keys(l)).toEqual(['file', 'time', 'time_from', 'delay_s', 'delay_sd_s', 'temperature_K', 'sd_K', 'sd_meas_K', 'sd_curve_K', 'chosen_by', 'warnings']);
+      // The measurement's part and the u₂ curve's part, kept apart; together (in quadrature, to the
+      // spread's small second-order term) the whole sd.
+      expect(Math.abs(Math.hypot(l.sd_meas_K, l.sd_curve_K) / l.sd_K - 1)).toBeLessThan(1e-3);
+      expect(l.sd_curve_K).toBeGreaterThan(0);
       expect(l.temperature_K).toBeCloseTo(temps[i] as number, 1);
       expect(Math.abs(l.temperature_K - (temps[i] as number))).toBeLessThan(PICK_TOLERANCE_K);
       expect(l.sd_K).toBeGreaterThan(0);
@@ -63,10 +67,10 @@ describe('sekundo watch --once', () => {
     const result = await run('watch', dir, ...BASE, '--once');
     expect(result.status).toBe(0);
     const [header, ...rows] = result.stdout.trim().split('\n');
-    expect(header).toBe('file,time,time_from,delay_s,delay_sd_s,temperature_K,sd_K,chosen_by,warnings');
+    expect(header).toBe('file,time,time_from,delay_s,delay_sd_s,temperature_K,sd_K,sd_meas_K,sd_curve_K,chosen_by,warnings');
     expect(rows).toHaveLength(2);
     const cells = rows.map((r) => r.split(','));
-    expect(cells.map((c) => c[7])).toEqual(['vapour pressure in the file', 'continuity']);
+    expect(cells.map((c) => c[9])).toEqual(['vapour pressure in the file', 'continuity']);
     expect(Math.abs(Number(cells[0]?.[5]) - 1.8)).toBeLessThan(PICK_TOLERANCE_K);
     expect(result.stderr).toBe('sekundo: watch ended: 2 files read\n');
   });
@@ -76,7 +80,7 @@ describe('sekundo watch --once', () => {
     writeFileSync(join(dir, 'a.csv'), watchTraceText(1.86, '2026-11-03T15:00:00Z', 6));
     const result = await run('watch', dir, ...BASE, '--once', '--json');
     const line = JSON.parse(result.stdout.trim());
-    expect(line).toMatchObject({ temperature_K: null, sd_K: null, chosen_by: 'undecided' });
+    expect(line).toMatchObject({ temperature_K: null, sd_K: null, sd_meas_K: null, sd_curve_K: null, chosen_by: 'undecided' });
     expect(line.warnings.join(' ')).toMatch(/Undecided: 3 temperatures have this speed/);
   });
 

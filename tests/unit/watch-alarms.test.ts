@@ -20,7 +20,7 @@ function row(seq: number, minutes: number, T: number | null): WatchRow {
     snr: 30,
     speed_m_s: 20,
     speedSd_m_s: 0.001,
-    candidates: T === null ? [] : [{ temperature_K: T, sd_K: 1e-4, lo95_K: T - 2e-4, hi95_K: T + 2e-4, branch: 'high', kind: 'root' }],
+    candidates: T === null ? [] : [{ temperature_K: T, sd_K: 1e-4, sdMeasurement_K: 1e-4, sdCurve_K: 0, interval68_K: [T - 1e-4, T + 1e-4], interval95_K: [T - 2e-4, T + 2e-4], branch: 'high', kind: 'root' }],
     chosen: T === null ? null : 0,
     chosenBy: T === null ? null : 'continuity',
     ambiguous: null,

@@ -55,8 +55,8 @@ describe('WatchSeries', () => {
       const c = row.chosen === null ? undefined : row.candidates[row.chosen];
       if (!c) return;
       const T = temps[i] as number;
-      expect(T).toBeGreaterThanOrEqual(c.lo95_K - 1e-9);
-      expect(T).toBeLessThanOrEqual(c.hi95_K + 1e-9);
+      expect(T).toBeGreaterThanOrEqual(c.interval95_K[0] - 1e-9);
+      expect(T).toBeLessThanOrEqual(c.interval95_K[1] + 1e-9);
       if (row.chosenBy !== 'settled by a later pressure') expect(Math.abs(c.temperature_K - T)).toBeLessThan(1e-6);
     });
   });

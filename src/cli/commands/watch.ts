@@ -14,7 +14,7 @@ import { csvCell } from '../../io/csv-common';
 import type { FolderEntry, PollEvent } from '../../io/folder-poll';
 import { type FolderSource, FolderPoller, followFolder, realSleep, WATCH_INTERVAL_RANGE_MS } from '../../io/folder-watch';
 import { pickTraceArrival } from '../../io/trace-pick';
-import { chosenTemperature, type WatchPick, type WatchRow, WatchSeries } from '../../io/watch-series';
+import { type WatchPick, type WatchRow, WatchSeries } from '../../io/watch-series';
 import { compileWatchPattern, DEFAULT_WATCH_PATTERN, WatchPatternError } from '../../io/watch-pattern';
 import { DELAY_LIMITS, requireInRange } from '../../physics';
 import { type BooleanFlag, type OperandSpec, type QuantityFlag, requireQuantity, type TextFlag } from '../args';
@@ -58,7 +58,7 @@ const INTERVAL_FLAG: QuantityFlag = {
 const ONCE_FLAG: BooleanFlag = { kind: 'boolean', name: 'once', help: 'read the files there now (two looks, one --interval apart) and stop' };
 
 /** Columns of the CSV lines, in order (the JSON objects use the same names). */
-export const WATCH_COLUMNS = ['file', 'time', 'time_from', 'delay_s', 'delay_sd_s', 'temperature_K', 'sd_K', 'chosen_by', 'warnings'] as const;
+export const WATCH_COLUMNS = ['file', 'time', 'time_from', 'delay_s', 'delay_sd_s', 'temperature_K', 'sd_K', 'sd_meas_K', 'sd_curve_K', 'chosen_by', 'warnings'] as const;
 
 /** One printed line of `watch --json`. */
 export interface WatchLineJson {
@@ -69,14 +69,19 @@ export interface WatchLineJson {
   delay_s: number | null;
   delay_sd_s: number | null;
   temperature_K: number | null;
+  /** The whole sd: the measurement's part and the u₂ curve's part in quadrature. */
   sd_K: number | null;
+  /** The measurement's part (distance, timing, offset): what limits a change between files. */
+  sd_meas_K: number | null;
+  /** The u₂ curve's part: the same for every file at this temperature. */
+  sd_curve_K: number | null;
   chosen_by: string | null;
   warnings: string[];
 }
 
 /** The line's fields for a row of the series. */
 export function watchLine(row: WatchRow): WatchLineJson {
-  const { temperature_K, sd_K } = chosenTemperature(row);
+  const chosen = row.chosen === null ? undefined : row.candidates[row.chosen];
   const warnings = row.problem ? [row.problem, ...row.warnings] : [...row.warnings];
   let chosenBy: string | null = row.chosenBy;
   if (row.ambiguous) chosenBy = 'undecided past a turn of u2';
@@ -87,15 +92,17 @@ export function watchLine(row: WatchRow): WatchLineJson {
     time_from: row.timeFrom,
     delay_s: row.delay_s,
     delay_sd_s: row.delaySd_s,
-    temperature_K,
-    sd_K,
+    temperature_K: chosen?.temperature_K ?? null,
+    sd_K: chosen?.sd_K ?? null,
+    sd_meas_K: chosen?.sdMeasurement_K ?? null,
+    sd_curve_K: chosen?.sdCurve_K ?? null,
     chosen_by: chosenBy,
     warnings,
   };
 }
 
 function csvLine(line: WatchLineJson): string {
-  return [line.file, line.time, line.time_from, line.delay_s, line.delay_sd_s, line.temperature_K, line.sd_K, line.chosen_by, line.warnings.join(' | ')].map(csvCell).join(',');
+  return WATCH_COLUMNS.map((name) => (name === 'warnings' ? line.warnings.join(' | ') : line[name])).map(csvCell).join(',');
 }
 
 /** The folder through node's fs: regular files only (symbolic links followed); files gone meanwhile are skipped. */
@@ -125,7 +132,9 @@ export const watchCommand: Command = {
   description:
     'Follows a folder that an oscilloscope or digitiser fills with trace files (CSV, as "sekundo trace" reads) and prints ' +
     `one line per new file as it arrives: CSV with the columns ${WATCH_COLUMNS.join(', ')} (a header line first), or with --json one ` +
-    'JSON object per line with the same names. A file is read only once its size and modification time are the same in two looks ' +
+    'JSON object per line with the same names. sd_K is the whole sd of the temperature; sd_meas_K its measurement part (distance, ' +
+    "timing, offset: what limits a change between files) and sd_curve_K the u2 curve's own part (the same for every file at that temperature). " +
+    'A file is read only once its size and modification time are the same in two looks ' +
     'at the folder (--interval apart), so a file still being written waits; a file that grows after it was read is read again; a ' +
     'renamed file is not read twice; files that vanish are skipped. Each file is picked with the picker flags of "sekundo trace" and ' +
     'converted with --distance, --offset and their sds. The first file with several candidates is decided by --pressure or --near ' +

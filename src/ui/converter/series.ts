@@ -23,6 +23,7 @@ import {
 import { candidateFlags } from './candidate-notes';
 import { sentence } from './converter-checks';
 import { type UnitViews, csvColumn, inViewUnit } from '../units/unit-views';
+import { readingCells, readingHeader } from './reading-columns';
 
 export interface Timestamp {
   text: string;
@@ -168,7 +169,7 @@ const MAX_CANDIDATES = 3;
 
 /** The series as a table: one row per file in series order; numbers in full precision, in the display units. */
 export function seriesTable(rows: readonly SeriesRow[], units: UnitViews): { header: string[]; rows: CsvCell[][] } {
-  const { temperature, time, pressure } = units;
+  const { temperature, pressure } = units;
   const header = [
     'order',
     'file',
@@ -177,24 +178,13 @@ export function seriesTable(rows: readonly SeriesRow[], units: UnitViews): { hea
     'sensor',
     'heater',
     'picker',
-    csvColumn('delay', time),
-    csvColumn('delay_sd', time),
-    'snr',
-    'speed_m_s',
-    'speed_sd_m_s',
-    'candidates',
-    'chosen',
-    'chosen_by',
-    csvColumn('T', temperature),
-    csvColumn('T_sd', temperature),
-    ...['T_sd_meas', 'T_sd_curve', 'T_lo68', 'T_hi68', 'T_lo95', 'T_hi95'].map((name) => csvColumn(name, temperature)),
+    ...readingHeader(units),
     'alternatives',
     'guess',
   ];
   for (let i = 1; i <= MAX_CANDIDATES; i++) header.push(csvColumn(`T${i}`, temperature), csvColumn(`T${i}_sd`, temperature), `T${i}_branch`, `T${i}_note`);
   header.push('problem');
   const body = rows.map((r, k): CsvCell[] => {
-    const c = chosenOf(r);
     const cells: CsvCell[] = [
       k + 1,
       r.file.name,
@@ -203,22 +193,20 @@ export function seriesTable(rows: readonly SeriesRow[], units: UnitViews): { hea
       r.pick?.sensor ?? '',
       r.pick?.heater ?? '',
       r.pick?.picker ?? '',
-      inViewUnit(r.pick?.delay_s, time),
-      inViewUnit(r.pick?.delaySd_s, time),
-      r.pick?.snr,
-      r.conversion?.speed_m_s,
-      r.conversion?.speedSd_m_s,
-      r.conversion ? r.conversion.candidates.length : null,
-      r.chosen === null ? null : r.chosen + 1,
-      r.chosenBy ?? '',
-      inViewUnit(c?.temperature_K, temperature),
-      inViewUnit(c?.sd_K, temperature),
-      inViewUnit(c?.sdMeasurement_K, temperature),
-      inViewUnit(c?.sdCurve_K, temperature),
-      inViewUnit(c?.interval68_K[0], temperature),
-      inViewUnit(c?.interval68_K[1], temperature),
-      inViewUnit(c?.interval95_K[0], temperature),
-      inViewUnit(c?.interval95_K[1], temperature),
+      ...readingCells(
+        {
+          delay_s: r.pick?.delay_s,
+          delaySd_s: r.pick?.delaySd_s,
+          snr: r.pick?.snr,
+          speed_m_s: r.conversion?.speed_m_s,
+          speedSd_m_s: r.conversion?.speedSd_m_s,
+          candidates: r.conversion ? r.conversion.candidates.length : null,
+          chosen: r.chosen,
+          chosenBy: r.chosenBy ?? '',
+          temperature: chosenOf(r),
+        },
+        units,
+      ),
       r.ambiguous ? `${r.ambiguous.alternatives[0] + 1} ${r.ambiguous.alternatives[1] + 1}` : '',
       r.ambiguous ? r.ambiguous.guess + 1 : null,
     ];

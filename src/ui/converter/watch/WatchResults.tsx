@@ -6,6 +6,7 @@ import { usePagedRows } from '../../layout/TablePager';
 import { useElementWidth } from '../../layout/use-element-width';
 import { PlotlyChart } from '../../plot/PlotlyChart';
 import { useSekundoStore } from '../../store';
+import { LADDERS, readText } from '../../units/ladders';
 import { currentUnitViews, temperatureOnY, useUnitViews } from '../../units/unit-views';
 import { tableExport } from '../export-text';
 import { ResultActions } from '../ResultActions';
@@ -116,6 +117,7 @@ function LiveTable({ rows }: { rows: readonly WatchRow[] }) {
   const headingId = useId();
   const alarms = useWatchAlarms();
   const { temperature, time } = useUnitViews();
+  const sdText = (K: number) => readText(K, LADDERS.temperatureDifference, 2);
   const { start, end, pager } = usePagedRows(rows.length);
   // Newest first: page 1 holds the latest files.
   const shown = [];
@@ -127,7 +129,7 @@ function LiveTable({ rows }: { rows: readonly WatchRow[] }) {
       </h2>
       <div className="table-scroll batch-table-scroll">
         <table className="properties-table batch-table watch-table">
-          <caption className="visually-hidden">Each file’s time, delay, chosen temperature and alarm</caption>
+          <caption className="visually-hidden">Each file’s time, delay, chosen temperature with its sd in parts, and alarm</caption>
           <thead>
             <tr>
               <th scope="col">#</th>
@@ -139,6 +141,9 @@ function LiveTable({ rows }: { rows: readonly WatchRow[] }) {
               <th scope="col" className="num as-written">
                 T ± sd ({temperature.shown})
               </th>
+              <th scope="col" className="num" title="The sd in its two parts: the measurement's (distance, timing, offset — what limits a change between files) and the u₂ curve's own (the same for every file at this temperature)">
+                measurement / u₂ curve
+              </th>
               <th scope="col">Chosen by</th>
               <th scope="col">Alarm</th>
               <th scope="col">Notes</th>
@@ -147,7 +152,7 @@ function LiveTable({ rows }: { rows: readonly WatchRow[] }) {
           <tbody>
             {shown.map((r) => {
               const marks = alarms.marks.get(r.seq);
-              const { temperature_K, sd_K } = chosenTemperature(r);
+              const c = r.chosen === null ? undefined : r.candidates[r.chosen];
               const crossing = marks?.some((m) => m.crossing) ?? false;
               return (
                 <tr key={r.seq} className={marks ? (crossing ? 'watch-row--crossing' : 'watch-row--alarm') : undefined}>
@@ -158,7 +163,8 @@ function LiveTable({ rows }: { rows: readonly WatchRow[] }) {
                     {r.timeFrom === 'file modified' ? <span className="muted"> (file time)</span> : null}
                   </td>
                   <td className="num">{r.delay_s === null ? '' : time.measured(r.delay_s, r.delaySd_s).text}</td>
-                  <td className="num">{temperature_K === null ? '—' : temperature.measured(temperature_K, sd_K).text}</td>
+                  <td className="num">{c ? temperature.measured(c.temperature_K, c.sd_K).text : '—'}</td>
+                  <td className="num uncertainty">{c ? `${sdText(c.sdMeasurement_K)} / ${sdText(c.sdCurve_K)}` : ''}</td>
                   <td>{chosenByText(r)}</td>
                   <td className={marks ? 'watch-alarm-cell' : undefined}>{alarmText(marks)}</td>
                   <td className="watch-notes">{[r.problem, ...r.warnings].filter(Boolean).join(' ')}</td>

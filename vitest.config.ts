@@ -28,8 +28,10 @@ export default defineConfig({
           environment: 'jsdom',
           include: ['tests/component/**/*.test.tsx'],
           setupFiles: ['tests/component/setup.ts'],
-          // jsdom renders whole views; on a busy 2-core machine one test can take several seconds.
-          testTimeout: 30_000,
+          // jsdom renders whole views; on a busy 2-core machine one test can take 20 s and more. The
+          // timeout guards against a hang, never against slowness (speed is measured in benchmarks),
+          // so files do not set shorter ones.
+          testTimeout: 60_000,
           benchmark: { include: [] },
         },
       },

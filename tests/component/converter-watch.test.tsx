@@ -83,7 +83,7 @@ describe('Follow a folder', () => {
     expect(within(notRead).getByText('shot-2.csv')).toBeInTheDocument();
     expect(notRead).toHaveTextContent(/no data rows|time column|not a trace/i);
     await waitFor(() => expect(lastDraw('watch-live')?.data.find((t) => t.name === WATCH_TRACE)?.y).toHaveLength(2));
-  }, 15_000);
+  });
 
   it('follows a picked folder: reads a file once its size settles, not while it grows; pauses and resumes; exports the series', async () => {
     const folder = new FakeFolder();
@@ -197,5 +197,5 @@ describe('Follow a folder', () => {
     await user.type(distance, '50.5{Enter}');
     await waitFor(() => expect(tableTemperatures()[0]).not.toBe(before));
     expect(tableTemperatures()).toHaveLength(1);
-  }, 20_000);
+  });
 });

@@ -6,7 +6,7 @@ import { arrivalsFrom, openLocate } from './locate-helpers';
 const U2 = secondSound(1.8);
 const LINE: Vec3[] = [0, 1, 2, 3, 4, 5].map((i) => [0.04 * i - 0.1, 0, 0]);
 
-describe('locate view: a layout that cannot fix the source says so', { timeout: 20_000 }, () => {
+describe('locate view: a layout that cannot fix the source says so', () => {
   it('sensors on a line: a plain message, no uncertainties, no ellipses', async () => {
     await openLocate(arrivalsFrom([0.02, 0.05, 0.03], LINE, U2));
     const message = screen.getByText('This layout cannot fix the source.').closest('[role="status"]') as HTMLElement;

@@ -5,7 +5,7 @@ import { DEMO_SENSORS, drawnSource, openLocate, shownSource, store } from './loc
 
 const residualRow = (label: string) => within(screen.getByRole('table', { name: 'Residual of each sensor' })).queryByRole('row', { name: new RegExp(`^${label} `) });
 
-describe('locate view: editing moves the result', { timeout: 20_000 }, () => {
+describe('locate view: editing moves the result', () => {
   it('opens on the demo: the source near the equator of the invented cell, with 1σ and 2σ ellipses in both projections', async () => {
     await openLocate();
     const [x, y, z] = shownSource().map((t) => Number(t.replace('\u2212', '-')));

@@ -65,7 +65,7 @@ async function openTraces(text: string, name = 'shot.csv') {
 
 const applyButton = () => screen.getByRole('button', { name: 'Use these arrivals' });
 
-describe('locate view: arrival times from traces', { timeout: 30_000 }, () => {
+describe('locate view: arrival times from traces', () => {
   it('matches channels to sensors by name whatever the case, and lets a channel go to another sensor or none', async () => {
     const ta = { u0: 6e-3, U90: 7e-3, L45: 8e-3 };
     const { user } = await openTraces(

@@ -6,7 +6,7 @@ import { openPlanner, retype, store, shown } from './planner-helpers';
  * shown as "10 mm" means 30 mm (not 30 m); 5 into a field shown in W/cm² means 5 W/cm² (not
  * 5 W/m²). A number with a unit keeps its own unit. Unit factors: SI prefixes (1 W/cm² = 10⁴ W/m²).
  */
-describe('planner: a bare number is in the unit the field shows', { timeout: 30_000 }, () => {
+describe('planner: a bare number is in the unit the field shows', () => {
   it('30 in a distance shown in mm is 30 mm', async () => {
     const { user } = await openPlanner();
     expect(shown('Sensor 1 distance')).toBe('10 mm');

@@ -6,7 +6,7 @@ import { openPlanner, repaste, retype, store, shown } from './planner-helpers';
 
 const heater = () => store().plannerPlan.heater;
 
-describe('planner editors', { timeout: 20_000 }, () => {
+describe('planner editors', () => {
   it('applies a typed value with units as the user types, and the results follow', async () => {
     const { user } = await openPlanner();
     const drawsBefore = lastDraw('planner-timeline');

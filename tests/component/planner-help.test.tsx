@@ -36,7 +36,7 @@ async function showOtherInputs(user: User) {
   await user.selectOptions(screen.getByRole('combobox', { name: 'Pulse shape' }), 'custom');
 }
 
-describe('planner help', { timeout: 30_000 }, () => {
+describe('planner help', () => {
   it('describes every input of the demo plan with its help', async () => {
     await openPlanner();
     expectAllHelped();

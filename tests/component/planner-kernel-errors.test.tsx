@@ -25,7 +25,7 @@ async function freshPage() {
   return { ...helpers, BUILT_IN_PLAN };
 }
 
-describe('kernel errors in the planner', { timeout: 20_000 }, () => {
+describe('kernel errors in the planner', () => {
   // The plan-file schema and the kernel's input check run on every keystroke; the plan itself is
   // computed after (in the plan worker in the browser), so a value only the computation refuses is
   // taken into the plan and the results give way to the kernel's message, naming the field.

@@ -4,7 +4,7 @@ import { serializePlanFile } from '../../src/io/plan-file';
 import { BUILT_IN_PLAN } from '../../src/ui/planner/default-plan';
 import { demoPlan, openPlanner, store } from './planner-helpers';
 
-describe('loading plans', { timeout: 20_000 }, () => {
+describe('loading plans', () => {
   it('starts from the built-in plan, and says so, when the demo is missing', async () => {
     await openPlanner('missing');
     expect(store().plannerPlan).toBe(BUILT_IN_PLAN);

@@ -77,7 +77,7 @@ describe('resolution map', () => {
     expect(data.find((t) => t.name === 'Planned')?.x).toEqual([1.8]);
   });
 
-  it('is drawn on the page for the chosen sensor, and follows the choice', { timeout: 20_000 }, async () => {
+  it('is drawn on the page for the chosen sensor, and follows the choice', async () => {
     const { user } = await openPlanner();
     await waitFor(() => expect(lastDraw('planner-resolution-map')).toBeDefined());
     const planned = () => lastDraw('planner-resolution-map')?.data.find((t) => t.name === 'Planned')?.y[0];

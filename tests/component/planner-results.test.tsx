@@ -5,7 +5,7 @@ import { formatSignificant } from '../../src/ui/units/format-number';
 import { inUnit, LADDERS, unitForColumn } from '../../src/ui/units/ladders';
 import { demoPlan, openPlanner, store } from './planner-helpers';
 
-describe('planner results for the demo plan', { timeout: 20_000 }, () => {
+describe('planner results for the demo plan', () => {
   it('opens the demo plan by default', async () => {
     const { fetchMock } = await openPlanner();
     expect(fetchMock).toHaveBeenCalledWith('./demo-plan.json');

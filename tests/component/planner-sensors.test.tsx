@@ -6,7 +6,7 @@ const sensors = () => store().plannerPlan.sensors;
 const resultRows = () => within(screen.getByRole('table', { name: /predicted arrivals/i })).getAllByRole('row').slice(1);
 const sensorTraces = () => lastDraw('planner-timeline')?.data.filter((t) => t.legendgroup !== undefined && !t.legendgroup.startsWith('arrivals-')) ?? [];
 
-describe('planner sensors', { timeout: 20_000 }, () => {
+describe('planner sensors', () => {
   it('adds a sensor beyond the farthest one; the results table and the timeline follow', async () => {
     const { user } = await openPlanner();
     expect(resultRows()).toHaveLength(4);

@@ -11,7 +11,7 @@ import { demoPlan, field, openPlanner, repaste, retype, store, shown } from './p
  * changes when only the unit does. Unit factors: SI prefixes and 1 torr = 101325/760 Pa (the
  * definition of the torr).
  */
-describe('planner in the chosen display units', { timeout: 30_000 }, () => {
+describe('planner in the chosen display units', () => {
   function choose(...pairs: Parameters<ReturnType<typeof store>['setDisplayUnit']>[]) {
     act(() => {
       for (const [kind, unit] of pairs) store().setDisplayUnit(kind, unit);

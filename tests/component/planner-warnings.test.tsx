@@ -15,7 +15,7 @@ async function replaceText(user: Awaited<ReturnType<typeof openPlanner>>['user']
   await user.paste(text);
 }
 
-describe('planner warnings', { timeout: 20_000 }, () => {
+describe('planner warnings', () => {
   it('warns of an echo overlapping the pulse when a sensor moves close to the lid', async () => {
     const { user } = await openPlanner();
     expect(warningItems('echo-overlap')).toHaveLength(0);

@@ -53,7 +53,7 @@ export function CandidatesTable({ candidates, rule, choice, caption }: Candidate
             <th scope="col" className="num">
               sd
             </th>
-            <th scope="col" className="num" title="The sd in its two parts: the measurement's (distance, timing, offset — what limits a change between readings) and the u₂ curve's own (the same for every reading)">
+            <th scope="col" className="num as-written" title="The sd in its two parts: the measurement's (distance, timing, offset — what limits a change between readings) and the u₂ curve's own (the same for every reading)">
               measurement / u₂ curve
             </th>
             <th scope="col" className="num" title="Every temperature whose u₂ lies within 1 σ (68 %) or 1.96 σ (95 %) of the speed, on this candidate's stretch of the curve">

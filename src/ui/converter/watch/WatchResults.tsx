@@ -141,7 +141,7 @@ function LiveTable({ rows }: { rows: readonly WatchRow[] }) {
               <th scope="col" className="num as-written">
                 T ± sd ({temperature.shown})
               </th>
-              <th scope="col" className="num" title="The sd in its two parts: the measurement's (distance, timing, offset — what limits a change between files) and the u₂ curve's own (the same for every file at this temperature)">
+              <th scope="col" className="num as-written" title="The sd in its two parts: the measurement's (distance, timing, offset — what limits a change between files) and the u₂ curve's own (the same for every file at this temperature)">
                 measurement / u₂ curve
               </th>
               <th scope="col">Chosen by</th>

@@ -41,6 +41,23 @@ function sidewaysOverflow(page: Page) {
   });
 }
 
+/**
+ * Text set in capitals by the style sheet that holds a symbol or a unit, whose case is its meaning
+ * (u₂ is not U₂, µs is not ΜS, mK is not MK): there should be none.
+ */
+function symbolsInCapitals(page: Page) {
+  return page.evaluate(() => {
+    const symbol = /[µμ\u2080-\u2089λκΔδσ]|(?<!\w)(mK|ms|mm|Hz|kHz|Pa|mbar|W\/cm²|m\/s|df\/dT)(?!\w)/;
+    const found: string[] = [];
+    for (const el of document.querySelectorAll<HTMLElement>('body *')) {
+      if (getComputedStyle(el).textTransform !== 'uppercase' || el.offsetParent === null) continue;
+      const own = [...el.childNodes].filter((n) => n.nodeType === Node.TEXT_NODE).map((n) => n.textContent ?? '').join('');
+      if (symbol.test(own)) found.push(own.trim());
+    }
+    return found;
+  });
+}
+
 /** The widest elements that stick out past the window and are not inside a scrolling frame: named in a failure. */
 function culprits(page: Page) {
   return page.evaluate(() => {
@@ -84,7 +101,10 @@ test.describe('every screen size', () => {
         // The chosen view's tab is in sight inside its strip.
         const viewTab = page.getByRole('tablist', { name: 'Sekundo views' }).getByRole('tab', { selected: true });
         await expect(viewTab).toBeInViewport({ ratio: 0.9 });
-        if (viewport.width === 390) await page.screenshot({ path: `${ARTIFACTS}/${stop.id}-390x844.png` });
+        if (viewport.width === 390) {
+          await page.screenshot({ path: `${ARTIFACTS}/${stop.id}-390x844.png` });
+          expect(await symbolsInCapitals(page), `${stop.id}: symbols or units set in capitals`).toEqual([]);
+        }
       }
       // The display-units panel opens inside the window.
       await page.getByRole('button', { name: /^Units/ }).click();

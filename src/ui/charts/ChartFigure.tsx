@@ -1,5 +1,6 @@
 import type { ReactNode } from 'react';
 import { PanelErrorBoundary } from '../layout/PanelErrorBoundary';
+import { symbolCase } from '../layout/symbol-case';
 
 interface ChartFigureProps {
   id: string;
@@ -15,7 +16,7 @@ export function ChartFigure({ id, title, caption, children }: ChartFigureProps) 
   return (
     <figure className="card chart-card" aria-labelledby={titleId}>
       <h3 id={titleId} className="card-title">
-        {title}
+        {symbolCase(title)}
       </h3>
       <PanelErrorBoundary panel={`“${title}” chart`}>{children}</PanelErrorBoundary>
       <figcaption className="chart-caption">{caption}</figcaption>

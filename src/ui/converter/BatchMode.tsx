@@ -223,11 +223,11 @@ function BatchTable({ results, units }: { results: DelayBatchResults; units: Uni
           <tr>
             <th scope="col">Line</th>
             {batch.hasTimestamp ? <th scope="col">Timestamp</th> : null}
-            <th scope="col" className="num as-written">
+            <th scope="col" className="num">
               Delay ({time.shown})
             </th>
             {batch.hasPressure ? (
-              <th scope="col" className="num as-written">
+              <th scope="col" className="num">
                 Pressure ({pressure.shown})
               </th>
             ) : null}

@@ -53,7 +53,7 @@ export function CandidatesTable({ candidates, rule, choice, caption }: Candidate
             <th scope="col" className="num">
               sd
             </th>
-            <th scope="col" className="num as-written" title="The sd in its two parts: the measurement's (distance, timing, offset — what limits a change between readings) and the u₂ curve's own (the same for every reading)">
+            <th scope="col" className="num" title="The sd in its two parts: the measurement's (distance, timing, offset — what limits a change between readings) and the u₂ curve's own (the same for every reading)">
               measurement / u₂ curve
             </th>
             <th scope="col" className="num" title="Every temperature whose u₂ lies within 1 σ (68 %) or 1.96 σ (95 %) of the speed, on this candidate's stretch of the curve">
@@ -62,12 +62,12 @@ export function CandidatesTable({ candidates, rule, choice, caption }: Candidate
             <th scope="col" className="num" title="How far the candidate lies from the evidence (the vapour-pressure or expected temperature), in sd">
               From evidence
             </th>
-            <th scope="col" className="num as-written">
+            <th scope="col" className="num">
               du₂/dT (m/s/K)
             </th>
             <th
               scope="col"
-              className="as-written"
+             
               title="Branch of u₂(T): low (below the minimum near 1.12 K), middle (between the extrema), high (above the maximum near 1.65 K)"
             >
               Branch of u₂

@@ -9,6 +9,7 @@ import type { Chosen } from './reading-results';
 import type { ExportContent } from './export-text';
 import { ResultActions } from './ResultActions';
 import { SpeedChart } from './SpeedChart';
+import { symbolCase } from '../layout/symbol-case';
 
 interface ConversionResultProps {
   /** Heading of the result card. */
@@ -41,7 +42,7 @@ export function ConversionResult({ title, chartId, speed_m_s, speedSd_m_s, speed
       <section className="card converter-card result-card" aria-labelledby={headingId}>
         <div className="card-head">
           <h2 id={headingId} className="card-title">
-            {title}
+            {symbolCase(title)}
           </h2>
           <ResultActions what="result" content={exportContent} />
         </div>

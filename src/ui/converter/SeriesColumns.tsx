@@ -14,20 +14,20 @@ export function candidateList(candidates: readonly TemperatureCandidate[], tempe
 export function SeriesHeads({ temperature }: { temperature: TemperatureView }) {
   return (
     <>
-      <th scope="col" className="num as-written">
+      <th scope="col" className="num">
         Speed (m/s)
       </th>
-      <th scope="col" className="num as-written">
+      <th scope="col" className="num">
         T ({temperature.shown})
       </th>
-      <th scope="col" className="num as-written">
+      <th scope="col" className="num">
         sd ({temperature.shown})
       </th>
-      <th scope="col" className="num as-written" title="Every temperature whose u₂ lies within 1.96 σ of the speed, on the chosen candidate's stretch of the curve">
+      <th scope="col" className="num" title="Every temperature whose u₂ lies within 1.96 σ of the speed, on the chosen candidate's stretch of the curve">
         95 % interval ({temperature.shown})
       </th>
       <th scope="col">Chosen by</th>
-      <th scope="col" className="as-written">
+      <th scope="col">
         All candidates ({temperature.shown})
       </th>
     </>

@@ -3,6 +3,7 @@ import { QuantityField } from '../fields/QuantityField';
 import { useSekundoStore } from '../store';
 import { type ConverterFieldKey, converterFieldKey } from './converter-fields';
 import { useConverterField } from './use-converter-field';
+import { symbolCase } from '../layout/symbol-case';
 
 export type SetupPair = 'distance' | 'delay' | 'delaySd' | 'offset';
 
@@ -41,7 +42,7 @@ export function SetupCard({ title, pairs, lead, submitLabel = 'Apply', children 
   return (
     <section className="card converter-card" aria-labelledby={headingId}>
       <h2 id={headingId} className="card-title">
-        {title}
+        {symbolCase(title)}
       </h2>
       {lead ? <p className="muted converter-card__lead">{lead}</p> : null}
       <form className="setup-form" onSubmit={submit} noValidate>

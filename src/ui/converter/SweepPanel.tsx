@@ -18,6 +18,7 @@ import { sweepCalibration } from './reading-results';
 import { ResultActions } from './ResultActions';
 import { readSweepText } from './table-input';
 import { useFieldValues } from './use-converter';
+import { symbolCase } from '../layout/symbol-case';
 
 const SWEEP_UNITS: readonly Unit[] = ['ms', 'µs', 's'];
 
@@ -74,7 +75,7 @@ export function SweepInput() {
   return (
     <section className="card converter-card" aria-labelledby={headingId}>
       <h2 id={headingId} className="card-title">
-        Path length from a sweep through {maximumAt}
+        Path length from a sweep through {symbolCase(maximumAt)}
       </h2>
       <p className="muted converter-card__lead">
         Let the bath drift through the u₂ maximum ({formatSignificant(SECOND_SOUND_EXTREMA.maximum.speed_m_s)} m/s near{' '}

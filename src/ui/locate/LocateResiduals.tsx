@@ -50,10 +50,10 @@ export function LocateResiduals() {
                 <tr>
                   <th scope="col">Sensor</th>
                   <th scope="col" className="num">
-                    Predicted <span className="unit-as-written">({time.shown})</span>
+                    Predicted ({time.shown})
                   </th>
                   <th scope="col" className="num">
-                    Residual <span className="unit-as-written">(µs)</span>
+                    Residual (µs)
                   </th>
                   <th scope="col" className="num">
                     in σ

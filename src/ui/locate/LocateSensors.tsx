@@ -62,14 +62,14 @@ export function LocateSensors() {
           <thead>
             <tr>
               <HelpColumnHead help={labelHelp}>Label</HelpColumnHead>
-              <HelpColumnHead help={positionHelp}>x <span className="unit-as-written">({length.shown})</span></HelpColumnHead>
+              <HelpColumnHead help={positionHelp}>x ({length.shown})</HelpColumnHead>
               <th scope="col">
-                y <span className="unit-as-written">({length.shown})</span>
+                y ({length.shown})
               </th>
               <th scope="col">
-                z <span className="unit-as-written">({length.shown})</span>
+                z ({length.shown})
               </th>
-              <HelpColumnHead help={arrivalHelp}>Arrival <span className="unit-as-written">({time.shown})</span></HelpColumnHead>
+              <HelpColumnHead help={arrivalHelp}>Arrival ({time.shown})</HelpColumnHead>
               <HelpColumnHead help={sdHelp}>Timing sd</HelpColumnHead>
               <th scope="col">
                 <span className="visually-hidden">Actions</span>

@@ -78,7 +78,7 @@ export function LocateSummary() {
               <th scope="col" className="locate-position__axis" />
               {AXIS_NAMES.map((n) => (
                 <th key={n} scope="col" className="locate-position__axis">
-                  {n} <span className="unit-as-written">({length.shown})</span>
+                  {n} ({length.shown})
                 </th>
               ))}
             </tr>

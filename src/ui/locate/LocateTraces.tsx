@@ -188,10 +188,10 @@ function ChannelTable({ matches, picks }: { matches: readonly ChannelMatch[]; pi
               <th scope="col">Channel</th>
               <HelpColumnHead help={channelHelp}>Sensor</HelpColumnHead>
               <th scope="col" className="num">
-                Arrival <span className="unit-as-written">({time.shown})</span>
+                Arrival ({time.shown})
               </th>
               <th scope="col" className="num">
-                ± sd <span className="unit-as-written">(µs)</span>
+                ± sd (µs)
               </th>
               <th scope="col" className="num">
                 Peak/noise

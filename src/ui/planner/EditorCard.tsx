@@ -1,6 +1,7 @@
 import type { ReactNode } from 'react';
 import { type HelpTopic, useFieldHelp } from '../help/FieldHelp';
 import { PanelErrorBoundary } from '../layout/PanelErrorBoundary';
+import { symbolCase } from '../layout/symbol-case';
 
 /** A titled group of plan inputs in its own error boundary. */
 export function EditorCard({ id, title, children, aside }: { id: string; title: string; children: ReactNode; aside?: ReactNode }) {
@@ -9,7 +10,7 @@ export function EditorCard({ id, title, children, aside }: { id: string; title: 
     <section className="card plan-card" aria-labelledby={titleId}>
       <div className="card-head">
         <h3 id={titleId} className="card-title">
-          {title}
+          {symbolCase(title)}
         </h3>
         {aside}
       </div>

@@ -73,7 +73,7 @@ export function PropertiesTable() {
                 Value
               </th>
               <th scope="col">Unit</th>
-              <th scope="col" className="num as-written">
+              <th scope="col" className="num">
                 ±1σ
               </th>
               <th scope="col">Source</th>

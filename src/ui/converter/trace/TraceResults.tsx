@@ -327,7 +327,7 @@ function SeriesCard({ rows, by }: { rows: readonly SeriesRow[]; by: 'timestamp' 
                 <th scope="col">#</th>
                 <th scope="col">File</th>
                 {by === 'timestamp' ? <th scope="col">Timestamp</th> : null}
-                <th scope="col" className="num as-written">
+                <th scope="col" className="num">
                   Delay ({time.shown})
                 </th>
                 <SeriesHeads temperature={temperature} />

@@ -135,13 +135,13 @@ function LiveTable({ rows }: { rows: readonly WatchRow[] }) {
               <th scope="col">#</th>
               <th scope="col">File</th>
               <th scope="col">Time (UTC)</th>
-              <th scope="col" className="num as-written">
+              <th scope="col" className="num">
                 Delay ({time.shown})
               </th>
-              <th scope="col" className="num as-written">
+              <th scope="col" className="num">
                 T ± sd ({temperature.shown})
               </th>
-              <th scope="col" className="num as-written" title="The sd in its two parts: the measurement's (distance, timing, offset — what limits a change between files) and the u₂ curve's own (the same for every file at this temperature)">
+              <th scope="col" className="num" title="The sd in its two parts: the measurement's (distance, timing, offset — what limits a change between files) and the u₂ curve's own (the same for every file at this temperature)">
                 measurement / u₂ curve
               </th>
               <th scope="col">Chosen by</th>

@@ -193,7 +193,7 @@ export {
 export { delayTemperature, type RehearsalSensorSummary, SD_RATIO_NOTE, type SensorPicks, summariseSensor } from './rehearsal-summary';
 export { driveCentre, driveHalfRise, type FeatureSettings, featureDelay, predictionSpan } from './picker-features';
 export { delayBound } from './delay-bound';
-export { type PickerTiming, type PickerTimingInput, type PickerTimingSds, pickerTiming, TIMING_SNR_LIMIT, TIMING_STEP_LIMIT_SIGMA } from './picker-timing';
+export { type PickerTiming, type PickerTimingInput, type PickerTimingSds, pickerTiming, TIMING_SNR_LIMIT } from './picker-timing';
 export { normalCdf, normalMaximum } from './normal-maximum';
 export {
   MUTUAL_FRICTION_B_POWER_LAW,

@@ -77,7 +77,7 @@ export interface SensorPlanResult {
   timingSdByPicker_s: Record<PickerKind, number | null> | null;
   /**
    * Whether the timing figures are small-noise lower limits rather than estimates: the SNR after
-   * averaging is below 10, or the edge rises by less than 1 noise sd per sample (picker-timing.ts).
+   * averaging is below 10 (picker-timing.ts); missed crossings and noise peaks then widen the spread.
    */
   timingLowerLimit: boolean;
   /** One-sigma temperature from timing and distance, K. */

@@ -5,7 +5,7 @@ import { planeUnder } from './plan-geometry';
 import type { PlanInput, PlanSensor } from './plan-input';
 import type { EchoArrival, PlanePlanResult, PlanWarning, SensorPlanResult, UnreachableReason } from './plan-result';
 import { predictionSpan } from './picker-features';
-import { pickerTiming, TIMING_SNR_LIMIT, TIMING_STEP_LIMIT_SIGMA } from './picker-timing';
+import { pickerTiming, TIMING_SNR_LIMIT } from './picker-timing';
 import { fmt, sensorWarnings } from './plan-warnings';
 import type { HeliumProperties } from './properties';
 import type { PulseProfile } from './pulse-shape';
@@ -197,7 +197,7 @@ export function sensorResult(c: SensorContext): SensorPlanResult {
   const pickers = snrAveraged > 0 ? directPulseTiming(plan, sensor, profile, waveform, { arrival, window, travel, amplitude }) : null;
   const headline = pickers ? (HEADLINE_ORDER.map((k) => pickers.sd_s[k]).find((v) => v !== null) ?? null) : null;
   const timing = headline !== null ? timingFigures(plan, { snrSingle, timingSd: headline, travel, pathSd: c.pathSd, directLength }) : null;
-  const lowerLimit = pickers !== null && (snrAveraged < TIMING_SNR_LIMIT || (pickers.edgeStepSigma !== null && pickers.edgeStepSigma < TIMING_STEP_LIMIT_SIGMA));
+  const lowerLimit = pickers !== null && snrAveraged < TIMING_SNR_LIMIT;
 
   sensorWarnings(c.warnings, plan, sensor, c, { arrival, amplitude, echoes, snrAveraged, pulsesForTarget: timing?.pulsesForTarget ?? null, riseAtSensor, spreadT: timing?.spreadT ?? null, directLength, spread });
 

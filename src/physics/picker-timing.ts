@@ -103,6 +103,8 @@ export interface PickerTimingInput {
   fraction: number;
   /** Quantisation step the clean record is rounded to when the noise does not dither it, or null. */
   roundingStep?: number | null;
+  /** Interval of the heater channel's samples when it differs from the sensor's (a thinned span), s. */
+  driveInterval_s?: number;
 }
 
 export type PickerTimingSds = Record<PickerKind, number | null>;
@@ -120,7 +122,9 @@ interface PhaseSamples {
   /** Sample index of the first value (time (first + k + φ)Δt). */
   first: number;
   y: Float64Array;
+  /** The drive at (j + φ)·driveStep_s (driveStep_s is Δt unless the span is thinned, see MAX_SPAN_SAMPLES). */
   drive: Float64Array;
+  driveStep_s: number;
   phase: number;
 }
 
@@ -147,10 +151,11 @@ function samples(input: PickerTimingInput, phase: number): PhaseSamples {
     const v = sampleAt(span, (first + k + phase) * dt);
     y[k] = sign * (q ? q * Math.round(v / q) : v);
   }
-  const m = Math.ceil(input.profile.duration_s / dt) + 2;
+  const driveStep = input.driveInterval_s ?? dt;
+  const m = Math.ceil(input.profile.duration_s / driveStep) + 2;
   const drive = new Float64Array(m);
-  for (let j = 0; j < m; j++) drive[j] = input.profile.value((j + phase) * dt);
-  return { first, y, drive, phase };
+  for (let j = 0; j < m; j++) drive[j] = input.profile.value((j + phase) * driveStep);
+  return { first, y, drive, driveStep_s: driveStep, phase };
 }
 
 function argmax(y: Float64Array): number {
@@ -166,7 +171,13 @@ function crossingAt(y: Float64Array, i: number, level: number): { u: number; ris
   return { u: rise > 0 ? (level - y0) / rise : 1, rise };
 }
 
-/** The drive's 50 % rise and fall on the clean heater samples, in sample units from its first (pickers.ts heaterOnset / heaterCentre). */
+/** The drive's 50 % rise and fall on the clean heater samples, s after the onset (pickers.ts heaterOnset / heaterCentre). */
+function driveTimes(s: PhaseSamples): { rise_s: number; fall_s: number } | null {
+  const c = driveCrossings(s.drive);
+  return c ? { rise_s: (c.rise + s.phase) * s.driveStep_s, fall_s: (c.fall + s.phase) * s.driveStep_s } : null;
+}
+
+/** The drive's 50 % rise and fall in sample units from its first. */
 function driveCrossings(drive: Float64Array): { rise: number; fall: number } | null {
   const iPeak = argmax(drive);
   const half = 0.5 * (drive[iPeak] as number);
@@ -219,13 +230,13 @@ function edgePick(s: PhaseSamples, input: PickerTimingInput, kind: 'threshold' |
   }
   const c = crossingAt(y, i, level);
   if (!(c.rise > 0)) return null;
-  const onset = driveCrossings(s.drive);
+  const onset = driveTimes(s);
   if (!onset) return null;
   const dt = input.sampleInterval_s;
   const t = (s.first + i - 1 + c.u + s.phase) * dt;
   const slope = c.rise / dt;
   const interpolation = (1 - c.u) ** 2 + c.u ** 2;
-  return { delay_s: t - (onset.rise + s.phase) * dt, variance_s2: (sigma * sigma * (interpolation + levelVar)) / (slope * slope), stepSigma: c.rise / sigma };
+  return { delay_s: t - onset.rise_s, variance_s2: (sigma * sigma * (interpolation + levelVar)) / (slope * slope), stepSigma: c.rise / sigma };
 }
 
 function vertexOf(y: Float64Array, lo: number, hi: number, centre: number, sigma: number): { u: number; uVar: number } | null {
@@ -256,10 +267,10 @@ function peakPick(s: PhaseSamples, input: PickerTimingInput, top: { meanShift: n
   if (!(highest > 0) || iPeak === 0 || iPeak === y.length - 1) return null;
   const level = PEAK_FIT_LEVEL * highest;
   const { lo, hi, capped } = peakRun(y, iPeak, level);
-  const centre = driveCrossings(s.drive);
+  const centre = driveTimes(s);
   if (!centre) return null;
   const dt = input.sampleInterval_s;
-  const reference = (centre.rise + centre.fall) / 2 + s.phase;
+  const reference = (centre.rise_s + centre.fall_s) / 2 / dt;
   if (capped) return cappedPeak(s, input, top, reference);
   const fixed = vertexOf(y, lo, hi, iPeak, sigma);
   if (!fixed) return null;
@@ -431,7 +442,14 @@ function bestLag(y: Float64Array, t: Float64Array, near: number | null): number 
 }
 
 function xcorrPick(s: PhaseSamples, input: PickerTimingInput, near: number | null): (PhasePick & { lag: number }) | null {
-  const made = template(s.drive);
+  const dt = input.sampleInterval_s;
+  let drive = s.drive;
+  if (s.driveStep_s !== dt) {
+    // The template lives on the sensor's own samples.
+    drive = new Float64Array(Math.ceil(input.profile.duration_s / dt) + 2);
+    for (let j = 0; j < drive.length; j++) drive[j] = input.profile.value((j + s.phase) * dt);
+  }
+  const made = template(drive);
   if (!made) return null;
   const T = made.values;
   const L = bestLag(s.y, T, near);
@@ -450,7 +468,6 @@ function xcorrPick(s: PhaseSamples, input: PickerTimingInput, near: number | nul
   const g = [0.5 - offset, 2 * offset, -0.5 - offset].map((x) => x / D);
   let v = 0;
   for (let a = 0; a < 3; a++) for (let b = 0; b < 3; b++) v += (g[a] as number) * (g[b] as number) * (R[Math.abs(a - b)] as number);
-  const dt = input.sampleInterval_s;
   // Template sample j sits at (first_T + j + φ)Δt and meets signal sample L + j at (first_y + L + j + φ)Δt.
   const delay = (s.first + L - made.first + offset) * dt;
   return { delay_s: delay, variance_s2: input.noise * input.noise * Math.max(0, v) * dt * dt, lag: L };
@@ -484,7 +501,13 @@ export function pickerTiming(input: PickerTimingInput): PickerTiming {
   if (samplesInSpan > MAX_SPAN_SAMPLES) {
     // Thinned k-fold (see MAX_SPAN_SAMPLES): the correlation and the peak with σ/√k, the edges with σ.
     const k = Math.ceil(samplesInSpan / MAX_SPAN_SAMPLES);
-    const coarse = { ...input, sampleInterval_s: k * input.sampleInterval_s, baselineSamples: Math.max(8, Math.floor(input.baselineSamples / k)) };
+    const coarse = {
+      ...input,
+      sampleInterval_s: k * input.sampleInterval_s,
+      baselineSamples: Math.max(8, Math.floor(input.baselineSamples / k)),
+      // The heater channel keeps a step that resolves the drive (its onset and centre), within budget.
+      driveInterval_s: Math.min(k * input.sampleInterval_s, Math.max(input.sampleInterval_s, input.profile.duration_s / 2000)),
+    };
     const edges = pickerTimingOnSamples(coarse);
     const averaged = pickerTimingOnSamples({ ...coarse, noise: input.noise / Math.sqrt(k) });
     return { sd_s: { threshold: edges.sd_s.threshold, fraction: edges.sd_s.fraction, peak: averaged.sd_s.peak, xcorr: averaged.sd_s.xcorr }, edgeStepSigma: edges.edgeStepSigma, thinned: k };

@@ -99,6 +99,15 @@ export function mergeSegments(signals: SampledSignal[]): SampledSignal[] {
   });
 }
 
+/** Peak over steepest slope of a pulse (its segments on one grid), s; null without a slope. */
+function steepestEdge(segments: SampledSignal[], peak: number): number | null {
+  let slope = 0;
+  for (const w of mergeSegments(segments)) {
+    for (let k = 1; k < w.values.length; k++) slope = Math.max(slope, Math.abs((w.values[k] as number) - (w.values[k - 1] as number)) / w.step_s);
+  }
+  return slope > 0 && peak > 0 ? peak / slope : null;
+}
+
 /** Shortest straight path from the heater's face (or centre) to a position, m. */
 function directPath(plan: PlanInput, face: HeaterFace | null, p: Vec3): number {
   if (plan.heater.geometry === 'plane-wave') return p[2];
@@ -192,7 +201,10 @@ export function sensorResult(c: SensorContext): SensorPlanResult {
   const signal = amplitude * sensor.responsivity_V_K;
   const snrSingle = signal / sensor.noise_V;
   const snrAveraged = snrSingle * Math.sqrt(h.averages);
-  const riseAtSensor = Math.hypot(profile.effectiveRise_s, sensor.lag_s, spread);
+  // The edge the pickers meet: the direct pulse's height over its steepest slope on the predicted
+  // waveform (the old √(rise² + lag² + spread²) overstated it 3–30-fold where the lag or the
+  // heater's size rounds the pulse, and is kept only where the prediction has no slope).
+  const riseAtSensor = steepestEdge(directGroup.members.map((m) => m.pulse.signal), amplitude) ?? Math.hypot(profile.effectiveRise_s, sensor.lag_s, spread);
   const travel = arrival - sensor.lag_s;
   const pickers = snrAveraged > 0 ? directPulseTiming(plan, sensor, profile, waveform, { arrival, window, travel, amplitude }) : null;
   const headline = pickers ? (HEADLINE_ORDER.map((k) => pickers.sd_s[k]).find((v) => v !== null) ?? null) : null;
@@ -230,8 +242,11 @@ export function sensorResult(c: SensorContext): SensorPlanResult {
  * averaged record's noise, with the converter's default settings (picker-timing.ts).
  */
 function directPulseTiming(plan: PlanInput, sensor: PlanSensor, profile: PulseProfile, waveform: SampledSignal[], f: { arrival: number; window: number; travel: number; amplitude: number }) {
-  // The rehearsal's search window (rehearse-run.ts) and the drive's length past it for the template.
-  const from = Math.max(0.5 * f.arrival, f.arrival - f.window);
+  // From half the travel time (past first sound, about ten times sooner; the waveform holds second
+  // sound only) to the pulse's end, and the drive's length past it for the correlation's template.
+  // Two of the planner's steps before the pulse at least: each point averages the signal over its step.
+  const gridStep = waveform[0]?.step_s ?? 0;
+  const from = Math.min(0.5 * f.travel, f.travel - 2 * gridStep);
   const span = predictionSpan(waveform, from, f.arrival + f.window + profile.duration_s);
   if (!span) return null;
   let peak = 0;

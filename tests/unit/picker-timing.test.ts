@@ -65,7 +65,7 @@ describe('normal order statistics for the fraction and peak pickers', () => {
   });
 });
 
-describe('analytic timing of each picker against a seeded rehearsal, film heater (rectangle drive, 10-sample edges, SNR 59)', () => {
+describe('analytic timing of each picker against a seeded rehearsal, film heater (rectangle drive, 10-sample edges, SNR 59)', { timeout: 60_000 }, () => {
   const input = filmPlan({ noise_V: 1e-6 });
   const result = computePlan(input);
   const planned = result.sensors[0];
@@ -91,7 +91,7 @@ describe('analytic timing of each picker against a seeded rehearsal, film heater
   });
 });
 
-describe('the demo plan (four bolometers, 10 MS/s, 100 µs pulse, echoes)', () => {
+describe('the demo plan (four bolometers, 10 MS/s, 100 µs pulse, echoes)', { timeout: 180_000 }, () => {
   const input = demoPlan();
   const result = computePlan(input);
 

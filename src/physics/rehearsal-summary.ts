@@ -21,9 +21,10 @@ import type { SensorRecordModel } from './synthetic-record';
  * Temperatures: each picked delay goes through the converter's own inversion (`convertDelay`) with
  * the planned cold path and the sensor's lag as t0, and the candidate nearest the plan's bath
  * temperature is kept; bias and sd are against the plan's temperature. The planner's analytic
- * figures beside them are its timing sd (rise at the sensor over SNR, with the sampling's Δt/√12)
- * and the temperature sd of a change between readings (timing alone: the rehearsal has no
- * distance error).
+ * figures beside them are its timing sd for the picker rehearsed (picker-timing.ts: the same pulse,
+ * noise and digitiser through that picker's rule; recomputed with the rehearsal's threshold,
+ * fraction and quantisation where they differ from the planner's) and the temperature sd of a
+ * change between readings that timing gives (timing alone: the rehearsal has no distance error).
  */
 
 /** Ratio of rehearsed to analytic timing sd beyond which (either way) the sensor gets a note. */

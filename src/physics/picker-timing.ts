@@ -1,5 +1,4 @@
 import { normalCdf, normalMaximum } from './normal-maximum';
-import { fitParabola, parabolaVertex } from './parabola';
 import type { PickerKind } from './pickers';
 import type { PulseProfile } from './pulse-shape';
 import type { SampledSignal } from './received-pulse';
@@ -245,27 +244,55 @@ function edgePick(s: PhaseSamples, input: PickerTimingInput, kind: 'threshold' |
   return { delay_s: t - onset.rise_s, variance_s2: (sigma * sigma * (interpolation + levelVar)) / (slope * slope), stepSigma: c.rise / sigma };
 }
 
+/**
+ * The least-squares parabola through y[lo..hi] at u = index − centre, its vertex u* = −b/2c and the
+ * vertex's variance for noise σ per point, σ² gᵀ(XᵀX)⁻¹g with g the gradient of u* in (a, b, c) (parabola.ts does the
+ * same; written out here because the planner calls it thousands of times per keystroke). Null
+ * when the parabola opens upwards or the points do not fix it.
+ */
 function vertexOf(y: Float64Array, lo: number, hi: number, centre: number, sigma: number): { u: number; uVar: number } | null {
-  const n = hi - lo + 1;
-  if (n < 3) return null;
-  const u = new Float64Array(n);
-  const v = new Float64Array(n);
-  for (let k = 0; k < n; k++) {
-    u[k] = lo + k - centre;
-    v[k] = y[lo + k] as number;
+  if (hi - lo + 1 < 3) return null;
+  let s0 = 0;
+  let s1 = 0;
+  let s2 = 0;
+  let s3 = 0;
+  let s4 = 0;
+  let t0 = 0;
+  let t1 = 0;
+  let t2 = 0;
+  for (let k = lo; k <= hi; k++) {
+    const u = k - centre;
+    const u2 = u * u;
+    const v = y[k] as number;
+    s0 += 1;
+    s1 += u;
+    s2 += u2;
+    s3 += u2 * u;
+    s4 += u2 * u2;
+    t0 += v;
+    t1 += v * u;
+    t2 += v * u2;
   }
-  let p: ReturnType<typeof fitParabola>;
-  try {
-    p = fitParabola(u, v);
-  } catch {
-    return null;
-  }
-  if (!(p.c < 0)) return null;
-  const vertex = parabolaVertex(p, sigma);
-  return { u: Math.max(u[0] as number, Math.min(u[n - 1] as number, vertex.u)), uVar: vertex.uSd ** 2 };
+  // Inverse of the symmetric normal matrix [[s0, s1, s2], [s1, s2, s3], [s2, s3, s4]] by cofactors.
+  const c00 = s2 * s4 - s3 * s3;
+  const c01 = s2 * s3 - s1 * s4;
+  const c02 = s1 * s3 - s2 * s2;
+  const c11 = s0 * s4 - s2 * s2;
+  const c12 = s1 * s2 - s0 * s3;
+  const c22 = s0 * s2 - s1 * s1;
+  const det = s0 * c00 + s1 * c01 + s2 * c02;
+  if (!(Math.abs(det) > 0)) return null;
+  const b = (c01 * t0 + c11 * t1 + c12 * t2) / det;
+  const c = (c02 * t0 + c12 * t1 + c22 * t2) / det;
+  if (!(c < 0) || !Number.isFinite(b)) return null;
+  const gb = -1 / (2 * c);
+  const gc = b / (2 * c * c);
+  const variance = (sigma * sigma * (gb * gb * c11 + 2 * gb * gc * c12 + gc * gc * c22)) / det;
+  const u = Math.max(lo - centre, Math.min(hi - centre, -b / (2 * c)));
+  return { u, uVar: Math.max(0, variance) };
 }
 
-function peakPick(s: PhaseSamples, input: PickerTimingInput, top: { meanShift: number; variance: number }): PhasePick | null {
+function peakPick(s: PhaseSamples, input: PickerTimingInput, top: { meanShift: number; variance: number }, chances: () => Float64Array): PhasePick | null {
   const { y } = s;
   const sigma = input.noise;
   const iPeak = argmax(y);
@@ -277,7 +304,7 @@ function peakPick(s: PhaseSamples, input: PickerTimingInput, top: { meanShift: n
   if (!centre) return null;
   const dt = input.sampleInterval_s;
   const reference = (centre.rise_s + centre.fall_s) / 2 / dt;
-  if (capped) return cappedPeak(s, input, top, reference);
+  if (capped) return cappedPeak(s, input, top, reference, chances());
   const fixed = vertexOf(y, lo, hi, iPeak, sigma);
   if (!fixed) return null;
   // The run's ends toggle: p the chance a sample's status differs from the clean run's, against
@@ -318,7 +345,45 @@ function peakRun(y: Float64Array, iPeak: number, level: number): { lo: number; h
 }
 
 /** Candidates for the largest sample kept at most (the strongest), when a broad top makes many. */
-const MAX_PEAK_CANDIDATES = 64;
+const MAX_PEAK_CANDIDATES = 16;
+
+/** Width of the bins of gaps below the largest sample, σ (as in normal-maximum.ts). */
+const WIN_BIN_SIGMAS = 0.05;
+/** Gaps beyond this many σ below the largest cannot win. */
+const WIN_GAP_SIGMAS = 6;
+
+/**
+ * P(a sample at gap d·σ below the largest is the largest of all, noise included), per bin of d:
+ * ∫ φ(x + d) Πₖ Φ(x + dₖ) / Φ(x + d) dx over the samples' own gaps (order statistics; binned, so
+ * thousands of samples on a flat top cost what a few do).
+ */
+function winChances(y: Float64Array, sigma: number): Float64Array {
+  const highest = y[argmax(y)] as number;
+  const counts = new Float64Array(Math.ceil(WIN_GAP_SIGMAS / WIN_BIN_SIGMAS) + 1);
+  for (let j = 0; j < y.length; j++) {
+    const d = (highest - (y[j] as number)) / sigma;
+    if (d < WIN_GAP_SIGMAS) {
+      const b = Math.round(d / WIN_BIN_SIGMAS);
+      counts[b] = (counts[b] as number) + 1;
+    }
+  }
+  const grid = 241;
+  const h = 14 / (grid - 1);
+  const chance = new Float64Array(counts.length);
+  for (let g = 0; g < grid; g++) {
+    const x = -7 + g * h;
+    let all = 1;
+    for (let b = 0; b < counts.length; b++) if ((counts[b] as number) > 0) all *= normalCdf(x + b * WIN_BIN_SIGMAS) ** (counts[b] as number);
+    if (all === 0) continue;
+    for (let b = 0; b < counts.length; b++) {
+      if (!((counts[b] as number) > 0)) continue;
+      const z = x + b * WIN_BIN_SIGMAS;
+      const cdf = normalCdf(z);
+      if (cdf > 0) chance[b] = (chance[b] as number) + (Math.exp(-0.5 * z * z) / Math.sqrt(2 * Math.PI)) * (all / cdf) * h;
+    }
+  }
+  return chance;
+}
 
 /**
  * A top broader than the run (201 intervals): the run hangs on the largest sample, grown backwards
@@ -326,38 +391,16 @@ const MAX_PEAK_CANDIDATES = 64;
  * ∫ φ(x − μⱼ) Πₖ≠ⱼ Φ(x − μₖ) dx (independent normals, order statistics); the pick's mean and
  * variance are taken over those j, each with its fixed-run vertex variance. Derived here.
  */
-function cappedPeak(s: PhaseSamples, input: PickerTimingInput, top: { meanShift: number; variance: number }, reference: number): PhasePick | null {
+function cappedPeak(s: PhaseSamples, input: PickerTimingInput, top: { meanShift: number; variance: number }, reference: number, binWeight: Float64Array): PhasePick | null {
   const { y } = s;
   const sigma = input.noise;
   const highest = y[argmax(y)] as number;
   const gaps: { j: number; d: number }[] = [];
   for (let j = 0; j < y.length; j++) {
     const d = (highest - (y[j] as number)) / sigma;
-    if (d < 6) gaps.push({ j, d });
+    if (d < WIN_GAP_SIGMAS) gaps.push({ j, d });
   }
-  // Candidates binned by their gap to the largest (as in normal-maximum.ts): equal gaps, equal chances.
-  const binWidth = 0.05;
-  const counts = new Float64Array(Math.ceil(6 / binWidth) + 1);
-  for (const c of gaps) {
-    const b = Math.round(c.d / binWidth);
-    counts[b] = (counts[b] as number) + 1;
-  }
-  const grid = 241;
-  const h = 14 / (grid - 1);
-  const binWeight = new Float64Array(counts.length);
-  for (let g = 0; g < grid; g++) {
-    const x = -7 + g * h;
-    let all = 1;
-    for (let b = 0; b < counts.length; b++) if ((counts[b] as number) > 0) all *= normalCdf(x + b * binWidth) ** (counts[b] as number);
-    if (all === 0) continue;
-    for (let b = 0; b < counts.length; b++) {
-      if (!((counts[b] as number) > 0)) continue;
-      const z = x + b * binWidth;
-      const cdf = normalCdf(z);
-      if (cdf > 0) binWeight[b] = (binWeight[b] as number) + (Math.exp(-0.5 * z * z) / Math.sqrt(2 * Math.PI)) * (all / cdf) * h;
-    }
-  }
-  const weights = gaps.map((c) => binWeight[Math.round(c.d / binWidth)] as number);
+  const weights = gaps.map((c) => binWeight[Math.min(binWeight.length - 1, Math.round(c.d / WIN_BIN_SIGMAS))] as number);
   let strongest = 0;
   for (const w of weights) strongest = Math.max(strongest, w);
   // Every candidate that can win, thinned evenly (each kept one standing for `stride`) when many.
@@ -532,7 +575,12 @@ function pickerTimingOnSamples(input: PickerTimingInput): PickerTiming {
   const vMax = top.variance;
   const threshold = sampled.map((s) => edgePick(s, input, 'threshold', vMax));
   const fraction = sampled.map((s) => edgePick(s, input, 'fraction', vMax));
-  const peak = sampled.map((s) => peakPick(s, input, top));
+  // Chances of each gap below the top to hold the largest sample: one phase (a broad top hardly depends on it), when needed.
+  let chances: Float64Array | null = null;
+  const peak = sampled.map((s) => peakPick(s, input, top, () => {
+    chances ??= winChances(middle.y, input.noise);
+    return chances;
+  }));
   const first = xcorrPick(middle, input, null);
   const xcorr = sampled.map((s) => (s === middle ? first : first ? xcorrPick(s, input, first.lag + middle.first - s.first) : null));
   let step: number | null = null;

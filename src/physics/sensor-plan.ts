@@ -242,11 +242,12 @@ export function sensorResult(c: SensorContext): SensorPlanResult {
  * averaged record's noise, with the converter's default settings (picker-timing.ts).
  */
 function directPulseTiming(plan: PlanInput, sensor: PlanSensor, profile: PulseProfile, waveform: SampledSignal[], f: { arrival: number; window: number; travel: number; amplitude: number }) {
-  // From half the travel time (past first sound, about ten times sooner; the waveform holds second
-  // sound only) to the pulse's end, and the drive's length past it for the correlation's template.
+  // The rehearsal's search window (rehearse-run.ts: the pulse's own length either side of the
+  // arrival, from no earlier than half of it) to the pulse's end, and the drive's length past it for
+  // the correlation's template.
   // Two of the planner's steps before the pulse at least: each point averages the signal over its step.
   const gridStep = waveform[0]?.step_s ?? 0;
-  const from = Math.min(0.5 * f.travel, f.travel - 2 * gridStep);
+  const from = Math.min(f.travel - 2 * gridStep, Math.max(0.5 * f.travel, f.arrival - f.window));
   const span = predictionSpan(waveform, from, f.arrival + f.window + profile.duration_s);
   if (!span) return null;
   let peak = 0;

@@ -98,6 +98,18 @@ describe('planner results as CSV', () => {
     expect(rows[1]?.[13]).toBe(String(first?.timingSdByPicker_s?.fraction));
   });
 
+  it('the timing cell’s tooltip gives every picker’s figure from the plan result, and marks small-noise lower limits', async () => {
+    const { pickerTimingText } = await import('../../src/ui/planner/ResultsTable');
+    const sensor = computePlan(planFileToInput(demoPlan())).sensors[0];
+    if (!sensor?.timingSdByPicker_s) throw new Error('the demo sensor has a timing');
+    const text = pickerTimingText(sensor, null) ?? '';
+    const { formatSignificant } = await import('../../src/ui/units/format-number');
+    for (const v of Object.values(sensor.timingSdByPicker_s)) expect(text).toContain(`${formatSignificant(v as number, 2)} s`);
+    expect(text).toMatch(/^By picker: fraction 0\.5 .* \(shown\), threshold 5σ .*, peak .*, cross-correlation with the drive .*\.$/);
+    expect(text).not.toMatch(/lower limits/);
+    expect(pickerTimingText({ ...sensor, timingLowerLimit: true }, null)).toMatch(/SNR below 10 these are lower limits/);
+  });
+
   it('offers the table as a download beside it', async () => {
     await openPlanner();
     expect(screen.getByRole('button', { name: 'Download the results per sensor as CSV' })).toBeInTheDocument();

@@ -67,7 +67,7 @@ export function ResultsTable() {
         </h3>
         <p className="muted">
           Linear theory at {temperatureText(outcome.result.temperature_K, ladders.temperature)}; “—” where there is no second sound. Timing sd: the fraction
-          picker at half the peak; hover it for the other pickers.
+          picker at half the peak; each value’s tooltip and the CSV give the other pickers.
         </p>
         <CsvExportButton table={() => resultsCsv(outcome.result)} fileName="planned-results-per-sensor.csv" what="the results per sensor" />
       </div>

@@ -11,7 +11,10 @@
  * Polarity: the sign of the direct pulse's extreme in the prediction.
  */
 import {
+  DEFAULT_FRACTION,
   DEFAULT_RECORD_SETTINGS,
+  DEFAULT_THRESHOLD_SIGMA,
+  pickerTiming,
   delayBound,
   featureDelay,
   predictionSpan,
@@ -38,9 +41,6 @@ import {
 import { pickTraceArrival } from './trace-pick';
 import type { TraceCsv } from './trace-csv';
 
-/** The converter's defaults for the threshold and fraction pickers (src/physics/pickers.ts). */
-const DEFAULT_THRESHOLD_SIGMA = 5;
-const DEFAULT_FRACTION = 0.5;
 
 /** Trials a rehearsal takes, and its default. */
 export const REHEARSAL_TRIALS_RANGE = [2, 100_000] as const;
@@ -178,6 +178,34 @@ export function pickedSamples(model: RecordModel, window: { from_s: number; to_s
   ];
 }
 
+/**
+ * The planner's analytic timing sd for the rehearsed picker: its own figure when the rehearsal
+ * uses the planner's settings (threshold 5σ, fraction 0.5, no quantisation), else the same
+ * computation (picker-timing.ts) with the rehearsal's threshold, fraction and digitiser step (noise
+ * that dithers the step adds q²/12 per shot; rounding it does not dither is applied to the pulse).
+ */
+export function analyticTiming(model: RecordModel, s: SensorRecordModel, window: { from_s: number; to_s: number }, o: RehearsalOptions): number | null {
+  const k = o.thresholdSigma ?? DEFAULT_THRESHOLD_SIGMA;
+  const f = o.fraction ?? DEFAULT_FRACTION;
+  const planned = s.plan.timingSdByPicker_s;
+  if (s.step_V === null && k === DEFAULT_THRESHOLD_SIGMA && f === DEFAULT_FRACTION && planned) return planned[o.picker];
+  const span = predictionSpan(s.prediction, window.from_s, window.to_s + model.profile.duration_s);
+  if (!span) return null;
+  const q = s.step_V;
+  const dithered = q === null || s.shotNoise_V >= q / 2;
+  return pickerTiming({
+    span,
+    profile: model.profile,
+    polarity: s.polarity,
+    noise: q !== null && dithered ? Math.sqrt(s.shotNoise_V ** 2 + (q * q) / 12) / Math.sqrt(model.shots) : s.recordNoise_V,
+    sampleInterval_s: model.step_s,
+    baselineSamples: Math.round(-model.start_s / model.step_s),
+    thresholdSigma: k,
+    fraction: f,
+    roundingStep: dithered ? null : q,
+  }).sd_s[o.picker];
+}
+
 /** The converter's pick: the delay from the drive's matching feature, and the arrival on the file's axis, s. */
 function pickOne(trace: TraceCsv, heater: string, s: SensorRecordModel, window: { from_s: number; to_s: number }, o: RehearsalOptions): { delay_s: number; arrival_s: number } {
   const pick = pickTraceArrival(trace, {
@@ -247,7 +275,7 @@ export function rehearse(plan: PlanInput, result: PlanResult, options: Rehearsal
     // The bound for the direct pulse alone: from its arrival to the end of its own length.
     const direct = predictionSpan(s.prediction, s.planned_s - s.lag_s - 2 * model.step_s, s.planned_s + s.pulseWindow_s);
     const bound_s = direct ? delayBound(direct, s.recordNoise_V, model.step_s) : null;
-    return { true_s, bound_s, delays_s: new Float64Array(options.trials).fill(Number.NaN), failures: new Map(), noiseFree_s: null };
+    return { true_s, bound_s, analytic_s: analyticTiming(model, s, w, options), delays_s: new Float64Array(options.trials).fill(Number.NaN), failures: new Map(), noiseFree_s: null };
   });
   const kept: KeptWindow[][] = model.sensors.map(() => []);
 

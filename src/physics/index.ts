@@ -73,7 +73,7 @@ export {
   SAMPLES_PER_EDGE,
   STRONG_FLUX_CAUTION_OF_LIMIT,
 } from './plan-warnings';
-export { MAX_TARGET_DISTANCE_M } from './sensor-plan';
+export { DEFAULT_FRACTION, DEFAULT_THRESHOLD_SIGMA, MAX_TARGET_DISTANCE_M } from './sensor-plan';
 export { ON_PLANE_M } from './plan-geometry';
 export {
   faceArea,
@@ -193,6 +193,8 @@ export {
 export { delayTemperature, type RehearsalSensorSummary, SD_RATIO_NOTE, type SensorPicks, summariseSensor } from './rehearsal-summary';
 export { driveCentre, driveHalfRise, type FeatureSettings, featureDelay, predictionSpan } from './picker-features';
 export { delayBound } from './delay-bound';
+export { type PickerTiming, type PickerTimingInput, type PickerTimingSds, pickerTiming, TIMING_SNR_LIMIT } from './picker-timing';
+export { normalCdf, normalMaximum } from './normal-maximum';
 export {
   MUTUAL_FRICTION_B_POWER_LAW,
   MUTUAL_FRICTION_B_POWER_LAW_FROM_K,

@@ -1,3 +1,4 @@
+import type { PickerKind } from './pickers';
 import type { HeliumProperties } from './properties';
 import type { SampledSignal } from './received-pulse';
 import type { TemperatureTargetKind } from './plan-input';
@@ -63,8 +64,22 @@ export interface SensorPlanResult {
   echoes: EchoArrival[];
   /** Predicted δT(t) at the sensor, as non-overlapping segments in time order, K. */
   waveform: SampledSignal[];
-  /** One-sigma arrival-time uncertainty of one averaged reading, s. */
+  /**
+   * One-sigma arrival time of one averaged reading, s: the fraction picker at half the peak (the
+   * converter's default picker) on the predicted pulse (`timingSdByPicker_s.fraction`, picker-timing.ts).
+   */
   timingSd_s: number | null;
+  /**
+   * One-sigma arrival time of one averaged reading for each picker at the converter's defaults
+   * (threshold 5σ, fraction 0.5, peak, cross-correlation with the drive), s; null without a signal,
+   * and per picker null when the pulse has no such feature (a threshold above its peak).
+   */
+  timingSdByPicker_s: Record<PickerKind, number | null> | null;
+  /**
+   * Whether the timing figures are small-noise lower limits rather than estimates: the SNR after
+   * averaging is below 10 (picker-timing.ts); missed crossings and noise peaks then widen the spread.
+   */
+  timingLowerLimit: boolean;
   /** One-sigma temperature from timing and distance, K. */
   temperatureSd_K: number | null;
   /**

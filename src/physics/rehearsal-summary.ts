@@ -21,9 +21,10 @@ import type { SensorRecordModel } from './synthetic-record';
  * Temperatures: each picked delay goes through the converter's own inversion (`convertDelay`) with
  * the planned cold path and the sensor's lag as t0, and the candidate nearest the plan's bath
  * temperature is kept; bias and sd are against the plan's temperature. The planner's analytic
- * figures beside them are its timing sd (rise at the sensor over SNR, with the sampling's Δt/√12)
- * and the temperature sd of a change between readings (timing alone: the rehearsal has no
- * distance error).
+ * figures beside them are its timing sd for the picker rehearsed (picker-timing.ts: the same pulse,
+ * noise and digitiser through that picker's rule; recomputed with the rehearsal's threshold,
+ * fraction and quantisation where they differ from the planner's) and the temperature sd of a
+ * change between readings that timing gives (timing alone: the rehearsal has no distance error).
  */
 
 /** Ratio of rehearsed to analytic timing sd beyond which (either way) the sensor gets a note. */
@@ -41,6 +42,8 @@ const METHOD_CAUSE: Record<PickerKind, string> = {
 const REASONS_KEPT = 3;
 
 export interface SensorPicks {
+  /** The planner's analytic timing sd for this picker and these settings (picker-timing.ts), s. */
+  analytic_s: number | null;
   /** Cramér–Rao bound for the delay of the predicted direct pulse in this record's noise (delay-bound.ts), s. */
   bound_s: number | null;
   /** True delay of the picker's feature (picker-features.ts), s, or null when the prediction has none. */
@@ -76,7 +79,11 @@ export interface RehearsalSensorSummary {
   /** Mean temperature − the plan's, K; sample sd, K. */
   temperatureBias_K: number | null;
   temperatureSd_K: number | null;
-  /** The planner's own timing sd, s, and temperature sd of a change from timing alone, K. */
+  /**
+   * The planner's analytic timing sd for the picker rehearsed (its `timingSdByPicker_s`, or the
+   * same computation with the rehearsal's threshold, fraction and quantisation), s; and the
+   * temperature sd of a change that timing gives alone, K.
+   */
   analyticTimingSd_s: number | null;
   analyticTemperatureSd_K: number | null;
   /** arrivalSd_s / analyticTimingSd_s. */
@@ -119,24 +126,6 @@ export function delayTemperature(delay_s: number, path: { pathLength_m: number; 
 
 const us = (t_s: number): string => `${Number((t_s * 1e6).toPrecision(3))} µs`;
 
-/** Peak over steepest slope of the direct pulse in the prediction, s (null: no slope). */
-function steepestEdge_s(s: SensorRecordModel): number | null {
-  const from = s.planned_s - s.lag_s;
-  const to = s.planned_s + s.pulseWindow_s;
-  let top = 0;
-  let slope = 0;
-  for (const w of s.prediction) {
-    for (let k = 1; k < w.values.length; k++) {
-      const t = w.start_s + k * w.step_s;
-      if (t < from || t > to) continue;
-      const v = w.values[k] as number;
-      top = Math.max(top, Math.abs(v));
-      slope = Math.max(slope, Math.abs(v - (w.values[k - 1] as number)) / w.step_s);
-    }
-  }
-  return slope > 0 ? top / slope : null;
-}
-
 /** Per-sensor figures of a rehearsal from its picks. `warnings`: the plan's, for the notes. */
 export function summariseSensor(
   s: SensorRecordModel,
@@ -157,7 +146,10 @@ export function summariseSensor(
   const trials = picks.delays_s.length;
   const arrival = meanSd(good);
   const temperature = meanSd(temperatures);
-  const analytic = s.plan.timingSd_s;
+  const analytic = picks.analytic_s;
+  // The change sd is linear in the timing sd (temperature-resolution.ts, below its cap): scaled from the headline's.
+  const headline = s.plan.timingSd_s;
+  const analyticT = analytic !== null && headline !== null && headline > 0 && s.plan.temperatureChangeSd_K !== null ? (s.plan.temperatureChangeSd_K * analytic) / headline : null;
   const sd = arrival?.sd ?? null;
   const ratio = sd !== null && analytic !== null && analytic > 0 ? sd / analytic : null;
   const failedShare = trials > 0 ? (trials - good.length) / trials : 0;
@@ -175,7 +167,7 @@ export function summariseSensor(
     temperatureBias_K: temperature ? temperature.mean - context.temperature_K : null,
     temperatureSd_K: temperature?.sd ?? null,
     analyticTimingSd_s: analytic,
-    analyticTemperatureSd_K: s.plan.temperatureChangeSd_K,
+    analyticTemperatureSd_K: analyticT,
     sdRatio: ratio,
     boundTimingSd_s: picks.bound_s,
     picks: good.length,
@@ -211,32 +203,12 @@ function sensorNotes(
       causes.push(`an echo${e ? ` (${e.path.join(' → ') || 'reflection'}, ${us(e.arrival_s - s.planned_s)} after the direct pulse)` : ''} overlaps the direct pulse inside the picker's window`);
     }
     if (s.step_V !== null && s.step_V > s.recordNoise_V) causes.push(`the digitiser's step (${Number((s.step_V * 1e6).toPrecision(3))} µV) is coarser than the averaged noise, so rounding, not noise, sets the scatter`);
-    if (ratio < 1) {
-      if (c.picker === 'xcorr') {
-        const bound = r.boundTimingSd_s === null ? '' : ` (the Cramér–Rao bound for this pulse and noise is ${us(r.boundTimingSd_s)})`;
-        causes.push(`the cross-correlation uses every sample of the pulse${bound}, while the planner's figure is one edge's noise over its slope (rise / SNR) with the sampling's Δt/√12`);
-      }
-      else if (c.picker === 'peak') causes.push('the parabola through the top averages many samples');
-      const sampling = c.sampleInterval_s / Math.sqrt(12);
-      if (r.analyticTimingSd_s !== null && sampling > 0.5 * r.analyticTimingSd_s) causes.push(`the planner's figure is mostly the sampling's Δt/√12 (${us(sampling)}), which interpolating pickers undercut`);
-      const edge = steepestEdge_s(s);
-      const snr = s.plan.snrAveraged;
-      const analytic = r.analyticTimingSd_s;
-      if (edge !== null && snr !== null && analytic !== null && c.picker !== 'peak') {
-        const assumed = Math.sqrt(Math.max(0, analytic ** 2 - c.sampleInterval_s ** 2 / 12)) * snr;
-        if (edge < assumed / SD_RATIO_NOTE) {
-          causes.push(
-            `the planner takes the edge as √(rise² + lag² + spread over the heater face²) = ${us(assumed)}, while the predicted pulse climbs its height at its steepest in ${us(edge)}: the picker meets the steeper edge`,
-          );
-        }
-      }
-    } else {
-      if (c.picker === 'peak') causes.push("a pulse's top is flat, so its time is less sharply defined than an edge's");
-      if (c.picker === 'threshold') causes.push('a fixed threshold low on the edge meets a shallower slope than the edge has on average');
+    if (ratio > 1 && r.failedShare === 0 && (snr ?? 0) >= LOW_SNR_FOR_NOTE && inWindow.length === 0) {
+      causes.push('a few picks far from the rest (a noise crossing before the edge, another sample taken as the top): the analytic figure is the small-noise spread around the feature and has no such tail');
     }
     const direction = ratio > 1 ? 'wider' : 'narrower';
     notes.push(
-      `The rehearsed timing sd is ${Number(ratio.toPrecision(2))} × the planner's (${direction} than a factor ${SD_RATIO_NOTE} allows)${causes.length > 0 ? `; likely: ${causes.join('; ')}` : '; no cause found among failures, SNR, echoes and quantisation'}.`,
+      `The rehearsed timing sd is ${Number(ratio.toPrecision(2))} × the planner's analytic figure for this picker (${direction} than a factor ${SD_RATIO_NOTE} allows)${causes.length > 0 ? `; likely: ${causes.join('; ')}` : '; no cause found among failures, SNR, echoes and quantisation'}.`,
     );
   }
   const bound = r.boundTimingSd_s;

@@ -4,6 +4,8 @@ import type { SourceImage, Vec3 } from './image-sources';
 import { planeUnder } from './plan-geometry';
 import type { PlanInput, PlanSensor } from './plan-input';
 import type { EchoArrival, PlanePlanResult, PlanWarning, SensorPlanResult, UnreachableReason } from './plan-result';
+import { predictionSpan } from './picker-features';
+import { pickerTiming, TIMING_SNR_LIMIT } from './picker-timing';
 import { fmt, sensorWarnings } from './plan-warnings';
 import type { HeliumProperties } from './properties';
 import type { PulseProfile } from './pulse-shape';
@@ -14,6 +16,15 @@ import { secondSoundRelativeSd, shortestDistanceForTarget, temperatureSpread } f
  * One sensor of the plan: the direct pulse and its echoes (image sources), signal and SNR, timing
  * and how finely the delay pins the temperature, and the sensor's own warnings.
  */
+
+/**
+ * The planner's headline timing sd is the fraction picker's at half the peak, the converter's
+ * default (src/cli/commands/trace.ts, the trace lab); the others stand in when it finds no feature.
+ */
+const HEADLINE_ORDER = ['fraction', 'threshold', 'xcorr', 'peak'] as const;
+/** The converter's defaults: threshold 5 noise sd, fraction 0.5 of the peak (pickers.ts). */
+export const DEFAULT_THRESHOLD_SIGMA = 5;
+export const DEFAULT_FRACTION = 0.5;
 
 /** Time steps per effective rise time in the predicted waveforms. */
 const STEPS_PER_RISE = 10;
@@ -88,6 +99,15 @@ export function mergeSegments(signals: SampledSignal[]): SampledSignal[] {
   });
 }
 
+/** Peak over steepest slope of a pulse (its segments on one grid), s; null without a slope. */
+function steepestEdge(segments: SampledSignal[], peak: number): number | null {
+  let slope = 0;
+  for (const w of mergeSegments(segments)) {
+    for (let k = 1; k < w.values.length; k++) slope = Math.max(slope, Math.abs((w.values[k] as number) - (w.values[k - 1] as number)) / w.step_s);
+  }
+  return slope > 0 && peak > 0 ? peak / slope : null;
+}
+
 /** Shortest straight path from the heater's face (or centre) to a position, m. */
 function directPath(plan: PlanInput, face: HeaterFace | null, p: Vec3): number {
   if (plan.heater.geometry === 'plane-wave') return p[2];
@@ -116,6 +136,8 @@ export function sensorResult(c: SensorContext): SensorPlanResult {
     echoes: [],
     waveform: [],
     timingSd_s: null,
+    timingSdByPicker_s: null,
+    timingLowerLimit: false,
     temperatureSd_K: null,
     temperatureChangeSd_K: null,
     temperatureSdWithModel_K: null,
@@ -179,9 +201,15 @@ export function sensorResult(c: SensorContext): SensorPlanResult {
   const signal = amplitude * sensor.responsivity_V_K;
   const snrSingle = signal / sensor.noise_V;
   const snrAveraged = snrSingle * Math.sqrt(h.averages);
-  const riseAtSensor = Math.hypot(profile.effectiveRise_s, sensor.lag_s, spread);
+  // The edge the pickers meet: the direct pulse's height over its steepest slope on the predicted
+  // waveform (the old √(rise² + lag² + spread²) overstated it 3–30-fold where the lag or the
+  // heater's size rounds the pulse, and is kept only where the prediction has no slope).
+  const riseAtSensor = steepestEdge(directGroup.members.map((m) => m.pulse.signal), amplitude) ?? Math.hypot(profile.effectiveRise_s, sensor.lag_s, spread);
   const travel = arrival - sensor.lag_s;
-  const timing = snrAveraged > 0 ? timingFigures(plan, { snrSingle, snrAveraged, riseAtSensor, travel, pathSd: c.pathSd, directLength }) : null;
+  const pickers = snrAveraged > 0 ? directPulseTiming(plan, sensor, profile, waveform, { arrival, window, travel, amplitude }) : null;
+  const headline = pickers ? (HEADLINE_ORDER.map((k) => pickers.sd_s[k]).find((v) => v !== null) ?? null) : null;
+  const timing = headline !== null ? timingFigures(plan, { snrSingle, timingSd: headline, travel, pathSd: c.pathSd, directLength }) : null;
+  const lowerLimit = pickers !== null && snrAveraged < TIMING_SNR_LIMIT;
 
   sensorWarnings(c.warnings, plan, sensor, c, { arrival, amplitude, echoes, snrAveraged, pulsesForTarget: timing?.pulsesForTarget ?? null, riseAtSensor, spreadT: timing?.spreadT ?? null, directLength, spread });
 
@@ -196,6 +224,8 @@ export function sensorResult(c: SensorContext): SensorPlanResult {
     echoes,
     waveform,
     timingSd_s: timing?.timingSd ?? null,
+    timingSdByPicker_s: pickers?.sd_s ?? null,
+    timingLowerLimit: lowerLimit,
     temperatureSd_K: timing?.spreadT.sd_K ?? null,
     temperatureChangeSd_K: timing?.changeT.sd_K ?? null,
     temperatureSdWithModel_K: timing?.withModel.sd_K ?? null,
@@ -207,12 +237,39 @@ export function sensorResult(c: SensorContext): SensorPlanResult {
   };
 }
 
-/** Timing and temperature resolution of one sensor with a signal above zero. */
-function timingFigures(plan: PlanInput, f: { snrSingle: number; snrAveraged: number; riseAtSensor: number; travel: number; pathSd: number; directLength: number }) {
+/**
+ * Each picker's timing on the predicted pulse (direct pulse and any echo inside its window), in the
+ * averaged record's noise, with the converter's default settings (picker-timing.ts).
+ */
+function directPulseTiming(plan: PlanInput, sensor: PlanSensor, profile: PulseProfile, waveform: SampledSignal[], f: { arrival: number; window: number; travel: number; amplitude: number }) {
+  // The rehearsal's search window (rehearse-run.ts: the pulse's own length either side of the
+  // arrival, from no earlier than half of it) to the pulse's end, and the drive's length past it for
+  // the correlation's template.
+  // Two of the planner's steps before the pulse at least: each point averages the signal over its step.
+  const gridStep = waveform[0]?.step_s ?? 0;
+  const from = Math.min(f.travel - 2 * gridStep, Math.max(0.5 * f.travel, f.arrival - f.window));
+  const span = predictionSpan(waveform, from, f.arrival + f.window + profile.duration_s);
+  if (!span) return null;
+  let peak = 0;
+  for (const v of span.values) if (Math.abs(v) > Math.abs(peak)) peak = v;
+  const d = plan.digitiser;
+  return pickerTiming({
+    span,
+    profile,
+    polarity: peak < 0 ? 'negative' : 'positive',
+    noise: sensor.noise_V / sensor.responsivity_V_K / Math.sqrt(plan.heater.averages),
+    sampleInterval_s: 1 / d.sampleRate_Hz,
+    baselineSamples: Math.round(d.preTrigger_s * d.sampleRate_Hz),
+    thresholdSigma: DEFAULT_THRESHOLD_SIGMA,
+    fraction: DEFAULT_FRACTION,
+  });
+}
+
+/** Timing and temperature resolution of one sensor with a signal above zero and a timing sd. */
+function timingFigures(plan: PlanInput, f: { snrSingle: number; timingSd: number; travel: number; pathSd: number; directLength: number }) {
   const T = plan.temperature_K;
   const pulsesForTarget = Math.ceil((plan.targets.snr / f.snrSingle) ** 2);
-  const sampleInterval = 1 / plan.digitiser.sampleRate_Hz;
-  const timingSd = Math.hypot(f.riseAtSensor / f.snrAveraged, sampleInterval / Math.sqrt(12));
+  const timingSd = f.timingSd;
   // The relative part of the speed's sd: the travel time alone (the lag is no part of the path).
   const relTiming = timingSd / f.travel;
   const relSpeedSd = Math.hypot(f.pathSd / f.directLength, relTiming);

@@ -82,7 +82,7 @@ describe('planner results as CSV', () => {
     const parse = (csv: string) => Papa.parse<string[]>(csv.trim()).data;
     const lines = text.trim().split('\r\n');
     expect(lines[0]).toBe(
-      'sensor_id,label,pathLength_m,pathLengthSd_m,firstSoundArrival_s,secondSoundArrival_s,amplitude_K,signal_V,snrSingle,snrAveraged,pulsesForTargetSnr,timingSd_s,temperatureSd_K,temperatureChangeSd_K,temperatureSdWithModel_K,targetKind,meetsTarget,shortestDistanceForTarget_m,shortestDistanceNote,insensitive',
+      'sensor_id,label,pathLength_m,pathLengthSd_m,firstSoundArrival_s,secondSoundArrival_s,amplitude_K,signal_V,snrSingle,snrAveraged,pulsesForTargetSnr,timingSd_s,timingSdThreshold_s,timingSdFraction_s,timingSdPeak_s,timingSdXcorr_s,timingLowerLimit,temperatureSd_K,temperatureChangeSd_K,temperatureSdWithModel_K,targetKind,meetsTarget,shortestDistanceForTarget_m,shortestDistanceNote,insensitive',
     );
     expect(lines).toHaveLength(result.sensors.length + 1);
     const first = result.sensors[0];
@@ -92,7 +92,22 @@ describe('planner results as CSV', () => {
     const heI = computePlan({ ...planFileToInput(demoPlan()), temperature_K: 2.5 });
     const heILine = parse(tableCsv(resultsCsv(heI)))[1] ?? [];
     expect(heILine[5]).toBe('');
-    expect(heILine[19]).toBe('');
+    expect(heILine[24]).toBe('');
+    // The headline timing sd is the fraction picker's (picker-timing.ts).
+    expect(rows[1]?.[11]).toBe(String(first?.timingSd_s));
+    expect(rows[1]?.[13]).toBe(String(first?.timingSdByPicker_s?.fraction));
+  });
+
+  it('the timing cell’s tooltip gives every picker’s figure from the plan result, and marks small-noise lower limits', async () => {
+    const { pickerTimingText } = await import('../../src/ui/planner/ResultsTable');
+    const sensor = computePlan(planFileToInput(demoPlan())).sensors[0];
+    if (!sensor?.timingSdByPicker_s) throw new Error('the demo sensor has a timing');
+    const text = pickerTimingText(sensor, null) ?? '';
+    const { formatSignificant } = await import('../../src/ui/units/format-number');
+    for (const v of Object.values(sensor.timingSdByPicker_s)) expect(text).toContain(`${formatSignificant(v as number, 2)} s`);
+    expect(text).toMatch(/^By picker: fraction 0\.5 .* \(shown\), threshold 5σ .*, peak .*, cross-correlation with the drive .*\.$/);
+    expect(text).not.toMatch(/lower limits/);
+    expect(pickerTimingText({ ...sensor, timingLowerLimit: true }, null)).toMatch(/SNR below 10 these are lower limits/);
   });
 
   it('offers the table as a download beside it', async () => {

@@ -96,7 +96,7 @@ describe('rehearsal of a film heater (the pulse keeps the drive shape)', () => {
   const input = filmPlan({ rise_s: 10e-6, noise_V: 1e-6 });
   const result = computePlan(input);
 
-  it(`cross-correlation at high SNR: the rehearsed timing sd agrees with the analytic (Cramér–Rao) sd within 20 % (${KAY_CRB})`, () => {
+  it(`cross-correlation at high SNR: the rehearsed timing sd agrees with the planner's analytic sd for it within 20 %, and with the Cramér–Rao bound (${KAY_CRB})`, () => {
     const sensor = result.sensors[0];
     expect(sensor?.snrAveraged).toBeGreaterThan(50);
     const r = rehearse(input, result, options({ picker: 'xcorr', trials: 400, seed: 11 }));
@@ -108,14 +108,23 @@ describe('rehearsal of a film heater (the pulse keeps the drive shape)', () => {
     expect(Math.abs((s?.boundTimingSd_s ?? 0) / hand - 1)).toBeLessThan(0.05);
     // 400 trials estimate an sd to about 1/√800 = 3.5 %: 20 % is over five of those.
     expect(Math.abs((s?.arrivalSd_s ?? 0) / hand - 1)).toBeLessThan(0.2);
+    // The planner's own figure for this picker (picker-timing.ts), taken from the plan result, not recomputed here.
+    const planned = sensor?.timingSdByPicker_s?.xcorr ?? Number.NaN;
+    expect(s?.analyticTimingSd_s).toBe(planned);
+    expect(Math.abs((s?.arrivalSd_s ?? 0) / planned - 1)).toBeLessThan(0.2);
     expect(s?.failedShare).toBe(0);
   });
 
-  it("notes the planner's figure when the picker beats it by more than ×1.5, and names the cause", () => {
-    const r = rehearse(input, result, options({ picker: 'xcorr', trials: 50, seed: 2 }));
+  it("notes where the rehearsal and the planner's figure differ by more than ×1.5, and names the cause (SNR 3 after averaging)", () => {
+    // Small-noise figures fail at low SNR (common practice, no source): noise peaks move the fraction picker's level and crossing.
+    const noisy = filmPlan({ rise_s: 10e-6, noise_V: 20e-6 });
+    const planned = computePlan(noisy);
+    expect(planned.sensors[0]?.snrAveraged).toBeLessThan(4);
+    expect(planned.sensors[0]?.timingLowerLimit).toBe(true);
+    const r = rehearse(noisy, planned, options({ picker: 'fraction', trials: 200, seed: 2 }));
     const s = r.sensors[0];
-    expect(s?.sdRatio).toBeLessThan(1 / 1.5);
-    expect(s?.notes.join(' ')).toMatch(/narrower than a factor 1\.5.*cross-correlation uses every sample/);
+    expect(s?.sdRatio).toBeGreaterThan(1.5);
+    expect(s?.notes.join(' ')).toMatch(/wider than a factor 1\.5.*SNR after averaging is only/);
   });
 
   it.each(['threshold', 'peak', 'xcorr'] as const)('%s: the true arrival of a drive-shaped pulse is the planned one (to 5–10 % of a sample), and the picks are unbiased to 3 standard errors', (picker) => {

@@ -16,7 +16,7 @@ import {
 } from '../../io/plan-file';
 import { MAX_PLAN_FILE_BYTES, planTextFromBytes } from '../../io/plan-text';
 import { fromBaseUnit } from '../../io/quantity';
-import { computePlan, PhysicsError, type PlanResult, type SampledSignal } from '../../physics';
+import { computePlan, PhysicsError, type PlanResult, type SampledSignal, TIMING_SNR_LIMIT } from '../../physics';
 import type { BooleanFlag, OperandSpec } from '../args';
 import type { Command } from '../command';
 import { EXIT_OK, UsageError } from '../errors';
@@ -55,9 +55,11 @@ export const planCommand: Command = {
     `Reads a plan file (JSON, "format": "${PLAN_FORMAT}", SI units in every key; public/demo-plan.json ` +
     'is an example), checks every field against its valid range, and prints for each sensor when first ' +
     'and second sound arrive, the peak δT, the echoes, the signal-to-noise ratio and how finely the delay ' +
-    'pins the temperature, then the heater summary and every warning with its severity. With --json, ' +
+    'pins the temperature (σt: the timing sd of the fraction picker at half the peak, the converter’s ' +
+    'default, worked out from the predicted pulse; each picker’s figure below the table), then the heater summary and every warning with its severity. With --json, ' +
     'prints one object {name, bath, temperature_K, heater, record, sensors: [{id, label, pathLength_m, ' +
-    'firstSoundArrival_s, secondSoundArrival_s, amplitude_K, echoes, snrAveraged, temperatureSd_K, …}], ' +
+    'firstSoundArrival_s, secondSoundArrival_s, amplitude_K, echoes, snrAveraged, timingSd_s, ' +
+    'timingSdByPicker_s: {threshold, fraction, peak, xcorr}, timingLowerLimit, temperatureSd_K, …}], ' +
     'warnings: [{code, severity, message, sensorId, value, limit}]}; the predicted waveforms are left ' +
     'out unless --waveform is given too. A file that cannot be read or is not a valid plan exits with ' +
     'status 2 and one line naming the field and its valid range.',
@@ -201,7 +203,7 @@ export function renderPlanReport(path: string, plan: PlanFile, bath: PlanBath, r
     ['left', 'left'],
   );
   const rows: string[][] = [
-    ['Sensor', 'Label', 'Path (mm)', 'u₁ at (ms)', 'u₂ at (ms)', 'δT (mK)', 'SNR avg', 'σT (mK)', 'σT judged (mK)', 'Meets', 'Shortest (mm)', 'Echoes'],
+    ['Sensor', 'Label', 'Path (mm)', 'u₁ at (ms)', 'u₂ at (ms)', 'δT (mK)', 'SNR avg', 'σt (µs)', 'σT (mK)', 'σT judged (mK)', 'Meets', 'Shortest (mm)', 'Echoes'],
     ...result.sensors.map((s) => [
       s.id,
       s.label,
@@ -210,6 +212,7 @@ export function renderPlanReport(path: string, plan: PlanFile, bath: PlanBath, r
       inUnit(s.secondSoundArrival_s, 1e3),
       inUnit(s.amplitude_K, 1e3),
       sig(s.snrAveraged, 3),
+      `${s.timingLowerLimit ? '≥ ' : ''}${inUnit(s.timingSd_s, 1e6, 2)}`,
       inUnit(s.temperatureSd_K, 1e3, 3),
       inUnit(s.targetKind === 'absolute' ? s.temperatureSdWithModel_K : s.temperatureChangeSd_K, 1e3, 3),
       s.meetsTarget === null ? ABSENT : s.meetsTarget ? 'yes' : 'no',
@@ -217,7 +220,25 @@ export function renderPlanReport(path: string, plan: PlanFile, bath: PlanBath, r
       String(s.echoes.length),
     ]),
   ];
-  const lines = [`Plan: ${plan.name}`, `File: ${path}`, '', ...summary, '', ...alignTable(rows, ['left', 'left', 'right', 'right', 'right', 'right', 'right', 'right', 'right', 'left', 'right', 'right'])];
+  const lines = [`Plan: ${plan.name}`, `File: ${path}`, '', ...summary, '', ...alignTable(rows, ['left', 'left', 'right', 'right', 'right', 'right', 'right', 'right', 'right', 'right', 'left', 'right', 'right'])];
+  const timed = result.sensors.filter((s) => s.timingSdByPicker_s !== null);
+  if (timed.length > 0) {
+    lines.push(
+      '',
+      'σt: one averaged reading timed by the fraction picker at half the peak (the converter’s default), from the predicted pulse, noise and sample rate; per picker (µs):',
+      ...alignTable(
+        timed.map((s) => {
+          const t = s.timingSdByPicker_s as Record<'threshold' | 'fraction' | 'peak' | 'xcorr', number | null>;
+          return [`  ${s.id}`, `threshold 5σ ${inUnit(t.threshold, 1e6, 2)}`, `fraction 0.5 ${inUnit(t.fraction, 1e6, 2)}`, `peak ${inUnit(t.peak, 1e6, 2)}`, `cross-correlation ${inUnit(t.xcorr, 1e6, 2)}`];
+        }),
+        ['left', 'left', 'left', 'left', 'left'],
+      ),
+    );
+    const limits = timed.filter((s) => s.timingLowerLimit);
+    if (limits.length > 0) {
+      lines.push(`  ≥: small-noise figures, lower limits here (SNR after averaging below ${TIMING_SNR_LIMIT}: missed crossings and noise peaks widen the spread): ${limits.map((s) => s.id).join(', ')}; \`sekundo rehearse\` shows the real spread.`);
+    }
+  }
   const unreachable = result.sensors.filter((s) => s.shortestDistanceNote !== '');
   if (unreachable.length > 0) lines.push('', ...unreachable.map((s) => `${s.id}: ${s.shortestDistanceNote}`));
   const onWall = result.sensors.filter((s) => s.onPlane !== null);

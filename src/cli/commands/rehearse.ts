@@ -149,7 +149,7 @@ export function renderRehearsal(path: string, planName: string, r: RehearsalResu
     '',
     ...alignTable(rows, ['left', 'right', 'right', 'right', 'right', 'right', 'right', 'right', 'right', 'right', 'right']),
     '',
-    `True arrival: the delay of the feature this picker measures on the predicted pulse, measured like with like from the drive (the converter's rule); bias = mean picked − true. Temperatures use t0 calibrated with this picker; planner's T sd: a change between readings, from timing alone. Ratio: rehearsed sd / planner's sd (a note when beyond ×${SD_RATIO_NOTE}). Bound: the Cramér–Rao bound for the delay of the predicted pulse in this noise (Kay 1993), which a matched cross-correlation reaches at high SNR.`,
+    `True arrival: the delay of the feature this picker measures on the predicted pulse, measured like with like from the drive (the converter's rule); bias = mean picked − true. Temperatures use t0 calibrated with this picker; planner's T sd: a change between readings, from timing alone. Planner's sd: its analytic figure for this picker (noise through the picker's rule on the predicted pulse). Ratio: rehearsed sd / planner's sd (a note when beyond ×${SD_RATIO_NOTE}). Bound: the Cramér–Rao bound for the delay of the predicted pulse in this noise (Kay 1993), which a matched cross-correlation reaches at high SNR.`,
   ];
   for (const s of r.sensors) {
     const offset = s.featureOffset_s === null ? '' : `; its feature sits ${us(s.featureOffset_s)} µs from the planner's arrival ${us(s.plannedArrival_s, 6)} µs`;
@@ -201,7 +201,7 @@ export const rehearseCommand: Command = {
     'gives the same numbers), picks the arrival in each with the converter\'s own picking (the heater channel as time zero ' +
     'and as the cross-correlation template), and prints per sensor the bias and sd of the picked arrival against the true ' +
     'one, the share of failed picks, and the temperature bias and sd (through the converter\'s delay → temperature ' +
-    "inversion), beside the planner's analytic timing sd, with a note where they differ by more than a factor 1.5. The true " +
+    "inversion), beside the planner's analytic timing sd for that picker, with a note where they differ by more than a factor 1.5. The true " +
     'arrival is that of the feature the picker measures, on the prediction: onset to onset for threshold, fraction and xcorr, ' +
     'peak to peak for peak. With --json: {picker, trials, seed, temperature_K, sensors: [{id, arrival_s, arrivalBias_s, ' +
     'arrivalSd_s, failedShare, temperatureBias_K, temperatureSd_K, analyticTimingSd_s, plannedArrival_s, featureOffset_s, ' +

@@ -37,7 +37,16 @@ const COLUMNS: readonly Column[] = [
   { key: 'snr1', header: 'SNR, 1 pulse', about: 'Peak signal over rms noise, one pulse', ladder: null, value: (s) => s.snrSingle, digits: 3 },
   { key: 'snrN', header: 'SNR, averaged', about: 'Peak signal over rms noise after averaging', ladder: null, value: (s) => s.snrAveraged, digits: 3 },
   { key: 'pulses', header: 'Pulses for target SNR', about: 'Pulses to average to reach the target SNR', ladder: null, value: (s) => s.pulsesForTargetSnr, count: true },
-  { key: 'timing', header: 'Timing sd', about: 'One-sigma arrival time of one averaged reading', ladder: 'time', uncertainty: true, value: (s) => s.timingSd_s, digits: 2 },
+  {
+    key: 'timing',
+    header: 'Timing sd',
+    about:
+      'One-sigma arrival time of one averaged reading with the fraction picker at half the peak (the converter’s default), worked out from the predicted pulse, the noise after averaging and the sample rate; each value’s tooltip gives the other pickers. ≥: SNR below 10, a lower limit.',
+    ladder: 'time',
+    uncertainty: true,
+    value: (s) => s.timingSd_s,
+    digits: 2,
+  },
   { key: 'tsd', header: 'T sd', about: 'One-sigma temperature from one reading (timing and distance)', ladder: 'temperatureDifference', value: (s) => s.temperatureSd_K, digits: 2 },
   { key: 'tchange', header: 'T sd, changes', about: 'One-sigma of a temperature change between readings (timing only)', ladder: 'temperatureDifference', value: (s) => s.temperatureChangeSd_K, digits: 2 },
 ];
@@ -56,7 +65,10 @@ export function ResultsTable() {
         <h3 id="planner-results-title" className="card-title">
           Results per sensor
         </h3>
-        <p className="muted">Linear theory at {temperatureText(outcome.result.temperature_K, ladders.temperature)}; “—” where there is no second sound.</p>
+        <p className="muted">
+          Linear theory at {temperatureText(outcome.result.temperature_K, ladders.temperature)}; “—” where there is no second sound. Timing sd: the fraction
+          picker at half the peak; each value’s tooltip and the CSV give the other pickers.
+        </p>
         <CsvExportButton table={() => resultsCsv(outcome.result)} fileName="planned-results-per-sensor.csv" what="the results per sensor" />
       </div>
       <div className="table-scroll">
@@ -89,11 +101,18 @@ export function ResultsTable() {
                   <span className="swatch" style={{ background: themedColour(sensorColour(row), theme) }} aria-hidden="true" />
                   {s.label} <span className="results-sensor__id">({s.id})</span>
                 </th>
-                {COLUMNS.map((c, i) => (
-                  <td key={c.key} className="num" data-column={c.key}>
-                    {cellText(c.value(s), c, units[i] ?? null)}
-                  </td>
-                ))}
+                {COLUMNS.map((c, i) =>
+                  c.key === 'timing' ? (
+                    <td key={c.key} className="num" data-column={c.key} title={pickerTimingText(s, units[i] ?? null)}>
+                      {s.timingLowerLimit && s.timingSd_s !== null ? '≥ ' : ''}
+                      {cellText(c.value(s), c, units[i] ?? null)}
+                    </td>
+                  ) : (
+                    <td key={c.key} className="num" data-column={c.key}>
+                      {cellText(c.value(s), c, units[i] ?? null)}
+                    </td>
+                  ),
+                )}
                 <td data-column="meets">{meetsText(s)}</td>
                 <td data-column="shortest">{s.shortestDistanceForTarget_m === null ? <span title={s.shortestDistanceNote}>not reachable: {s.shortestDistanceNote.replace(/^Not reachable( for [^:]*)?: /, '')}</span> : formatLength(s.shortestDistanceForTarget_m, ladders)}</td>
                 <td>{sensitivity(s)}</td>
@@ -110,6 +129,15 @@ function cellText(value: number | null, column: Column, unit: DisplayUnit | null
   if (value === null || !Number.isFinite(value)) return '—';
   if (column.count) return value.toLocaleString('en-GB');
   return formatSignificant(unit ? inUnit(value, unit) : value, column.digits ?? 4);
+}
+
+/** Each picker's timing sd, for the timing cell's tooltip. */
+export function pickerTimingText(s: SensorPlanResult, unit: DisplayUnit | null): string | undefined {
+  const t = s.timingSdByPicker_s;
+  if (!t) return undefined;
+  const shown = (v: number | null) => (v === null ? '—' : `${formatSignificant(unit ? inUnit(v, unit) : v, 2)}${unit ? ` ${unit.shown}` : ' s'}`);
+  const limit = s.timingLowerLimit ? ' Small-noise figures: with SNR below 10 these are lower limits (rehearse to see the spread).' : '';
+  return `By picker: fraction 0.5 ${shown(t.fraction)} (shown), threshold 5σ ${shown(t.threshold)}, peak ${shown(t.peak)}, cross-correlation with the drive ${shown(t.xcorr)}.${limit}`;
 }
 
 function formatLength(x: number, ladders: ShownLadders): string {

@@ -200,8 +200,9 @@ function RehearseTable({ result }: { result: RehearsalResult }) {
       </div>
       <p className="field-hint">
         True arrival: the delay of the feature the picker measures on the predicted pulse, counted like with like from the drive (its 50 % rise; its
-        centre for the peak picker), as the converter counts it. Bias: mean pick − true. Planner’s sd: rise at the sensor over SNR with the sampling’s
-        Δt/√12. Bound: the Cramér–Rao bound for this pulse and noise (Kay 1993), which a matched cross-correlation reaches at high SNR. ≠: the rehearsed sd and the planner’s differ by more than ×1.5 (the note below says why). Temperatures:
+        centre for the peak picker), as the converter counts it. Bias: mean pick − true. Planner’s sd: the planner’s analytic figure for this picker (its noise
+        propagated through the picker’s own rule on the predicted pulse, over the trigger’s phase within a sample; with this rehearsal’s threshold,
+        fraction and digitiser step). Bound: the Cramér–Rao bound for this pulse and noise (Kay 1993), which a matched cross-correlation reaches at high SNR. ≠: the rehearsed sd and the planner’s differ by more than ×1.5 (the note below says why). Temperatures:
         each pick through the converter’s inversion with t₀ calibrated for this picker; the planner’s T sd is that of a change between readings.
       </p>
       <ul className="rehearse__notes">

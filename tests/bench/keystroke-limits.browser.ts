@@ -70,7 +70,8 @@ async function editToResult(page: Page, field: Locator, values: readonly string[
 async function serve(): Promise<{ url: string; server: ChildProcess | null }> {
   if (process.env.SEKUNDO_BENCH_URL) return { url: process.env.SEKUNDO_BENCH_URL, server: null };
   const port = process.env.SEKUNDO_BENCH_PORT ?? '4314';
-  const server = spawn('npx', ['vite', 'preview', '--config', 'vite.config.ts', '--host', '127.0.0.1', '--port', port, '--strictPort'], { stdio: 'ignore' });
+  // Its own process group: npx starts vite as a child, and stopping the group stops both.
+  const server = spawn('npx', ['vite', 'preview', '--config', 'vite.config.ts', '--host', '127.0.0.1', '--port', port, '--strictPort'], { stdio: 'ignore', detached: true });
   const url = `http://127.0.0.1:${port}/`;
   for (let i = 0; i < 100; i++) {
     try {
@@ -80,8 +81,17 @@ async function serve(): Promise<{ url: string; server: ChildProcess | null }> {
     }
     await new Promise((r) => setTimeout(r, 200));
   }
-  server.kill();
+  stopServer(server);
   throw new Error(`the built page did not come up on ${url} (npm run build first)`);
+}
+
+/** Stops the preview server and the vite process npx started (the whole group). */
+function stopServer(server: ChildProcess): void {
+  try {
+    if (server.pid !== undefined) process.kill(-server.pid);
+  } catch {
+    server.kill();
+  }
 }
 
 type Row = [string, ...string[]];
@@ -154,7 +164,7 @@ async function main(): Promise<void> {
     if (!only || only.split('|').includes('locate')) rows.push(await locateCase(browser, url, 500));
   } finally {
     await browser.close();
-    server?.kill();
+    if (server) stopServer(server);
   }
   const widths = (rows[0] ?? []).map((_, i) => Math.max(...rows.map((r) => (r[i] ?? '').length)));
   for (const r of rows) console.log(r.map((cell, i) => cell.padEnd(widths[i] ?? 0)).join('  '));

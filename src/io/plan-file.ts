@@ -28,6 +28,7 @@ import {
   type PlanFileShape,
 } from './plan-file-types';
 import { migratePlan } from './plan-migrations';
+import { withCheckedPointsShort } from './plan-points-check';
 import { show } from './plan-range-text';
 
 export * from './plan-file-types';
@@ -206,9 +207,13 @@ const NUMBER_ARRAY = /\[\n\s*(-?\d[\d.eE+-]*(?:,\n\s*-?\d[\d.eE+-]*)*)\n\s*\]/g;
  * {@link parsePlanFile} or check them with {@link PLAN_FILE_SCHEMA}).
  */
 export function serializePlanFile(plan: PlanFile): string {
-  const checked = PLAN_FILE_SCHEMA.safeParse(plan);
+  // A long custom pulse's points are checked by a plain loop, the rest by the schema (the page
+  // writes its autosave after each pause in typing; the schema takes long over 10 000 points).
+  const short = withCheckedPointsShort(plan);
+  const checked = PLAN_FILE_SCHEMA.safeParse(short.plan);
   if (!checked.success) throw new TypeError(`not a valid plan: ${issueMessages(checked.error.issues).join('; ')}`);
-  const text = JSON.stringify(checked.data, null, 2).replace(NUMBER_ARRAY, (_, items: string) => `[${items.split(/,\s*/).join(', ')}]`);
+  const data = short.points === null ? checked.data : { ...checked.data, heater: { ...checked.data.heater, shape: short.points } };
+  const text = JSON.stringify(data, null, 2).replace(NUMBER_ARRAY, (_, items: string) => `[${items.split(/,\s*/).join(', ')}]`);
   return `${text}\n`;
 }
 

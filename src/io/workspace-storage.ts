@@ -124,7 +124,8 @@ export function newAutosaveSlot(now = new Date()): string {
 
 /**
  * Saves the plan being edited into a tab's autosave slot (`slot`), or into the one slot of earlier
- * versions when `slot` is not given. Then drops the oldest slots past {@link MAX_AUTOSAVE_SLOTS}.
+ * versions when `slot` is not given. At a slot's first save in this page, drops the oldest slots past
+ * {@link MAX_AUTOSAVE_SLOTS}.
  */
 export function saveAutosave(store: KeyValueStore | null, plan: PlanFile, slot?: string, now = new Date()): StoreResult {
   if (!store) return unavailable('the plan');
@@ -134,9 +135,20 @@ export function saveAutosave(store: KeyValueStore | null, plan: PlanFile, slot?:
   } catch (error) {
     return writeFailure(error, 'the plan');
   }
-  if (slot !== undefined) pruneAutosaves(store, slot);
+  // Pruning reads every slot: done at a slot's first save (a new tab), not after every pause in typing.
+  if (slot !== undefined) {
+    const pruned = prunedSlots.get(store) ?? new Set<string>();
+    prunedSlots.set(store, pruned);
+    if (!pruned.has(slot)) {
+      pruned.add(slot);
+      pruneAutosaves(store, slot);
+    }
+  }
   return { ok: true, value: undefined };
 }
+
+/** Slots whose first save in this page has pruned the others, per store. */
+const prunedSlots = new WeakMap<KeyValueStore, Set<string>>();
 
 interface SlotEntry {
   key: string;

@@ -8,6 +8,15 @@ import { InvalidInputError, requireInRange } from './errors';
  * parallel to the coordinate planes (x, y or z = constant), which covers the walls, plates and
  * lids of a cryostat insert. An image lying on a plane is not mirrored in it: that is the heater's
  * own wall, already counted in the heater's half-space emission.
+ *
+ * A wave meets a plane only from the side the heater is on (the room's side): an image behind a
+ * plane is not mirrored in it. This is the validity test of the image method for rooms that are
+ * not simple boxes (Borish, J. Acoust. Soc. Am. 75, 1827 (1984), cited from memory). Without it,
+ * planes stacked on one side of the heater (two plates above it) gave paths that reflect off the
+ * back of the nearer plate: images that arrive before the direct wave, some in a sensor's own
+ * plane. In a box (one plane each side per axis) every image passes the test. The wave a
+ * partially reflecting plate lets through is followed as if the plate were not there (its
+ * transmission is not modelled).
  */
 
 export type Vec3 = readonly [number, number, number];
@@ -60,6 +69,12 @@ export function imageSources(source: Vec3, planes: readonly ReflectingPlane[], m
     requireInRange(`reflection of plane ${i + 1}`, p.reflection, -1, 1, '');
     requireInRange(`position of plane ${i + 1}`, p.position_m, -100, 100, 'm');
   });
+  // The room's side of each plane: the source's side; for a z plane through the source (the
+  // heater's wall) +z, where the heater faces; either side for an x or y plane through it.
+  const roomSide = planes.map((plane) => {
+    const d = source[AXIS_INDEX[plane.axis]] - plane.position_m;
+    return Math.abs(d) < ON_PLANE_M ? (plane.axis === 'z' ? 1 : 0) : Math.sign(d);
+  });
   const all: SourceImage[] = [{ position: source, factor: 1, order: 0, path: [] }];
   let frontier: { image: SourceImage; lastPlane: number }[] = [{ image: all[0] as SourceImage, lastPlane: -1 }];
   for (let order = 1; order <= maxOrder && frontier.length > 0; order++) {
@@ -70,6 +85,8 @@ export function imageSources(source: Vec3, planes: readonly ReflectingPlane[], m
         const k = AXIS_INDEX[plane.axis];
         const coordinate = image.position[k];
         if (Math.abs(coordinate - plane.position_m) < ON_PLANE_M) return;
+        const side = roomSide[index] as number;
+        if (side !== 0 && Math.sign(coordinate - plane.position_m) !== side) return;
         const factor = image.factor * plane.reflection;
         if (Math.abs(factor) < MIN_IMAGE_FACTOR) return;
         const position = [...image.position] as [number, number, number];

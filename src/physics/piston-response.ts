@@ -31,7 +31,7 @@ export interface PistonCase {
   face: HeaterFace;
   /** Peak flux times the image's reflection product, W/m². */
   q0: number;
-  /** Height of the sensor above the (image) face, m (> 0). */
+  /** Height of the sensor above the (image) face, m (≥ 0; 0: in the face's plane, a grazing image path). */
   z: number;
   u: number;
   rhoC: number;

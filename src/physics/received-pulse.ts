@@ -139,8 +139,15 @@ function checkPulseInputs(source: PulseSource, sensor: SensorPoint, medium: Medi
       requireInRange(`${name} ${'xyz'[k]}`, x, -1e3, 1e3, 'm');
     });
   }
-  const dz = Math.abs(sensor.position[2] - source.centre[2]);
-  if (!(dz > 0)) throw new InvalidInputError('sensor position', 'must lie off the heater plane (z differs from the heater)');
+  // A sensor in the plane of the face (height 0) is allowed: with stacked reflecting planes the
+  // image method puts heater images in a sensor's plane, a grazing path. The Rayleigh integral is
+  // continuous down to the face's plane (at z = 0, R = s and the ring form needs no 1/z), so the
+  // pulse there is its z → 0 limit, computed by the same formulas. Only a small source seen from
+  // its own point (r = 0) has no finite value.
+  if (source.geometry === 'point') {
+    const r = Math.hypot(sensor.position[0] - source.centre[0], sensor.position[1] - source.centre[1], sensor.position[2] - source.centre[2]);
+    if (!(r > 0)) throw new InvalidInputError('sensor position', 'must not coincide with the heater or one of its images (distance 0)');
+  }
 }
 
 /**

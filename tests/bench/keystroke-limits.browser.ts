@@ -10,9 +10,10 @@
  * already served at SEKUNDO_BENCH_URL. For each case it opens the plan (from the autosave), then:
  *
  * - keystroke: the time from each keydown (the event's own time stamp, so time spent waiting for
- *   a busy main thread counts) to the next animation frame in which the field shows the
- *   keystroke; 16 keystrokes typed into a sensor field, each an edit of the plan, with gaps of
- *   120–700 ms (some keystrokes land while results are drawn);
+ *   a busy main thread counts) to the end of the first frame in which the field shows the
+ *   keystroke, its paint included (tests/support/keystroke-timer.ts); 16 keystrokes typed into a
+ *   sensor field, each an edit of the plan, with gaps of 120–700 ms (some keystrokes land while
+ *   results are drawn);
  * - edit → result: the page's own timer (the hidden `.recompute-time` attributes: edit committed →
  *   the newest plan's timeline drawn) for edits of one sensor (the others come from the plan
  *   worker's per-sensor cache) and of the liquid depth above the setup (a bath input: every
@@ -26,62 +27,11 @@ import { type ChildProcess, spawn } from 'node:child_process';
 import { readFileSync } from 'node:fs';
 import { cpus, loadavg } from 'node:os';
 import { type Browser, chromium, type Locator, type Page } from 'playwright-core';
+import { DEFAULT_KEY_GAPS_MS, keystrokeTimes, typeDigits, watchKeystrokes } from '../support/keystroke-timer';
 import { limitCases, locateCsv } from '../support/limit-plans';
 
 const KEYSTROKES = 16;
-/** Gaps between keystrokes, ms, in turn: a word typed, then pauses long enough for results to draw. */
-const KEY_GAPS_MS = [120, 150, 120, 400, 130, 700, 160, 250];
-
-declare global {
-  interface Window {
-    /** Keydown → frame showing the keystroke, ms, one entry per keystroke (NaN: never shown). */
-    sekundoKeyTimes?: number[];
-  }
-}
-
-/**
- * The page-side timer, as text: tsx names the functions of a script it compiles (`__name`), which
- * the page does not have, so the part that runs in the page is plain JavaScript.
- */
-const KEYSTROKE_TIMER = `(() => {
-  const times = (window.sekundoKeyTimes = []);
-  document.addEventListener('keydown', (event) => {
-    const field = event.target;
-    if (!(field instanceof HTMLInputElement || field instanceof HTMLTextAreaElement)) return;
-    if (event.key.length !== 1 && event.key !== 'Backspace' && event.key !== 'Delete') return;
-    const start = event.timeStamp;
-    const before = field.value;
-    const slot = times.push(Number.NaN) - 1;
-    const look = () => requestAnimationFrame(() => {
-      if (field.value !== before) times[slot] = performance.now() - start;
-      else if (performance.now() - start < 10000) look();
-    });
-    look();
-  }, true);
-})()`;
-
-/** Starts timing every keystroke in the page: keydown → the next frame in which the field has changed. */
-export async function watchKeystrokes(page: Page): Promise<void> {
-  await page.evaluate(KEYSTROKE_TIMER);
-}
-
-/** The keystroke times so far, ms. */
-export async function keystrokeTimes(page: Page): Promise<number[]> {
-  return page.evaluate(() => [...(window.sekundoKeyTimes ?? [])]);
-}
-
-/**
- * Types into a field as a person would: the caret at the start, then a digit and Backspace in
- * turn (each keystroke changes the value, so each is an edit of the plan), `count` keystrokes.
- */
-export async function typeDigits(page: Page, field: Locator, count = KEYSTROKES, gaps_ms: readonly number[] = KEY_GAPS_MS): Promise<void> {
-  await field.click();
-  await field.press('Home');
-  for (let i = 0; i < count; i++) {
-    await page.keyboard.press(i % 2 === 0 ? String(2 + ((i / 2) % 7)) : 'Backspace');
-    await page.waitForTimeout(gaps_ms[i % gaps_ms.length] ?? 150);
-  }
-}
+const KEY_GAPS_MS = DEFAULT_KEY_GAPS_MS;
 
 function sorted(values: readonly number[]): number[] {
   return [...values].sort((a, b) => a - b);
@@ -120,7 +70,8 @@ async function editToResult(page: Page, field: Locator, values: readonly string[
 async function serve(): Promise<{ url: string; server: ChildProcess | null }> {
   if (process.env.SEKUNDO_BENCH_URL) return { url: process.env.SEKUNDO_BENCH_URL, server: null };
   const port = process.env.SEKUNDO_BENCH_PORT ?? '4314';
-  const server = spawn('npx', ['vite', 'preview', '--config', 'vite.config.ts', '--host', '127.0.0.1', '--port', port, '--strictPort'], { stdio: 'ignore' });
+  // Its own process group: npx starts vite as a child, and stopping the group stops both.
+  const server = spawn('npx', ['vite', 'preview', '--config', 'vite.config.ts', '--host', '127.0.0.1', '--port', port, '--strictPort'], { stdio: 'ignore', detached: true });
   const url = `http://127.0.0.1:${port}/`;
   for (let i = 0; i < 100; i++) {
     try {
@@ -130,8 +81,17 @@ async function serve(): Promise<{ url: string; server: ChildProcess | null }> {
     }
     await new Promise((r) => setTimeout(r, 200));
   }
-  server.kill();
+  stopServer(server);
   throw new Error(`the built page did not come up on ${url} (npm run build first)`);
+}
+
+/** Stops the preview server and the vite process npx started (the whole group). */
+function stopServer(server: ChildProcess): void {
+  try {
+    if (server.pid !== undefined) process.kill(-server.pid);
+  } catch {
+    server.kill();
+  }
 }
 
 type Row = [string, ...string[]];
@@ -204,7 +164,7 @@ async function main(): Promise<void> {
     if (!only || only.split('|').includes('locate')) rows.push(await locateCase(browser, url, 500));
   } finally {
     await browser.close();
-    server?.kill();
+    if (server) stopServer(server);
   }
   const widths = (rows[0] ?? []).map((_, i) => Math.max(...rows.map((r) => (r[i] ?? '').length)));
   for (const r of rows) console.log(r.map((cell, i) => cell.padEnd(widths[i] ?? 0)).join('  '));

@@ -1,4 +1,4 @@
-import { screen, waitFor, within } from '@testing-library/react';
+import { act, screen, waitFor, within } from '@testing-library/react';
 import { lastDraw } from './fake-plotly';
 import { field, openPlanner, retype, store, shown } from './planner-helpers';
 
@@ -72,5 +72,33 @@ describe('planner sensors', () => {
     await user.keyboard('{Escape}');
     await user.selectOptions(screen.getByRole('combobox', { name: 'Sensor 1 position given as' }), 'axis');
     expect(sensors()[0]?.distance_m).toBeCloseTo(Math.hypot(0.003, 0.01), 9);
+  });
+
+  it('a plan of many sensors shows 16 rows a page; an added or duplicated sensor’s page is turned to', { timeout: 120_000 }, async () => {
+    const { user } = await openPlanner();
+    const demo = store().plannerPlan;
+    const first = demo.sensors[0];
+    if (!first) throw new Error('no sensor');
+    const many = Array.from({ length: 18 }, (_, i) => ({ ...first, id: `m${i + 1}`, label: `Many ${i + 1}`, distance_m: 0.01 + 0.001 * i }));
+    act(() => store().loadPlannerPlan({ ...demo, sensors: many }, { kind: 'file', note: null }));
+    const pages = await screen.findByRole('navigation', { name: 'Pages of sensors' });
+    expect(pages).toHaveTextContent('sensors 1–16 of 18');
+    expect(screen.getByRole('textbox', { name: 'Sensor 16 noise' })).toBeInTheDocument();
+    expect(screen.queryByRole('textbox', { name: 'Sensor 17 noise' })).toBeNull();
+    // Every sensor still has its result.
+    expect(resultRows()).toHaveLength(18);
+    await user.click(within(pages).getByRole('button', { name: 'Later sensors' }));
+    expect(pages).toHaveTextContent('sensors 17–18 of 18');
+    expect(shown('Sensor 18 distance')).toBe('27 mm');
+    await user.click(within(pages).getByRole('button', { name: 'First' }));
+    await user.click(screen.getByRole('button', { name: 'Add sensor' }));
+    expect(sensors()).toHaveLength(19);
+    expect(pages).toHaveTextContent('sensors 17–19 of 19');
+    expect(screen.getByRole('textbox', { name: 'Sensor 19 noise' })).toBeInTheDocument();
+    await user.click(within(pages).getByRole('button', { name: 'First' }));
+    await user.click(screen.getByRole('button', { name: 'Duplicate sensor 16 (m16)' }));
+    expect(sensors()[16]?.id).toBe('m16-copy');
+    expect(pages).toHaveTextContent('sensors 17–20 of 20');
+    expect(screen.getByRole('textbox', { name: 'Sensor 17 id' })).toHaveValue('m16-copy');
   });
 });

@@ -2,23 +2,32 @@
  * The worst cases of the documented limits in Chromium: a plan with 64 sensors, 16 reflecting
  * planes at echo order 12 and a 10 000-point custom pulse, and 500 located sensors.
  *
- * What is checked, without timing anything by the clock (a shared machine's load stretches every
- * task): the page computes these in its workers, so while the largest plan is being computed (the
- * page says it is updating) every keystroke typed lands in the field, in order, and the page's
- * main thread computes no plan and no fit at all — the page notes any such work in its performance
- * timeline (`noteThreadWork`), and the test finds none, while the results still arrive in full (no
- * lowered limit, no message in their place). The main thread's long tasks (Long Tasks API) are
- * reported beside the test for the record. Keystroke times are measured by
- * tests/bench/keystroke-limits.browser.ts.
+ * The page computes these in its workers: while the largest plan is being computed (the page says
+ * it is updating) every keystroke typed lands in the field, in order, and the page's main thread
+ * computes no plan and no fit at all — the page notes any such work in its performance timeline
+ * (`noteThreadWork`), and the test finds none — while the results still arrive in full (no lowered
+ * limit, no message in their place).
+ *
+ * The keystroke times are measured as the browser benchmark measures them
+ * (tests/support/keystroke-timer.ts: keydown → end of the first frame showing the keystroke, its
+ * paint included), while the plan computes and then while its results are redrawn after each
+ * edit; their 90th percentile is held within KEYSTROKE_GUARD_MS and reported beside the test
+ * against the 100 ms target, which the page does not yet meet at these limits on a loaded machine
+ * (see the constants; the benchmark reports median and worst). The main thread's long tasks (Long
+ * Tasks API) are reported beside the test for the record.
  */
 import { readFileSync } from 'node:fs';
 import { expect, type Page, test } from '@playwright/test';
 import { limitCases, locateCsv } from '../support/limit-plans';
 import { guardEveryPage } from './page-guard';
+import { keystrokeTimes, quantile, typeDigits, watchKeystrokes } from '../support/keystroke-timer';
 import { PLAN_ON_THIS_THREAD } from '../../src/ui/planner/derive-plan';
 import { LOCATE_ON_THIS_THREAD } from '../../src/ui/locate/use-locate';
 
 guardEveryPage();
+// Keystrokes are timed here: the test runner's trace would snapshot the page at every key pressed,
+// on the page's own main thread, and time itself rather than the page.
+test.use({ trace: 'off' });
 
 /** Long tasks of the main thread from now on, ms each (the Long Tasks API: 50 ms and more). */
 async function watchLongTasks(page: Page): Promise<void> {
@@ -45,7 +54,29 @@ async function recordLongTasks(page: Page, what: string): Promise<void> {
   test.info().annotations.push({ type: 'long tasks', description: `${what}: ${tasks.length} long tasks, longest ${Math.max(0, ...tasks)} ms` });
 }
 
-test('all planner limits together: typing stays in the field while the plan computes off the main thread; then every result arrives', async ({ page }) => {
+/** The target: a keystroke answered within this, ms ("at every documented limit a keystroke is answered within 100 ms"). */
+const KEYSTROKE_TARGET_MS = 100;
+/**
+ * What this test holds the page to, ms, at the 90th percentile: the target is not yet met at these
+ * limits on the shared two-core machine the suite runs on (90th percentiles of 180–220 ms measured
+ * at a load of 5, where the demo plan's worst keystroke is over 100 ms too), so the test guards
+ * what was reached — keystrokes of 1.6–3.6 s before the work moved off the main thread fail it —
+ * and notes the figures beside it against the target. Lower it as the page gets quicker.
+ */
+const KEYSTROKE_GUARD_MS = 400;
+
+/** Notes the keystroke times beside the test (against the target) and checks their 90th percentile against the guard. */
+function expectKeystrokesAnswered(times: readonly number[], what: string): void {
+  const p90 = quantile(times, 0.9);
+  test.info().annotations.push({
+    type: 'keystrokes',
+    description: `${what}: ${times.length} keystrokes, median ${Math.round(quantile(times, 0.5))} ms, 90th percentile ${Math.round(p90)} ms, worst ${Math.round(quantile(times, 1))} ms (target ${KEYSTROKE_TARGET_MS} ms)`,
+  });
+  expect(times.length).toBeGreaterThan(20);
+  expect(p90, `${what}: 90th percentile of keystroke times (ms): ${times.map(Math.round).join(' ')}`).toBeLessThanOrEqual(KEYSTROKE_GUARD_MS);
+}
+
+test('all planner limits together: keystrokes answered within 400 ms (90th percentile, paint included; target 100 ms) while the plan computes off the main thread and while its results redraw; every result arrives', async ({ page }) => {
   test.setTimeout(600_000);
   const worst = limitCases(JSON.parse(readFileSync('public/demo-plan.json', 'utf8'))).at(-1);
   if (!worst) throw new Error('no limit cases');
@@ -62,6 +93,7 @@ test('all planner limits together: typing stays in the field while the plan comp
   await expect(page.locator('.plan-problem')).toHaveCount(0);
 
   await watchLongTasks(page);
+  await watchKeystrokes(page);
   const typed = ' — frame of 64, all planes';
   await name.click();
   await name.press('End');
@@ -81,9 +113,15 @@ test('all planner limits together: typing stays in the field while the plan comp
   expect(await mainThreadWork(page, PLAN_ON_THIS_THREAD)).toBe(0);
   await page.getByRole('button', { name: 'Later points' }).click();
   await expect(page.getByRole('textbox', { name: 'Point 51 time' })).toBeVisible();
+
+  // Edits of one sensor, typed with pauses long enough for each new result to be drawn.
+  await typeDigits(page, page.getByRole('textbox', { name: 'Sensor 1 noise', exact: true }));
+  await page.waitForTimeout(500);
+  await recordLongTasks(page, 'typing while the largest plan computes and redraws');
+  expectKeystrokesAnswered(await keystrokeTimes(page), 'largest plan');
 });
 
-test('500 located sensors: a page of rows; typing an arrival stays in the field while the fit runs off the main thread', async ({ page }) => {
+test('500 located sensors: a page of rows; keystrokes answered within 400 ms (90th percentile, paint included; target 100 ms) while the fit runs off the main thread', async ({ page }) => {
   test.setTimeout(300_000);
   await page.goto('./');
   await page.getByRole('tab', { name: 'Locate a source' }).click();
@@ -94,11 +132,16 @@ test('500 located sensors: a page of rows; typing an arrival stays in the field 
   const field = page.getByRole('textbox', { name: 'Arrival at S1 (ms)' });
   const before = await field.inputValue();
   await watchLongTasks(page);
+  await watchKeystrokes(page);
   await field.click();
   await field.press('End');
   await page.keyboard.type('1234', { delay: 60 });
   await expect(field).toHaveValue(`${before}1234`);
+  // Then edits typed with pauses long enough for each new fit to be drawn.
+  await typeDigits(page, field, 20);
+  await page.waitForTimeout(500);
   await recordLongTasks(page, 'typing arrivals with 500 sensors');
+  expectKeystrokesAnswered(await keystrokeTimes(page), '500 located sensors');
   // The fit of the newest arrivals arrives once typing pauses, computed off the main thread.
   await expect(page.locator('.locate .updating-note')).toHaveAttribute('data-updating', 'false', { timeout: 120_000 });
   await expect(page.locator('.locate-summary')).not.toContainText('Locating the source…');

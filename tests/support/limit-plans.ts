@@ -19,15 +19,14 @@ function customPulse(demo: Json, points: number): Json {
 }
 
 /**
- * `count` sensors on a frame 10–42 mm in front of the heater, and `planes` plates 5–20 mm beside and
- * behind. The sensors start at 10.1 mm, not 10 mm: with plates stacked behind each other the image
- * method puts a heater image at exactly z = 24 mm, and a sensor in an image's plane makes the
- * kernel refuse the plan ("must lie off the heater plane") — a kernel limit noted for its own fix.
+ * `count` sensors on a frame 10–42 mm in front of the heater, and `planes` plates beside, above and
+ * behind it, several stacked on one side (some sensors sit at the heights where paths off the back
+ * of a stacked plate once put heater images: tests/unit/grazing-image.test.ts).
  */
 function crowded(demo: Json, count: number, planes: number, echoOrder: number): Json {
   const base = (demo.sensors as Json[])[0] as Json;
   const sensors = Array.from({ length: count }, (_, i) => {
-    const s: Json = { ...base, id: `s${i + 1}`, label: `Sensor ${i + 1}`, position_m: [0.002 * ((i % 8) - 3.5), 0.002 * (Math.floor(i / 8) - 3.5), 0.0101 + 0.0005 * i] };
+    const s: Json = { ...base, id: `s${i + 1}`, label: `Sensor ${i + 1}`, position_m: [0.002 * ((i % 8) - 3.5), 0.002 * (Math.floor(i / 8) - 3.5), 0.01 + 0.0005 * i] };
     delete s.distance_m;
     return s;
   });

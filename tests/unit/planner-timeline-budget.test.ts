@@ -7,7 +7,7 @@
 import { readFileSync } from 'node:fs';
 import { parsePlanFile, planFileToInput } from '../../src/io/plan-file';
 import { computePlan } from '../../src/physics';
-import { timelineFigure } from '../../src/ui/planner/timeline-figure';
+import { ECHO_MARK_BUDGET, MIN_ECHOES_PER_SENSOR, timelineFigure } from '../../src/ui/planner/timeline-figure';
 import { limitCases } from '../support/limit-plans';
 
 const demo = JSON.parse(readFileSync('public/demo-plan.json', 'utf8'));
@@ -37,9 +37,10 @@ describe('timeline of a crowded plan', () => {
     };
     const result = resultOf(plan);
     const fig = timelineFigure(result, 'record', 1000);
-    expect(fig.echoes.inView).toBeGreaterThan(1200);
-    expect(fig.echoes.shown).toBeLessThanOrEqual(1200);
-    expect(fig.echoes.shown).toBeGreaterThanOrEqual(64 * 8);
+    expect(ECHO_MARK_BUDGET).toBe(600);
+    expect(fig.echoes.inView).toBeGreaterThan(ECHO_MARK_BUDGET);
+    expect(fig.echoes.shown).toBeLessThanOrEqual(ECHO_MARK_BUDGET);
+    expect(fig.echoes.shown).toBeGreaterThanOrEqual(64 * MIN_ECHOES_PER_SENSOR);
     const marks = fig.data.find((d) => d.name === 'Arrivals');
     // Every first- and second-sound arrival is marked, plus the echoes shown.
     expect(marks?.x?.length).toBe(64 * 2 + fig.echoes.shown);

@@ -8,7 +8,10 @@ export const TABLE_PAGE_ROWS = 50;
  * Tables shorter than a page show every row and no pager. Only the rows on screen are rendered,
  * so a 10 000-point pulse or 500 sensors cost what 50 rows cost.
  */
-export function usePagedRows(count: number, pageRows = TABLE_PAGE_ROWS): { start: number; end: number; pager: (what: string) => React.ReactNode } {
+export function usePagedRows(
+  count: number,
+  pageRows = TABLE_PAGE_ROWS,
+): { start: number; end: number; pager: (what: string) => React.ReactNode; showRow: (index: number) => void } {
   const [page, setPage] = useState(0);
   const pages = Math.max(1, Math.ceil(count / pageRows));
   const current = Math.min(page, pages - 1);
@@ -34,5 +37,7 @@ export function usePagedRows(count: number, pageRows = TABLE_PAGE_ROWS): { start
         </button>
       </nav>
     );
-  return { start, end, pager };
+  /** Turns to the page holding row `index` (0-based; a row just added, for one). */
+  const showRow = (index: number) => setPage(Math.max(0, Math.floor(index / pageRows)));
+  return { start, end, pager, showRow };
 }

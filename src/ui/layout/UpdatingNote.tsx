@@ -27,10 +27,10 @@ export function UpdatingNote({ updating, text }: { updating: boolean; text: stri
   return (
     <p ref={note} className="updating-note" role="status" data-updating={updating ? 'true' : 'false'}>
       {shown ? (
-        <>
+        <span className="updating-note__body">
           <span className="updating-note__mark" aria-hidden="true" />
           {text}
-        </>
+        </span>
       ) : null}
     </p>
   );

@@ -1,4 +1,4 @@
-import { Fragment } from 'react';
+import { Fragment, memo, useMemo } from 'react';
 import { useShallow } from 'zustand/react/shallow';
 import { usePagedRows } from '../layout/TablePager';
 import { HelpColumnHead, useFieldHelp } from '../help/FieldHelp';
@@ -31,11 +31,16 @@ export function LocateSensors() {
   const arrivalHelp = useFieldHelp('arrival time', LOCATE_HELP.arrival(time.shown));
   const sdHelp = useFieldHelp('timing sd of a sensor', LOCATE_HELP.sensorSd);
   const { start, end, pager } = usePagedRows(rows.length);
-  const columns: Columns = {
-    length: { shown: length.shown },
-    time: { shown: time.shown },
-    help: { label: labelHelp.describedBy, position: positionHelp.describedBy, arrival: arrivalHelp.describedBy, sd: sdHelp.describedBy },
-  };
+  // One object while the units and help stay: the rows are memoised, and a keystroke re-renders
+  // only the row it changed (its row object is new; the others are the same objects).
+  const columns: Columns = useMemo(
+    () => ({
+      length: { shown: length.shown },
+      time: { shown: time.shown },
+      help: { label: labelHelp.describedBy, position: positionHelp.describedBy, arrival: arrivalHelp.describedBy, sd: sdHelp.describedBy },
+    }),
+    [length.shown, time.shown, labelHelp.describedBy, positionHelp.describedBy, arrivalHelp.describedBy, sdHelp.describedBy],
+  );
   return (
     <section className="card locate-card" aria-labelledby="locate-sensors-title">
       <div className="card-head">
@@ -94,7 +99,7 @@ export function LocateSensors() {
   );
 }
 
-function SensorRow({ row, columns }: { row: LocateRowInput; columns: Columns }) {
+const SensorRow = memo(function SensorRow({ row, columns }: { row: LocateRowInput; columns: Columns }) {
   const remove = useSekundoStore((s) => s.removeLocateSensor);
   const prefix = `row.${row.key}.`;
   // Messages of the row's fields (the fields slice) and of its controls, in one list under the row.
@@ -163,4 +168,4 @@ function SensorRow({ row, columns }: { row: LocateRowInput; columns: Columns }) 
       ) : null}
     </Fragment>
   );
-}
+});

@@ -14,7 +14,7 @@ import { ResultsTable } from './ResultsTable';
 import { SensorsEditor } from './SensorsEditor';
 import { SetupEditor } from './SetupEditor';
 import { TimelineChart } from './TimelineChart';
-import { usePlanOutcome, usePlanUpdating } from './use-plan';
+import { usePlanOutcome, usePlanUpdating, useRequestPlans } from './use-plan';
 import { WarningsList } from './WarningsList';
 import { WorkspaceBar } from '../workspace/WorkspaceBar';
 
@@ -37,6 +37,7 @@ export function PlannerView() {
       <PanelErrorBoundary panel="workspace bar">
         <WorkspaceBar />
       </PanelErrorBoundary>
+      <PlanRequests />
       <PlanProblem />
       <PlanUpdating />
       <div className="planner-top">
@@ -84,6 +85,12 @@ function useDemoPlanOnFirstOpen(): void {
       if (useSekundoStore.getState().plannerStatus === 'loading') load(plan, source);
     });
   }, [begin, load]);
+}
+
+/** Asks the plan worker for each new plan; renders nothing (only it re-renders on every edit). */
+function PlanRequests() {
+  useRequestPlans();
+  return null;
 }
 
 /** When the kernel refuses the plan as a whole (e.g. one opened from a file), say why; the plan is kept as it is. */

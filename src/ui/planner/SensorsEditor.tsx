@@ -13,6 +13,13 @@ import { themedColour } from '../plot/plot-theme';
 import { useResolvedTheme } from '../theme/use-theme';
 import { sensorColour } from './planner-colours';
 import { CopyIcon, RemoveIcon } from './RowIcons';
+import { usePagedRows } from '../layout/TablePager';
+
+/**
+ * Sensor rows shown at once: a row holds a dozen fields, and 16 rows keep a keystroke in a plan of
+ * 64 sensors as quick as in a small plan (tests/bench/keystroke-limits.browser.ts).
+ */
+export const SENSOR_PAGE_ROWS = 16;
 
 /** The help of each column of the sensors table; the cells point to it. */
 interface SensorColumnHelp {
@@ -53,8 +60,14 @@ function useSensorColumnHelp(): SensorColumnHelp {
 export function SensorsEditor() {
   const count = useSekundoStore((s) => s.plannerPlan.sensors.length);
   const keys = useSekundoStore((s) => s.plannerSensorKeys);
-  const add = useSekundoStore((s) => s.addPlannerSensor);
+  const addSensor = useSekundoStore((s) => s.addPlannerSensor);
   const help = useSensorColumnHelp();
+  const { start, end, pager, showRow } = usePagedRows(count, SENSOR_PAGE_ROWS);
+  // A row added or duplicated is shown: its page is turned to.
+  const add = () => {
+    addSensor();
+    showRow(count);
+  };
   return (
     <EditorCard
       id="planner-sensors"
@@ -98,17 +111,18 @@ export function SensorsEditor() {
               </th>
             </tr>
           </thead>
-          {keys.map((key, i) => (
-            <SensorRow key={key} index={i} rowKey={key} count={count} help={help} />
+          {keys.slice(start, end).map((key, j) => (
+            <SensorRow key={key} index={start + j} rowKey={key} count={count} help={help} onDuplicated={showRow} />
           ))}
         </table>
       </div>
+      {pager('sensors')}
       <PlanControlMessage controlKey={PLANNER_STRUCTURE_KEY} />
     </EditorCard>
   );
 }
 
-function SensorRow({ index, rowKey, count, help }: { index: number; rowKey: string; count: number; help: SensorColumnHelp }) {
+function SensorRow({ index, rowKey, count, help, onDuplicated }: { index: number; rowKey: string; count: number; help: SensorColumnHelp; onDuplicated: (index: number) => void }) {
   const sensor = useSekundoStore((s) => s.plannerPlan.sensors[index]);
   const duplicate = useSekundoStore((s) => s.duplicatePlannerSensor);
   const theme = useResolvedTheme();
@@ -157,7 +171,11 @@ function SensorRow({ index, rowKey, count, help }: { index: number; rowKey: stri
           <QuantityField {...lag} label={`Sensor ${n} lag`} labelHidden message="elsewhere" describedBy={help.lag.describedBy} />
         </td>
         <td className="row-actions">
-          <button type="button" className="icon-button" aria-label={`Duplicate sensor ${n} (${sensor.id})`} title="Duplicate" disabled={count >= MAX_SENSORS} onClick={() => duplicate(index)}>
+          <button type="button" className="icon-button" aria-label={`Duplicate sensor ${n} (${sensor.id})`} title="Duplicate" disabled={count >= MAX_SENSORS} onClick={() => {
+              duplicate(index);
+              onDuplicated(index + 1);
+            }}
+          >
             <CopyIcon />
           </button>
           <button type="button" className="icon-button" aria-label={`Remove sensor ${n} (${sensor.id})`} title={count <= 1 ? 'A plan needs at least one sensor' : 'Remove'} disabled={count <= 1} onClick={() => remove(index)}>

@@ -1,14 +1,13 @@
 import { noteThreadWork } from '../layout/main-thread-work';
-import { CUSTOM_AMPLITUDE_RANGE, explainPlanError, type PlanBath, type PlanFile, parsePlanFile, planBath, planFileToInput } from '../../io/plan-file';
+import { withCheckedPointsShort } from '../../io/plan-points-check';
+import { explainPlanError, type PlanBath, type PlanFile, parsePlanFile, planBath, planFileToInput } from '../../io/plan-file';
 import {
   checkPlanInput,
   computePlanSteps,
-  CUSTOM_PULSE_MAX_POINTS,
   imageSources,
   MAX_ECHO_ORDER,
   type PlanInput,
   type PlanResult,
-  PULSE_WIDTH_RANGE_S,
   type SensorResultCache,
 } from '../../physics';
 import { describePlanMessage } from './plan-paths';
@@ -78,49 +77,13 @@ export function derivePlan(plan: PlanFile, cache?: SensorResultCache): PlanOutco
 export const PLAN_ON_THIS_THREAD = 'sekundo: plan computed on this thread';
 
 /**
- * Whether a custom pulse's points pass every rule the plan-file schema has for them (2 to the
- * limit of points, each [time, amplitude] in range, times increasing, some amplitude above 0, a
- * duration of at least the shortest pulse): a plain loop, microseconds for 10 000 points where the
- * schema takes a few hundred milliseconds. When it fails, the schema runs to word the messages.
- */
-function pointsPass(points: unknown): boolean {
-  if (!Array.isArray(points) || points.length < 2 || points.length > CUSTOM_PULSE_MAX_POINTS) return false;
-  let previous = Number.NEGATIVE_INFINITY;
-  let peak = 0;
-  for (const point of points) {
-    if (!Array.isArray(point) || point.length !== 2) return false;
-    const [t, a] = point as unknown[];
-    if (typeof t !== 'number' || typeof a !== 'number' || !Number.isFinite(t) || !Number.isFinite(a)) return false;
-    if (!(t >= 0 && t <= PULSE_WIDTH_RANGE_S[1]) || !(a >= CUSTOM_AMPLITUDE_RANGE[0] && a <= CUSTOM_AMPLITUDE_RANGE[1]) || !(t > previous)) return false;
-    previous = t;
-    peak = Math.max(peak, a);
-  }
-  return peak > 0 && previous >= PULSE_WIDTH_RANGE_S[0];
-}
-
-/**
- * The plan with a custom pulse whose points pass {@link pointsPass} replaced by a two-point
- * stand-in of the same duration and height, for the schema's check of the rest of the plan on
- * every keystroke.
- */
-function withCheckedPointsShort(plan: PlanFile): PlanFile {
-  const shape = plan.heater.shape;
-  if (typeof shape === 'string' || !pointsPass(shape.custom)) return plan;
-  const points = shape.custom;
-  const last = points[points.length - 1] as readonly [number, number];
-  let peak = 0;
-  for (const p of points) peak = Math.max(peak, p[1]);
-  return { ...plan, heater: { ...plan.heater, shape: { custom: [[0, peak], [last[0], peak]] } } };
-}
-
-/**
  * Why a changed plan cannot be used, or null: the plan-file schema (every field and cross-field
  * rule), then the kernel's check of its inputs. Cheap enough for every keystroke: the plan itself
  * is computed in the plan worker, and a plan the kernel still refuses there shows its message in
  * place of results. The message names the field as the page labels it.
  */
 export function planProblem(plan: PlanFile): string | null {
-  const parsed = parsePlanFile(JSON.stringify(withCheckedPointsShort(plan)));
+  const parsed = parsePlanFile(JSON.stringify(withCheckedPointsShort(plan).plan));
   if (!parsed.ok) {
     const [first = 'plan: not valid', ...rest] = parsed.errors;
     const more = rest.length > 0 ? ` (and ${rest.length} more)` : '';

@@ -118,16 +118,23 @@ export function planWorkerRuns(): boolean {
   return planPort() !== null;
 }
 
-/** What the planner shows for the store's plan (asks for it when it changes). */
-export function useShownPlan(plan: PlanFile): ShownPlan {
-  const inWorker = planWorkerRuns();
-  useEffect(() => {
-    if (inWorker) requestPlan(plan);
-  }, [plan, inWorker]);
+/**
+ * What the planner shows. `plan`: the store's plan where no worker runs (computed here), null where
+ * the worker runs: the newest answer then, whatever the plan being typed (usePlanRequests asks for
+ * each plan), so a keystroke re-renders none of the views that read the results.
+ */
+export function useShownPlan(plan: PlanFile | null): ShownPlan {
   const fromWorker = useSyncExternalStore(subscribe, current, current);
-  const here = useMemo(() => (inWorker ? null : derivePlan(plan, localCache)), [plan, inWorker]);
-  if (here !== null) return { plan, outcome: here, figure: null, timeline: null, updating: false };
+  const here = useMemo(() => (plan === null ? null : derivePlan(plan, localCache)), [plan]);
+  if (plan !== null && here !== null) return { plan, outcome: here, figure: null, timeline: null, updating: false };
   return fromWorker;
+}
+
+/** Asks the worker for each new plan (`plan`: the store's plan where the worker runs, else null); used once, by the planner view. */
+export function usePlanRequests(plan: PlanFile | null): void {
+  useEffect(() => {
+    if (plan !== null) requestPlan(plan);
+  }, [plan]);
 }
 
 /** The timeline figure for the shown outcome: from the worker, or built here where none runs. */

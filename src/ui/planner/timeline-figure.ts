@@ -21,11 +21,12 @@ const MILLISECONDS: DisplayUnit = { shown: 'ms', unit: 'ms' };
 const SENSOR_POINT_BUDGET = 24_000;
 /**
  * Echo arrivals marked on the timeline, all sensors together: each marker is an SVG element the
- * page draws on its main thread, and the largest plan has over 14 000 echoes in view. Each sensor
- * gets its earliest echoes, at least MIN_ECHOES_PER_SENSOR; the caption says how many are marked.
+ * page draws and paints on its main thread (a keystroke waits behind a redraw), and the largest plan
+ * has thousands of echoes in view. Each sensor gets its earliest echoes, at least
+ * MIN_ECHOES_PER_SENSOR; the caption says how many are marked.
  */
-const ECHO_MARK_BUDGET = 1200;
-const MIN_ECHOES_PER_SENSOR = 8;
+export const ECHO_MARK_BUDGET = 600;
+export const MIN_ECHOES_PER_SENSOR = 4;
 /** Fewest columns a sensor's waveform is cut to. */
 const MIN_SENSOR_COLUMNS = 120;
 /** Fraction of the plot height given to the sensors (bottom) and the heater (top). */

@@ -4,6 +4,7 @@ import { base64Bytes, downloadBlob, fileSlug } from '../export/download';
 import { useResolvedTheme } from '../theme/use-theme';
 import { loadPlotly } from './load-plotly';
 import { plainFigure } from './plain-text';
+import { sameFigure } from './same-figure';
 import { themeFigure } from './plot-theme';
 import type { DrawnPlotElement, PlotConfig, PlotLayout, PlotlyApi, PlotTrace } from './plotly-types';
 
@@ -60,15 +61,26 @@ export function PlotlyChart({ chartId, label, data, layout, onDrawn }: PlotlyCha
   const drawnCallback = useRef(onDrawn);
   drawnCallback.current = onDrawn;
 
+  // The figure last drawn on this element: a new figure with the same values is not drawn again
+  // (a redraw of a large figure holds the main thread, and a keystroke would wait behind it).
+  const lastDrawn = useRef<{ figure: typeof figure; element: HTMLElement } | null>(null);
+
   useEffect(() => {
     const element = surface.current;
     if (!plotly || !element) return;
+    const last = lastDrawn.current;
+    if (last !== null && last.element === element && sameFigure(last.figure, figure)) {
+      lastDrawn.current = { figure, element };
+      drawnCallback.current?.(element);
+      return;
+    }
     let live = true;
     // Plotly keeps the layout it is given and changes it in place on every zoom: give it a copy, so
     // the figure stays what it was ("Whole chart" goes back to it).
     plotly.react(element, figure.data, structuredClone(figure.layout), PLOT_CONFIG).then(
       () => {
         if (!live) return;
+        lastDrawn.current = { figure, element };
         setDrawn(true);
         drawnCallback.current?.(element);
       },

@@ -91,8 +91,12 @@ describe('analytic timing of each picker against a seeded rehearsal, film heater
   });
 });
 
-describe('the demo plan (four bolometers, 10 MS/s, 100 µs pulse, echoes)', { timeout: 180_000 }, () => {
-  const input = demoPlan();
+describe('the demo plan (four bolometers, 10 MS/s, 100 µs pulse, echoes; records cut to 4 ms)', { timeout: 180_000 }, () => {
+  // The records end at 4 ms instead of 20 ms: every direct arrival (the last at 2.52 ms) and the
+  // first echoes are in them, the pickers' figures do not depend on the record's tail, and the
+  // correlations take a fifth of the time.
+  const demo = demoPlan();
+  const input: PlanInput = { ...demo, digitiser: { ...demo.digitiser, recordLength_s: 0.004 } };
   const result = computePlan(input);
 
   it('the planner’s headline timing sd (fraction picker at 0.5) is within a factor 1.5 of a rehearsal with that picker, for every sensor', () => {
@@ -106,8 +110,10 @@ describe('the demo plan (four bolometers, 10 MS/s, 100 µs pulse, echoes)', { ti
     }
   });
 
+  // The cross-correlation scans some 40 000 lags per pick at 10 MS/s: 100 trials for it (its sd known to
+  // 7 %, the 25 % still over three of those), 150 for the others.
   it.each(['fraction', 'peak', 'xcorr'] as const)('%s: every sensor’s rehearsed sd is within 25 % of the planner’s figure for that picker', (picker: PickerKind) => {
-    const r = rehearse(input, result, options({ picker, trials: 150, seed: 37 }));
+    const r = rehearse(input, result, options({ picker, trials: picker === 'xcorr' ? 100 : 150, seed: 37 }));
     for (const s of r.sensors) {
       const analytic = result.sensors.find((p) => p.id === s.id)?.timingSdByPicker_s?.[picker] ?? Number.NaN;
       expect(Math.abs((s.arrivalSd_s ?? 0) / analytic - 1), `${s.id}: ${s.arrivalSd_s} vs ${analytic}`).toBeLessThan(0.25);

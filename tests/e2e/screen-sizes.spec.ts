@@ -3,8 +3,9 @@ import { guardEveryPage } from './page-guard';
 
 /*
  * Every view on a phone beside the cryostat, on a tablet and on a desktop: no view may scroll
- * sideways as a page (tables scroll inside their own frame), the active tab stays in sight, and a
- * screenshot of each view is kept at 390 px and 1440 px in both themes.
+ * sideways as a page (tables scroll inside their own frame), the active tab stays in sight, no
+ * symbol or unit is set in capitals, and a screenshot of each view is kept at 390 px and 1440 px in
+ * both themes.
  */
 
 const ARTIFACTS = 'test-results/artifacts/screens';
@@ -93,6 +94,8 @@ test.describe('every screen size', () => {
       await page.setViewportSize(viewport);
       await page.goto('/');
       await expect(page.getByRole('heading', { level: 1, name: 'Sekundo' })).toBeVisible();
+      // At 390 px this test also keeps the light theme's screenshots (the loop below shoots the rest).
+      if (viewport.width === 390) await page.getByRole('radio', { name: 'Light', exact: true }).check();
       for (const stop of STOPS) {
         await open(page, stop.tabs);
         const { overflow, scrolledX } = await sidewaysOverflow(page);
@@ -102,7 +105,7 @@ test.describe('every screen size', () => {
         const viewTab = page.getByRole('tablist', { name: 'Sekundo views' }).getByRole('tab', { selected: true });
         await expect(viewTab).toBeInViewport({ ratio: 0.9 });
         if (viewport.width === 390) {
-          await page.screenshot({ path: `${ARTIFACTS}/${stop.id}-390x844.png` });
+          await page.screenshot({ path: `${ARTIFACTS}/${stop.id}-390-light.png`, fullPage: true });
           expect(await symbolsInCapitals(page), `${stop.id}: symbols or units set in capitals`).toEqual([]);
         }
       }
@@ -135,11 +138,9 @@ test.describe('every screen size', () => {
     expect(after?.x).toBeCloseTo(before?.x ?? Number.NaN, 0);
   });
 
+  // Light at 390 px: shot by the sideways test above.
   for (const theme of ['Light', 'Dark'] as const) {
-    for (const viewport of [
-      { width: 390, height: 844 },
-      { width: 1440, height: 900 },
-    ]) {
+    for (const viewport of theme === 'Light' ? [{ width: 1440, height: 900 }] : [{ width: 390, height: 844 }, { width: 1440, height: 900 }]) {
       test(`screenshots of every view, ${theme.toLowerCase()} theme, ${viewport.width} px`, async ({ page }) => {
         await page.setViewportSize(viewport);
         await page.goto('/');

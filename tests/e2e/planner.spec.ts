@@ -127,7 +127,9 @@ test.describe('measurement planner', () => {
     await page.screenshot({ path: `${ARTIFACTS}/planner-map-1600x1000.png` });
   });
 
-  test('recompute and redraw time per edit with eight sensors', async ({ page }) => {
+  // Timing figures here are a by-product (printed with the load); the benchmark of edit → result at
+  // every documented limit is tests/bench/keystroke-limits.browser.ts.
+  test('eight sensors: each edit is recomputed and redrawn, timed by the page, and the timer stays hidden', async ({ page }) => {
     await openPlanner(page);
     for (let i = 0; i < 4; i++) await page.getByRole('button', { name: 'Add sensor' }).click();
     await expect(page.getByRole('table', { name: /predicted arrivals/i }).getByRole('row')).toHaveCount(9);
@@ -135,13 +137,13 @@ test.describe('measurement planner', () => {
 
     const field = page.getByRole('textbox', { name: 'Sensor 1 distance', exact: true });
     // A few edits first, so the figures are of the page at work rather than of the first compile.
-    for (const warmUp of ['10.2 mm', '10.4 mm', '10.6 mm', '10.8 mm']) {
+    for (const warmUp of ['10.2 mm']) {
       const before = await timedEdits(page);
       await field.fill(warmUp);
       await expect.poll(() => timedEdits(page)).toBe(before + 1);
     }
     const figures: number[] = [];
-    const spacings = ['11 mm', '12 mm', '13 mm', '14 mm', '15 mm', '16 mm', '17 mm', '18 mm', '19 mm', '20 mm', '12.5 mm', '10 mm'];
+    const spacings = ['11 mm', '12.5 mm', '10 mm'];
     for (const spacing of spacings) {
       const before = await timedEdits(page);
       await field.fill(spacing);

@@ -32,6 +32,7 @@ import {
   type PickerKind,
   pickArrival,
   requireInsideWindow,
+  TEMPLATE_EDGE_FRACTION,
   type Trace,
   uniformStep,
 } from '../physics';
@@ -39,8 +40,6 @@ import { CsvInputError } from './csv-common';
 import { alignToHeaterOnset, channelByName } from './trace-channels';
 import type { TraceCsv } from './trace-csv';
 
-/** Heater samples above this fraction of its peak belong to the drive pulse (template edges). */
-const TEMPLATE_EDGE_FRACTION = 0.02;
 /** The default template spans the sensor pulse above this fraction of its peak. */
 const DEFAULT_TEMPLATE_LEVEL = 0.5;
 

@@ -154,6 +154,7 @@ export {
   type PickOptions,
   pickArrival,
   requireInsideWindow,
+  TEMPLATE_EDGE_FRACTION,
   timeText,
   type Trace,
   uniformStep,

@@ -1,5 +1,5 @@
 import { normalCdf, normalMaximum } from './normal-maximum';
-import type { PickerKind } from './pickers';
+import { PEAK_FIT_LEVEL, PEAK_MAX_POINTS, type PickerKind, TEMPLATE_EDGE_FRACTION } from './pickers';
 import type { PulseProfile } from './pulse-shape';
 import type { SampledSignal } from './received-pulse';
 
@@ -78,12 +78,6 @@ const PHASES = 8;
  * whose run is counted in samples (common practice, no source).
  */
 const MAX_SPAN_SAMPLES = 20_000;
-/** The peak picker's longest run, sample intervals (pickers.ts). */
-const PEAK_RUN_INTERVALS = 201;
-/** The peak picker fits the samples at or above this fraction of the largest. */
-const PEAK_FIT_LEVEL = 0.5;
-/** The converter's template keeps the drive samples above this share of its peak, and one beyond (trace-pick.ts). */
-const TEMPLATE_EDGE = 0.02;
 /**
  * Averaged SNR below which the small-noise figures are lower limits: missed crossings, noise
  * crossings and noise peaks take over (common practice, no source; the rehearsal shows how far).
@@ -339,9 +333,9 @@ function peakPick(s: PhaseSamples, input: PickerTimingInput, top: { meanShift: n
 function peakRun(y: Float64Array, iPeak: number, level: number): { lo: number; hi: number; capped: boolean } {
   let lo = iPeak;
   let hi = iPeak;
-  while (lo > 0 && hi - lo < PEAK_RUN_INTERVALS && (y[lo - 1] as number) >= level) lo--;
-  while (hi < y.length - 1 && hi - lo < PEAK_RUN_INTERVALS && (y[hi + 1] as number) >= level) hi++;
-  return { lo: Math.min(lo, iPeak - 1), hi: Math.max(hi, iPeak + 1), capped: hi - lo >= PEAK_RUN_INTERVALS };
+  while (lo > 0 && hi - lo < PEAK_MAX_POINTS && (y[lo - 1] as number) >= level) lo--;
+  while (hi < y.length - 1 && hi - lo < PEAK_MAX_POINTS && (y[hi + 1] as number) >= level) hi++;
+  return { lo: Math.min(lo, iPeak - 1), hi: Math.max(hi, iPeak + 1), capped: hi - lo >= PEAK_MAX_POINTS };
 }
 
 /** Candidates for the largest sample kept at most (the strongest), when a broad top makes many. */
@@ -433,7 +427,7 @@ function cappedPeak(s: PhaseSamples, input: PickerTimingInput, top: { meanShift:
 function template(drive: Float64Array): { values: Float64Array; first: number } | null {
   const top = drive[argmax(drive)] as number;
   if (!(top > 0)) return null;
-  const edge = TEMPLATE_EDGE * top;
+  const edge = TEMPLATE_EDGE_FRACTION * top;
   let k0 = 0;
   while (k0 < drive.length && (drive[k0] as number) <= edge) k0++;
   if (k0 >= drive.length) return null;

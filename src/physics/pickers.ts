@@ -193,10 +193,15 @@ function threePointVertex(ym: number, y0: number, yp: number): { offset: number;
   return { offset: Math.max(-0.5, Math.min(0.5, offset)), curvature };
 }
 
-/** Most samples the peak picker fits. */
-const PEAK_MAX_POINTS = 201;
+/** Most samples the peak picker fits (its longest run, in sample intervals). */
+export const PEAK_MAX_POINTS = 201;
 /** The peak picker fits the samples above this fraction of the peak around it. */
-const PEAK_FIT_LEVEL = 0.5;
+export const PEAK_FIT_LEVEL = 0.5;
+/**
+ * Drive samples above this fraction of the drive's peak make the cross-correlation's template
+ * (with one sample beyond each edge; src/io/trace-pick.ts cuts it, picker-timing.ts follows it).
+ */
+export const TEMPLATE_EDGE_FRACTION = 0.02;
 
 function pickPeak(trace: Trace, base: Baseline, w: Window, step: number): { t: number; sd: number } {
   const y = (k: number) => w.sign * ((trace.values[k] as number) - base.level);

@@ -12,6 +12,7 @@
 import { describe, expect, it } from 'vitest';
 import { computePlan, heliumProperties, imageSources, type Medium, type PulseSource, pulseProfile, receivedPulse, type SampledSignal } from '../../src/physics';
 import { basePlan, withHeater } from '../support/plans';
+import { bruteRayleigh } from '../support/rayleigh-brute';
 
 const props = heliumProperties(1.8);
 const U2 = props.secondSound_m_s as number;
@@ -54,22 +55,9 @@ describe('a heater image in the sensor’s plane (grazing path)', () => {
     const source: PulseSource = { geometry: 'disk', peakFlux_W_m2: q0, peakPower_W: 0, face: { kind: 'disk', radius_m: a }, mount: 'wall', profile, centre: [0, 0, 0.03], amplitudeFactor: 1 };
     const sensor: [number, number, number] = [8e-3, 3e-3, 0.03];
     const pulse = receivedPulse(source, { position: sensor, radius_m: 0, lag_s: 0 }, medium, step).signal;
-    // Independent: a polar grid of area elements, each A_i q̇(t − R_i/u2)/R_i, R_i in the plane.
-    const brute = (t: number) => {
-      const nr = 1000;
-      const nphi = 1500;
-      let sum = 0;
-      for (let i = 0; i < nr; i++) {
-        const rr = ((i + 0.5) / nr) * a;
-        const dA = (rr * (a / nr) * 2 * Math.PI) / nphi;
-        for (let j = 0; j < nphi; j++) {
-          const phi = ((j + 0.5) / nphi) * 2 * Math.PI;
-          const R = Math.hypot(sensor[0] - rr * Math.cos(phi), sensor[1] - rr * Math.sin(phi));
-          sum += (dA * q0 * rate(t - R / U2)) / R;
-        }
-      }
-      return sum / (2 * Math.PI * rhoC * U2 * U2);
-    };
+    // Independent: the brute-force Rayleigh integral with the sensor in the disk's own plane.
+    const disk = { radius_m: a, flux_W_m2: q0, rate, secondSound_m_s: U2, rhoC, rings: 1000, perRing: 1500 };
+    const brute = (t: number) => bruteRayleigh(disk, [sensor[0], sensor[1], 0], t);
     const peak = Math.max(...pulse.values.map(Math.abs));
     expect(peak).toBeGreaterThan(0);
     const nearest = Math.hypot(8e-3, 3e-3) - a;

@@ -16,6 +16,7 @@ import {
   type SampledSignal,
 } from '../../src/physics';
 import { basePlan, withHeater, withSensor } from '../support/plans';
+import { bruteRayleigh } from '../support/rayleigh-brute';
 
 const props18 = heliumProperties(1.8);
 const U2 = props18.secondSound_m_s as number;
@@ -119,27 +120,17 @@ describe('flat disk heater (Rayleigh integral of a baffled piston, PHYSICS notes
   const step = 0.25e-6;
   const rhoC = medium.density_kg_m3 * medium.specificHeat_J_kgK;
 
-  /**
-   * Brute-force Rayleigh integral, written independently of the kernel: a polar grid of area
-   * elements on the disk, each contributing A_i q̇(t − R_i/u)/R_i, with q̇ averaged over one step.
-   */
-  function bruteForce(sensor: [number, number, number], t: number): number {
-    const nr = 400;
-    const nphi = 360;
-    let sum = 0;
-    for (let i = 0; i < nr; i++) {
-      const r = ((i + 0.5) / nr) * a;
-      const dA = (r * (a / nr) * 2 * Math.PI) / nphi;
-      for (let j = 0; j < nphi; j++) {
-        const phi = ((j + 0.5) / nphi) * 2 * Math.PI;
-        const R = Math.hypot(sensor[0] - r * Math.cos(phi), sensor[1] - r * Math.sin(phi), sensor[2]);
-        const tau = t - R / U2;
-        const qdot = (q0 * (profile.value(tau + step / 2) - profile.value(tau - step / 2))) / step;
-        sum += (dA * qdot) / R;
-      }
-    }
-    return sum / (2 * Math.PI * rhoC * U2 * U2);
-  }
+  /** Brute-force Rayleigh integral (tests/support/rayleigh-brute.ts), q̇ averaged over one step. */
+  const disk = {
+    radius_m: a,
+    flux_W_m2: q0,
+    rate: (tau: number) => (profile.value(tau + step / 2) - profile.value(tau - step / 2)) / step,
+    secondSound_m_s: U2,
+    rhoC,
+    rings: 400,
+    perRing: 360,
+  };
+  const bruteForce = (sensor: [number, number, number], t: number): number => bruteRayleigh(disk, sensor, t);
 
   const source = { geometry: 'disk' as const, peakFlux_W_m2: q0, peakPower_W: 0, face: { kind: 'disk' as const, radius_m: a }, mount: 'wall' as const, profile, centre: [0, 0, 0] as const, amplitudeFactor: 1 };
 

@@ -192,6 +192,17 @@ export function parsePlanFile(text: string): PlanFileParse {
   return { ok: true, plan: result.data as PlanFile, migrated: migrated.notes };
 }
 
+/**
+ * What the schema refuses in a plan already in memory (the page's plan after an edit), one
+ * `field: message` each as {@link parsePlanFile} words them; an empty list when it passes. No text
+ * to read: the plan's own objects are checked (a long custom pulse's points by a plain loop), which
+ * the page does on every keystroke.
+ */
+export function planObjectProblems(plan: PlanFile): string[] {
+  const result = PLAN_FILE_SCHEMA.safeParse(withCheckedPointsShort(plan).plan, { reportInput: true });
+  return result.success ? [] : capped(issueMessages(result.error.issues));
+}
+
 // ---------------------------------------------------------------------------------------------
 // Writing.
 
@@ -233,7 +244,7 @@ export interface PlanBath {
  * The bath temperature of a plan: as given, or converted from the vapour-pressure reading (ITS-90
  * from 1.25 K, the reference spline below). Throws the kernel's errors for a pressure out of range.
  */
-export function planBath(plan: PlanFile): PlanBath {
+export function planBath(plan: Pick<PlanFile, 'bath'>): PlanBath {
   const { temperature_K, vapourPressure_Pa } = plan.bath;
   if (temperature_K !== undefined) return { temperature_K, vapourPressure_Pa: null, scale: null };
   const converted = temperatureFromVapourPressure(vapourPressure_Pa as number);

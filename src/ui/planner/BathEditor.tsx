@@ -18,9 +18,10 @@ const MODES = [
 
 /** The bath: its temperature, typed or read as the vapour pressure over it, and the liquid depth. */
 export function BathEditor() {
-  const plan = useSekundoStore((s) => s.plannerPlan);
+  // The bath only: an edit elsewhere in the plan leaves it (and this card) as it is.
+  const bath = useSekundoStore((s) => s.plannerPlan.bath);
   const edit = useSekundoStore((s) => s.editPlanner);
-  const mode = bathMode(plan);
+  const mode = bathMode({ bath });
   const temperature = usePlanField(BATH_FIELDS.temperature);
   const pressure = usePlanField(BATH_FIELDS.vapourPressure);
   const depth = usePlanField(BATH_FIELDS.liquidDepth);
@@ -37,9 +38,9 @@ export function BathEditor() {
         />
         <PlanControlMessage controlKey="bath.mode" />
         {mode === 'temperature' ? (
-          <QuantityField {...temperature} label="Bath temperature" hint={temperatureHint(plan)} />
+          <QuantityField {...temperature} label="Bath temperature" hint={temperatureHint(bath)} />
         ) : (
-          <QuantityField {...pressure} label="Vapour pressure over the bath" hint={pressureHint(plan)} />
+          <QuantityField {...pressure} label="Vapour pressure over the bath" hint={pressureHint(bath)} />
         )}
         <QuantityField {...depth} label="Liquid above the setup" hint="Adds a hydrostatic head; He II stays isothermal." />
       </div>
@@ -47,8 +48,8 @@ export function BathEditor() {
   );
 }
 
-function temperatureHint(plan: PlanFile): string {
-  const T = plan.bath.temperature_K;
+function temperatureHint(bath: PlanFile['bath']): string {
+  const T = bath.temperature_K;
   if (T === undefined) return 'K or mK';
   try {
     return `K or mK · saturated vapour pressure ${formatSignificant(vapourPressure(T).pressure_Pa)} Pa`;
@@ -57,10 +58,10 @@ function temperatureHint(plan: PlanFile): string {
   }
 }
 
-function pressureHint(plan: PlanFile): string {
+function pressureHint(bath: PlanFile['bath']): string {
   try {
-    const bath = planBath(plan);
-    return `Pa, kPa, mbar or torr · T = ${formatKelvin(bath.temperature_K)} K (${bath.scale ?? 'as typed'})`;
+    const read = planBath({ bath });
+    return `Pa, kPa, mbar or torr · T = ${formatKelvin(read.temperature_K)} K (${read.scale ?? 'as typed'})`;
   } catch {
     return 'Pa, kPa, mbar or torr';
   }

@@ -25,7 +25,6 @@ const SOURCE_LABEL = {
 /** The plan's name and origin, opening and saving plan files. */
 export function PlanBar() {
   const source = useSekundoStore((s) => s.plannerSource);
-  const plan = useSekundoStore((s) => s.plannerPlan);
   const [fileProblem, setFileProblem] = useState<{ name: string; errors: string[] } | null>(null);
   const input = useRef<HTMLInputElement>(null);
   const name = usePlanText('plan.name', (p) => p.name, (p, text) => setPlanName(p, text));
@@ -76,7 +75,7 @@ export function PlanBar() {
               if (file) void open(file);
             }}
           />
-          <button type="button" className="button button--small" onClick={() => downloadPlanFile(plan)}>
+          <button type="button" className="button button--small" onClick={() => downloadPlanFile(useSekundoStore.getState().plannerPlan)}>
             Save plan file
           </button>
           <button type="button" className="button button--small" onClick={startNew}>

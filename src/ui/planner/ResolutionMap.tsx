@@ -1,4 +1,4 @@
-import { useEffect, useId, useMemo, useState } from 'react';
+import { startTransition, useEffect, useId, useMemo, useState } from 'react';
 import { SPACER_MATERIALS } from '../../physics';
 import { ChartFigure } from '../charts/ChartFigure';
 import { PlotlyChart } from '../plot/PlotlyChart';
@@ -124,7 +124,8 @@ function useSettledValue<T>(value: T, delay_ms: number): T {
     if (Object.is(value, settled)) return;
     const timer = setTimeout(() => {
       markMapStart();
-      setSettled(value);
+      // At low priority: a keystroke interrupts the map's re-render.
+      startTransition(() => setSettled(value));
     }, delay_ms);
     return () => clearTimeout(timer);
   }, [value, settled, delay_ms]);

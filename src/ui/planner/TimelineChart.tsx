@@ -7,9 +7,9 @@ import { useResolvedTheme } from '../theme/use-theme';
 import { PLANNER_COLOURS } from './planner-colours';
 import { reportDrawn } from './recompute-timer';
 import { type DisplayUnit, inUnit } from '../units/ladders';
-import { useTimelineFigure } from './plan-engine';
+import { shownIsUpdating, useTimelineFigure } from './plan-engine';
 import { formatTime, type TimelineKeyEntry } from './timeline-figure';
-import { usePlanOutcome, usePlanUpdating } from './use-plan';
+import { usePlanOutcome } from './use-plan';
 import { useShownLadders } from '../units/use-shown-ladders';
 import { useElementWidth } from '../layout/use-element-width';
 
@@ -35,7 +35,6 @@ export function TimelineChart() {
   const timeUnit = useShownLadders().time[0] as DisplayUnit;
   // Built by the plan worker beside the results (on this thread where no worker runs).
   const figure = useTimelineFigure(outcome, { view, columns, timeUnit });
-  const updating = usePlanUpdating();
   if (!result || !figure) return null;
   const second = result.sensors.filter((s) => s.secondSoundArrival_s !== null);
   const summary =
@@ -74,7 +73,7 @@ export function TimelineChart() {
           layout={figure.layout}
           // The edit → result time counts the draw of the newest plan's figure only.
           onDrawn={() => {
-            if (!updating) reportDrawn('timeline');
+            if (!shownIsUpdating()) reportDrawn('timeline');
           }}
         />
       </div>

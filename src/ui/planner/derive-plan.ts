@@ -1,6 +1,5 @@
 import { noteThreadWork } from '../layout/main-thread-work';
-import { withCheckedPointsShort } from '../../io/plan-points-check';
-import { explainPlanError, type PlanBath, type PlanFile, parsePlanFile, planBath, planFileToInput } from '../../io/plan-file';
+import { explainPlanError, type PlanBath, type PlanFile, planBath, planObjectProblems, planFileToInput } from '../../io/plan-file';
 import {
   checkPlanInput,
   computePlanSteps,
@@ -83,9 +82,9 @@ export const PLAN_ON_THIS_THREAD = 'sekundo: plan computed on this thread';
  * place of results. The message names the field as the page labels it.
  */
 export function planProblem(plan: PlanFile): string | null {
-  const parsed = parsePlanFile(JSON.stringify(withCheckedPointsShort(plan).plan));
-  if (!parsed.ok) {
-    const [first = 'plan: not valid', ...rest] = parsed.errors;
+  const problems = planObjectProblems(plan);
+  if (problems.length > 0) {
+    const [first = 'plan: not valid', ...rest] = problems;
     const more = rest.length > 0 ? ` (and ${rest.length} more)` : '';
     return `${describePlanMessage(first)}${more}`;
   }

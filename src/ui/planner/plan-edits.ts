@@ -27,7 +27,7 @@ function omit<T extends object, K extends keyof T>(value: T, ...keys: K[]): Omit
 // ---------------------------------------------------------------------------------------------
 // Bath
 
-export function bathMode(plan: PlanFile): BathMode {
+export function bathMode(plan: Pick<PlanFile, 'bath'>): BathMode {
   return plan.bath.temperature_K !== undefined ? 'temperature' : 'pressure';
 }
 

@@ -8,7 +8,7 @@
  * plan is computed on the calling thread, as before, with the same per-sensor cache.
  */
 import { noteThreadWork } from '../layout/main-thread-work';
-import { useEffect, useMemo, useSyncExternalStore } from 'react';
+import { startTransition, useEffect, useMemo, useState, useSyncExternalStore } from 'react';
 import type { PlanFile } from '../../io/plan-file';
 import { SensorResultCache } from '../../physics';
 import { HeldUntilTypingPauses, watchTyping } from '../layout/typing-pause';
@@ -111,23 +111,55 @@ function subscribe(listener: () => void): () => void {
   return () => listeners.delete(listener);
 }
 
-const current = () => shown;
-
 /** Whether results come from the worker (false: computed on this thread). */
 export function planWorkerRuns(): boolean {
   return planPort() !== null;
 }
 
+/** One part of what the worker last gave, followed on its own: a view re-renders only when its part changes. */
+function useShownPart<K extends keyof ShownPlan>(part: K): ShownPlan[K] {
+  const read = () => shown[part];
+  return useSyncExternalStore(subscribe, read, read);
+}
+
 /**
- * What the planner shows. `plan`: the store's plan where no worker runs (computed here), null where
- * the worker runs: the newest answer then, whatever the plan being typed (usePlanRequests asks for
- * each plan), so a keystroke re-renders none of the views that read the results.
+ * The same for the results themselves (outcome, figure), taken in as a transition: React draws
+ * the new results at low priority in one pass that a keystroke interrupts (an external store's
+ * update is always drawn at once, which drew every results view twice — once with the old
+ * results — before a keystroke waiting behind it was answered).
  */
-export function useShownPlan(plan: PlanFile | null): ShownPlan {
-  const fromWorker = useSyncExternalStore(subscribe, current, current);
+function useShownResults<K extends 'outcome' | 'figure'>(part: K): ShownPlan[K] {
+  const [value, setValue] = useState<ShownPlan[K]>(() => shown[part]);
+  useEffect(() => {
+    const follow = () => startTransition(() => setValue(shown[part]));
+    // Anything published between this view's render and now.
+    follow();
+    return subscribe(follow);
+  }, [part]);
+  return value;
+}
+
+/**
+ * The outcome the planner shows. `plan`: the store's plan where no worker runs (computed here), null
+ * where the worker runs: the newest answer then, whatever the plan being typed (usePlanRequests asks
+ * for each plan), so a keystroke re-renders none of the views that read the results — not even
+ * when the page starts saying it is updating (that is `useShownUpdating`, a part of its own).
+ */
+export function useShownOutcome(plan: PlanFile | null): PlanOutcome | null {
+  const fromWorker = useShownResults('outcome');
   const here = useMemo(() => (plan === null ? null : derivePlan(plan, localCache)), [plan]);
-  if (plan !== null && here !== null) return { plan, outcome: here, figure: null, timeline: null, updating: false };
-  return fromWorker;
+  return plan !== null ? here : fromWorker;
+}
+
+/** Whether a newer plan or timeline than the one shown is being computed (never where the plan is computed here). */
+export function useShownUpdating(plan: PlanFile | null): boolean {
+  const updating = useShownPart('updating');
+  return plan === null && updating;
+}
+
+/** The same, read once (a chart's "drawn" callback), without following it. */
+export function shownIsUpdating(): boolean {
+  return shown.updating;
 }
 
 /** Asks the worker for each new plan (`plan`: the store's plan where the worker runs, else null); used once, by the planner view. */
@@ -144,7 +176,7 @@ export function useTimelineFigure(outcome: PlanOutcome | null, request: Timeline
   useEffect(() => {
     if (inWorker) requestTimeline({ view, columns, timeUnit });
   }, [inWorker, view, columns, timeUnit]);
-  const fromWorker = useSyncExternalStore(subscribe, current, current);
+  const fromWorker = useShownResults('figure');
   const result = outcome?.ok ? outcome.result : null;
   const here = useMemo(() => {
     if (inWorker || result === null) return null;
@@ -153,7 +185,7 @@ export function useTimelineFigure(outcome: PlanOutcome | null, request: Timeline
     noteThreadWork(PLAN_ON_THIS_THREAD, start);
     return figure;
   }, [inWorker, result, view, columns, timeUnit]);
-  return inWorker ? fromWorker.figure : here;
+  return inWorker ? fromWorker : here;
 }
 
 /** The outcome the page shows for this plan, if it is the plan shown (the printed sheet uses it rather than computing again). */

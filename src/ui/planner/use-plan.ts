@@ -1,7 +1,7 @@
 import { useDeferredValue } from 'react';
 import { useSekundoStore } from '../store';
 import type { PlanOutcome } from './derive-plan';
-import { planWorkerRuns, usePlanRequests, useShownPlan } from './plan-engine';
+import { planWorkerRuns, usePlanRequests, useShownOutcome, useShownUpdating } from './plan-engine';
 
 /** Before the first answer for a plan: no results yet, and no refusal either. */
 const PENDING: PlanOutcome = { ok: false, message: 'Working out the plan…', pending: true };
@@ -21,12 +21,12 @@ function usePlanComputedHere() {
  */
 export function usePlanOutcome(): PlanOutcome {
   // Deferred: a new answer re-renders the results at low priority, so a keystroke interrupts it.
-  return useDeferredValue(useShownPlan(usePlanComputedHere()).outcome ?? PENDING);
+  return useDeferredValue(useShownOutcome(usePlanComputedHere()) ?? PENDING);
 }
 
 /** Whether the results on screen are for an earlier plan (or timeline) than the one being edited. */
 export function usePlanUpdating(): boolean {
-  return useShownPlan(usePlanComputedHere()).updating;
+  return useShownUpdating(usePlanComputedHere());
 }
 
 /** Sends each new plan of the store to the plan worker (once on the page: the planner view). */

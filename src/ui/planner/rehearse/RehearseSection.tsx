@@ -40,14 +40,15 @@ const PICKER_NAMES: Record<PickerKind, string> = {
  */
 export function RehearseSection() {
   const headingId = useId();
-  const plan = useSekundoStore((s) => s.plannerPlan);
+  // Whether the figures shown are for an older plan: a boolean, so a keystroke re-renders this only when it flips.
+  const planChanged = useSekundoStore((s) => s.rehearseRun.plan !== s.plannerPlan);
   const options = useSekundoStore((s) => s.rehearseOptions);
   const run = useSekundoStore((s) => s.rehearseRun);
   const set = useSekundoStore((s) => s.setRehearseOptions);
   const pickerId = useId();
   const pickerHelp = useFieldHelp('Picker', PICKER_HELP);
   const running = run.status === 'running';
-  const stale = run.result !== null && (run.plan !== plan || run.options !== options);
+  const stale = run.result !== null && (planChanged || run.options !== options);
   const F = REHEARSE_FIELDS;
   return (
     <section className="card rehearse" aria-labelledby={headingId}>
@@ -95,7 +96,7 @@ export function RehearseSection() {
         <QuantityField fieldKey="rehearse.pickup" spec={F.pickup} value={options.firstSoundPickup} apply={(v) => applied(() => set({ firstSoundPickup: v ?? 0 }))} />
       </div>
       <div className="rehearse__actions">
-        <button type="button" className="button button--primary" disabled={running} onClick={() => startRehearsal(plan, options)}>
+        <button type="button" className="button button--primary" disabled={running} onClick={() => startRehearsal(useSekundoStore.getState().plannerPlan, options)}>
           {run.result ? 'Run the rehearsal again' : 'Run the rehearsal'}
         </button>
         {running ? (

@@ -2,7 +2,7 @@ import { type ChangeEvent, useRef } from 'react';
 import { useSekundoStore } from '../store';
 import { loadLocateDemo } from './load-demo';
 import { downloadText, readSensorFile, resultsCsv, sensorsCsv } from './locate-file-actions';
-import { useLocateOutcome } from './use-locate';
+import { useLocateFit } from './use-locate';
 
 /** Store key of messages about opening files. */
 export const LOCATE_FILE_KEY = 'file';
@@ -10,14 +10,15 @@ export const LOCATE_FILE_KEY = 'file';
 /** Where the sensors came from; open a sensor CSV, save sensors or results, go back to the demo. */
 export function LocateBar() {
   const origin = useSekundoStore((s) => s.locateOrigin);
-  const rows = useSekundoStore((s) => s.locateRows);
-  const options = useSekundoStore((s) => s.locateOptions);
+  const count = useSekundoStore((s) => s.locateRows.length);
   const fileError = useSekundoStore((s) => s.locateErrors[LOCATE_FILE_KEY]);
   const load = useSekundoStore((s) => s.loadLocateSensors);
   const refuse = useSekundoStore((s) => s.refuseLocate);
-  const outcome = useLocateOutcome();
+  // The results file is of the fit on screen, with the inputs it is for.
+  const fit = useLocateFit();
   const input = useRef<HTMLInputElement>(null);
-  const results = outcome.ok ? () => resultsCsv(rows, options, outcome) : null;
+  const { outcome } = fit;
+  const results = outcome.ok ? () => resultsCsv(fit.rows, fit.options, outcome) : null;
 
   const onFile = async (event: ChangeEvent<HTMLInputElement>) => {
     const file = event.target.files?.[0];
@@ -37,14 +38,14 @@ export function LocateBar() {
       <div className="locate-bar__main">
         <p className="locate-bar__origin">
           <span className={`locate-origin locate-origin--${origin.kind}`}>{badge}</span> {origin.name}
-          <span className="muted"> · {rows.length} sensors</span>
+          <span className="muted"> · {count} sensors</span>
         </p>
         <div className="locate-bar__actions">
           <button type="button" className="button" onClick={() => input.current?.click()}>
             Open sensor CSV…
           </button>
           <input ref={input} type="file" accept=".csv,.txt,.tsv,text/csv,text/plain" className="visually-hidden" aria-label="Open sensor CSV" tabIndex={-1} onChange={onFile} />
-          <button type="button" className="button" onClick={() => downloadText(sensorsCsv(rows), 'sensors.csv')} disabled={rows.length === 0}>
+          <button type="button" className="button" onClick={() => downloadText(sensorsCsv(useSekundoStore.getState().locateRows), 'sensors.csv')} disabled={count === 0}>
             Save sensors (CSV)
           </button>
           <button

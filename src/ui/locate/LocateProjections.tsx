@@ -9,7 +9,7 @@ import { LOCATE_HELP } from './locate-help';
 import { PLANE_PAIRS, type PlanePair, pairName } from './locate-inputs';
 import { ProjectionLegend } from './ProjectionLegend';
 import { useElementWidth as useWidth } from '../layout/use-element-width';
-import { useLocateOutcome } from './use-locate';
+import { useLocateFit } from './use-locate';
 
 /** Chart id of the projection in slot 0 or 1 (tests and readers of the figure find it). */
 export const projectionChartId = (slot: 0 | 1) => `locate-projection-${slot + 1}`;
@@ -18,8 +18,7 @@ export const projectionChartId = (slot: 0 | 1) => `locate-projection-${slot + 1}
 export function LocateProjections() {
   const display = useSekundoStore((s) => s.locateDisplay);
   const setDisplay = useSekundoStore((s) => s.setLocateDisplay);
-  const outcome = useLocateOutcome();
-  const rows = useSekundoStore((s) => s.locateRows);
+  const { outcome, rows } = useLocateFit();
   const hasRegions = outcome.ok && outcome.result.covariance_m2 !== null;
   const statuses = new Set(outcome.ok ? outcome.outcomes.map((o) => o.status) : ['fitted']);
   const present = {
@@ -84,8 +83,8 @@ function Projection({ slot, help, describedBy }: { slot: 0 | 1; help: ReactNode;
   const id = useId();
   const display = useSekundoStore((s) => s.locateDisplay);
   const setDisplay = useSekundoStore((s) => s.setLocateDisplay);
-  const rows = useSekundoStore((s) => s.locateRows);
-  const outcome = useLocateOutcome();
+  // The fit's own rows: a keystroke in the table leaves the chart as it is until the new fit.
+  const { outcome, rows } = useLocateFit();
   const pair = display.projections[slot];
   const zoom = outcome.ok ? display.zoom : 'layout';
   const [boxRef, width] = useWidth<HTMLDivElement>(600);

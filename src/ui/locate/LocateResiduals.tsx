@@ -2,9 +2,8 @@ import type { SensorStatus } from '../../io/locate-csv';
 import { usePagedRows } from '../layout/TablePager';
 import { CsvExportButton } from '../export/CsvExportButton';
 import { formatFixed, formatSignificant } from '../units/format-number';
-import { useSekundoStore } from '../store';
 import { useDisplayUnit } from '../units/use-display-unit';
-import { useLocateOutcome } from './use-locate';
+import { useLocateFit } from './use-locate';
 
 /** Decimals of a predicted arrival: 0.1 µs in any unit. */
 const PREDICTED_DECIMALS = { ms: 4, µs: 1, s: 7 } as const;
@@ -21,8 +20,7 @@ const BAR_LIMIT = 6;
 
 /** Residual of each sensor (measured − predicted arrival), its size in sds as a bar, and its part in the fit. */
 export function LocateResiduals() {
-  const outcome = useLocateOutcome();
-  const rows = useSekundoStore((s) => s.locateRows);
+  const { outcome, rows } = useLocateFit();
   const time = useDisplayUnit('time');
   const page = usePagedRows(outcome.ok ? outcome.outcomes.length : 0);
   const csv = () =>

@@ -1,16 +1,15 @@
 import { CsvExportButton } from '../export/CsvExportButton';
 import { formatMeasured } from '../units/format-measured';
 import { formatSignificant } from '../units/format-number';
-import { useSekundoStore } from '../store';
 import { useDisplayUnit } from '../units/use-display-unit';
 import { AXIS_NAMES } from './locate-inputs';
-import { useLocateOutcome } from './use-locate';
+import { useLocateFit } from './use-locate';
 
 /** The located source with its sds, the emission time, the speed, the fit; or plainly why there is none. */
 export function LocateSummary() {
-  const outcome = useLocateOutcome();
-  const rows = useSekundoStore((s) => s.locateRows);
-  const fitSpeed = useSekundoStore((s) => s.locateOptions.fitSpeed);
+  // The fit on screen and the inputs it is for: a keystroke in the table leaves this as it is.
+  const { outcome, rows, options } = useLocateFit();
+  const fitSpeed = options.fitSpeed;
   const length = useDisplayUnit('length');
   const time = useDisplayUnit('time');
   if (!outcome.ok) {

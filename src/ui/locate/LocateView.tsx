@@ -1,5 +1,5 @@
 import { UpdatingNote } from '../layout/UpdatingNote';
-import { useLocateUpdating } from './use-locate';
+import { useLocateRequests, useLocateUpdating } from './use-locate';
 import { useEffect } from 'react';
 import { PanelErrorBoundary } from '../layout/PanelErrorBoundary';
 import { useSekundoStore } from '../store';
@@ -26,6 +26,7 @@ export function LocateView() {
   }
   return (
     <div className="locate">
+      <LocateRequests />
       <LocateUpdating />
       <PanelErrorBoundary panel="sensor data bar">
         <LocateBar />
@@ -70,6 +71,12 @@ function useDemoOnFirstOpen(): void {
     begin();
     void loadLocateDemo().then(({ sensors, origin }) => load(sensors, origin));
   }, [begin, load]);
+}
+
+/** Asks the locate worker for each new set of inputs; renders nothing (only it follows every keystroke). */
+function LocateRequests() {
+  useLocateRequests();
+  return null;
 }
 
 /** While the locate worker fits newer inputs, the fit on screen is the last one: say so. */

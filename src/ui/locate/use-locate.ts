@@ -1,5 +1,5 @@
 import { noteThreadWork } from '../layout/main-thread-work';
-import { useEffect, useState, useSyncExternalStore } from 'react';
+import { startTransition, useEffect, useState, useSyncExternalStore } from 'react';
 import { HeldUntilTypingPauses, watchTyping } from '../layout/typing-pause';
 import { useSekundoStore } from '../store';
 import { deriveLocate, type LocateOutcome, speedOf } from './derive-locate';
@@ -29,14 +29,20 @@ export const LOCATE_ON_THIS_THREAD = 'sekundo: source located on this thread';
 // keeps the last outcome, marked as updating, until the newest inputs are fitted. Without workers
 // (jsdom in component tests) it is computed here, as above.
 
+/** A fit and the inputs it is for (the fit's indices are of its own rows). */
+export interface LocateFit {
+  rows: readonly LocateRowInput[];
+  options: LocateOptionsInput;
+  outcome: LocateOutcome;
+}
+
 interface ShownFit {
-  rows: readonly LocateRowInput[] | null;
-  options: LocateOptionsInput | null;
-  outcome: LocateOutcome | null;
+  /** The newest fit from the worker; the same object while the page only says it is updating. */
+  fit: LocateFit | null;
   updating: boolean;
 }
 
-let shown: ShownFit = { rows: null, options: null, outcome: null, updating: false };
+let shown: ShownFit = { fit: null, updating: false };
 const listeners = new Set<() => void>();
 let port: ((request: LocateRequest) => void) | null | undefined;
 let wanted: { id: number; rows: readonly LocateRowInput[] | null; options: LocateOptionsInput | null } = { id: 0, rows: null, options: null };
@@ -47,7 +53,8 @@ function publish(next: ShownFit): void {
 }
 
 const held = new HeldUntilTypingPauses<LocateReply>((reply) => {
-  if (reply.id === wanted.id) publish({ rows: wanted.rows, options: wanted.options, outcome: reply.outcome, updating: false });
+  const { rows, options } = wanted;
+  if (reply.id === wanted.id && rows !== null && options !== null) publish({ fit: { rows, options, outcome: reply.outcome }, updating: false });
 });
 
 function locatePort(): ((request: LocateRequest) => void) | null {
@@ -61,9 +68,9 @@ function locatePort(): ((request: LocateRequest) => void) | null {
       if (event.data.id === wanted.id) held.offer(event.data);
     });
     const fail = (message: string) => {
-      const options = wanted.options;
-      if (options === null) return;
-      publish({ rows: wanted.rows, options, outcome: { ok: false, message: `The source could not be located: ${message}`, speed: speedOf(options), constraint: constraintOf(options) }, updating: false });
+      const { rows, options } = wanted;
+      if (rows === null || options === null) return;
+      publish({ fit: { rows, options, outcome: { ok: false, message: `The source could not be located: ${message}`, speed: speedOf(options), constraint: constraintOf(options) } }, updating: false });
     };
     worker.addEventListener('error', (event) => fail(event.message || 'the locate worker stopped'));
     worker.addEventListener('messageerror', () => fail('an answer from the locate worker could not be read'));
@@ -86,36 +93,68 @@ function subscribe(listener: () => void): () => void {
   listeners.add(listener);
   return () => listeners.delete(listener);
 }
-const current = () => shown;
 
-/** The fit shown for the store's inputs, asked for when they change. */
-function useShownFit(): { fit: ShownFit; rows: readonly LocateRowInput[]; options: LocateOptionsInput; inWorker: boolean } {
+/** Asks the locate worker to fit each new set of inputs (once on the page: the locate view). */
+export function useLocateRequests(): void {
   const rows = useSekundoStore((s) => s.locateRows);
   const options = useSekundoStore((s) => s.locateOptions);
   const inWorker = locatePort() !== null;
   useEffect(() => {
     if (inWorker) request(rows, options);
   }, [rows, options, inWorker]);
-  const fit = useSyncExternalStore(subscribe, current, current);
-  return { fit, rows, options, inWorker };
 }
 
 /**
- * The located source (or why there is none) for the store's inputs: from the locate worker (the
- * last fit while a newer one runs), or computed here where no worker runs.
+ * The worker's newest fit, taken in as a transition: the panels that draw it re-render at low
+ * priority in one pass a keystroke interrupts, and only when a new fit arrives — not on each
+ * keystroke, nor when the page starts saying it is updating.
  */
+function useWorkerFit(): LocateFit | null {
+  const [fit, setFit] = useState<LocateFit | null>(() => shown.fit);
+  useEffect(() => {
+    let taken: { fit: LocateFit | null } | null = null;
+    const follow = () => {
+      const next = shown.fit;
+      if (taken !== null && taken.fit === next) return;
+      taken = { fit: next };
+      startTransition(() => setFit(next));
+    };
+    follow();
+    return subscribe(follow);
+  }, []);
+  return fit;
+}
+
+/**
+ * The fit on screen and the inputs it is for: the locate worker's newest (the last fit while a
+ * newer one runs; the store's inputs, not yet located, before the first), or computed here from
+ * the store's inputs where no worker runs.
+ */
+export function useLocateFit(): LocateFit {
+  const inWorker = locatePort() !== null;
+  const fromWorker = useWorkerFit();
+  // The store's inputs only where they are what is shown (no worker, or no fit yet).
+  const storeRows = useSekundoStore((s) => (inWorker && fromWorker !== null ? null : s.locateRows));
+  const storeOptions = useSekundoStore((s) => (inWorker && fromWorker !== null ? null : s.locateOptions));
+  if (inWorker && fromWorker !== null) return fromWorker;
+  const rows = storeRows ?? [];
+  const options = storeOptions as LocateOptionsInput;
+  if (!inWorker) return { rows, options, outcome: locateOutcomeFor(rows, options) };
+  return { rows, options, outcome: { ok: false, message: 'Locating the source…', speed: speedOf(options), constraint: constraintOf(options) } };
+}
+
+/** The located source (or why there is none) on screen; see {@link useLocateFit}. */
 export function useLocateOutcome(): LocateOutcome {
-  const { fit, rows, options, inWorker } = useShownFit();
-  if (!inWorker) return locateOutcomeFor(rows, options);
-  // A fit of another set of rows cannot be laid over these (its indices are of its own rows).
-  if (fit.outcome !== null && fit.rows?.length === rows.length) return fit.outcome;
-  return { ok: false, message: 'Locating the source…', speed: speedOf(options), constraint: constraintOf(options) };
+  return useLocateFit().outcome;
 }
 
 /** Whether the fit shown is for earlier inputs than the ones being edited. */
 export function useLocateUpdating(): boolean {
-  const { fit, rows, options, inWorker } = useShownFit();
-  return inWorker && (fit.updating || fit.rows !== rows || fit.options !== options);
+  const inWorker = locatePort() !== null;
+  const updating = useSyncExternalStore(subscribe, () => shown.updating, () => shown.updating);
+  const fit = useSyncExternalStore(subscribe, () => shown.fit, () => shown.fit);
+  const current = useSekundoStore((s) => fit !== null && fit.rows === s.locateRows && fit.options === s.locateOptions);
+  return inWorker && (updating || !current);
 }
 
 /** `value` once it has stayed the same for `delay_ms` (the first value at once): costly maps wait for typing to pause. */

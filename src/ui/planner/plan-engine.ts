@@ -36,6 +36,8 @@ let shown: ShownPlan = { plan: null, outcome: null, figure: null, timeline: null
 const listeners = new Set<() => void>();
 let port: PlanPort | null | undefined;
 let nextId = 0;
+/** The points of the last request sent (the worker keeps them). */
+let lastSentPoints: Float64Array | null = null;
 /** The newest request sent: its id, plan and timeline. */
 let wanted: { id: number; plan: PlanFile | null; timeline: TimelineRequest | null } = { id: 0, plan: null, timeline: null };
 const localCache = new SensorResultCache();
@@ -88,7 +90,11 @@ function send(): void {
   if (target === null || plan === null) return;
   nextId += 1;
   wanted = { ...wanted, id: nextId };
-  target.post({ id: nextId, ...packPlan(plan), timeline: wanted.timeline });
+  const packed = packPlan(plan);
+  // The points the worker already has (an edit elsewhere in the plan) are not copied to it again.
+  const points = packed.points !== null && packed.points === lastSentPoints ? 'as-before' : packed.points;
+  lastSentPoints = packed.points;
+  target.post({ id: nextId, plan: packed.plan, points, timeline: wanted.timeline });
   if (!shown.updating) publish({ ...shown, updating: true });
 }
 
@@ -131,7 +137,14 @@ function useShownPart<K extends keyof ShownPlan>(part: K): ShownPlan[K] {
 function useShownResults<K extends 'outcome' | 'figure'>(part: K): ShownPlan[K] {
   const [value, setValue] = useState<ShownPlan[K]>(() => shown[part]);
   useEffect(() => {
-    const follow = () => startTransition(() => setValue(shown[part]));
+    let taken: { value: ShownPlan[K] } | null = null;
+    const follow = () => {
+      const next = shown[part];
+      // Only a new value: the page saying it is updating leaves the results as they are.
+      if (taken !== null && Object.is(taken.value, next)) return;
+      taken = { value: next };
+      startTransition(() => setValue(next));
+    };
     // Anything published between this view's render and now.
     follow();
     return subscribe(follow);

@@ -23,9 +23,11 @@ export interface PlanRequest {
   plan: PlanFile;
   /**
    * A custom pulse's points as [t₀, a₀, t₁, a₁, …]: a typed array copies in one block, where
-   * 10 000 little arrays take the page tens of milliseconds to send on every keystroke.
+   * 10 000 little arrays take the page tens of milliseconds to send on every keystroke; or
+   * 'as-before' when they are the very points of the page's previous request (an edit elsewhere
+   * in the plan), which are then not copied again.
    */
-  points: Float64Array | null;
+  points: Float64Array | null | 'as-before';
   /** Null until the timeline is on screen. */
   timeline: TimelineRequest | null;
 }

@@ -23,7 +23,11 @@ const SLICE_MS = 8;
 
 const scope = globalThis as unknown as WorkerScope;
 const cache = new SensorResultCache();
-let waiting: PlanRequest | null = null;
+/** A request with its points as received (never 'as-before'). */
+type ReceivedRequest = PlanRequest & { points: Float64Array | null };
+let waiting: ReceivedRequest | null = null;
+/** The points of the newest request that carried them ('as-before' means these). */
+let receivedPoints: Float64Array | null = null;
 let running = false;
 /** The last plan computed in full (as text) and its outcome, for requests that change only the figure. */
 let last: { text: string; points: Float64Array | null; outcome: PlanOutcome } | null = null;
@@ -31,7 +35,7 @@ let last: { text: string; points: Float64Array | null; outcome: PlanOutcome } | 
 const pause = () => new Promise<void>((resolve) => setTimeout(resolve, 0));
 
 /** Computes one request; returns without answering when a newer one arrived meanwhile. */
-async function serve(request: PlanRequest): Promise<void> {
+async function serve(request: ReceivedRequest): Promise<void> {
   const text = JSON.stringify(request.plan);
   let outcome: PlanOutcome;
   cache.hits = 0;
@@ -63,7 +67,7 @@ async function serve(request: PlanRequest): Promise<void> {
 async function drain(): Promise<void> {
   running = true;
   while (waiting !== null) {
-    const request: PlanRequest = waiting;
+    const request: ReceivedRequest = waiting;
     waiting = null;
     try {
       await serve(request);
@@ -76,7 +80,10 @@ async function drain(): Promise<void> {
   running = false;
 }
 
-scope.addEventListener('message', (event) => {
-  waiting = event.data;
+scope.addEventListener('message', (event: MessageEvent<PlanRequest>) => {
+  const request = event.data;
+  // Requests arrive in the order sent: 'as-before' is the points of the last one that had them.
+  if (request.points !== 'as-before') receivedPoints = request.points;
+  waiting = { ...request, points: receivedPoints };
   if (!running) void drain();
 });

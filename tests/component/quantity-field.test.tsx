@@ -4,6 +4,7 @@ import { useState } from 'react';
 import { type FieldSpec, FieldMessage, fieldRangeText, QuantityField, readFieldText, TextField } from '../../src/ui/fields';
 import { useSekundoStore } from '../../src/ui/store';
 import { KINDS } from '../../src/ui/units/ladders';
+import { InPageForm } from '../../src/ui/fields/OwnForm';
 
 /*
  * The one quantity field (src/ui/fields): the rules a person meets in every view. Unit factors are
@@ -197,6 +198,41 @@ describe('QuantityField', () => {
     expect(screen.getByRole('alert')).toHaveTextContent('Name is empty');
     await user.type(box('Name'), 'B{Escape}');
     expect(box('Name')).toHaveValue('B');
+  });
+});
+
+describe('own forms (a browser that offers to fill in forms looks over a changed box\'s whole form on every keystroke)', () => {
+  it('each box and its unit menu belong to a hidden form of their own; Enter submits nothing', () => {
+    render(
+      <>
+        <Harness spec={DELAY} initial={2e-3} />
+        <Harness spec={DISTANCE} initial={0.01} />
+        <Name />
+      </>,
+    );
+    const forms = [box('Delay'), box('Gap'), box('Name')].map((input) => input.form);
+    for (const form of forms) {
+      expect(form).not.toBeNull();
+      expect(form?.hidden).toBe(true);
+    }
+    expect(new Set(forms).size).toBe(3);
+    // The delay's form holds its box and its unit menu, and nothing else.
+    expect([...(box('Delay').form?.elements ?? [])]).toEqual([box('Delay'), screen.getByRole('combobox', { name: 'Delay unit' })]);
+    // Enter in a box submits its form (implicit submission); the form sends nothing anywhere.
+    const submit = new Event('submit', { bubbles: true, cancelable: true });
+    box('Gap').form?.dispatchEvent(submit);
+    expect(submit.defaultPrevented).toBe(true);
+  });
+
+  it('inside a small form of the page (InPageForm) the boxes stay in that form', () => {
+    render(
+      <form aria-label="setup">
+        <InPageForm>
+          <Harness spec={DISTANCE} initial={0.01} />
+        </InPageForm>
+      </form>,
+    );
+    expect(box('Gap').form).toBe(screen.getByRole('form', { name: 'setup' }));
   });
 });
 

@@ -17,6 +17,7 @@ import { currentUnitViews, useUnitViews } from '../units/unit-views';
 import { chooseFor, distanceFit, distanceFitTable } from './reading-results';
 import { readDistanceRows, splitPasted } from './table-input';
 import { useFieldValues } from './use-converter';
+import { useOwnForm } from '../fields/OwnForm';
 
 const UNITS: Readonly<Record<DistanceColumn, readonly Unit[]>> = {
   distance: ['mm', 'cm', 'm', 'µm'],
@@ -48,6 +49,8 @@ export function commitDistances(): void {
 export function DistancesInput() {
   const headingId = useId();
   const tableId = useId();
+  // The table's boxes share one form of their own (OwnForm.tsx).
+  const ownForm = useOwnForm();
   const rows = useSekundoStore((s) => s.converterDistanceRows);
   const units = useSekundoStore((s) => s.converterDistanceUnits);
   const error = useSekundoStore((s) => s.converterDistanceError);
@@ -139,6 +142,7 @@ export function DistancesInput() {
                 {COLUMNS.map((column) => (
                   <td key={column}>
                     <input
+                      form={ownForm.id}
                       className="text-input converter-input converter-input--cell"
                       type="text"
                       inputMode="decimal"
@@ -162,6 +166,7 @@ export function DistancesInput() {
             ))}
           </tbody>
         </table>
+        {ownForm.element}
       </div>
       <div className="setup-form__actions">
         <button type="button" className="button" onClick={addRow}>

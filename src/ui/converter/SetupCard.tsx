@@ -4,6 +4,7 @@ import { useSekundoStore } from '../store';
 import { type ConverterFieldKey, converterFieldKey } from './converter-fields';
 import { useConverterField } from './use-converter-field';
 import { symbolCase } from '../layout/symbol-case';
+import { InPageForm } from '../fields/OwnForm';
 
 export type SetupPair = 'distance' | 'delay' | 'delaySd' | 'offset';
 
@@ -46,12 +47,12 @@ export function SetupCard({ title, pairs, lead, submitLabel = 'Apply', children 
       </h2>
       {lead ? <p className="muted converter-card__lead">{lead}</p> : null}
       <form className="setup-form" onSubmit={submit} noValidate>
-        {pairs.map((pair) => {
-          const [value, sd] = PAIRS[pair];
-          return (
-            <ValueSd key={pair} value={value} sd={sd} />
-          );
-        })}
+        <InPageForm>
+          {pairs.map((pair) => {
+            const [value, sd] = PAIRS[pair];
+            return <ValueSd key={pair} value={value} sd={sd} />;
+          })}
+        </InPageForm>
         <div className="setup-form__actions">
           <button type="submit" className="button button--primary">
             {submitLabel}

@@ -19,6 +19,7 @@ import { ResultActions } from './ResultActions';
 import { readSweepText } from './table-input';
 import { useFieldValues } from './use-converter';
 import { symbolCase } from '../layout/symbol-case';
+import { useOwnForm } from '../fields/OwnForm';
 
 const SWEEP_UNITS: readonly Unit[] = ['ms', 'µs', 's'];
 
@@ -62,6 +63,7 @@ export function commitSweep(): void {
 export function SweepInput() {
   const headingId = useId();
   const areaId = useId();
+  const ownForm = useOwnForm();
   const text = useSekundoStore((s) => s.converterSweepText);
   const unit = useSekundoStore((s) => s.converterSweepUnit);
   const error = useSekundoStore((s) => s.converterSweepError);
@@ -87,6 +89,7 @@ Sweep readings (x, delay), one per line
 </HelpLabel>
       <textarea
         id={areaId}
+        form={ownForm.id}
         className="text-input sweep-text"
         rows={9}
         spellCheck={false}
@@ -97,6 +100,7 @@ Sweep readings (x, delay), one per line
         onChange={(event) => edit(event.target.value)}
         onBlur={commitSweep}
       />
+      {ownForm.element}
       <div className="setup-form__actions">
         <label className="inline-label">
           Delay unit{' '}

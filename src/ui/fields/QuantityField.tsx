@@ -32,6 +32,7 @@ import { type ReactNode, useId } from 'react';
 import type { Unit } from '../../io/quantity';
 import { describedBy as joinIds, HelpLabel, type HelpTopic, useFieldHelp } from '../help/FieldHelp';
 import { useSekundoStore } from '../store';
+import { OwnForm, useInPageForm } from './OwnForm';
 import { type FieldSpec, fieldRangeText, fieldValueText, readFieldText, shownFieldUnit, unitLabel } from './field-spec';
 
 /** Id of the element that shows a field's message, so inputs and tables elsewhere can point to it. */
@@ -87,9 +88,9 @@ export function QuantityField({ spec, value, apply, help, ...frame }: QuantityFi
     useSekundoStore.getState().setFieldUnit(fieldKey, picked);
     if (draft) type(draft.text, picked);
   };
-  const unitPart = (helpIds: string | undefined) =>
+  const unitPart = (helpIds: string | undefined, formId: string | undefined) =>
     unit === null ? null : spec.units && spec.units.length > 0 ? (
-      <select className="unit-select" aria-label={`${frame.label ?? spec.label} unit`} aria-describedby={helpIds} value={unit} onChange={(event) => pickUnit(event.target.value as Unit)}>
+      <select className="unit-select" form={formId} aria-label={`${frame.label ?? spec.label} unit`} aria-describedby={helpIds} value={unit} onChange={(event) => pickUnit(event.target.value as Unit)}>
         {(spec.units.includes(unit) ? spec.units : [unit, ...spec.units]).map((u) => (
           <option key={u} value={u}>
             {unitLabel(spec, u)}
@@ -159,8 +160,8 @@ interface FrameProps extends FieldFrameProps {
   range: string | null;
   text: string;
   onType: (text: string) => void;
-  /** What stands after the box (the unit), given the ids of the field's help. */
-  after: (helpIds: string | undefined) => ReactNode;
+  /** What stands after the box (the unit), given the ids of the field's help and of the box's own form (OwnForm.tsx). */
+  after: (helpIds: string | undefined, formId: string | undefined) => ReactNode;
 }
 
 /** Label, box, unit, hint and message: what every field looks like and how it leaves and restores. */
@@ -177,6 +178,8 @@ function FieldFrame({ fieldKey, label, shortLabel, labelHidden = false, hint, me
   };
   const validId = `${id}-valid`;
   const hintId = `${id}-hint`;
+  // The box's own form (OwnForm.tsx), unless it sits in a small form of the page's own.
+  const formId = useInPageForm() ? undefined : `${id}-form`;
   // The help (own or a column's) names the valid range; without any, a hidden line says it.
   const helped = hasHelp || elsewhere !== undefined;
   const describedBy = joinIds(error && fieldMessageId(fieldKey), !error && hint ? hintId : null, !error && range && !helped && validId, hasHelp && fieldHelp.describedBy, elsewhere);
@@ -195,6 +198,7 @@ function FieldFrame({ fieldKey, label, shortLabel, labelHidden = false, hint, me
       <div className="quantity-field__box">
         <input
           id={id}
+          form={formId}
           className="text-input quantity-input"
           type="text"
           value={text}
@@ -212,7 +216,8 @@ function FieldFrame({ fieldKey, label, shortLabel, labelHidden = false, hint, me
             if (event.key === 'Escape') useSekundoStore.getState().dropFieldDraft(fieldKey);
           }}
         />
-        {after(joinIds(hasHelp && fieldHelp.describedBy, elsewhere))}
+        {after(joinIds(hasHelp && fieldHelp.describedBy, elsewhere), formId)}
+        {formId === undefined ? null : <OwnForm id={formId} />}
       </div>
       {error && message === 'below' ? (
         <p id={fieldMessageId(fieldKey)} className="field-error quantity-field__error" role="alert">

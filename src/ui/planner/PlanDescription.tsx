@@ -3,6 +3,7 @@ import { MAX_NOTES_CHARS, type PlanFile } from '../../io/plan-file';
 import { HelpLabel, useFieldHelp } from '../help/FieldHelp';
 import { useSekundoStore } from '../store';
 import { PLAN_OTHER_HELP } from './planner-help';
+import { useOwnForm } from '../fields/OwnForm';
 
 /** The description's key in the fields slice (see use-plan-field.ts). */
 const KEY = 'planner.plan.notes';
@@ -25,6 +26,7 @@ function notesEdit(plan: PlanFile, text: string) {
  */
 export function PlanDescription() {
   const id = useId();
+  const ownForm = useOwnForm();
   const notes = useSekundoStore((s) => s.plannerPlan.notes ?? '');
   const draft = useSekundoStore((s) => s.fieldDrafts[KEY]);
   const error = draft?.message ?? null;
@@ -48,6 +50,7 @@ export function PlanDescription() {
       </HelpLabel>
       <textarea
         id={id}
+        form={ownForm.id}
         className="plan-bar__description"
         rows={3}
         value={draft?.text ?? notes}
@@ -60,6 +63,7 @@ export function PlanDescription() {
           if (event.key === 'Escape') useSekundoStore.getState().dropFieldDraft(KEY);
         }}
       />
+      {ownForm.element}
       {error ? (
         <p id={`${id}-error`} className="field-error" role="alert">
           {error}

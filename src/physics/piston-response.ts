@@ -155,8 +155,13 @@ function addByCorners(values: Float64Array, start: number, h: number, tab: PhiTa
     previousSlope = slope;
   }
   const end = tab.tau0 + tab.dtau * (tab.phi.length - 1);
+  // Once the last corner is past the table's end, a jump adds J·(Ψ(b) − Ψ(a)) = 0 (Ψ is constant
+  // there) and a kink m·Ψ(end)·h, and the kinks sum to zero (the slope starts and ends at 0): the
+  // rest of the grid (the sensor lag's tail) gets nothing from here.
+  const quiet = end + (t[k - 1] as number) + h / 2;
   for (let n = 0; n < values.length; n++) {
     const tn = start + n * h;
+    if (tn >= quiet) break;
     let acc = 0;
     for (let i = 0; i < k; i++) {
       const a = tn - h / 2 - (t[i] as number);

@@ -1,5 +1,6 @@
 import { noteThreadWork } from '../layout/main-thread-work';
-import { startTransition, useEffect, useState, useSyncExternalStore } from 'react';
+import { useEffect, useState, useSyncExternalStore } from 'react';
+import { useValueInTransition } from '../layout/transition-value';
 import { HeldUntilTypingPauses, watchTyping } from '../layout/typing-pause';
 import { useSekundoStore } from '../store';
 import { deriveLocate, type LocateOutcome, speedOf } from './derive-locate';
@@ -105,25 +106,11 @@ export function useLocateRequests(): void {
 }
 
 /**
- * The worker's newest fit, taken in as a transition: the panels that draw it re-render at low
- * priority in one pass a keystroke interrupts, and only when a new fit arrives — not on each
- * keystroke, nor when the page starts saying it is updating.
+ * The worker's newest fit, taken in as a transition (`useValueInTransition`): the panels that draw
+ * it re-render at low priority in one pass a keystroke interrupts, and only when a new fit arrives
+ * — not on each keystroke, nor when the page starts saying it is updating.
  */
-function useWorkerFit(): LocateFit | null {
-  const [fit, setFit] = useState<LocateFit | null>(() => shown.fit);
-  useEffect(() => {
-    let taken: { fit: LocateFit | null } | null = null;
-    const follow = () => {
-      const next = shown.fit;
-      if (taken !== null && taken.fit === next) return;
-      taken = { fit: next };
-      startTransition(() => setFit(next));
-    };
-    follow();
-    return subscribe(follow);
-  }, []);
-  return fit;
-}
+const readFit = () => shown.fit;
 
 /**
  * The fit on screen and the inputs it is for: the locate worker's newest (the last fit while a
@@ -132,7 +119,7 @@ function useWorkerFit(): LocateFit | null {
  */
 export function useLocateFit(): LocateFit {
   const inWorker = locatePort() !== null;
-  const fromWorker = useWorkerFit();
+  const fromWorker = useValueInTransition(subscribe, readFit);
   // The store's inputs only where they are what is shown (no worker, or no fit yet).
   const storeRows = useSekundoStore((s) => (inWorker && fromWorker !== null ? null : s.locateRows));
   const storeOptions = useSekundoStore((s) => (inWorker && fromWorker !== null ? null : s.locateOptions));

@@ -8,9 +8,10 @@
  * plan is computed on the calling thread, as before, with the same per-sensor cache.
  */
 import { noteThreadWork } from '../layout/main-thread-work';
-import { startTransition, useEffect, useMemo, useState, useSyncExternalStore } from 'react';
+import { useEffect, useMemo, useSyncExternalStore } from 'react';
 import type { PlanFile } from '../../io/plan-file';
 import { SensorResultCache } from '../../physics';
+import { useValueInTransition } from '../layout/transition-value';
 import { HeldUntilTypingPauses, watchTyping } from '../layout/typing-pause';
 import { derivePlan, PLAN_ON_THIS_THREAD, type PlanOutcome } from './derive-plan';
 import { type PlanReply, type PlanRequest, packPlan, sameTimeline, type TimelineRequest } from './plan-worker-protocol';
@@ -128,29 +129,9 @@ function useShownPart<K extends keyof ShownPlan>(part: K): ShownPlan[K] {
   return useSyncExternalStore(subscribe, read, read);
 }
 
-/**
- * The same for the results themselves (outcome, figure), taken in as a transition: React draws
- * the new results at low priority in one pass that a keystroke interrupts (an external store's
- * update is always drawn at once, which drew every results view twice — once with the old
- * results — before a keystroke waiting behind it was answered).
- */
-function useShownResults<K extends 'outcome' | 'figure'>(part: K): ShownPlan[K] {
-  const [value, setValue] = useState<ShownPlan[K]>(() => shown[part]);
-  useEffect(() => {
-    let taken: { value: ShownPlan[K] } | null = null;
-    const follow = () => {
-      const next = shown[part];
-      // Only a new value: the page saying it is updating leaves the results as they are.
-      if (taken !== null && Object.is(taken.value, next)) return;
-      taken = { value: next };
-      startTransition(() => setValue(next));
-    };
-    // Anything published between this view's render and now.
-    follow();
-    return subscribe(follow);
-  }, [part]);
-  return value;
-}
+/** The results themselves, taken in as a transition (`useValueInTransition`): one low-priority pass a keystroke interrupts. */
+const readOutcome = () => shown.outcome;
+const readFigure = () => shown.figure;
 
 /**
  * The outcome the planner shows. `plan`: the store's plan where no worker runs (computed here), null
@@ -159,7 +140,7 @@ function useShownResults<K extends 'outcome' | 'figure'>(part: K): ShownPlan[K] 
  * when the page starts saying it is updating (that is `useShownUpdating`, a part of its own).
  */
 export function useShownOutcome(plan: PlanFile | null): PlanOutcome | null {
-  const fromWorker = useShownResults('outcome');
+  const fromWorker = useValueInTransition(subscribe, readOutcome);
   const here = useMemo(() => (plan === null ? null : derivePlan(plan, localCache)), [plan]);
   return plan !== null ? here : fromWorker;
 }
@@ -189,7 +170,7 @@ export function useTimelineFigure(outcome: PlanOutcome | null, request: Timeline
   useEffect(() => {
     if (inWorker) requestTimeline({ view, columns, timeUnit });
   }, [inWorker, view, columns, timeUnit]);
-  const fromWorker = useShownResults('figure');
+  const fromWorker = useValueInTransition(subscribe, readFigure);
   const result = outcome?.ok ? outcome.result : null;
   const here = useMemo(() => {
     if (inWorker || result === null) return null;

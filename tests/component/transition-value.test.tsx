@@ -29,6 +29,14 @@ function View() {
   return <output aria-label="answer">{answer.n}</output>;
 }
 
+const early = { n: 7 };
+/** Changes the store during its own render, before its effect subscribes. */
+function Late() {
+  const answer = useValueInTransition(subscribe, readAnswer);
+  if (store.answer !== early && answer.n !== 7) store = { ...store, answer: early };
+  return <output aria-label="late">{answer.n}</output>;
+}
+
 describe('useValueInTransition', () => {
   it('shows each new value, and re-renders for nothing else the store changes', async () => {
     render(<View />);
@@ -43,13 +51,6 @@ describe('useValueInTransition', () => {
   });
 
   it('takes in a value published between its render and its subscription', async () => {
-    const early = { n: 7 };
-    function Late() {
-      const answer = useValueInTransition(subscribe, readAnswer);
-      // Published during the render, before the effect subscribes.
-      if (store.answer !== early && answer.n !== 7) store = { ...store, answer: early };
-      return <output aria-label="late">{answer.n}</output>;
-    }
     render(<Late />);
     await act(async () => {});
     expect(screen.getByRole('status', { name: 'late' })).toHaveTextContent('7');

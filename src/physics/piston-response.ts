@@ -191,10 +191,18 @@ function addByConvolution(values: Float64Array, start: number, h: number, tab: P
   const mMax = n0 + values.length - 1 - j0;
   const increments = new Float64Array(mMax - mMin + 1);
   for (let m = mMin; m <= mMax; m++) increments[m - mMin] = averageOverStep(profile, m * h, h) - averageOverStep(profile, (m - 1) * h, h);
+  // The increments are zero before the pulse and after it (the sensor lag's tail): only the
+  // products with a non-zero increment are summed, which leaves each sum as it was.
+  let first = 0;
+  while (first < increments.length && increments[first] === 0) first++;
+  let last = increments.length - 1;
+  while (last >= first && increments[last] === 0) last--;
   for (let i = 0; i < values.length; i++) {
     const base = n0 + i - j0 - mMin;
+    const jFrom = Math.max(0, base - last);
+    const jTo = Math.min(bins - 1, base - first);
     let acc = 0;
-    for (let j = 0; j < bins; j++) acc += (phiBar[j] as number) * (increments[base - j] as number);
+    for (let j = jFrom; j <= jTo; j++) acc += (phiBar[j] as number) * (increments[base - j] as number);
     values[i] = (values[i] as number) + scale * acc;
   }
 }

@@ -184,7 +184,7 @@ describe('Follow a folder', () => {
     await waitFor(() => expect(lastDraw('watch-live')?.data.find((t) => t.name === CROSSING_TRACE)).toBeUndefined());
   }, 30_000);
 
-  it('a change of distance converts every file read so far again', async () => {
+  it('a change of distance converts every file read so far again, once typing pauses (not on each keystroke)', async () => {
     const folder = new FakeFolder();
     (window as PickerWindow).showDirectoryPicker = vi.fn(async () => folder);
     const user = await openWatch();
@@ -195,6 +195,8 @@ describe('Follow a folder', () => {
     const distance = screen.getByRole('textbox', { name: 'Distance' });
     await user.clear(distance);
     await user.type(distance, '50.5{Enter}');
+    // Just typed: the series waits for a pause in typing (typing-pause.ts) before converting again.
+    expect(tableTemperatures()[0]).toBe(before);
     await waitFor(() => expect(tableTemperatures()[0]).not.toBe(before));
     expect(tableTemperatures()).toHaveLength(1);
   });

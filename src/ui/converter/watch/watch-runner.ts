@@ -17,6 +17,7 @@ import { choiceRuleOf } from '../converter-checks';
 import { defaultChannels } from '../trace/trace-loader';
 import { traceEngine } from '../trace/trace-engine';
 import { pickOptionsOf } from '../trace/trace-picks';
+import { HeldUntilTypingPauses, watchTyping } from '../../layout/typing-pause';
 import { watchLive } from './watch-live';
 import { filesSource, type WatchSource } from './watch-sources';
 
@@ -43,12 +44,20 @@ export function watchSettingsOf(s: SekundoState): WatchSettings {
   };
 }
 
+/**
+ * New settings once typing pauses: a distance typed converts every file read so far again
+ * (0.2–0.6 s at 10 000 files), which is not done on each keystroke.
+ */
+const settingsAfterTyping = new HeldUntilTypingPauses<WatchSettings>((next) => watchLive.configure(next));
+
 /** Keeps the live series built with the converter's current settings (from the first run on). */
 function followSettings(): void {
+  settingsAfterTyping.drop();
   watchLive.configure(watchSettingsOf(useSekundoStore.getState()));
   if (followingSettings) return;
   followingSettings = true;
-  useSekundoStore.subscribe((s) => watchLive.configure(watchSettingsOf(s)));
+  watchTyping();
+  useSekundoStore.subscribe((s) => settingsAfterTyping.offer(watchSettingsOf(s)));
 }
 
 function pickOptionsNow() {
